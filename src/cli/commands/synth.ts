@@ -1,0 +1,130 @@
+import { compileSpec, type DecodeSpec } from "../../core/decodeSpec.ts";
+import type { VerifiedMatrix } from "../../core/matrix.ts";
+import { countParts, refRanges } from "../../core/parts.ts";
+import type { Project } from "../../core/project.ts";
+import { synthesize, synthSettings, type SynthSettings, type SynthFailure } from "../../core/synthesize.ts";
+import { intOption, type ParsedArgs } from "../args.ts";
+import type { Command } from "../command.ts";
+import { EXIT, type CliIo } from "../io.ts";
+import { loadProject } from "../loadProject.ts";
+
+const USAGE = "synth FILE [--json] [--direct | --fast] [--max-depth K] [--depth POLICY] [--time-limit MS]";
+
+export const synthCommand: Command = {
+  name: "synth",
+  usage: USAGE,
+  summary: "find the smallest verified diode matrix for a project",
+  options: {
+    json: { help: "print the matrix as diodeloom/matrix@1 JSON" },
+    direct: { help: "one diode per lit cell, no sharing" },
+    fast: { help: "the heuristic only (no exact optimizer)" },
+    "max-depth": { value: true, meta: "K", help: "most diodes on any path, 1-3 (overrides the project)" },
+    depth: { value: true, meta: "POLICY", help: "mixed | per-segment | uniform (overrides the project)" },
+    "time-limit": { value: true, meta: "MS", help: "time limit of the exact optimizer, milliseconds" },
+  },
+  async run(args, io) {
+    const project = await loadProject(args, io, USAGE);
+    if (!project) return EXIT.input;
+    const settings = settingsFromArgs(project, args, io);
+    if (!settings) return EXIT.input;
+    const spec = compileSpec(project);
+    const result = await synthesize(spec, settings);
+    if (!result.ok) return reportFailure(result.error, io);
+    if (args.flags.has("json")) io.out(JSON.stringify(result.value, null, 2) + "\n");
+    else io.out(describeMatrix(project, spec, result.value));
+    return EXIT.ok;
+  },
+};
+
+/** Applies the synthesis options shared by `synth` and the commands built on it. */
+export function settingsFromArgs(project: Project, args: ParsedArgs, io: CliIo): SynthSettings | undefined {
+  const overrides: { -readonly [K in keyof SynthSettings]?: SynthSettings[K] } = {};
+  if (args.flags.has("direct") && args.flags.has("fast")) {
+    io.err("--direct and --fast exclude each other; give one\n");
+    return undefined;
+  }
+  if (args.flags.has("direct")) overrides.mode = "direct";
+  if (args.flags.has("fast")) overrides.mode = "fast";
+  const depthK = intOption(args, "max-depth", 1, 3);
+  if (!depthK.ok) return void io.err(depthK.message + "\n");
+  if (depthK.value !== undefined) overrides.maxDepth = depthK.value;
+  const limit = intOption(args, "time-limit", 1, 3_600_000);
+  if (!limit.ok) return void io.err(limit.message + "\n");
+  if (limit.value !== undefined) overrides.timeLimitMs = limit.value;
+  const policy = args.values.get("depth");
+  if (policy !== undefined) {
+    if (policy !== "mixed" && policy !== "per-segment" && policy !== "uniform") {
+      return void io.err(`--depth must be mixed, per-segment or uniform (got "${policy}")\n`);
+    }
+    overrides.depth = policy;
+  }
+  return synthSettings(project, overrides);
+}
+
+/** Prints a synthesis failure and returns its exit code. */
+export function reportFailure(failure: SynthFailure, io: CliIo): number {
+  if (failure.kind === "infeasible") {
+    io.err(failure.message + "\n");
+    return EXIT.input;
+  }
+  io.err(`${failure.message}\n${failure.details.map((d) => `  - ${d}`).join("\n")}\n`);
+  return EXIT.internal;
+}
+
+const METHOD_TEXT = {
+  direct: "direct (one diode per lit cell)",
+  heuristic: "heuristic sharing",
+  exact: "exact optimizer",
+} as const;
+
+/** The readable report of `synth`. */
+export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMatrix): string {
+  const lines: string[] = [];
+  const lit = spec.lit.reduce((a, row) => a + row.filter(Boolean).length, 0);
+  lines.push(project.title);
+  lines.push(
+    `${spec.states.length} states, ${spec.positions} position(s) of ${spec.cell.kind}, ` +
+      `${spec.outputs.length} outputs driven, ${spec.tiedOn.length} tied on, ${spec.neverLit.length} never lit`,
+  );
+  const bound = m.optimal ? "proven minimum" : m.lowerBound !== null ? `lower bound ${m.lowerBound}, gap ${m.count - m.lowerBound}` : "no lower bound";
+  lines.push(`Method: ${METHOD_TEXT[m.method]}; verified; depth limit ${m.depthLimit} (${m.depth}), longest path ${m.maxDepth}; ${bound}`);
+  lines.push("");
+
+  const fromOf = new Map<string, string[]>();
+  for (const d of m.diodes) fromOf.set(d.from, [...(fromOf.get(d.from) ?? []), `${d.ref}>${d.to}`]);
+  const textW = Math.max(4, ...spec.texts.map((t) => t.length + 2));
+  lines.push(`${"State".padEnd(6)} ${"Text".padEnd(textW)} Diodes`);
+  spec.states.forEach((s, k) => {
+    const ds = fromOf.get(s) ?? [];
+    lines.push(`${s.padEnd(6)} ${`"${spec.texts[k]}"`.padEnd(textW)} ${ds.length === 0 ? "-" : ds.join(" ")}`);
+  });
+  if (m.buses.length > 0) {
+    lines.push("", "Bus nodes (states in -> outputs out)");
+    for (const b of m.buses) {
+      const ins = m.diodes.filter((d) => d.to === b).map((d) => d.from);
+      const outs = m.diodes.filter((d) => d.from === b).map((d) => d.to);
+      lines.push(`  ${b.padEnd(4)} ${ins.join(" ")} -> ${outs.join(" ")}  (${ins.length + outs.length} diodes for ${ins.length * outs.length} crossings)`);
+    }
+  }
+  const outSet = new Set(spec.outputs);
+  const links = m.diodes.filter((d) => outSet.has(d.from));
+  if (links.length > 0) {
+    lines.push("", "Segment links (output drives output)");
+    for (const d of links) lines.push(`  ${d.ref.padEnd(5)} ${d.from} -> ${d.to}`);
+  }
+
+  lines.push("", `${"Output".padEnd(7)} Lit in states`);
+  spec.outputs.forEach((o, j) => {
+    const ks = spec.states.filter((_, k) => spec.lit[k]?.[j]);
+    lines.push(`${o.padEnd(7)} ${ks.join(" ")}`);
+  });
+  if (spec.tiedOn.length > 0) lines.push(`Tied on (lit in every state, no diodes): ${spec.tiedOn.join(" ")}`);
+  if (spec.neverLit.length > 0) lines.push(`Never lit (no driver): ${spec.neverLit.join(" ")}`);
+
+  lines.push("", "Parts");
+  for (const g of countParts(project, spec, m)) {
+    lines.push(`  ${String(g.refs.length).padStart(4)}  ${g.value.padEnd(22)} ${refRanges(g.refs)}`);
+  }
+  lines.push("", `Totals: ${m.count} diodes (direct ${lit}, saved ${lit - m.count}), ${m.buses.length} bus nodes, ${links.length} links`);
+  return lines.join("\n") + "\n";
+}

@@ -1,0 +1,38 @@
+import { formatProblems } from "../core/result.ts";
+import { parseProject, MAX_PROJECT_BYTES } from "../core/projectSchema.ts";
+import type { Project } from "../core/project.ts";
+import type { ParsedArgs } from "./args.ts";
+import type { CliIo } from "./io.ts";
+
+/**
+ * Reads and validates the one project file a command names. On any problem
+ * it prints the messages (prefixed with the file name) and returns undefined;
+ * the caller exits with code 2.
+ */
+export async function loadProject(args: ParsedArgs, io: CliIo, usage: string): Promise<Project | undefined> {
+  const file = args.positional[0];
+  if (file === undefined || args.positional.length > 1) {
+    io.err(`usage: diodeloom ${usage}\n`);
+    return undefined;
+  }
+  const read = await io.readFile(file);
+  if (!read.ok) {
+    io.err(`${file}: ${read.message}\n`);
+    return undefined;
+  }
+  if (read.text.length > MAX_PROJECT_BYTES) {
+    io.err(`${file}: the file is larger than 1 MiB; a project needs far less\n`);
+    return undefined;
+  }
+  const parsed = parseProject(read.text);
+  if (!parsed.ok) {
+    io.err(
+      formatProblems(parsed.error)
+        .split("\n")
+        .map((l) => `${file}: ${l}`)
+        .join("\n") + "\n",
+    );
+    return undefined;
+  }
+  return parsed.value;
+}

@@ -1,0 +1,136 @@
+/**
+ * The strict, complete project that every stage past the parser works on.
+ *
+ * The loose JSON a person writes (`diodeloom/project@1`) is turned into this
+ * once, by `parseProject`; nothing downstream sees optional fields.
+ */
+
+export const PROJECT_SCHEMA = "diodeloom/project@1";
+
+export type DepthPolicy = "mixed" | "per-segment" | "uniform";
+
+export type CellKind = "seg7" | "seg7dp" | "custom";
+
+export interface Cell {
+  readonly kind: CellKind;
+  /** Segment names in drawing order, e.g. `a`..`g` (plus `dp`). */
+  readonly segments: readonly string[];
+}
+
+export interface SynthesisOptions {
+  /** Most diodes on any path from a counter line to an output line (1-3). */
+  readonly maxDepth: number;
+  readonly depth: DepthPolicy;
+  /** May the optimizer add shared bus nodes? */
+  readonly buses: boolean;
+  /** May the optimizer add output-to-output links? */
+  readonly links: boolean;
+  /** Wall-clock limit for the exact optimizer, milliseconds. */
+  readonly timeLimitMs: number;
+  /** Seed for any randomised step, so a run can be repeated. */
+  readonly seed: number;
+}
+
+/** Counter output stage as a Thevenin source. */
+export interface CounterOutputModel {
+  /** Open-circuit voltage of the active line, volts. */
+  readonly high: number;
+  /** Open-circuit voltage of an idle line, volts. */
+  readonly low: number;
+  /** Series resistance, ohms. */
+  readonly resistance: number;
+}
+
+/** Matrix diode: Shockley model plus ratings. */
+export interface DiodeModel {
+  /** Saturation current, amperes. */
+  readonly is: number;
+  /** Emission coefficient (ideality), dimensionless. */
+  readonly n: number;
+  /** Series resistance, ohms. */
+  readonly rs: number;
+  /** Rated continuous forward current, amperes. */
+  readonly maxForwardA: number;
+  /** Rated reverse voltage, volts. */
+  readonly maxReverseV: number;
+}
+
+/** NPN segment driver: Ebers-Moll transport model with IS, BF, BR. */
+export interface DriverModel {
+  /** Transport saturation current, amperes. */
+  readonly is: number;
+  readonly betaF: number;
+  readonly betaR: number;
+  /** Default emitter resistor, ohms. */
+  readonly emitterResistor: number;
+  /** Per-output emitter resistor overrides, ohms, keyed by output name (`1a`). */
+  readonly emitterResistors: Readonly<Record<string, number>>;
+  /** Rated collector-emitter voltage, volts. */
+  readonly maxVceV: number;
+  /** Rated dissipation, watts. */
+  readonly maxPowerW: number;
+}
+
+/** The LED string on each collector: `dies` Shockley diodes in series. */
+export interface StringModel {
+  readonly dies: number;
+  /** Saturation current per die, amperes. */
+  readonly is: number;
+  readonly n: number;
+  /** Intended string current, amperes. */
+  readonly targetA: number;
+  /** Rated string current, amperes. */
+  readonly maxA: number;
+}
+
+export interface SupplyModel {
+  /** Nominal string supply, volts. */
+  readonly volts: number;
+  readonly minVolts: number;
+  readonly maxVolts: number;
+}
+
+export interface ToleranceModel {
+  /** Resistor tolerance, percent. */
+  readonly resistorPct: number;
+  readonly betaMin: number;
+  readonly betaMax: number;
+  /** Ambient range, degrees Celsius, [low, high]. */
+  readonly temperatureC: readonly [number, number];
+}
+
+export interface ElectricalModel {
+  /** Junction temperature for the nominal solve, degrees Celsius. */
+  readonly temperatureC: number;
+  readonly counterOutput: CounterOutputModel;
+  readonly diode: DiodeModel;
+  /** Pull-down from every output line to ground, ohms. */
+  readonly pullDown: number;
+  readonly driver: DriverModel;
+  readonly string: StringModel;
+  readonly supply: SupplyModel;
+  readonly tolerance: ToleranceModel;
+}
+
+export interface Project {
+  readonly schema: typeof PROJECT_SCHEMA;
+  readonly title: string;
+  readonly counter: { readonly states: number; readonly drive: "source" };
+  readonly display: { readonly positions: number; readonly cell: Cell };
+  /**
+   * Every character the project may show, mapped to its lit segments: the
+   * built-in table for the cell, overridden and extended by the file's own
+   * `glyphs`.
+   */
+  readonly glyphs: Readonly<Record<string, readonly string[]>>;
+  /** The file's own glyph entries, kept so that a saved project round-trips. */
+  readonly glyphOverrides: Readonly<Record<string, readonly string[]>>;
+  /**
+   * Per state, the glyph shown at each position, position 1 first. For a
+   * `seg7dp` cell a `.` joins the position before it, so `"3."` is one
+   * position.
+   */
+  readonly show: readonly string[];
+  readonly synthesis: SynthesisOptions;
+  readonly electrical: ElectricalModel;
+}
