@@ -1,0 +1,37 @@
+import { readFile, writeFile, mkdir } from "node:fs/promises";
+import type { CliIo } from "../../src/cli/io.ts";
+
+/** A CliIo that records what a command prints; files come from a map first, then the disk. */
+export interface RecordingIo extends CliIo {
+  readonly stdout: string[];
+  readonly stderr: string[];
+  readonly written: Map<string, string | Uint8Array>;
+}
+
+export function recordingIo(files: Record<string, string> = {}, opts: { writeToDisk?: boolean } = {}): RecordingIo {
+  const stdout: string[] = [];
+  const stderr: string[] = [];
+  const written = new Map<string, string | Uint8Array>();
+  return {
+    stdout,
+    stderr,
+    written,
+    out: (t) => void stdout.push(t),
+    err: (t) => void stderr.push(t),
+    async readFile(path) {
+      if (path in files) return { ok: true, text: files[path] as string };
+      try {
+        return { ok: true, text: await readFile(path, "utf8") };
+      } catch {
+        return { ok: false, message: "no such file" };
+      }
+    },
+    async writeFile(path, data) {
+      written.set(path, data);
+      if (opts.writeToDisk) await writeFile(path, data);
+    },
+    async makeDir(path) {
+      if (opts.writeToDisk) await mkdir(path, { recursive: true });
+    },
+  };
+}

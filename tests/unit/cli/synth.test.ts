@@ -1,0 +1,33 @@
+import { describe, expect, it } from "vitest";
+import { main } from "../../../src/cli/main.ts";
+import { recordingIo } from "../../support/recordingIo.ts";
+
+describe("diodeloom synth (in-process)", () => {
+  it("prints the matrix JSON with from = anode on a counter line", async () => {
+    const io = recordingIo();
+    expect(await main(["synth", "public/examples/die-roller.json", "--json", "--direct"], io)).toBe(0);
+    const m = JSON.parse(io.stdout.join(""));
+    expect(m.count).toBe(21);
+    expect(m.diodes.every((d: { from: string }) => /^S\d+$/.test(d.from))).toBe(true);
+    expect(m.lowerBound).toBeNull();
+    expect(m.optimal).toBe(false);
+    expect(m.maxDepth).toBe(1);
+  });
+  it("rejects bad option values with exit 2", async () => {
+    for (const args of [["--max-depth", "0"], ["--depth", "deep"], ["--time-limit", "-1"], ["--direct", "--fast"]]) {
+      const io = recordingIo();
+      expect(await main(["synth", "public/examples/die-roller.json", ...args], io)).toBe(2);
+      expect(io.stderr.join("")).toMatch(/--/);
+    }
+  });
+  it("wants exactly one file", async () => {
+    const io = recordingIo();
+    expect(await main(["synth"], io)).toBe(2);
+    expect(io.stderr.join("")).toMatch(/^usage: diodeloom synth FILE/);
+  });
+  it("names an unknown command", async () => {
+    const io = recordingIo();
+    expect(await main(["synthesise"], io)).toBe(2);
+    expect(io.stderr.join("")).toMatch(/unknown command "synthesise"/);
+  });
+});
