@@ -17,7 +17,10 @@ export interface ParsedArgs {
   readonly values: ReadonlyMap<string, string>;
 }
 
-export function parseArgs(argv: readonly string[], options: Readonly<Record<string, OptionSpec>>): { ok: true; args: ParsedArgs } | { ok: false; message: string } {
+export function parseArgs(
+  argv: readonly string[],
+  options: Readonly<Record<string, OptionSpec>>,
+): { ok: true; args: ParsedArgs } | { ok: false; message: string } {
   const positional: string[] = [];
   const flags = new Set<string>();
   const values = new Map<string, string>();
@@ -32,7 +35,9 @@ export function parseArgs(argv: readonly string[], options: Readonly<Record<stri
       const name = a.slice(2, eq < 0 ? undefined : eq);
       const spec = options[name];
       if (!spec) {
-        const known = Object.keys(options).map((k) => `--${k}`).join(", ");
+        const known = Object.keys(options)
+          .map((k) => `--${k}`)
+          .join(", ");
         return { ok: false, message: `unknown option --${name}${known ? ` (this command takes ${known})` : ""}` };
       }
       if (spec.value) {
@@ -53,7 +58,12 @@ export function parseArgs(argv: readonly string[], options: Readonly<Record<stri
 }
 
 /** Reads a whole-number option in a range, or says what is wrong. */
-export function intOption(args: ParsedArgs, name: string, min: number, max: number): { ok: true; value: number | undefined } | { ok: false; message: string } {
+export function intOption(
+  args: ParsedArgs,
+  name: string,
+  min: number,
+  max: number,
+): { ok: true; value: number | undefined } | { ok: false; message: string } {
   const raw = args.values.get(name);
   if (raw === undefined) return { ok: true, value: undefined };
   const n = Number(raw);

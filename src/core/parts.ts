@@ -37,7 +37,12 @@ export function formatOhms(ohms: number): string {
  *
  * @param emitterOhms optional per-output emitter resistor values (a trim)
  */
-export function countParts(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, emitterOhms?: ReadonlyMap<string, number>): PartGroup[] {
+export function countParts(
+  project: Project,
+  spec: DecodeSpec,
+  matrix: DiodeMatrix,
+  emitterOhms?: ReadonlyMap<string, number>,
+): PartGroup[] {
   const e = project.electrical;
   const driven = [...matrix.outputs, ...matrix.tiedOn];
   const ordered = spec.allOutputs.filter((o) => driven.includes(o));

@@ -126,10 +126,7 @@ const ElectricalSchema = strict({
       betaF: v.optional(num({ above: 0 }), d.driver.betaF),
       betaR: v.optional(num({ above: 0 }), d.driver.betaR),
       emitterResistor: v.optional(num({ above: 0, unit: "Ω" }), d.driver.emitterResistor),
-      emitterResistors: v.optional(
-        v.record(v.string(), num({ above: 0, unit: "Ω" }), "must map output names to ohms"),
-        {},
-      ),
+      emitterResistors: v.optional(v.record(v.string(), num({ above: 0, unit: "Ω" }), "must map output names to ohms"), {}),
       maxVceV: v.optional(num({ above: 0, unit: "V" }), d.driver.maxVceV),
       maxPowerW: v.optional(num({ above: 0, unit: "W" }), d.driver.maxPowerW),
     }),
@@ -159,10 +156,7 @@ const ElectricalSchema = strict({
       betaMin: v.optional(num({ above: 0 }), d.tolerance.betaMin),
       betaMax: v.optional(num({ above: 0 }), d.tolerance.betaMax),
       temperatureC: v.optional(
-        v.tuple(
-          [num({ min: -55, max: 150, unit: "°C" }), num({ min: -55, max: 150, unit: "°C" })],
-          "must be [low, high] in °C",
-        ),
+        v.tuple([num({ min: -55, max: 150, unit: "°C" }), num({ min: -55, max: 150, unit: "°C" })], "must be [low, high] in °C"),
         d.tolerance.temperatureC as [number, number],
       ),
     }),
@@ -297,7 +291,7 @@ function complete(p: LooseProject): Result<Project> {
       if (!(pos.char in glyphs)) {
         problems.push({
           path: `show[${k}]`,
-          message: `no glyph for "${pos.char}"; add it under glyphs, e.g. "glyphs": {"${pos.char}": "${cell.kind === "custom" ? cell.segments[0] ?? "" : "abcdefg"}"}`,
+          message: `no glyph for "${pos.char}"; add it under glyphs, e.g. "glyphs": {"${pos.char}": "${cell.kind === "custom" ? (cell.segments[0] ?? "") : "abcdefg"}"}`,
         });
       }
     }
@@ -325,14 +319,20 @@ function resolveCell(p: LooseProject, problems: Problem[]): Cell | undefined {
   const kind = p.display.cell;
   if (kind !== "custom") {
     if (p.display.segments !== undefined) {
-      problems.push({ path: "display.segments", message: `only a "custom" cell lists its segments; remove it or set display.cell to "custom"` });
+      problems.push({
+        path: "display.segments",
+        message: `only a "custom" cell lists its segments; remove it or set display.cell to "custom"`,
+      });
       return undefined;
     }
     return builtinCell(kind);
   }
   const segments = p.display.segments;
   if (!segments || segments.length === 0) {
-    problems.push({ path: "display.segments", message: 'a custom cell needs its segment names, e.g. ["tl", "tr", "ml", "c", "mr", "bl", "br"]' });
+    problems.push({
+      path: "display.segments",
+      message: 'a custom cell needs its segment names, e.g. ["tl", "tr", "ml", "c", "mr", "bl", "br"]',
+    });
     return undefined;
   }
   if (segments.length > 32) {
@@ -341,7 +341,10 @@ function resolveCell(p: LooseProject, problems: Problem[]): Cell | undefined {
   }
   segments.forEach((s, i) => {
     if (!SEGMENT_NAME.test(s)) {
-      problems.push({ path: `display.segments[${i}]`, message: `"${s}" is not a usable segment name; use 1-8 lower-case letters or digits, starting with a letter` });
+      problems.push({
+        path: `display.segments[${i}]`,
+        message: `"${s}" is not a usable segment name; use 1-8 lower-case letters or digits, starting with a letter`,
+      });
     }
   });
   if (new Set(segments).size !== segments.length) {
@@ -383,7 +386,10 @@ function checkElectrical(e: ElectricalModel, cell: Cell, positions: number, prob
   const path = "electrical";
   const s = e.supply;
   if (!(s.minVolts <= s.volts && s.volts <= s.maxVolts)) {
-    problems.push({ path: `${path}.supply`, message: `needs minVolts <= volts <= maxVolts (got ${s.minVolts}, ${s.volts}, ${s.maxVolts})` });
+    problems.push({
+      path: `${path}.supply`,
+      message: `needs minVolts <= volts <= maxVolts (got ${s.minVolts}, ${s.volts}, ${s.maxVolts})`,
+    });
   }
   const vt = thermalVoltage(e.temperatureC);
   const stringV = e.string.dies * shockleyVoltage(e.string.targetA, e.string.is, e.string.n, vt);
@@ -394,7 +400,10 @@ function checkElectrical(e: ElectricalModel, cell: Cell, positions: number, prob
     });
   }
   if (e.counterOutput.high <= e.counterOutput.low) {
-    problems.push({ path: `${path}.counterOutput.high`, message: `must be above counterOutput.low (${e.counterOutput.low} V) for source drive` });
+    problems.push({
+      path: `${path}.counterOutput.high`,
+      message: `must be above counterOutput.low (${e.counterOutput.low} V) for source drive`,
+    });
   }
   if (e.tolerance.betaMin > e.tolerance.betaMax) {
     problems.push({ path: `${path}.tolerance.betaMin`, message: "must not exceed tolerance.betaMax" });
@@ -408,7 +417,10 @@ function checkElectrical(e: ElectricalModel, cell: Cell, positions: number, prob
     const m = /^(\d+)(.+)$/.exec(name);
     const pos = m ? Number(m[1]) : NaN;
     if (!m || !(pos >= 1 && pos <= positions) || !cell.segments.includes(m[2] ?? "")) {
-      problems.push({ path: `${path}.driver.emitterResistors.${name}`, message: `"${name}" is not an output of this display; outputs are named like "1${cell.segments[0] ?? "a"}"` });
+      problems.push({
+        path: `${path}.driver.emitterResistors.${name}`,
+        message: `"${name}" is not an output of this display; outputs are named like "1${cell.segments[0] ?? "a"}"`,
+      });
     }
   }
 }

@@ -11,9 +11,7 @@ export interface Problem {
   readonly message: string;
 }
 
-export type Result<T, E = readonly Problem[]> =
-  | { readonly ok: true; readonly value: T }
-  | { readonly ok: false; readonly error: E };
+export type Result<T, E = readonly Problem[]> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: E };
 
 export function ok<T>(value: T): { readonly ok: true; readonly value: T } {
   return { ok: true, value };

@@ -94,9 +94,11 @@ export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLim
     ls.forEach((l) => all.add(l));
     const longest = Math.max(0, ...ls);
     if (longest > limits.maxDepth) say(`output ${o} is reached through ${longest} diodes, over the limit of ${limits.maxDepth}`);
-    if (limits.depth === "per-segment" && ls.length > 1) say(`output ${o} is reached through paths of ${ls.join(" and ")} diodes; the per-segment policy wants one length`);
+    if (limits.depth === "per-segment" && ls.length > 1)
+      say(`output ${o} is reached through paths of ${ls.join(" and ")} diodes; the per-segment policy wants one length`);
   }
-  if (limits.depth === "uniform" && all.size > 1) say(`paths have ${[...all].sort().join(", ")} diodes; the uniform policy wants one length`);
+  if (limits.depth === "uniform" && all.size > 1)
+    say(`paths have ${[...all].sort().join(", ")} diodes; the uniform policy wants one length`);
 
   // Exactness: per state, the reachable outputs equal the lit ones.
   spec.states.forEach((s, k) => {

@@ -38,7 +38,8 @@ describe("diodeloom command", () => {
     const m = JSON.parse(r.stdout) as Record<string, unknown>;
     expect(m["schema"]).toBe("diodeloom/matrix@1");
     expect(m["verified"]).toBe(true);
-    for (const key of ["states", "outputs", "buses", "diodes", "tiedOn", "count", "lowerBound", "optimal", "maxDepth"]) expect(m).toHaveProperty(key);
+    for (const key of ["states", "outputs", "buses", "diodes", "tiedOn", "count", "lowerBound", "optimal", "maxDepth"])
+      expect(m).toHaveProperty(key);
     const diodes = m["diodes"] as { ref: string; from: string; to: string }[];
     expect(diodes.length).toBe(m["count"]);
     expect(diodes[0]).toEqual({ ref: "D1", from: "S0", to: expect.any(String) });

@@ -13,8 +13,22 @@ import { showing } from "../support/projects.ts";
 
 // Source: "Seven-segment display" (Wikipedia), table of hexadecimal digits.
 const PUBLISHED: Record<string, string> = {
-  "0": "abcdef", "1": "bc", "2": "abdeg", "3": "abcdg", "4": "bcfg", "5": "acdfg", "6": "acdefg", "7": "abc",
-  "8": "abcdefg", "9": "abcdfg", A: "abcefg", b: "cdefg", C: "adef", d: "bcdeg", E: "adefg", F: "aefg",
+  "0": "abcdef",
+  "1": "bc",
+  "2": "abdeg",
+  "3": "abcdg",
+  "4": "bcfg",
+  "5": "acdfg",
+  "6": "acdefg",
+  "7": "abc",
+  "8": "abcdefg",
+  "9": "abcdfg",
+  A: "abcefg",
+  b: "cdefg",
+  C: "adef",
+  d: "bcdeg",
+  E: "adefg",
+  F: "aefg",
 };
 // Source: same article, hex codes gfedcba (a = bit 0), in the order 0-9, A-F.
 const PUBLISHED_HEX = [0x3f, 0x06, 0x5b, 0x4f, 0x66, 0x6d, 0x7d, 0x07, 0x7f, 0x6f, 0x77, 0x7c, 0x39, 0x5e, 0x79, 0x71];

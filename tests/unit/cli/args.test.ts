@@ -21,6 +21,9 @@ describe("parseArgs", () => {
   it("range-checks whole numbers", () => {
     const r = parseArgs(["--max-depth", "4"], opts);
     if (!r.ok) throw new Error();
-    expect(intOption(r.args, "max-depth", 1, 3)).toEqual({ ok: false, message: '--max-depth must be a whole number from 1 to 3 (got "4")' });
+    expect(intOption(r.args, "max-depth", 1, 3)).toEqual({
+      ok: false,
+      message: '--max-depth must be a whole number from 1 to 3 (got "4")',
+    });
   });
 });

@@ -14,7 +14,12 @@ describe("diodeloom synth (in-process)", () => {
     expect(m.maxDepth).toBe(1);
   });
   it("rejects bad option values with exit 2", async () => {
-    for (const args of [["--max-depth", "0"], ["--depth", "deep"], ["--time-limit", "-1"], ["--direct", "--fast"]]) {
+    for (const args of [
+      ["--max-depth", "0"],
+      ["--depth", "deep"],
+      ["--time-limit", "-1"],
+      ["--direct", "--fast"],
+    ]) {
       const io = recordingIo();
       expect(await main(["synth", "public/examples/die-roller.json", ...args], io)).toBe(2);
       expect(io.stderr.join("")).toMatch(/--/);

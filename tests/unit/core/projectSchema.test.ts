@@ -98,10 +98,15 @@ describe("parseProject rejects, naming the field", () => {
     expect(p?.message).toMatch(/unknown segment "x"/);
   });
   it("an unknown segment in a custom cell", () => {
-    const doc = { ...base, display: { positions: 1, cell: "custom", segments: ["tl", "c"] }, glyphs: { "0": ["tl"], "1": ["c"], "2": ["br"] } };
+    const doc = {
+      ...base,
+      display: { positions: 1, cell: "custom", segments: ["tl", "c"] },
+      glyphs: { "0": ["tl"], "1": ["c"], "2": ["br"] },
+    };
     expect(firstPath(doc)).toBe("glyphs.2");
   });
-  it("a custom cell without segments", () => expect(firstPath({ ...base, display: { positions: 1, cell: "custom" } })).toBe("display.segments"));
+  it("a custom cell without segments", () =>
+    expect(firstPath({ ...base, display: { positions: 1, cell: "custom" } })).toBe("display.segments"));
   it("a negative number", () => expect(firstPath({ ...base, synthesis: { timeLimitMs: -5 } })).toBe("synthesis.timeLimitMs"));
   it("a non-finite number (1e999 parses as Infinity)", () =>
     expect(firstPath(`{"schema":"diodeloom/project@1","counter":{"states":1e999},"display":{},"show":[]}`)).toBe("counter.states"));
@@ -120,5 +125,6 @@ describe("parseProject rejects, naming the field", () => {
     const big = JSON.stringify({ ...base, title: "x".repeat(10), pad: " ".repeat(1024 * 1024) });
     expect(problems(big)[0]?.message).toMatch(/larger than 1 MiB/);
   });
-  it("a sink drive (not in format version 1)", () => expect(firstPath({ ...base, counter: { states: 3, drive: "sink" } })).toBe("counter.drive"));
+  it("a sink drive (not in format version 1)", () =>
+    expect(firstPath({ ...base, counter: { states: 3, drive: "sink" } })).toBe("counter.drive"));
 });
