@@ -1,0 +1,54 @@
+/** The one screen: toolbar, result line, Project and Glyphs on the left, Drawing, Budget and Comparison on the right. */
+import { createEffect, createSignal } from "solid-js";
+import { app } from "./appState.ts";
+import { BudgetPanel } from "./BudgetPanel.tsx";
+import { CautionBanner } from "./CautionBanner.tsx";
+import { ComparisonPanel } from "./ComparisonPanel.tsx";
+import { DrawingPanel } from "./DrawingPanel.tsx";
+import { GlyphEditor } from "./GlyphEditor.tsx";
+import { NoticeBox } from "./NoticeBox.tsx";
+import { PrintHeader, PrintView } from "./PrintView.tsx";
+import { ProjectPanel } from "./ProjectPanel.tsx";
+import { ResultBar } from "./ResultBar.tsx";
+import { Toolbar, type Paper } from "./Toolbar.tsx";
+import type { ExportKind } from "./exportFiles.ts";
+
+const EXPORTS: readonly { kind: ExportKind; label: string }[] = [{ kind: "project", label: "Project JSON" }];
+
+export function App() {
+  const [paper, setPaper] = createSignal<Paper>((localStorage.getItem("diodeloom.paper") as Paper | null) ?? "a4");
+  createEffect(() => {
+    // @page cannot read a CSS variable, so the size rule is written here.
+    let style = document.getElementById("page-size");
+    if (!style) {
+      style = document.createElement("style");
+      style.id = "page-size";
+      document.head.append(style);
+    }
+    style.textContent = `@page { size: ${paper() === "a4" ? "A4" : "letter"} landscape; margin: 10mm; }`;
+    localStorage.setItem("diodeloom.paper", paper());
+  });
+  return (
+    <div class="app" data-ready={app.ready() ? "yes" : "no"}>
+      <Toolbar paper={paper()} onPaper={setPaper} exportKinds={EXPORTS} />
+      <ResultBar />
+      <NoticeBox />
+      <CautionBanner />
+      <PrintHeader />
+      <main class="workspace">
+        <div class="col-left">
+          <ProjectPanel />
+          <GlyphEditor />
+        </div>
+        <div class="col-right">
+          <DrawingPanel />
+          <div class="pair">
+            <BudgetPanel />
+            <ComparisonPanel />
+          </div>
+        </div>
+      </main>
+      <PrintView />
+    </div>
+  );
+}

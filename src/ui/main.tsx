@@ -1,0 +1,45 @@
+/** Entry of the web app: mounts the screen, wires the keyboard, loads the first project. */
+import { render } from "solid-js/web";
+import { parseProject } from "../core/projectSchema.ts";
+import type { Project } from "../core/project.ts";
+import type { Problem } from "../core/result.ts";
+import { App } from "./App.tsx";
+import { app } from "./appState.ts";
+import { decodeShareHash, isShareHash } from "./shareLink.ts";
+import { historyAction, isTextEntry } from "./undoKeys.ts";
+import "./styles.css";
+
+const DEMO_URL = `${import.meta.env.BASE_URL}examples/relay-hex-monitor.json`;
+
+async function projectFromHash(): Promise<Project | Problem[] | null> {
+  if (!isShareHash(location.hash)) return null;
+  const r = await decodeShareHash(location.hash);
+  return r.ok ? r.value : [...r.error];
+}
+
+async function demoProject(): Promise<Project> {
+  const text = await (await fetch(DEMO_URL)).text();
+  const r = parseProject(text);
+  if (!r.ok) throw new Error(`bug: the demo project is invalid: ${JSON.stringify(r.error)}`);
+  return r.value;
+}
+
+document.addEventListener("keydown", (e) => {
+  const action = historyAction(e);
+  if (!action) return;
+  const target = document.activeElement as HTMLElement | null;
+  if (isTextEntry(target ? { tagName: target.tagName, type: (target as HTMLInputElement).type, isContentEditable: target.isContentEditable } : null)) return;
+  e.preventDefault();
+  if (action === "undo") app.undo();
+  else app.redo();
+});
+
+window.addEventListener("hashchange", async () => {
+  const p = await projectFromHash();
+  if (p && !Array.isArray(p)) app.replaceProject(p);
+});
+
+const root = document.getElementById("root");
+if (!root) throw new Error("bug: index.html has no #root");
+render(() => <App />, root);
+void app.boot(projectFromHash, demoProject);
