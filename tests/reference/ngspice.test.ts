@@ -1,0 +1,150 @@
+/**
+ * Cross-check (a) of issue 4: ngspice (the open reference simulator, Debian
+ * package `ngspice`, batch mode `ngspice -b file.cir`; source: REFERENCES.md
+ * "DC operating point") runs the exported netlist of every state of three
+ * designs, and every string current, node voltage and diode current agrees
+ * with diodeloom's own solver within 0.5 %.
+ *
+ * The harness appends its own lines to a copy of each deck: tighter
+ * tolerances (so ngspice's 0.1 % default does not blur the comparison) and a
+ * `.control` block that prints the values. Values below a floor (1 nA, 1 mV)
+ * are leakage set by each simulator's numerical details and are compared
+ * against the floor instead.
+ */
+import { execFileSync } from "node:child_process";
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { buildCircuit } from "../../src/core/circuit.ts";
+import { solveDc } from "../../src/core/dcSolver.ts";
+import { spiceNetlist, stringDieNode } from "../../src/core/netlist.ts";
+import { clockProject, directDesign, sharedDieRoller, type Design } from "../support/budgetFixtures.ts";
+import { example } from "../support/projects.ts";
+
+const NGSPICE = "/usr/bin/ngspice";
+const REL = 0.005;
+const FLOOR_A = 1e-9;
+const FLOOR_V = 1e-3;
+
+const dir = mkdtempSync(join(tmpdir(), "diodeloom-ngspice-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function ngspiceFound(): boolean {
+  if (existsSync(NGSPICE)) return true;
+  try {
+    execFileSync("ngspice", ["--version"], { stdio: "ignore" });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** Runs a deck through ngspice and returns every printed `name = value`. */
+function runNgspice(deck: string, probes: readonly string[], file: string): Map<string, number> {
+  const control = [
+    ".options reltol=1e-6 vntol=1e-9 abstol=1e-15",
+    ".control",
+    "op",
+    "print all",
+    ...chunk(probes, 20).map((c) => `print ${c.join(" ")}`),
+    ".endc",
+  ];
+  // Keep the deck's own `.op` (batch mode wants one analysis line) and add ours before `.end`.
+  const copy = deck.replace(/^\.end$/m, [...control, ".end"].join("\n"));
+  const path = join(dir, file);
+  writeFileSync(path, copy);
+  const out = execFileSync(existsSync(NGSPICE) ? NGSPICE : "ngspice", ["-b", path], { encoding: "utf8", stdio: ["ignore", "pipe", "pipe"] });
+  const values = new Map<string, number>();
+  for (const m of out.matchAll(/^\s*(\S+) = (\S+)\s*$/gm)) values.set((m[1] as string).toLowerCase(), Number(m[2]));
+  return values;
+}
+
+function chunk<T>(xs: readonly T[], n: number): T[][] {
+  const out: T[][] = [];
+  for (let i = 0; i < xs.length; i += n) out.push(xs.slice(i, i + n));
+  return out;
+}
+
+interface Worst {
+  rel: number;
+  what: string;
+  checks: number;
+}
+
+function agree(a: number, b: number, floor: number, what: string, worst: Worst): void {
+  worst.checks++;
+  const diff = Math.abs(a - b);
+  const big = Math.max(Math.abs(a), Math.abs(b));
+  if (big < floor) {
+    expect(diff, `${what}: diodeloom ${a}, ngspice ${b}`).toBeLessThanOrEqual(floor);
+    return;
+  }
+  const rel = diff / big;
+  if (rel > worst.rel) {
+    worst.rel = rel;
+    worst.what = `${what} (diodeloom ${a.toPrecision(6)}, ngspice ${b.toPrecision(6)})`;
+  }
+  expect(rel, `${what}: diodeloom ${a}, ngspice ${b}`).toBeLessThanOrEqual(REL);
+}
+
+function checkDesign(d: Design): Worst {
+  const worst: Worst = { rel: 0, what: "", checks: 0 };
+  d.spec.states.forEach((state, k) => {
+    const circuit = buildCircuit(d.spec, d.matrix, d.project.electrical, k);
+    const op = solveDc(circuit, circuit.guess);
+    if (!op.ok) throw new Error(op.error.message);
+    const diodes = d.matrix.diodes.map((x) => x.ref.toLowerCase());
+    const probes = [
+      ...diodes.map((r) => `@${r}[id]`),
+      ...circuit.drivers.flatMap((dr) => [`@${dr.transistor.toLowerCase()}[ic]`, `@d${dr.display.toLowerCase()}_1[id]`]),
+    ];
+    const ng = runNgspice(spiceNetlist(d.project, d.spec, d.matrix, k), probes, `${d.name.replace(/\W+/g, "-")}-${k}.cir`);
+    for (const node of circuit.nodes) {
+      const theirs = ng.get(node);
+      expect(theirs, `ngspice printed no voltage for ${node}`).toBeDefined();
+      agree(op.value.voltages[node] as number, theirs as number, FLOOR_V, `${state} v(${node})`, worst);
+    }
+    // Inside a string the dies share the voltage equally.
+    for (const dr of circuit.drivers) {
+      const first = ng.get(stringDieNode(dr.collectorNode, 1));
+      const supply = op.value.voltages["vsup"] as number;
+      const dies = d.project.electrical.string.dies;
+      const ours = supply - (supply - (op.value.voltages[dr.collectorNode] as number)) / dies;
+      if (dies > 1) agree(ours, first as number, FLOOR_V, `${state} v(${stringDieNode(dr.collectorNode, 1)})`, worst);
+      const ic = ng.get(`@${dr.transistor.toLowerCase()}[ic]`) as number;
+      const die = ng.get(`@d${dr.display.toLowerCase()}_1[id]`) as number;
+      agree(op.value.currents[dr.display] as number, die, FLOOR_A, `${state} string ${dr.output}`, worst);
+      agree(op.value.transistors[dr.transistor]?.icA as number, ic, FLOOR_A, `${state} ic ${dr.transistor}`, worst);
+    }
+    for (const r of d.matrix.diodes) {
+      const theirs = ng.get(`@${r.ref.toLowerCase()}[id]`);
+      expect(theirs, `ngspice printed no current for ${r.ref}`).toBeDefined();
+      agree(op.value.currents[r.ref] as number, theirs as number, FLOOR_A, `${state} i(${r.ref})`, worst);
+    }
+  });
+  return worst;
+}
+
+describe("ngspice agrees with the DC solver", () => {
+  it("has ngspice installed (CI installs the Debian package; this must not be skipped)", () => {
+    expect(ngspiceFound(), "ngspice not found: install the Debian package `ngspice` (apt-get install ngspice)").toBe(true);
+  });
+
+  const designs: (() => Design)[] = [
+    () => directDesign("relay-hex-monitor direct", example("relay-hex-monitor")),
+    () => sharedDieRoller(),
+    () => directDesign("turntable two positions", example("turntable-position")),
+    () => directDesign("clock 00-59 two positions", clockProject()),
+  ];
+  for (const make of designs) {
+    const d = make();
+    it(`every state of ${d.name} within 0.5 %`, () => {
+      expect(ngspiceFound(), "ngspice not found: install the Debian package `ngspice`").toBe(true);
+      const worst = checkDesign(d);
+      // The agreement figure, for the closing note.
+      console.info(`ngspice vs diodeloom, ${d.name}: ${worst.checks} values, worst ${(worst.rel * 100).toFixed(4)} % at ${worst.what}`);
+      expect(worst.checks).toBeGreaterThan(d.spec.states.length * 10);
+    });
+  }
+});

@@ -1,0 +1,63 @@
+/**
+ * Projects and matrices for the budget tests: the examples' direct matrices,
+ * a hand-built shared matrix at depth 2 (a bus and two output links), and a
+ * 00-59 two-position clock.
+ */
+import { compileSpec, type DecodeSpec } from "../../src/core/decodeSpec.ts";
+import { buildMatrix, type Edge, type VerifiedMatrix } from "../../src/core/matrix.ts";
+import type { Project } from "../../src/core/project.ts";
+import { synthesizeDirect } from "../../src/core/synthDirect.ts";
+import { verifyMatrix } from "../../src/core/verify.ts";
+import { example, makeProject } from "./projects.ts";
+
+export interface Design {
+  readonly name: string;
+  readonly project: Project;
+  readonly spec: DecodeSpec;
+  readonly matrix: VerifiedMatrix;
+}
+
+function verified(spec: DecodeSpec, edges: readonly Edge[], maxDepth: number, depth: "mixed" | "per-segment"): VerifiedMatrix {
+  const m = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: maxDepth, depth, method: "heuristic" });
+  const v = verifyMatrix(spec, m, { maxDepth, depth });
+  if (!v.ok) throw new Error(`bad fixture matrix: ${v.error.join("; ")}`);
+  return v.value;
+}
+
+/** One diode per lit cell. */
+export function directDesign(name: string, project: Project): Design {
+  const spec = compileSpec(project);
+  const m = synthesizeDirect(spec, project.synthesis.maxDepth, project.synthesis.depth);
+  const v = verifyMatrix(spec, m, project.synthesis);
+  if (!v.ok) throw new Error(`direct matrix rejected: ${v.error.join("; ")}`);
+  return { name, project, spec, matrix: v.value };
+}
+
+/**
+ * The die roller with sharing at depth 2: states 2-6 feed bus X, which drives
+ * tr and bl (7 diodes for 10 crossings); tl -> br and ml -> mr are output
+ * links (br and mr are lit exactly when tl and ml are).
+ */
+export function sharedDieRoller(): Design {
+  const project = example("die-roller");
+  const spec = compileSpec(project);
+  const edges: Edge[] = [
+    { from: "S0", to: "1c" },
+    { from: "S2", to: "1c" },
+    { from: "S4", to: "1c" },
+    ...["S1", "S2", "S3", "S4", "S5"].map((s) => ({ from: s, to: "X" })),
+    { from: "X", to: "1tr" },
+    { from: "X", to: "1bl" },
+    ...["S3", "S4", "S5"].map((s) => ({ from: s, to: "1tl" })),
+    { from: "1tl", to: "1br" },
+    { from: "S5", to: "1ml" },
+    { from: "1ml", to: "1mr" },
+  ];
+  return { name: "die-roller shared", project, spec, matrix: verified(spec, edges, 2, "per-segment") };
+}
+
+/** A 00-59 counter on two positions (the bench's project). */
+export function clockProject(): Project {
+  const show = Array.from({ length: 60 }, (_, k) => String(k).padStart(2, "0"));
+  return makeProject({ title: "Seconds 00-59", counter: { states: 60 }, display: { positions: 2, cell: "seg7" }, show });
+}
