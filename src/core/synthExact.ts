@@ -1,0 +1,140 @@
+/**
+ * The exact optimizer: the MILP of synthModel.ts solved by HiGHS
+ * (WebAssembly), warm-started from the heuristic.
+ *
+ * HiGHS is reached only through a loader function, so src/core imports no
+ * solver at load time: Node passes the npm package, the web app's Web Worker
+ * passes its own (with `locateFile` for the .wasm). A fresh solver instance
+ * is loaded for every solve, because the WebAssembly module cannot be trusted
+ * after it has aborted once. A solver that throws or aborts is a typed
+ * outcome: the caller keeps the heuristic's matrix.
+ */
+import { candidateFamily, type FamilyLimits, DEFAULT_FAMILY_LIMITS } from "./synthCandidates.ts";
+import { trivialLowerBound } from "./synthBounds.ts";
+import { buildSharingModel } from "./synthModel.ts";
+import { planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./synthPlan.ts";
+
+/** The part of a HiGHS model the driver uses (the npm `highs` persistent API). */
+export interface HighsModelLike {
+  readonly options: { set(values: Readonly<Record<string, number | boolean | string>>): unknown };
+  readonly info: { get(name: string): number | bigint };
+  getDimensions(): { readonly numCols: number };
+  getColByName(name: string): number;
+  setSolution(solution: { readonly colValue: Float64Array }): unknown;
+  run(): unknown;
+  getModelStatus(): number;
+  getSolution(): { readonly colValue: Float64Array };
+  dispose(): void;
+}
+
+/** The part of the loaded HiGHS runtime the driver uses. */
+export interface HighsLike {
+  createModel(source: { readonly format: "lp"; readonly data: string }): HighsModelLike;
+}
+
+/** Loads a fresh HiGHS runtime. */
+export type HighsLoader = () => Promise<HighsLike>;
+
+/** The npm package, imported lazily (works in Node; bundlers resolve it too). */
+export const defaultHighsLoader: HighsLoader = async () => {
+  const mod = (await import("highs")) as unknown as { default: () => Promise<HighsLike> };
+  return mod.default();
+};
+
+export interface ExactOptions {
+  /** Wall-clock limit for the solve, milliseconds. */
+  readonly timeLimitMs: number;
+  readonly seed: number;
+  readonly loadHighs: HighsLoader;
+  readonly familyLimits?: FamilyLimits;
+}
+
+export type ExactStatus = "optimal" | "time-limit" | "solver-failed";
+
+export interface ExactOutcome {
+  readonly plan: SharingPlan;
+  /** Proven lower bound on the diode count under these rules. */
+  readonly lowerBound: number;
+  readonly status: ExactStatus;
+  /** Why the solver failed, for `solver-failed`. */
+  readonly message?: string;
+  /** Model size, for the bench. */
+  readonly columns: number;
+  /** True when the candidate family held every useful bus shape. */
+  readonly complete: boolean;
+}
+
+/** HiGHS model status codes used here (`highs.constants.modelStatus`). */
+const STATUS_OPTIMAL = 7;
+/** HiGHS info `primal_solution_status`: 2 = feasible. */
+const PRIMAL_FEASIBLE = 2;
+
+/**
+ * Solves for the minimum plan. `warm` must be a valid plan (the heuristic's);
+ * the outcome is never worse than it.
+ *
+ * The lower bound is HiGHS's dual bound only where the model covers every
+ * possible matrix: depth limit 2 and a complete candidate family. At depth 3
+ * the model leaves out bus-to-bus and output-to-bus chains, so only the
+ * combinatorial bound of synthBounds.ts is claimed there.
+ */
+export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: SharingPlan, opts: ExactOptions): Promise<ExactOutcome> {
+  const family = candidateFamily(
+    p,
+    rules.depth === "mixed" ? 2 : 1,
+    opts.familyLimits ?? DEFAULT_FAMILY_LIMITS,
+    warm.buses.filter((b) => b.states.length >= 2).map((b) => b.outputs),
+  );
+  const model = buildSharingModel(p, rules, family);
+  const floor = trivialLowerBound(p);
+  const warmCount = planCount(warm);
+  const boundIsGlobal = family.complete && rules.maxDepth <= 2;
+  const base = { columns: model.columns.length, complete: family.complete };
+
+  let highsModel: HighsModelLike | undefined;
+  try {
+    const highs = await opts.loadHighs();
+    highsModel = highs.createModel({ format: "lp", data: model.text });
+    highsModel.options.set({
+      output_flag: false,
+      time_limit: Math.max(0.01, opts.timeLimitMs / 1000),
+      random_seed: opts.seed,
+      mip_rel_gap: 0,
+      mip_abs_gap: 1e-6,
+    });
+    const numCols = highsModel.getDimensions().numCols;
+    const index = new Map<string, number>();
+    for (const name of model.columns) index.set(name, highsModel.getColByName(name));
+    const start = model.warmStart(warm);
+    if (start) {
+      const colValue = new Float64Array(numCols);
+      for (const [name, v] of start) {
+        const i = index.get(name);
+        if (i !== undefined && i >= 0) colValue[i] = v;
+      }
+      highsModel.setSolution({ colValue });
+    }
+    highsModel.run();
+    const status = highsModel.getModelStatus();
+    const dual = Number(highsModel.info.get("mip_dual_bound"));
+    let plan = warm;
+    if (Number(highsModel.info.get("primal_solution_status")) === PRIMAL_FEASIBLE) {
+      const x = highsModel.getSolution().colValue;
+      const found = model.decode((name) => x[index.get(name) ?? -1] ?? 0);
+      if (planCount(found) <= warmCount) plan = found;
+    }
+    const count = planCount(plan);
+    let lowerBound = floor;
+    if (boundIsGlobal && Number.isFinite(dual)) lowerBound = Math.max(floor, Math.ceil(dual - model.maxTieWeight - 1e-6));
+    lowerBound = Math.min(lowerBound, count);
+    return { ...base, plan, lowerBound, status: status === STATUS_OPTIMAL ? "optimal" : "time-limit" };
+  } catch (e) {
+    return { ...base, plan: warm, lowerBound: Math.min(floor, warmCount), status: "solver-failed", message: String((e as Error)?.message ?? e) };
+  } finally {
+    try {
+      highsModel?.dispose();
+    } catch {
+      // A module that aborted cannot free its memory; it is dropped with the instance.
+    }
+  }
+}
