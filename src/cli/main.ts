@@ -8,11 +8,13 @@ import { helpLines, parseArgs } from "./args.ts";
 import type { Command } from "./command.ts";
 import { EXIT, type CliIo } from "./io.ts";
 import { synthCommand } from "./commands/synth.ts";
+import { compareCommand } from "./commands/compare.ts";
+import { exportCommand } from "./commands/export.ts";
 import { MAX_PROJECT_BYTES } from "../core/projectSchema.ts";
 
 export const VERSION = "0.1.0";
 
-const COMMANDS: readonly Command[] = [synthCommand];
+const COMMANDS: readonly Command[] = [synthCommand, compareCommand, exportCommand];
 
 function usage(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length));

@@ -1,0 +1,115 @@
+/**
+ * `diodeloom export FILE --out DIR`: everything a builder takes to the bench.
+ *
+ * Writes the matrix drawing (matrix.svg, or matrix-1.svg ... when it needs
+ * several sheets), the wiring list (wiring.csv and the printable
+ * wiring.html), the BOM (bom.csv), one SPICE netlist per state
+ * (spice/S0.cir ...) and the normalised project (project.json).
+ */
+import { join } from "node:path";
+import { bomCsv, bomLines } from "../../core/bom.ts";
+import { compileSpec } from "../../core/decodeSpec.ts";
+import { spiceNetlist } from "../../core/netlist.ts";
+import { serializeProject } from "../../core/projectWriter.ts";
+import { synthesize } from "../../core/synthesize.ts";
+import { wiringCsv, wiringRows } from "../../core/wiringList.ts";
+import { drawingOptions, type DrawingOptions } from "../../render/drawingOptions.ts";
+import { layoutMatrix } from "../../render/layout.ts";
+import { sheetToSvgText } from "../../render/nodeWindow.ts";
+import { wiringPageHtml } from "../../render/wiringPage.ts";
+import type { ParsedArgs } from "../args.ts";
+import type { Command } from "../command.ts";
+import { EXIT, type CliIo } from "../io.ts";
+import { loadProject } from "../loadProject.ts";
+import { reportFailure, settingsFromArgs } from "./synth.ts";
+
+const USAGE =
+  "export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] [--direct | --fast] [--max-depth K] [--depth POLICY] [--time-limit MS]";
+
+/** Longest free text accepted for a title-block field. */
+const MAX_FIELD = 40;
+
+export const exportCommand: Command = {
+  name: "export",
+  usage: USAGE,
+  summary: "write the matrix drawing, wiring list, BOM, SPICE netlists and normalised project",
+  options: {
+    out: { value: true, meta: "DIR", help: "directory to write into (created if missing)" },
+    paper: { value: true, meta: "SIZE", help: "a4 (default) or letter" },
+    date: { value: true, meta: "DATE", help: "date of issue for the title block, YYYY-MM-DD (default: left blank)" },
+    "drawing-number": { value: true, meta: "TEXT", help: "drawing number (default: DL- and a hash of the project)" },
+    revision: { value: true, meta: "TEXT", help: "revision (default A)" },
+    "drawn-by": { value: true, meta: "TEXT", help: "creator for the title block (default diodeloom)" },
+    direct: { help: "one diode per lit cell, no sharing" },
+    fast: { help: "the heuristic only (no exact optimizer)" },
+    "max-depth": { value: true, meta: "K", help: "most diodes on any path, 1-3 (overrides the project)" },
+    depth: { value: true, meta: "POLICY", help: "mixed | per-segment | uniform (overrides the project)" },
+    "time-limit": { value: true, meta: "MS", help: "time limit of the exact optimizer, milliseconds" },
+  },
+  async run(args, io) {
+    const out = args.values.get("out");
+    if (out === undefined) {
+      io.err(`export needs --out DIR, the directory to write into\nusage: diodeloom ${USAGE}\n`);
+      return EXIT.input;
+    }
+    const given = drawingArgs(args, io);
+    if (!given) return EXIT.input;
+    const project = await loadProject(args, io, USAGE);
+    if (!project) return EXIT.input;
+    const settings = settingsFromArgs(project, args, io);
+    if (!settings) return EXIT.input;
+    const spec = compileSpec(project);
+    const result = await synthesize(spec, settings);
+    if (!result.ok) return reportFailure(result.error, io);
+    const matrix = result.value;
+
+    const options = drawingOptions(project, given);
+    const drawing = layoutMatrix(project, spec, matrix, options);
+    const rows = wiringRows(matrix, drawing.placements);
+    const files: [string, string][] = [];
+    const single = drawing.sheets.length === 1;
+    drawing.sheets.forEach((sheet) => files.push([single ? "matrix.svg" : `matrix-${sheet.number}.svg`, sheetToSvgText(sheet)]));
+    files.push(["wiring.csv", wiringCsv(rows)]);
+    files.push(["wiring.html", wiringPageHtml(project, matrix, rows, options, drawing.sheets.length)]);
+    files.push(["bom.csv", bomCsv(bomLines(project, spec, matrix))]);
+    spec.states.forEach((s, k) => files.push([join("spice", `${s}.cir`), spiceNetlist(project, spec, matrix, k)]));
+    files.push(["project.json", serializeProject(project)]);
+
+    await io.makeDir(out);
+    await io.makeDir(join(out, "spice"));
+    for (const [name, text] of files) await io.writeFile(join(out, name), text);
+    io.out(`${project.title}\nWrote ${files.length} files to ${out}:\n${files.map(([n]) => `  ${n}`).join("\n")}\n`);
+    return EXIT.ok;
+  },
+};
+
+/** Reads the drawing options, or prints what is wrong and returns undefined. */
+function drawingArgs(args: ParsedArgs, io: CliIo): Partial<DrawingOptions> | undefined {
+  const given: { -readonly [K in keyof DrawingOptions]?: DrawingOptions[K] } = {};
+  const paper = args.values.get("paper");
+  if (paper !== undefined) {
+    if (paper !== "a4" && paper !== "letter") return void io.err(`--paper must be a4 or letter (got "${paper}")\n`);
+    given.paper = paper;
+  }
+  const date = args.values.get("date");
+  if (date !== undefined) {
+    const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(date);
+    const valid = m !== null && Number(m[2]) >= 1 && Number(m[2]) <= 12 && Number(m[3]) >= 1 && Number(m[3]) <= 31;
+    if (!valid) return void io.err(`--date must be a date like 2026-03-01 (got "${date}")\n`);
+    given.date = date;
+  }
+  const text: [string, "drawingNumber" | "revision" | "drawnBy"][] = [
+    ["drawing-number", "drawingNumber"],
+    ["revision", "revision"],
+    ["drawn-by", "drawnBy"],
+  ];
+  for (const [option, field] of text) {
+    const v = args.values.get(option);
+    if (v === undefined) continue;
+    if ([...v].length > MAX_FIELD || /[\u0000-\u001f\u007f]/.test(v)) {
+      return void io.err(`--${option} must be at most ${MAX_FIELD} printable characters\n`);
+    }
+    given[field] = v;
+  }
+  return given;
+}

@@ -1,0 +1,67 @@
+/**
+ * The printable wiring list: an HTML page sized for A4 or Letter, with the
+ * column heads repeated on every printed page, an empty box to tick per
+ * diode, and the inspection checklist at the end. Pure text, no DOM.
+ */
+import type { DiodeMatrix } from "../core/matrix.ts";
+import type { Project } from "../core/project.ts";
+import { INSPECTION_CHECKLIST, WIRING_HEADER, type WiringRow } from "../core/wiringList.ts";
+import type { DrawingOptions } from "./drawingOptions.ts";
+
+const PAGE_SIZE = { a4: "A4", letter: "letter" } as const;
+
+/** Escapes text for HTML element content and attribute values. */
+function esc(text: string): string {
+  return text.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
+}
+
+/**
+ * @param sheetCount number of matrix drawing sheets the rows refer to
+ * @example
+ * await writeFile("wiring.html", wiringPageHtml(project, matrix, rows, options, drawing.sheets.length));
+ */
+export function wiringPageHtml(project: Project, matrix: DiodeMatrix, rows: readonly WiringRow[], options: DrawingOptions, sheetCount: number): string {
+  const body = rows
+    .map((r) => `<tr><td>${r.step}</td><td><b>${esc(r.ref)}</b></td><td>${esc(r.from)}</td><td>${esc(r.to)}</td><td>${r.sheet ?? ""}</td><td>${esc(r.zone)}</td><td class="box"></td></tr>`)
+    .join("\n");
+  const checks = INSPECTION_CHECKLIST.map((c, i) => `<tr><td>C${i + 1}</td><td><b>${esc(c.item)}</b></td><td>${esc(c.check)}</td><td class="box"></td></tr>`).join("\n");
+  return `<!DOCTYPE html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<title>Wiring list: ${esc(project.title)}</title>
+<style>
+@page { size: ${PAGE_SIZE[options.paper]} portrait; margin: 10mm; }
+body { font-family: 'DejaVu Sans Mono', 'Liberation Mono', 'Courier New', monospace; font-size: 9pt; color: #000; background: #fff; margin: 0; }
+h1 { font-size: 12pt; margin: 0 0 2mm 0; }
+p { margin: 0 0 2mm 0; }
+table { border-collapse: collapse; width: 100%; margin-bottom: 4mm; }
+th, td { border: 0.3mm solid #000; padding: 0.8mm 1.5mm; text-align: left; vertical-align: middle; }
+thead { display: table-header-group; }
+tr { break-inside: avoid; }
+td.box { width: 8mm; }
+th { background: #fff; font-weight: bold; }
+.meta td { border: none; padding: 0 4mm 0 0; }
+</style>
+</head>
+<body>
+<h1>Wiring list: ${esc(project.title)}</h1>
+<table class="meta"><tr><td>Drawing number: ${esc(options.drawingNumber)}</td><td>Rev. ${esc(options.revision)}</td><td>Date of issue: ${esc(options.date || "________")}</td><td>Drawn by: ${esc(options.drawnBy)}</td><td>Diodes: ${matrix.count}</td><td>Drawing sheets: ${sheetCount}</td></tr></table>
+<p>Fit the diodes in this order, row by row of the drawing. The anode goes to the From line; the band (cathode) to the To line. Tick Done as each one is soldered.</p>
+<table>
+<thead><tr>${WIRING_HEADER.map((h) => `<th>${esc(h)}</th>`).join("")}</tr></thead>
+<tbody>
+${body}
+</tbody>
+</table>
+<h1>Inspection checklist</h1>
+<table>
+<thead><tr><th>#</th><th>Item</th><th>Check</th><th>Done</th></tr></thead>
+<tbody>
+${checks}
+</tbody>
+</table>
+</body>
+</html>
+`;
+}
