@@ -1,0 +1,62 @@
+import { compareGlyphStyles, COMPARE_SCHEMA, type GlyphStyleRow } from "../../core/glyphStyles.ts";
+import type { Command } from "../command.ts";
+import { EXIT } from "../io.ts";
+import { loadProject } from "../loadProject.ts";
+import { reportFailure, settingsFromArgs } from "./synth.ts";
+
+const USAGE = "compare FILE [--json] [--fast] [--time-limit MS]";
+
+export const compareCommand: Command = {
+  name: "compare",
+  usage: USAGE,
+  summary: "compare the built-in glyph styles (6, 7, 9) by the smallest matrix each allows",
+  options: {
+    json: { help: "print diodeloom/compare@1 JSON" },
+    fast: { help: "the heuristic only (no exact optimizer, no bounds)" },
+    "time-limit": { value: true, meta: "MS", help: "time limit for all combinations together, milliseconds" },
+  },
+  async run(args, io) {
+    const project = await loadProject(args, io, USAGE);
+    if (!project) return EXIT.input;
+    const settings = settingsFromArgs(project, args, io);
+    if (!settings) return EXIT.input;
+    const result = await compareGlyphStyles(project, settings);
+    if (!result.ok) return reportFailure(result.error, io);
+    const rows = result.value;
+    if (args.flags.has("json")) {
+      io.out(JSON.stringify({ schema: COMPARE_SCHEMA, rows }, null, 2) + "\n");
+      return EXIT.ok;
+    }
+    io.out(describeRows(project.title, rows, settings.depth, settings.maxDepth));
+    return EXIT.ok;
+  },
+};
+
+/** The readable report: one block per combination, best first, with the glyphs drawn. */
+export function describeRows(title: string, rows: readonly GlyphStyleRow[], depth: string, maxDepth: number): string {
+  const lines = [title, `Glyph styles by smallest verified matrix (depth limit ${maxDepth}, ${depth})`, ""];
+  if (rows.length === 1 && Object.keys(rows[0]?.glyphs ?? {}).length === 0) {
+    lines.push("The project shows no character with a built-in variant (6, 7, 9); nothing to compare.");
+  }
+  rows.forEach((r, i) => {
+    const chars = Object.keys(r.glyphs);
+    const bound = r.optimal ? "proven minimum" : r.lowerBound !== null ? `lower bound ${r.lowerBound}` : "no bound";
+    lines.push(`#${i + 1}  ${r.count} diodes (${bound})  ${chars.map((c) => `${c}=${r.glyphs[c]}`).join(" ")}`);
+    if (chars.length > 0) {
+      const art = chars.map((c) => drawSeg7(r.glyphs[c] ?? ""));
+      for (let line = 0; line < 3; line++) lines.push("    " + art.map((a) => a[line]).join("   "));
+    }
+    lines.push("");
+  });
+  return lines.join("\n");
+}
+
+/** Three text lines drawing a seven-segment glyph from its lit-segment string. */
+export function drawSeg7(lit: string): [string, string, string] {
+  const on = (s: string): boolean => lit.includes(s);
+  return [
+    ` ${on("a") ? "_" : " "} `,
+    `${on("f") ? "|" : " "}${on("g") ? "_" : " "}${on("b") ? "|" : " "}`,
+    `${on("e") ? "|" : " "}${on("d") ? "_" : " "}${on("c") ? "|" : " "}`,
+  ];
+}
