@@ -168,9 +168,11 @@ function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix): Gri
     }
     const own = colOf.get(row.net);
     const ownX = own === undefined ? [] : [X(own, pitchX)];
-    const taps = diodes.filter((d) => d.from === row.net).map((d) => d.anode.x);
-    const x0 = Math.min(...ownX, ...taps.map((t) => t - OVERSHOOT));
-    const x1 = Math.max(...ownX, ...taps.map((t) => t + OVERSHOOT));
+    // From the leftmost anode tap to just past the rightmost crossing, so the
+    // row really crosses every column it feeds.
+    const fed = diodes.filter((d) => d.from === row.net);
+    const x0 = Math.min(...ownX, ...fed.map((d) => d.anode.x - OVERSHOOT));
+    const x1 = Math.max(...ownX, ...fed.map((d) => d.crossing.x + OVERSHOOT));
     wires.push({ net: row.net, a: { x: x0, y }, b: { x: x1, y }, horizontal: true });
   }
   for (const [c, col] of columns.entries()) {

@@ -1,0 +1,165 @@
+import { describe, expect, it } from "vitest";
+import { compileSpec } from "../../../src/core/decodeSpec.ts";
+import type { DiodeMatrix } from "../../../src/core/matrix.ts";
+import type { Project } from "../../../src/core/project.ts";
+import type { DecodeSpec } from "../../../src/core/decodeSpec.ts";
+import { synthesizeDirect } from "../../../src/core/synthDirect.ts";
+import type { Sheet } from "../../../src/render/drawingModel.ts";
+import { drawingOptions } from "../../../src/render/drawingOptions.ts";
+import { layoutMatrix } from "../../../src/render/layout.ts";
+import { PAPER_MM, FRAME_MM } from "../../../src/render/sheetFrame.ts";
+import { makeProject } from "../../support/projects.ts";
+import { arms, pieces, samePoint, textProblems, touches } from "./layoutGeometry.ts";
+import { dieRollerShared, directExample } from "./sharedMatrix.ts";
+
+/** 40 states on three positions: too big for one sheet. */
+function bigProject(): { project: Project; spec: DecodeSpec; matrix: DiodeMatrix } {
+  const texts = Array.from({ length: 40 }, (_, k) => String(100 + k * 7).slice(-3));
+  const project = makeProject({ title: "Big", counter: { states: 40 }, display: { positions: 3, cell: "seg7dp" }, show: texts });
+  const spec = compileSpec(project);
+  return { project, spec, matrix: synthesizeDirect(spec, 1, "mixed") };
+}
+
+const cases: Record<string, () => { project: Project; spec: DecodeSpec; matrix: DiodeMatrix; paper?: "a4" | "letter" }> = {
+  "hex monitor, direct": () => directExample("relay-hex-monitor"),
+  "turntable, direct, on Letter": () => ({ ...directExample("turntable-position"), paper: "letter" }),
+  "die roller with two buses and a link": dieRollerShared,
+  "40 states on three positions": bigProject,
+};
+
+describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
+  const { project, spec, matrix, paper } = make();
+  const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project, { paper: paper ?? "a4" }));
+  const sheets = drawing.sheets;
+
+  it("draws every diode reference exactly once, as a symbol and as a label", () => {
+    const symbols = sheets.flatMap((s) => s.diodes.map((d) => d.ref)).sort();
+    const labels = sheets.flatMap((s) => s.labels.filter((l) => l.role === "diode-ref").map((l) => l.text)).sort();
+    const refs = matrix.diodes.map((d) => d.ref).sort();
+    expect(symbols).toEqual(refs);
+    expect(labels).toEqual(refs);
+    expect([...drawing.placements.keys()].sort()).toEqual(refs);
+  });
+
+  it("puts every diode symbol on the crossing of its own row and column, cathode bar toward the driven column", () => {
+    for (const sheet of sheets) {
+      const wires = sheet.segments.filter((s) => s.net !== undefined);
+      for (const d of sheet.diodes) {
+        const m = matrix.diodes.find((x) => x.ref === d.ref)!;
+        expect([d.from, d.to]).toEqual([m.from, m.to]);
+        const row = wires.find((w) => w.net === d.from && w.a.y === w.b.y && touches(d.anode, w) > 0);
+        const column = wires.find((w) => w.net === d.to && w.a.x === w.b.x && touches(d.cathode, w) > 0);
+        expect(row, `${d.ref}: anode not on a row of ${d.from}`).toBeDefined();
+        expect(column, `${d.ref}: cathode not on a column of ${d.to}`).toBeDefined();
+        // The crossing is where that row and that column meet, and it lies on both.
+        expect(d.crossing.y).toBeCloseTo(row!.a.y, 9);
+        expect(d.crossing.x).toBeCloseTo(column!.a.x, 9);
+        expect(touches(d.crossing, row!)).toBeGreaterThan(0);
+        expect(touches(d.crossing, column!)).toBeGreaterThan(0);
+        // The symbol lies in the quadrant between its two taps, close to the crossing.
+        expect(d.box.x + d.box.w).toBeLessThanOrEqual(d.crossing.x + 1);
+        expect(d.box.y).toBeGreaterThanOrEqual(d.crossing.y - 1);
+        const barMid = { x: (d.bar[0].x + d.bar[1].x) / 2, y: (d.bar[0].y + d.bar[1].y) / 2 };
+        const baseMid = { x: (d.triangle[0].x + d.triangle[1].x) / 2, y: (d.triangle[0].y + d.triangle[1].y) / 2 };
+        const toCathode = (p: { x: number; y: number }): number => Math.hypot(p.x - d.cathode.x, p.y - d.cathode.y);
+        expect(toCathode(barMid)).toBeLessThan(toCathode(baseMid));
+        expect(samePoint(d.triangle[2], barMid)).toBe(true);
+      }
+    }
+  });
+
+  it("puts junction dots exactly where three or more arms of one net meet", () => {
+    for (const sheet of sheets) {
+      const all = pieces(sheet);
+      for (const dot of sheet.dots) expect(arms(dot.at, dot.net, all), `dot of ${dot.net} at ${dot.at.x},${dot.at.y}`).toBeGreaterThanOrEqual(3);
+      for (const p of all) {
+        for (const end of [p.a, p.b]) {
+          if (arms(end, p.net, all) >= 3) {
+            expect(sheet.dots.some((d) => d.net === p.net && samePoint(d.at, end)), `missing dot of ${p.net} at ${end.x},${end.y}`).toBe(true);
+          }
+        }
+      }
+    }
+  });
+
+  it("never lets a wire end on another net's wire, so only dots mean joints", () => {
+    for (const sheet of sheets) {
+      const all = pieces(sheet);
+      for (const p of all) {
+        for (const end of [p.a, p.b]) {
+          const foreign = all.find((q) => q.net !== p.net && touches(end, q) > 0);
+          expect(foreign, `${p.net} ends on ${foreign?.net} at ${end.x},${end.y}`).toBeUndefined();
+        }
+      }
+    }
+  });
+
+  it("keeps texts apart and off the symbols", () => {
+    for (const sheet of sheets) expect(textProblems(sheet)).toEqual([]);
+  });
+
+  it("keeps everything inside the 10 mm frame", () => {
+    const p = PAPER_MM[paper ?? "a4"];
+    for (const sheet of sheets) {
+      expect([sheet.widthMm, sheet.heightMm]).toEqual([p.h, p.w]);
+      const inside = (x: number, y: number): boolean => x >= FRAME_MM - 1e-9 && y >= FRAME_MM - 1e-9 && x <= sheet.widthMm - FRAME_MM + 1e-9 && y <= sheet.heightMm - FRAME_MM + 1e-9;
+      for (const s of sheet.segments) expect(inside(s.a.x, s.a.y) && inside(s.b.x, s.b.y)).toBe(true);
+      for (const l of sheet.labels) expect(inside(l.box.x, l.box.y) && inside(l.box.x + l.box.w, l.box.y + l.box.h), l.text).toBe(true);
+    }
+  });
+
+  it("numbers the sheets k of n in the title block", () => {
+    sheets.forEach((s: Sheet, i) => {
+      expect(s.number).toBe(i + 1);
+      expect(s.labels.some((l) => l.role === "title-value" && l.text === `${i + 1} of ${sheets.length}`)).toBe(true);
+      expect(s.labels.some((l) => l.role === "title-value" && l.text === String(matrix.count))).toBe(true);
+      expect(s.labels.some((l) => l.role === "note" && l.text.includes("Band = cathode = bar on the symbol"))).toBe(true);
+    });
+  });
+
+  it("is the same every time", () => {
+    const again = layoutMatrix(project, spec, matrix, drawingOptions(project, { paper: paper ?? "a4" }));
+    expect(again.sheets).toEqual(drawing.sheets);
+  });
+});
+
+describe("layout details", () => {
+  it("continues a big matrix over several sheets with marks that name the other sheet", () => {
+    const { project, spec, matrix } = bigProject();
+    const { sheets } = layoutMatrix(project, spec, matrix, drawingOptions(project));
+    expect(sheets.length).toBeGreaterThan(1);
+    for (const s of sheets) {
+      const marks = s.labels.filter((l) => l.role === "continuation");
+      expect(marks.length).toBeGreaterThan(0);
+      for (const m of marks) {
+        const k = Number(/^sh\.(\d+)$/.exec(m.text)?.[1]);
+        expect(k).toBeGreaterThanOrEqual(1);
+        expect(k).toBeLessThanOrEqual(sheets.length);
+        expect(k).not.toBe(s.number);
+      }
+      expect(s.polygons.length).toBe(marks.length);
+    }
+  });
+
+  it("gives a bus a column and a row joined at a corner without a dot, and a link row a dot where it taps its output", () => {
+    const { project, spec, matrix } = dieRollerShared();
+    const [sheet] = layoutMatrix(project, spec, matrix, drawingOptions(project)).sheets;
+    const wires = sheet!.segments.filter((s) => s.net === "B1");
+    expect(wires.length).toBe(2);
+    const column = wires.find((w) => w.a.x === w.b.x)!;
+    const row = wires.find((w) => w.a.y === w.b.y)!;
+    expect(samePoint(column.b, row.a)).toBe(true);
+    expect(sheet!.dots.some((d) => samePoint(d.at, row.a))).toBe(false);
+    const link = sheet!.segments.find((s) => s.net === "1ml" && s.a.y === s.b.y)!;
+    expect(sheet!.dots.some((d) => d.net === "1ml" && samePoint(d.at, link.a))).toBe(true);
+  });
+
+  it("takes the date from its input and leaves the field blank without one", () => {
+    const { project, spec, matrix } = directExample("die-roller");
+    const dated = layoutMatrix(project, spec, matrix, drawingOptions(project, { date: "2026-03-01" })).sheets[0]!;
+    expect(dated.labels.some((l) => l.text === "2026-03-01")).toBe(true);
+    const blank = layoutMatrix(project, spec, matrix, drawingOptions(project)).sheets[0]!;
+    expect(blank.labels.filter((l) => l.role === "title-field").length).toBe(dated.labels.filter((l) => l.role === "title-field").length);
+    expect(blank.labels.filter((l) => l.role === "title-value").length).toBe(dated.labels.filter((l) => l.role === "title-value").length - 1);
+  });
+});

@@ -1,0 +1,72 @@
+import { describe, expect, it } from "vitest";
+import { compileSpec } from "../../../src/core/decodeSpec.ts";
+import { synthesizeDirect } from "../../../src/core/synthDirect.ts";
+import { drawingOptions } from "../../../src/render/drawingOptions.ts";
+import { layoutMatrix } from "../../../src/render/layout.ts";
+import { sheetToSvgText } from "../../../src/render/nodeWindow.ts";
+import { makeProject } from "../../support/projects.ts";
+import { dieRollerShared, directExample } from "./sharedMatrix.ts";
+import { xmlProblem } from "./xmlCheck.ts";
+
+describe("the strict XML check itself", () => {
+  it("accepts well-formed documents", () => {
+    expect(xmlProblem('<?xml version="1.0"?>\n<a x="1"><b/>t &amp; &#65; &#x42;<!-- c --></a>\n')).toBeNull();
+  });
+  it.each([
+    ["<a><b></a></b>", "misnested"],
+    ["<a>1 < 2</a>", "raw <"],
+    ["<a>R&D</a>", "bare &"],
+    ['<a x="1" x="2"/>', "duplicate attribute"],
+    ["<a x=1/>", "unquoted attribute"],
+    ['<a x="<"/>', "< in attribute"],
+    ["<a/><b/>", "two roots"],
+    ["<a>", "unclosed"],
+    ["text<a/>", "text outside root"],
+    ["<!DOCTYPE a><a/>", "doctype"],
+    ["<a>&nbsp;</a>", "undeclared entity"],
+  ])("rejects %s (%s)", (doc) => {
+    expect(xmlProblem(doc)).not.toBeNull();
+  });
+});
+
+describe("rendered sheets", () => {
+  const cases = {
+    "hex monitor (direct)": directExample("relay-hex-monitor"),
+    "turntable (direct)": directExample("turntable-position"),
+    "die roller with buses and a link": dieRollerShared(),
+  };
+  for (const [name, { project, spec, matrix }] of Object.entries(cases)) {
+    it(`every SVG sheet of the ${name} parses as XML and draws every diode`, () => {
+      const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project));
+      for (const sheet of drawing.sheets) {
+        const svg = sheetToSvgText(sheet);
+        expect(xmlProblem(svg)).toBeNull();
+        expect(svg).toContain('viewBox="0 0 297 210"');
+        expect(svg.match(/data-ref="D\d+"/g)?.length).toBe(sheet.diodes.length);
+      }
+    });
+  }
+
+  it("escapes markup characters in the title and texts", () => {
+    const project = makeProject({
+      title: `R&D <"bench"> 'rig'`,
+      counter: { states: 2 },
+      display: { cell: "seg7" },
+      show: ["1", "7"],
+    });
+    const spec = compileSpec(project);
+    const drawing = layoutMatrix(project, spec, synthesizeDirect(spec, 1, "mixed"), drawingOptions(project));
+    const svg = sheetToSvgText(drawing.sheets[0]!);
+    expect(xmlProblem(svg)).toBeNull();
+    // Spaces are written as no-break spaces so that SVG keeps them.
+    expect(svg).toContain("R&amp;D\u00a0&lt;&quot;bench&quot;&gt;");
+  });
+
+  it("renders Letter sheets at Letter size", () => {
+    const { project, spec, matrix } = directExample("relay-hex-monitor");
+    const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project, { paper: "letter" }));
+    const svg = sheetToSvgText(drawing.sheets[0]!);
+    expect(svg).toContain('width="279.4mm" height="215.9mm"');
+    expect(xmlProblem(svg)).toBeNull();
+  });
+});
