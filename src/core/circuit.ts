@@ -272,7 +272,11 @@ function startingGuess(
   const active = matrix.states[stateIndex] as string;
   depth.set(active, 0);
   const next = new Map<string, string[]>();
-  for (const d of matrix.diodes) next.set(d.from, [...(next.get(d.from) ?? []), d.to]);
+  for (const d of matrix.diodes) {
+    const list = next.get(d.from);
+    if (list) list.push(d.to);
+    else next.set(d.from, [d.to]);
+  }
   const queue = [active];
   while (queue.length > 0) {
     const l = queue.shift() as string;

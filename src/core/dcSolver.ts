@@ -268,8 +268,8 @@ function newton(cp: Compiled, st: NewtonState, fixedV: Float64Array, gshuntS: nu
       let v = useStored ? (jv[j] as number) : volt(d.a) - volt(d.k);
       if (!useStored) {
         const l = limitJunction(v, jv[j] as number, d.nVtV, d.vcritV);
-        v = l.v;
-        limited ||= l.limited;
+        if (l !== v) limited = true;
+        v = l;
       }
       jv[j] = v;
       const p = diodeJunction(v, d.isA, d.nVtV, d.gminS);
@@ -286,9 +286,9 @@ function newton(cp: Compiled, st: NewtonState, fixedV: Float64Array, gshuntS: nu
       if (!useStored) {
         const lbe = limitJunction(vbe, jv[slot] as number, cp.vtV, t.vcritV);
         const lbc = limitJunction(vbc, jv[slot + 1] as number, cp.vtV, t.vcritV);
-        vbe = lbe.v;
-        vbc = lbc.v;
-        limited ||= lbe.limited || lbc.limited;
+        if (lbe !== vbe || lbc !== vbc) limited = true;
+        vbe = lbe;
+        vbc = lbc;
       }
       jv[slot] = vbe;
       jv[slot + 1] = vbc;
@@ -300,18 +300,16 @@ function newton(cp: Compiled, st: NewtonState, fixedV: Float64Array, gshuntS: nu
       const ibVbe = p.dIbVbe;
       const ibVbc = p.dIbVbc;
       // Ic = ic + icVbe (vb - ve - vbe) + icVbc (vb - vc - vbc), likewise Ib; Ie = -(Ic + Ib) leaves e.
-      const rows: [NodeRef, number, number, number][] = [
-        [t.c, ic, icVbe, icVbc],
-        [t.b, ib, ibVbe, ibVbc],
-        [t.e, -(ic + ib), -(icVbe + ibVbe), -(icVbc + ibVbc)],
-      ];
-      for (const [row, i0, dVbe, dVbc] of rows) {
-        if (row < 0) continue;
+      const terminal = (row: NodeRef, i0: number, dVbe: number, dVbc: number): void => {
+        if (row < 0) return;
         entry(row, t.b, dVbe + dVbc);
         entry(row, t.e, -dVbe);
         entry(row, t.c, -dVbc);
         inject(row, i0 - dVbe * vbe - dVbc * vbc, i0);
-      }
+      };
+      terminal(t.c, ic, icVbe, icVbc);
+      terminal(t.b, ib, ibVbe, ibVbc);
+      terminal(t.e, -(ic + ib), -(icVbe + ibVbe), -(icVbc + ibVbc));
     });
     if (!useStored && !limited && stepSmall && kclHolds(G, rhs, x, scale, n)) return { converged: true, iterations: it };
     useStored = false;
@@ -449,39 +447,39 @@ function result(circuit: Circuit, cp: Compiled, st: NewtonState, method: DcMetho
     transistors[t.name] = { icA: p.icA, ibA: p.ibA, ieA: p.icA + p.ibA, substrateA: substrate.get(t.name) ?? 0 };
   }
   // A source delivers what its node's other elements draw (KCL at that node).
-  for (const el of circuit.elements) {
-    if (el.kind !== "vsource") continue;
-    currents[el.name] = sourceCurrent(circuit, el.node, currents, transistors);
-  }
+  const drawn = sourceDraws(circuit, currents, transistors);
+  for (const el of circuit.elements) if (el.kind === "vsource") currents[el.name] = drawn.get(el.node) ?? 0;
   return { state: circuit.state, method, iterations, voltages, currents, transistors };
 }
 
-/** Current a grounded source pushes into `node`, from the currents of the elements there. */
-function sourceCurrent(
+/** Current the elements draw out of every node, amperes (used at source nodes). */
+function sourceDraws(
   circuit: Circuit,
-  node: string,
   currents: Readonly<Record<string, number>>,
   transistors: Readonly<Record<string, TransistorCurrents>>,
-): number {
-  let out = 0;
+): Map<string, number> {
+  const out = new Map<string, number>();
+  const add = (node: string, i: number): void => void out.set(node, (out.get(node) ?? 0) + i);
   for (const el of circuit.elements) {
-    const i = currents[el.name] ?? 0;
     switch (el.kind) {
-      case "resistor":
-        if (el.a === node) out += i;
-        if (el.b === node) out -= i;
+      case "resistor": {
+        const i = currents[el.name] as number;
+        add(el.a, i);
+        add(el.b, -i);
         break;
+      }
       case "diode":
-      case "string":
-        if (el.anode === node) out += i;
-        if (el.cathode === node) out -= i;
+      case "string": {
+        const i = currents[el.name] as number;
+        add(el.anode, i);
+        add(el.cathode, -i);
         break;
+      }
       case "npn": {
-        const t = transistors[el.name];
-        if (!t) break;
-        if (el.collector === node) out += t.icA + t.substrateA;
-        if (el.base === node) out += t.ibA;
-        if (el.emitter === node) out -= t.ieA;
+        const t = transistors[el.name] as TransistorCurrents;
+        add(el.collector, t.icA + t.substrateA);
+        add(el.base, t.ibA);
+        add(el.emitter, -t.ieA);
         break;
       }
       case "vsource":

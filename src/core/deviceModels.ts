@@ -96,15 +96,15 @@ export function criticalVoltage(isA: number, nVtV: number): number {
  * factor per iteration. Acts only when the new voltage is above vcrit and
  * the step exceeds 2 n VT.
  *
- * @returns the voltage to evaluate at, and whether it was limited
+ * @returns the voltage to evaluate at; a value other than `vNewV` means it was limited
  */
-export function limitJunction(vNewV: number, vOldV: number, nVtV: number, vcritV: number): { readonly v: number; readonly limited: boolean } {
+export function limitJunction(vNewV: number, vOldV: number, nVtV: number, vcritV: number): number {
   if (vNewV > vcritV && Math.abs(vNewV - vOldV) > 2 * nVtV) {
     if (vOldV > 0) {
       const arg = 1 + (vNewV - vOldV) / nVtV;
-      return { v: arg > 0 ? vOldV + nVtV * Math.log(arg) : vcritV, limited: true };
+      return arg > 0 ? vOldV + nVtV * Math.log(arg) : vcritV;
     }
-    return { v: nVtV * Math.log(vNewV / nVtV), limited: true };
+    return nVtV * Math.log(vNewV / nVtV);
   }
-  return { v: vNewV, limited: false };
+  return vNewV;
 }

@@ -14,12 +14,18 @@
  */
 export function solveInPlace(a: Float64Array, b: Float64Array, n: number): boolean {
   const cols = new Int32Array(n);
+  const rows = new Int32Array(n);
   for (let k = 0; k < n; k++) {
-    // Partial pivoting: the largest entry of column k at or below the diagonal.
+    // Partial pivoting: the largest entry of column k at or below the diagonal;
+    // the same pass lists the rows that need eliminating.
     let p = k;
     let best = Math.abs(a[k * n + k] as number);
+    let r = 0;
     for (let i = k + 1; i < n; i++) {
-      const v = Math.abs(a[i * n + k] as number);
+      const aik = a[i * n + k] as number;
+      if (aik === 0) continue;
+      rows[r++] = i;
+      const v = Math.abs(aik);
       if (v > best) {
         best = v;
         p = i;
@@ -35,13 +41,17 @@ export function solveInPlace(a: Float64Array, b: Float64Array, n: number): boole
       const t = b[k] as number;
       b[k] = b[p] as number;
       b[p] = t;
+      // Row p now holds the old row k, which may be zero in column k.
+      for (let c = 0; c < r; c++) if (rows[c] === p) rows[c] = a[p * n + k] !== 0 ? p : -1;
     }
     const rowK = k * n;
     const pivot = a[rowK + k] as number;
     let m = 0;
     for (let j = k + 1; j < n; j++) if (a[rowK + j] !== 0) cols[m++] = j;
     const bk = b[k] as number;
-    for (let i = k + 1; i < n; i++) {
+    for (let c0 = 0; c0 < r; c0++) {
+      const i = rows[c0] as number;
+      if (i < 0) continue;
       const rowI = i * n;
       const aik = a[rowI + k] as number;
       if (aik === 0) continue;
