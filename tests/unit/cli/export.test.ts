@@ -1,0 +1,98 @@
+import { mkdtemp, readFile, readdir, rm } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { main } from "../../../src/cli/main.ts";
+import type { CliIo } from "../../../src/cli/io.ts";
+import { nodeIo } from "../../../src/cli/main.ts";
+import { compileSpec } from "../../../src/core/decodeSpec.ts";
+import { parseProject } from "../../../src/core/projectSchema.ts";
+import { synthesize, synthSettings } from "../../../src/core/synthesize.ts";
+import { xmlProblem } from "../render/xmlCheck.ts";
+import { parseCsv } from "../core/csvRead.ts";
+
+const dirs: string[] = [];
+afterAll(async () => {
+  for (const d of dirs) await rm(d, { recursive: true, force: true });
+});
+
+/** The real file system, with the printed text kept for the checks. */
+function recordingIo(): { io: CliIo; out: string[]; err: string[] } {
+  const out: string[] = [];
+  const err: string[] = [];
+  return { io: { ...nodeIo, out: (t) => void out.push(t), err: (t) => void err.push(t) }, out, err };
+}
+
+const example = (name: string): string => new URL(`../../../public/examples/${name}.json`, import.meta.url).pathname;
+
+describe("diodeloom export", () => {
+  it.each(["relay-hex-monitor", "turntable-position", "die-roller"])("writes every file for the %s example", async (name) => {
+    const dir = await mkdtemp(join(tmpdir(), "diodeloom-export-"));
+    dirs.push(dir);
+    const { io, out, err } = recordingIo();
+    const code = await main(["export", example(name), "--out", dir, "--fast", "--date", "2026-12-01"], io);
+    expect(err.join("")).toBe("");
+    expect(code).toBe(0);
+    const files = (await readdir(dir)).sort();
+    expect(files).toEqual(expect.arrayContaining(["bom.csv", "project.json", "spice", "wiring.csv", "wiring.html"]));
+    const svgs = files.filter((f) => /^matrix(-\d+)?\.svg$/.test(f));
+    expect(svgs.length).toBeGreaterThan(0);
+    // One sheet is matrix.svg; several are matrix-1.svg, matrix-2.svg, ...
+    if (svgs.length === 1) expect(svgs).toEqual(["matrix.svg"]);
+    else expect(svgs.every((f) => f !== "matrix.svg")).toBe(true);
+    for (const f of svgs) {
+      const svg = await readFile(join(dir, f), "utf8");
+      expect(xmlProblem(svg)).toBeNull();
+      expect(svg).toContain("2026-12-01");
+    }
+    expect(out.join("")).toContain("matrix");
+
+    // project.json is normalised and reads back to the same matrix.
+    const original = parseProject(await readFile(example(name), "utf8"));
+    const written = parseProject(await readFile(join(dir, "project.json"), "utf8"));
+    expect(written.ok && original.ok).toBe(true);
+    if (!written.ok || !original.ok) return;
+    expect(written.value).toEqual(original.value);
+    const settings = synthSettings(written.value, { mode: "fast" });
+    const m1 = await synthesize(compileSpec(original.value), settings);
+    const m2 = await synthesize(compileSpec(written.value), settings);
+    expect(m2).toEqual(m1);
+    if (!m1.ok) return;
+
+    // The wiring list has a row per diode of that matrix; the page lists them too.
+    const wiring = parseCsv(await readFile(join(dir, "wiring.csv"), "utf8"));
+    expect(wiring.slice(1, 1 + m1.value.count).map((r) => r[1])).toEqual(m1.value.diodes.map((d) => d.ref));
+    const html = await readFile(join(dir, "wiring.html"), "utf8");
+    for (const d of m1.value.diodes) expect(html).toContain(`<b>${d.ref}</b>`);
+    expect(html).toContain("Inspection checklist");
+
+    const bom = parseCsv(await readFile(join(dir, "bom.csv"), "utf8"));
+    expect(bom[1]?.[0]).toBe(String(m1.value.count));
+
+    // One SPICE deck per state.
+    const decks = (await readdir(join(dir, "spice"))).sort();
+    expect(decks.length).toBe(written.value.counter.states);
+    const s0 = await readFile(join(dir, "spice", "S0.cir"), "utf8");
+    expect(s0).toMatch(/\.end\s*$/i);
+  });
+
+  it("writes Letter sheets with --paper letter", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "diodeloom-export-"));
+    dirs.push(dir);
+    const { io } = recordingIo();
+    expect(await main(["export", example("die-roller"), "--out", dir, "--direct", "--paper", "letter"], io)).toBe(0);
+    expect(await readFile(join(dir, "matrix.svg"), "utf8")).toContain('width="279.4mm" height="215.9mm"');
+    expect(await readFile(join(dir, "wiring.html"), "utf8")).toContain("size: letter portrait");
+  });
+
+  it.each([
+    [["--fast"], "--out"],
+    [["--out", "/nonexistent-never", "--paper", "a5"], "--paper must be a4 or letter"],
+    [["--out", "/nonexistent-never", "--date", "tomorrow"], "--date must be a date"],
+    [["--out", "/nonexistent-never", "--revision", "x".repeat(41)], "--revision must be at most 40"],
+  ])("refuses %j with exit code 2", async (args, message) => {
+    const { io, err } = recordingIo();
+    expect(await main(["export", example("die-roller"), ...args], io)).toBe(2);
+    expect(err.join("")).toContain(message);
+  });
+});
