@@ -117,6 +117,16 @@ function busCandidates(p: SharingProblem): number[][] {
  * plan (a per-segment level-3 output its links cannot cover).
  */
 function coverForLevels(p: SharingProblem, rules: SharingRules, levels: readonly number[], cands: readonly number[][]): SharingPlan | null {
+  // Greedy gains overrate a wide bus against several one-diode links, so try
+  // both orders: best gain first, and links before buses.
+  const a = greedyCover(p, rules, levels, cands, false);
+  const b = greedyCover(p, rules, levels, cands, true);
+  if (a === null) return b;
+  if (b === null) return a;
+  return rank(b) < rank(a) ? b : a;
+}
+
+function greedyCover(p: SharingProblem, rules: SharingRules, levels: readonly number[], cands: readonly number[][], linksFirst: boolean): SharingPlan | null {
   const { n, m } = p;
   const lvl = (o: number): number => levels[o] ?? 1;
   const directOk = Array.from({ length: m }, (_, o) => levelRules.direct(rules, lvl(o)));
@@ -161,6 +171,7 @@ function coverForLevels(p: SharingProblem, rules: SharingRules, levels: readonly
         pick = { link: l, li };
       }
     });
+    if (linksFirst && pick !== null) bestGain = Infinity;
     for (const { t, s } of shapes) {
       let g = -t.length;
       const chosen: number[] = [];
