@@ -278,12 +278,14 @@ function outputBudgets(spec: DecodeSpec, matrix: VerifiedMatrix, sols: readonly 
 
 function diodeBudgets(project: Project, matrix: VerifiedMatrix, sols: readonly StateSolution[]): Record<string, DiodeBudget> {
   const out: Record<string, DiodeBudget> = {};
+  // Every state's circuit has the same diodes between the same nodes.
+  const byName = new Map((sols[0]?.circuit.elements ?? []).map((x) => [x.name, x]));
   for (const d of matrix.diodes) {
     let maxCurrent = 0;
     let maxReverse = 0;
+    const el = byName.get(d.ref);
+    if (!el || el.kind !== "diode") throw new Error(`bug: circuit lacks diode ${d.ref}`);
     for (const s of sols) {
-      const el = s.circuit.elements.find((x) => x.name === d.ref);
-      if (!el || el.kind !== "diode") throw new Error(`bug: circuit lacks diode ${d.ref}`);
       maxCurrent = Math.max(maxCurrent, s.op.currents[d.ref] as number);
       maxReverse = Math.max(maxReverse, (s.op.voltages[el.cathode] as number) - (s.op.voltages[el.anode] as number));
     }

@@ -25,11 +25,13 @@ export interface DcSettings {
   readonly gminS: number;
   /** Newton iterations allowed for the plain solve and for each stepping step. */
   readonly maxIterations: number;
+  /** The methods to try, in order (tests pick one to exercise it alone). */
+  readonly methods: readonly DcMethod[];
 }
 
-export const DEFAULT_DC_SETTINGS: DcSettings = { gminS: DEFAULT_GMIN_S, maxIterations: 150 };
-
 export type DcMethod = "newton" | "gmin-stepping" | "source-stepping";
+
+export const DEFAULT_DC_SETTINGS: DcSettings = { gminS: DEFAULT_GMIN_S, maxIterations: 150, methods: ["newton", "gmin-stepping", "source-stepping"] };
 
 export interface TransistorCurrents {
   /** Into the collector, amperes. */
@@ -379,25 +381,33 @@ export function solveDc(
   };
   let total = 0;
 
-  // 1. Plain Newton.
+  const tries = new Set(settings.methods);
   let st = fresh();
-  let run = newton(cp, st, cp.fixedVolts, 0, settings.maxIterations, true);
-  total += run.iterations;
-  if (run.converged) return ok(result(circuit, cp, st, "newton", total));
+  let run: NewtonRun;
+
+  // 1. Plain Newton.
+  if (tries.has("newton")) {
+    run = newton(cp, st, cp.fixedVolts, 0, settings.maxIterations, true);
+    total += run.iterations;
+    if (run.converged) return ok(result(circuit, cp, st, "newton", total));
+  }
 
   // 2. gmin stepping: 1e10 x GMIN from every node to ground, a decade at a time.
-  st = fresh();
-  let good = true;
-  for (let g = 1e10 * settings.gminS, first = true; good; g /= 10, first = false) {
-    const gs = g < settings.gminS * 0.5 ? 0 : g;
-    run = newton(cp, st, cp.fixedVolts, gs, settings.maxIterations, first);
-    total += run.iterations;
-    good = run.converged;
-    if (gs === 0) break;
+  if (tries.has("gmin-stepping")) {
+    st = fresh();
+    let good = true;
+    for (let g = 1e10 * settings.gminS, first = true; good; g /= 10, first = false) {
+      const gs = g < settings.gminS * 0.5 ? 0 : g;
+      run = newton(cp, st, cp.fixedVolts, gs, settings.maxIterations, first);
+      total += run.iterations;
+      good = run.converged;
+      if (gs === 0) break;
+    }
+    if (good) return ok(result(circuit, cp, st, "gmin-stepping", total));
   }
-  if (good) return ok(result(circuit, cp, st, "gmin-stepping", total));
 
   // 3. Source stepping: every source ramped from 0 to full strength.
+  if (!tries.has("source-stepping")) return fail(noConvergence(circuit, total));
   st = { x: new Float64Array(cp.n), jv: new Float64Array(jCount) };
   let lambda = 0;
   let step = 0.1;
@@ -418,13 +428,16 @@ export function solveDc(
     }
   }
   if (lambda >= 1) return ok(result(circuit, cp, st, "source-stepping", total));
+  return fail(noConvergence(circuit, total));
+}
 
-  return fail({
+function noConvergence(circuit: Circuit, iterations: number): DcFailure {
+  return {
     state: circuit.state,
     message:
       `the DC solver did not converge for state ${circuit.state} (Newton, gmin stepping and source stepping all failed ` +
-      `after ${total} iterations); check the electrical values for extremes`,
-  });
+      `after ${iterations} iterations); check the electrical values for extremes`,
+  };
 }
 
 function result(circuit: Circuit, cp: Compiled, st: NewtonState, method: DcMethod, iterations: number): OperatingPoint {

@@ -1,0 +1,46 @@
+import { compileSpec } from "../../core/decodeSpec.ts";
+import { spiceNetlist } from "../../core/netlist.ts";
+import { synthesize } from "../../core/synthesize.ts";
+import type { Command } from "../command.ts";
+import { EXIT } from "../io.ts";
+import { loadProject } from "../loadProject.ts";
+import { reportFailure, settingsFromArgs } from "./synth.ts";
+
+const USAGE = "netlist FILE --state K [--direct | --fast] [--max-depth K] [--depth POLICY] [--time-limit MS]";
+
+export const netlistCommand: Command = {
+  name: "netlist",
+  usage: USAGE,
+  summary: "print the SPICE netlist (.model, .op) of the circuit with one state active",
+  options: {
+    state: { value: true, meta: "K", help: "the active state: its number 0..N-1 or its name S0..S(N-1)" },
+    direct: { help: "use the direct matrix (one diode per lit cell)" },
+    fast: { help: "use the heuristic matrix (no exact optimizer)" },
+    "max-depth": { value: true, meta: "K", help: "most diodes on any path, 1-3 (overrides the project)" },
+    depth: { value: true, meta: "POLICY", help: "mixed | per-segment | uniform (overrides the project)" },
+    "time-limit": { value: true, meta: "MS", help: "time limit of the exact optimizer, milliseconds" },
+  },
+  async run(args, io) {
+    const raw = args.values.get("state");
+    if (raw === undefined) {
+      io.err(`--state is required (the active state, e.g. --state 0)\nusage: diodeloom ${USAGE}\n`);
+      return EXIT.input;
+    }
+    const project = await loadProject(args, io, USAGE);
+    if (!project) return EXIT.input;
+    const n = project.counter.states;
+    const m = /^S?(\d+)$/i.exec(raw);
+    const k = m ? Number(m[1]) : NaN;
+    if (!(Number.isInteger(k) && k >= 0 && k < n)) {
+      io.err(`--state must be a state number from 0 to ${n - 1} or a name S0..S${n - 1} (got "${raw}")\n`);
+      return EXIT.input;
+    }
+    const settings = settingsFromArgs(project, args, io);
+    if (!settings) return EXIT.input;
+    const spec = compileSpec(project);
+    const matrix = await synthesize(spec, settings);
+    if (!matrix.ok) return reportFailure(matrix.error, io);
+    io.out(spiceNetlist(project, spec, matrix.value, k));
+    return EXIT.ok;
+  },
+};
