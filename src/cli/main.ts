@@ -10,11 +10,13 @@ import { EXIT, type CliIo } from "./io.ts";
 import { synthCommand } from "./commands/synth.ts";
 import { compareCommand } from "./commands/compare.ts";
 import { exportCommand } from "./commands/export.ts";
+import { budgetCommand } from "./commands/budget.ts";
+import { netlistCommand } from "./commands/netlist.ts";
 import { MAX_PROJECT_BYTES } from "../core/projectSchema.ts";
 
 export const VERSION = "0.1.0";
 
-const COMMANDS: readonly Command[] = [synthCommand, compareCommand, exportCommand];
+const COMMANDS: readonly Command[] = [synthCommand, compareCommand, exportCommand, budgetCommand, netlistCommand];
 
 function usage(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length));
