@@ -42,7 +42,7 @@ import {
 } from "./drawingModel.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
 import { glyphKey, glyphKeyHeight } from "./glyphKey.ts";
-import { TITLE_BLOCK_MM, notesBlock, sheetFrame, titleBlock, zoneOf, type SheetFrame } from "./sheetFrame.ts";
+import { TITLE_BLOCK_MM, notesBlock, notesHeight, sheetFrame, titleBlock, zoneOf, type SheetFrame } from "./sheetFrame.ts";
 
 /** Where the wiring list finds a diode on the drawing. */
 export interface DiodePlacement {
@@ -59,26 +59,63 @@ export interface MatrixDrawing {
 
 // ---------------------------------------------------------------- geometry constants (mm)
 
-/** Offset of both diode taps from the crossing, along the row and down the column. */
-const TAP = 3.5;
-/** Wire overshoot beyond the last tap, so that every tap is a T-joint. */
-const OVERSHOOT = 1.5;
-const PITCH_Y = 6;
-const MIN_PITCH_X = 10;
-const LEFT_PAD = TAP + 1.3;
-const TOP_PAD = 1.6;
-const REF_SIZE = 2.0;
-const ROW_SIZE = 2.5;
-const COLUMN_SIZE = 2.2;
-const GROUP_SIZE = 2.2;
-const CONT_SIZE = 1.8;
-const DOT_R = 0.5;
-/** Width of the strips that hold continuation marks, left and right. */
-const STRIP_W = 8.5;
-/** Height of the strips that hold continuation marks, top and bottom. */
-const STRIP_H = 4.5;
-const TERMINAL_H = 4.5;
-const ARROW = 1.2;
+/**
+ * Sizes of the matrix part of a drawing, millimetres, at a scale. Small
+ * matrices are drawn larger (up to 1.5 times), as long as that costs no
+ * extra sheet, so that they read easily at the bench.
+ */
+interface Metrics {
+  readonly scale: number;
+  /** Offset of both diode taps from the crossing, along the row and down the column. */
+  readonly tap: number;
+  /** Wire overshoot beyond the last tap or crossing, so that every tap is a T-joint. */
+  readonly overshoot: number;
+  readonly pitchY: number;
+  readonly minPitchX: number;
+  readonly leftPad: number;
+  readonly topPad: number;
+  readonly refSize: number;
+  readonly rowSize: number;
+  readonly columnSize: number;
+  readonly groupSize: number;
+  readonly contSize: number;
+  readonly dotR: number;
+  /** Half the length (and half the width) of the diode triangle. */
+  readonly symbolHalf: number;
+  /** Width of the strips that hold continuation marks, left and right. */
+  readonly stripW: number;
+  /** Height of the strips that hold continuation marks, top and bottom. */
+  readonly stripH: number;
+  readonly terminalH: number;
+  readonly arrow: number;
+}
+
+/** Scales tried, largest first. */
+const SCALES = [1.5, 1.25, 1] as const;
+
+function metrics(scale: number): Metrics {
+  const k = (v: number): number => Math.round(v * scale * 1000) / 1000;
+  return {
+    scale,
+    tap: k(3.5),
+    overshoot: k(1.5),
+    pitchY: k(6),
+    minPitchX: k(10),
+    leftPad: k(4.8),
+    topPad: k(1.6),
+    refSize: k(2.0),
+    rowSize: k(2.5),
+    columnSize: k(2.2),
+    groupSize: 2.2,
+    contSize: k(1.8),
+    dotR: k(0.5),
+    symbolHalf: k(0.9),
+    stripW: k(8.5),
+    stripH: k(4.5),
+    terminalH: k(4.5),
+    arrow: k(1.2),
+  }
+}
 const GAP = 3;
 
 // ---------------------------------------------------------------- the grid
@@ -119,12 +156,13 @@ interface Grid {
   readonly dots: readonly Dot[];
   readonly rotateHeads: boolean;
   readonly keyH: number;
+  readonly m: Metrics;
 }
 
 const X = (c: number, pitchX: number): number => c * pitchX;
-const Y = (r: number): number => r * PITCH_Y;
+const Y = (r: number, m: Metrics): number => r * m.pitchY;
 
-function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix): Grid {
+function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, m: Metrics): Grid {
   const drivers = new Set(matrix.diodes.map((d) => d.from));
   const linkSources = matrix.outputs.filter((o) => drivers.has(o));
   const rows: GridRow[] = [
@@ -141,27 +179,27 @@ function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix): Gri
       return { net: o, kind: "output" as const, group: m?.[1] ?? "", head: m?.[2] ?? o, foot: driverOf.get(o) ?? "" };
     }),
   ];
-  const refW = Math.max(0, ...matrix.diodes.map((d) => textWidth(d.ref, REF_SIZE)));
-  const pitchX = Math.ceil(Math.max(MIN_PITCH_X, LEFT_PAD + 1.0 + refW + 0.6) * 10) / 10;
+  const refW = Math.max(0, ...matrix.diodes.map((d) => textWidth(d.ref, m.refSize)));
+  const pitchX = Math.ceil(Math.max(m.minPitchX, m.leftPad + 1.0 * m.scale + refW + 0.6 * m.scale) * 10) / 10;
   const rowOf = new Map(rows.map((r, i) => [r.net, i]));
   const colOf = new Map(columns.map((c, i) => [c.net, i]));
   const C = Math.max(columns.length, 1);
   const R = rows.length;
-  const left = X(0, pitchX) - LEFT_PAD;
-  const right = X(C - 1, pitchX) + pitchX - LEFT_PAD;
-  const top = Y(0) - TOP_PAD;
-  const bottom = Y(R - 1) + PITCH_Y - TOP_PAD;
+  const left = X(0, pitchX) - m.leftPad;
+  const right = X(C - 1, pitchX) + pitchX - m.leftPad;
+  const top = Y(0, m) - m.topPad;
+  const bottom = Y(R - 1, m) + m.pitchY - m.topPad;
 
   const diodes: DiodeSymbol[] = matrix.diodes.map((d) => {
     const r = rowOf.get(d.from);
     const c = colOf.get(d.to);
     if (r === undefined || c === undefined) throw new Error(`bug: diode ${d.ref} from ${d.from} to ${d.to} has no row or column`);
-    return diodeSymbol(d.ref, d.from, d.to, { x: X(c, pitchX), y: Y(r) });
+    return diodeSymbol(d.ref, d.from, d.to, { x: X(c, pitchX), y: Y(r, m) }, m);
   });
 
   const wires: Wire[] = [];
   for (const [r, row] of rows.entries()) {
-    const y = Y(r);
+    const y = Y(r, m);
     if (row.kind === "state") {
       wires.push({ net: row.net, a: { x: left, y }, b: { x: right, y }, horizontal: true });
       continue;
@@ -171,8 +209,8 @@ function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix): Gri
     // From the leftmost anode tap to just past the rightmost crossing, so the
     // row really crosses every column it feeds.
     const fed = diodes.filter((d) => d.from === row.net);
-    const x0 = Math.min(...ownX, ...fed.map((d) => d.anode.x - OVERSHOOT));
-    const x1 = Math.max(...ownX, ...fed.map((d) => d.crossing.x + OVERSHOOT));
+    const x0 = Math.min(...ownX, ...fed.map((d) => d.anode.x - m.overshoot));
+    const x1 = Math.max(...ownX, ...fed.map((d) => d.crossing.x + m.overshoot));
     wires.push({ net: row.net, a: { x: x0, y }, b: { x: x1, y }, horizontal: true });
   }
   for (const [c, col] of columns.entries()) {
@@ -182,27 +220,30 @@ function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix): Gri
       continue;
     }
     const own = rowOf.get(col.net);
-    const taps = diodes.filter((d) => d.to === col.net).map((d) => d.cathode.y + OVERSHOOT);
-    const y1 = Math.max(...(own === undefined ? [] : [Y(own)]), ...taps);
+    const taps = diodes.filter((d) => d.to === col.net).map((d) => d.cathode.y + m.overshoot);
+    const y1 = Math.max(...(own === undefined ? [] : [Y(own, m)]), ...taps);
     wires.push({ net: col.net, a: { x, y: top }, b: { x, y: y1 }, horizontal: false });
   }
 
-  const dots = findDots(wires, diodes);
-  const rotateHeads = columns.some((c) => textWidth(c.head, COLUMN_SIZE) > pitchX - 1.5);
-  // The narrowest group (one column) needs the tallest key.
-  const keyH = matrix.outputs.length === 0 ? 0 : glyphKeyHeight(spec.cell, pitchX - 1.6);
-  return { rows, columns, pitchX, wires, diodes, dots, rotateHeads, keyH };
+  const dots = findDots(wires, diodes, m.dotR);
+  const rotateHeads = columns.some((c) => textWidth(c.head, m.columnSize) > pitchX - 1.5);
+  // Room for the tallest key of a whole position group; a group cut by a
+  // sheet edge is narrower, and a key that then grows taller is left out.
+  const groupSizes = new Map<string, number>();
+  for (const c of columns) if (c.kind === "output") groupSizes.set(c.group, (groupSizes.get(c.group) ?? 0) + 1);
+  const keyH = Math.max(0, ...[...groupSizes.values()].map((n) => glyphKeyHeight(spec.cell, n * pitchX - 1.6)));
+  return { rows, columns, pitchX, wires, diodes, dots, rotateHeads, keyH, m };
 }
 
-/** The symbol of a diode at a crossing, taps at TAP left of and TAP below it. */
-export function diodeSymbol(ref: string, from: string, to: string, crossing: Point): DiodeSymbol {
-  const anode = { x: crossing.x - TAP, y: crossing.y };
-  const cathode = { x: crossing.x, y: crossing.y + TAP };
+/** The symbol of a diode at a crossing, its taps `m.tap` left of and below it. */
+function diodeSymbol(ref: string, from: string, to: string, crossing: Point, m: Metrics): DiodeSymbol {
+  const anode = { x: crossing.x - m.tap, y: crossing.y };
+  const cathode = { x: crossing.x, y: crossing.y + m.tap };
   const len = Math.hypot(cathode.x - anode.x, cathode.y - anode.y);
   const u = { x: (cathode.x - anode.x) / len, y: (cathode.y - anode.y) / len };
   const p = { x: -u.y, y: u.x };
   const mid = { x: (anode.x + cathode.x) / 2, y: (anode.y + cathode.y) / 2 };
-  const half = 0.9; // half the triangle's length and width
+  const half = m.symbolHalf;
   const base = { x: mid.x - u.x * half, y: mid.y - u.y * half };
   const apex = { x: mid.x + u.x * half, y: mid.y + u.y * half };
   const triangle: [Point, Point, Point] = [
@@ -251,7 +292,7 @@ function midpoint(p: Point, q: Point): Point {
  * Junction dots: every point where the pieces of one net meet with three or
  * more arms (an end counts one arm, a piece passing through counts two).
  */
-export function findDots(wires: readonly { net?: string; a: Point; b: Point }[], diodes: readonly DiodeSymbol[]): Dot[] {
+export function findDots(wires: readonly { net?: string; a: Point; b: Point }[], diodes: readonly DiodeSymbol[], radius: number): Dot[] {
   const dots: Dot[] = [];
   for (const [net, pieces] of netPieces(wires, diodes)) {
     const seen = new Set<string>();
@@ -264,7 +305,7 @@ export function findDots(wires: readonly { net?: string; a: Point; b: Point }[],
           const c = contact(p, q.a, q.b);
           arms += c === "end" ? 1 : c === "inside" ? 2 : 0;
         }
-        if (arms >= 3) dots.push({ at: p, r: DOT_R, net });
+        if (arms >= 3) dots.push({ at: p, r: radius, net });
       }
     }
   }
@@ -293,28 +334,38 @@ interface Plan {
   readonly colChunks: Chunk[];
   readonly hStrips: boolean;
   readonly vStrips: boolean;
+  /** False when not even one grid cell fits the region at this scale. */
+  readonly fits: boolean;
 }
 
 function headerHeight(grid: Grid): number {
-  const heads = grid.rotateHeads ? Math.max(...grid.columns.map((c) => textWidth(c.head, COLUMN_SIZE))) + 1.5 : 4.5;
+  const m = grid.m;
+  const heads = grid.rotateHeads ? Math.max(...grid.columns.map((c) => textWidth(c.head, m.columnSize))) + 1.5 : 4.5 * m.scale;
   return 3.5 + (grid.keyH > 0 ? grid.keyH + 1 : 0) + 1 + heads;
 }
 
 function rowLabelWidth(grid: Grid): number {
-  return Math.max(...grid.rows.map((r) => textWidth(r.text, ROW_SIZE))) + 2;
+  const m = grid.m;
+  return Math.max(...grid.rows.map((r) => textWidth(r.text, m.rowSize))) + 2;
 }
 
-function plan(grid: Grid, frame: SheetFrame): Plan {
+/** Height of the band under the matrix that holds the notes and the title block (bottom arrangement). */
+function bottomBand(notes: readonly string[], content: Box): number {
+  return Math.max(TITLE_BLOCK_MM.h, notesHeight(notes, content.w - TITLE_BLOCK_MM.w - GAP));
+}
+
+function plan(grid: Grid, frame: SheetFrame, notes: readonly string[]): Plan {
+  const m = grid.m;
   const c = frame.content;
   const regions: Record<Plan["arrangement"], Box> = {
     side: { x: c.x, y: c.y, w: c.w - TITLE_BLOCK_MM.w - GAP, h: c.h },
-    bottom: { x: c.x, y: c.y, w: c.w, h: c.h - TITLE_BLOCK_MM.h - GAP },
+    bottom: { x: c.x, y: c.y, w: c.w, h: c.h - bottomBand(notes, c) - GAP },
   };
   const C = Math.max(1, grid.columns.length);
   const R = grid.rows.length;
   const fit = (region: Box, hStrips: boolean, vStrips: boolean): { cols: number; rows: number } => ({
-    cols: Math.floor((region.w - rowLabelWidth(grid) - (hStrips ? 2 * STRIP_W : 0)) / grid.pitchX),
-    rows: Math.floor((region.h - headerHeight(grid) - TERMINAL_H - (vStrips ? 2 * STRIP_H : 0)) / PITCH_Y),
+    cols: Math.floor((region.w - rowLabelWidth(grid) - (hStrips ? 2 * m.stripW : 0)) / grid.pitchX),
+    rows: Math.floor((region.h - headerHeight(grid) - m.terminalH - (vStrips ? 2 * m.stripH : 0)) / m.pitchY),
   });
   const plans = (["side", "bottom"] as const).map((arrangement): Plan => {
     const region = regions[arrangement];
@@ -322,10 +373,10 @@ function plan(grid: Grid, frame: SheetFrame): Plan {
     const hStrips = C > first.cols;
     const vStrips = R > first.rows;
     const f = fit(region, hStrips, vStrips);
-    if (f.cols < 1 || f.rows < 1) throw new Error(`bug: not even one grid cell fits the ${arrangement} region`);
-    return { arrangement, region, rowChunks: chunks(R, f.rows), colChunks: chunks(C, f.cols), hStrips, vStrips };
+    if (f.cols < 1 || f.rows < 1) return { arrangement, region, rowChunks: [], colChunks: [], hStrips, vStrips, fits: false };
+    return { arrangement, region, rowChunks: chunks(R, f.rows), colChunks: chunks(C, f.cols), hStrips, vStrips, fits: true };
   });
-  const sheets = (p: Plan): number => p.rowChunks.length * p.colChunks.length;
+  const sheets = (p: Plan): number => (p.fits ? p.rowChunks.length * p.colChunks.length : Infinity);
   const [side, bottom] = plans as [Plan, Plan];
   return sheets(bottom) < sheets(side) ? bottom : side;
 }
@@ -339,9 +390,27 @@ function plan(grid: Grid, frame: SheetFrame): Plan {
  * drawing.placements.get("D1");    // { sheet: 1, zone: "B2" }
  */
 export function layoutMatrix(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, options: DrawingOptions): MatrixDrawing {
-  const grid = buildGrid(project, spec, matrix);
   const probe = sheetFrame(options.paper, "landscape");
-  const p = plan(grid, probe);
+  // Sized with the continuation note, in case the drawing needs more than one sheet.
+  const sizingNotes = matrixNotes(project, spec, matrix, true);
+  const sheetsOf = (q: Plan): number => q.rowChunks.length * q.colChunks.length;
+  const smallest = metrics(1);
+  const baseGrid = buildGrid(project, spec, matrix, smallest);
+  const base = plan(baseGrid, probe, sizingNotes);
+  if (!base.fits) throw new Error("bug: not even one grid cell fits a sheet");
+  // The largest scale that needs no more sheets than the smallest one.
+  let grid = baseGrid;
+  let p = base;
+  for (const scale of SCALES) {
+    if (scale === 1) break;
+    const g = buildGrid(project, spec, matrix, metrics(scale));
+    const q = plan(g, probe, sizingNotes);
+    if (q.fits && sheetsOf(q) <= sheetsOf(base)) {
+      grid = g;
+      p = q;
+      break;
+    }
+  }
   const count = p.rowChunks.length * p.colChunks.length;
   const sheetNo = (ri: number, ci: number): number => ri * p.colChunks.length + ci + 1;
   const notes = matrixNotes(project, spec, matrix, count > 1);
@@ -378,7 +447,11 @@ function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, co
   if (matrix.buses.length > 0) notes.push(`Bus nodes ${matrix.buses.join(", ")}: the counter lines feed the bus column; the bus row feeds the outputs.`);
   const outputs = new Set(matrix.outputs);
   const links = matrix.diodes.filter((d) => outputs.has(d.from));
-  if (links.length > 0) notes.push(`Links: ${links.map((d) => `${d.ref} ${d.from} to ${d.to}`).join(", ")}; a link row taps its output column at the dot.`);
+  if (links.length > 0) {
+    const shown = links.slice(0, 6).map((d) => `${d.ref} ${d.from} to ${d.to}`);
+    const more = links.length > shown.length ? ` and ${links.length - shown.length} more (see the wiring list)` : "";
+    notes.push(`Links, output to output: ${shown.join(", ")}${more}; a link row taps its source column at the dot.`);
+  }
   if (spec.tiedOn.length > 0) notes.push(`Lit in every state, no diodes: ${spec.tiedOn.join(", ")} (base held high, see the BOM).`);
   if (spec.neverLit.length > 0) notes.push(`Never lit, not wired: ${spec.neverLit.join(", ")}.`);
   if (continued) notes.push("An arrowhead with sh.N marks a line continued on sheet N.");
@@ -407,6 +480,7 @@ function layoutSheet(
   matrix: DiodeMatrix,
   notes: readonly string[],
 ): { sheet: Sheet; zones: Map<string, string> } {
+  const m = grid.m;
   const frame = sheetFrame(options.paper, "landscape");
   const segments: Segment[] = [...frame.segments];
   const rects: Rect[] = [...frame.rects];
@@ -421,14 +495,14 @@ function layoutSheet(
   // Window of this block in grid millimetres, and where it lands on paper.
   const colLast = Math.max(cols.last, cols.first);
   const win = {
-    left: X(cols.first, px) - LEFT_PAD,
-    right: X(colLast, px) + px - LEFT_PAD,
-    top: Y(rows.first) - TOP_PAD,
-    bottom: Y(rows.last) + PITCH_Y - TOP_PAD,
+    left: X(cols.first, px) - m.leftPad,
+    right: X(colLast, px) + px - m.leftPad,
+    top: Y(rows.first, m) - m.topPad,
+    bottom: Y(rows.last, m) + m.pitchY - m.topPad,
   };
   const origin = {
-    x: region.x + rowLabelW + (p.hStrips ? STRIP_W : 0),
-    y: region.y + headerH + (p.vStrips ? STRIP_H : 0),
+    x: region.x + rowLabelW + (p.hStrips ? m.stripW : 0),
+    y: region.y + headerH + (p.vStrips ? m.stripH : 0),
   };
   const dx = origin.x - win.left;
   const dy = origin.y - win.top;
@@ -448,12 +522,12 @@ function layoutSheet(
       segments.push({ a: at({ x: x0, y }), b: at({ x: x1, y }), width: STROKE.wire, net: w.net });
       const py = y + dy;
       if (w.a.x < win.left - eps && neighbours.left !== undefined) {
-        polygons.push(arrow({ x: paperWin.left, y: py }, "right", true));
-        labels.push(label(`sh.${neighbours.left}`, { x: paperWin.left - ARROW - 0.6, y: py + 0.65 }, CONT_SIZE, "continuation", { anchor: "end" }));
+        polygons.push(arrow({ x: paperWin.left, y: py }, "right", true, m));
+        labels.push(label(`sh.${neighbours.left}`, { x: paperWin.left - m.arrow - 0.6 * m.scale, y: py + 0.36 * m.contSize }, m.contSize, "continuation", { anchor: "end" }));
       }
       if (w.b.x > win.right + eps && neighbours.right !== undefined) {
-        polygons.push(arrow({ x: paperWin.right, y: py }, "right", false));
-        labels.push(label(`sh.${neighbours.right}`, { x: paperWin.right + ARROW + 0.6, y: py + 0.65 }, CONT_SIZE, "continuation"));
+        polygons.push(arrow({ x: paperWin.right, y: py }, "right", false, m));
+        labels.push(label(`sh.${neighbours.right}`, { x: paperWin.right + m.arrow + 0.6 * m.scale, y: py + 0.36 * m.contSize }, m.contSize, "continuation"));
       }
     } else {
       const x = w.a.x;
@@ -464,12 +538,12 @@ function layoutSheet(
       segments.push({ a: at({ x, y: y0 }), b: at({ x, y: y1 }), width: STROKE.wire, net: w.net });
       const pxx = x + dx;
       if (w.a.y < win.top - eps && neighbours.up !== undefined) {
-        polygons.push(arrow({ x: pxx, y: paperWin.top }, "down", true));
-        labels.push(label(`sh.${neighbours.up}`, { x: pxx, y: paperWin.top - ARROW - 0.8 }, CONT_SIZE, "continuation", { anchor: "middle" }));
+        polygons.push(arrow({ x: pxx, y: paperWin.top }, "down", true, m));
+        labels.push(label(`sh.${neighbours.up}`, { x: pxx, y: paperWin.top - m.arrow - 0.8 * m.scale }, m.contSize, "continuation", { anchor: "middle" }));
       }
       if (w.b.y > win.bottom + eps && neighbours.down !== undefined) {
-        polygons.push(arrow({ x: pxx, y: paperWin.bottom }, "down", false));
-        labels.push(label(`sh.${neighbours.down}`, { x: pxx, y: paperWin.bottom + ARROW + 2.0 }, CONT_SIZE, "continuation", { anchor: "middle" }));
+        polygons.push(arrow({ x: pxx, y: paperWin.bottom }, "down", false, m));
+        labels.push(label(`sh.${neighbours.down}`, { x: pxx, y: paperWin.bottom + m.arrow + 2.0 * m.scale }, m.contSize, "continuation", { anchor: "middle" }));
       }
     }
   }
@@ -479,9 +553,9 @@ function layoutSheet(
   const zones = new Map<string, string>();
   for (const d of grid.diodes) {
     if (!inside(d.crossing)) continue;
-    const moved = diodeSymbol(d.ref, d.from, d.to, at(d.crossing));
+    const moved = diodeSymbol(d.ref, d.from, d.to, at(d.crossing), m);
     diodes.push(moved);
-    labels.push(label(d.ref, { x: moved.crossing.x + 1.0, y: moved.crossing.y + 0.8 + 0.8 * REF_SIZE }, REF_SIZE, "diode-ref"));
+    labels.push(label(d.ref, { x: moved.crossing.x + 1.0 * m.scale, y: moved.crossing.y + 0.8 * m.scale + 0.8 * m.refSize }, m.refSize, "diode-ref"));
     zones.set(d.ref, zoneOf(frame.zones, moved.crossing));
   }
   const dots: Dot[] = grid.dots.filter((d) => inside(d.at)).map((d) => ({ ...d, at: at(d.at) }));
@@ -489,7 +563,7 @@ function layoutSheet(
   // Row labels.
   for (let r = rows.first; r <= rows.last; r++) {
     const row = grid.rows[r] as GridRow;
-    labels.push(label(row.text, { x: region.x + rowLabelW - 1.5, y: Y(r) + dy + 0.9 }, ROW_SIZE, "row", { anchor: "end", bold: row.kind === "state" }));
+    labels.push(label(row.text, { x: region.x + rowLabelW - 1.5, y: Y(r, m) + dy + 0.36 * m.rowSize }, m.rowSize, "row", { anchor: "end", bold: row.kind === "state" }));
   }
 
   // Column heads, group titles and glyph keys, feet.
@@ -500,13 +574,13 @@ function layoutSheet(
     const col = grid.columns[c] as GridColumn;
     const x = X(c, px) + dx;
     if (grid.rotateHeads) {
-      labels.push(label(col.head, { x: x + 0.75, y: bracketY + 1.2 + Math.max(...grid.columns.map((k) => textWidth(k.head, COLUMN_SIZE))) }, COLUMN_SIZE, "column", { rotate: -90 }));
+      labels.push(label(col.head, { x: x + 0.75, y: bracketY + 1.2 + Math.max(...grid.columns.map((k) => textWidth(k.head, m.columnSize))) }, m.columnSize, "column", { rotate: -90 }));
     } else {
-      labels.push(label(col.head, { x, y: bracketY + 3.4 }, COLUMN_SIZE, "column", { anchor: "middle", bold: true }));
+      labels.push(label(col.head, { x, y: bracketY + 3.4 * m.scale }, m.columnSize, "column", { anchor: "middle", bold: true }));
     }
     if (col.kind === "output" && rows.last === grid.rows.length - 1 && col.foot) {
-      const footY = paperWin.bottom + (p.vStrips ? STRIP_H : 0) + 3.2;
-      labels.push(label(col.foot, { x, y: footY }, COLUMN_SIZE, "terminal", { anchor: "middle" }));
+      const footY = paperWin.bottom + (p.vStrips ? m.stripH : 0) + 3.2 * m.scale;
+      labels.push(label(col.foot, { x, y: footY }, m.columnSize, "terminal", { anchor: "middle" }));
     }
     const last = groups[groups.length - 1];
     if (last && last.group === col.group) last.last = c;
@@ -517,13 +591,14 @@ function layoutSheet(
     const x1 = X(g.last, px) + dx + px / 2 - 0.8;
     const cx = (x0 + x1) / 2;
     const isBus = g.group === "Buses";
-    labels.push(label(isBus ? "Buses" : `Pos ${g.group}`, { x: cx, y: headTop + 2.6 }, GROUP_SIZE, "group", { anchor: "middle", bold: true }));
+    labels.push(label(isBus ? "Buses" : `Pos ${g.group}`, { x: cx, y: headTop + 2.6 }, m.groupSize, "group", { anchor: "middle", bold: true }));
     segments.push({ a: { x: x0, y: bracketY + 1 }, b: { x: x0, y: bracketY }, width: STROKE.thin });
     segments.push({ a: { x: x0, y: bracketY }, b: { x: x1, y: bracketY }, width: STROKE.thin });
     segments.push({ a: { x: x1, y: bracketY }, b: { x: x1, y: bracketY + 1 }, width: STROKE.thin });
     const k = glyphKey(spec.cell, cx, headTop + 3.5, x1 - x0);
     // A key wider than its group's columns would run into the next group's: leave it out.
-    if (!isBus && grid.keyH > 0 && k.box.x >= x0 - 0.8 - 1e-9 && k.box.x + k.box.w <= x1 + 0.8 + 1e-9) {
+    const fits = k.box.x >= x0 - 0.8 - 1e-9 && k.box.x + k.box.w <= x1 + 0.8 + 1e-9 && k.box.y + k.box.h <= headTop + 3.5 + grid.keyH + 1e-9;
+    if (!isBus && grid.keyH > 0 && fits) {
       segments.push(...k.segments);
       polygons.push(...k.polygons);
       rects.push(...k.rects);
@@ -538,7 +613,10 @@ function layoutSheet(
   const notesBox: Box =
     p.arrangement === "side"
       ? { x: tbCorner.x - TITLE_BLOCK_MM.w, y: content.y, w: TITLE_BLOCK_MM.w, h: content.h - TITLE_BLOCK_MM.h - GAP }
-      : { x: content.x, y: tbCorner.y - TITLE_BLOCK_MM.h, w: content.w - TITLE_BLOCK_MM.w - GAP, h: TITLE_BLOCK_MM.h };
+      : (() => {
+          const h = bottomBand(notes, content);
+          return { x: content.x, y: tbCorner.y - h, w: content.w - TITLE_BLOCK_MM.w - GAP, h };
+        })();
   const nb = notesBlock(notes, notesBox);
   rects.push(...nb.rects);
   labels.push(...nb.labels);
@@ -577,9 +655,9 @@ function layoutSheet(
 }
 
 /** A filled arrowhead at a cut edge: outgoing just beyond the edge, incoming just before it. */
-function arrow(edge: Point, direction: "right" | "down", incoming: boolean): Polygon {
-  const h = ARROW;
-  const w = 0.5;
+function arrow(edge: Point, direction: "right" | "down", incoming: boolean, m: Metrics): Polygon {
+  const h = m.arrow;
+  const w = 0.5 * m.scale;
   if (direction === "right") {
     const x0 = incoming ? edge.x - h : edge.x;
     return { points: [{ x: x0, y: edge.y - w }, { x: x0 + h, y: edge.y }, { x: x0, y: edge.y + w }], filled: true, width: STROKE.thin };

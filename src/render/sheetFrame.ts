@@ -170,22 +170,35 @@ export function titleBlock(info: TitleInfo, sheet: number, count: number, corner
   return { rects, labels };
 }
 
+const NOTE_SIZE = 2.2;
+const NOTE_LINE_MM = 3.1;
+
+/** The notes as printed lines; continuation lines are indented by position, not by spaces, which SVG would collapse. */
+function noteLines(notes: readonly string[], width: number): { text: string; indent: number }[] {
+  const maxChars = (width - 4) / textWidth("M", NOTE_SIZE);
+  const lines: { text: string; indent: number }[] = [{ text: "NOTES", indent: 0 }];
+  notes.forEach((n, i) => {
+    const prefix = `${i + 1}. `;
+    const indent = textWidth(prefix, NOTE_SIZE);
+    wrapText(n, maxChars - prefix.length).forEach((l, k) => lines.push(k === 0 ? { text: prefix + l, indent: 0 } : { text: l, indent }));
+  });
+  return lines;
+}
+
+/** Height a notes box of a given width needs to show every line, millimetres. */
+export function notesHeight(notes: readonly string[], width: number): number {
+  return noteLines(notes, width).length * NOTE_LINE_MM + 2.5;
+}
+
 /**
  * Numbered notes wrapped into a box; lines that do not fit are dropped and
  * the last shown line says so.
  */
 export function notesBlock(notes: readonly string[], box: Box): { rects: Rect[]; labels: Label[] } {
-  const size = 2.2;
-  const lineH = 3.1;
+  const size = NOTE_SIZE;
+  const lineH = NOTE_LINE_MM;
   const labels: Label[] = [];
-  const maxChars = (box.w - 4) / textWidth("M", size);
-  // Continuation lines are indented by position, not by spaces, which SVG would collapse.
-  const lines: { text: string; indent: number }[] = [{ text: "NOTES", indent: 0 }];
-  notes.forEach((n, i) => {
-    const prefix = `${i + 1}. `;
-    const indent = textWidth(prefix, size);
-    wrapText(n, maxChars - prefix.length).forEach((l, k) => lines.push(k === 0 ? { text: prefix + l, indent: 0 } : { text: l, indent }));
-  });
+  const lines = noteLines(notes, box.w);
   const capacity = Math.max(1, Math.floor((box.h - 2) / lineH));
   const shown = lines.length <= capacity ? lines : [...lines.slice(0, capacity - 1), { text: "(further notes did not fit)", indent: 0 }];
   shown.forEach((line, i) => {
