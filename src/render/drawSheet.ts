@@ -42,7 +42,10 @@ export function drawSheet(root: Svg, sheet: Sheet): Svg {
     });
   }
   for (const c of sheet.circles) {
-    root.circle(r3(2 * c.r)).center(r3(c.at.x), r3(c.at.y)).attr(c.filled ? { fill: INK } : { fill: "none", stroke: INK, "stroke-width": 0.18 });
+    root
+      .circle(r3(2 * c.r))
+      .center(r3(c.at.x), r3(c.at.y))
+      .attr(c.filled ? { fill: INK } : { fill: "none", stroke: INK, "stroke-width": 0.18 });
   }
   const diodes = root.group().attr({ stroke: INK, "stroke-width": 0.35 });
   for (const d of sheet.diodes) {
@@ -52,10 +55,18 @@ export function drawSheet(root: Svg, sheet: Sheet): Svg {
     const barMid = { x: (d.bar[0].x + d.bar[1].x) / 2, y: (d.bar[0].y + d.bar[1].y) / 2 };
     g.line(r3(d.anode.x), r3(d.anode.y), r3(baseMid.x), r3(baseMid.y));
     g.line(r3(barMid.x), r3(barMid.y), r3(d.cathode.x), r3(d.cathode.y));
-    g.polygon([b0, b1, apex].map((q) => [r3(q.x), r3(q.y)]) as [number, number][]).attr({ fill: INK, "stroke-width": 0.18, "stroke-linejoin": "miter" });
+    g.polygon([b0, b1, apex].map((q) => [r3(q.x), r3(q.y)]) as [number, number][]).attr({
+      fill: INK,
+      "stroke-width": 0.18,
+      "stroke-linejoin": "miter",
+    });
     g.line(r3(d.bar[0].x), r3(d.bar[0].y), r3(d.bar[1].x), r3(d.bar[1].y)).attr({ "stroke-width": 0.5 });
   }
-  for (const dot of sheet.dots) root.circle(r3(2 * dot.r)).center(r3(dot.at.x), r3(dot.at.y)).attr({ fill: INK });
+  for (const dot of sheet.dots)
+    root
+      .circle(r3(2 * dot.r))
+      .center(r3(dot.at.x), r3(dot.at.y))
+      .attr({ fill: INK });
   const texts = root.group().attr({ "font-family": FONT_FAMILY, fill: INK });
   for (const l of sheet.labels) drawLabel(texts, l);
   return root;

@@ -4,7 +4,18 @@
  * point), or, for a custom cell, its segment names in a framed grid.
  */
 import type { Cell } from "../core/project.ts";
-import { STROKE, boundingBox, label, textWidth, type Box, type Circle, type Label, type Polygon, type Rect, type Segment } from "./drawingModel.ts";
+import {
+  STROKE,
+  boundingBox,
+  label,
+  textWidth,
+  type Box,
+  type Circle,
+  type Label,
+  type Polygon,
+  type Rect,
+  type Segment,
+} from "./drawingModel.ts";
 
 export interface GlyphKey {
   readonly segments: Segment[];
@@ -34,9 +45,18 @@ export function glyphKey(cell: Cell, cx: number, top: number, widthMm: number): 
   const k = cell.kind === "custom" ? customKey(cell, cx, top, widthMm) : seg7Key(cell.kind === "seg7dp", cx, top);
   const corners = [
     ...k.segments.flatMap((s) => [s.a, s.b]),
-    ...k.rects.flatMap((r) => [{ x: r.box.x, y: r.box.y }, { x: r.box.x + r.box.w, y: r.box.y + r.box.h }]),
-    ...k.circles.flatMap((c) => [{ x: c.at.x - c.r, y: c.at.y - c.r }, { x: c.at.x + c.r, y: c.at.y + c.r }]),
-    ...k.labels.flatMap((l) => [{ x: l.box.x, y: l.box.y }, { x: l.box.x + l.box.w, y: l.box.y + l.box.h }]),
+    ...k.rects.flatMap((r) => [
+      { x: r.box.x, y: r.box.y },
+      { x: r.box.x + r.box.w, y: r.box.y + r.box.h },
+    ]),
+    ...k.circles.flatMap((c) => [
+      { x: c.at.x - c.r, y: c.at.y - c.r },
+      { x: c.at.x + c.r, y: c.at.y + c.r },
+    ]),
+    ...k.labels.flatMap((l) => [
+      { x: l.box.x, y: l.box.y },
+      { x: l.box.x + l.box.w, y: l.box.y + l.box.h },
+    ]),
   ];
   return { ...k, box: boundingBox(corners) };
 }

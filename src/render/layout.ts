@@ -114,7 +114,7 @@ function metrics(scale: number): Metrics {
     stripH: k(4.5),
     terminalH: k(4.5),
     arrow: k(1.2),
-  }
+  };
 }
 const GAP = 3;
 
@@ -273,7 +273,10 @@ function contact(p: Point, a: Point, b: Point): "end" | "inside" | "off" {
 }
 
 /** A net's pieces: its wires and the diode leads that end on it. */
-export function netPieces(wires: readonly { net?: string; a: Point; b: Point }[], diodes: readonly DiodeSymbol[]): Map<string, { a: Point; b: Point }[]> {
+export function netPieces(
+  wires: readonly { net?: string; a: Point; b: Point }[],
+  diodes: readonly DiodeSymbol[],
+): Map<string, { a: Point; b: Point }[]> {
   const pieces = new Map<string, { a: Point; b: Point }[]>();
   const add = (net: string, a: Point, b: Point): void => void pieces.set(net, [...(pieces.get(net) ?? []), { a, b }]);
   for (const w of wires) if (w.net !== undefined) add(w.net, w.a, w.b);
@@ -441,10 +444,15 @@ function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, co
       `Diodes ${refRanges(refs)} (${refs.length}): small-signal silicon, at least ${e.diode.maxReverseV} V reverse and ${e.diode.maxForwardA * 1000} mA forward.`,
     );
   }
-  notes.push("Band = cathode = bar on the symbol. The anode takes the row (counter, bus or link line); the cathode goes to the column it drives.");
+  notes.push(
+    "Band = cathode = bar on the symbol. The anode takes the row (counter, bus or link line); the cathode goes to the column it drives.",
+  );
   notes.push("Lines that cross without a dot are not joined; a dot marks a joint.");
-  notes.push(`Rows: the counter lines ${spec.states[0]}-${spec.states[spec.states.length - 1]}, each with the text it shows. Columns: output lines, grouped by display position; each ends at its driver's base (Q).`);
-  if (matrix.buses.length > 0) notes.push(`Bus nodes ${matrix.buses.join(", ")}: the counter lines feed the bus column; the bus row feeds the outputs.`);
+  notes.push(
+    `Rows: the counter lines ${spec.states[0]}-${spec.states[spec.states.length - 1]}, each with the text it shows. Columns: output lines, grouped by display position; each ends at its driver's base (Q).`,
+  );
+  if (matrix.buses.length > 0)
+    notes.push(`Bus nodes ${matrix.buses.join(", ")}: the counter lines feed the bus column; the bus row feeds the outputs.`);
   const outputs = new Set(matrix.outputs);
   const links = matrix.diodes.filter((d) => outputs.has(d.from));
   if (links.length > 0) {
@@ -507,7 +515,8 @@ function layoutSheet(
   const dx = origin.x - win.left;
   const dy = origin.y - win.top;
   const at = (q: Point): Point => ({ x: q.x + dx, y: q.y + dy });
-  const inside = (q: Point): boolean => q.x >= win.left - 1e-9 && q.x < win.right - 1e-9 && q.y >= win.top - 1e-9 && q.y < win.bottom - 1e-9;
+  const inside = (q: Point): boolean =>
+    q.x >= win.left - 1e-9 && q.x < win.right - 1e-9 && q.y >= win.top - 1e-9 && q.y < win.bottom - 1e-9;
   const paperWin = { left: win.left + dx, right: win.right + dx, top: win.top + dy, bottom: win.bottom + dy };
   const eps = 1e-6;
 
@@ -523,11 +532,26 @@ function layoutSheet(
       const py = y + dy;
       if (w.a.x < win.left - eps && neighbours.left !== undefined) {
         polygons.push(arrow({ x: paperWin.left, y: py }, "right", true, m));
-        labels.push(label(`sh.${neighbours.left}`, { x: paperWin.left - m.arrow - 0.6 * m.scale, y: py + 0.36 * m.contSize }, m.contSize, "continuation", { anchor: "end" }));
+        labels.push(
+          label(
+            `sh.${neighbours.left}`,
+            { x: paperWin.left - m.arrow - 0.6 * m.scale, y: py + 0.36 * m.contSize },
+            m.contSize,
+            "continuation",
+            { anchor: "end" },
+          ),
+        );
       }
       if (w.b.x > win.right + eps && neighbours.right !== undefined) {
         polygons.push(arrow({ x: paperWin.right, y: py }, "right", false, m));
-        labels.push(label(`sh.${neighbours.right}`, { x: paperWin.right + m.arrow + 0.6 * m.scale, y: py + 0.36 * m.contSize }, m.contSize, "continuation"));
+        labels.push(
+          label(
+            `sh.${neighbours.right}`,
+            { x: paperWin.right + m.arrow + 0.6 * m.scale, y: py + 0.36 * m.contSize },
+            m.contSize,
+            "continuation",
+          ),
+        );
       }
     } else {
       const x = w.a.x;
@@ -539,11 +563,19 @@ function layoutSheet(
       const pxx = x + dx;
       if (w.a.y < win.top - eps && neighbours.up !== undefined) {
         polygons.push(arrow({ x: pxx, y: paperWin.top }, "down", true, m));
-        labels.push(label(`sh.${neighbours.up}`, { x: pxx, y: paperWin.top - m.arrow - 0.8 * m.scale }, m.contSize, "continuation", { anchor: "middle" }));
+        labels.push(
+          label(`sh.${neighbours.up}`, { x: pxx, y: paperWin.top - m.arrow - 0.8 * m.scale }, m.contSize, "continuation", {
+            anchor: "middle",
+          }),
+        );
       }
       if (w.b.y > win.bottom + eps && neighbours.down !== undefined) {
         polygons.push(arrow({ x: pxx, y: paperWin.bottom }, "down", false, m));
-        labels.push(label(`sh.${neighbours.down}`, { x: pxx, y: paperWin.bottom + m.arrow + 2.0 * m.scale }, m.contSize, "continuation", { anchor: "middle" }));
+        labels.push(
+          label(`sh.${neighbours.down}`, { x: pxx, y: paperWin.bottom + m.arrow + 2.0 * m.scale }, m.contSize, "continuation", {
+            anchor: "middle",
+          }),
+        );
       }
     }
   }
@@ -555,7 +587,9 @@ function layoutSheet(
     if (!inside(d.crossing)) continue;
     const moved = diodeSymbol(d.ref, d.from, d.to, at(d.crossing), m);
     diodes.push(moved);
-    labels.push(label(d.ref, { x: moved.crossing.x + 1.0 * m.scale, y: moved.crossing.y + 0.8 * m.scale + 0.8 * m.refSize }, m.refSize, "diode-ref"));
+    labels.push(
+      label(d.ref, { x: moved.crossing.x + 1.0 * m.scale, y: moved.crossing.y + 0.8 * m.scale + 0.8 * m.refSize }, m.refSize, "diode-ref"),
+    );
     zones.set(d.ref, zoneOf(frame.zones, moved.crossing));
   }
   const dots: Dot[] = grid.dots.filter((d) => inside(d.at)).map((d) => ({ ...d, at: at(d.at) }));
@@ -563,7 +597,12 @@ function layoutSheet(
   // Row labels.
   for (let r = rows.first; r <= rows.last; r++) {
     const row = grid.rows[r] as GridRow;
-    labels.push(label(row.text, { x: region.x + rowLabelW - 1.5, y: Y(r, m) + dy + 0.36 * m.rowSize }, m.rowSize, "row", { anchor: "end", bold: row.kind === "state" }));
+    labels.push(
+      label(row.text, { x: region.x + rowLabelW - 1.5, y: Y(r, m) + dy + 0.36 * m.rowSize }, m.rowSize, "row", {
+        anchor: "end",
+        bold: row.kind === "state",
+      }),
+    );
   }
 
   // Column heads, group titles and glyph keys, feet.
@@ -574,7 +613,15 @@ function layoutSheet(
     const col = grid.columns[c] as GridColumn;
     const x = X(c, px) + dx;
     if (grid.rotateHeads) {
-      labels.push(label(col.head, { x: x + 0.75, y: bracketY + 1.2 + Math.max(...grid.columns.map((k) => textWidth(k.head, m.columnSize))) }, m.columnSize, "column", { rotate: -90 }));
+      labels.push(
+        label(
+          col.head,
+          { x: x + 0.75, y: bracketY + 1.2 + Math.max(...grid.columns.map((k) => textWidth(k.head, m.columnSize))) },
+          m.columnSize,
+          "column",
+          { rotate: -90 },
+        ),
+      );
     } else {
       labels.push(label(col.head, { x, y: bracketY + 3.4 * m.scale }, m.columnSize, "column", { anchor: "middle", bold: true }));
     }
@@ -591,13 +638,16 @@ function layoutSheet(
     const x1 = X(g.last, px) + dx + px / 2 - 0.8;
     const cx = (x0 + x1) / 2;
     const isBus = g.group === "Buses";
-    labels.push(label(isBus ? "Buses" : `Pos ${g.group}`, { x: cx, y: headTop + 2.6 }, m.groupSize, "group", { anchor: "middle", bold: true }));
+    labels.push(
+      label(isBus ? "Buses" : `Pos ${g.group}`, { x: cx, y: headTop + 2.6 }, m.groupSize, "group", { anchor: "middle", bold: true }),
+    );
     segments.push({ a: { x: x0, y: bracketY + 1 }, b: { x: x0, y: bracketY }, width: STROKE.thin });
     segments.push({ a: { x: x0, y: bracketY }, b: { x: x1, y: bracketY }, width: STROKE.thin });
     segments.push({ a: { x: x1, y: bracketY }, b: { x: x1, y: bracketY + 1 }, width: STROKE.thin });
     const k = glyphKey(spec.cell, cx, headTop + 3.5, x1 - x0);
     // A key wider than its group's columns would run into the next group's: leave it out.
-    const fits = k.box.x >= x0 - 0.8 - 1e-9 && k.box.x + k.box.w <= x1 + 0.8 + 1e-9 && k.box.y + k.box.h <= headTop + 3.5 + grid.keyH + 1e-9;
+    const fits =
+      k.box.x >= x0 - 0.8 - 1e-9 && k.box.x + k.box.w <= x1 + 0.8 + 1e-9 && k.box.y + k.box.h <= headTop + 3.5 + grid.keyH + 1e-9;
     if (!isBus && grid.keyH > 0 && fits) {
       segments.push(...k.segments);
       polygons.push(...k.polygons);
@@ -660,9 +710,24 @@ function arrow(edge: Point, direction: "right" | "down", incoming: boolean, m: M
   const w = 0.5 * m.scale;
   if (direction === "right") {
     const x0 = incoming ? edge.x - h : edge.x;
-    return { points: [{ x: x0, y: edge.y - w }, { x: x0 + h, y: edge.y }, { x: x0, y: edge.y + w }], filled: true, width: STROKE.thin };
+    return {
+      points: [
+        { x: x0, y: edge.y - w },
+        { x: x0 + h, y: edge.y },
+        { x: x0, y: edge.y + w },
+      ],
+      filled: true,
+      width: STROKE.thin,
+    };
   }
   const y0 = incoming ? edge.y - h : edge.y;
-  return { points: [{ x: edge.x - w, y: y0 }, { x: edge.x, y: y0 + h }, { x: edge.x + w, y: y0 }], filled: true, width: STROKE.thin };
+  return {
+    points: [
+      { x: edge.x - w, y: y0 },
+      { x: edge.x, y: y0 + h },
+      { x: edge.x + w, y: y0 },
+    ],
+    filled: true,
+    width: STROKE.thin,
+  };
 }
-

@@ -77,7 +77,12 @@ export function sheetFrame(paper: PaperName, orientation: "landscape" | "portrai
   const widthMm = orientation === "landscape" ? p.h : p.w;
   const heightMm = orientation === "landscape" ? p.w : p.h;
   const outer: Box = { x: FRAME_MM, y: FRAME_MM, w: widthMm - 2 * FRAME_MM, h: heightMm - 2 * FRAME_MM };
-  const area: Box = { x: outer.x + ZONE_STRIP_MM, y: outer.y + ZONE_STRIP_MM, w: outer.w - 2 * ZONE_STRIP_MM, h: outer.h - 2 * ZONE_STRIP_MM };
+  const area: Box = {
+    x: outer.x + ZONE_STRIP_MM,
+    y: outer.y + ZONE_STRIP_MM,
+    w: outer.w - 2 * ZONE_STRIP_MM,
+    h: outer.h - 2 * ZONE_STRIP_MM,
+  };
   const columns = Math.max(1, Math.round(area.w / ZONE_TARGET_MM));
   const rows = Math.min(26, Math.max(1, Math.round(area.h / ZONE_TARGET_MM)));
   const zones: ZoneGrid = { area, columns, rows };
@@ -148,9 +153,14 @@ export function titleBlock(info: TitleInfo, sheet: number, count: number, corner
     labels.push(label(field, { x: box.x + 1, y: box.y + 2.1 }, fieldSize, "title-field"));
     const maxChars = (box.w - 2) / textWidth("M", valueSize);
     const wrapped = lines > 1 ? wrapText(value, maxChars) : [value];
-    const shown = wrapped.slice(0, lines).map((l, i) => (i === lines - 1 && wrapped.length > lines ? fitText(`${l} ${wrapped[i + 1] ?? ""}`, maxChars) : fitText(l, maxChars)));
+    const shown = wrapped
+      .slice(0, lines)
+      .map((l, i) =>
+        i === lines - 1 && wrapped.length > lines ? fitText(`${l} ${wrapped[i + 1] ?? ""}`, maxChars) : fitText(l, maxChars),
+      );
     shown.forEach((text, i) => {
-      if (text) labels.push(label(text, { x: box.x + 1, y: box.y + 5.2 + i * 3.1 }, valueSize, "title-value", { bold: i === 0 && lines > 1 }));
+      if (text)
+        labels.push(label(text, { x: box.x + 1, y: box.y + 5.2 + i * 3.1 }, valueSize, "title-value", { bold: i === 0 && lines > 1 }));
     });
   };
   const rowH = [12, 8, 8, 8] as const;

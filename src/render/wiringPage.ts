@@ -20,11 +20,22 @@ function esc(text: string): string {
  * @example
  * await writeFile("wiring.html", wiringPageHtml(project, matrix, rows, options, drawing.sheets.length));
  */
-export function wiringPageHtml(project: Project, matrix: DiodeMatrix, rows: readonly WiringRow[], options: DrawingOptions, sheetCount: number): string {
+export function wiringPageHtml(
+  project: Project,
+  matrix: DiodeMatrix,
+  rows: readonly WiringRow[],
+  options: DrawingOptions,
+  sheetCount: number,
+): string {
   const body = rows
-    .map((r) => `<tr><td>${r.step}</td><td><b>${esc(r.ref)}</b></td><td>${esc(r.from)}</td><td>${esc(r.to)}</td><td>${r.sheet ?? ""}</td><td>${esc(r.zone)}</td><td class="box"></td></tr>`)
+    .map(
+      (r) =>
+        `<tr><td>${r.step}</td><td><b>${esc(r.ref)}</b></td><td>${esc(r.from)}</td><td>${esc(r.to)}</td><td>${r.sheet ?? ""}</td><td>${esc(r.zone)}</td><td class="box"></td></tr>`,
+    )
     .join("\n");
-  const checks = INSPECTION_CHECKLIST.map((c, i) => `<tr><td>C${i + 1}</td><td><b>${esc(c.item)}</b></td><td>${esc(c.check)}</td><td class="box"></td></tr>`).join("\n");
+  const checks = INSPECTION_CHECKLIST.map(
+    (c, i) => `<tr><td>C${i + 1}</td><td><b>${esc(c.item)}</b></td><td>${esc(c.check)}</td><td class="box"></td></tr>`,
+  ).join("\n");
   return `<!DOCTYPE html>
 <html lang="en">
 <head>

@@ -34,7 +34,16 @@ beforeAll(async () => {
   const executablePath = execSync("command -v chromium", { encoding: "utf8" }).trim();
   browser = await chromium.launch({
     executablePath,
-    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+    args: [
+      "--headless",
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
   });
 });
 
@@ -48,7 +57,9 @@ async function renderPng(svg: string, widthMm: number, heightMm: number): Promis
   const page = await browser.newPage({ viewport: { width, height }, deviceScaleFactor: 1 });
   try {
     const src = `data:image/svg+xml;base64,${Buffer.from(svg).toString("base64")}`;
-    await page.setContent(`<!DOCTYPE html><html><body style="margin:0;background:#fff"><img id="sheet" style="display:block;width:${width}px;height:${height}px" src="${src}"></body></html>`);
+    await page.setContent(
+      `<!DOCTYPE html><html><body style="margin:0;background:#fff"><img id="sheet" style="display:block;width:${width}px;height:${height}px" src="${src}"></body></html>`,
+    );
     await page.waitForFunction(() => (document.getElementById("sheet") as HTMLImageElement).complete);
     const parseError = await page.evaluate((text) => {
       const doc = new DOMParser().parseFromString(text, "image/svg+xml");
@@ -123,7 +134,10 @@ describe("matrix sheets rendered in Chromium", () => {
     const b = directExample("turntable-position");
     const sa = layoutMatrix(a.project, a.spec, a.matrix, drawingOptions(a.project)).sheets[0]!;
     const sb = layoutMatrix(b.project, b.spec, b.matrix, drawingOptions(b.project)).sheets[0]!;
-    const [pa, pb] = [await renderPng(sheetToSvgText(sa), sa.widthMm, sa.heightMm), await renderPng(sheetToSvgText(sb), sb.widthMm, sb.heightMm)];
+    const [pa, pb] = [
+      await renderPng(sheetToSvgText(sa), sa.widthMm, sa.heightMm),
+      await renderPng(sheetToSvgText(sb), sb.widthMm, sb.heightMm),
+    ];
     expect(await differingShare(pa.png, pb.png)).toBeGreaterThan(MAX_DIFFERING);
   });
 });

@@ -43,8 +43,13 @@ describe(`drawing text on random projects (fast-check seed ${SEED})`, () => {
   it("never overlaps, never sits on a symbol or dot, and draws each diode once", () => {
     fc.assert(
       fc.property(scenario, ({ doc, longNames, longTitle, paper, buses, links, shape }) => {
-        const d = structuredClone(doc) as Record<string, unknown> & { display: { cell: string; segments?: string[] }; glyphs: Record<string, string[]> };
-        if (longTitle) d["title"] = "A long title that will need two lines or more in the title block, and then some more words to be cut off at the end".repeat(1);
+        const d = structuredClone(doc) as Record<string, unknown> & {
+          display: { cell: string; segments?: string[] };
+          glyphs: Record<string, string[]>;
+        };
+        if (longTitle)
+          d["title"] =
+            "A long title that will need two lines or more in the title block, and then some more words to be cut off at the end".repeat(1);
         if (longNames && d.display.cell === "custom" && d.display.segments) {
           const rename = (s: string): string => `seg${s.slice(1)}long`.slice(0, 8);
           d.display.segments = d.display.segments.map(rename);
@@ -73,7 +78,13 @@ describe(`drawing text on random projects (fast-check seed ${SEED})`, () => {
             add(spec.outputs[i]!, spec.outputs[j]!);
           }
         }
-        const matrix = buildMatrix(spec, [...edges.values()], { lowerBound: null, optimal: false, depthLimit: 3, depth: "mixed", method: "heuristic" });
+        const matrix = buildMatrix(spec, [...edges.values()], {
+          lowerBound: null,
+          optimal: false,
+          depthLimit: 3,
+          depth: "mixed",
+          method: "heuristic",
+        });
         const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project, { paper }));
         const problems = drawing.sheets.flatMap(textProblems);
         expect(problems.slice(0, 5)).toEqual([]);

@@ -12,7 +12,10 @@ describe("csv", () => {
   });
 
   it("ends every record in CRLF and reads back to the same fields", () => {
-    const records = [["a", "b,c", 'q"q'], ["", "x\r\ny", "3"]];
+    const records = [
+      ["a", "b,c", 'q"q'],
+      ["", "x\r\ny", "3"],
+    ];
     const text = csvText(records);
     expect(text.endsWith("\r\n")).toBe(true);
     expect(parseCsv(text)).toEqual(records);

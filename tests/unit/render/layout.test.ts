@@ -71,11 +71,15 @@ describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
   it("puts junction dots exactly where three or more arms of one net meet", () => {
     for (const sheet of sheets) {
       const all = pieces(sheet);
-      for (const dot of sheet.dots) expect(arms(dot.at, dot.net, all), `dot of ${dot.net} at ${dot.at.x},${dot.at.y}`).toBeGreaterThanOrEqual(3);
+      for (const dot of sheet.dots)
+        expect(arms(dot.at, dot.net, all), `dot of ${dot.net} at ${dot.at.x},${dot.at.y}`).toBeGreaterThanOrEqual(3);
       for (const p of all) {
         for (const end of [p.a, p.b]) {
           if (arms(end, p.net, all) >= 3) {
-            expect(sheet.dots.some((d) => d.net === p.net && samePoint(d.at, end)), `missing dot of ${p.net} at ${end.x},${end.y}`).toBe(true);
+            expect(
+              sheet.dots.some((d) => d.net === p.net && samePoint(d.at, end)),
+              `missing dot of ${p.net} at ${end.x},${end.y}`,
+            ).toBe(true);
           }
         }
       }
@@ -102,7 +106,8 @@ describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
     const p = PAPER_MM[paper ?? "a4"];
     for (const sheet of sheets) {
       expect([sheet.widthMm, sheet.heightMm]).toEqual([p.h, p.w]);
-      const inside = (x: number, y: number): boolean => x >= FRAME_MM - 1e-9 && y >= FRAME_MM - 1e-9 && x <= sheet.widthMm - FRAME_MM + 1e-9 && y <= sheet.heightMm - FRAME_MM + 1e-9;
+      const inside = (x: number, y: number): boolean =>
+        x >= FRAME_MM - 1e-9 && y >= FRAME_MM - 1e-9 && x <= sheet.widthMm - FRAME_MM + 1e-9 && y <= sheet.heightMm - FRAME_MM + 1e-9;
       for (const s of sheet.segments) expect(inside(s.a.x, s.a.y) && inside(s.b.x, s.b.y)).toBe(true);
       for (const l of sheet.labels) expect(inside(l.box.x, l.box.y) && inside(l.box.x + l.box.w, l.box.y + l.box.h), l.text).toBe(true);
     }
@@ -160,6 +165,8 @@ describe("layout details", () => {
     expect(dated.labels.some((l) => l.text === "2026-03-01")).toBe(true);
     const blank = layoutMatrix(project, spec, matrix, drawingOptions(project)).sheets[0]!;
     expect(blank.labels.filter((l) => l.role === "title-field").length).toBe(dated.labels.filter((l) => l.role === "title-field").length);
-    expect(blank.labels.filter((l) => l.role === "title-value").length).toBe(dated.labels.filter((l) => l.role === "title-value").length - 1);
+    expect(blank.labels.filter((l) => l.role === "title-value").length).toBe(
+      dated.labels.filter((l) => l.role === "title-value").length - 1,
+    );
   });
 });

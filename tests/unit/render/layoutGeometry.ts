@@ -64,11 +64,13 @@ export function textProblems(sheet: Sheet): string[] {
       if (overlap(l.box, m.box)) problems.push(`"${l.text}" (${l.role}) overlaps "${m.text}" (${m.role}) on sheet ${sheet.number}`);
     }
     for (const d of sheet.diodes) if (overlap(l.box, d.box)) problems.push(`"${l.text}" sits on the symbol of ${d.ref}`);
-    for (const dot of sheet.dots) if (overlap(l.box, dotBox(dot.at, dot.r))) problems.push(`"${l.text}" sits on a junction dot of ${dot.net}`);
+    for (const dot of sheet.dots)
+      if (overlap(l.box, dotBox(dot.at, dot.r))) problems.push(`"${l.text}" sits on a junction dot of ${dot.net}`);
   }
   for (let i = 0; i < sheet.diodes.length; i++) {
     for (let j = i + 1; j < sheet.diodes.length; j++) {
-      if (overlap(sheet.diodes[i]!.box, sheet.diodes[j]!.box)) problems.push(`symbols ${sheet.diodes[i]!.ref} and ${sheet.diodes[j]!.ref} overlap`);
+      if (overlap(sheet.diodes[i]!.box, sheet.diodes[j]!.box))
+        problems.push(`symbols ${sheet.diodes[i]!.ref} and ${sheet.diodes[j]!.ref} overlap`);
     }
   }
   return problems;
