@@ -29,6 +29,11 @@ export function formatOhms(ohms: number): string {
   return fmt(ohms);
 }
 
+/** Formats a current in amperes as milliamperes without binary noise: 0.00014 -> "0.14". */
+export function formatMilliamps(amperes: number): string {
+  return String(Number((amperes * 1000).toPrecision(6)));
+}
+
 /**
  * Counts the parts. Every driven or tied-on output has an NPN driver with an
  * emitter resistor and a display string; every driven output has a pull-down;
@@ -52,7 +57,7 @@ export function countParts(
       kind: "diode",
       refs: matrix.diodes.map((d) => d.ref),
       value: "small-signal silicon",
-      description: `matrix diode, ≥${e.diode.maxReverseV} V reverse, ≥${e.diode.maxForwardA * 1000} mA forward`,
+      description: `matrix diode, ≥${e.diode.maxReverseV} V reverse, ≥${formatMilliamps(e.diode.maxForwardA)} mA forward`,
       serves: matrix.diodes.map((d) => d.to),
     });
   }
@@ -105,7 +110,7 @@ export function countParts(
       kind: "display",
       refs: ordered.map((_, i) => `DS${i + 1}`),
       value: `${e.string.dies}-die string`,
-      description: `segment LED string, ${e.string.dies} dies in series, ${e.string.targetA * 1000} mA`,
+      description: `segment LED string, ${e.string.dies} dies in series, ${formatMilliamps(e.string.targetA)} mA`,
       serves: ordered,
     });
   }

@@ -22,7 +22,7 @@
  */
 import type { DecodeSpec } from "../core/decodeSpec.ts";
 import type { DiodeMatrix } from "../core/matrix.ts";
-import { countParts, refRanges } from "../core/parts.ts";
+import { countParts, formatMilliamps, refRanges } from "../core/parts.ts";
 import type { Project } from "../core/project.ts";
 import {
   STROKE,
@@ -90,8 +90,11 @@ interface Metrics {
   readonly arrow: number;
 }
 
-/** Scales tried, largest first. */
-const SCALES = [1.5, 1.25, 1] as const;
+/**
+ * Scales tried, largest first. At 0.9 the diode references are 1.8 mm high,
+ * the smallest lettering of the ISO 3098 series; nothing is drawn smaller.
+ */
+const SCALES = [1.5, 1.25, 1, 0.9] as const;
 
 function metrics(scale: number): Metrics {
   const k = (v: number): number => Math.round(v * scale * 1000) / 1000;
@@ -107,7 +110,7 @@ function metrics(scale: number): Metrics {
     rowSize: k(2.5),
     columnSize: k(2.2),
     groupSize: 2.2,
-    contSize: k(1.8),
+    contSize: Math.max(1.8, k(1.8)),
     dotR: k(0.5),
     symbolHalf: k(0.9),
     stripW: k(8.5),
@@ -397,23 +400,15 @@ export function layoutMatrix(project: Project, spec: DecodeSpec, matrix: DiodeMa
   // Sized with the continuation note, in case the drawing needs more than one sheet.
   const sizingNotes = matrixNotes(project, spec, matrix, true);
   const sheetsOf = (q: Plan): number => q.rowChunks.length * q.colChunks.length;
-  const smallest = metrics(1);
-  const baseGrid = buildGrid(project, spec, matrix, smallest);
-  const base = plan(baseGrid, probe, sizingNotes);
-  if (!base.fits) throw new Error("bug: not even one grid cell fits a sheet");
-  // The largest scale that needs no more sheets than the smallest one.
-  let grid = baseGrid;
-  let p = base;
-  for (const scale of SCALES) {
-    if (scale === 1) break;
+  // The fewest sheets, then the largest scale that achieves them.
+  const tries = SCALES.map((scale) => {
     const g = buildGrid(project, spec, matrix, metrics(scale));
-    const q = plan(g, probe, sizingNotes);
-    if (q.fits && sheetsOf(q) <= sheetsOf(base)) {
-      grid = g;
-      p = q;
-      break;
-    }
-  }
+    return { grid: g, plan: plan(g, probe, sizingNotes) };
+  }).filter((t) => t.plan.fits);
+  const fewest = Math.min(...tries.map((t) => sheetsOf(t.plan)));
+  const chosen = tries.find((t) => sheetsOf(t.plan) === fewest);
+  if (!chosen) throw new Error("bug: not even one grid cell fits a sheet");
+  const { grid, plan: p } = chosen;
   const count = p.rowChunks.length * p.colChunks.length;
   const sheetNo = (ri: number, ci: number): number => ri * p.colChunks.length + ci + 1;
   const notes = matrixNotes(project, spec, matrix, count > 1);
@@ -441,7 +436,7 @@ function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, co
   const notes: string[] = [];
   if (refs.length > 0) {
     notes.push(
-      `Diodes ${refRanges(refs)} (${refs.length}): small-signal silicon, at least ${e.diode.maxReverseV} V reverse and ${e.diode.maxForwardA * 1000} mA forward.`,
+      `Diodes ${refRanges(refs)} (${refs.length}): small-signal silicon, at least ${e.diode.maxReverseV} V reverse and ${formatMilliamps(e.diode.maxForwardA)} mA forward.`,
     );
   }
   notes.push(

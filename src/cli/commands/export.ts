@@ -3,11 +3,16 @@
  *
  * Writes the matrix drawing (matrix.svg, or matrix-1.svg ... when it needs
  * several sheets), the wiring list (wiring.csv and the printable
- * wiring.html), the BOM (bom.csv), one SPICE netlist per state
- * (spice/S0.cir ...) and the normalised project (project.json).
+ * wiring.html), the budget (budget.json, diodeloom/budget@1), the BOM
+ * (bom.csv, with the budget's trimmed emitter resistors), one SPICE netlist
+ * per state (spice/S0.cir ...) and the normalised project (project.json).
+ *
+ * When the budget cannot be solved the other files are still written, the
+ * BOM keeps the nominal emitter values, and the exit code is 1.
  */
 import { join } from "node:path";
 import { bomCsv, bomLines } from "../../core/bom.ts";
+import { solveBudget } from "../../core/budget.ts";
 import { compileSpec } from "../../core/decodeSpec.ts";
 import { spiceNetlist } from "../../core/netlist.ts";
 import { serializeProject } from "../../core/projectWriter.ts";
@@ -32,7 +37,7 @@ const MAX_FIELD = 40;
 export const exportCommand: Command = {
   name: "export",
   usage: USAGE,
-  summary: "write the matrix drawing, wiring list, BOM, SPICE netlists and normalised project",
+  summary: "write the matrix drawing, wiring list, budget, BOM, SPICE netlists and normalised project",
   options: {
     out: { value: true, meta: "DIR", help: "directory to write into (created if missing)" },
     paper: { value: true, meta: "SIZE", help: "a4 (default) or letter" },
@@ -71,7 +76,15 @@ export const exportCommand: Command = {
     drawing.sheets.forEach((sheet) => files.push([single ? "matrix.svg" : `matrix-${sheet.number}.svg`, sheetToSvgText(sheet)]));
     files.push(["wiring.csv", wiringCsv(rows)]);
     files.push(["wiring.html", wiringPageHtml(project, matrix, rows, options, drawing.sheets.length)]);
-    files.push(["bom.csv", bomCsv(bomLines(project, spec, matrix))]);
+    const budget = solveBudget(project, spec, matrix);
+    let trimmed: Map<string, number> | undefined;
+    if (budget.ok) {
+      files.push(["budget.json", JSON.stringify(budget.value, null, 2) + "\n"]);
+      trimmed = new Map(Object.entries(budget.value.trim.outputs).map(([o, t]) => [o, t.ohms]));
+    } else {
+      io.err(`budget: ${budget.error.message}; budget.json left out, the BOM keeps the nominal emitter resistors\n`);
+    }
+    files.push(["bom.csv", bomCsv(bomLines(project, spec, matrix, trimmed))]);
     spec.states.forEach((s, k) => files.push([join("spice", `${s}.cir`), spiceNetlist(project, spec, matrix, k)]));
     files.push(["project.json", serializeProject(project)]);
 
@@ -79,7 +92,9 @@ export const exportCommand: Command = {
     await io.makeDir(join(out, "spice"));
     for (const [name, text] of files) await io.writeFile(join(out, name), text);
     io.out(`${project.title}\nWrote ${files.length} files to ${out}:\n${files.map(([n]) => `  ${n}`).join("\n")}\n`);
-    return EXIT.ok;
+    if (budget.ok && budget.value.warnings.length > 0)
+      io.out(`The budget has ${budget.value.warnings.length} warning(s); see budget.json or run diodeloom budget.\n`);
+    return budget.ok ? EXIT.ok : EXIT.findings;
   },
 };
 

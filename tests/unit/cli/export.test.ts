@@ -6,6 +6,7 @@ import { main } from "../../../src/cli/main.ts";
 import type { CliIo } from "../../../src/cli/io.ts";
 import { nodeIo } from "../../../src/cli/main.ts";
 import { compileSpec } from "../../../src/core/decodeSpec.ts";
+import { formatOhms } from "../../../src/core/parts.ts";
 import { parseProject } from "../../../src/core/projectSchema.ts";
 import { synthesize, synthSettings } from "../../../src/core/synthesize.ts";
 import { xmlProblem } from "../render/xmlCheck.ts";
@@ -34,7 +35,7 @@ describe("diodeloom export", () => {
     expect(err.join("")).toBe("");
     expect(code).toBe(0);
     const files = (await readdir(dir)).sort();
-    expect(files).toEqual(expect.arrayContaining(["bom.csv", "project.json", "spice", "wiring.csv", "wiring.html"]));
+    expect(files).toEqual(expect.arrayContaining(["bom.csv", "budget.json", "project.json", "spice", "wiring.csv", "wiring.html"]));
     const svgs = files.filter((f) => /^matrix(-\d+)?\.svg$/.test(f));
     expect(svgs.length).toBeGreaterThan(0);
     // One sheet is matrix.svg; several are matrix-1.svg, matrix-2.svg, ...
@@ -66,8 +67,16 @@ describe("diodeloom export", () => {
     for (const d of m1.value.diodes) expect(html).toContain(`<b>${d.ref}</b>`);
     expect(html).toContain("Inspection checklist");
 
+    // budget.json is the budget of that matrix; the BOM carries its trimmed emitter resistors.
+    const budget = JSON.parse(await readFile(join(dir, "budget.json"), "utf8"));
+    expect(budget.schema).toBe("diodeloom/budget@1");
+    const trimmed = Object.values(budget.trim.outputs as Record<string, { ohms: number }>).map((t) => t.ohms);
     const bom = parseCsv(await readFile(join(dir, "bom.csv"), "utf8"));
     expect(bom[1]?.[0]).toBe(String(m1.value.count));
+    const emitter = bom.filter((r) => r[3]?.startsWith("emitter resistor"));
+    expect(emitter.every((r) => r[3]?.includes("trimmed"))).toBe(true);
+    expect(emitter.reduce((n, r) => n + Number(r[0]), 0)).toBe(trimmed.length);
+    expect(emitter.map((r) => r[2]).sort()).toEqual([...new Set(trimmed.map((o) => formatOhms(o)))].sort());
 
     // One SPICE deck per state.
     const decks = (await readdir(join(dir, "spice"))).sort();

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { BOM_HEADER, bomCsv, bomLines } from "../../../src/core/bom.ts";
+import { formatMilliamps } from "../../../src/core/parts.ts";
 import { compileSpec } from "../../../src/core/decodeSpec.ts";
 import { synthesizeDirect } from "../../../src/core/synthDirect.ts";
 import { showing } from "../../support/projects.ts";
@@ -59,5 +60,15 @@ describe("BOM", () => {
       [4, "12k"],
     ]);
     expect(trimmed.every((l) => l.description.includes("trimmed"))).toBe(true);
+  });
+});
+
+describe("BOM wording", () => {
+  it("prints currents without binary noise", () => {
+    const { project, spec, matrix } = directExample("relay-hex-monitor");
+    const strings = bomLines(project, spec, matrix).find((l) => l.refs[0] === "DS1")!;
+    expect(strings.description).toContain(" 0.14 mA");
+    expect(formatMilliamps(0.00014)).toBe("0.14");
+    expect(formatMilliamps(0.1)).toBe("100");
   });
 });
