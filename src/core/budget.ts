@@ -421,7 +421,9 @@ function budgetWarnings(project: Project, b: Omit<Budget, "warnings">): BudgetWa
   const windowLow = e.string.targetA * (1 - b.corners.windowPct / 100);
   for (const [o, r] of Object.entries(b.outputs)) {
     if (r.max > 0 && r.min < windowLow) {
-      w.push({ level: "warn", code: "dim-segment", message: `${o} runs as low as ${ua(r.min)}, more than ${b.corners.windowPct} % under the ${ua(e.string.targetA)} target` });
+      const t = b.trim.outputs[o];
+      const fix = t ? `; the ${b.trim.series} trim (${t.ohms} Ω emitter resistor) brings it to ${ua(t.min)}-${ua(t.max)}` : "";
+      w.push({ level: "warn", code: "dim-segment", message: `${o} runs as low as ${ua(r.min)}, more than ${b.corners.windowPct} % under the ${ua(e.string.targetA)} target${fix}` });
     }
   }
   if (!b.corners.meetsTarget) {

@@ -1,0 +1,78 @@
+/**
+ * `diodeloom budget` and `diodeloom netlist`, run as a user runs them, and
+ * the exported netlist run unchanged through ngspice.
+ */
+import { execFile, execFileSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { EXAMPLES } from "../support/projects.ts";
+
+const BIN = new URL("../../bin/diodeloom.mjs", import.meta.url).pathname;
+const ROOT = new URL("../../", import.meta.url).pathname;
+const dir = mkdtempSync(join(tmpdir(), "diodeloom-budget-cli-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function run(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  return new Promise((resolve) => {
+    execFile(process.execPath, [BIN, ...args], { cwd: ROOT, timeout: 120_000, maxBuffer: 64 * 1024 * 1024 }, (err, stdout, stderr) => {
+      const code = err ? (typeof err.code === "number" ? err.code : 99) : 0;
+      resolve({ code, stdout, stderr });
+    });
+  });
+}
+
+describe("diodeloom budget", () => {
+  it.each(EXAMPLES)("prints diodeloom/budget@1 JSON for %s", async (name) => {
+    const r = await run(["budget", `public/examples/${name}.json`, "--json", "--direct"]);
+    expect(r.stderr).toBe("");
+    expect(r.code).toBe(0);
+    const b = JSON.parse(r.stdout) as Record<string, unknown>;
+    expect(b["schema"]).toBe("diodeloom/budget@1");
+    for (const k of ["states", "outputs", "diodes", "supply", "warnings", "trim", "corners", "drivers", "counterLines"]) expect(b).toHaveProperty(k);
+    const warnings = b["warnings"] as { level: string; code: string }[];
+    expect(warnings.filter((w) => w.level === "danger").map((w) => w.code)).toEqual(["hazardous-voltage", "mains-supply"]);
+  });
+
+  it("prints a readable report with every section, and takes --series E96", async () => {
+    const r = await run(["budget", "public/examples/die-roller.json", "--direct", "--series", "E96"]);
+    expect(r.code).toBe(0);
+    for (const s of ["Warnings", "DANGER hazardous-voltage", "String current per state", "Outputs", "Diodes", "Counter lines", "Drivers", "Supply:", "Tolerance corners", "E96"]) {
+      expect(r.stdout).toContain(s);
+    }
+  });
+
+  it("refuses an unknown series", async () => {
+    const r = await run(["budget", "public/examples/die-roller.json", "--series", "E12"]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/--series must be E24 or E96/);
+  });
+});
+
+describe("diodeloom netlist", () => {
+  it("prints a standard SPICE deck that ngspice runs unchanged", async () => {
+    const r = await run(["netlist", "public/examples/relay-hex-monitor.json", "--state", "8", "--direct"]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/^\.model DMTX D /m);
+    expect(r.stdout).toMatch(/^\.op$/m);
+    expect(r.stdout.trimEnd().endsWith(".end")).toBe(true);
+    const file = join(dir, "hex-8.cir");
+    writeFileSync(file, r.stdout);
+    // ngspice is installed in CI (Debian package); a missing one fails here on purpose.
+    const out = execFileSync("ngspice", ["-b", file], { encoding: "utf8" });
+    expect(out).toMatch(/^\s*o1a\s+1\.\d+e\+00$/m);
+  });
+
+  it("accepts S-names and refuses a state outside the counter", async () => {
+    const ok = await run(["netlist", "public/examples/die-roller.json", "--state", "S5", "--direct"]);
+    expect(ok.code).toBe(0);
+    expect(ok.stdout.split("\n")[0]).toMatch(/state S5 active/);
+    const bad = await run(["netlist", "public/examples/die-roller.json", "--state", "6"]);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/from 0 to 5/);
+    const none = await run(["netlist", "public/examples/die-roller.json"]);
+    expect(none.code).toBe(2);
+    expect(none.stderr).toMatch(/--state is required/);
+  });
+});
