@@ -1,0 +1,115 @@
+/**
+ * Synthesis benchmark: direct, heuristic and exact counts and times for the
+ * standard counting displays under every depth policy, and how time grows
+ * with the number of states. Speed targets live here, not in the tests.
+ *
+ * Run alone: npx tsx -e 'import("./bench/synthBench.ts").then(m=>m.runSynthBench(console.log))'
+ */
+import { compileSpec, litCellCount } from "../src/core/decodeSpec.ts";
+import type { DepthPolicy, Project } from "../src/core/project.ts";
+import { parseProject } from "../src/core/projectSchema.ts";
+import { heuristicPlan } from "../src/core/synthHeuristic.ts";
+import { planCount, sharingProblem } from "../src/core/synthPlan.ts";
+import { synthesize, synthSettings } from "../src/core/synthesize.ts";
+
+interface BenchCase {
+  readonly name: string;
+  readonly positions: number;
+  readonly show: readonly string[];
+  /** Exact-optimizer time limit, milliseconds. */
+  readonly timeLimitMs: number;
+}
+
+const HEX = "0123456789AbCdEF";
+const pad2 = (k: number): string => String(k).padStart(2, "0");
+
+/** The cases the issue names. */
+export const BENCH_CASES: readonly BenchCase[] = [
+  { name: "0-5", positions: 1, show: [..."012345"], timeLimitMs: 10_000 },
+  { name: "0-9", positions: 1, show: [..."0123456789"], timeLimitMs: 10_000 },
+  { name: "0-F", positions: 1, show: [...HEX], timeLimitMs: 10_000 },
+  { name: "1-12", positions: 2, show: Array.from({ length: 12 }, (_, k) => String(k + 1).padStart(2, " ")), timeLimitMs: 10_000 },
+  { name: "00-23", positions: 2, show: Array.from({ length: 24 }, (_, k) => pad2(k)), timeLimitMs: 10_000 },
+  { name: "00-59", positions: 2, show: Array.from({ length: 60 }, (_, k) => pad2(k)), timeLimitMs: 10_000 },
+  { name: "00-99", positions: 2, show: Array.from({ length: 100 }, (_, k) => pad2(k)), timeLimitMs: 10_000 },
+];
+
+const POLICIES: readonly DepthPolicy[] = ["mixed", "per-segment", "uniform"];
+
+/** A bench project, validated like a file. */
+export function benchProject(c: BenchCase, depth: DepthPolicy, maxDepth = 2): Project {
+  const r = parseProject(
+    JSON.stringify({
+      schema: "diodeloom/project@1",
+      title: `bench ${c.name}`,
+      counter: { states: c.show.length },
+      display: { positions: c.positions, cell: "seg7" },
+      show: c.show,
+      synthesis: { maxDepth, depth, timeLimitMs: c.timeLimitMs },
+    }),
+  );
+  if (!r.ok) throw new Error(`bench project ${c.name} is invalid: ${JSON.stringify(r.error)}`);
+  return r.value;
+}
+
+function row(cells: readonly (string | number)[], widths: readonly number[]): string {
+  return cells.map((c, i) => String(c).padStart(widths[i] ?? 8)).join(" ");
+}
+
+/** Median of `runs` timings of `f`, milliseconds. */
+function timeMs(f: () => void, runs: number): number {
+  const ts: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    f();
+    ts.push(performance.now() - t0);
+  }
+  ts.sort((a, b) => a - b);
+  return ts[Math.floor(ts.length / 2)] ?? 0;
+}
+
+/** Prints the synthesis bench tables through `log`, one line per call. */
+export async function runSynthBench(log: (line: string) => void): Promise<void> {
+  const widths = [6, 4, 12, 7, 6, 8, 6, 6, 5, 6, 9];
+  log("Synthesis: depth limit 2; heuristic time is the median of 5 runs; exact = heuristic warm start + HiGHS");
+  log(row(["case", "N", "policy", "direct", "heur", "heur ms", "exact", "bound", "gap", "proven", "exact ms"], widths));
+  for (const c of BENCH_CASES) {
+    for (const depth of POLICIES) {
+      const project = benchProject(c, depth);
+      const spec = compileSpec(project);
+      const settings = synthSettings(project);
+      const p = sharingProblem(spec);
+      const rules = { maxDepth: settings.maxDepth, depth, buses: settings.buses, links: settings.links };
+      let heur = 0;
+      const heurMs = timeMs(() => void (heur = planCount(heuristicPlan(p, rules))), 5);
+      const t0 = performance.now();
+      const r = await synthesize(spec, settings);
+      const exactMs = performance.now() - t0;
+      if (!r.ok) {
+        log(`${c.name} ${depth}: ${r.error.message}`);
+        continue;
+      }
+      const m = r.value;
+      const gap = m.lowerBound === null ? "-" : m.count - m.lowerBound;
+      log(
+        row(
+          [c.name, spec.states.length, depth, litCellCount(spec), heur, heurMs.toFixed(1), m.count, m.lowerBound ?? "-", gap, m.optimal ? "yes" : "no", exactMs.toFixed(0)],
+          widths,
+        ),
+      );
+    }
+  }
+
+  log("");
+  log("Heuristic time growth with N (states 00..N-1 on two positions, per-segment, depth 2; median of 5 runs)");
+  const gw = [5, 7, 7, 9];
+  log(row(["N", "direct", "heur", "heur ms"], gw));
+  for (const n of [6, 12, 24, 36, 48, 60, 80, 100]) {
+    const c: BenchCase = { name: `00-${n - 1}`, positions: 2, show: Array.from({ length: n }, (_, k) => pad2(k)), timeLimitMs: 1000 };
+    const spec = compileSpec(benchProject(c, "per-segment"));
+    const p = sharingProblem(spec);
+    let heur = 0;
+    const ms = timeMs(() => void (heur = planCount(heuristicPlan(p, { maxDepth: 2, depth: "per-segment", buses: true, links: true }))), 5);
+    log(row([n, litCellCount(spec), heur, ms.toFixed(1)], gw));
+  }
+}
