@@ -1,5 +1,5 @@
 /** The one screen: toolbar, result line, Project and Glyphs on the left, Drawing, Budget and Comparison on the right. */
-import { createEffect, createSignal } from "solid-js";
+import { createEffect } from "solid-js";
 import { app } from "./appState.ts";
 import { BudgetPanel } from "./BudgetPanel.tsx";
 import { CautionBanner } from "./CautionBanner.tsx";
@@ -7,16 +7,23 @@ import { ComparisonPanel } from "./ComparisonPanel.tsx";
 import { DrawingPanel } from "./DrawingPanel.tsx";
 import { GlyphEditor } from "./GlyphEditor.tsx";
 import { NoticeBox } from "./NoticeBox.tsx";
-import { PrintHeader, PrintView } from "./PrintView.tsx";
+import { PrintView } from "./PrintView.tsx";
 import { ProjectPanel } from "./ProjectPanel.tsx";
 import { ResultBar } from "./ResultBar.tsx";
-import { Toolbar, type Paper } from "./Toolbar.tsx";
+import { Toolbar } from "./Toolbar.tsx";
 import type { ExportKind } from "./exportFiles.ts";
 
-const EXPORTS: readonly { kind: ExportKind; label: string }[] = [{ kind: "project", label: "Project JSON" }];
+const EXPORTS: readonly { kind: ExportKind; label: string }[] = [
+  { kind: "svg", label: "SVG sheets" },
+  { kind: "wiring", label: "Wiring CSV" },
+  { kind: "wiring-page", label: "Wiring page (HTML)" },
+  { kind: "bom", label: "Parts CSV" },
+  { kind: "netlists", label: "SPICE netlists" },
+  { kind: "budget", label: "Budget JSON" },
+  { kind: "project", label: "Project JSON" },
+];
 
 export function App() {
-  const [paper, setPaper] = createSignal<Paper>((localStorage.getItem("diodeloom.paper") as Paper | null) ?? "a4");
   createEffect(() => {
     // @page cannot read a CSS variable, so the size rule is written here.
     let style = document.getElementById("page-size");
@@ -25,16 +32,14 @@ export function App() {
       style.id = "page-size";
       document.head.append(style);
     }
-    style.textContent = `@page { size: ${paper() === "a4" ? "A4" : "letter"} landscape; margin: 10mm; }`;
-    localStorage.setItem("diodeloom.paper", paper());
+    style.textContent = `@page { size: ${app.paper() === "a4" ? "A4" : "letter"} landscape; margin: 0; }`;
   });
   return (
     <div class="app" data-ready={app.ready() ? "yes" : "no"}>
-      <Toolbar paper={paper()} onPaper={setPaper} exportKinds={EXPORTS} />
+      <Toolbar paper={app.paper()} onPaper={app.setPaper} exportKinds={EXPORTS} />
       <ResultBar />
       <NoticeBox />
       <CautionBanner />
-      <PrintHeader />
       <main class="workspace">
         <div class="col-left">
           <ProjectPanel />

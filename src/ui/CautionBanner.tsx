@@ -1,21 +1,23 @@
-/** The hazardous-voltage caution, shown while any supply value is above 60 V DC. */
-import { Show } from "solid-js";
+/** The safety cautions (core/safety.ts words), shown while any supply value is above 60 V DC. */
+import { For, Show } from "solid-js";
+import { safetyCautions, SELV_DC_LIMIT_V } from "../core/safety.ts";
 import { app } from "./appState.ts";
 
-/** The usual touch-safe limit for SELV, volts DC (IEC 60335-1). */
-const SELV_LIMIT_V = 60;
-
 export function CautionBanner() {
-  const hazardous = () => {
+  const cautions = () => {
     const s = app.draft().electrical.supply;
-    return Math.max(s.volts, s.maxVolts, s.minVolts) > SELV_LIMIT_V;
+    return safetyCautions([s.volts, s.minVolts, s.maxVolts]);
   };
   return (
-    <Show when={hazardous()}>
+    <Show when={cautions().length > 0}>
       <aside class="caution" role="note" data-testid="caution">
-        <strong>⚠ DANGER: hazardous voltage.</strong> The string supply ({app.draft().electrical.supply.maxVolts} V max) is above the
-        60 V DC touch-safe limit. Fuse the live lead, insulate and shroud terminals, earth metal parts, discharge filter capacitors before
-        touching, and follow local electrical codes and licensed practice.
+        <details>
+          <summary>
+            <strong>⚠ DANGER: hazardous voltage.</strong> The supply reaches {Math.max(app.draft().electrical.supply.maxVolts, app.draft().electrical.supply.volts)} V DC, above the{" "}
+            {SELV_DC_LIMIT_V} V DC touch-safe limit: work only with it off and discharged, and follow local codes and licensed practice. <span class="linkish">Details</span>
+          </summary>
+          <For each={cautions()}>{(c) => <p>{c.message}</p>}</For>
+        </details>
       </aside>
     </Show>
   );

@@ -1,36 +1,46 @@
 /**
- * The Drawing panel: the live matrix drawing, zoomable (buttons, + and -
- * keys, Ctrl+wheel), with the diode under the pointer or keyboard focus
- * highlighted together with its row and column.
+ * The Drawing panel: the live matrix drawing (the printable sheets, laid
+ * out by src/render/layout.ts and drawn by the svg.js adapter), zoomable
+ * with buttons, the + and - keys or Ctrl+wheel. The diode under the pointer,
+ * or picked with the arrow keys, is highlighted together with its row and
+ * its column.
  */
-import { createMemo, createSignal, For, Show } from "solid-js";
+import { createEffect, createMemo, createSignal, For, onCleanup, Show } from "solid-js";
+import type { DiodeSymbol, Sheet } from "../render/drawingModel.ts";
+import { drawingOptions } from "../render/drawingOptions.ts";
+import { layoutMatrix } from "../render/layout.ts";
 import { app } from "./appState.ts";
+import { mountSheet } from "./sheetSvg.ts";
 
-const ZOOMS = [0.5, 0.67, 0.8, 1, 1.25, 1.5, 2, 3] as const;
+/** Zoom steps, as a share of the panel width. */
+const ZOOMS = [0.5, 0.75, 1, 1.5, 2, 3, 4] as const;
+const FIT = 2;
+/** Pointer slack around a diode symbol, millimetres. */
+const HIT_MM = 1.2;
 
 export function DrawingPanel() {
-  const [zoomIndex, setZoomIndex] = createSignal(3);
+  const [zoomIndex, setZoomIndex] = createSignal(FIT);
   const zoom = () => ZOOMS[zoomIndex()] ?? 1;
   const zoomBy = (step: number) => setZoomIndex((i) => Math.max(0, Math.min(ZOOMS.length - 1, i + step)));
-  const [hover, setHover] = createSignal<string | null>(null);
+  const [picked, setPicked] = createSignal<{ sheet: number; ref: string } | null>(null);
 
-  const grid = createMemo(() => {
+  const drawing = createMemo(() => {
     const r = app.live();
-    if (!r) return null;
-    const m = r.matrix;
-    const outputs = new Set(m.outputs);
-    const sources = [...m.states, ...m.buses, ...m.outputs.filter((o) => m.diodes.some((d) => d.from === o))];
-    const sinks = [...m.buses, ...m.outputs];
-    const label = (s: string) => {
-      const k = m.states.indexOf(s);
-      return k >= 0 ? `${s} “${r.spec.texts[k]}”` : outputs.has(s) ? `${s} link` : s;
-    };
-    return { sources, sinks, diodes: m.diodes, label };
+    return r ? layoutMatrix(r.project, r.spec, r.matrix, drawingOptions(r.project, { paper: app.paper() })) : null;
   });
-  const cell = 18;
-  const left = 90;
-  const top = 40;
-  const hovered = () => grid()?.diodes.find((d) => d.ref === hover()) ?? null;
+  const allDiodes = createMemo(() => drawing()?.sheets.flatMap((s) => s.diodes.map((d) => ({ sheet: s.number, d }))) ?? []);
+  const pickedDiode = () => {
+    const p = picked();
+    return p ? (allDiodes().find((x) => x.sheet === p.sheet && x.d.ref === p.ref)?.d ?? null) : null;
+  };
+  const step = (delta: number) => {
+    const list = allDiodes();
+    if (list.length === 0) return;
+    const p = picked();
+    const i = p ? list.findIndex((x) => x.sheet === p.sheet && x.d.ref === p.ref) : -1;
+    const next = list[(i + delta + list.length) % list.length];
+    if (next) setPicked({ sheet: next.sheet, ref: next.d.ref });
+  };
 
   return (
     <section class="panel drawing-panel" aria-labelledby="drawing-h">
@@ -40,19 +50,25 @@ export function DrawingPanel() {
           <button type="button" class="small-btn" onClick={() => zoomBy(-1)} aria-label="Zoom out">
             −
           </button>
-          <span class="zoom-readout">{Math.round(zoom() * 100)} %</span>
+          <span class="zoom-readout" aria-live="polite">
+            {Math.round(zoom() * 100)} %
+          </span>
           <button type="button" class="small-btn" onClick={() => zoomBy(1)} aria-label="Zoom in">
             +
           </button>
-          <button type="button" class="small-btn" onClick={() => setZoomIndex(3)}>
-            100 %
+          <button type="button" class="small-btn" onClick={() => setZoomIndex(FIT)}>
+            Fit
           </button>
         </div>
-        <span class="hover-readout" aria-live="polite">
-          <Show when={hovered()} fallback={<span class="muted">point at a diode</span>}>
+        <span class="muted small">{drawing()?.sheets.length ?? 0} sheet(s)</span>
+        <Show when={app.stale()}>
+          <span class="chip stale">⏸ stale</span>
+        </Show>
+        <span class="hover-readout" aria-live="polite" data-testid="diode-readout">
+          <Show when={pickedDiode()} fallback={<span class="muted">point at a diode, or focus the drawing and use the arrow keys</span>}>
             {(d) => (
               <>
-                <strong>{d().ref}</strong> {d().from} → {d().to}
+                <strong>{d().ref}</strong> anode {d().from} → cathode {d().to}
               </>
             )}
           </Show>
@@ -61,10 +77,16 @@ export function DrawingPanel() {
       <div
         class={`drawing-scroll ${app.stale() ? "is-stale" : ""}`}
         tabindex="0"
-        aria-label="Matrix drawing; + and - zoom"
+        role="group"
+        aria-label="Matrix drawing: + and - zoom, arrow keys step through the diodes"
         onKeyDown={(e) => {
           if (e.key === "+" || e.key === "=") zoomBy(1);
-          if (e.key === "-") zoomBy(-1);
+          else if (e.key === "-") zoomBy(-1);
+          else if (e.key === "ArrowRight" || e.key === "ArrowDown") step(1);
+          else if (e.key === "ArrowLeft" || e.key === "ArrowUp") step(-1);
+          else if (e.key === "Escape") setPicked(null);
+          else return;
+          e.preventDefault();
         }}
         onWheel={(e) => {
           if (!e.ctrlKey) return;
@@ -72,56 +94,81 @@ export function DrawingPanel() {
           zoomBy(e.deltaY < 0 ? 1 : -1);
         }}
       >
-        <Show when={grid()}>
-          {(g) => {
-            const w = () => left + g().sinks.length * cell + 20;
-            const h = () => top + g().sources.length * cell + 20;
-            const row = (n: string) => top + g().sources.indexOf(n) * cell + cell / 2;
-            const col = (n: string) => left + g().sinks.indexOf(n) * cell + cell / 2;
-            return (
-              <svg data-testid="matrix-drawing" class="matrix-svg" viewBox={`0 0 ${w()} ${h()}`} width={w() * zoom()} height={h() * zoom()} role="img" aria-label={`matrix of ${g().diodes.length} diodes`}>
-                <Show when={hovered()}>
-                  {(d) => (
-                    <>
-                      <rect class="hl-band" x={0} y={row(d().from) - cell / 2} width={w()} height={cell} />
-                      <rect class="hl-band" x={col(d().to) - cell / 2} y={0} width={cell} height={h()} />
-                    </>
-                  )}
-                </Show>
-                <For each={g().sources}>
-                  {(s) => (
-                    <>
-                      <line class="wire" x1={left - 4} x2={w() - 10} y1={row(s)} y2={row(s)} />
-                      <text class="wire-label" x={left - 8} y={row(s) + 3} text-anchor="end">
-                        {g().label(s)}
-                      </text>
-                    </>
-                  )}
-                </For>
-                <For each={g().sinks}>
-                  {(s) => (
-                    <>
-                      <line class="wire" x1={col(s)} x2={col(s)} y1={top - 4} y2={h() - 10} />
-                      <text class="wire-label" x={col(s)} y={top - 8} text-anchor="middle">
-                        {s}
-                      </text>
-                    </>
-                  )}
-                </For>
-                <For each={g().diodes}>
-                  {(d) => (
-                    <g class={`diode ${hover() === d.ref ? "hl" : ""}`} data-ref={d.ref} onPointerEnter={() => setHover(d.ref)} onPointerLeave={() => setHover(null)}>
-                      <polygon points={`${col(d.to) - 4},${row(d.from) - 4} ${col(d.to) + 4},${row(d.from) - 4} ${col(d.to)},${row(d.from) + 3}`} />
-                      <line x1={col(d.to) - 4} x2={col(d.to) + 4} y1={row(d.from) + 3} y2={row(d.from) + 3} />
-                      <title>{`${d.ref}: ${d.from} → ${d.to}`}</title>
-                    </g>
-                  )}
-                </For>
-              </svg>
-            );
-          }}
-        </Show>
+        <For each={drawing()?.sheets ?? []}>
+          {(sheet, i) => (
+            <SheetView
+              sheet={sheet}
+              first={i() === 0}
+              zoom={zoom()}
+              highlight={picked()?.sheet === sheet.number ? pickedDiode() : null}
+              onPick={(ref) => {
+                const p = picked();
+                if (ref === null ? p !== null : p?.sheet !== sheet.number || p.ref !== ref) setPicked(ref === null ? null : { sheet: sheet.number, ref });
+              }}
+            />
+          )}
+        </For>
       </div>
     </section>
   );
+}
+
+function SheetView(props: { sheet: Sheet; first: boolean; zoom: number; highlight: DiodeSymbol | null; onPick: (ref: string | null) => void }) {
+  let host: HTMLDivElement | undefined;
+  let svgEl: SVGSVGElement | null = null;
+  let overlay: SVGGElement | null = null;
+  const NS = "http://www.w3.org/2000/svg";
+
+  createEffect(() => {
+    if (!host) return;
+    const root = mountSheet(host, props.sheet);
+    svgEl = root.node;
+    svgEl.classList.add("sheet-svg");
+    svgEl.setAttribute("role", "img");
+    svgEl.setAttribute("aria-label", `matrix drawing, sheet ${props.sheet.number} of ${props.sheet.count}, ${props.sheet.diodes.length} diodes`);
+    svgEl.dataset.sheet = String(props.sheet.number);
+    if (props.first) svgEl.dataset.testid = "matrix-drawing";
+    overlay = document.createElementNS(NS, "g");
+    overlay.setAttribute("class", "hl-layer");
+    overlay.setAttribute("pointer-events", "none");
+    svgEl.append(overlay);
+  });
+
+  createEffect(() => {
+    if (!svgEl) return;
+    const z = props.zoom;
+    props.sheet; // re-apply after a redraw
+    svgEl.setAttribute("width", `${z * 100}%`);
+    svgEl.removeAttribute("height");
+  });
+
+  createEffect(() => {
+    props.sheet;
+    const d = props.highlight;
+    if (!overlay) return;
+    overlay.replaceChildren();
+    if (!d) return;
+    const add = (tag: string, attrs: Record<string, string | number>) => {
+      const el = document.createElementNS(NS, tag);
+      for (const [k, v] of Object.entries(attrs)) el.setAttribute(k, String(v));
+      overlay?.append(el);
+    };
+    for (const s of props.sheet.segments) {
+      if (s.net !== d.from && s.net !== d.to) continue;
+      add("line", { x1: s.a.x, y1: s.a.y, x2: s.b.x, y2: s.b.y, class: s.net === d.from ? "hl-row" : "hl-col" });
+    }
+    const b = d.box;
+    add("rect", { x: b.x - 0.8, y: b.y - 0.8, width: b.w + 1.6, height: b.h + 1.6, rx: 0.6, class: "hl-diode" });
+  });
+
+  const pick = (e: PointerEvent) => {
+    if (!svgEl) return;
+    const ctm = svgEl.getScreenCTM();
+    if (!ctm) return;
+    const p = new DOMPoint(e.clientX, e.clientY).matrixTransform(ctm.inverse());
+    const hit = props.sheet.diodes.find((d) => p.x >= d.box.x - HIT_MM && p.x <= d.box.x + d.box.w + HIT_MM && p.y >= d.box.y - HIT_MM && p.y <= d.box.y + d.box.h + HIT_MM);
+    props.onPick(hit?.ref ?? null);
+  };
+  onCleanup(() => host?.replaceChildren());
+  return <div class="sheet-host" ref={host} onPointerMove={pick} onPointerLeave={() => props.onPick(null)} />;
 }

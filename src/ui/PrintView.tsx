@@ -1,56 +1,73 @@
 /**
- * The print view: only visible when printing (see styles.css @media print).
- * It holds the drawing, the wiring list and the parts count.
+ * The print view: only visible when printing (styles.css @media print).
+ * After the drawing sheets come the wiring list, with sheet and zone of
+ * every diode and the inspection checklist, and the parts count.
  */
-import { For, Show } from "solid-js";
-import { refRanges } from "../core/parts.ts";
+import { createMemo, For, Show } from "solid-js";
+import { bomLines } from "../core/bom.ts";
+import { INSPECTION_CHECKLIST, WIRING_HEADER, wiringRows } from "../core/wiringList.ts";
+import { drawingOptions } from "../render/drawingOptions.ts";
+import { layoutMatrix } from "../render/layout.ts";
 import { app } from "./appState.ts";
 
-/** Title line above the drawing on paper. */
-export function PrintHeader() {
-  return (
-    <Show when={app.live()}>
-      {(r) => (
-        <header class="print-header" aria-hidden="true">
-          <h1>{r().project.title}</h1>
-          <p>
-            {r().matrix.count} diodes, verified; {r().spec.states.length} states, {r().spec.positions} position(s) of {r().spec.cell.kind}.
-          </p>
-        </header>
-      )}
-    </Show>
-  );
-}
-
 export function PrintView() {
+  const lists = createMemo(() => {
+    const r = app.live();
+    if (!r) return null;
+    const drawing = layoutMatrix(r.project, r.spec, r.matrix, drawingOptions(r.project, { paper: app.paper() }));
+    const b = app.budget();
+    const trim = b && b.forResult === r && b.result.ok ? new Map(Object.entries(b.result.value.trim.outputs).map(([o, t]) => [o, t.ohms])) : undefined;
+    return { r, rows: wiringRows(r.matrix, drawing.placements), parts: bomLines(r.project, r.spec, r.matrix, trim) };
+  });
   return (
-    <Show when={app.live()}>
-      {(r) => (
-        <section class="print-view" aria-hidden="true">
-          <h2>Wiring list</h2>
+    <Show when={lists()}>
+      {(l) => (
+        <section class="print-view" aria-hidden="true" data-testid="print-view">
+          <h2>
+            Wiring list: {l().r.project.title} ({l().r.matrix.count} diodes)
+          </h2>
           <table class="print-table">
             <thead>
               <tr>
-                <th>Ref</th>
-                <th>From (anode)</th>
-                <th>To (cathode)</th>
-                <th>Check</th>
+                <For each={WIRING_HEADER}>{(h) => <th>{h}</th>}</For>
               </tr>
             </thead>
             <tbody>
-              <For each={r().matrix.diodes}>
-                {(d) => (
+              <For each={l().rows}>
+                {(w) => (
                   <tr>
-                    <td>{d.ref}</td>
-                    <td>{d.from}</td>
-                    <td>{d.to}</td>
-                    <td>☐</td>
+                    <td>{w.step}</td>
+                    <td>
+                      <b>{w.ref}</b>
+                    </td>
+                    <td>{w.from}</td>
+                    <td>{w.to}</td>
+                    <td>{w.sheet ?? ""}</td>
+                    <td>{w.zone}</td>
+                    <td class="box">☐</td>
                   </tr>
                 )}
               </For>
             </tbody>
           </table>
-          <h2>Parts</h2>
+          <h2>Inspection</h2>
+          <table class="print-table">
+            <tbody>
+              <For each={INSPECTION_CHECKLIST}>
+                {(c, i) => (
+                  <tr>
+                    <td>C{i() + 1}</td>
+                    <td>
+                      <b>{c.item}</b>
+                    </td>
+                    <td>{c.check}</td>
+                    <td class="box">☐</td>
+                  </tr>
+                )}
+              </For>
+            </tbody>
+          </table>
+          <h2>Parts count</h2>
           <table class="print-table">
             <thead>
               <tr>
@@ -61,11 +78,11 @@ export function PrintView() {
               </tr>
             </thead>
             <tbody>
-              <For each={r().parts}>
+              <For each={l().parts}>
                 {(g) => (
                   <tr>
-                    <td>{g.refs.length}</td>
-                    <td>{refRanges(g.refs)}</td>
+                    <td>{g.quantity}</td>
+                    <td>{g.references}</td>
                     <td>{g.value}</td>
                     <td>{g.description}</td>
                   </tr>

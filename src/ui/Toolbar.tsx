@@ -10,10 +10,13 @@ import { downloadText, fileStem } from "./download.ts";
 import { exportFiles, type ExportKind } from "./exportFiles.ts";
 import { encodeShareHash } from "./shareLink.ts";
 
-export type Paper = "a4" | "letter";
+import type { PaperName } from "../render/drawingModel.ts";
+
+type Paper = PaperName;
 
 export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; exportKinds: readonly { kind: ExportKind; label: string }[] }) {
   let fileInput: HTMLInputElement | undefined;
+  let menu: HTMLDetailsElement | undefined;
   const [shareState, setShareState] = createSignal<string | null>(null);
 
   const open = async (file: File) => {
@@ -40,7 +43,13 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
     const r = app.live();
     if (!r) return;
     const stem = fileStem(r.project.title);
-    for (const f of exportFiles(r, kind)) downloadText(`${stem}-${f.name}`, f.text, f.mime);
+    const files = exportFiles(r, kind, app.paper(), app.budget()?.forResult === r ? app.budget()?.result : undefined);
+    if (files.length === 0) {
+      app.setNotice({ level: "warn", title: "Nothing to export yet", lines: ["the budget is still being worked out; try again in a moment"] });
+      return;
+    }
+    files.forEach((f) => downloadText(`${stem}-${f.name}`, f.content, f.mime));
+    if (menu) menu.open = false;
   };
 
   return (
@@ -77,16 +86,18 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
           </span>
         </Show>
       </div>
-      <div class="tool-group" role="group" aria-label="Export">
-        <span class="label">Export</span>
-        <For each={props.exportKinds}>
-          {(k) => (
-            <button type="button" onClick={() => doExport(k.kind)} disabled={!app.live()} data-testid={`export-${k.kind}`}>
-              {k.label}
-            </button>
-          )}
-        </For>
-      </div>
+      <details class="menu" ref={menu}>
+        <summary data-testid="exports-menu">Export ▾</summary>
+        <div class="menu-items" role="group" aria-label="Export">
+          <For each={props.exportKinds}>
+            {(k) => (
+              <button type="button" onClick={() => doExport(k.kind)} disabled={!app.live()} data-testid={`export-${k.kind}`}>
+                {k.label}
+              </button>
+            )}
+          </For>
+        </div>
+      </details>
       <div class="tool-group" role="group" aria-label="Print">
         <label for="f-paper" class="label">
           Paper

@@ -5,7 +5,10 @@
  * domain work happens in src/core through liveResult.ts.
  */
 import { batch, createMemo, createRoot, createSignal } from "solid-js";
+import { solveBudget, type Budget, type BudgetFailure } from "../core/budget.ts";
 import type { VerifiedMatrix } from "../core/matrix.ts";
+import type { Result } from "../core/result.ts";
+import type { PaperName } from "../render/drawingModel.ts";
 import type { Project } from "../core/project.ts";
 import { parseProject, validateProject } from "../core/projectSchema.ts";
 import { formatProblems, type Problem } from "../core/result.ts";
@@ -32,6 +35,14 @@ export interface Notice {
 
 /** Wait after the last edit before the exact optimizer starts, milliseconds. */
 const EXACT_DELAY_MS = 500;
+/** Wait after a result before the budget is solved (it takes tens of ms), milliseconds. */
+const BUDGET_DELAY_MS = 150;
+
+export interface BudgetView {
+  /** The result the budget belongs to; it is stale when the shown result differs. */
+  readonly forResult: LiveResult;
+  readonly result: Result<Budget, BudgetFailure>;
+}
 
 function createAppState() {
   const [history, setHistory] = createSignal<UndoHistory<Draft>>(startHistory(placeholderDraft()));
@@ -52,6 +63,20 @@ function createAppState() {
   const [exactEnabled, setExactEnabled] = createSignal(true);
   const [notice, setNotice] = createSignal<Notice | null>(null);
   const [ready, setReady] = createSignal(false);
+  const [paper, setPaperSignal] = createSignal<PaperName>(readPaper());
+  const [budget, setBudget] = createSignal<BudgetView | null>(null);
+  let budgetTimer: ReturnType<typeof setTimeout> | undefined;
+
+  /** Shows a result and schedules its budget. */
+  function show(r: LiveResult): void {
+    setLive(r);
+    clearTimeout(budgetTimer);
+    budgetTimer = setTimeout(() => {
+      const now = live();
+      if (now !== r) return;
+      setBudget({ forResult: r, result: solveBudget(r.project, r.spec, r.matrix) });
+    }, BUDGET_DELAY_MS);
+  }
 
   const stale = createMemo(() => live() !== null && liveDraft() !== draft());
   const runner = new ExactRunner();
@@ -70,7 +95,7 @@ function createAppState() {
     if (mine !== pass) return;
     batch(() => {
       if (r.ok) {
-        setLive(r.value);
+        show(r.value);
         setLiveError(null);
       } else {
         setLiveError(r.error.kind === "bug" ? `${r.error.message}\n${r.error.details.join("\n")}` : r.error.message);
@@ -122,7 +147,7 @@ function createAppState() {
   function adoptIfBetter(current: LiveResult, m: VerifiedMatrix): boolean {
     if (m.count > current.matrix.count) return false;
     const improved = m.count < current.matrix.count;
-    setLive(withMatrix(current.project, current.spec, current.settings, m));
+    show(withMatrix(current.project, current.spec, current.settings, m));
     return improved;
   }
 
@@ -225,6 +250,17 @@ function createAppState() {
     validation,
     problems,
     live,
+    budget,
+    budgetStale: () => budget() !== null && budget()?.forResult !== live(),
+    paper,
+    setPaper: (p: PaperName) => {
+      setPaperSignal(p);
+      try {
+        localStorage.setItem(PAPER_KEY, p);
+      } catch {
+        // A refused store only loses the preference.
+      }
+    },
     liveError,
     liveMs,
     stale,
@@ -251,6 +287,16 @@ function createAppState() {
     /** For tests of a fresh start: stop writing the autosave. */
     setPersist: (on: boolean) => void (persist = on),
   };
+}
+
+const PAPER_KEY = "diodeloom.paper";
+
+function readPaper(): PaperName {
+  try {
+    return localStorage.getItem(PAPER_KEY) === "letter" ? "letter" : "a4";
+  } catch {
+    return "a4";
+  }
 }
 
 /** A minimal valid draft to hold the place until the first project loads. */

@@ -6,8 +6,12 @@
  * exact optimizer and answers with progress and one final message.
  */
 
+import type { GlyphStyleRow } from "../core/glyphStyles.ts";
+
 export interface ExactRequest {
   readonly id: number;
+  /** `matrix`: the project's minimum matrix; `compare`: the glyph-style comparison. */
+  readonly job: "matrix" | "compare";
   /** The project as plain JSON (a draft); the worker validates it itself. */
   readonly project: unknown;
 }
@@ -22,6 +26,7 @@ export interface ExactProgress {
 export type ExactReply =
   | { readonly id: number; readonly type: "progress"; readonly progress: ExactProgress }
   | { readonly id: number; readonly type: "done"; readonly matrix: unknown }
+  | { readonly id: number; readonly type: "compared"; readonly rows: readonly GlyphStyleRow[] }
   | { readonly id: number; readonly type: "failed"; readonly message: string };
 
 /** The relative gap between the best count and the bound, in percent; null without both. */

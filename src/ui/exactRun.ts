@@ -5,11 +5,13 @@
  * worker of the old one (the solver cannot be interrupted from outside any
  * other way), so a stale answer can never arrive.
  */
-import type { ExactProgress, ExactReply } from "./exactProtocol.ts";
+import type { GlyphStyleRow } from "../core/glyphStyles.ts";
+import type { ExactProgress, ExactReply, ExactRequest } from "./exactProtocol.ts";
 
 export interface ExactCallbacks {
   progress(p: ExactProgress): void;
   done(matrix: unknown): void;
+  compared?(rows: readonly GlyphStyleRow[]): void;
   failed(message: string): void;
 }
 
@@ -18,7 +20,7 @@ export class ExactRunner {
   private runId = 0;
 
   /** Starts a run for a project draft; any run in progress is cancelled. */
-  start(project: unknown, callbacks: ExactCallbacks): void {
+  start(project: unknown, callbacks: ExactCallbacks, job: ExactRequest["job"] = "matrix"): void {
     this.cancel();
     const id = ++this.runId;
     const worker = new Worker(new URL("./exactWorker.ts", import.meta.url), { type: "module" });
@@ -30,6 +32,7 @@ export class ExactRunner {
       else {
         this.finish(worker);
         if (reply.type === "done") callbacks.done(reply.matrix);
+        else if (reply.type === "compared") callbacks.compared?.(reply.rows);
         else callbacks.failed(reply.message);
       }
     };
@@ -39,7 +42,8 @@ export class ExactRunner {
       this.finish(worker);
       callbacks.failed(`the optimizer worker failed: ${e.message || "unknown error"}`);
     };
-    worker.postMessage({ id, project });
+    const request: ExactRequest = { id, job, project };
+    worker.postMessage(request);
   }
 
   /** Stops the run in progress, if any. */

@@ -1,32 +1,47 @@
 /// <reference lib="webworker" />
 /**
- * The Web Worker that runs the exact optimizer, so the page stays
- * responsive. Cancelling terminates the worker; the app starts a fresh one
- * for the next run.
+ * The Web Worker that runs the exact optimizer on HiGHS (WebAssembly), so
+ * the page stays responsive. Cancelling terminates the worker; the app
+ * starts a fresh one for the next run. Two jobs: one project's matrix, or
+ * the glyph-style comparison of a project.
  */
+import highsLoader from "highs";
+import wasmUrl from "highs/runtime?url";
 import { compileSpec } from "../core/decodeSpec.ts";
+import { compareGlyphStyles } from "../core/glyphStyles.ts";
 import { validateProject } from "../core/projectSchema.ts";
 import { formatProblems } from "../core/result.ts";
-import { synthesize, synthSettings } from "../core/synthesize.ts";
+import type { HighsLike, HighsLoader } from "../core/synthExact.ts";
+import { synthesize, synthSettings, type SynthHooks } from "../core/synthesize.ts";
 import type { ExactReply, ExactRequest } from "./exactProtocol.ts";
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
+
+/** A fresh HiGHS runtime per solve, its WebAssembly file served by Vite. */
+const loadHighs: HighsLoader = async () => (await highsLoader({ locateFile: () => wasmUrl })) as unknown as HighsLike;
 
 function post(reply: ExactReply): void {
   scope.postMessage(reply);
 }
 
 scope.onmessage = async (event: MessageEvent<ExactRequest>) => {
-  const { id, project: data } = event.data;
+  const { id, project: data, job } = event.data;
   const started = performance.now();
+  const elapsedS = () => (performance.now() - started) / 1000;
   const parsed = validateProject(data);
   if (!parsed.ok) return post({ id, type: "failed", message: formatProblems(parsed.error) });
-  const spec = compileSpec(parsed.value);
-  post({ id, type: "progress", progress: { best: null, bound: null, elapsedS: 0 } });
+  const hooks: SynthHooks = {
+    loadHighs,
+    onProgress: (p) => post({ id, type: "progress", progress: { best: p.count, bound: p.lowerBound, elapsedS: elapsedS() } }),
+  };
   try {
-    const r = await synthesize(spec, synthSettings(parsed.value, { mode: "exact" }));
+    if (job === "compare") {
+      const r = await compareGlyphStyles(parsed.value, { mode: "exact" }, { loadHighs });
+      if (!r.ok) return post({ id, type: "failed", message: r.error.message });
+      return post({ id, type: "compared", rows: r.value });
+    }
+    const r = await synthesize(compileSpec(parsed.value), synthSettings(parsed.value, { mode: "exact" }), hooks);
     if (!r.ok) return post({ id, type: "failed", message: r.error.message });
-    post({ id, type: "progress", progress: { best: r.value.count, bound: r.value.lowerBound, elapsedS: (performance.now() - started) / 1000 } });
     post({ id, type: "done", matrix: r.value });
   } catch (e) {
     post({ id, type: "failed", message: `the exact optimizer stopped: ${(e as Error).message}` });
