@@ -101,7 +101,8 @@ function metrics(scale: number): Metrics {
   return {
     scale,
     tap: k(3.5),
-    overshoot: k(1.5),
+    // tap + overshoot stays inside the cell (under leftPad and pitchY - topPad), so no stub pokes into the next sheet.
+    overshoot: k(0.8),
     pitchY: k(6),
     minPitchX: k(10),
     leftPad: k(4.8),

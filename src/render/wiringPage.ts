@@ -52,12 +52,17 @@ thead { display: table-header-group; }
 tr { break-inside: avoid; }
 td.box { width: 8mm; }
 th { background: #fff; font-weight: bold; }
-.meta td { border: none; padding: 0 4mm 0 0; }
+.meta { width: auto; }
+.meta td { border: none; padding: 0 6mm 0 0; white-space: nowrap; }
+@media screen { body { margin: 10mm; } }
 </style>
 </head>
 <body>
 <h1>Wiring list: ${esc(project.title)}</h1>
-<table class="meta"><tr><td>Drawing number: ${esc(options.drawingNumber)}</td><td>Rev. ${esc(options.revision)}</td><td>Date of issue: ${esc(options.date || "________")}</td><td>Drawn by: ${esc(options.drawnBy)}</td><td>Diodes: ${matrix.count}</td><td>Drawing sheets: ${sheetCount}</td></tr></table>
+<table class="meta">
+<tr><td>Drawing number: ${esc(options.drawingNumber)}</td><td>Rev. ${esc(options.revision)}</td><td>Date of issue: ${esc(options.date || "________")}</td></tr>
+<tr><td>Drawn by: ${esc(options.drawnBy)}</td><td>Diodes: ${matrix.count}</td><td>Drawing sheets: ${sheetCount}</td></tr>
+</table>
 <p>Fit the diodes in this order, row by row of the drawing. The anode goes to the From line; the band (cathode) to the To line. Tick Done as each one is soldered.</p>
 <table>
 <thead><tr>${WIRING_HEADER.map((h) => `<th>${esc(h)}</th>`).join("")}</tr></thead>

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { compileSpec } from "../../../src/core/decodeSpec.ts";
-import type { DiodeMatrix } from "../../../src/core/matrix.ts";
+import { buildMatrix, type DiodeMatrix } from "../../../src/core/matrix.ts";
 import type { Project } from "../../../src/core/project.ts";
 import type { DecodeSpec } from "../../../src/core/decodeSpec.ts";
 import { synthesizeDirect } from "../../../src/core/synthDirect.ts";
@@ -9,7 +9,7 @@ import { drawingOptions } from "../../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../../src/render/layout.ts";
 import { PAPER_MM, FRAME_MM } from "../../../src/render/sheetFrame.ts";
 import { makeProject } from "../../support/projects.ts";
-import { arms, pieces, samePoint, textProblems, touches } from "./layoutGeometry.ts";
+import { arms, pieces, samePoint, stubProblems, textProblems, touches } from "./layoutGeometry.ts";
 import { dieRollerShared, directExample } from "./sharedMatrix.ts";
 
 /** 40 states on three positions: too big for one sheet. */
@@ -20,11 +20,20 @@ function bigProject(): { project: Project; spec: DecodeSpec; matrix: DiodeMatrix
   return { project, spec, matrix: synthesizeDirect(spec, 1, "mixed") };
 }
 
+/** Ten states on six positions: too wide for one sheet. */
+function wideProject(): { project: Project; spec: DecodeSpec; matrix: DiodeMatrix } {
+  const texts = Array.from({ length: 10 }, (_, k) => String(123456 + k * 111111).slice(-6));
+  const project = makeProject({ title: "Wide", counter: { states: 10 }, display: { positions: 6, cell: "seg7dp" }, show: texts });
+  const spec = compileSpec(project);
+  return { project, spec, matrix: synthesizeDirect(spec, 1, "mixed") };
+}
+
 const cases: Record<string, () => { project: Project; spec: DecodeSpec; matrix: DiodeMatrix; paper?: "a4" | "letter" }> = {
   "hex monitor, direct": () => directExample("relay-hex-monitor"),
   "turntable, direct, on Letter": () => ({ ...directExample("turntable-position"), paper: "letter" }),
   "die roller with two buses and a link": dieRollerShared,
   "40 states on three positions": bigProject,
+  "10 states on six positions": wideProject,
 };
 
 describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
@@ -98,6 +107,10 @@ describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
     }
   });
 
+  it("leaves no stub of a wire at a sheet edge", () => {
+    for (const sheet of sheets) expect(stubProblems(sheet)).toEqual([]);
+  });
+
   it("keeps texts apart and off the symbols", () => {
     for (const sheet of sheets) expect(textProblems(sheet)).toEqual([]);
   });
@@ -144,6 +157,25 @@ describe("layout details", () => {
       }
       expect(s.polygons.length).toBe(marks.length);
     }
+  });
+
+  it("leaves no stub when a link row starts at the first column of a later sheet", () => {
+    // Find the first output column of a sheet that continues one to its left,
+    // then feed exactly that column from a link row.
+    const { project, spec, matrix } = wideProject();
+    const first = layoutMatrix(project, spec, matrix, drawingOptions(project));
+    // Marks of lines coming in from the left are the right-aligned ones.
+    const later = first.sheets.find((s) => s.labels.some((l) => l.role === "continuation" && l.anchor === "end"))!;
+    expect(later, "the wide project continues to the right").toBeDefined();
+    const leftmost = later.segments
+      .filter((s) => s.net !== undefined && spec.outputs.includes(s.net) && s.a.x === s.b.x)
+      .sort((a, b) => a.a.x - b.a.x)[0]!;
+    const source = spec.outputs[spec.outputs.length - 1]!;
+    const edges = [...matrix.diodes.map((d) => ({ from: d.from, to: d.to })), { from: source, to: leftmost.net! }];
+    const linked = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: 2, depth: "mixed", method: "heuristic" });
+    const drawing = layoutMatrix(project, spec, linked, drawingOptions(project));
+    expect(drawing.sheets.length).toBe(first.sheets.length);
+    for (const sheet of drawing.sheets) expect(stubProblems(sheet)).toEqual([]);
   });
 
   it("gives a bus a column and a row joined at a corner without a dot, and a link row a dot where it taps its output", () => {

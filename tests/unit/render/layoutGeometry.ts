@@ -75,3 +75,10 @@ export function textProblems(sheet: Sheet): string[] {
   }
   return problems;
 }
+
+/** Wires shorter than 1 mm: a stub left by a cut at a sheet edge, or a line that ends where it starts. */
+export function stubProblems(sheet: Sheet): string[] {
+  return sheet.segments
+    .filter((s) => s.net !== undefined && Math.hypot(s.b.x - s.a.x, s.b.y - s.a.y) < 1)
+    .map((s) => `a ${Math.hypot(s.b.x - s.a.x, s.b.y - s.a.y).toFixed(2)} mm stub of ${s.net} on sheet ${sheet.number}`);
+}
