@@ -225,12 +225,21 @@ interface NewtonRun {
  * currents meeting there, checked on the unlinearized devices; that is far
  * tighter than SPICE's 0.1 %, so the result is the solution to many digits.
  */
-function newton(cp: Compiled, st: NewtonState, fixedV: Float64Array, gshuntS: number, maxIterations: number, first: boolean): NewtonRun {
+function newton(
+  cp: Compiled,
+  st: NewtonState,
+  fixedV: Float64Array,
+  gshuntS: number,
+  maxIterations: number,
+  first: boolean,
+  ws: DcWorkspace,
+): NewtonRun {
   const n = cp.n;
   const { x, jv } = st;
-  const G = new Float64Array(n * n);
-  const rhs = new Float64Array(n);
-  const scale = new Float64Array(n);
+  const G = ws.buffer("G", n * n);
+  const rhs = ws.buffer("rhs", n);
+  const scale = ws.buffer("scale", n);
+  const b = ws.buffer("b", n);
   const volt = (r: NodeRef): number => (r >= 0 ? (x[r] as number) : (fixedV[-r - 1] as number));
   const fv = (r: NodeRef): number => fixedV[-r - 1] as number;
   const entry = (row: NodeRef, col: NodeRef, coef: number): void => {
@@ -315,7 +324,7 @@ function newton(cp: Compiled, st: NewtonState, fixedV: Float64Array, gshuntS: nu
     });
     if (!useStored && !limited && stepSmall && kclHolds(G, rhs, x, scale, n)) return { converged: true, iterations: it };
     useStored = false;
-    const b = rhs.slice();
+    b.set(rhs);
     if (!solveInPlace(G, b, n)) return { converged: false, iterations: it };
     stepSmall = true;
     for (let i = 0; i < n; i++) {
@@ -345,6 +354,24 @@ function kclHolds(G: Float64Array, rhs: Float64Array, x: Float64Array, scale: Fl
 // ------------------------------------------------------------ the solve
 
 /**
+ * Scratch arrays a caller may share between solves (say, every state of one
+ * matrix) so that the large nodal matrix is allocated once, not per solve.
+ * Holds no results; solves with and without one give the same numbers.
+ */
+export class DcWorkspace {
+  readonly #buffers = new Map<string, Float64Array>();
+
+  /** A scratch array of `length` doubles; its contents are whatever the last user left. */
+  buffer(name: string, length: number): Float64Array {
+    const have = this.#buffers.get(name);
+    if (have && have.length >= length) return have.subarray(0, length);
+    const fresh = new Float64Array(length);
+    this.#buffers.set(name, fresh);
+    return fresh;
+  }
+}
+
+/**
  * Solves one circuit's DC operating point.
  *
  * Starts from the circuit's own guess (`guess`, node voltages), else from
@@ -359,6 +386,7 @@ export function solveDc(
   circuit: Circuit,
   guess?: Readonly<Record<string, number>>,
   settings: DcSettings = DEFAULT_DC_SETTINGS,
+  workspace: DcWorkspace = new DcWorkspace(),
 ): Result<OperatingPoint, DcFailure> {
   const cp = compile(circuit, settings.gminS);
   const jCount = cp.junctions.length + 2 * cp.transistors.length;
@@ -387,7 +415,7 @@ export function solveDc(
 
   // 1. Plain Newton.
   if (tries.has("newton")) {
-    run = newton(cp, st, cp.fixedVolts, 0, settings.maxIterations, true);
+    run = newton(cp, st, cp.fixedVolts, 0, settings.maxIterations, true, workspace);
     total += run.iterations;
     if (run.converged) return ok(result(circuit, cp, st, "newton", total));
   }
@@ -398,7 +426,7 @@ export function solveDc(
     let good = true;
     for (let g = 1e10 * settings.gminS, first = true; good; g /= 10, first = false) {
       const gs = g < settings.gminS * 0.5 ? 0 : g;
-      run = newton(cp, st, cp.fixedVolts, gs, settings.maxIterations, first);
+      run = newton(cp, st, cp.fixedVolts, gs, settings.maxIterations, first, workspace);
       total += run.iterations;
       good = run.converged;
       if (gs === 0) break;
@@ -416,7 +444,7 @@ export function solveDc(
     const next = Math.min(1, lambda + step);
     for (let k = 0; k < scaled.length; k++) scaled[k] = (cp.fixedVolts[k] as number) * next;
     const saved: NewtonState = { x: st.x.slice(), jv: st.jv.slice() };
-    run = newton(cp, st, scaled, 0, settings.maxIterations, false);
+    run = newton(cp, st, scaled, 0, settings.maxIterations, false, workspace);
     total += run.iterations;
     if (run.converged) {
       lambda = next;

@@ -3,7 +3,7 @@
  * the budget, the trim and the tolerance corners repeat.
  */
 import { buildCircuit, type Circuit } from "./circuit.ts";
-import { solveDc, type OperatingPoint } from "./dcSolver.ts";
+import { DcWorkspace, DEFAULT_DC_SETTINGS, solveDc, type OperatingPoint } from "./dcSolver.ts";
 import type { DecodeSpec } from "./decodeSpec.ts";
 import type { DiodeMatrix } from "./matrix.ts";
 import type { ElectricalModel } from "./project.ts";
@@ -39,9 +39,10 @@ export function solveAllStates(
   trim?: ReadonlyMap<string, number>,
 ): Result<readonly StateSolution[], BudgetFailure> {
   const out: StateSolution[] = [];
+  const workspace = new DcWorkspace();
   for (let k = 0; k < matrix.states.length; k++) {
     const circuit = buildCircuit(spec, matrix, model, k, trim);
-    const op = solveDc(circuit, circuit.guess);
+    const op = solveDc(circuit, circuit.guess, DEFAULT_DC_SETTINGS, workspace);
     if (!op.ok) return fail({ kind: "no-convergence", state: op.error.state, during, message: `${during}: ${op.error.message}` });
     out.push({ circuit, op: op.value });
   }
