@@ -12,6 +12,7 @@ import {
   type Box,
   type Circle,
   type Label,
+  type Point,
   type Polygon,
   type Rect,
   type Segment,
@@ -27,10 +28,9 @@ export interface GlyphKey {
   readonly box: Box;
 }
 
-/** Height of a key, millimetres, for a cell drawn in a given width. */
-export function glyphKeyHeight(cell: Cell, widthMm: number): number {
-  if (cell.kind !== "custom") return SEG7_KEY_H;
-  return customLayout(cell, widthMm).height;
+/** Height of a key, millimetres, for a cell drawn in a given width at a scale. */
+export function glyphKeyHeight(cell: Cell, widthMm: number, scale = 1): number {
+  return scale * (cell.kind === "custom" ? customLayout(cell, widthMm / scale).height : SEG7_KEY_H);
 }
 
 const SEG7_KEY_H = 14;
@@ -40,9 +40,11 @@ const NAME_SIZE = 1.8;
  * Draws the key centred on `cx`, with its top at `top`.
  *
  * @param widthMm the width the key may use (the group's columns)
+ * @param scale size relative to the plain key (the drawing's scale)
  */
-export function glyphKey(cell: Cell, cx: number, top: number, widthMm: number): GlyphKey {
-  const k = cell.kind === "custom" ? customKey(cell, cx, top, widthMm) : seg7Key(cell.kind === "seg7dp", cx, top);
+export function glyphKey(cell: Cell, cx: number, top: number, widthMm: number, scale = 1): GlyphKey {
+  const plain = cell.kind === "custom" ? customKey(cell, 0, 0, widthMm / scale) : seg7Key(cell.kind === "seg7dp", 0, 0);
+  const k = scaled(plain, cx, top, scale);
   const corners = [
     ...k.segments.flatMap((s) => [s.a, s.b]),
     ...k.rects.flatMap((r) => [
@@ -59,6 +61,21 @@ export function glyphKey(cell: Cell, cx: number, top: number, widthMm: number): 
     ]),
   ];
   return { ...k, box: boundingBox(corners) };
+}
+
+/** Moves a key drawn at the origin to (cx, top) and scales it about that point. */
+function scaled(k: Omit<GlyphKey, "box">, cx: number, top: number, scale: number): Omit<GlyphKey, "box"> {
+  const at = (p: Point): Point => ({ x: cx + p.x * scale, y: top + p.y * scale });
+  return {
+    segments: k.segments.map((s) => ({ ...s, a: at(s.a), b: at(s.b), width: s.width * scale })),
+    polygons: k.polygons.map((p) => ({ ...p, points: p.points.map(at), width: p.width * scale })),
+    rects: k.rects.map((r) => {
+      const corner = at({ x: r.box.x, y: r.box.y });
+      return { ...r, box: { x: corner.x, y: corner.y, w: r.box.w * scale, h: r.box.h * scale } };
+    }),
+    circles: k.circles.map((c) => ({ ...c, at: at(c.at), r: c.r * scale })),
+    labels: k.labels.map((l) => label(l.text, at(l.at), l.size * scale, l.role, { anchor: l.anchor, rotate: l.rotate, bold: l.bold })),
+  };
 }
 
 function seg7Key(dp: boolean, cx: number, top: number): Omit<GlyphKey, "box"> {

@@ -235,7 +235,7 @@ function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, m: M
   // sheet edge is narrower, and a key that then grows taller is left out.
   const groupSizes = new Map<string, number>();
   for (const c of columns) if (c.kind === "output") groupSizes.set(c.group, (groupSizes.get(c.group) ?? 0) + 1);
-  const keyH = Math.max(0, ...[...groupSizes.values()].map((n) => glyphKeyHeight(spec.cell, n * pitchX - 1.6)));
+  const keyH = Math.max(0, ...[...groupSizes.values()].map((n) => glyphKeyHeight(spec.cell, n * pitchX - 1.6, m.scale)));
   return { rows, columns, pitchX, wires, diodes, dots, rotateHeads, keyH, m };
 }
 
@@ -640,7 +640,7 @@ function layoutSheet(
     segments.push({ a: { x: x0, y: bracketY + 1 }, b: { x: x0, y: bracketY }, width: STROKE.thin });
     segments.push({ a: { x: x0, y: bracketY }, b: { x: x1, y: bracketY }, width: STROKE.thin });
     segments.push({ a: { x: x1, y: bracketY }, b: { x: x1, y: bracketY + 1 }, width: STROKE.thin });
-    const k = glyphKey(spec.cell, cx, headTop + 3.5, x1 - x0);
+    const k = glyphKey(spec.cell, cx, headTop + 3.5, x1 - x0, m.scale);
     // A key wider than its group's columns would run into the next group's: leave it out.
     const fits =
       k.box.x >= x0 - 0.8 - 1e-9 && k.box.x + k.box.w <= x1 + 0.8 + 1e-9 && k.box.y + k.box.h <= headTop + 3.5 + grid.keyH + 1e-9;
