@@ -85,6 +85,22 @@ describe("diodeloom export", () => {
     expect(s0).toMatch(/\.end\s*$/i);
   });
 
+  it("writes the same bytes on every run", async () => {
+    const runs: Map<string, string>[] = [];
+    for (let i = 0; i < 2; i++) {
+      const dir = await mkdtemp(join(tmpdir(), "diodeloom-export-"));
+      dirs.push(dir);
+      expect(await main(["export", example("turntable-position"), "--out", dir, "--fast"], recordingIo().io)).toBe(0);
+      const names = [
+        ...(await readdir(dir)).filter((f) => f !== "spice"),
+        ...(await readdir(join(dir, "spice"))).map((f) => join("spice", f)),
+      ];
+      runs.push(new Map(await Promise.all(names.map(async (n): Promise<[string, string]> => [n, await readFile(join(dir, n), "utf8")]))));
+    }
+    expect([...runs[1]!.keys()].sort()).toEqual([...runs[0]!.keys()].sort());
+    for (const [name, text] of runs[0]!) expect(runs[1]!.get(name), name).toBe(text);
+  });
+
   it("writes Letter sheets with --paper letter", async () => {
     const dir = await mkdtemp(join(tmpdir(), "diodeloom-export-"));
     dirs.push(dir);
