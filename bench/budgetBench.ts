@@ -19,7 +19,13 @@ export const ALL_STATES_TARGET_MS = 200;
 function clockProject(): Project {
   const show = Array.from({ length: 60 }, (_, k) => String(k).padStart(2, "0"));
   const r = parseProject(
-    JSON.stringify({ schema: "diodeloom/project@1", title: "bench 00-59", counter: { states: 60 }, display: { positions: 2, cell: "seg7" }, show }),
+    JSON.stringify({
+      schema: "diodeloom/project@1",
+      title: "bench 00-59",
+      counter: { states: 60 },
+      display: { positions: 2, cell: "seg7" },
+      show,
+    }),
   );
   if (!r.ok) throw new Error(`bench project is invalid: ${JSON.stringify(r.error)}`);
   return r.value;
@@ -71,7 +77,17 @@ export async function runBudgetBench(log: (line: string) => void): Promise<void>
     if (!b.ok) log(`${mode}: ${b.error.message}`);
     log(
       row(
-        [m.value.method, m.value.count, nodes, iterations, first.toFixed(1), med.toFixed(1), med < ALL_STATES_TARGET_MS ? "met" : "MISSED", budgetMs.toFixed(0), methods],
+        [
+          m.value.method,
+          m.value.count,
+          nodes,
+          iterations,
+          first.toFixed(1),
+          med.toFixed(1),
+          med < ALL_STATES_TARGET_MS ? "met" : "MISSED",
+          budgetMs.toFixed(0),
+          methods,
+        ],
         widths,
       ),
     );

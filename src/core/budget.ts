@@ -392,19 +392,37 @@ function budgetWarnings(project: Project, b: Omit<Budget, "warnings">): BudgetWa
   for (const c of safetyCautions([e.supply.volts, e.supply.minVolts, e.supply.maxVolts])) w.push(c);
   for (const [ref, d] of Object.entries(b.diodes)) {
     if (d.maxCurrent > d.ratedCurrent) {
-      w.push({ level: "warn", code: "diode-current", message: `${ref} (${d.from} -> ${d.to}) carries ${ma(d.maxCurrent)}, over its ${ma(d.ratedCurrent)} rating` });
+      w.push({
+        level: "warn",
+        code: "diode-current",
+        message: `${ref} (${d.from} -> ${d.to}) carries ${ma(d.maxCurrent)}, over its ${ma(d.ratedCurrent)} rating`,
+      });
     }
     if (d.maxReverse > d.ratedReverse) {
-      w.push({ level: "warn", code: "diode-reverse", message: `${ref} (${d.from} -> ${d.to}) sees ${volts(d.maxReverse)} reverse, over its ${volts(d.ratedReverse)} rating` });
+      w.push({
+        level: "warn",
+        code: "diode-reverse",
+        message: `${ref} (${d.from} -> ${d.to}) sees ${volts(d.maxReverse)} reverse, over its ${volts(d.ratedReverse)} rating`,
+      });
     }
   }
   const hi = b.corners.high;
   const lo = b.corners.low;
   for (const [o, d] of Object.entries(b.drivers)) {
     const vce = Math.max(d.maxVce, hi.maxVce);
-    if (vce > d.ratedVce) w.push({ level: "warn", code: "driver-vce", message: `driver ${d.transistor} (${o}) sees up to ${volts(vce)} Vce, over its ${volts(d.ratedVce)} rating` });
+    if (vce > d.ratedVce)
+      w.push({
+        level: "warn",
+        code: "driver-vce",
+        message: `driver ${d.transistor} (${o}) sees up to ${volts(vce)} Vce, over its ${volts(d.ratedVce)} rating`,
+      });
     const p = Math.max(d.maxPower, hi.maxPower);
-    if (p > d.ratedPower) w.push({ level: "warn", code: "driver-power", message: `driver ${d.transistor} (${o}) dissipates up to ${(p * 1e3).toFixed(1)} mW, over its ${(d.ratedPower * 1e3).toFixed(0)} mW rating` });
+    if (p > d.ratedPower)
+      w.push({
+        level: "warn",
+        code: "driver-power",
+        message: `driver ${d.transistor} (${o}) dissipates up to ${(p * 1e3).toFixed(1)} mW, over its ${(d.ratedPower * 1e3).toFixed(0)} mW rating`,
+      });
     if (d.headroom <= 0) {
       w.push({
         level: "warn",
@@ -414,16 +432,25 @@ function budgetWarnings(project: Project, b: Omit<Budget, "warnings">): BudgetWa
     }
   }
   if (Object.keys(b.drivers).length > 0 && lo.minHeadroom <= 0 && Object.values(b.drivers).every((d) => d.headroom > 0)) {
-    w.push({ level: "warn", code: "corner-saturation", message: `at the low corner a driver saturates (collector ${volts(-lo.minHeadroom)} below its base); allow more supply headroom` });
+    w.push({
+      level: "warn",
+      code: "corner-saturation",
+      message: `at the low corner a driver saturates (collector ${volts(-lo.minHeadroom)} below its base); allow more supply headroom`,
+    });
   }
   const maxA = Math.max(0, ...Object.values(b.outputs).map((o) => o.max), hi.maxCurrent);
-  if (maxA > e.string.maxA) w.push({ level: "warn", code: "string-current", message: `a string carries up to ${ma(maxA)}, over its ${ma(e.string.maxA)} rating` });
+  if (maxA > e.string.maxA)
+    w.push({ level: "warn", code: "string-current", message: `a string carries up to ${ma(maxA)}, over its ${ma(e.string.maxA)} rating` });
   const windowLow = e.string.targetA * (1 - b.corners.windowPct / 100);
   for (const [o, r] of Object.entries(b.outputs)) {
     if (r.max > 0 && r.min < windowLow) {
       const t = b.trim.outputs[o];
       const fix = t ? `; the ${b.trim.series} trim (${t.ohms} Ω emitter resistor) brings it to ${ua(t.min)}-${ua(t.max)}` : "";
-      w.push({ level: "warn", code: "dim-segment", message: `${o} runs as low as ${ua(r.min)}, more than ${b.corners.windowPct} % under the ${ua(e.string.targetA)} target${fix}` });
+      w.push({
+        level: "warn",
+        code: "dim-segment",
+        message: `${o} runs as low as ${ua(r.min)}, more than ${b.corners.windowPct} % under the ${ua(e.string.targetA)} target${fix}`,
+      });
     }
   }
   if (!b.corners.meetsTarget) {
@@ -445,9 +472,12 @@ function budgetWarnings(project: Project, b: Omit<Budget, "warnings">): BudgetWa
   const sags = Object.entries(b.counterLines);
   if (sags.length > 0) {
     const [line, worst] = sags.reduce((a, c) => (c[1].sag > a[1].sag ? c : a));
-    w.push({ level: "info", code: "counter-sag", message: `the counter sags most in ${line}: ${volts(worst.sag)} below its high level while sourcing ${ua(worst.sourceCurrent)}` });
+    w.push({
+      level: "info",
+      code: "counter-sag",
+      message: `the counter sags most in ${line}: ${volts(worst.sag)} below its high level while sourcing ${ua(worst.sourceCurrent)}`,
+    });
   }
   const order: Record<WarningLevel, number> = { danger: 0, warn: 1, info: 2 };
   return w.sort((a, c) => order[a.level] - order[c.level]);
 }
-

@@ -34,7 +34,14 @@ export const JUNCTION_TEMPCO_V_PER_K = -0.002;
  *
  * @param n emission coefficient
  */
-export function siliconSaturationCurrent(isA: number, n: number, fromC: number, toC: number, egEv = SILICON_EG_EV, xti = SILICON_XTI): number {
+export function siliconSaturationCurrent(
+  isA: number,
+  n: number,
+  fromC: number,
+  toC: number,
+  egEv = SILICON_EG_EV,
+  xti = SILICON_XTI,
+): number {
   const ratio = (toC + ZERO_CELSIUS_K) / (fromC + ZERO_CELSIUS_K);
   return isA * Math.exp((ratio - 1) * (egEv / (n * thermalVoltage(toC))) + (xti / n) * Math.log(ratio));
 }
@@ -101,7 +108,12 @@ export function cornerConditions(e: ElectricalModel): readonly [CornerConditions
  *
  * @param outputs the driven outputs, to write their emitter resistors out
  */
-export function cornerModel(e: ElectricalModel, c: CornerConditions, outputs: readonly string[], trim?: ReadonlyMap<string, number>): ElectricalModel {
+export function cornerModel(
+  e: ElectricalModel,
+  c: CornerConditions,
+  outputs: readonly string[],
+  trim?: ReadonlyMap<string, number>,
+): ElectricalModel {
   const t0 = e.temperatureC;
   const emitterResistors: Record<string, number> = {};
   for (const o of outputs) emitterResistors[o] = emitterOhmsOf(e, o, trim) * c.emitterFactor;

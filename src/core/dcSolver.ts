@@ -31,7 +31,11 @@ export interface DcSettings {
 
 export type DcMethod = "newton" | "gmin-stepping" | "source-stepping";
 
-export const DEFAULT_DC_SETTINGS: DcSettings = { gminS: DEFAULT_GMIN_S, maxIterations: 150, methods: ["newton", "gmin-stepping", "source-stepping"] };
+export const DEFAULT_DC_SETTINGS: DcSettings = {
+  gminS: DEFAULT_GMIN_S,
+  maxIterations: 150,
+  methods: ["newton", "gmin-stepping", "source-stepping"],
+};
 
 export interface TransistorCurrents {
   /** Into the collector, amperes. */
@@ -160,7 +164,15 @@ function compile(circuit: Circuit, gminS: number): Compiled {
           conductances.push({ a: anode, b: j, g: 1 / el.rsOhms, name: "" });
           anode = j;
         }
-        junctions.push({ a: anode, k: ref(el.cathode), isA: el.isA, nVtV: nVt, gminS, vcritV: criticalVoltage(el.isA, nVt), name: el.name });
+        junctions.push({
+          a: anode,
+          k: ref(el.cathode),
+          isA: el.isA,
+          nVtV: nVt,
+          gminS,
+          vcritV: criticalVoltage(el.isA, nVt),
+          name: el.name,
+        });
         break;
       }
       case "string": {

@@ -30,7 +30,8 @@ describe("diodeloom budget", () => {
     expect(r.code).toBe(0);
     const b = JSON.parse(r.stdout) as Record<string, unknown>;
     expect(b["schema"]).toBe("diodeloom/budget@1");
-    for (const k of ["states", "outputs", "diodes", "supply", "warnings", "trim", "corners", "drivers", "counterLines"]) expect(b).toHaveProperty(k);
+    for (const k of ["states", "outputs", "diodes", "supply", "warnings", "trim", "corners", "drivers", "counterLines"])
+      expect(b).toHaveProperty(k);
     const warnings = b["warnings"] as { level: string; code: string }[];
     expect(warnings.filter((w) => w.level === "danger").map((w) => w.code)).toEqual(["hazardous-voltage", "mains-supply"]);
   });
@@ -38,7 +39,18 @@ describe("diodeloom budget", () => {
   it("prints a readable report with every section, and takes --series E96", async () => {
     const r = await run(["budget", "public/examples/die-roller.json", "--direct", "--series", "E96"]);
     expect(r.code).toBe(0);
-    for (const s of ["Warnings", "DANGER hazardous-voltage", "String current per state", "Outputs", "Diodes", "Counter lines", "Drivers", "Supply:", "Tolerance corners", "E96"]) {
+    for (const s of [
+      "Warnings",
+      "DANGER hazardous-voltage",
+      "String current per state",
+      "Outputs",
+      "Diodes",
+      "Counter lines",
+      "Drivers",
+      "Supply:",
+      "Tolerance corners",
+      "E96",
+    ]) {
       expect(r.stdout).toContain(s);
     }
   });

@@ -69,7 +69,13 @@ function kclResiduals(c: Circuit, op: OperatingPoint): Map<string, { sum: number
         break;
       }
       case "npn": {
-        const p = npnTransport(v(el.base) - v(el.emitter), v(el.base) - v(el.collector), { isA: el.isA, betaF: el.betaF, betaR: el.betaR }, vt, DEFAULT_GMIN_S);
+        const p = npnTransport(
+          v(el.base) - v(el.emitter),
+          v(el.base) - v(el.collector),
+          { isA: el.isA, betaF: el.betaF, betaR: el.betaR },
+          vt,
+          DEFAULT_GMIN_S,
+        );
         leave(el.collector, p.icA + DEFAULT_GMIN_S * v(el.collector));
         leave(el.base, p.ibA);
         leave(el.emitter, -(p.icA + p.ibA));
@@ -104,7 +110,8 @@ function sharedEdges(spec: DecodeSpec, pick: number, link: boolean): Edge[] {
         const lp = litBy(p);
         const fromStatesOnly = (x: string): boolean => edges.filter((e) => e.to === x).every((e) => spec.states.includes(e.from));
         const drivesNothing = (x: string): boolean => !edges.some((e) => e.from === x);
-        if (!lo.every((st) => lp.includes(st)) || !fromStatesOnly(o) || !fromStatesOnly(p) || !drivesNothing(o) || !drivesNothing(p)) continue;
+        if (!lo.every((st) => lp.includes(st)) || !fromStatesOnly(o) || !fromStatesOnly(p) || !drivesNothing(o) || !drivesNothing(p))
+          continue;
         edges = edges.filter((e) => !(lo.includes(e.from) && e.to === p));
         edges.push({ from: o, to: p });
         return edges;
@@ -193,7 +200,9 @@ describe("Kirchhoff's current law", () => {
           const fixed = new Set(c.elements.flatMap((e) => (e.kind === "vsource" ? [e.node] : [])));
           for (const [node, r] of kclResiduals(c, op.value)) {
             if (node === "0" || fixed.has(node)) continue;
-            expect(Math.abs(r.sum), `state ${spec.states[k]} node ${node}: ${r.sum} A of ${r.scale} A`).toBeLessThanOrEqual(1e-9 + 1e-6 * r.scale);
+            expect(Math.abs(r.sum), `state ${spec.states[k]} node ${node}: ${r.sum} A of ${r.scale} A`).toBeLessThanOrEqual(
+              1e-9 + 1e-6 * r.scale,
+            );
           }
         }
       }),

@@ -54,7 +54,10 @@ function runNgspice(deck: string, probes: readonly string[], file: string): Map<
   const copy = deck.replace(/^\.end$/m, [...control, ".end"].join("\n"));
   const path = join(dir, file);
   writeFileSync(path, copy);
-  const out = execFileSync(existsSync(NGSPICE) ? NGSPICE : "ngspice", ["-b", path], { encoding: "utf8", stdio: ["ignore", "pipe", "pipe"] });
+  const out = execFileSync(existsSync(NGSPICE) ? NGSPICE : "ngspice", ["-b", path], {
+    encoding: "utf8",
+    stdio: ["ignore", "pipe", "pipe"],
+  });
   const values = new Map<string, number>();
   for (const m of out.matchAll(/^\s*(\S+) = (\S+)\s*$/gm)) values.set((m[1] as string).toLowerCase(), Number(m[2]));
   return values;

@@ -55,7 +55,8 @@ const V = (v: number): string => v.toFixed(2);
 
 function table(head: readonly string[], rows: readonly (readonly string[])[]): string[] {
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? "").length)));
-  const line = (r: readonly string[]): string => "  " + r.map((c, i) => (i === 0 ? c.padEnd(widths[i] ?? 0) : c.padStart(widths[i] ?? 0))).join("  ");
+  const line = (r: readonly string[]): string =>
+    "  " + r.map((c, i) => (i === 0 ? c.padEnd(widths[i] ?? 0) : c.padStart(widths[i] ?? 0))).join("  ");
   return [line(head), ...rows.map(line)];
 }
 
@@ -137,7 +138,14 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
   L.push(
     ...table(
       ["Output", "Q", "Re", "Vce max V", "P max mW", "Headroom V"],
-      Object.entries(b.drivers).map(([o, d]) => [o, d.transistor, formatOhms(d.emitterOhms), V(d.maxVce), (d.maxPower * 1e3).toFixed(2), V(d.headroom)]),
+      Object.entries(b.drivers).map(([o, d]) => [
+        o,
+        d.transistor,
+        formatOhms(d.emitterOhms),
+        V(d.maxVce),
+        (d.maxPower * 1e3).toFixed(2),
+        V(d.headroom),
+      ]),
     ),
   );
   L.push("");

@@ -32,7 +32,9 @@ describe("solveBudget", () => {
     expect(s0?.outputs["1c"]?.baseVoltage).toBeGreaterThan(1.5);
     const text = JSON.stringify(b);
     expect(text).not.toMatch(/null|NaN|Infinity/);
-    expect(Object.keys(JSON.parse(text) as object)).toEqual(expect.arrayContaining(["states", "outputs", "diodes", "supply", "warnings", "trim", "corners", "drivers", "counterLines"]));
+    expect(Object.keys(JSON.parse(text) as object)).toEqual(
+      expect.arrayContaining(["states", "outputs", "diodes", "supply", "warnings", "trim", "corners", "drivers", "counterLines"]),
+    );
   });
 
   it("shows the dimming of a second diode drop, and the trim taking it out", () => {
@@ -112,7 +114,10 @@ describe("solveBudget", () => {
 
   it("meets its target when nothing varies, and says so over the corners", () => {
     const fixed = showing(["1", "7"], 1, {
-      electrical: { supply: { volts: 100, minVolts: 100, maxVolts: 100 }, tolerance: { resistorPct: 0, betaMin: 150, betaMax: 150, temperatureC: [27, 27] } },
+      electrical: {
+        supply: { volts: 100, minVolts: 100, maxVolts: 100 },
+        tolerance: { resistorPct: 0, betaMin: 150, betaMax: 150, temperatureC: [27, 27] },
+      },
     });
     const fb = budgetOf(directDesign("fixed", fixed));
     expect(fb.corners.meetsTarget).toBe(true);

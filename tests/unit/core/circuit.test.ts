@@ -62,7 +62,14 @@ describe("buildCircuit", () => {
     const groups = countParts(p, compileSpec(p), d.matrix);
     const names = new Set(c.elements.map((e) => e.name));
     for (const g of groups) {
-      if (g.kind === "display" || g.kind === "transistor" || g.kind === "emitter-resistor" || g.kind === "pull-down" || g.kind === "tie-on-resistor" || g.kind === "diode") {
+      if (
+        g.kind === "display" ||
+        g.kind === "transistor" ||
+        g.kind === "emitter-resistor" ||
+        g.kind === "pull-down" ||
+        g.kind === "tie-on-resistor" ||
+        g.kind === "diode"
+      ) {
         for (const r of g.refs) expect(names.has(r), `${g.kind} ${r}`).toBe(true);
       }
     }

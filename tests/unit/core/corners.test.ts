@@ -23,8 +23,12 @@ describe("tolerance corners", () => {
   it("push every value the way that lowers (low) or raises (high) a string current", () => {
     const e = ELECTRICAL_DEFAULTS;
     const [low, high] = cornerConditions(e);
-    expect([low.supplyV, low.temperatureC, low.betaF, low.emitterFactor, low.pullDownFactor, low.counterFactor]).toEqual([90, 0, 80, 1.05, 0.95, 1.05]);
-    expect([high.supplyV, high.temperatureC, high.betaF, high.emitterFactor, high.pullDownFactor, high.counterFactor]).toEqual([110, 50, 300, 0.95, 1.05, 0.95]);
+    expect([low.supplyV, low.temperatureC, low.betaF, low.emitterFactor, low.pullDownFactor, low.counterFactor]).toEqual([
+      90, 0, 80, 1.05, 0.95, 1.05,
+    ]);
+    expect([high.supplyV, high.temperatureC, high.betaF, high.emitterFactor, high.pullDownFactor, high.counterFactor]).toEqual([
+      110, 50, 300, 0.95, 1.05, 0.95,
+    ]);
     const m = cornerModel(e, low, ["1a", "1b"], new Map([["1a", 9100]]));
     expect(m.driver.emitterResistors).toEqual({ "1a": 9100 * 1.05, "1b": 10_000 * 1.05 });
     expect(m.supply.volts).toBe(90);

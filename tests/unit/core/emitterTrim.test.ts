@@ -8,7 +8,14 @@ describe("emitter trim", () => {
   it("computes spreads as 100 (max - min) / max", () => {
     expect(spreadPct(90, 100)).toBeCloseTo(10, 12);
     expect(spreadPct(0, 0)).toBe(0);
-    expect(overallSpread(new Map([["a", { min: 80, max: 100, spreadPct: 20 }], ["b", { min: 95, max: 120, spreadPct: 0 }]]))).toBeCloseTo((100 * 40) / 120, 12);
+    expect(
+      overallSpread(
+        new Map([
+          ["a", { min: 80, max: 100, spreadPct: 20 }],
+          ["b", { min: 95, max: 120, spreadPct: 0 }],
+        ]),
+      ),
+    ).toBeCloseTo((100 * 40) / 120, 12);
   });
 
   it("picks one of the two preferred values around the ideal, the one centred nearer the target", () => {

@@ -27,7 +27,9 @@ describe("electrical bad input", () => {
   });
 
   it("rejects zero dies", () => {
-    expect(problems({ string: { dies: 0 } })).toEqual([{ path: "electrical.string.dies", message: "must be a whole number from 1 to 200" }]);
+    expect(problems({ string: { dies: 0 } })).toEqual([
+      { path: "electrical.string.dies", message: "must be a whole number from 1 to 200" },
+    ]);
     expect(problems({ string: { dies: 2.5 } })[0]?.path).toBe("electrical.string.dies");
   });
 
