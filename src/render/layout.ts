@@ -456,11 +456,17 @@ function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, co
     const more = links.length > shown.length ? ` and ${links.length - shown.length} more (see the wiring list)` : "";
     notes.push(`Links, output to output: ${shown.join(", ")}${more}; a link row taps its source column at the dot.`);
   }
-  if (spec.tiedOn.length > 0) notes.push(`Lit in every state, no diodes: ${spec.tiedOn.join(", ")} (base held high, see the BOM).`);
-  if (spec.neverLit.length > 0) notes.push(`Never lit, not wired: ${spec.neverLit.join(", ")}.`);
+  if (spec.tiedOn.length > 0) notes.push(`Lit in every state, no diodes: ${someOf(spec.tiedOn)} (base held high, see the BOM).`);
+  if (spec.neverLit.length > 0) notes.push(`Never lit, not wired: ${someOf(spec.neverLit)}.`);
   if (continued) notes.push("An arrowhead with sh.N marks a line continued on sheet N.");
   notes.push("Fit the diodes in the order of the wiring list, row by row, ticking each one.");
   return notes;
+}
+
+/** A list for a note: the first dozen names, then how many more. */
+function someOf(names: readonly string[]): string {
+  const shown = names.slice(0, 12).join(", ");
+  return names.length > 12 ? `${shown} and ${names.length - 12} more` : shown;
 }
 
 interface Neighbours {
