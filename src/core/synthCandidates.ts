@@ -35,7 +35,7 @@ export interface FamilyLimits {
   readonly maxInputs: number;
 }
 
-export const DEFAULT_FAMILY_LIMITS: FamilyLimits = { maxBuses: 4000, maxInputs: 24000 };
+export const DEFAULT_FAMILY_LIMITS: FamilyLimits = { maxBuses: 1500, maxInputs: 5000 };
 
 /**
  * Enumerates bus shapes by depth-first search over outputs, shrinking Smax as
@@ -113,4 +113,9 @@ function withExtra(p: SharingProblem, found: BusCandidate[], extra: readonly (re
     out.push({ outputs: [...t], states: s });
   }
   return out;
+}
+
+/** A family of the given output sets only (each with all its states); never complete. */
+export function familyFromShapes(p: SharingProblem, shapes: readonly (readonly number[])[]): CandidateFamily {
+  return { buses: withExtra(p, [], shapes), complete: false };
 }

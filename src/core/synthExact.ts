@@ -9,8 +9,8 @@
  * after it has aborted once. A solver that throws or aborts is a typed
  * outcome: the caller keeps the heuristic's matrix.
  */
-import { candidateFamily, type FamilyLimits, DEFAULT_FAMILY_LIMITS } from "./synthCandidates.ts";
-import { trivialLowerBound } from "./synthBounds.ts";
+import { candidateFamily, DEFAULT_FAMILY_LIMITS, familyFromShapes, type FamilyLimits } from "./synthCandidates.ts";
+import { lpLowerBound, trivialLowerBound } from "./synthBounds.ts";
 import { buildSharingModel } from "./synthModel.ts";
 import { planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./synthPlan.ts";
 
@@ -23,7 +23,7 @@ export interface HighsModelLike {
   setSolution(solution: { readonly colValue: Float64Array }): unknown;
   run(): unknown;
   getModelStatus(): number;
-  getSolution(): { readonly colValue: Float64Array };
+  getSolution(): { readonly colValue: Float64Array; readonly rowDual: Float64Array };
   dispose(): void;
 }
 
@@ -79,15 +79,31 @@ const PRIMAL_FEASIBLE = 2;
  * combinatorial bound of synthBounds.ts is claimed there.
  */
 export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: SharingPlan, opts: ExactOptions): Promise<ExactOutcome> {
-  const family = candidateFamily(
-    p,
-    rules.depth === "mixed" ? 2 : 1,
-    opts.familyLimits ?? DEFAULT_FAMILY_LIMITS,
-    warm.buses.filter((b) => b.states.length >= 2).map((b) => b.outputs),
-  );
-  const model = buildSharingModel(p, rules, family);
+  const started = Date.now();
+  const warmShapes = warm.buses.filter((b) => b.states.length >= 2).map((b) => b.outputs);
+  const minOutputs = rules.depth === "mixed" ? 2 : 1;
+  let family = candidateFamily(p, minOutputs, opts.familyLimits ?? DEFAULT_FAMILY_LIMITS, warmShapes);
   const floor = trivialLowerBound(p);
   const warmCount = planCount(warm);
+
+  // Too big for the full model: bound by the LP relaxation (column
+  // generation, valid at depth 2), then solve the MILP over the bus shapes
+  // the pricing found plus the heuristic's ("price and branch").
+  let lpBound: number | null = null;
+  if (!family.complete && rules.maxDepth <= 2) {
+    try {
+      const lpHighs = await opts.loadHighs();
+      const lp = lpLowerBound(p, rules, {
+        solveLp: (text) => lpHighs.createModel({ format: "lp", data: text }),
+        timeLimitMs: opts.timeLimitMs * 0.5,
+      });
+      lpBound = lp.bound;
+      family = familyFromShapes(p, [...warmShapes, ...lp.shapes]);
+    } catch {
+      // A failed LP leaves the truncated family and the combinatorial bound.
+    }
+  }
+  const model = buildSharingModel(p, rules, family);
   const boundIsGlobal = family.complete && rules.maxDepth <= 2;
   const base = { columns: model.columns.length, complete: family.complete };
 
@@ -97,7 +113,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     highsModel = highs.createModel({ format: "lp", data: model.text });
     highsModel.options.set({
       output_flag: false,
-      time_limit: Math.max(0.01, opts.timeLimitMs / 1000),
+      time_limit: Math.max(0.01, (opts.timeLimitMs - (Date.now() - started)) / 1000),
       random_seed: opts.seed,
       mip_rel_gap: 0,
       mip_abs_gap: 1e-6,
@@ -126,6 +142,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     const count = planCount(plan);
     let lowerBound = floor;
     if (boundIsGlobal && Number.isFinite(dual)) lowerBound = Math.max(floor, Math.ceil(dual - model.maxTieWeight - 1e-6));
+    if (lpBound !== null) lowerBound = Math.max(lowerBound, lpBound);
     lowerBound = Math.min(lowerBound, count);
     return { ...base, plan, lowerBound, status: status === STATUS_OPTIMAL ? "optimal" : "time-limit" };
   } catch (e) {
