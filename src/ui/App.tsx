@@ -36,8 +36,10 @@ export function App() {
   });
   return (
     <div class="app" data-ready={app.ready() ? "yes" : "no"}>
-      <Toolbar paper={app.paper()} onPaper={app.setPaper} exportKinds={EXPORTS} />
-      <ResultBar />
+      <div class="topbar">
+        <Toolbar paper={app.paper()} onPaper={app.setPaper} exportKinds={EXPORTS} />
+        <ResultBar />
+      </div>
       <NoticeBox />
       <CautionBanner />
       <main class="workspace">

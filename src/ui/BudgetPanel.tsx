@@ -90,7 +90,7 @@ export function BudgetPanel() {
                       </>
                     )}
                   </For>
-                  <text class="chart-label" x={c().plotX1 + 4} y={c().height - 3}>
+                  <text class="chart-label" x={c().plotX0 - 4} y={c().height - 3} text-anchor="end">
                     µA
                   </text>
                 </svg>

@@ -1,0 +1,343 @@
+/**
+ * The web app in a real browser: Vite dev server + Debian chromium.
+ *
+ * One browser context runs the cases in order, like a person would: load the
+ * demo, edit, open a bad file, reload, undo and redo, export, print. The
+ * counts the page shows are checked against the core run in Node on the
+ * project the page saves, so the screen cannot drift from the pipeline.
+ */
+import { readFileSync } from "node:fs";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
+import { compileSpec } from "../../src/core/decodeSpec.ts";
+import { parseProject } from "../../src/core/projectSchema.ts";
+import { synthesize, synthSettings } from "../../src/core/synthesize.ts";
+import { startApp, type AppHarness } from "./appBrowser.ts";
+
+let app: AppHarness;
+let context: BrowserContext;
+let page: Page;
+const consoleErrors: string[] = [];
+
+function watch(p: Page): void {
+  p.on("console", (m) => {
+    if (m.type() === "error") consoleErrors.push(`${m.type()}: ${m.text()}`);
+  });
+  p.on("pageerror", (e) => consoleErrors.push(`pageerror: ${e.message}`));
+}
+
+async function shownCount(p: Page = page): Promise<number> {
+  const text = (await p.getByTestId("diode-count").textContent()) ?? "";
+  const m = /(\d+)/.exec(text);
+  if (!m) throw new Error(`no count in "${text}"`);
+  return Number(m[1]);
+}
+
+async function drawingMarkup(p: Page = page): Promise<string> {
+  return p.getByTestId("matrix-drawing").evaluate((svg) => svg.outerHTML);
+}
+
+/** Saves the project through the Save button and returns the file's text. */
+async function savedProject(p: Page = page): Promise<string> {
+  const [download] = await Promise.all([p.waitForEvent("download"), p.getByTestId("save").click()]);
+  return readFileSync(await download.path(), "utf8");
+}
+
+/** The heuristic count the core gives in Node for a project text. */
+async function coreFastCount(text: string): Promise<number> {
+  const r = parseProject(text);
+  if (!r.ok) throw new Error(`the saved project does not parse: ${JSON.stringify(r.error)}`);
+  const m = await synthesize(compileSpec(r.value), synthSettings(r.value, { mode: "fast" }));
+  if (!m.ok) throw new Error(m.error.message);
+  return m.value.count;
+}
+
+async function waitReady(p: Page = page): Promise<void> {
+  await p.waitForSelector('[data-ready="yes"]', { timeout: 20_000 });
+}
+
+async function exactOff(p: Page = page): Promise<void> {
+  const box = p.getByTestId("exact-toggle");
+  if (await box.isChecked()) await box.uncheck();
+}
+
+beforeAll(async () => {
+  app = await startApp();
+  context = await app.browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
+  page = await context.newPage();
+  watch(page);
+});
+
+afterAll(async () => {
+  await app?.close();
+});
+
+describe("the web app", () => {
+  it("loads the demo with a verified count and a drawing", async () => {
+    await page.goto(app.url);
+    await waitReady();
+    await expect.poll(() => page.locator("#f-title").inputValue()).toMatch(/hex monitor/);
+    await exactOff();
+    const count = await shownCount();
+    expect(count).toBe(await coreFastCount(await savedProject()));
+    expect(await page.getByText("✓ verified").count()).toBe(1);
+    expect(await page.getByTestId("matrix-drawing").evaluate((e) => e.tagName.toLowerCase())).toBe("svg");
+    expect(await page.getByTestId("caution").textContent()).toMatch(/hazardous voltage/i);
+  });
+
+  it("changes one state's text: the count and the drawing change and still verify", async () => {
+    const before = await shownCount();
+    const drawing = await drawingMarkup();
+    await page.getByTestId("state-text-1").fill("8");
+    await expect.poll(() => shownCount()).not.toBe(before);
+    expect(await drawingMarkup()).not.toBe(drawing);
+    expect(await page.getByText("✓ verified").count()).toBe(1);
+    expect(await page.getByTestId("stale").count()).toBe(0);
+    const saved = await savedProject();
+    expect(JSON.parse(saved).show[1]).toBe("8");
+    expect(await shownCount()).toBe(await coreFastCount(saved));
+  });
+
+  it("marks the result stale while the project is invalid", async () => {
+    await page.getByTestId("state-text-2").fill("22");
+    await expect.poll(() => page.getByTestId("stale").count()).toBe(1);
+    expect(await page.getByTestId("problems").textContent()).toMatch(/show\[2\]/);
+    await page.getByTestId("state-text-2").fill("2");
+    await expect.poll(() => page.getByTestId("stale").count()).toBe(0);
+  });
+
+  it("toggles a glyph segment by pointer and by keyboard", async () => {
+    await page.locator('.char-chip[data-char="7"]').click();
+    const seg = page.locator('[data-testid="glyph-cell"] [data-segment="f"]');
+    await expect.poll(() => seg.getAttribute("class")).toMatch(/seg-off/);
+    const before = await shownCount();
+    await seg.click();
+    await expect.poll(() => seg.getAttribute("class")).toMatch(/seg-on/);
+    const saved = JSON.parse(await savedProject());
+    expect(saved.glyphs["7"]).toBe("abcf");
+    expect(await shownCount()).toBe(await coreFastCount(JSON.stringify(saved)));
+    expect(await shownCount()).toBeGreaterThanOrEqual(before);
+    // The same segment from the keyboard: focus it and press Space twice (off, then on again).
+    const button = page.locator('[data-testid="glyph-cell"] .seg-button', { has: page.locator('[data-segment="f"]') });
+    await button.focus();
+    await page.keyboard.press("Space");
+    await expect.poll(() => button.getAttribute("aria-checked")).toBe("false");
+    await page.keyboard.press("Enter");
+    await expect.poll(() => button.getAttribute("aria-checked")).toBe("true");
+  });
+
+  it("refuses an invalid file with path-naming errors and leaves the project unchanged", async () => {
+    const before = await savedProject();
+    const count = await shownCount();
+    const bad = JSON.stringify({ schema: "diodeloom/project@1", counter: { states: 1 }, display: { positions: 9 }, show: ["0"] });
+    await page.getByTestId("open-input").setInputFiles({ name: "broken.json", mimeType: "application/json", buffer: Buffer.from(bad) });
+    const notice = page.getByTestId("notice");
+    await expect.poll(() => notice.textContent()).toMatch(/broken\.json was not opened/);
+    const text = (await notice.textContent()) ?? "";
+    expect(text).toMatch(/broken\.json: counter\.states: must be a whole number from 2 to 256/);
+    expect(text).toMatch(/broken\.json: display\.positions:/);
+    expect(await savedProject()).toBe(before);
+    expect(await shownCount()).toBe(count);
+    await page.getByTestId("open-input").setInputFiles({ name: "junk.json", mimeType: "application/json", buffer: Buffer.from("{ nope") });
+    await expect.poll(() => notice.textContent()).toMatch(/junk\.json: not valid JSON/);
+    expect(await savedProject()).toBe(before);
+    await notice.getByRole("button", { name: "Dismiss message" }).click();
+  });
+
+  it("keeps the edits over a reload", async () => {
+    const before = await savedProject();
+    await page.reload();
+    await waitReady();
+    await exactOff();
+    expect(await page.getByTestId("state-text-1").inputValue()).toBe("8");
+    expect(await savedProject()).toBe(before);
+  });
+
+  it("undoes and redoes with the keyboard, but leaves text fields their own undo", async () => {
+    await page.getByTestId("state-text-3").fill("0");
+    await page.getByTestId("state-text-3").blur();
+    await page.locator("body").click({ position: { x: 5, y: 790 } });
+    await page.keyboard.press("Control+z");
+    await expect.poll(() => page.getByTestId("state-text-3").inputValue()).toBe("3");
+    await page.keyboard.press("Control+Shift+z");
+    await expect.poll(() => page.getByTestId("state-text-3").inputValue()).toBe("0");
+    await page.keyboard.press("Control+z");
+    await expect.poll(() => page.getByTestId("state-text-3").inputValue()).toBe("3");
+    await page.keyboard.press("Control+y");
+    await expect.poll(() => page.getByTestId("state-text-3").inputValue()).toBe("0");
+    // The buttons do the same.
+    await page.getByTestId("undo").click();
+    await expect.poll(() => page.getByTestId("state-text-3").inputValue()).toBe("3");
+    await page.getByTestId("redo").click();
+    await expect.poll(() => page.getByTestId("state-text-3").inputValue()).toBe("0");
+    // Inside a text field Ctrl+Z belongs to the field (the browser's own undo). Had the app taken
+    // it, its history would have stepped back over the title edit, and the one Undo click after
+    // would then also take back state 3's edit.
+    const title = await page.locator("#f-title").inputValue();
+    await page.locator("#f-title").focus();
+    await page.keyboard.press("End");
+    await page.keyboard.type("X");
+    await expect.poll(() => page.locator("#f-title").inputValue()).toBe(`${title}X`);
+    await page.keyboard.press("Control+z");
+    await expect.poll(() => page.locator("#f-title").inputValue()).toBe(title);
+    await page.locator("#f-title").blur();
+    await page.getByTestId("undo").click();
+    await expect.poll(() => page.locator("#f-title").inputValue()).toBe(title);
+    expect(await page.getByTestId("state-text-3").inputValue()).toBe("0");
+  });
+
+  it("downloads every export", async () => {
+    const buttons = page.locator('[data-testid^="export-"]');
+    const n = await buttons.count();
+    expect(n).toBeGreaterThan(0);
+    const names: string[] = [];
+    for (let i = 0; i < n; i++) {
+      const b = buttons.nth(i);
+      const kind = (await b.getAttribute("data-testid")) ?? "";
+      const downloads: Promise<void>[] = [];
+      if (!(await b.isVisible())) await page.getByTestId("exports-menu").click();
+      const onDownload = (d: import("playwright-core").Download) => {
+        downloads.push(
+          (async () => {
+            const name = d.suggestedFilename();
+            const bytes = readFileSync(await d.path());
+            const text = bytes.toString("utf8");
+            names.push(name);
+            expect(bytes.length, `${kind}: ${name} is empty`).toBeGreaterThan(0);
+            if (name.endsWith(".json")) expect(() => JSON.parse(text)).not.toThrow();
+            if (name.endsWith(".svg")) expect(text).toMatch(/<svg[\s>]/);
+            if (name.endsWith(".csv")) expect(text.split("\n").length).toBeGreaterThan(1);
+            if (name.endsWith(".html")) expect(text).toMatch(/<table/);
+            if (name.endsWith(".zip")) {
+              expect(bytes.readUInt32LE(0)).toBe(0x04034b50);
+              if (kind === "export-netlists") expect(text.match(/\.end\b/g)?.length).toBe(16);
+              if (kind === "export-svg") expect(text.match(/<svg[\s>]/g)?.length).toBeGreaterThan(1);
+            }
+          })(),
+        );
+      };
+      page.on("download", onDownload);
+      await b.click();
+      await page.waitForTimeout(kind === "export-budget" ? 1500 : 600);
+      page.off("download", onDownload);
+      await Promise.all(downloads);
+      expect(downloads.length, `${kind} downloaded nothing`).toBeGreaterThan(0);
+    }
+    console.log(`exports downloaded: ${names.join(", ")}`);
+  });
+
+  it("prints to PDF with the drawing on the page", async () => {
+    await page.emulateMedia({ media: "print" });
+    const box = await page.getByTestId("matrix-drawing").boundingBox();
+    expect(box && box.width > 100 && box.height > 100).toBe(true);
+    expect(await page.locator(".toolbar").isVisible()).toBe(false);
+    await page.emulateMedia({ media: "screen" });
+    const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
+    const text = pdf.toString("latin1");
+    expect(text.startsWith("%PDF")).toBe(true);
+    const pages = text.match(/\/Type\s*\/Page[^s]/g)?.length ?? 0;
+    expect(pages).toBeGreaterThanOrEqual(1);
+    // A4 landscape is 297 x 210 mm, 842 x 595 points.
+    const box0 = /\/MediaBox\s*\[\s*0\s+0\s+([\d.]+)\s+([\d.]+)\s*\]/.exec(text);
+    expect(Math.round(Number(box0?.[1]))).toBe(842);
+    expect(Math.round(Number(box0?.[2]))).toBe(595);
+  });
+
+  it("shares the project through the link in the hash", async () => {
+    await page.getByTestId("share").click();
+    await expect.poll(() => page.evaluate(() => location.hash)).toMatch(/^#p=[A-Za-z0-9_-]+$/);
+    const link = await page.evaluate(() => location.href);
+    const other = await context.browser()!.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
+    const p2 = await other.newPage();
+    watch(p2);
+    await p2.goto(link);
+    await waitReady(p2);
+    expect(await p2.getByTestId("state-text-1").inputValue()).toBe("8");
+    await exactOff(p2);
+    expect(await shownCount(p2)).toBe(await shownCount());
+    await other.close();
+    await page.evaluate(() => history.replaceState(null, "", location.pathname));
+  });
+
+  it("runs the exact optimizer in a worker, with a cancel button", async () => {
+    // A short limit keeps the run brief; the optimizer reports its bound when it stops.
+    await page.locator("#f-limit").fill("3");
+    await page.locator("#f-limit").press("Enter");
+    await page.getByTestId("exact-toggle").check();
+    await page.getByTestId("state-text-4").fill("9");
+    const status = page.getByTestId("exact-status");
+    await expect.poll(() => status.getAttribute("data-status"), { timeout: 20_000 }).toMatch(/running|done|failed/);
+    const early = await status.getAttribute("data-status");
+    expect(early === "failed" ? await status.textContent() : "ok").toBe("ok");
+    if ((await status.getAttribute("data-status")) === "running") {
+      await page.getByTestId("exact-cancel").click();
+      await expect.poll(() => status.getAttribute("data-status")).toBe("cancelled");
+      await status.getByRole("button", { name: "Run again" }).click();
+    }
+    await expect.poll(() => status.getAttribute("data-status"), { timeout: 40_000, interval: 250 }).toMatch(/done|failed/);
+    expect((await status.getAttribute("data-status")) === "done" ? "done" : await status.textContent()).toBe("done");
+    expect(await page.getByText("✓ verified").count()).toBe(1);
+    await exactOff();
+  });
+
+  it("shows each edit's result within the live target for N <= 24 (measured)", async () => {
+    const figures: string[] = [];
+    for (const [n, pattern, positions] of [
+      [10, "0-9", 1],
+      [16, "0-F", 1],
+      [24, "00-23", 2],
+    ] as const) {
+      await page.locator("#f-positions").fill(String(positions));
+      await page.locator("#f-positions").press("Enter");
+      await page.locator("#f-pattern").fill(pattern);
+      await page.locator("#f-pattern").press("Enter");
+      await expect.poll(() => page.locator(".state-list li").count()).toBe(n);
+      const samples: number[] = [];
+      const inApp: number[] = [];
+      for (let i = 0; i < 8; i++) {
+        const value = i % 2 === 0 ? (positions === 2 ? "88" : "8") : positions === 2 ? "01" : "1";
+        // Time from the input event to the count in the DOM, inside the page.
+        const ms = await page.evaluate(async (v) => {
+          const input = document.querySelector('[data-testid="state-text-1"]') as HTMLInputElement;
+          const hook = document.querySelector('[data-testid="live-ms"]');
+          const before = hook?.getAttribute("data-ms") + "|" + document.querySelector('[data-testid="diode-count"]')?.textContent;
+          const t0 = performance.now();
+          input.value = v;
+          input.dispatchEvent(new Event("input", { bubbles: true }));
+          for (;;) {
+            const now = document.querySelector('[data-testid="live-ms"]')?.getAttribute("data-ms") + "|" + document.querySelector('[data-testid="diode-count"]')?.textContent;
+            if (now !== before) return performance.now() - t0;
+            await new Promise((r) => setTimeout(r, 0));
+          }
+        }, value);
+        samples.push(ms);
+        inApp.push(Number(await page.getByTestId("live-ms").getAttribute("data-ms")));
+      }
+      samples.sort((a, b) => a - b);
+      inApp.sort((a, b) => a - b);
+      const median = samples[Math.floor(samples.length / 2)] ?? NaN;
+      const worst = samples[samples.length - 1] ?? NaN;
+      figures.push(`N=${n} (${pattern}): edit-to-result median ${median.toFixed(1)} ms, max ${worst.toFixed(1)} ms; in-app pipeline median ${(inApp[4] ?? NaN).toFixed(1)} ms`);
+      expect(await page.getByText("✓ verified").count()).toBe(1);
+    }
+    console.log(figures.join("\n"));
+  });
+
+  it("looks right at 1280x800 and 390x844 (screenshots for a person to look at)", async () => {
+    await page.setViewportSize({ width: 1280, height: 800 });
+    await page.screenshot({ path: "/tmp/diodeloom-app-1280x800.png" });
+    const phone = await context.browser()!.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 1 });
+    const p3 = await phone.newPage();
+    watch(p3);
+    await p3.goto(app.url);
+    await waitReady(p3);
+    await p3.screenshot({ path: "/tmp/diodeloom-app-390x844.png" });
+    const overflow = await p3.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow, "the page scrolls sideways on a phone").toBeLessThanOrEqual(0);
+    await phone.close();
+  });
+
+  it("logged no console errors", () => {
+    expect(consoleErrors).toEqual([]);
+  });
+});
