@@ -26,7 +26,7 @@ function paths(value: unknown, prefix: (string | number)[] = []): (string | numb
   return out;
 }
 
-function mutate(doc: Record<string, unknown>, m: fc.RecordValue<{ kind: string; pick: number; junk: unknown; cut: number }>): string {
+function mutate(doc: Record<string, unknown>, m: { kind: string; pick: number; junk: unknown; cut: number }): string {
   const text = JSON.stringify(doc);
   if (m.kind === "truncate") return text.slice(0, m.cut % text.length);
   if (m.kind === "garble") {
