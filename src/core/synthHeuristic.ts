@@ -119,14 +119,22 @@ function busCandidates(p: SharingProblem): number[][] {
 function coverForLevels(p: SharingProblem, rules: SharingRules, levels: readonly number[], cands: readonly number[][]): SharingPlan | null {
   // Greedy gains overrate a wide bus against several one-diode links, so try
   // both orders: best gain first, and links before buses.
-  const a = greedyCover(p, rules, levels, cands, false);
-  const b = greedyCover(p, rules, levels, cands, true);
-  if (a === null) return b;
-  if (b === null) return a;
-  return rank(b) < rank(a) ? b : a;
+  let best: SharingPlan | null = null;
+  for (const order of ORDERS) {
+    const plan = greedyCover(p, rules, levels, cands, order);
+    if (plan !== null && (best === null || rank(plan) < rank(best))) best = plan;
+  }
+  return best;
 }
 
-function greedyCover(p: SharingProblem, rules: SharingRules, levels: readonly number[], cands: readonly number[][], linksFirst: boolean): SharingPlan | null {
+/** Greedy orders: most diodes saved first; links before buses; best saving per diode placed first. */
+type GreedyOrder = "gain" | "links-first" | "ratio";
+const ORDERS: readonly GreedyOrder[] = ["gain", "links-first", "ratio"];
+
+function greedyCover(p: SharingProblem, rules: SharingRules, levels: readonly number[], cands: readonly number[][], order: GreedyOrder): SharingPlan | null {
+  const linksFirst = order === "links-first";
+  // Score of a structure that saves `gain` diodes by placing `cost`.
+  const score = order === "ratio" ? (gain: number, cost: number): number => (gain > 0 ? (gain + cost) / cost : 0) : (gain: number): number => gain;
   const { n, m } = p;
   const lvl = (o: number): number => levels[o] ?? 1;
   const directOk = Array.from({ length: m }, (_, o) => levelRules.direct(rules, lvl(o)));
@@ -134,7 +142,13 @@ function greedyCover(p: SharingProblem, rules: SharingRules, levels: readonly nu
   // Cost of leaving a cell to the end: direct 1, padding bus about 2, impossible 3.
   const weight = Array.from({ length: m }, (_, o) => (directOk[o] ? 1 : busOk[o] ? 2 : 3));
   const covered = new Uint8Array(n * m);
-  const need = (k: number, o: number): number => (p.lit[k]?.[o] && !covered[k * m + o] ? (weight[o] ?? 1) : 0);
+  // What leaving each cell uncovered would cost; zero once covered or unlit.
+  const needW = new Uint8Array(n * m);
+  for (let k = 0; k < n; k++) for (const o of p.row[k] ?? []) needW[k * m + o] = weight[o] ?? 1;
+  const cover = (k: number, o: number): void => {
+    covered[k * m + o] = 1;
+    needW[k * m + o] = 0;
+  };
 
   // Bus shapes restricted to the outputs a bus may feed; states that light all of them.
   const shapes: { t: number[]; s: number[] }[] = [];
@@ -165,40 +179,49 @@ function greedyCover(p: SharingProblem, rules: SharingRules, levels: readonly nu
     linkPairs.forEach((l, li) => {
       if (usedLink.has(li)) return;
       let g = -1;
-      for (const k of p.col[l.from] ?? []) g += need(k, l.to);
-      if (g > bestGain) {
-        bestGain = g;
+      for (const k of p.col[l.from] ?? []) g += needW[k * m + l.to] ?? 0;
+      const sc = score(g, 1);
+      if (sc > bestGain) {
+        bestGain = sc;
         pick = { link: l, li };
       }
     });
     if (linksFirst && pick !== null) bestGain = Infinity;
-    for (const { t, s } of shapes) {
+    let alive = 0;
+    for (const shape of shapes) {
+      const { t, s } = shape;
       let g = -t.length;
       const chosen: number[] = [];
       for (const k of s) {
         let gk = 0;
-        for (const o of t) gk += need(k, o);
+        const base = k * m;
+        for (const o of t) gk += needW[base + o] ?? 0;
         if (gk > 1) {
           g += gk - 1;
           chosen.push(k);
         }
       }
-      if (g > bestGain) {
-        bestGain = g;
+      // Covering only grows, so a shape that saves nothing now never will: drop it.
+      if (g <= 0) continue;
+      shapes[alive++] = shape;
+      const sc = score(g, chosen.length + t.length);
+      if (sc > bestGain) {
+        bestGain = sc;
         pick = { bus: { states: chosen, outputs: t } };
       }
     }
+    shapes.length = alive;
     if (pick === null) break;
     const chosenPick: { bus?: PlanBus; link?: PlanLink; li?: number } = pick;
     if (chosenPick.link && chosenPick.li !== undefined) {
       const l = chosenPick.link;
       usedLink.add(chosenPick.li);
       links.push(l);
-      for (const k of p.col[l.from] ?? []) covered[k * m + l.to] = 1;
+      for (const k of p.col[l.from] ?? []) cover(k, l.to);
     } else if (chosenPick.bus) {
       const b = chosenPick.bus;
       buses.push(b);
-      for (const k of b.states) for (const o of b.outputs) covered[k * m + o] = 1;
+      for (const k of b.states) for (const o of b.outputs) cover(k, o);
     }
   }
 
@@ -252,7 +275,16 @@ function prune(p: SharingProblem, plan: SharingPlan): SharingPlan {
       }
       return true;
     });
-    if (states.length > 0) buses.push({ states, outputs: b.outputs });
+    // An output whose cells in this bus are all covered elsewhere costs a diode for nothing.
+    const outputs = b.outputs.filter((o) => {
+      const cells = states.map((k) => k * m + o);
+      if (cells.every((c) => (cover[c] ?? 0) > 1)) {
+        for (const c of cells) cover[c]!--;
+        return false;
+      }
+      return true;
+    });
+    if (states.length > 0 && outputs.length > 0) buses.push({ states, outputs });
   }
   return { direct: plan.direct, buses, links };
 }
