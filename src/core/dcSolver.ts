@@ -12,8 +12,8 @@
  */
 import type { Circuit } from "./circuit.ts";
 import { GROUND } from "./circuit.ts";
-import { criticalVoltage, diodeJunction, limitJunction, npnTransport } from "./deviceModels.ts";
-import { solveInPlace } from "./linearSolve.ts";
+import { criticalVoltage, diodeConductance, diodeCurrent, diodeJunction, limitJunction, npnTransport } from "./deviceModels.ts";
+import { scratchLength, solveInPlace } from "./linearSolve.ts";
 import { thermalVoltage } from "./physics.ts";
 import { fail, ok, type Result } from "./result.ts";
 
@@ -231,6 +231,55 @@ interface NewtonRun {
 }
 
 /**
+ * Writes companion models into the nodal matrix `G` and right-hand side.
+ * A class rather than closures: the inner loops call these for every diode
+ * in every iteration.
+ */
+class Stamper {
+  constructor(
+    readonly G: Float64Array,
+    readonly rhs: Float64Array,
+    /** Sum of |current| meeting at each node, for the KCL tolerance. */
+    readonly scale: Float64Array,
+    readonly n: number,
+    readonly fixedV: Float64Array,
+  ) {}
+
+  /** Coefficient `coef` of node `col` in the KCL row of node `row`. */
+  entry(row: NodeRef, col: NodeRef, coef: number): void {
+    if (row < 0) return;
+    if (col >= 0) this.G[row * this.n + col] = (this.G[row * this.n + col] as number) + coef;
+    else this.rhs[row] = (this.rhs[row] as number) - coef * (this.fixedV[-col - 1] as number);
+  }
+
+  /** A companion current source leaving `row`, and the true current there for the KCL scale. */
+  inject(row: NodeRef, companionA: number, trueA: number): void {
+    if (row < 0) return;
+    this.rhs[row] = (this.rhs[row] as number) - companionA;
+    this.scale[row] = (this.scale[row] as number) + Math.abs(trueA);
+  }
+
+  conductance(a: NodeRef, b: NodeRef, g: number): void {
+    this.entry(a, a, g);
+    this.entry(a, b, -g);
+    this.entry(b, b, g);
+    this.entry(b, a, -g);
+  }
+
+  /**
+   * One NPN terminal whose current is i0 + dVbe (vb - ve - vbe) + dVbc (vb - vc - vbc)
+   * around the junction voltages (vbe, vbc) it was evaluated at.
+   */
+  terminal(row: NodeRef, t: Transistor, i0: number, dVbe: number, dVbc: number, vbe: number, vbc: number): void {
+    if (row < 0) return;
+    this.entry(row, t.b, dVbe + dVbc);
+    this.entry(row, t.e, -dVbe);
+    this.entry(row, t.c, -dVbc);
+    this.inject(row, i0 - dVbe * vbe - dVbc * vbc, i0);
+  }
+}
+
+/**
  * Runs Newton-Raphson from `st` (updated in place). Convergence needs a step
  * with no junction limited, a last update within 1e-9 relative + 1 nV, and
  * Kirchhoff's current law at every node within 1e-15 A + 1e-10 of the
@@ -252,25 +301,9 @@ function newton(
   const rhs = ws.buffer("rhs", n);
   const scale = ws.buffer("scale", n);
   const b = ws.buffer("b", n);
+  const lu = ws.ints("lu", scratchLength(n));
+  const sp = new Stamper(G, rhs, scale, n, fixedV);
   const volt = (r: NodeRef): number => (r >= 0 ? (x[r] as number) : (fixedV[-r - 1] as number));
-  const fv = (r: NodeRef): number => fixedV[-r - 1] as number;
-  const entry = (row: NodeRef, col: NodeRef, coef: number): void => {
-    if (row < 0) return;
-    if (col >= 0) G[row * n + col] = (G[row * n + col] as number) + coef;
-    else rhs[row] = (rhs[row] as number) - coef * fv(col);
-  };
-  /** A companion current source leaving `row`, and the true current there for the KCL scale. */
-  const inject = (row: NodeRef, companionA: number, trueA: number): void => {
-    if (row < 0) return;
-    rhs[row] = (rhs[row] as number) - companionA;
-    scale[row] = (scale[row] as number) + Math.abs(trueA);
-  };
-  const conductance = (a: NodeRef, b: NodeRef, g: number): void => {
-    entry(a, a, g);
-    entry(a, b, -g);
-    entry(b, b, g);
-    entry(b, a, -g);
-  };
   let stepSmall = false;
   let useStored = first;
   const nJ = cp.junctions.length;
@@ -281,7 +314,7 @@ function newton(
     let limited = false;
     for (let i = 0; i < n; i++) G[i * n + i] = gshuntS;
     for (const c of cp.conductances) {
-      conductance(c.a, c.b, c.g);
+      sp.conductance(c.a, c.b, c.g);
       const iA = Math.abs(c.g * (volt(c.a) - volt(c.b)));
       if (c.a >= 0) scale[c.a] = (scale[c.a] as number) + iA;
       if (c.b >= 0) scale[c.b] = (scale[c.b] as number) + iA;
@@ -295,14 +328,16 @@ function newton(
         v = l;
       }
       jv[j] = v;
-      const p = diodeJunction(v, d.isA, d.nVtV, d.gminS);
-      conductance(d.a, d.k, p.conductanceS);
+      const iA = diodeCurrent(v, d.isA, d.nVtV, d.gminS);
+      const gS = diodeConductance(v, d.isA, d.nVtV, d.gminS);
+      sp.conductance(d.a, d.k, gS);
       // Companion source: the part of the current the conductance does not carry.
-      const ieq = p.currentA - p.conductanceS * v;
-      inject(d.a, ieq, p.currentA);
-      inject(d.k, -ieq, p.currentA);
+      const ieq = iA - gS * v;
+      sp.inject(d.a, ieq, iA);
+      sp.inject(d.k, -ieq, iA);
     }
-    cp.transistors.forEach((t, q) => {
+    for (let q = 0; q < cp.transistors.length; q++) {
+      const t = cp.transistors[q] as Transistor;
       const slot = nJ + 2 * q;
       let vbe = useStored ? (jv[slot] as number) : volt(t.b) - volt(t.e);
       let vbc = useStored ? (jv[slot + 1] as number) : volt(t.b) - volt(t.c);
@@ -316,28 +351,15 @@ function newton(
       jv[slot] = vbe;
       jv[slot + 1] = vbc;
       const p = npnTransport(vbe, vbc, t.params, cp.vtV, cp.gminS);
-      const ic = p.icA;
-      const ib = p.ibA;
-      const icVbe = p.dIcVbe;
-      const icVbc = p.dIcVbc;
-      const ibVbe = p.dIbVbe;
-      const ibVbc = p.dIbVbc;
-      // Ic = ic + icVbe (vb - ve - vbe) + icVbc (vb - vc - vbc), likewise Ib; Ie = -(Ic + Ib) leaves e.
-      const terminal = (row: NodeRef, i0: number, dVbe: number, dVbc: number): void => {
-        if (row < 0) return;
-        entry(row, t.b, dVbe + dVbc);
-        entry(row, t.e, -dVbe);
-        entry(row, t.c, -dVbc);
-        inject(row, i0 - dVbe * vbe - dVbc * vbc, i0);
-      };
-      terminal(t.c, ic, icVbe, icVbc);
-      terminal(t.b, ib, ibVbe, ibVbc);
-      terminal(t.e, -(ic + ib), -(icVbe + ibVbe), -(icVbc + ibVbc));
-    });
+      // Ic and Ib enter c and b; Ie = -(Ic + Ib) leaves e.
+      sp.terminal(t.c, t, p.icA, p.dIcVbe, p.dIcVbc, vbe, vbc);
+      sp.terminal(t.b, t, p.ibA, p.dIbVbe, p.dIbVbc, vbe, vbc);
+      sp.terminal(t.e, t, -(p.icA + p.ibA), -(p.dIcVbe + p.dIbVbe), -(p.dIcVbc + p.dIbVbc), vbe, vbc);
+    }
     if (!useStored && !limited && stepSmall && kclHolds(G, rhs, x, scale, n)) return { converged: true, iterations: it };
     useStored = false;
     b.set(rhs);
-    if (!solveInPlace(G, b, n)) return { converged: false, iterations: it };
+    if (!solveInPlace(G, b, n, lu)) return { converged: false, iterations: it };
     stepSmall = true;
     for (let i = 0; i < n; i++) {
       const xi = x[i] as number;
@@ -372,6 +394,16 @@ function kclHolds(G: Float64Array, rhs: Float64Array, x: Float64Array, scale: Fl
  */
 export class DcWorkspace {
   readonly #buffers = new Map<string, Float64Array>();
+  readonly #ints = new Map<string, Int32Array>();
+
+  /** A scratch array of `length` integers, like `buffer`. */
+  ints(name: string, length: number): Int32Array {
+    const have = this.#ints.get(name);
+    if (have && have.length >= length) return have.subarray(0, length);
+    const fresh = new Int32Array(length);
+    this.#ints.set(name, fresh);
+    return fresh;
+  }
 
   /** A scratch array of `length` doubles; its contents are whatever the last user left. */
   buffer(name: string, length: number): Float64Array {

@@ -26,8 +26,17 @@ export interface JunctionPoint {
  * @param gminS parallel conductance, siemens (SPICE's GMIN)
  */
 export function diodeJunction(vV: number, isA: number, nVtV: number, gminS: number): JunctionPoint {
-  const e = Math.exp(vV / nVtV);
-  return { currentA: isA * (e - 1) + gminS * vV, conductanceS: (isA * e) / nVtV + gminS };
+  return { currentA: diodeCurrent(vV, isA, nVtV, gminS), conductanceS: diodeConductance(vV, isA, nVtV, gminS) };
+}
+
+/** The current of `diodeJunction` alone, amperes (no object: the solver's inner loop). */
+export function diodeCurrent(vV: number, isA: number, nVtV: number, gminS: number): number {
+  return isA * (Math.exp(vV / nVtV) - 1) + gminS * vV;
+}
+
+/** The conductance of `diodeJunction` alone, siemens. */
+export function diodeConductance(vV: number, isA: number, nVtV: number, gminS: number): number {
+  return (isA * Math.exp(vV / nVtV)) / nVtV + gminS;
 }
 
 /** Ebers-Moll transport parameters of an NPN (IS, BF, BR; NF = NR = 1). */

@@ -8,13 +8,26 @@
  * little and fill-in stays in the block of buses and output lines.
  */
 
+/** Length of the integer scratch `solveInPlace` needs for an n by n system. */
+export function scratchLength(n: number): number {
+  return n * n + 2 * n + 1;
+}
+
 /**
  * Solves `a x = b` in place: `a` (row-major n by n) and `b` are overwritten;
  * the solution is returned in `b`. Returns false for a singular matrix.
+ *
+ * @param scratch optional integer work space of `scratchLength(n)`, so that a
+ *   caller solving many systems allocates it once
  */
-export function solveInPlace(a: Float64Array, b: Float64Array, n: number): boolean {
-  const cols = new Int32Array(n);
-  const rows = new Int32Array(n);
+export function solveInPlace(a: Float64Array, b: Float64Array, n: number, scratch: Int32Array = new Int32Array(scratchLength(n))): boolean {
+  if (scratch.length < scratchLength(n))
+    throw new RangeError(`solveInPlace needs ${scratchLength(n)} scratch integers, got ${scratch.length}`);
+  const rows = scratch.subarray(0, n);
+  // Row k of U keeps its non-zero columns at cols[start[k] .. start[k + 1]).
+  const start = scratch.subarray(n, 2 * n + 1);
+  const cols = scratch.subarray(2 * n + 1);
+  let used = 0;
   for (let k = 0; k < n; k++) {
     // Partial pivoting: the largest entry of column k at or below the diagonal;
     // the same pass lists the rows that need eliminating.
@@ -46,8 +59,9 @@ export function solveInPlace(a: Float64Array, b: Float64Array, n: number): boole
     }
     const rowK = k * n;
     const pivot = a[rowK + k] as number;
-    let m = 0;
-    for (let j = k + 1; j < n; j++) if (a[rowK + j] !== 0) cols[m++] = j;
+    start[k] = used;
+    for (let j = k + 1; j < n; j++) if (a[rowK + j] !== 0) cols[used++] = j;
+    const first = start[k] as number;
     const bk = b[k] as number;
     for (let c0 = 0; c0 < r; c0++) {
       const i = rows[c0] as number;
@@ -57,19 +71,21 @@ export function solveInPlace(a: Float64Array, b: Float64Array, n: number): boole
       if (aik === 0) continue;
       const f = aik / pivot;
       a[rowI + k] = 0;
-      for (let c = 0; c < m; c++) {
+      for (let c = first; c < used; c++) {
         const j = cols[c] as number;
         a[rowI + j] = (a[rowI + j] as number) - f * (a[rowK + j] as number);
       }
       b[i] = (b[i] as number) - f * bk;
     }
   }
+  start[n] = used;
   for (let k = n - 1; k >= 0; k--) {
     const rowK = k * n;
     let s = b[k] as number;
-    for (let j = k + 1; j < n; j++) {
-      const akj = a[rowK + j] as number;
-      if (akj !== 0) s -= akj * (b[j] as number);
+    const end = start[k + 1] as number;
+    for (let c = start[k] as number; c < end; c++) {
+      const j = cols[c] as number;
+      s -= (a[rowK + j] as number) * (b[j] as number);
     }
     b[k] = s / (a[rowK + k] as number);
   }
