@@ -53,10 +53,16 @@ export function fillPattern(pattern: string, positions: number): Result<string[]
     for (let k = start; ; k += step) {
       const digits = [...k.toString(base)].map((d) => HEX_FORMS[parseInt(d, base)] ?? d).join("");
       if (digits.length > positions) {
-        return fail([{ path, message: `${digits} needs ${digits.length} positions but the display has ${positions}; add positions or shorten the range` }]);
+        return fail([
+          {
+            path,
+            message: `${digits} needs ${digits.length} positions but the display has ${positions}; add positions or shorten the range`,
+          },
+        ]);
       }
       texts.push(digits.padStart(positions, zeros ? "0" : " "));
-      if (texts.length > MAX_TEXTS) return fail([{ path, message: `gives more than ${MAX_TEXTS} texts; a counter has at most ${MAX_TEXTS} states` }]);
+      if (texts.length > MAX_TEXTS)
+        return fail([{ path, message: `gives more than ${MAX_TEXTS} texts; a counter has at most ${MAX_TEXTS} states` }]);
       if (k === end) break;
     }
   }

@@ -38,7 +38,11 @@ export function BudgetPanel() {
       <Show when={failure()}>
         {(f) => (
           <p class="chip danger">
-            ✖ the DC solve did not converge in {f().state} ({f().during}): {f().message}
+            ✖{" "}
+            {f().kind === "no-convergence"
+              ? `the DC solve did not converge in ${(f() as { state: string }).state} (${(f() as { during: string }).during}): `
+              : ""}
+            {f().message}
           </p>
         )}
       </Show>
@@ -46,13 +50,21 @@ export function BudgetPanel() {
         {(b) => (
           <>
             <p class="budget-summary">
-              target <strong>{formatMicro(b().targetCurrent)} µA</strong> · spread <strong>{b().spreadPct.toFixed(1)} %</strong> → after {b().trim.series} trim{" "}
-              <strong>{b().trim.spreadPct.toFixed(1)} %</strong> · supply max {(b().supply.maxCurrent * 1000).toFixed(2)} mA, {(b().supply.maxPower * 1000).toFixed(0)} mW · corners{" "}
-              {formatMicro(b().corners.low.minCurrent)}–{formatMicro(b().corners.high.maxCurrent)} µA {b().corners.meetsTarget ? "✓ meet" : "⚠ miss"} the ±{b().corners.windowPct} % window
+              target <strong>{formatMicro(b().targetCurrent)} µA</strong> · spread <strong>{b().spreadPct.toFixed(1)} %</strong> → after{" "}
+              {b().trim.series} trim <strong>{b().trim.spreadPct.toFixed(1)} %</strong> · supply max{" "}
+              {(b().supply.maxCurrent * 1000).toFixed(2)} mA, {(b().supply.maxPower * 1000).toFixed(0)} mW · corners{" "}
+              {formatMicro(b().corners.low.minCurrent)}–{formatMicro(b().corners.high.maxCurrent)} µA{" "}
+              {b().corners.meetsTarget ? "✓ meet" : "⚠ miss"} the ±{b().corners.windowPct} % window
             </p>
             <Show when={chart()}>
               {(c) => (
-                <svg class="budget-chart" viewBox={`0 0 ${c().width} ${c().height}`} role="img" aria-label="string current of each output in every lit state, with the nominal band, the band after the trim and the target" data-testid="budget-chart">
+                <svg
+                  class="budget-chart"
+                  viewBox={`0 0 ${c().width} ${c().height}`}
+                  role="img"
+                  aria-label="string current of each output in every lit state, with the nominal band, the band after the trim and the target"
+                  data-testid="budget-chart"
+                >
                   <For each={c().rows}>
                     {(r, i) => (
                       <g>
@@ -97,8 +109,8 @@ export function BudgetPanel() {
               )}
             </Show>
             <p class="legend muted small">
-              <span class="key key-band" /> nominal min–max · <span class="key key-trim" /> after trim · <span class="key key-tick" /> one lit state ·{" "}
-              <span class="key key-target" /> target · right: spread
+              <span class="key key-band" /> nominal min–max · <span class="key key-trim" /> after trim · <span class="key key-tick" /> one
+              lit state · <span class="key key-target" /> target · right: spread
             </p>
             <details class="trim">
               <summary>Emitter resistor trim ({b().trim.series})</summary>

@@ -13,8 +13,10 @@ export function CautionBanner() {
       <aside class="caution" role="note" data-testid="caution">
         <details>
           <summary>
-            <strong>⚠ DANGER: hazardous voltage.</strong> The supply reaches {Math.max(app.draft().electrical.supply.maxVolts, app.draft().electrical.supply.volts)} V DC, above the{" "}
-            {SELV_DC_LIMIT_V} V DC touch-safe limit: work only with it off and discharged, and follow local codes and licensed practice. <span class="linkish">Details</span>
+            <strong>⚠ DANGER: hazardous voltage.</strong> The supply reaches{" "}
+            {Math.max(app.draft().electrical.supply.maxVolts, app.draft().electrical.supply.volts)} V DC, above the {SELV_DC_LIMIT_V} V DC
+            touch-safe limit: work only with it off and discharged, and follow local codes and licensed practice.{" "}
+            <span class="linkish">Details</span>
           </summary>
           <For each={cautions()}>{(c) => <p>{c.message}</p>}</For>
         </details>

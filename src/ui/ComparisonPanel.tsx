@@ -4,13 +4,14 @@
  * counts come at once; "Exact" runs the optimizer on every row in the worker.
  */
 import { createEffect, createSignal, For, on, onCleanup, Show } from "solid-js";
-import { compareGlyphStyles, type GlyphStyleRow } from "../core/glyphStyles.ts";
+import type { GlyphStyleRow } from "../core/glyphStyles.ts";
 import { segmentsOfString } from "../core/glyphs.ts";
 import type { Project } from "../core/project.ts";
 import { app } from "./appState.ts";
 import { CellFigure } from "./CellFigure.tsx";
 import { setGlyph } from "./draftEdits.ts";
 import { draftFromProject } from "./draft.ts";
+import { analysis } from "./analysisClient.ts";
 import { ExactRunner } from "./exactRun.ts";
 
 interface Table {
@@ -35,9 +36,9 @@ export function ComparisonPanel() {
         runner.cancel();
         setRunning(false);
         if (!project) return;
-        // After the live result has painted: the comparison runs several syntheses.
+        // In the analysis worker, once typing settles: the comparison runs several syntheses.
         timer = setTimeout(async () => {
-          const r = await compareGlyphStyles(project, { mode: "fast" });
+          const r = (await analysis.request<"compare">({ job: "compare", project: draftFromProject(project) })).result;
           if (app.live()?.project !== project) return;
           if (r.ok) {
             setTable({ project, rows: r.value, method: "heuristic" });
@@ -102,7 +103,10 @@ export function ComparisonPanel() {
       </Show>
       <Show when={table()} fallback={<p class="muted">Working…</p>}>
         {(t) => (
-          <Show when={t().rows.length > 1 || Object.keys(t().rows[0]?.glyphs ?? {}).length > 0} fallback={<p class="muted">The texts use no character with built-in variants (6, 7, 9 on seven-segment cells).</p>}>
+          <Show
+            when={t().rows.length > 1 || Object.keys(t().rows[0]?.glyphs ?? {}).length > 0}
+            fallback={<p class="muted">The texts use no character with built-in variants (6, 7, 9 on seven-segment cells).</p>}
+          >
             <table class="mini-table compare-table">
               <thead>
                 <tr>

@@ -7,8 +7,6 @@
  */
 import { createEffect, createMemo, createSignal, For, onCleanup, Show } from "solid-js";
 import type { DiodeSymbol, Sheet } from "../render/drawingModel.ts";
-import { drawingOptions } from "../render/drawingOptions.ts";
-import { layoutMatrix } from "../render/layout.ts";
 import { app } from "./appState.ts";
 import { mountSheet } from "./sheetSvg.ts";
 
@@ -24,10 +22,7 @@ export function DrawingPanel() {
   const zoomBy = (step: number) => setZoomIndex((i) => Math.max(0, Math.min(ZOOMS.length - 1, i + step)));
   const [picked, setPicked] = createSignal<{ sheet: number; ref: string } | null>(null);
 
-  const drawing = createMemo(() => {
-    const r = app.live();
-    return r ? layoutMatrix(r.project, r.spec, r.matrix, drawingOptions(r.project, { paper: app.paper() })) : null;
-  });
+  const drawing = () => app.drawing();
   const allDiodes = createMemo(() => drawing()?.sheets.flatMap((s) => s.diodes.map((d) => ({ sheet: s.number, d }))) ?? []);
   const pickedDiode = () => {
     const p = picked();
@@ -103,7 +98,8 @@ export function DrawingPanel() {
               highlight={picked()?.sheet === sheet.number ? pickedDiode() : null}
               onPick={(ref) => {
                 const p = picked();
-                if (ref === null ? p !== null : p?.sheet !== sheet.number || p.ref !== ref) setPicked(ref === null ? null : { sheet: sheet.number, ref });
+                if (ref === null ? p !== null : p?.sheet !== sheet.number || p.ref !== ref)
+                  setPicked(ref === null ? null : { sheet: sheet.number, ref });
               }}
             />
           )}
@@ -113,7 +109,13 @@ export function DrawingPanel() {
   );
 }
 
-function SheetView(props: { sheet: Sheet; first: boolean; zoom: number; highlight: DiodeSymbol | null; onPick: (ref: string | null) => void }) {
+function SheetView(props: {
+  sheet: Sheet;
+  first: boolean;
+  zoom: number;
+  highlight: DiodeSymbol | null;
+  onPick: (ref: string | null) => void;
+}) {
   let host: HTMLDivElement | undefined;
   let svgEl: SVGSVGElement | null = null;
   let overlay: SVGGElement | null = null;
@@ -125,7 +127,10 @@ function SheetView(props: { sheet: Sheet; first: boolean; zoom: number; highligh
     svgEl = root.node;
     svgEl.classList.add("sheet-svg");
     svgEl.setAttribute("role", "img");
-    svgEl.setAttribute("aria-label", `matrix drawing, sheet ${props.sheet.number} of ${props.sheet.count}, ${props.sheet.diodes.length} diodes`);
+    svgEl.setAttribute(
+      "aria-label",
+      `matrix drawing, sheet ${props.sheet.number} of ${props.sheet.count}, ${props.sheet.diodes.length} diodes`,
+    );
     svgEl.dataset.sheet = String(props.sheet.number);
     if (props.first) svgEl.dataset.testid = "matrix-drawing";
     overlay = document.createElementNS(NS, "g");
@@ -166,7 +171,9 @@ function SheetView(props: { sheet: Sheet; first: boolean; zoom: number; highligh
     const ctm = svgEl.getScreenCTM();
     if (!ctm) return;
     const p = new DOMPoint(e.clientX, e.clientY).matrixTransform(ctm.inverse());
-    const hit = props.sheet.diodes.find((d) => p.x >= d.box.x - HIT_MM && p.x <= d.box.x + d.box.w + HIT_MM && p.y >= d.box.y - HIT_MM && p.y <= d.box.y + d.box.h + HIT_MM);
+    const hit = props.sheet.diodes.find(
+      (d) => p.x >= d.box.x - HIT_MM && p.x <= d.box.x + d.box.w + HIT_MM && p.y >= d.box.y - HIT_MM && p.y <= d.box.y + d.box.h + HIT_MM,
+    );
     props.onPick(hit?.ref ?? null);
   };
   onCleanup(() => host?.replaceChildren());

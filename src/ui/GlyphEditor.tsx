@@ -93,7 +93,13 @@ export function GlyphEditor() {
                     const segs = segmentsOfString(v);
                     const on = () => segs.join() === lit().join();
                     return (
-                      <button type="button" class={`variant ${on() ? "picked" : ""}`} aria-pressed={on()} onClick={() => app.edit((x) => setGlyph(x, current() ?? "", segs))} title={v}>
+                      <button
+                        type="button"
+                        class={`variant ${on() ? "picked" : ""}`}
+                        aria-pressed={on()}
+                        onClick={() => app.edit((x) => setGlyph(x, current() ?? "", segs))}
+                        title={v}
+                      >
                         <CellFigure kind="seg7" segments={[]} lit={segs} height={36} />
                         <span>{v}</span>
                       </button>
@@ -103,7 +109,11 @@ export function GlyphEditor() {
               </div>
             </Show>
             <Show when={current() !== null && current()! in d().glyphs}>
-              <button type="button" class="linkish" onClick={() => app.edit((x) => setGlyph(x, current() ?? "", effectiveGlyphs({ ...x, glyphs: {} })[current() ?? ""] ?? []))}>
+              <button
+                type="button"
+                class="linkish"
+                onClick={() => app.edit((x) => setGlyph(x, current() ?? "", effectiveGlyphs({ ...x, glyphs: {} })[current() ?? ""] ?? []))}
+              >
                 Back to built-in shape
               </button>
             </Show>
@@ -112,7 +122,15 @@ export function GlyphEditor() {
       </Show>
       <div class="pattern-row">
         <label for="f-newchar">Add character</label>
-        <input id="f-newchar" type="text" maxLength={2} size={3} value={newChar()} onInput={(e) => setNewChar(e.currentTarget.value)} onKeyDown={(e) => e.key === "Enter" && addChar()} />
+        <input
+          id="f-newchar"
+          type="text"
+          maxLength={2}
+          size={3}
+          value={newChar()}
+          onInput={(e) => setNewChar(e.currentTarget.value)}
+          onKeyDown={(e) => e.key === "Enter" && addChar()}
+        />
         <button type="button" onClick={addChar}>
           Add
         </button>

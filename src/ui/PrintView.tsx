@@ -6,18 +6,17 @@
 import { createMemo, For, Show } from "solid-js";
 import { bomLines } from "../core/bom.ts";
 import { INSPECTION_CHECKLIST, WIRING_HEADER, wiringRows } from "../core/wiringList.ts";
-import { drawingOptions } from "../render/drawingOptions.ts";
-import { layoutMatrix } from "../render/layout.ts";
 import { app } from "./appState.ts";
 
 export function PrintView() {
   const lists = createMemo(() => {
     const r = app.live();
     if (!r) return null;
-    const drawing = layoutMatrix(r.project, r.spec, r.matrix, drawingOptions(r.project, { paper: app.paper() }));
+    const drawing = app.drawing();
     const b = app.budget();
-    const trim = b && b.forResult === r && b.result.ok ? new Map(Object.entries(b.result.value.trim.outputs).map(([o, t]) => [o, t.ohms])) : undefined;
-    return { r, rows: wiringRows(r.matrix, drawing.placements), parts: bomLines(r.project, r.spec, r.matrix, trim) };
+    const trim =
+      b && b.forResult === r && b.result.ok ? new Map(Object.entries(b.result.value.trim.outputs).map(([o, t]) => [o, t.ohms])) : undefined;
+    return { r, rows: wiringRows(r.matrix, drawing?.placements), parts: bomLines(r.project, r.spec, r.matrix, trim) };
   });
   return (
     <Show when={lists()}>

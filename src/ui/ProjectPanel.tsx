@@ -31,7 +31,8 @@ export function ProjectPanel() {
   const d = () => app.draft();
   const [pattern, setPattern] = createSignal("0-9");
   const [patternError, setPatternError] = createSignal<string | null>(null);
-  const problemsAt = (path: string) => app.problems().filter((p) => p.path === path || p.path.startsWith(`${path}.`) || p.path.startsWith(`${path}[`));
+  const problemsAt = (path: string) =>
+    app.problems().filter((p) => p.path === path || p.path.startsWith(`${path}.`) || p.path.startsWith(`${path}[`));
 
   const applyPattern = () => {
     const r = fillPattern(pattern(), d().display.positions);
@@ -57,13 +58,34 @@ export function ProjectPanel() {
       <h2 id="project-h">Project</h2>
       <div class="form-grid">
         <label for="f-title">Title</label>
-        <input id="f-title" type="text" value={d().title} maxLength={200} onInput={(e) => app.edit((x) => setTitle(x, e.currentTarget.value), "title")} onChange={() => app.sealEdit()} />
+        <input
+          id="f-title"
+          type="text"
+          value={d().title}
+          maxLength={200}
+          onInput={(e) => app.edit((x) => setTitle(x, e.currentTarget.value), "title")}
+          onChange={() => app.sealEdit()}
+        />
 
         <label for="f-states">States</label>
-        <input id="f-states" type="number" min="2" max={MAX_STATES} value={d().counter.states} onChange={(e) => app.edit((x) => setStates(x, Number(e.currentTarget.value) || 2))} />
+        <input
+          id="f-states"
+          type="number"
+          min="2"
+          max={MAX_STATES}
+          value={d().counter.states}
+          onChange={(e) => app.edit((x) => setStates(x, Number(e.currentTarget.value) || 2))}
+        />
 
         <label for="f-positions">Positions</label>
-        <input id="f-positions" type="number" min="1" max={MAX_POSITIONS} value={d().display.positions} onChange={(e) => app.edit((x) => setPositions(x, Number(e.currentTarget.value) || 1))} />
+        <input
+          id="f-positions"
+          type="number"
+          min="1"
+          max={MAX_POSITIONS}
+          value={d().display.positions}
+          onChange={(e) => app.edit((x) => setPositions(x, Number(e.currentTarget.value) || 1))}
+        />
 
         <label for="f-cell">Cell</label>
         <select id="f-cell" value={d().display.cell} onChange={(e) => app.edit((x) => setCell(x, e.currentTarget.value as CellKind))}>
@@ -77,7 +99,14 @@ export function ProjectPanel() {
           <label for="f-pattern" class="visually-hidden">
             Fill pattern
           </label>
-          <input id="f-pattern" type="text" value={pattern()} placeholder="0-9, 1-12 with leading blank, 00-59" onInput={(e) => setPattern(e.currentTarget.value)} onKeyDown={(e) => e.key === "Enter" && applyPattern()} />
+          <input
+            id="f-pattern"
+            type="text"
+            value={pattern()}
+            placeholder="0-9, 1-12 with leading blank, 00-59"
+            onInput={(e) => setPattern(e.currentTarget.value)}
+            onKeyDown={(e) => e.key === "Enter" && applyPattern()}
+          />
           <button type="button" onClick={applyPattern}>
             Fill
           </button>
@@ -111,7 +140,9 @@ export function ProjectPanel() {
                     onChange={() => app.sealEdit()}
                   />
                   <span class="state-preview" aria-hidden="true">
-                    <For each={positionsOf(text())}>{(lit) => <CellFigure kind={previewCell().kind} segments={previewCell().segments} lit={lit} height={22} />}</For>
+                    <For each={positionsOf(text())}>
+                      {(lit) => <CellFigure kind={previewCell().kind} segments={previewCell().segments} lit={lit} height={22} />}
+                    </For>
                   </span>
                   <Show when={err()}>
                     <span id={`f-show-err-${k}`} class="field-error inline">
@@ -129,28 +160,63 @@ export function ProjectPanel() {
         <legend>Synthesis</legend>
         <div class="form-grid">
           <label for="f-depth">Max depth</label>
-          <select id="f-depth" value={String(d().synthesis.maxDepth)} onChange={(e) => app.edit((x) => setSynthesis(x, { maxDepth: Number(e.currentTarget.value) }))}>
+          <select
+            id="f-depth"
+            value={String(d().synthesis.maxDepth)}
+            onChange={(e) => app.edit((x) => setSynthesis(x, { maxDepth: Number(e.currentTarget.value) }))}
+          >
             <option value="1">1 diode</option>
             <option value="2">2 diodes</option>
             <option value="3">3 diodes</option>
           </select>
           <label for="f-policy">Depth policy</label>
-          <select id="f-policy" value={d().synthesis.depth} onChange={(e) => app.edit((x) => setSynthesis(x, { depth: e.currentTarget.value as DepthPolicy }))}>
+          <select
+            id="f-policy"
+            value={d().synthesis.depth}
+            onChange={(e) => app.edit((x) => setSynthesis(x, { depth: e.currentTarget.value as DepthPolicy }))}
+          >
             <For each={Object.keys(POLICY_NAMES) as DepthPolicy[]}>{(p) => <option value={p}>{POLICY_NAMES[p]}</option>}</For>
           </select>
           <span class="label">Sharing</span>
           <div class="checks">
             <label>
-              <input type="checkbox" checked={d().synthesis.buses} onChange={(e) => app.edit((x) => setSynthesis(x, { buses: e.currentTarget.checked }))} /> bus nodes
+              <input
+                type="checkbox"
+                checked={d().synthesis.buses}
+                onChange={(e) => app.edit((x) => setSynthesis(x, { buses: e.currentTarget.checked }))}
+              />{" "}
+              bus nodes
             </label>
             <label>
-              <input type="checkbox" checked={d().synthesis.links} onChange={(e) => app.edit((x) => setSynthesis(x, { links: e.currentTarget.checked }))} /> links
+              <input
+                type="checkbox"
+                checked={d().synthesis.links}
+                onChange={(e) => app.edit((x) => setSynthesis(x, { links: e.currentTarget.checked }))}
+              />{" "}
+              links
             </label>
           </div>
           <label for="f-limit">Exact limit (s)</label>
-          <input id="f-limit" type="number" min="1" max="3600" value={d().synthesis.timeLimitMs / 1000} onChange={(e) => app.edit((x) => setSynthesis(x, { timeLimitMs: Math.max(1, Math.round(Number(e.currentTarget.value) * 1000) || 1000) }))} />
+          <input
+            id="f-limit"
+            type="number"
+            min="1"
+            max="3600"
+            value={d().synthesis.timeLimitMs / 1000}
+            onChange={(e) =>
+              app.edit((x) => setSynthesis(x, { timeLimitMs: Math.max(1, Math.round(Number(e.currentTarget.value) * 1000) || 1000) }))
+            }
+          />
           <label for="f-supply">Supply (V)</label>
-          <input id="f-supply" type="number" min="1" max="1000" step="any" value={d().electrical.supply.volts} onChange={(e) => app.edit((x) => setSupplyVolts(x, Number(e.currentTarget.value) || x.electrical.supply.volts))} />
+          <input
+            id="f-supply"
+            type="number"
+            min="1"
+            max="1000"
+            step="any"
+            value={d().electrical.supply.volts}
+            onChange={(e) => app.edit((x) => setSupplyVolts(x, Number(e.currentTarget.value) || x.electrical.supply.volts))}
+          />
         </div>
       </fieldset>
       <Show when={app.problems().length > 0}>

@@ -26,7 +26,8 @@ export function ResultBar() {
           ✓ verified
         </span>
         <span class="muted">
-          {METHOD_NAMES[m()?.method ?? "direct"]} · {bound()} · direct {app.live()?.directCount} · {m()?.buses.length} bus · depth {m()?.maxDepth}/{m()?.depthLimit}
+          {METHOD_NAMES[m()?.method ?? "direct"]} · {bound()} · direct {app.live()?.directCount} · {m()?.buses.length} bus · depth{" "}
+          {m()?.maxDepth}/{m()?.depthLimit}
         </span>
         <Show when={app.stale()}>
           <span class="chip stale" data-testid="stale">
@@ -34,7 +35,13 @@ export function ResultBar() {
           </span>
         </Show>
         <Show when={app.liveMs() !== null}>
-          <span class="muted small" data-testid="live-ms" data-ms={app.liveMs()?.toFixed(1)}>
+          <span
+            class="muted small"
+            data-testid="live-ms"
+            data-ms={app.liveMs()?.toFixed(1)}
+            data-pass={app.livePass()}
+            title="edit to verified result, milliseconds"
+          >
             {app.liveMs()?.toFixed(0)} ms
           </span>
         </Show>
@@ -62,7 +69,12 @@ export function ResultBar() {
           <Match when={app.exact().status === "done" && app.exact()}>
             {(s) => {
               const x = () => s() as Extract<ReturnType<typeof app.exact>, { status: "done" }>;
-              return <>exact: {x().optimal ? "minimum proven" : "finished"}{x().improved ? ", improved" : ""}</>;
+              return (
+                <>
+                  exact: {x().optimal ? "minimum proven" : "finished"}
+                  {x().improved ? ", improved" : ""}
+                </>
+              );
             }}
           </Match>
           <Match when={app.exact().status === "cancelled"}>

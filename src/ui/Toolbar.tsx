@@ -21,7 +21,11 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
 
   const open = async (file: File) => {
     if (file.size > MAX_PROJECT_BYTES) {
-      app.setNotice({ level: "danger", title: `${file.name} was not opened; the project on screen is unchanged`, lines: [`${file.name}: the file is larger than 1 MiB; a project needs far less`] });
+      app.setNotice({
+        level: "danger",
+        title: `${file.name} was not opened; the project on screen is unchanged`,
+        lines: [`${file.name}: the file is larger than 1 MiB; a project needs far less`],
+      });
       return;
     }
     app.openText(file.name, await file.text());
@@ -45,7 +49,11 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
     const stem = fileStem(r.project.title);
     const files = exportFiles(r, kind, app.paper(), app.budget()?.forResult === r ? app.budget()?.result : undefined);
     if (files.length === 0) {
-      app.setNotice({ level: "warn", title: "Nothing to export yet", lines: ["the budget is still being worked out; try again in a moment"] });
+      app.setNotice({
+        level: "warn",
+        title: "Nothing to export yet",
+        lines: ["the budget is still being worked out; try again in a moment"],
+      });
       return;
     }
     files.forEach((f) => downloadText(`${stem}-${f.name}`, f.content, f.mime));
@@ -119,7 +127,13 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
         </button>
       </div>
       <label class="check-inline">
-        <input type="checkbox" checked={app.exactEnabled()} onChange={(e) => app.setExactOn(e.currentTarget.checked)} data-testid="exact-toggle" /> exact optimizer
+        <input
+          type="checkbox"
+          checked={app.exactEnabled()}
+          onChange={(e) => app.setExactOn(e.currentTarget.checked)}
+          data-testid="exact-toggle"
+        />{" "}
+        exact optimizer
       </label>
     </header>
   );

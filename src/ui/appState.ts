@@ -5,10 +5,12 @@
  * domain work happens in src/core through liveResult.ts.
  */
 import { batch, createMemo, createRoot, createSignal } from "solid-js";
-import { solveBudget, type Budget, type BudgetFailure } from "../core/budget.ts";
+import type { Budget, BudgetFailure } from "../core/budget.ts";
 import type { VerifiedMatrix } from "../core/matrix.ts";
 import type { Result } from "../core/result.ts";
 import type { PaperName } from "../render/drawingModel.ts";
+import { drawingOptions } from "../render/drawingOptions.ts";
+import { layoutMatrix, type MatrixDrawing } from "../render/layout.ts";
 import type { Project } from "../core/project.ts";
 import { parseProject, validateProject } from "../core/projectSchema.ts";
 import { formatProblems, type Problem } from "../core/result.ts";
@@ -16,6 +18,7 @@ import { readAutosave, writeAutosave } from "./autosave.ts";
 import { draftFromProject, type Draft } from "./draft.ts";
 import type { ExactProgress } from "./exactProtocol.ts";
 import { ExactRunner } from "./exactRun.ts";
+import { analysis } from "./analysisClient.ts";
 import { acceptMatrix, liveResult, withMatrix, type LiveResult } from "./liveResult.ts";
 import { canRedo, canUndo, record, redo, seal, startHistory, undo, type UndoHistory } from "./undoHistory.ts";
 
@@ -35,13 +38,13 @@ export interface Notice {
 
 /** Wait after the last edit before the exact optimizer starts, milliseconds. */
 const EXACT_DELAY_MS = 500;
-/** Wait after a result before the budget is solved (it takes tens of ms), milliseconds. */
+/** Wait after a result before the budget is asked for (typing settles first), milliseconds. */
 const BUDGET_DELAY_MS = 150;
 
 export interface BudgetView {
   /** The result the budget belongs to; it is stale when the shown result differs. */
   readonly forResult: LiveResult;
-  readonly result: Result<Budget, BudgetFailure>;
+  readonly result: Result<Budget, BudgetFailure | { readonly kind: "rejected"; readonly message: string }>;
 }
 
 function createAppState() {
@@ -59,22 +62,29 @@ function createAppState() {
   const [liveDraft, setLiveDraft] = createSignal<Draft | null>(null);
   const [liveError, setLiveError] = createSignal<string | null>(null);
   const [liveMs, setLiveMs] = createSignal<number | null>(null);
+  /** Counts the results shown, so a test can tell that a new one arrived. */
+  const [livePass, setLivePass] = createSignal(0);
   const [exact, setExact] = createSignal<ExactState>({ status: "idle" });
   const [exactEnabled, setExactEnabled] = createSignal(true);
   const [notice, setNotice] = createSignal<Notice | null>(null);
   const [ready, setReady] = createSignal(false);
   const [paper, setPaperSignal] = createSignal<PaperName>(readPaper());
   const [budget, setBudget] = createSignal<BudgetView | null>(null);
+  /** The drawing of the shown result, laid out once for the screen, the print view and the exports. */
+  const drawing = createMemo<MatrixDrawing | null>(() => {
+    const r = live();
+    return r ? layoutMatrix(r.project, r.spec, r.matrix, drawingOptions(r.project, { paper: paper() })) : null;
+  });
   let budgetTimer: ReturnType<typeof setTimeout> | undefined;
 
   /** Shows a result and schedules its budget. */
   function show(r: LiveResult): void {
     setLive(r);
     clearTimeout(budgetTimer);
-    budgetTimer = setTimeout(() => {
-      const now = live();
-      if (now !== r) return;
-      setBudget({ forResult: r, result: solveBudget(r.project, r.spec, r.matrix) });
+    budgetTimer = setTimeout(async () => {
+      if (live() !== r) return;
+      const reply = await analysis.request<"budget">({ job: "budget", project: draftFromProject(r.project), matrix: r.matrix });
+      if (live() === r) setBudget({ forResult: r, result: reply.result });
     }, BUDGET_DELAY_MS);
   }
 
@@ -102,6 +112,7 @@ function createAppState() {
       }
       setLiveDraft(d);
       setLiveMs(performance.now() - editStartedAt);
+      setLivePass((n) => n + 1);
     });
     if (v.ok && persist) writeAutosave(localStorage, v.value);
     if (r.ok) scheduleExact(d, v.value);
@@ -122,11 +133,16 @@ function createAppState() {
     if (draft() !== d) return;
     const base = live();
     if (!base) return;
-    setExact({ status: "running", progress: { best: base.matrix.count, bound: base.matrix.lowerBound, elapsedS: 0 }, startedAtMs: performance.now() });
+    setExact({
+      status: "running",
+      progress: { best: base.matrix.count, bound: base.matrix.lowerBound, elapsedS: 0 },
+      startedAtMs: performance.now(),
+    });
     runner.start(draftFromProject(project), {
       progress: (p) => {
         const s = exact();
-        if (s.status === "running") setExact({ ...s, progress: { ...p, best: p.best ?? s.progress.best, bound: p.bound ?? s.progress.bound } });
+        if (s.status === "running")
+          setExact({ ...s, progress: { ...p, best: p.best ?? s.progress.best, bound: p.bound ?? s.progress.bound } });
       },
       done: (m) => {
         const current = live();
@@ -250,6 +266,7 @@ function createAppState() {
     validation,
     problems,
     live,
+    drawing,
     budget,
     budgetStale: () => budget() !== null && budget()?.forResult !== live(),
     paper,
@@ -263,6 +280,7 @@ function createAppState() {
     },
     liveError,
     liveMs,
+    livePass,
     stale,
     exact,
     exactEnabled,

@@ -36,10 +36,18 @@ interface AutosaveEntry {
 }
 
 export type AutosaveRead =
-  | { readonly found: true; readonly project: Project; readonly draft: Draft; readonly slot: "current" | "previous"; readonly sequence: number; readonly notes: readonly string[] }
+  | {
+      readonly found: true;
+      readonly project: Project;
+      readonly draft: Draft;
+      readonly slot: "current" | "previous";
+      readonly sequence: number;
+      readonly notes: readonly string[];
+    }
   | { readonly found: false; readonly notes: readonly string[] };
 
-type Decoded = { readonly ok: true; readonly entry: AutosaveEntry; readonly project: Project } | { readonly ok: false; readonly why: string };
+type Decoded =
+  { readonly ok: true; readonly entry: AutosaveEntry; readonly project: Project } | { readonly ok: false; readonly why: string };
 
 function decode(text: string | null): Decoded {
   if (text === null) return { ok: false, why: "empty" };
@@ -83,7 +91,11 @@ export function writeAutosave(store: KeyValueStore, project: Project): boolean {
   try {
     const oldText = store.getItem(AUTOSAVE_KEYS.current);
     const old = decode(oldText);
-    const entry: AutosaveEntry = { format: AUTOSAVE_FORMAT, sequence: old.ok ? old.entry.sequence + 1 : 1, project: draftFromProject(project) };
+    const entry: AutosaveEntry = {
+      format: AUTOSAVE_FORMAT,
+      sequence: old.ok ? old.entry.sequence + 1 : 1,
+      project: draftFromProject(project),
+    };
     const text = JSON.stringify(entry);
     if (old.ok && oldText === text) return true;
     if (old.ok && oldText !== null) store.setItem(AUTOSAVE_KEYS.previous, oldText);

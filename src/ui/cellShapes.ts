@@ -13,7 +13,15 @@ export const CELL_HEIGHT = 100;
 
 export type SegmentShape =
   | { readonly segment: string; readonly kind: "polygon"; readonly points: string; readonly labelX: number; readonly labelY: number }
-  | { readonly segment: string; readonly kind: "circle"; readonly cx: number; readonly cy: number; readonly r: number; readonly labelX: number; readonly labelY: number };
+  | {
+      readonly segment: string;
+      readonly kind: "circle";
+      readonly cx: number;
+      readonly cy: number;
+      readonly r: number;
+      readonly labelX: number;
+      readonly labelY: number;
+    };
 
 const T = 8; // bar thickness
 
@@ -21,8 +29,22 @@ function bar(segment: string, x1: number, y1: number, x2: number, y2: number, lx
   const h = T / 2;
   const pts =
     y1 === y2
-      ? [[x1, y1], [x1 + h, y1 - h], [x2 - h, y1 - h], [x2, y1], [x2 - h, y1 + h], [x1 + h, y1 + h]]
-      : [[x1, y1], [x1 + h, y1 + h], [x1 + h, y2 - h], [x1, y2], [x1 - h, y2 - h], [x1 - h, y1 + h]];
+      ? [
+          [x1, y1],
+          [x1 + h, y1 - h],
+          [x2 - h, y1 - h],
+          [x2, y1],
+          [x2 - h, y1 + h],
+          [x1 + h, y1 + h],
+        ]
+      : [
+          [x1, y1],
+          [x1 + h, y1 + h],
+          [x1 + h, y2 - h],
+          [x1, y2],
+          [x1 - h, y2 - h],
+          [x1 - h, y1 + h],
+        ];
   return { segment, kind: "polygon", points: pts.map(([x, y]) => `${x},${y}`).join(" "), labelX: lx, labelY: ly };
 }
 

@@ -1,7 +1,8 @@
 /** Saving a file from the page: a Blob and a temporary link with `download`. */
 
 export function downloadText(name: string, content: string | Uint8Array, mime: string): void {
-  const blob = typeof content === "string" ? new Blob([content], { type: `${mime};charset=utf-8` }) : new Blob([content as BlobPart], { type: mime });
+  const blob =
+    typeof content === "string" ? new Blob([content], { type: `${mime};charset=utf-8` }) : new Blob([content as BlobPart], { type: mime });
   const url = URL.createObjectURL(blob);
   const a = document.createElement("a");
   a.href = url;

@@ -3,7 +3,7 @@
  * and render stages; this module only collects and names them.
  */
 import { bomCsv, bomLines } from "../core/bom.ts";
-import type { Budget, BudgetFailure } from "../core/budget.ts";
+import type { Budget } from "../core/budget.ts";
 import { spiceNetlist } from "../core/netlist.ts";
 import { serializeProject } from "../core/projectWriter.ts";
 import type { Result } from "../core/result.ts";
@@ -33,7 +33,7 @@ function bundle(archiveName: string, files: readonly { name: string; text: strin
 }
 
 /** Trimmed emitter resistors from a budget, for the BOM. */
-function trimmedOhms(budget: Result<Budget, BudgetFailure> | undefined): ReadonlyMap<string, number> | undefined {
+function trimmedOhms(budget: Result<Budget, unknown> | undefined): ReadonlyMap<string, number> | undefined {
   if (!budget?.ok) return undefined;
   return new Map(Object.entries(budget.value.trim.outputs).map(([o, t]) => [o, t.ohms]));
 }
@@ -42,14 +42,18 @@ function trimmedOhms(budget: Result<Budget, BudgetFailure> | undefined): Readonl
  * The files of one export kind. An empty list means the export is not
  * ready (the budget of this result has not been worked out yet).
  */
-export function exportFiles(r: LiveResult, kind: ExportKind, paper: PaperName, budget?: Result<Budget, BudgetFailure>): ExportFile[] {
+export function exportFiles(r: LiveResult, kind: ExportKind, paper: PaperName, budget?: Result<Budget, unknown>): ExportFile[] {
   const options = drawingOptions(r.project, { paper });
   switch (kind) {
     case "svg": {
       const sheets = layoutMatrix(r.project, r.spec, r.matrix, options).sheets;
       return bundle(
         "matrix-sheets.zip",
-        sheets.map((s) => ({ name: sheets.length === 1 ? "matrix.svg" : `matrix-${s.number}.svg`, mime: "image/svg+xml", text: sheetSvgText(s) })),
+        sheets.map((s) => ({
+          name: sheets.length === 1 ? "matrix.svg" : `matrix-${s.number}.svg`,
+          mime: "image/svg+xml",
+          text: sheetSvgText(s),
+        })),
       );
     }
     case "wiring": {
@@ -60,7 +64,9 @@ export function exportFiles(r: LiveResult, kind: ExportKind, paper: PaperName, b
     case "wiring-page": {
       const drawing = layoutMatrix(r.project, r.spec, r.matrix, options);
       const rows = wiringRows(r.matrix, drawing.placements);
-      return [{ name: "wiring.html", mime: "text/html", content: wiringPageHtml(r.project, r.matrix, rows, options, drawing.sheets.length) }];
+      return [
+        { name: "wiring.html", mime: "text/html", content: wiringPageHtml(r.project, r.matrix, rows, options, drawing.sheets.length) },
+      ];
     }
     case "bom":
       return [{ name: "bom.csv", mime: "text/csv", content: bomCsv(bomLines(r.project, r.spec, r.matrix, trimmedOhms(budget))) }];
@@ -71,7 +77,13 @@ export function exportFiles(r: LiveResult, kind: ExportKind, paper: PaperName, b
       );
     case "budget":
       if (!budget) return [];
-      return [{ name: "budget.json", mime: "application/json", content: JSON.stringify(budget.ok ? budget.value : { error: budget.error }, null, 2) + "\n" }];
+      return [
+        {
+          name: "budget.json",
+          mime: "application/json",
+          content: JSON.stringify(budget.ok ? budget.value : { error: budget.error }, null, 2) + "\n",
+        },
+      ];
     case "project":
       return [{ name: "project.json", mime: "application/json", content: serializeProject(r.project) }];
   }

@@ -28,7 +28,12 @@ document.addEventListener("keydown", (e) => {
   const action = historyAction(e);
   if (!action) return;
   const target = document.activeElement as HTMLElement | null;
-  if (isTextEntry(target ? { tagName: target.tagName, type: (target as HTMLInputElement).type, isContentEditable: target.isContentEditable } : null)) return;
+  if (
+    isTextEntry(
+      target ? { tagName: target.tagName, type: (target as HTMLInputElement).type, isContentEditable: target.isContentEditable } : null,
+    )
+  )
+    return;
   e.preventDefault();
   if (action === "undo") app.undo();
   else app.redo();

@@ -44,7 +44,10 @@ describe("autosave", () => {
   });
   it("rejects an entry whose project does not validate, or of another format version", () => {
     const store = memoryStore();
-    store.data.set(AUTOSAVE_KEYS.current, JSON.stringify({ format: AUTOSAVE_FORMAT, sequence: 1, project: { schema: "diodeloom/project@1" } }));
+    store.data.set(
+      AUTOSAVE_KEYS.current,
+      JSON.stringify({ format: AUTOSAVE_FORMAT, sequence: 1, project: { schema: "diodeloom/project@1" } }),
+    );
     store.data.set(AUTOSAVE_KEYS.previous, JSON.stringify({ format: "diodeloom/autosave@9", sequence: 1, project: {} }));
     const r = readAutosave(store);
     expect(r.found).toBe(false);
