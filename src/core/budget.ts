@@ -103,7 +103,7 @@ export interface CornerBudget {
   readonly minCurrent: number;
   readonly maxCurrent: number;
   readonly outputs: Readonly<Record<string, CurrentRange>>;
-  /** Smallest collector-base headroom of a lit driver, volts. */
+  /** Smallest collector-base headroom of a lit driver, volts (0 when there is no driver). */
   readonly minHeadroom: number;
   /** Largest driver Vce and dissipation, volts and watts. */
   readonly maxVce: number;
@@ -372,7 +372,8 @@ function cornerBudget(spec: DecodeSpec, conditions: CornerConditions, sols: read
     minCurrent: rs.length > 0 ? Math.min(...rs.map((r) => r.min)) : 0,
     maxCurrent: rs.length > 0 ? Math.max(...rs.map((r) => r.max)) : 0,
     outputs: Object.fromEntries(ranges),
-    minHeadroom: figures.length > 0 ? Math.min(...figures.map((f) => f.headroom)) : Infinity,
+    // No driver, nothing to saturate: 0 keeps the JSON finite.
+    minHeadroom: figures.length > 0 ? Math.min(...figures.map((f) => f.headroom)) : 0,
     maxVce: figures.length > 0 ? Math.max(...figures.map((f) => f.maxVce)) : 0,
     maxPower: figures.length > 0 ? Math.max(...figures.map((f) => f.maxPower)) : 0,
   };

@@ -126,6 +126,18 @@ describe("solveBudget", () => {
     expect(b.corners.low.conditions.temperatureC).toBe(0);
   });
 
+  it("stays finite with nothing to drive, and with every output tied on", () => {
+    for (const texts of [
+      [" ", " "],
+      ["8", "8"],
+    ]) {
+      const eb = budgetOf(directDesign(texts.join(), showing(texts)));
+      expect(JSON.stringify(eb)).not.toMatch(/null|NaN|Infinity/);
+      expect(Object.keys(eb.diodes)).toEqual([]);
+    }
+    expect(Object.keys(budgetOf(directDesign("8", showing(["8", "8"]))).outputs)).toHaveLength(7);
+  });
+
   it("handles every example's direct matrix, all by Newton from the builder's guess", () => {
     for (const name of ["relay-hex-monitor", "turntable-position", "die-roller"]) {
       const eb = budgetOf(directDesign(name, example(name)));

@@ -1,0 +1,58 @@
+import { describe, expect, it } from "vitest";
+import { main } from "../../../../src/cli/main.ts";
+import { solveBudget } from "../../../../src/core/budget.ts";
+import { describeBudget } from "../../../../src/cli/commands/budget.ts";
+import { recordingIo } from "../../../support/recordingIo.ts";
+import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
+
+const PROJECT = JSON.stringify({
+  schema: "diodeloom/project@1",
+  title: "One seven",
+  counter: { states: 3 },
+  display: {},
+  show: ["1", "7", "8"],
+});
+
+describe("budget command", () => {
+  it("prints the budget JSON and exits 0", async () => {
+    const io = recordingIo({ "p.json": PROJECT });
+    expect(await main(["budget", "p.json", "--json", "--direct"], io)).toBe(0);
+    const b = JSON.parse(io.stdout.join("")) as { schema: string; trim: { series: string } };
+    expect(b.schema).toBe("diodeloom/budget@1");
+    expect(b.trim.series).toBe("E24");
+  });
+
+  it("uses the E96 series when asked", async () => {
+    const io = recordingIo({ "p.json": PROJECT });
+    expect(await main(["budget", "p.json", "--json", "--direct", "--series", "E96"], io)).toBe(0);
+    expect((JSON.parse(io.stdout.join("")) as { trim: { series: string } }).trim.series).toBe("E96");
+  });
+
+  it("passes project errors through with the file name and exit 2", async () => {
+    const bad = JSON.stringify({
+      schema: "diodeloom/project@1",
+      counter: { states: 2 },
+      display: {},
+      show: ["0", "1"],
+      electrical: { string: { dies: 0 } },
+    });
+    const io = recordingIo({ "bad.json": bad });
+    expect(await main(["budget", "bad.json"], io)).toBe(2);
+    expect(io.stderr.join("")).toMatch(/^bad\.json: electrical\.string\.dies: must be a whole number/);
+  });
+
+  it("describes a shared design: depths, trim, corners and the cautions first", () => {
+    const d = sharedDieRoller();
+    const b = solveBudget(d.project, d.spec, d.matrix);
+    if (!b.ok) throw new Error(b.error.message);
+    const text = describeBudget(d.project, d.spec, d.matrix, b.value);
+    const lines = text.split("\n");
+    expect(lines[0]).toBe(d.project.title);
+    expect(lines.findIndex((l) => l.includes("DANGER hazardous-voltage"))).toBeLessThan(
+      lines.findIndex((l) => l.startsWith("String current per state")),
+    );
+    expect(text).toMatch(/^ {2}1tr +2 /m);
+    expect(text).toMatch(/^ {2}1c +1 /m);
+    expect(text).toContain("Tolerance corners");
+  });
+});
