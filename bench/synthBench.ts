@@ -93,7 +93,19 @@ export async function runSynthBench(log: (line: string) => void): Promise<void> 
       const gap = m.lowerBound === null ? "-" : m.count - m.lowerBound;
       log(
         row(
-          [c.name, spec.states.length, depth, litCellCount(spec), heur, heurMs.toFixed(1), m.count, m.lowerBound ?? "-", gap, m.optimal ? "yes" : "no", exactMs.toFixed(0)],
+          [
+            c.name,
+            spec.states.length,
+            depth,
+            litCellCount(spec),
+            heur,
+            heurMs.toFixed(1),
+            m.count,
+            m.lowerBound ?? "-",
+            gap,
+            m.optimal ? "yes" : "no",
+            exactMs.toFixed(0),
+          ],
           widths,
         ),
       );

@@ -131,7 +131,11 @@ export function lpLowerBound(
           if (!complete) return;
         }
       };
-      visit([], Array.from({ length: p.n }, (_, k) => k), 0);
+      visit(
+        [],
+        Array.from({ length: p.n }, (_, k) => k),
+        0,
+      );
     }
     if (!complete) break;
     let dualSum = 0;

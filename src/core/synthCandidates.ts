@@ -70,7 +70,11 @@ export function candidateFamily(
       if (overflow) return;
     }
   };
-  visit([], Array.from({ length: p.n }, (_, k) => k), 0);
+  visit(
+    [],
+    Array.from({ length: p.n }, (_, k) => k),
+    0,
+  );
   if (!overflow) return { buses: withExtra(p, found, extra), complete: true };
 
   // Too many shapes: keep the most promising ones, by diodes a full block saves.
@@ -86,7 +90,12 @@ export function candidateFamily(
       collect(t2, s2, o + 1, budget);
     }
   };
-  collect([], Array.from({ length: p.n }, (_, k) => k), 0, { left: 2_000_000 });
+  collect(
+    [],
+    Array.from({ length: p.n }, (_, k) => k),
+    0,
+    { left: 2_000_000 },
+  );
   scored.push(...all.values());
   const save = (b: BusCandidate): number => b.states.length * b.outputs.length - b.states.length - b.outputs.length;
   scored.sort((a, b) => save(b) - save(a) || a.outputs.join(",").localeCompare(b.outputs.join(",")));

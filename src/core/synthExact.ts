@@ -146,7 +146,13 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     lowerBound = Math.min(lowerBound, count);
     return { ...base, plan, lowerBound, status: status === STATUS_OPTIMAL ? "optimal" : "time-limit" };
   } catch (e) {
-    return { ...base, plan: warm, lowerBound: Math.min(floor, warmCount), status: "solver-failed", message: String((e as Error)?.message ?? e) };
+    return {
+      ...base,
+      plan: warm,
+      lowerBound: Math.min(floor, warmCount),
+      status: "solver-failed",
+      message: String((e as Error)?.message ?? e),
+    };
   } finally {
     try {
       highsModel?.dispose();

@@ -13,7 +13,15 @@
  * Basis Problem"): candidate output sets are the rows and the pairwise row
  * intersections.
  */
-import { levelRules, planCount, type PlanBus, type PlanLink, type SharingPlan, type SharingProblem, type SharingRules } from "./synthPlan.ts";
+import {
+  levelRules,
+  planCount,
+  type PlanBus,
+  type PlanLink,
+  type SharingPlan,
+  type SharingProblem,
+  type SharingRules,
+} from "./synthPlan.ts";
 
 /** Outer-search budget: most level assignments tried. Keeps big instances bounded. */
 const MAX_EVALUATIONS = 400;
@@ -131,10 +139,17 @@ function coverForLevels(p: SharingProblem, rules: SharingRules, levels: readonly
 type GreedyOrder = "gain" | "links-first" | "ratio";
 const ORDERS: readonly GreedyOrder[] = ["gain", "links-first", "ratio"];
 
-function greedyCover(p: SharingProblem, rules: SharingRules, levels: readonly number[], cands: readonly number[][], order: GreedyOrder): SharingPlan | null {
+function greedyCover(
+  p: SharingProblem,
+  rules: SharingRules,
+  levels: readonly number[],
+  cands: readonly number[][],
+  order: GreedyOrder,
+): SharingPlan | null {
   const linksFirst = order === "links-first";
   // Score of a structure that saves `gain` diodes by placing `cost`.
-  const score = order === "ratio" ? (gain: number, cost: number): number => (gain > 0 ? (gain + cost) / cost : 0) : (gain: number): number => gain;
+  const score =
+    order === "ratio" ? (gain: number, cost: number): number => (gain > 0 ? (gain + cost) / cost : 0) : (gain: number): number => gain;
   const { n, m } = p;
   const lvl = (o: number): number => levels[o] ?? 1;
   const directOk = Array.from({ length: m }, (_, o) => levelRules.direct(rules, lvl(o)));

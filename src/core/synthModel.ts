@@ -249,4 +249,3 @@ function chunk<T>(xs: readonly T[], size: number): T[][] {
   for (let i = 0; i < xs.length; i += size) out.push(xs.slice(i, i + size));
   return out;
 }
-

@@ -80,9 +80,7 @@ export function problemFromLit(lit: readonly (readonly boolean[])[]): SharingPro
     }
     row.push(r);
   }
-  const within = col.map((ca, a) =>
-    col.map((_, b) => a !== b && (ca.length > 0 && ca.every((k) => lit[k]?.[b] === true))),
-  );
+  const within = col.map((ca, a) => col.map((_, b) => a !== b && ca.length > 0 && ca.every((k) => lit[k]?.[b] === true)));
   return { n, m, lit, col, row, within };
 }
 

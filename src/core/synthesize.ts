@@ -65,7 +65,11 @@ export interface SynthHooks {
  * const r = await synthesize(spec, synthSettings(project, { mode: "fast" }));
  * if (r.ok) r.value.count;
  */
-export async function synthesize(spec: DecodeSpec, settings: SynthSettings, hooks: SynthHooks = {}): Promise<Result<VerifiedMatrix, SynthFailure>> {
+export async function synthesize(
+  spec: DecodeSpec,
+  settings: SynthSettings,
+  hooks: SynthHooks = {},
+): Promise<Result<VerifiedMatrix, SynthFailure>> {
   const limits = checkLimits(settings);
   if (limits) return fail(limits);
   const p = sharingProblem(spec);
@@ -86,14 +90,28 @@ export async function synthesize(spec: DecodeSpec, settings: SynthSettings, hook
   hooks.onProgress?.({ stage: "heuristic", count: fast.value.count, lowerBound: null });
 
   const remainingMs = Math.max(10, settings.timeLimitMs - (Date.now() - started));
-  const exact = await exactPlan(p, rules, heuristic, { timeLimitMs: remainingMs, seed: settings.seed, loadHighs: hooks.loadHighs ?? defaultHighsLoader });
+  const exact = await exactPlan(p, rules, heuristic, {
+    timeLimitMs: remainingMs,
+    seed: settings.seed,
+    loadHighs: hooks.loadHighs ?? defaultHighsLoader,
+  });
   const count = planCount(exact.plan);
-  const result = verified(spec, matrixOf(spec, exact.plan, settings, exact.lowerBound, exact.status === "solver-failed" ? "heuristic" : "exact"), settings);
+  const result = verified(
+    spec,
+    matrixOf(spec, exact.plan, settings, exact.lowerBound, exact.status === "solver-failed" ? "heuristic" : "exact"),
+    settings,
+  );
   if (result.ok) hooks.onProgress?.({ stage: "exact", count, lowerBound: exact.lowerBound });
   return result;
 }
 
-function matrixOf(spec: DecodeSpec, plan: SharingPlan, s: SynthSettings, lowerBound: number | null, method: "heuristic" | "exact"): DiodeMatrix {
+function matrixOf(
+  spec: DecodeSpec,
+  plan: SharingPlan,
+  s: SynthSettings,
+  lowerBound: number | null,
+  method: "heuristic" | "exact",
+): DiodeMatrix {
   const count = planCount(plan);
   return buildMatrix(spec, planEdges(spec, plan), {
     lowerBound,
@@ -107,9 +125,13 @@ function matrixOf(spec: DecodeSpec, plan: SharingPlan, s: SynthSettings, lowerBo
 /** Settings no matrix can meet (only reachable from code; the schema and CLI check ranges). */
 function checkLimits(s: SynthSettings): SynthFailure | null {
   if (!Number.isInteger(s.maxDepth) || s.maxDepth < 1 || s.maxDepth > 3) {
-    return { kind: "infeasible", message: `the depth limit must be 1, 2 or 3 diodes (got ${s.maxDepth}); every path needs at least one diode` };
+    return {
+      kind: "infeasible",
+      message: `the depth limit must be 1, 2 or 3 diodes (got ${s.maxDepth}); every path needs at least one diode`,
+    };
   }
-  if (!(s.timeLimitMs > 0)) return { kind: "infeasible", message: `the time limit must be a positive number of milliseconds (got ${s.timeLimitMs})` };
+  if (!(s.timeLimitMs > 0))
+    return { kind: "infeasible", message: `the time limit must be a positive number of milliseconds (got ${s.timeLimitMs})` };
   return null;
 }
 

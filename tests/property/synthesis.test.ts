@@ -18,9 +18,13 @@ function settings(mode: SynthMode, maxDepth: number, depth: DepthPolicy, timeLim
 }
 
 const litMatrix = (maxN: number, maxM: number) =>
-  fc.integer({ min: 2, max: maxN }).chain((n) =>
-    fc.integer({ min: 1, max: maxM }).chain((m) => fc.array(fc.array(fc.boolean(), { minLength: m, maxLength: m }), { minLength: n, maxLength: n })),
-  );
+  fc
+    .integer({ min: 2, max: maxN })
+    .chain((n) =>
+      fc
+        .integer({ min: 1, max: maxM })
+        .chain((m) => fc.array(fc.array(fc.boolean(), { minLength: m, maxLength: m }), { minLength: n, maxLength: n })),
+    );
 
 /** Path lengths into every output, walked here rather than trusted from the verifier. */
 function pathLengths(spec: DecodeSpec, diodes: readonly { from: string; to: string }[]): Map<string, Set<number>> {
@@ -117,7 +121,8 @@ function bruteMinimum(lit: boolean[][], depth: DepthPolicy): number {
       });
       // Cells still to cover, in level-2 outputs.
       const cells: number[] = [];
-      for (let k = 0; k < n; k++) for (let o = 0; o < m; o++) if (level2(o) && lit[k]?.[o] && !covered.has(k * m + o)) cells.push(k * m + o);
+      for (let k = 0; k < n; k++)
+        for (let o = 0; o < m; o++) if (level2(o) && lit[k]?.[o] && !covered.has(k * m + o)) cells.push(k * m + o);
       const cost = base + links + coverCost(lit, cells, level2, depth === "mixed");
       best = Math.min(best, cost);
     }
@@ -183,7 +188,10 @@ describe("exact optimum against brute force (4 x 4 and smaller, depth 2, seed 20
         expect(r.ok).toBe(true);
         if (!r.ok) return;
         // The brute force works on the driven outputs only, as the spec does.
-        const min = bruteMinimum(spec.lit.map((row) => [...row]), depth);
+        const min = bruteMinimum(
+          spec.lit.map((row) => [...row]),
+          depth,
+        );
         expect(r.value.count).toBeGreaterThanOrEqual(min);
         if (r.value.lowerBound !== null) expect(r.value.lowerBound).toBeLessThanOrEqual(min);
         if (r.value.optimal) expect(r.value.count).toBe(min);

@@ -9,7 +9,13 @@ import { litRows, specFromLit } from "../../support/litSpec.ts";
 function run(rows: string[], depth: DepthPolicy, maxDepth = 2, links = true) {
   const spec = specFromLit(litRows(...rows));
   const plan = heuristicPlan(problemFromLit(spec.lit), { maxDepth, depth, buses: true, links });
-  const m = buildMatrix(spec, planEdges(spec, plan), { lowerBound: null, optimal: false, depthLimit: maxDepth, depth, method: "heuristic" });
+  const m = buildMatrix(spec, planEdges(spec, plan), {
+    lowerBound: null,
+    optimal: false,
+    depthLimit: maxDepth,
+    depth,
+    method: "heuristic",
+  });
   return { plan, verdict: verifyMatrix(spec, m, { maxDepth, depth }) };
 }
 

@@ -18,7 +18,15 @@ describe("buildSharingModel", () => {
     expect(model.columns).toContain("l_2_0"); // every state lighting o2 lights o0
   });
   it("round-trips a plan through warm start and decode", () => {
-    const plan = { direct: [[0, 0], [1, 0], [2, 0]] as [number, number][], buses: [], links: [{ from: 0, to: 1 }] };
+    const plan = {
+      direct: [
+        [0, 0],
+        [1, 0],
+        [2, 0],
+      ] as [number, number][],
+      buses: [],
+      links: [{ from: 0, to: 1 }],
+    };
     const withO2 = { ...plan, buses: [{ states: [0, 1], outputs: [2] }] };
     const start = model.warmStart(withO2);
     expect(start).not.toBeNull();

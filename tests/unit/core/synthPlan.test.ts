@@ -6,7 +6,11 @@ describe("synthPlan", () => {
   const lit = litRows("110", "111", "011", "000");
   it("indexes rows, columns and containment", () => {
     const p = problemFromLit(lit);
-    expect(p.col).toEqual([[0, 1], [0, 1, 2], [1, 2]]);
+    expect(p.col).toEqual([
+      [0, 1],
+      [0, 1, 2],
+      [1, 2],
+    ]);
     expect(p.row[3]).toEqual([]);
     expect(p.within[0]?.[1]).toBe(true); // every state lighting o0 lights o1
     expect(p.within[1]?.[0]).toBe(false);
