@@ -71,6 +71,8 @@ export function ComparisonPanel() {
     );
   };
 
+  /** The table belongs to the project on screen; otherwise it is stale and cannot be adopted from. */
+  const fresh = () => table() !== null && table()?.project === app.live()?.project;
   const current = (row: GlyphStyleRow) => {
     const p = app.live()?.project;
     return !!p && Object.entries(row.glyphs).every(([ch, lit]) => (p.glyphs[ch] ?? []).join("") === segmentsOfString(lit).join(""));
@@ -85,6 +87,11 @@ export function ComparisonPanel() {
         <Show when={table()}>
           <span class="muted small">{table()?.method} counts</span>
         </Show>
+        <Show when={table() && !fresh()}>
+          <span class="chip stale" data-testid="comparison-stale">
+            ⏸ stale, updating
+          </span>
+        </Show>
         <Show
           when={!running()}
           fallback={
@@ -93,7 +100,7 @@ export function ComparisonPanel() {
             </button>
           }
         >
-          <button type="button" class="small-btn" onClick={runExact} disabled={!table() || table()?.rows.length === 0}>
+          <button type="button" class="small-btn" onClick={runExact} disabled={!fresh() || table()?.rows.length === 0}>
             Exact
           </button>
         </Show>
@@ -119,7 +126,7 @@ export function ComparisonPanel() {
               <tbody>
                 <For each={t().rows}>
                   {(row, i) => (
-                    <tr class={current(row) ? "is-current" : ""}>
+                    <tr class={fresh() && current(row) ? "is-current" : ""}>
                       <td class="glyph-cells">
                         <For each={Object.entries(row.glyphs)}>
                           {([ch, lit]) => (
@@ -136,7 +143,7 @@ export function ComparisonPanel() {
                       </td>
                       <td>{row.optimal ? "= min" : (row.lowerBound ?? "–")}</td>
                       <td>
-                        <Show when={!current(row)} fallback={<span class="muted small">in use</span>}>
+                        <Show when={fresh() && !current(row)} fallback={<span class="muted small">{fresh() ? "in use" : "–"}</span>}>
                           <button type="button" class="small-btn" onClick={() => adopt(row)} data-testid={`adopt-${i()}`}>
                             Adopt
                           </button>

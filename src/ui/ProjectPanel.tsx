@@ -2,7 +2,7 @@
  * The Project panel: title, counter and display, the per-state texts (as a
  * list, or filled from a counting pattern) and the synthesis options.
  */
-import { createSignal, For, Index, Show } from "solid-js";
+import { createMemo, createSignal, For, Index, Show } from "solid-js";
 import type { CellKind, DepthPolicy } from "../core/project.ts";
 import { splitText } from "../core/projectSchema.ts";
 import { formatProblems } from "../core/result.ts";
@@ -42,14 +42,14 @@ export function ProjectPanel() {
     app.sealEdit();
   };
 
-  const previewCell = () => {
-    const x = d();
-    return { kind: x.display.cell, segments: draftSegments(x) };
-  };
+  // The previews depend only on the cell and the glyph table, not on the texts: a memo compared
+  // by value keeps typing in one row from redrawing every other row's preview.
+  const sameJson = <T,>(a: T, b: T) => JSON.stringify(a) === JSON.stringify(b);
+  const previewCell = createMemo(() => ({ kind: d().display.cell, segments: draftSegments(d()) }), undefined, { equals: sameJson });
+  const glyphTable = createMemo(() => effectiveGlyphs(d()), undefined, { equals: sameJson });
   const positionsOf = (text: string) => {
-    const x = d();
-    const cell = { kind: x.display.cell, segments: draftSegments(x) };
-    const table = effectiveGlyphs(x);
+    const cell = previewCell();
+    const table = glyphTable();
     return splitText(text, cell).map((p) => [...(table[p.char] ?? []), ...(p.dp ? ["dp"] : [])]);
   };
 

@@ -326,6 +326,57 @@ describe("the web app", () => {
     console.log(figures.join("\n"));
   });
 
+  it("adopts a row of the glyph-style comparison", async () => {
+    const table = page.getByTestId("comparison");
+    const row = table.locator('tr:has(button[data-testid^="adopt-"])').first();
+    await expect.poll(() => row.count(), { timeout: 20_000 }).toBe(1);
+    const button = row.locator('button[data-testid^="adopt-"]');
+    const rowCount = Number(await row.locator("td").nth(1).locator("strong").textContent());
+    const glyphs = await row.locator(".glyph-pair").evaluateAll((els) => els.map((e) => e.getAttribute("title")));
+    await button.click();
+    await expect
+      .poll(() => table.locator("tr.is-current .glyph-pair").evaluateAll((els) => els.map((e) => e.getAttribute("title"))), {
+        timeout: 20_000,
+      })
+      .toEqual(glyphs);
+    // The comparison and the live result use the same heuristic, so the counts agree.
+    expect(await shownCount()).toBe(rowCount);
+    const saved = JSON.parse(await savedProject());
+    for (const g of glyphs) {
+      const [ch, lit] = (g ?? "").split(" = ");
+      expect([lit, undefined]).toContain(saved.glyphs[ch ?? ""]);
+    }
+    await page.getByTestId("undo").click();
+  });
+
+  it("highlights the diode under the pointer and steps through diodes from the keyboard", async () => {
+    const first = page.locator('[data-testid="matrix-drawing"] g[data-ref="D1"]');
+    const box = await first.boundingBox();
+    if (!box) throw new Error("D1 is not drawn");
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await expect.poll(() => page.getByTestId("diode-readout").textContent()).toMatch(/^D1 anode S0/);
+    expect(await page.locator('[data-testid="matrix-drawing"] .hl-row').count()).toBeGreaterThan(0);
+    expect(await page.locator('[data-testid="matrix-drawing"] .hl-col').count()).toBeGreaterThan(0);
+    await page.mouse.move(2, 790);
+    await page.locator(".drawing-scroll").focus();
+    await page.keyboard.press("ArrowRight");
+    await page.keyboard.press("ArrowRight");
+    await expect.poll(() => page.getByTestId("diode-readout").textContent()).toMatch(/^D2 /);
+    await page.keyboard.press("+");
+    await expect.poll(() => page.locator(".zoom-readout").textContent()).toMatch(/150/);
+    await page.keyboard.press("-");
+  });
+
+  it("prints on Letter paper when Letter is chosen", async () => {
+    await page.locator("#f-paper").selectOption("letter");
+    const pdf = (await page.pdf({ preferCSSPageSize: true })).toString("latin1");
+    // Letter landscape is 11 x 8.5 in, 792 x 612 points.
+    const box = /\/MediaBox\s*\[\s*0\s+0\s+([\d.]+)\s+([\d.]+)\s*\]/.exec(pdf);
+    expect(Math.round(Number(box?.[1]))).toBe(792);
+    expect(Math.round(Number(box?.[2]))).toBe(612);
+    await page.locator("#f-paper").selectOption("a4");
+  });
+
   it("looks right at 1280x800 and 390x844 (screenshots for a person to look at)", async () => {
     await page.setViewportSize({ width: 1280, height: 800 });
     await page.screenshot({ path: "/tmp/diodeloom-app-1280x800.png" });
