@@ -197,12 +197,15 @@ export function buildCircuit(
   if (driven.length > 0) elements.push({ kind: "vsource", name: "VSUP", node: SUPPLY_NODE, volts: model.supply.volts });
   if (tied.size > 0) elements.push({ kind: "vsource", name: "VHI", node: TIE_ON_NODE, volts: co.high });
   // Designators as in the parts count: Q/R(emitter)/DS by display order,
-  // then pull-downs of driven outputs, then tie-on resistors.
+  // then pull-downs of driven outputs, then tie-on resistors, then the
+  // pull-downs of tied-on outputs.
   let r = driven.length;
   const pullDownRef = new Map<string, string>();
   for (const o of matrix.outputs) pullDownRef.set(o, `R${++r}`);
   const tieRef = new Map<string, string>();
   for (const o of matrix.tiedOn) tieRef.set(o, `R${++r}`);
+  const tiedPullDownRef = new Map<string, string>();
+  for (const o of matrix.tiedOn) tiedPullDownRef.set(o, `R${++r}`);
 
   driven.forEach((o, i) => {
     const base = `o${o}`;
@@ -225,8 +228,10 @@ export function buildCircuit(
     if (pd === undefined) throw new Error(`bug: no pull-down designator for ${o}`);
     if (tied.has(o)) {
       elements.push({ kind: "resistor", name: pd, role: "tie-on", a: TIE_ON_NODE, b: base, ohms: co.resistance });
-      // A tied-on output has no matrix line, so its pull-down gets its own name.
-      elements.push({ kind: "resistor", name: `RPD${o}`, role: "pull-down", a: base, b: GROUND, ohms: model.pullDown });
+      // A tied-on output's pull-down comes after the tie-on resistors in the parts count.
+      const tpd = tiedPullDownRef.get(o);
+      if (tpd === undefined) throw new Error(`bug: no pull-down designator for tied-on ${o}`);
+      elements.push({ kind: "resistor", name: tpd, role: "pull-down", a: base, b: GROUND, ohms: model.pullDown });
     } else {
       elements.push({ kind: "resistor", name: pd, role: "pull-down", a: base, b: GROUND, ohms: model.pullDown });
     }

@@ -36,7 +36,7 @@ export function formatMilliamps(amperes: number): string {
 
 /**
  * Counts the parts. Every driven or tied-on output has an NPN driver with an
- * emitter resistor and a display string; every driven output has a pull-down;
+ * emitter resistor, a display string and a pull-down on its base;
  * a tied-on output's base is held up by a resistor equal to a counter line's
  * source resistance, so it sits where a lit segment sits.
  *
@@ -87,19 +87,24 @@ export function countParts(
       serves: outs,
     });
   }
-  if (matrix.outputs.length > 0) {
+  // Designators: pull-downs of driven outputs, then tie-on resistors, then the
+  // pull-downs of tied-on outputs (the circuit builder numbers them alike).
+  const pullDownRefs = matrix.outputs.map(() => `R${++r}`);
+  const tieRefs = matrix.tiedOn.map(() => `R${++r}`);
+  const tiedPullDownRefs = matrix.tiedOn.map(() => `R${++r}`);
+  if (ordered.length > 0) {
     groups.push({
       kind: "pull-down",
-      refs: matrix.outputs.map(() => `R${++r}`),
+      refs: [...pullDownRefs, ...tiedPullDownRefs],
       value: formatOhms(e.pullDown),
-      description: "output line pull-down",
-      serves: matrix.outputs,
+      description: "driver base pull-down",
+      serves: [...matrix.outputs, ...matrix.tiedOn],
     });
   }
   if (matrix.tiedOn.length > 0) {
     groups.push({
       kind: "tie-on-resistor",
-      refs: matrix.tiedOn.map(() => `R${++r}`),
+      refs: tieRefs,
       value: formatOhms(e.counterOutput.resistance),
       description: "base bias for an always-lit segment, from the counter's high level",
       serves: matrix.tiedOn,

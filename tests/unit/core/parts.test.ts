@@ -19,13 +19,13 @@ describe("parts", () => {
     expect(refRanges([])).toBe("");
   });
 
-  it("counts one driver, emitter resistor and string per lit output, pull-downs on driven ones only", () => {
+  it("counts one driver, emitter resistor, pull-down and string per lit output, and a tie-on resistor per tied-on one", () => {
     // " 1" / "12": 7 driven outputs and 2b tied on.
     const p = showing([" 1", "12"], 2);
     const spec = compileSpec(p);
     const groups = countParts(p, spec, synthesizeDirect(spec, 1, "mixed"));
     const qty = Object.fromEntries(groups.map((g) => [g.kind, g.refs.length]));
-    expect(qty).toEqual({ diode: 7, transistor: 8, "emitter-resistor": 8, "pull-down": 7, "tie-on-resistor": 1, display: 8 });
+    expect(qty).toEqual({ diode: 7, transistor: 8, "emitter-resistor": 8, "pull-down": 8, "tie-on-resistor": 1, display: 8 });
     const allRefs = groups.flatMap((g) => g.refs);
     expect(new Set(allRefs).size).toBe(allRefs.length);
   });
@@ -38,5 +38,25 @@ describe("parts", () => {
       ["8.2k", ["1a"]],
       ["10k", ["1b", "1c"]],
     ]);
+  });
+});
+
+describe("parts count against the circuit", () => {
+  it("names every resistor, driver and string the circuit builder places, and no other", async () => {
+    const { buildCircuit } = await import("../../../src/core/circuit.ts");
+    const p = showing([" 1", "12", "22"], 2);
+    const spec = compileSpec(p);
+    expect(spec.tiedOn.length).toBeGreaterThan(0);
+    const m = synthesizeDirect(spec, 1, "mixed");
+    const circuit = buildCircuit(spec, m, p.electrical, 0);
+    const placed = circuit.elements
+      .filter((el) => el.kind === "npn" || el.kind === "string" || (el.kind === "resistor" && el.role !== "counter"))
+      .map((el) => el.name)
+      .sort();
+    const counted = countParts(p, spec, m)
+      .filter((g) => g.kind !== "diode")
+      .flatMap((g) => g.refs)
+      .sort();
+    expect(placed).toEqual(counted);
   });
 });
