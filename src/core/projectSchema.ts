@@ -43,16 +43,16 @@ interface NumberRule {
 function num(rule: NumberRule) {
   const unit = rule.unit ? ` ${rule.unit}` : "";
   const what = rule.integer ? "a whole number" : "a number";
+  const low = rule.min !== undefined ? `at least ${rule.min}` : rule.above !== undefined ? `greater than ${rule.above}` : undefined;
+  const high = rule.max !== undefined ? `at most ${rule.max}` : undefined;
   const range =
     rule.min !== undefined && rule.max !== undefined
       ? ` from ${rule.min} to ${rule.max}${unit}`
-      : rule.min !== undefined
-        ? ` of at least ${rule.min}${unit}`
-        : rule.above !== undefined
-          ? ` greater than ${rule.above}${unit}`
-          : rule.max !== undefined
-            ? ` of at most ${rule.max}${unit}`
-            : unit;
+      : low && high
+        ? ` ${low} and ${high}${unit}`
+        : low || high
+          ? ` ${low ?? high}${unit}`
+          : unit;
   const message = `must be ${what}${range}`;
   return v.pipe(
     v.number(message),
@@ -231,7 +231,7 @@ export function validateProject(data: unknown): Result<Project> {
   if (schemaField !== PROJECT_SCHEMA) {
     return fail([{ path: "schema", message: `must be "${PROJECT_SCHEMA}" (found ${JSON.stringify(schemaField) ?? "nothing"})` }]);
   }
-  const parsed = v.safeParse(ProjectSchema, data);
+  const parsed = v.safeParse(ProjectSchema, data, { abortPipeEarly: true });
   if (!parsed.success) {
     return fail(parsed.issues.slice(0, 20).map((i) => ({ path: v.getDotPath(i) ?? "", message: i.message })));
   }
