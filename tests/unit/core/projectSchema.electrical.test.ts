@@ -37,7 +37,7 @@ describe("electrical bad input", () => {
     [{ diode: { n: 0 } }, "electrical.diode.n"],
     [{ string: { n: -1 } }, "electrical.string.n"],
   ])("rejects an emission coefficient n <= 0: %j", (electrical, path) => {
-    expect(problems(electrical)).toEqual([{ path, message: "must be a number greater than 0" }]);
+    expect(problems(electrical)).toEqual([{ path, message: "must be a number greater than 0 and at most 10" }]);
   });
 
   it("rejects a supply below the string voltage, saying what the dies drop", () => {
