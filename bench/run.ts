@@ -1,0 +1,16 @@
+/**
+ * `npm run bench`: speed figures of this machine, printed as tables. Not a
+ * test: nothing here passes or fails; the targets are printed beside the
+ * figures so a reader can compare.
+ */
+import { availableParallelism, cpus, totalmem } from "node:os";
+import { runBudgetBench } from "./budgetBench.ts";
+import { runSynthBench } from "./synthBench.ts";
+
+const log = (line: string): void => void process.stdout.write(line + "\n");
+
+log(`diodeloom bench: node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? "unknown cpu"}), ${(totalmem() / 2 ** 30).toFixed(0)} GiB`);
+log("");
+await runSynthBench(log);
+log("");
+await runBudgetBench(log);
