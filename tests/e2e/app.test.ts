@@ -12,6 +12,7 @@ import type { BrowserContext, Page } from "playwright-core";
 import { compileSpec } from "../../src/core/decodeSpec.ts";
 import { parseProject } from "../../src/core/projectSchema.ts";
 import { synthesize, synthSettings } from "../../src/core/synthesize.ts";
+import { exampleText } from "../support/projects.ts";
 import { startApp, type AppHarness } from "./appBrowser.ts";
 
 let app: AppHarness;
@@ -375,6 +376,18 @@ describe("the web app", () => {
     expect(Math.round(Number(box?.[1]))).toBe(792);
     expect(Math.round(Number(box?.[2]))).toBe(612);
     await page.locator("#f-paper").selectOption("a4");
+  });
+
+  it("opens a valid file with a custom cell, and undo brings the previous project back", async () => {
+    const before = await savedProject();
+    const text = exampleText("die-roller");
+    await page.getByTestId("open-input").setInputFiles({ name: "die-roller.json", mimeType: "application/json", buffer: Buffer.from(text) });
+    await expect.poll(() => page.locator("#f-title").inputValue()).toMatch(/Die roller/);
+    await expect.poll(async () => shownCount()).toBe(await coreFastCount(text));
+    const pads = await page.locator('[data-testid="glyph-cell"] [data-segment]').evaluateAll((els) => els.map((e) => e.getAttribute("data-segment")));
+    expect(pads).toEqual(["tl", "tr", "ml", "c", "mr", "bl", "br"]);
+    await page.getByTestId("undo").click();
+    await expect.poll(() => savedProject()).toBe(before);
   });
 
   it("looks right at 1280x800 and 390x844 (screenshots for a person to look at)", async () => {
