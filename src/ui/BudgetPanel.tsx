@@ -31,8 +31,8 @@ export function BudgetPanel() {
     <section class="panel" aria-labelledby="budget-h" data-testid="budget">
       <div class="panel-head">
         <h2 id="budget-h">Budget</h2>
-        <Show when={app.budgetStale() || (app.live() && !view())}>
-          <span class="chip stale">⏸ {view() ? "stale, updating" : "working"}</span>
+        <Show when={app.stale() || app.budgetStale() || (app.live() && !view())}>
+          <span class="chip stale">↻ {app.stale() ? "stale: from the last valid project" : view() ? "stale, updating" : "working"}</span>
         </Show>
       </div>
       <Show when={failure()}>

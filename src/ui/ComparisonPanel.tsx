@@ -87,9 +87,12 @@ export function ComparisonPanel() {
         <Show when={table()}>
           <span class="muted small">{table()?.method} counts</span>
         </Show>
+        <Show when={app.stale() && fresh()}>
+          <span class="chip stale">↻ stale: from the last valid project</span>
+        </Show>
         <Show when={table() && !fresh()}>
           <span class="chip stale" data-testid="comparison-stale">
-            ⏸ stale, updating
+            ↻ stale, updating
           </span>
         </Show>
         <Show

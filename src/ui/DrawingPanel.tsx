@@ -57,7 +57,7 @@ export function DrawingPanel() {
         </div>
         <span class="muted small">{drawing()?.sheets.length ?? 0} sheet(s)</span>
         <Show when={app.stale()}>
-          <span class="chip stale">⏸ stale</span>
+          <span class="chip stale">↻ stale</span>
         </Show>
         <span class="hover-readout" aria-live="polite" data-testid="diode-readout">
           <Show when={pickedDiode()} fallback={<span class="muted">point at a diode, or focus the drawing and use the arrow keys</span>}>

@@ -2,13 +2,20 @@
  * The result line: the verified diode count, how it was found, whether it
  * is stale, and the exact run's progress with its cancel button.
  */
-import { Match, Show, Switch } from "solid-js";
+import { createSignal, Match, onCleanup, Show, Switch } from "solid-js";
 import { app } from "./appState.ts";
 import { gapPercent } from "./exactProtocol.ts";
 
 const METHOD_NAMES = { direct: "direct", heuristic: "heuristic", exact: "exact" } as const;
 
 export function ResultBar() {
+  // A clock for the running exact optimizer's elapsed time (display only).
+  const [now, setNow] = createSignal(performance.now());
+  const tick = setInterval(() => {
+    if (app.exact().status === "running") setNow(performance.now());
+  }, 500);
+  onCleanup(() => clearInterval(tick));
+  const limitS = () => Math.round(app.draft().synthesis.timeLimitMs / 1000);
   const m = () => app.live()?.matrix;
   const bound = () => {
     const x = m();
@@ -31,7 +38,7 @@ export function ResultBar() {
         </span>
         <Show when={app.stale()}>
           <span class="chip stale" data-testid="stale">
-            ⏸ stale: fix the project to update
+            ↻ stale: fix the project to update
           </span>
         </Show>
         <Show when={app.liveMs() !== null}>
@@ -59,6 +66,9 @@ export function ResultBar() {
                   <span class="spinner" aria-hidden="true" />
                   exact: best {p().best ?? "–"}, bound {p().bound ?? "–"}
                   <Show when={gapPercent(p()) !== null}>, gap {gapPercent(p())?.toFixed(1)} %</Show>
+                  <span class="muted">
+                    · {Math.max(0, Math.floor((now() - (s() as { startedAtMs: number }).startedAtMs) / 1000))} s of {limitS()} s
+                  </span>
                   <button type="button" class="small-btn" onClick={() => app.cancelExact()} data-testid="exact-cancel">
                     Cancel
                   </button>
