@@ -381,10 +381,14 @@ describe("the web app", () => {
   it("opens a valid file with a custom cell, and undo brings the previous project back", async () => {
     const before = await savedProject();
     const text = exampleText("die-roller");
-    await page.getByTestId("open-input").setInputFiles({ name: "die-roller.json", mimeType: "application/json", buffer: Buffer.from(text) });
+    await page
+      .getByTestId("open-input")
+      .setInputFiles({ name: "die-roller.json", mimeType: "application/json", buffer: Buffer.from(text) });
     await expect.poll(() => page.locator("#f-title").inputValue()).toMatch(/Die roller/);
     await expect.poll(async () => shownCount()).toBe(await coreFastCount(text));
-    const pads = await page.locator('[data-testid="glyph-cell"] [data-segment]').evaluateAll((els) => els.map((e) => e.getAttribute("data-segment")));
+    const pads = await page
+      .locator('[data-testid="glyph-cell"] [data-segment]')
+      .evaluateAll((els) => els.map((e) => e.getAttribute("data-segment")));
     expect(pads).toEqual(["tl", "tr", "ml", "c", "mr", "bl", "br"]);
     await page.getByTestId("undo").click();
     await expect.poll(() => savedProject()).toBe(before);
