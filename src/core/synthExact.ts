@@ -12,7 +12,7 @@
 import { candidateFamily, DEFAULT_FAMILY_LIMITS, familyFromShapes, type FamilyLimits } from "./synthCandidates.ts";
 import { lpLowerBound, trivialLowerBound } from "./synthBounds.ts";
 import { buildSharingModel } from "./synthModel.ts";
-import { planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./synthPlan.ts";
+import { litCount, planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./synthPlan.ts";
 
 /** The part of a HiGHS model the driver uses (the npm `highs` persistent API). */
 export interface HighsModelLike {
@@ -141,7 +141,11 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     }
     const count = planCount(plan);
     let lowerBound = floor;
-    if (boundIsGlobal && Number.isFinite(dual)) lowerBound = Math.max(floor, Math.ceil(dual - model.maxTieWeight - 1e-6));
+    if (boundIsGlobal && Number.isFinite(dual)) {
+      const milpBound = Math.ceil(dual - model.maxTieWeight - 1e-6);
+      // Uniform: the model is the all-bus matrix; the all-direct one is the other choice.
+      lowerBound = Math.max(floor, rules.depth === "uniform" ? Math.min(litCount(p), milpBound) : milpBound);
+    }
     if (lpBound !== null) lowerBound = Math.max(lowerBound, lpBound);
     lowerBound = Math.min(lowerBound, count);
     return { ...base, plan, lowerBound, status: status === STATUS_OPTIMAL ? "optimal" : "time-limit" };

@@ -25,6 +25,11 @@ import {
 
 /** Outer-search budget: most level assignments tried. Keeps big instances bounded. */
 const MAX_EVALUATIONS = 400;
+/** Below this many level assignments the outer search tries them all. */
+const EXHAUSTIVE_ASSIGNMENTS = 256;
+/** Ruin-and-recreate budget: rounds, and bus shapes tried per round. */
+const RECREATE_ROUNDS = 6;
+const RECREATE_BUSES = 12;
 
 /**
  * Runs the heuristic. Always returns a plan: the direct plan is one of the
@@ -60,7 +65,28 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules): SharingPl
     if (maxLevel >= 3) starts.push(p.within.map((w) => (w.some(Boolean) ? 1 : 3)));
   }
 
+  // Few outputs: every level assignment is cheap to try, so the climb below
+  // only refines from a global best.
+  if (rules.depth !== "uniform" && maxLevel >= 2 && Math.pow(maxLevel, p.m) <= EXHAUSTIVE_ASSIGNMENTS) {
+    let bestAll: SharingPlan | null = null;
+    let bestLevels: number[] | null = null;
+    const levels = Array(p.m).fill(1) as number[];
+    for (;;) {
+      const plan = evaluate(levels);
+      if (plan !== null && better(plan, bestAll)) {
+        bestAll = plan;
+        bestLevels = levels.slice();
+      }
+      let o = 0;
+      while (o < p.m && levels[o] === maxLevel) levels[o++] = 1;
+      if (o === p.m) break;
+      levels[o] = (levels[o] ?? 1) + 1;
+    }
+    if (bestLevels) starts.unshift(bestLevels);
+  }
+
   let best: SharingPlan | null = null;
+  let bestLevels: readonly number[] = starts[0] ?? [];
   for (const start of starts) {
     let levels = start;
     let current = evaluate(levels);
@@ -85,9 +111,30 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules): SharingPl
         }
       }
     }
-    if (better(current, best)) best = current;
+    if (better(current, best)) {
+      best = current;
+      bestLevels = levels;
+    }
   }
   if (best === null) throw new Error("bug: the all-direct start always yields a plan");
+
+  // Ruin and recreate: forbid one of the chosen bus shapes and cover again;
+  // the greedy's first choices are often the ones that lock it in.
+  let banned = new Set<string>();
+  for (let round = 0; round < RECREATE_ROUNDS; round++) {
+    let improved = false;
+    for (const b of best.buses.slice(0, RECREATE_BUSES)) {
+      const tryBan = new Set([...banned, b.outputs.join(",")]);
+      const plan = coverForLevels(p, rules, bestLevels, cands, tryBan);
+      if (plan !== null && better(plan, best)) {
+        best = plan;
+        banned = tryBan;
+        improved = true;
+        break;
+      }
+    }
+    if (!improved) break;
+  }
   return best;
 }
 
@@ -124,12 +171,18 @@ function busCandidates(p: SharingProblem): number[][] {
  * Greedy cover for one level assignment, or null when the levels admit no
  * plan (a per-segment level-3 output its links cannot cover).
  */
-function coverForLevels(p: SharingProblem, rules: SharingRules, levels: readonly number[], cands: readonly number[][]): SharingPlan | null {
+function coverForLevels(
+  p: SharingProblem,
+  rules: SharingRules,
+  levels: readonly number[],
+  cands: readonly number[][],
+  banned: ReadonlySet<string> = new Set(),
+): SharingPlan | null {
   // Greedy gains overrate a wide bus against several one-diode links, so try
   // both orders: best gain first, and links before buses.
   let best: SharingPlan | null = null;
   for (const order of ORDERS) {
-    const plan = greedyCover(p, rules, levels, cands, order);
+    const plan = greedyCover(p, rules, levels, cands, order, banned);
     if (plan !== null && (best === null || rank(plan) < rank(best))) best = plan;
   }
   return best;
@@ -145,6 +198,7 @@ function greedyCover(
   levels: readonly number[],
   cands: readonly number[][],
   order: GreedyOrder,
+  banned: ReadonlySet<string>,
 ): SharingPlan | null {
   const linksFirst = order === "links-first";
   // Score of a structure that saves `gain` diodes by placing `cost`.
@@ -172,7 +226,7 @@ function greedyCover(
     const t = c.filter((o) => busOk[o]);
     if (t.length === 0) continue;
     const key = t.join(",");
-    if (seen.has(key)) continue;
+    if (seen.has(key) || banned.has(key)) continue;
     seen.add(key);
     const s: number[] = [];
     for (let k = 0; k < n; k++) if (t.every((o) => p.lit[k]?.[o])) s.push(k);

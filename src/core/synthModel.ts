@@ -12,8 +12,9 @@
  * - `l_a_b` link output a -> output b, only where every state lighting a
  *   lights b;
  * - levels: per-segment `v_o_L` (output o sits at level L, exactly one);
- *   mixed `g_o_L` (some path into o has at least L diodes); uniform `u`
- *   (everything direct).
+ *   mixed `g_o_L` (some path into o has at least L diodes). Under the
+ *   uniform policy the model has no direct diodes and no links: it is the
+ *   all-bus matrix, which the caller weighs against the all-direct one.
  *
  * Every lit cell must be covered by a direct diode, a bus, a padding bus or a
  * link; structures never reach an unlit cell by construction, so the matrix
@@ -72,7 +73,8 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
     return t;
   };
   const dName = (k: number, o: number): string => `d_${k}_${o}`;
-  for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) cell(k, o).push(bin(dName(k, o), 1));
+  // Uniform: the model covers everything through buses; the caller compares it with the direct matrix.
+  if (!uniform) for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) cell(k, o).push(bin(dName(k, o), 1));
   buses.forEach((b, i) => {
     const y = bin(`y_${i}`, b.outputs.length + busWeight);
     const xs: string[] = [];
@@ -105,10 +107,7 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
 
   // Depth policy.
   if (uniform) {
-    const u = bin("u", 0);
-    for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) row([dName(k, o), `- ${u}`], "<=", 0);
-    buses.forEach((_, i) => row([`y_${i}`, `+ ${u}`], "<=", 1));
-    if (pads) for (let k = 0; k < p.n; k++) if ((p.row[k] ?? []).length > 0) row([`q_${k}`, `+ ${u}`], "<=", 1);
+    // Nothing to add: without direct diodes or links every path has two diodes.
   } else if (mixed) {
     const g = (o: number, l: number): string => `g_${o}_${l}`;
     for (let o = 0; o < p.m; o++) {
@@ -199,8 +198,9 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
       for (const l of plan.links) vals.set(`l_${l.from}_${l.to}`, 1);
       // Levels follow from the structures.
       const level = levelsOf(p, plan);
-      if (uniform) vals.set("u", plan.buses.length === 0 ? 1 : 0);
-      else if (mixed) {
+      if (uniform) {
+        if (plan.direct.length > 0) return null;
+      } else if (mixed) {
         for (let o = 0; o < p.m; o++) for (let l = 2; l <= L; l++) vals.set(`g_${o}_${l}`, (level[o] ?? 1) >= l ? 1 : 0);
       } else {
         for (let o = 0; o < p.m; o++) for (let l = 1; l <= L; l++) vals.set(`v_${o}_${l}`, (level[o] ?? 1) === l ? 1 : 0);

@@ -39,4 +39,9 @@ describe("buildSharingModel", () => {
     expect(model.maxTieWeight).toBeLessThan(1);
     expect(model.maxTieWeight).toBeGreaterThan(0);
   });
+  it("under the uniform policy models the all-bus matrix only (no direct diodes, no links)", () => {
+    const uniform = buildSharingModel(p, { ...rules, depth: "uniform" }, candidateFamily(p, 1));
+    expect(uniform.columns.some((c) => c.startsWith("d_") || c.startsWith("l_"))).toBe(false);
+    expect(uniform.warmStart({ direct: [[0, 0]], buses: [], links: [] })).toBeNull();
+  });
 });
