@@ -43,14 +43,13 @@ export function GlyphEditor() {
   return (
     <section class="panel" aria-labelledby="glyph-h">
       <h2 id="glyph-h">Glyphs</h2>
-      <div class="glyph-chars" role="listbox" aria-label="Character to edit">
+      <div class="glyph-chars" role="group" aria-label="Character to edit">
         <For each={chars()}>
           {(c) => (
             <button
               type="button"
-              role="option"
               class={`char-chip ${c === current() ? "picked" : ""}`}
-              aria-selected={c === current()}
+              aria-pressed={c === current()}
               data-char={c}
               onClick={() => setPicked(c)}
               title={`edit “${c}”${c in d().glyphs ? " (own shape)" : ""}`}
