@@ -179,6 +179,7 @@ function createAppState() {
   function edit(change: (d: Draft) => Draft, key: string | null = null): void {
     const next = change(draft());
     if (next === draft()) return;
+    forgetShareHash();
     editStartedAt = performance.now();
     setHistory((h) => record(h, next, key));
     void recompute();
@@ -308,6 +309,14 @@ function createAppState() {
 }
 
 const PAPER_KEY = "diodeloom.paper";
+
+/**
+ * Drops a share link from the address bar once the project is edited, so a
+ * reload brings back the edited project (from the autosave), not the shared one.
+ */
+function forgetShareHash(): void {
+  if (location.hash.startsWith("#p=")) history.replaceState(null, "", location.pathname + location.search);
+}
 
 function readPaper(): PaperName {
   try {

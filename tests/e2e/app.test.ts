@@ -265,6 +265,12 @@ describe("the web app", () => {
     expect(await p2.getByTestId("state-text-1").inputValue()).toBe("8");
     await exactOff(p2);
     expect(await shownCount(p2)).toBe(await shownCount());
+    // An edit drops the link from the address bar, so a reload shows the edit, not the shared copy.
+    await p2.getByTestId("state-text-5").fill("8");
+    await expect.poll(() => p2.evaluate(() => location.hash)).toBe("");
+    await p2.reload();
+    await waitReady(p2);
+    expect(await p2.getByTestId("state-text-5").inputValue()).toBe("8");
     await other.close();
     await page.evaluate(() => history.replaceState(null, "", location.pathname));
   });
