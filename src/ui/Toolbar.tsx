@@ -94,7 +94,16 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
           </span>
         </Show>
       </div>
-      <details class="menu" ref={menu}>
+      <details
+        class="menu"
+        ref={menu}
+        onKeyDown={(e) => {
+          if (e.key === "Escape" && menu?.open) {
+            menu.open = false;
+            menu.querySelector("summary")?.focus();
+          }
+        }}
+      >
         <summary data-testid="exports-menu">Export ▾</summary>
         <div class="menu-items" role="group" aria-label="Export">
           <For each={props.exportKinds}>
