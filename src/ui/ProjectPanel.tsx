@@ -207,6 +207,15 @@ export function ProjectPanel() {
               app.edit((x) => setSynthesis(x, { timeLimitMs: Math.max(1, Math.round(Number(e.currentTarget.value) * 1000) || 1000) }))
             }
           />
+          <label for="f-seed">Seed</label>
+          <input
+            id="f-seed"
+            type="number"
+            min="0"
+            step="1"
+            value={d().synthesis.seed}
+            onChange={(e) => app.edit((x) => setSynthesis(x, { seed: Math.max(0, Math.floor(Number(e.currentTarget.value) || 0)) }))}
+          />
           <label for="f-supply">Supply (V)</label>
           <input
             id="f-supply"
