@@ -9,7 +9,9 @@ import { runSynthBench } from "./synthBench.ts";
 
 const log = (line: string): void => void process.stdout.write(line + "\n");
 
-log(`diodeloom bench: node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? "unknown cpu"}), ${(totalmem() / 2 ** 30).toFixed(0)} GiB`);
+log(
+  `diodeloom bench: node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? "unknown cpu"}), ${(totalmem() / 2 ** 30).toFixed(0)} GiB`,
+);
 log("");
 await runSynthBench(log);
 log("");

@@ -86,7 +86,11 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
     `${spec.states.length} states, ${spec.positions} position(s) of ${spec.cell.kind}, ` +
       `${spec.outputs.length} outputs driven, ${spec.tiedOn.length} tied on, ${spec.neverLit.length} never lit`,
   );
-  const bound = m.optimal ? "proven minimum" : m.lowerBound !== null ? `lower bound ${m.lowerBound}, gap ${m.count - m.lowerBound}` : "no lower bound";
+  const bound = m.optimal
+    ? "proven minimum"
+    : m.lowerBound !== null
+      ? `lower bound ${m.lowerBound}, gap ${m.count - m.lowerBound}`
+      : "no lower bound";
   lines.push(`Method: ${METHOD_TEXT[m.method]}; verified; depth limit ${m.depthLimit} (${m.depth}), longest path ${m.maxDepth}; ${bound}`);
   lines.push("");
 
@@ -103,7 +107,9 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
     for (const b of m.buses) {
       const ins = m.diodes.filter((d) => d.to === b).map((d) => d.from);
       const outs = m.diodes.filter((d) => d.from === b).map((d) => d.to);
-      lines.push(`  ${b.padEnd(4)} ${ins.join(" ")} -> ${outs.join(" ")}  (${ins.length + outs.length} diodes for ${ins.length * outs.length} crossings)`);
+      lines.push(
+        `  ${b.padEnd(4)} ${ins.join(" ")} -> ${outs.join(" ")}  (${ins.length + outs.length} diodes for ${ins.length * outs.length} crossings)`,
+      );
     }
   }
   const outSet = new Set(spec.outputs);
