@@ -22,6 +22,7 @@ export interface LpModelLike {
   readonly options: { set(values: Readonly<Record<string, number | boolean | string>>): unknown };
   run(): unknown;
   getSolution(): { readonly colValue: Float64Array; readonly rowDual: Float64Array };
+  addCol(cost: number, lower: number, upper: number, entries: { readonly indices: Int32Array; readonly values: Float64Array }): unknown;
   dispose(): void;
 }
 
@@ -75,9 +76,38 @@ export function lpLowerBound(
   let best: number | null = null;
   let lastUsed: Float64Array = new Float64Array(0);
 
-  for (let round = 0; round < 200; round++) {
+  // One LP model for all rounds: new bus columns are appended, so the
+  // simplex restarts from the last basis.
+  let lp: LpModelLike | undefined;
+  let firstPattern = 0;
+  let inModel = 0;
+  const solve = (): { pi: Float64Array; patternValue: Float64Array } | null => {
+    try {
+      if (!lp) {
+        lp = opts.solveLp(relaxedText(p, cellRow, rows, links));
+        // HiGHS counts time over all runs of one model, so one budget for all rounds.
+        lp.options.set({ output_flag: false, solver: "ipm", run_crossover: "off", time_limit: Math.max(0.05, opts.timeLimitMs / 1000) });
+        firstPattern = rows + links.length;
+      }
+      for (; inModel < patterns.length; inModel++) {
+        const pt = patterns[inModel] as { s: number[]; t: number[] };
+        const idx: number[] = [];
+        for (const k of pt.s) for (const o of pt.t) idx.push(cellRow[k * m + o] ?? 0);
+        idx.sort((a, b) => a - b);
+        lp.addCol(pt.s.length + pt.t.length, 0, 1e30, { indices: Int32Array.from(idx), values: new Float64Array(idx.length).fill(1) });
+      }
+      lp.run();
+      const sol = lp.getSolution();
+      if (sol.rowDual.length !== rows) return null;
+      return { pi: Float64Array.from(sol.rowDual, (x) => Math.abs(x)), patternValue: sol.colValue.slice(firstPattern) };
+    } catch {
+      return null;
+    }
+  };
+
+  for (let round = 0; round < 500; round++) {
     if (Date.now() - started > opts.timeLimitMs) break;
-    const solved = solveRelaxed(p, cellRow, rows, links, patterns, opts);
+    const solved = solve();
     if (solved === null) break;
     const pi = solved.pi;
     lastUsed = solved.patternValue;
@@ -150,9 +180,14 @@ export function lpLowerBound(
       if (seen.has(key)) continue;
       seen.add(key);
       patterns.push({ s: f.s, t: f.t });
-      if (++added >= 200) break;
+      if (++added >= 500) break;
     }
     if (added === 0) break;
+  }
+  try {
+    lp?.dispose();
+  } catch {
+    // nothing to free after an abort
   }
   // Shapes the last LP used, then the rest in order of generation, at most 400.
   const order = patterns.map((_, i) => i).sort((a, b) => (lastUsed[b] ?? 0) - (lastUsed[a] ?? 0) || a - b);
@@ -161,15 +196,8 @@ export function lpLowerBound(
   return { bound: best === null ? null : Math.ceil(best - 1e-6), shapes };
 }
 
-/** Row duals of the restricted relaxed LP (absolute values) and the pattern columns' values, or null if the solver failed. */
-function solveRelaxed(
-  p: SharingProblem,
-  cellRow: Int32Array,
-  rows: number,
-  links: readonly [number, number][],
-  patterns: readonly { s: number[]; t: number[] }[],
-  opts: LpBoundOptions,
-): { pi: Float64Array; patternValue: Float64Array } | null {
+/** The relaxed LP with direct and link columns only (bus columns are added as they are priced). */
+function relaxedText(p: SharingProblem, cellRow: Int32Array, rows: number, links: readonly [number, number][]): string {
   const m = p.m;
   const terms: string[][] = Array.from({ length: rows }, () => []);
   const obj: string[] = [];
@@ -186,32 +214,10 @@ function solveRelaxed(
     for (const k of p.col[a] ?? []) terms[cellRow[k * m + b] ?? 0]?.push(`+ z${c}`);
     c++;
   }
-  for (const pt of patterns) {
-    obj.push(`+ ${pt.s.length + pt.t.length} z${c}`);
-    for (const k of pt.s) for (const o of pt.t) terms[cellRow[k * m + o] ?? 0]?.push(`+ z${c}`);
-    c++;
-  }
   const lines = ["Minimize", ` obj: ${joinLines(obj)}`, "Subject To"];
   terms.forEach((t, r) => lines.push(` r${r}: ${joinLines(t)} >= 1`));
   lines.push("End", "");
-  let model: LpModelLike | undefined;
-  try {
-    model = opts.solveLp(lines.join("\n"));
-    model.options.set({ output_flag: false, time_limit: Math.max(0.05, opts.timeLimitMs / 1000) });
-    model.run();
-    const sol = model.getSolution();
-    if (sol.rowDual.length !== rows) return null;
-    const firstPattern = c - patterns.length;
-    return { pi: Float64Array.from(sol.rowDual, (x) => Math.abs(x)), patternValue: sol.colValue.slice(firstPattern, c) };
-  } catch {
-    return null;
-  } finally {
-    try {
-      model?.dispose();
-    } catch {
-      // nothing to free after an abort
-    }
-  }
+  return lines.join("\n");
 }
 
 function joinLines(terms: readonly string[]): string {

@@ -24,6 +24,7 @@ export interface HighsModelLike {
   run(): unknown;
   getModelStatus(): number;
   getSolution(): { readonly colValue: Float64Array; readonly rowDual: Float64Array };
+  addCol(cost: number, lower: number, upper: number, entries: { readonly indices: Int32Array; readonly values: Float64Array }): unknown;
   dispose(): void;
 }
 
@@ -95,7 +96,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       const lpHighs = await opts.loadHighs();
       const lp = lpLowerBound(p, rules, {
         solveLp: (text) => lpHighs.createModel({ format: "lp", data: text }),
-        timeLimitMs: opts.timeLimitMs * 0.5,
+        timeLimitMs: opts.timeLimitMs * 0.7,
       });
       lpBound = lp.bound;
       family = familyFromShapes(p, [...warmShapes, ...lp.shapes]);

@@ -6,6 +6,9 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { litCellCount, type DecodeSpec } from "../../src/core/decodeSpec.ts";
 import type { DepthPolicy } from "../../src/core/project.ts";
+import { lpLowerBound } from "../../src/core/synthBounds.ts";
+import { defaultHighsLoader } from "../../src/core/synthExact.ts";
+import { problemFromLit } from "../../src/core/synthPlan.ts";
 import { synthesize, type SynthMode, type SynthSettings } from "../../src/core/synthesize.ts";
 import { verifyMatrix } from "../../src/core/verify.ts";
 import { specFromLit } from "../support/litSpec.ts";
@@ -195,6 +198,17 @@ describe("exact optimum against brute force (4 x 4 and smaller, depth 2, seed 20
         expect(r.value.count).toBeGreaterThanOrEqual(min);
         if (r.value.lowerBound !== null) expect(r.value.lowerBound).toBeLessThanOrEqual(min);
         if (r.value.optimal) expect(r.value.count).toBe(min);
+        // The LP bound (used for big instances) must hold here too.
+        const highs = await defaultHighsLoader();
+        const lp = lpLowerBound(
+          problemFromLit(spec.lit),
+          { depth, links: true, buses: true },
+          {
+            solveLp: (text) => highs.createModel({ format: "lp", data: text }),
+            timeLimitMs: 2000,
+          },
+        );
+        if (lp.bound !== null) expect(lp.bound).toBeLessThanOrEqual(min);
       }),
       { seed: SEED, numRuns: 60 },
     );
