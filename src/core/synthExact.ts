@@ -156,7 +156,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     return {
       ...base,
       plan: warm,
-      lowerBound: Math.min(floor, warmCount),
+      lowerBound: Math.min(Math.max(floor, lpBound ?? 0), warmCount),
       status: "solver-failed",
       message: String((e as Error)?.message ?? e),
     };
