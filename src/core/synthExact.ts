@@ -139,13 +139,17 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     let plan = warm;
     if (Number(highsModel.info.get("primal_solution_status")) === PRIMAL_FEASIBLE) {
       const x = highsModel.getSolution().colValue;
-      const found = model.decode((name) => x[index.get(name) ?? -1] ?? 0);
-      if (planCount(found) <= warmCount) plan = found;
+      const found = breakTies(
+        p,
+        rules,
+        model.decode((name) => x[index.get(name) ?? -1] ?? 0),
+      );
+      if (planCount(found) < warmCount || (planCount(found) === warmCount && tieRank(found) < tieRank(warm))) plan = found;
     }
     const count = planCount(plan);
     let lowerBound = floor;
     if (boundIsGlobal && Number.isFinite(dual)) {
-      const milpBound = Math.ceil(dual - model.maxTieWeight - 1e-6);
+      const milpBound = Math.ceil(dual - 1e-6);
       // Uniform: the model is the all-bus matrix; the all-direct one is the other choice.
       lowerBound = Math.max(floor, rules.depth === "uniform" ? Math.min(litCount(p), milpBound) : milpBound);
     }
@@ -167,4 +171,34 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       // A module that aborted cannot free its memory; it is dropped with the instance.
     }
   }
+}
+
+/** Tie-break rank among plans of one count: bus nodes first, then long paths (bus outputs and links). */
+function tieRank(plan: SharingPlan): number {
+  const long = plan.links.length + plan.buses.reduce((a, b) => a + b.outputs.length, 0);
+  return plan.buses.length * 1e6 + long;
+}
+
+/**
+ * Count-neutral clean-up of a solver plan: under the mixed policy a bus whose
+ * block costs no more direct (2 x 2, or one state or one output) becomes
+ * direct diodes, one bus node and some long paths fewer.
+ */
+function breakTies(p: SharingProblem, rules: SharingRules, plan: SharingPlan): SharingPlan {
+  if (rules.depth !== "mixed") return plan;
+  const direct: (readonly [number, number])[] = [...plan.direct];
+  const have = new Set(direct.map(([k, o]) => k * p.m + o));
+  const buses = plan.buses.filter((b) => {
+    if (b.states.length * b.outputs.length > b.states.length + b.outputs.length) return true;
+    for (const k of b.states) {
+      for (const o of b.outputs) {
+        if (!have.has(k * p.m + o)) {
+          have.add(k * p.m + o);
+          direct.push([k, o]);
+        }
+      }
+    }
+    return false;
+  });
+  return { direct, buses, links: plan.links };
 }

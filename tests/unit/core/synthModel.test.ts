@@ -35,9 +35,9 @@ describe("buildSharingModel", () => {
     expect(back.links).toEqual(withO2.links);
     expect(back.buses).toEqual(withO2.buses);
   });
-  it("keeps the tie-break weight below one diode", () => {
-    expect(model.maxTieWeight).toBeLessThan(1);
-    expect(model.maxTieWeight).toBeGreaterThan(0);
+  it("has whole-number costs only, so the solver may round its bound", () => {
+    const objective = model.text.split("Subject To")[0] ?? "";
+    expect(objective).not.toMatch(/\d\.\d/);
   });
   it("under the uniform policy models the all-bus matrix only (no direct diodes, no links)", () => {
     const uniform = buildSharingModel(p, { ...rules, depth: "uniform" }, candidateFamily(p, 1));
