@@ -75,8 +75,8 @@ export async function synthesize(
   const p = sharingProblem(spec);
   const lit = litCount(p);
   const rules: SharingRules = { maxDepth: settings.maxDepth, depth: settings.depth, buses: settings.buses, links: settings.links };
-  // Depth 1 (or no sharing allowed) admits only the direct matrix: it is the optimum.
-  const sharing = settings.maxDepth >= 2 && (settings.buses || (settings.links && settings.depth !== "uniform"));
+  // Depth 1, no sharing allowed or nothing to drive: only the direct matrix exists, so it is the optimum.
+  const sharing = lit > 0 && settings.maxDepth >= 2 && (settings.buses || (settings.links && settings.depth !== "uniform"));
   if (settings.mode === "direct" || !sharing) {
     const direct: DiodeMatrix = synthesizeDirect(spec, settings.maxDepth, settings.depth);
     const proven = !sharing ? { lowerBound: lit, optimal: true } : {};
