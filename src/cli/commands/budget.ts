@@ -8,9 +8,9 @@ import { synthesize } from "../../core/synthesize.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
 import { loadProject } from "../loadProject.ts";
-import { reportFailure, settingsFromArgs } from "./synth.ts";
+import { reportFailure, settingsFromArgs, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = "budget FILE [--json] [--series E24|E96] [--direct | --fast] [--max-depth K] [--depth POLICY] [--time-limit MS]";
+const USAGE = `budget FILE [--json] [--series E24|E96] ${SYNTH_USAGE}`;
 
 export const budgetCommand: Command = {
   name: "budget",
@@ -19,11 +19,7 @@ export const budgetCommand: Command = {
   options: {
     json: { help: "print the budget as diodeloom/budget@1 JSON (SI units)" },
     series: { value: true, meta: "E24|E96", help: "preferred values for the emitter-resistor trim (default E24)" },
-    direct: { help: "budget the direct matrix (one diode per lit cell)" },
-    fast: { help: "budget the heuristic matrix (no exact optimizer)" },
-    "max-depth": { value: true, meta: "K", help: "most diodes on any path, 1-3 (overrides the project)" },
-    depth: { value: true, meta: "POLICY", help: "mixed | per-segment | uniform (overrides the project)" },
-    "time-limit": { value: true, meta: "MS", help: "time limit of the exact optimizer, milliseconds" },
+    ...SYNTH_OPTIONS,
   },
   async run(args, io) {
     const series = args.values.get("series") ?? "E24";

@@ -2,7 +2,7 @@ import { compareGlyphStyles, COMPARE_SCHEMA, type GlyphStyleRow } from "../../co
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
 import { loadProject } from "../loadProject.ts";
-import { reportFailure, settingsFromArgs } from "./synth.ts";
+import { reportFailure, settingsFromArgs } from "../synthOptions.ts";
 
 const USAGE = "compare FILE [--json] [--fast] [--time-limit MS]";
 

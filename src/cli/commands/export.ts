@@ -26,10 +26,9 @@ import type { ParsedArgs } from "../args.ts";
 import type { Command } from "../command.ts";
 import { EXIT, type CliIo } from "../io.ts";
 import { loadProject } from "../loadProject.ts";
-import { reportFailure, settingsFromArgs } from "./synth.ts";
+import { reportFailure, settingsFromArgs, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE =
-  "export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] [--direct | --fast] [--max-depth K] [--depth POLICY] [--time-limit MS]";
+const USAGE = `export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE}`;
 
 /** Longest free text accepted for a title-block field. */
 const MAX_FIELD = 40;
@@ -45,11 +44,7 @@ export const exportCommand: Command = {
     "drawing-number": { value: true, meta: "TEXT", help: "drawing number (default: DL- and a hash of the project)" },
     revision: { value: true, meta: "TEXT", help: "revision (default A)" },
     "drawn-by": { value: true, meta: "TEXT", help: "creator for the title block (default diodeloom)" },
-    direct: { help: "one diode per lit cell, no sharing" },
-    fast: { help: "the heuristic only (no exact optimizer)" },
-    "max-depth": { value: true, meta: "K", help: "most diodes on any path, 1-3 (overrides the project)" },
-    depth: { value: true, meta: "POLICY", help: "mixed | per-segment | uniform (overrides the project)" },
-    "time-limit": { value: true, meta: "MS", help: "time limit of the exact optimizer, milliseconds" },
+    ...SYNTH_OPTIONS,
   },
   async run(args, io) {
     const out = args.values.get("out");

@@ -4,9 +4,9 @@ import { synthesize } from "../../core/synthesize.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
 import { loadProject } from "../loadProject.ts";
-import { reportFailure, settingsFromArgs } from "./synth.ts";
+import { reportFailure, settingsFromArgs, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = "netlist FILE --state K [--direct | --fast] [--max-depth K] [--depth POLICY] [--time-limit MS]";
+const USAGE = `netlist FILE --state K ${SYNTH_USAGE}`;
 
 export const netlistCommand: Command = {
   name: "netlist",
@@ -14,11 +14,7 @@ export const netlistCommand: Command = {
   summary: "print the SPICE netlist (.model, .op) of the circuit with one state active",
   options: {
     state: { value: true, meta: "K", help: "the active state: its number 0..N-1 or its name S0..S(N-1)" },
-    direct: { help: "use the direct matrix (one diode per lit cell)" },
-    fast: { help: "use the heuristic matrix (no exact optimizer)" },
-    "max-depth": { value: true, meta: "K", help: "most diodes on any path, 1-3 (overrides the project)" },
-    depth: { value: true, meta: "POLICY", help: "mixed | per-segment | uniform (overrides the project)" },
-    "time-limit": { value: true, meta: "MS", help: "time limit of the exact optimizer, milliseconds" },
+    ...SYNTH_OPTIONS,
   },
   async run(args, io) {
     const raw = args.values.get("state");

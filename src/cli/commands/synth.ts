@@ -2,13 +2,13 @@ import { compileSpec, type DecodeSpec } from "../../core/decodeSpec.ts";
 import type { VerifiedMatrix } from "../../core/matrix.ts";
 import { countParts, refRanges } from "../../core/parts.ts";
 import type { Project } from "../../core/project.ts";
-import { synthesize, synthSettings, type SynthSettings, type SynthFailure } from "../../core/synthesize.ts";
-import { intOption, type ParsedArgs } from "../args.ts";
+import { synthesize } from "../../core/synthesize.ts";
 import type { Command } from "../command.ts";
-import { EXIT, type CliIo } from "../io.ts";
+import { EXIT } from "../io.ts";
 import { loadProject } from "../loadProject.ts";
+import { reportFailure, settingsFromArgs, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = "synth FILE [--json] [--direct | --fast] [--max-depth K] [--depth POLICY] [--time-limit MS]";
+const USAGE = `synth FILE [--json] ${SYNTH_USAGE}`;
 
 export const synthCommand: Command = {
   name: "synth",
@@ -16,11 +16,7 @@ export const synthCommand: Command = {
   summary: "find the smallest verified diode matrix for a project",
   options: {
     json: { help: "print the matrix as diodeloom/matrix@1 JSON" },
-    direct: { help: "one diode per lit cell, no sharing" },
-    fast: { help: "the heuristic only (no exact optimizer)" },
-    "max-depth": { value: true, meta: "K", help: "most diodes on any path, 1-3 (overrides the project)" },
-    depth: { value: true, meta: "POLICY", help: "mixed | per-segment | uniform (overrides the project)" },
-    "time-limit": { value: true, meta: "MS", help: "time limit of the exact optimizer, milliseconds" },
+    ...SYNTH_OPTIONS,
   },
   async run(args, io) {
     const project = await loadProject(args, io, USAGE);
@@ -35,41 +31,6 @@ export const synthCommand: Command = {
     return EXIT.ok;
   },
 };
-
-/** Applies the synthesis options shared by `synth` and the commands built on it. */
-export function settingsFromArgs(project: Project, args: ParsedArgs, io: CliIo): SynthSettings | undefined {
-  const overrides: { -readonly [K in keyof SynthSettings]?: SynthSettings[K] } = {};
-  if (args.flags.has("direct") && args.flags.has("fast")) {
-    io.err("--direct and --fast exclude each other; give one\n");
-    return undefined;
-  }
-  if (args.flags.has("direct")) overrides.mode = "direct";
-  if (args.flags.has("fast")) overrides.mode = "fast";
-  const depthK = intOption(args, "max-depth", 1, 3);
-  if (!depthK.ok) return void io.err(depthK.message + "\n");
-  if (depthK.value !== undefined) overrides.maxDepth = depthK.value;
-  const limit = intOption(args, "time-limit", 1, 3_600_000);
-  if (!limit.ok) return void io.err(limit.message + "\n");
-  if (limit.value !== undefined) overrides.timeLimitMs = limit.value;
-  const policy = args.values.get("depth");
-  if (policy !== undefined) {
-    if (policy !== "mixed" && policy !== "per-segment" && policy !== "uniform") {
-      return void io.err(`--depth must be mixed, per-segment or uniform (got "${policy}")\n`);
-    }
-    overrides.depth = policy;
-  }
-  return synthSettings(project, overrides);
-}
-
-/** Prints a synthesis failure and returns its exit code. */
-export function reportFailure(failure: SynthFailure, io: CliIo): number {
-  if (failure.kind === "infeasible") {
-    io.err(failure.message + "\n");
-    return EXIT.input;
-  }
-  io.err(`${failure.message}\n${failure.details.map((d) => `  - ${d}`).join("\n")}\n`);
-  return EXIT.internal;
-}
 
 const METHOD_TEXT = {
   direct: "direct (one diode per lit cell)",
