@@ -2,23 +2,12 @@
  * Harness for the web-app end-to-end test: a Vite dev server started in
  * process on a free port, and Debian's chromium driven by playwright-core.
  */
-import { execFileSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
-import { chromium, type Browser } from "playwright-core";
+import type { Browser } from "playwright-core";
+import { launchChromium } from "../support/chromium.ts";
 import { createServer, type ViteDevServer } from "vite";
 
 const ROOT = fileURLToPath(new URL("../..", import.meta.url));
-
-const CHROMIUM_ARGS = [
-  "--headless",
-  "--no-sandbox",
-  "--disable-gpu",
-  "--disable-quic",
-  "--no-first-run",
-  "--disable-background-networking",
-  "--disable-component-update",
-  "--disable-sync",
-];
 
 export interface AppHarness {
   readonly url: string;
@@ -41,14 +30,13 @@ export async function startApp(): Promise<AppHarness> {
   const address = server.httpServer?.address();
   if (!address || typeof address === "string") throw new Error("the Vite server has no port");
   const url = `http://127.0.0.1:${address.port}/`;
-  let executablePath: string;
+  let browser: Browser;
   try {
-    executablePath = execFileSync("sh", ["-c", "command -v chromium"], { encoding: "utf8" }).trim();
-  } catch {
+    browser = await launchChromium();
+  } catch (e) {
     await server.close();
-    throw new Error("chromium is not installed (apt-get install chromium); the browser tests need it");
+    throw e;
   }
-  const browser = await chromium.launch({ executablePath, args: CHROMIUM_ARGS });
   return {
     url,
     browser,

@@ -9,9 +9,9 @@
  * improves. To accept a deliberate change of the drawing, look at the new
  * images, then run with UPDATE_REFERENCE_IMAGES=1 and commit them.
  */
-import { execSync } from "node:child_process";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
-import { chromium, type Browser } from "playwright-core";
+import type { Browser } from "playwright-core";
+import { launchChromium } from "../support/chromium.ts";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { drawingOptions } from "../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../src/render/layout.ts";
@@ -31,20 +31,7 @@ const update = process.env["UPDATE_REFERENCE_IMAGES"] === "1";
 let browser: Browser;
 
 beforeAll(async () => {
-  const executablePath = execSync("command -v chromium", { encoding: "utf8" }).trim();
-  browser = await chromium.launch({
-    executablePath,
-    args: [
-      "--headless",
-      "--no-sandbox",
-      "--disable-gpu",
-      "--disable-quic",
-      "--no-first-run",
-      "--disable-background-networking",
-      "--disable-component-update",
-      "--disable-sync",
-    ],
-  });
+  browser = await launchChromium();
 });
 
 afterAll(async () => {
