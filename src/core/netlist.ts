@@ -24,9 +24,10 @@ export function stringDieNode(cathode: string, i: number): string {
  *
  * @param title the deck's title line (SPICE ignores the first line)
  */
-export function circuitNetlist(circuit: Circuit, title: string): string {
+export function circuitNetlist(circuit: Circuit, title: string, notes: readonly string[] = []): string {
   const lines: string[] = [`* ${title.replace(/[\r\n]+/g, " ")}: state ${circuit.state} active`];
   lines.push("* Written by diodeloom; DC operating point of one counter state. Units: V, A, ohm.");
+  for (const note of notes) lines.push(`* ${note.replace(/[\r\n]+/g, " ")}`);
   lines.push(`.options TNOM=${num(circuit.temperatureC)}`);
   lines.push(`.temp ${num(circuit.temperatureC)}`);
   // One .model card per distinct parameter set: DMTX, DMTX2, ... (a corner may differ per part).
@@ -78,11 +79,20 @@ export function circuitNetlist(circuit: Circuit, title: string): string {
 
 /**
  * The SPICE netlist of a project's circuit with state `stateIndex` (0-based)
- * active, using the project's own electrical values.
+ * active, using the project's own electrical values, or, when `trimOhms` is
+ * given, the budget's trimmed emitter resistors (the values the BOM lists).
  *
+ * @param trimOhms emitter resistor per output name, ohms
  * @example
  * spiceNetlist(project, spec, matrix, 0).split("\n")[0]; // "* <title>: state S0 active"
  */
-export function spiceNetlist(project: Project, spec: DecodeSpec, matrix: VerifiedMatrix, stateIndex: number): string {
-  return circuitNetlist(buildCircuit(spec, matrix, project.electrical, stateIndex), project.title);
+export function spiceNetlist(
+  project: Project,
+  spec: DecodeSpec,
+  matrix: VerifiedMatrix,
+  stateIndex: number,
+  trimOhms?: ReadonlyMap<string, number>,
+): string {
+  const note = trimOhms ? "Emitter resistors as trimmed by the budget (the values in the BOM)." : "Emitter resistors as in the project.";
+  return circuitNetlist(buildCircuit(spec, matrix, project.electrical, stateIndex, trimOhms), project.title, [note]);
 }

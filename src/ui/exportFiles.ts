@@ -73,7 +73,11 @@ export function exportFiles(r: LiveResult, kind: ExportKind, paper: PaperName, b
     case "netlists":
       return bundle(
         "spice-netlists.zip",
-        r.spec.states.map((s, k) => ({ name: `spice/${s}.cir`, mime: "text/plain", text: spiceNetlist(r.project, r.spec, r.matrix, k) })),
+        r.spec.states.map((s, k) => ({
+          name: `spice/${s}.cir`,
+          mime: "text/plain",
+          text: spiceNetlist(r.project, r.spec, r.matrix, k, trimmedOhms(budget)),
+        })),
       );
     case "budget":
       if (!budget) return [];

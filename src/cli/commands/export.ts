@@ -80,7 +80,7 @@ export const exportCommand: Command = {
       io.err(`budget: ${budget.error.message}; budget.json left out, the BOM keeps the nominal emitter resistors\n`);
     }
     files.push(["bom.csv", bomCsv(bomLines(project, spec, matrix, trimmed))]);
-    spec.states.forEach((s, k) => files.push([join("spice", `${s}.cir`), spiceNetlist(project, spec, matrix, k)]));
+    spec.states.forEach((s, k) => files.push([join("spice", `${s}.cir`), spiceNetlist(project, spec, matrix, k, trimmed)]));
     files.push(["project.json", serializeProject(project)]);
 
     await io.makeDir(out);

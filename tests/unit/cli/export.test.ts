@@ -121,3 +121,23 @@ describe("diodeloom export", () => {
     expect(err.join("")).toContain(message);
   });
 });
+
+describe("diodeloom export: netlists and BOM agree", () => {
+  it("writes the BOM's trimmed emitter resistors into every SPICE deck", async () => {
+    const dir = await mkdtemp(join(tmpdir(), "diodeloom-export-"));
+    dirs.push(dir);
+    const { io } = recordingIo();
+    expect(await main(["export", example("die-roller"), "--out", dir, "--fast"], io)).toBe(0);
+    const budget = JSON.parse(await readFile(join(dir, "budget.json"), "utf8")) as { trim: { outputs: Record<string, { ohms: number }> } };
+    const bom = parseCsv(await readFile(join(dir, "bom.csv"), "utf8"));
+    const deck = await readFile(join(dir, "spice", "S3.cir"), "utf8");
+    expect(deck).toMatch(/trimmed by the budget/);
+    // Emitter resistor lines: "R<k> e<output> 0 <ohms>".
+    const emitters = new Map([...deck.matchAll(/^(R\d+) e(\S+) 0 (\S+)$/gm)].map((m) => [m[2] as string, Number(m[3])]));
+    expect(emitters.size).toBe(Object.keys(budget.trim.outputs).length);
+    for (const [output, t] of Object.entries(budget.trim.outputs)) {
+      expect(emitters.get(output)).toBe(t.ohms);
+      expect(bom.some((row) => row[2] === formatOhms(t.ohms) && /emitter/.test(row[3] ?? ""))).toBe(true);
+    }
+  });
+});
