@@ -68,8 +68,11 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
     for (const b of m.buses) {
       const ins = m.diodes.filter((d) => d.to === b).map((d) => d.from);
       const outs = m.diodes.filter((d) => d.from === b).map((d) => d.to);
+      const cost = ins.length + outs.length;
+      const crossings = ins.length * outs.length;
+      const why = cost > crossings ? "; it keeps every path into its outputs at one length, as the depth policy asks" : "";
       lines.push(
-        `  ${b.padEnd(4)} ${ins.join(" ")} -> ${outs.join(" ")}  (${ins.length + outs.length} diodes for ${ins.length * outs.length} crossings)`,
+        `  ${b.padEnd(4)} ${ins.join(" ")} -> ${outs.join(" ")}  (${cost} diodes for ${crossings} crossing${crossings === 1 ? "" : "s"}${why})`,
       );
     }
   }
