@@ -1,6 +1,9 @@
 /**
  * The exact optimizer: the MILP of synthModel.ts solved by HiGHS
- * (WebAssembly), warm-started from the heuristic.
+ * (WebAssembly), warm-started from the heuristic. At depth limit 2 with few
+ * outputs the branch-and-bound of synthSearch.ts runs first and usually
+ * proves the optimum on its own; HiGHS takes over where it does not apply or
+ * runs out of nodes.
  *
  * HiGHS is reached only through a loader function, so src/core imports no
  * solver at load time: Node passes the npm package, the web app's Web Worker
@@ -12,6 +15,7 @@
 import { candidateFamily, DEFAULT_FAMILY_LIMITS, familyFromShapes, type FamilyLimits } from "./synthCandidates.ts";
 import { lpLowerBound, trivialLowerBound } from "./synthBounds.ts";
 import { buildSharingModel } from "./synthModel.ts";
+import { searchApplies, searchPlan } from "./synthSearch.ts";
 import { litCount, planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./synthPlan.ts";
 
 /** The part of a HiGHS model the driver uses (the npm `highs` persistent API). */
@@ -48,6 +52,23 @@ export interface ExactOptions {
   readonly seed: number;
   readonly loadHighs: HighsLoader;
   readonly familyLimits?: FamilyLimits;
+  /**
+   * Try the branch-and-bound of synthSearch.ts before HiGHS where it applies
+   * (default true); false sends every instance straight to HiGHS.
+   */
+  readonly search?: boolean;
+}
+
+/**
+ * Work budgets derived from the time limit. A run stops on them, not on the
+ * clock, so the same configuration gives the same matrix every run; the
+ * clock is only a safety net. Measured on this 2-core machine (shared): a
+ * search node on 0-F takes about 2.5 ms, a HiGHS branch-and-bound node on
+ * 0-F 10 to 35 ms after a root of up to 2 s, so both budgets normally run
+ * out well before the clock does.
+ */
+export function workBudget(timeLimitMs: number): { readonly searchNodes: number; readonly highsNodes: number } {
+  return { searchNodes: Math.max(20, Math.floor(timeLimitMs / 5)), highsNodes: Math.max(20, Math.floor(timeLimitMs / 50)) };
 }
 
 export type ExactStatus = "optimal" | "time-limit" | "solver-failed";
@@ -104,6 +125,22 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       // A failed LP leaves the truncated family and the combinatorial bound.
     }
   }
+
+  // The branch-and-bound first: on small instances it proves the optimum
+  // long before HiGHS does. If it runs out of nodes, its best plan becomes
+  // HiGHS's warm start and its bound stays.
+  let searchBound: number | null = null;
+  let incumbent = warm;
+  const budget = workBudget(opts.timeLimitMs);
+  if (opts.search !== false && searchApplies(p, rules, family)) {
+    const s = searchPlan(p, rules, family, warmCount, { maxNodes: budget.searchNodes, deadlineMs: started + opts.timeLimitMs });
+    const found = s.plan === null ? warm : pickBetter(warm, breakTies(p, rules, s.plan));
+    // Uniform: the search covers all-bus matrices; the all-direct one is the other choice.
+    const lb = rules.depth === "uniform" ? Math.min(litCount(p), s.lowerBound) : s.lowerBound;
+    searchBound = Math.min(Math.max(floor, lb), planCount(found));
+    if (s.proven) return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "optimal" };
+    incumbent = found;
+  }
   const model = buildSharingModel(p, rules, family);
   const boundIsGlobal = family.complete && rules.maxDepth <= 2;
   const base = { columns: model.columns.length, complete: family.complete };
@@ -120,11 +157,13 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       mip_abs_gap: 1e-6,
       // Measured on 0-9 (bench cases): restarts after root presolve cost about 40 % more time.
       mip_allow_restart: false,
+      // The deterministic stop; the time limit above is the safety net.
+      mip_max_nodes: budget.highsNodes,
     });
     const numCols = highsModel.getDimensions().numCols;
     const index = new Map<string, number>();
     for (const name of model.columns) index.set(name, highsModel.getColByName(name));
-    const start = model.warmStart(warm);
+    const start = model.warmStart(incumbent);
     if (start) {
       const colValue = new Float64Array(numCols);
       for (const [name, v] of start) {
@@ -136,7 +175,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     highsModel.run();
     const status = highsModel.getModelStatus();
     const dual = Number(highsModel.info.get("mip_dual_bound"));
-    let plan = warm;
+    let plan = incumbent;
     if (Number(highsModel.info.get("primal_solution_status")) === PRIMAL_FEASIBLE) {
       const x = highsModel.getSolution().colValue;
       const found = breakTies(
@@ -144,7 +183,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
         rules,
         model.decode((name) => x[index.get(name) ?? -1] ?? 0),
       );
-      if (planCount(found) < warmCount || (planCount(found) === warmCount && tieRank(found) < tieRank(warm))) plan = found;
+      plan = pickBetter(incumbent, found);
     }
     const count = planCount(plan);
     let lowerBound = floor;
@@ -154,13 +193,14 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       lowerBound = Math.max(floor, rules.depth === "uniform" ? Math.min(litCount(p), milpBound) : milpBound);
     }
     if (lpBound !== null) lowerBound = Math.max(lowerBound, lpBound);
+    if (searchBound !== null) lowerBound = Math.max(lowerBound, searchBound);
     lowerBound = Math.min(lowerBound, count);
     return { ...base, plan, lowerBound, status: status === STATUS_OPTIMAL ? "optimal" : "time-limit" };
   } catch (e) {
     return {
       ...base,
-      plan: warm,
-      lowerBound: Math.min(Math.max(floor, lpBound ?? 0), warmCount),
+      plan: incumbent,
+      lowerBound: Math.min(Math.max(floor, lpBound ?? 0, searchBound ?? 0), planCount(incumbent)),
       status: "solver-failed",
       message: String((e as Error)?.message ?? e),
     };
@@ -171,6 +211,13 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       // A module that aborted cannot free its memory; it is dropped with the instance.
     }
   }
+}
+
+/** The better of two valid plans: fewer diodes, then the tie-break rank; `a` on a full tie. */
+function pickBetter(a: SharingPlan, b: SharingPlan): SharingPlan {
+  const ca = planCount(a);
+  const cb = planCount(b);
+  return cb < ca || (cb === ca && tieRank(b) < tieRank(a)) ? b : a;
 }
 
 /** Tie-break rank among plans of one count: bus nodes first, then long paths (bus outputs and links). */

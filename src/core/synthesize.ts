@@ -15,7 +15,7 @@ import { heuristicPlan } from "./synthHeuristic.ts";
 import { litCount, planCount, planEdges, sharingProblem, type SharingPlan, type SharingRules } from "./synthPlan.ts";
 import { verifyMatrix } from "./verify.ts";
 
-/** `direct`: one diode per lit cell; `fast`: the heuristic; `exact`: the MILP optimum. */
+/** `direct`: one diode per lit cell; `fast`: the heuristic; `exact`: the proven optimum (branch-and-bound, then HiGHS). */
 export type SynthMode = "direct" | "fast" | "exact";
 
 export interface SynthSettings {
