@@ -57,18 +57,43 @@ export interface ExactOptions {
    * (default true); false sends every instance straight to HiGHS.
    */
   readonly search?: boolean;
+  /** Work budgets; by default `workBudget(timeLimitMs)`. */
+  readonly budget?: WorkBudget;
 }
+
+/** Deterministic work limits of one exact run (see `workBudget`). */
+export interface WorkBudget {
+  /** Branch-and-bound work units (synthSearch.ts). */
+  readonly searchWork: number;
+  /** LP-bound work for big instances (synthBounds.ts). */
+  readonly lpWork: number;
+  /** HiGHS `mip_max_nodes`. */
+  readonly highsNodes: number;
+}
+
+/** Search work units per millisecond of time limit: a sixth of the rate measured on 0-9 and 0-F (50 000 to 120 000 a millisecond), because a first run (before the JIT has warmed up) on a busy machine is much slower. */
+const SEARCH_WORK_PER_MS = 15_000;
+/** LP-bound work (nonzeros solved, see synthBounds.ts) per millisecond: about 70 % of the rate measured on 00-59 and 00-99 (345 to 360 a millisecond; 280 while the machine was busier). */
+const LP_WORK_PER_MS = 250;
+/** Least time limit at which HiGHS runs after a search that was cut short, milliseconds. */
+const HIGHS_AFTER_SEARCH_MIN_MS = 5000;
+/** HiGHS branch-and-bound nodes per millisecond of time limit (measured 10 to 35 ms a node on 0-F, after a root of 1 to 7 s). */
+const HIGHS_NODES_PER_MS = 1 / 100;
 
 /**
  * Work budgets derived from the time limit. A run stops on them, not on the
  * clock, so the same configuration gives the same matrix every run; the
- * clock is only a safety net. Measured on this 2-core machine (shared): a
- * search node on 0-F takes about 2.5 ms, a HiGHS branch-and-bound node on
- * 0-F 10 to 35 ms after a root of up to 2 s, so both budgets normally run
- * out well before the clock does.
+ * clock is only a safety net. The rates above leave room for a slower or
+ * busier machine (measured on a shared 2-core one), so the budgets normally
+ * run out well before the clock does.
  */
-export function workBudget(timeLimitMs: number): { readonly searchNodes: number; readonly highsNodes: number } {
-  return { searchNodes: Math.max(20, Math.floor(timeLimitMs / 5)), highsNodes: Math.max(20, Math.floor(timeLimitMs / 50)) };
+export function workBudget(timeLimitMs: number): WorkBudget {
+  return {
+    // The LP bound gets 70 % of the time limit, as its safety-net clock does.
+    lpWork: Math.max(1e4, Math.floor(timeLimitMs * 0.7 * LP_WORK_PER_MS)),
+    searchWork: Math.max(1e5, Math.floor(timeLimitMs * SEARCH_WORK_PER_MS)),
+    highsNodes: Math.max(20, Math.floor(timeLimitMs * HIGHS_NODES_PER_MS)),
+  };
 }
 
 export type ExactStatus = "optimal" | "time-limit" | "solver-failed";
@@ -107,6 +132,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   let family = candidateFamily(p, minOutputs, opts.familyLimits ?? DEFAULT_FAMILY_LIMITS, warmShapes);
   const floor = trivialLowerBound(p);
   const warmCount = planCount(warm);
+  const budget = opts.budget ?? workBudget(opts.timeLimitMs);
 
   // Too big for the full model: bound by the LP relaxation (column
   // generation, valid at depth 2), then solve the MILP over the bus shapes
@@ -118,6 +144,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       const lp = lpLowerBound(p, rules, {
         solveLp: (text) => lpHighs.createModel({ format: "lp", data: text }),
         timeLimitMs: opts.timeLimitMs * 0.7,
+        maxWork: budget.lpWork,
       });
       lpBound = lp.bound;
       family = familyFromShapes(p, [...warmShapes, ...lp.shapes]);
@@ -131,15 +158,19 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   // HiGHS's warm start and its bound stays.
   let searchBound: number | null = null;
   let incumbent = warm;
-  const budget = workBudget(opts.timeLimitMs);
   if (opts.search !== false && searchApplies(p, rules, family)) {
-    const s = searchPlan(p, rules, family, warmCount, { maxNodes: budget.searchNodes, deadlineMs: started + opts.timeLimitMs });
+    const s = searchPlan(p, rules, family, warmCount, { maxWork: budget.searchWork, deadlineMs: started + opts.timeLimitMs });
     const found = s.plan === null ? warm : pickBetter(warm, breakTies(p, rules, s.plan));
     // Uniform: the search covers all-bus matrices; the all-direct one is the other choice.
     const lb = rules.depth === "uniform" ? Math.min(litCount(p), s.lowerBound) : s.lowerBound;
     searchBound = Math.min(Math.max(floor, lb), planCount(found));
     if (s.proven) return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "optimal" };
     incumbent = found;
+    // A short limit leaves HiGHS no time for its root (measured 1 to 7 s on
+    // 0-F), and a root cut short by the clock would make the result depend
+    // on the machine: so below this limit the search's result stands.
+    if (opts.timeLimitMs < HIGHS_AFTER_SEARCH_MIN_MS)
+      return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "time-limit" };
   }
   const model = buildSharingModel(p, rules, family);
   const boundIsGlobal = family.complete && rules.maxDepth <= 2;

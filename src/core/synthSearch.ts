@@ -51,8 +51,12 @@ const ROOT_TUNE_ROUNDS = 50;
 const NODE_TUNE_ROUNDS = 10;
 
 export interface SearchOptions {
-  /** Most branch-and-bound nodes over all level sets; the deterministic stop. */
-  readonly maxNodes: number;
+  /**
+   * Most work units, the deterministic stop. A unit is one item looked at in
+   * the per-state DP, which is where the time goes (root tuning included),
+   * so the budget tracks time far better than a node count does.
+   */
+  readonly maxWork: number;
   /**
    * Safety net only: a `Date.now()` value after which the search stops as if
    * the node budget had run out. Set it well past the time the node budget
@@ -68,8 +72,9 @@ export interface SearchOutcome {
   readonly lowerBound: number;
   /** True when the search finished: the optimum is `plan`, or `upper` if plan is null. */
   readonly proven: boolean;
-  /** Nodes used, for the bench. */
+  /** Nodes and work units used, for the bench and for calibrating budgets. */
   readonly nodes: number;
+  readonly work: number;
 }
 
 interface Item {
@@ -134,42 +139,43 @@ export function searchPlan(
 
   let best = upper;
   let bestPlan: SharingPlan | null = null;
-  let nodes = 0;
+  const meter: Meter = { work: 0, nodes: 0, maxWork: opts.maxWork, deadlineMs: opts.deadlineMs ?? Infinity };
   const roots: { set: number; bound: number; ctx: Context }[] = [];
   for (const set of sets) {
-    const ctx = new Context(p, itemsFor(p, rules, family, set), rowMask, set, mixed, pads);
+    const ctx = new Context(p, itemsFor(p, rules, family, set), rowMask, set, mixed, pads, meter);
+    // Any shares give a valid bound, so tuning may stop anywhere when the budget runs out.
     if (ceilBound(ctx.bound()) < best) ctx.tune(best, ROOT_TUNE_ROUNDS);
     roots.push({ set, bound: ctx.bound(), ctx });
   }
   roots.sort((a, b) => a.bound - b.bound || a.set - b.set);
 
   let unfinished = Infinity;
-  for (let r = 0; r < roots.length; r++) {
-    const root = roots[r] as (typeof roots)[number];
+  for (const root of roots) {
     if (ceilBound(root.bound) >= best) break;
-    if (nodes >= opts.maxNodes) {
-      unfinished = root.bound;
-      break;
-    }
-    const ctx = root.ctx;
-    const done = ctx.run(
+    const done = root.ctx.run(
       () => best,
       (count, plan) => {
         best = count;
         bestPlan = plan;
       },
-      opts.maxNodes - nodes,
-      opts.deadlineMs ?? Infinity,
     );
-    nodes += ctx.nodes;
     if (!done) {
+      // The roots are sorted by bound, so this one's is the least of those left.
       unfinished = root.bound;
       break;
     }
   }
   const proven = unfinished === Infinity;
   const lowerBound = proven ? best : Math.min(best, ceilBound(unfinished));
-  return { plan: bestPlan, lowerBound, proven, nodes };
+  return { plan: bestPlan, lowerBound, proven, nodes: meter.nodes, work: meter.work };
+}
+
+/** Work done across the level sets of one search, and its limits. */
+interface Meter {
+  work: number;
+  nodes: number;
+  readonly maxWork: number;
+  readonly deadlineMs: number;
 }
 
 /** Whole-number lower bound from a fractional one (diode counts are whole). */
@@ -205,7 +211,6 @@ const OUT = 2;
 
 /** One level set's search state: item decisions, per-state shares and cover values. */
 class Context {
-  nodes = 0;
   private readonly state: Uint8Array;
   /** Per state, the items it may use, and its share of each one's fixed cost (the bound's charge). */
   private readonly byState: Int32Array[];
@@ -229,6 +234,7 @@ class Context {
     private readonly set: number,
     private readonly mixed: boolean,
     private readonly pads: boolean,
+    private readonly meter: Meter,
   ) {
     this.state = new Uint8Array(items.length);
     const lists: number[][] = Array.from({ length: p.n }, () => []);
@@ -270,7 +276,7 @@ class Context {
     let stall = 0;
     // Where each item sits in each state's list, to gather its shares.
     const pos = this.items.map((it) => it.users.map((k) => (this.byState[k] as Int32Array).indexOf(this.items.indexOf(it))));
-    for (let round = 0; round < rounds; round++) {
+    for (let round = 0; round < rounds && !this.spent(); round++) {
       const used: boolean[][] = this.items.map((it) => it.users.map(() => false));
       let norm = 0;
       for (let k = 0; k < n; k++) {
@@ -312,10 +318,10 @@ class Context {
    * Depth-first search for plans below `best()`. Returns false when the node
    * budget ran out first.
    */
-  run(best: () => number, improve: (count: number, plan: SharingPlan) => void, budget: number, deadlineMs: number): boolean {
+  run(best: () => number, improve: (count: number, plan: SharingPlan) => void): boolean {
     const dfs = (): boolean => {
-      if (this.nodes >= budget || (deadlineMs !== Infinity && Date.now() > deadlineMs)) return false;
-      this.nodes++;
+      if (this.spent()) return false;
+      this.meter.nodes++;
       let bound = this.bound();
       if (ceilBound(bound) >= best()) return true;
       // Shares tuned here stay valid everywhere (they never depend on the decisions), so nothing is restored on the way back.
@@ -338,6 +344,12 @@ class Context {
       return a && b;
     };
     return dfs();
+  }
+
+  /** True when the budget, or the safety-net clock, has run out. */
+  private spent(): boolean {
+    const m = this.meter;
+    return m.work >= m.maxWork || (m.deadlineMs !== Infinity && Date.now() > m.deadlineMs);
   }
 
   /** The undecided item that carries the most fixed cost in the minimum covers, or -1. */
@@ -454,6 +466,7 @@ class Context {
     let best = this.mixed || pad ? 1 + this.dp(mask & ~bit, pad) : Infinity;
     const list = this.byState[this.current] as Int32Array;
     const charge = this.cost[this.current] as Float64Array;
+    this.meter.work += list.length;
     for (let j = 0; j < list.length; j++) {
       const c0 = charge[j] ?? Infinity;
       if (c0 === Infinity || c0 >= best) continue;

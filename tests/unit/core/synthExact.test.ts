@@ -3,6 +3,15 @@ import { exactPlan, defaultHighsLoader, type HighsLoader } from "../../../src/co
 import { heuristicPlan } from "../../../src/core/synthHeuristic.ts";
 import { planCount, problemFromLit } from "../../../src/core/synthPlan.ts";
 import { litRows } from "../../support/litSpec.ts";
+import { compileSpec } from "../../../src/core/decodeSpec.ts";
+import { synthesize, synthSettings } from "../../../src/core/synthesize.ts";
+import { benchProject, BENCH_CASES } from "../../../bench/synthBench.ts";
+
+function hexProblem(depth: "mixed" | "per-segment" | "uniform") {
+  const c = BENCH_CASES.find((x) => x.name === "0-F");
+  if (!c) throw new Error("bench case 0-F is missing");
+  return benchProject({ ...c, timeLimitMs: 2000 }, depth);
+}
 
 const p = problemFromLit(litRows("1101", "0111", "1111", "0100", "1010", "0000"));
 const rules = { maxDepth: 2, depth: "per-segment", buses: true, links: true } as const;
@@ -42,4 +51,36 @@ describe("exactPlan", () => {
     const r = await exactPlan(p, deep, heuristicPlan(p, deep), { timeLimitMs: 5000, seed: 1, loadHighs: defaultHighsLoader });
     expect(r.lowerBound).toBe(5); // max(4 outputs, 5 active states)
   });
+  it("a time-limited run gives the same matrix and bound every run (0-F per-segment, 2 s)", async () => {
+    // 2 s is too little to prove 52 here, so the run stops on its work budget, not on a proof.
+    const project = hexProblem("per-segment");
+    const spec = compileSpec(project);
+    const a = await synthesize(spec, synthSettings(project));
+    const b = await synthesize(spec, synthSettings(project));
+    expect(a.ok && b.ok).toBe(true);
+    if (!a.ok || !b.ok) return;
+    expect(a.value.optimal).toBe(false);
+    expect(b.value).toEqual(a.value);
+    expect(a.value.lowerBound ?? Infinity).toBeLessThanOrEqual(52);
+  }, 20_000);
+  it("HiGHS stopped by its node budget gives the same plan and bound every run", async () => {
+    const p0 = compileSpec(hexProblem("mixed"));
+    const hp = problemFromLit(p0.lit);
+    const mixed = { maxDepth: 2, depth: "mixed", buses: true, links: true } as const;
+    const warm = heuristicPlan(hp, mixed);
+    // The clock is far away; only the node budget can stop HiGHS here.
+    const opts = {
+      timeLimitMs: 120_000,
+      seed: 3,
+      loadHighs: defaultHighsLoader,
+      search: false,
+      budget: { searchWork: 0, lpWork: 0, highsNodes: 5 },
+    };
+    const a = await exactPlan(hp, mixed, warm, opts);
+    const b = await exactPlan(hp, mixed, warm, opts);
+    expect(a.status).toBe("time-limit");
+    expect(b.plan).toEqual(a.plan);
+    expect(b.lowerBound).toBe(a.lowerBound);
+    expect(a.lowerBound).toBeLessThanOrEqual(50);
+  }, 60_000);
 });
