@@ -25,12 +25,22 @@ export interface HighsModelLike {
   getDimensions(): { readonly numCols: number };
   getColByName(name: string): number;
   setSolution(solution: { readonly colValue: Float64Array }): unknown;
-  run(): unknown;
+  /** Runs the solve; `callbacks` by channel (6 = the MIP interrupt checkpoint). */
+  run(callbacks?: Readonly<Record<number, (event: HighsInterruptEvent) => void>>): unknown;
   getModelStatus(): number;
   getSolution(): { readonly colValue: Float64Array; readonly rowDual: Float64Array };
   addCol(cost: number, lower: number, upper: number, entries: { readonly indices: Int32Array; readonly values: Float64Array }): unknown;
   dispose(): void;
 }
+
+/** A HiGHS MIP interrupt checkpoint (the npm `highs` callback event, the part used here). */
+export interface HighsInterruptEvent {
+  readonly data: { readonly mip_total_lp_iterations?: bigint | number };
+  interrupt(): void;
+}
+
+/** HiGHS callback channel of the MIP interrupt checkpoint (`highs.constants.callbackType.mipInterrupt`). */
+const MIP_INTERRUPT = 6;
 
 /** The part of the loaded HiGHS runtime the driver uses. */
 export interface HighsLike {
@@ -69,12 +79,26 @@ export interface WorkBudget {
   readonly lpWork: number;
   /** HiGHS `mip_max_nodes`. */
   readonly highsNodes: number;
+  /**
+   * HiGHS LP iterations (over the whole MIP solve) times the model's columns:
+   * it tracks time even at the root, where no node is counted. HiGHS stops
+   * at the first interrupt checkpoint past it.
+   */
+  readonly highsWork: number;
 }
 
 /** Search work units per millisecond of time limit: a sixth of the rate measured on 0-9 and 0-F (50 000 to 120 000 a millisecond), because a first run (before the JIT has warmed up) on a busy machine is much slower. */
 const SEARCH_WORK_PER_MS = 15_000;
 /** LP-bound work (nonzeros solved, see synthBounds.ts) per millisecond: about 70 % of the rate measured on 00-59 and 00-99 (345 to 360 a millisecond; 280 while the machine was busier). */
 const LP_WORK_PER_MS = 250;
+/**
+ * HiGHS work (LP iterations times model columns, see `WorkBudget`) per
+ * millisecond of time limit. Measured 5 200 to 12 200 a millisecond over
+ * whole solves on 0-F, 1-12 and 00-23, but only 3 200 in the first 5 s on
+ * 00-23, whose root spends long stretches on other work; so about a third
+ * of the slowest.
+ */
+const HIGHS_WORK_PER_MS = 1000;
 /** Least time limit at which HiGHS runs after a search that was cut short, milliseconds. */
 const HIGHS_AFTER_SEARCH_MIN_MS = 5000;
 /** HiGHS branch-and-bound nodes per millisecond of time limit (measured 10 to 35 ms a node on 0-F, after a root of 1 to 7 s). */
@@ -93,6 +117,7 @@ export function workBudget(timeLimitMs: number): WorkBudget {
     lpWork: Math.max(1e4, Math.floor(timeLimitMs * 0.7 * LP_WORK_PER_MS)),
     searchWork: Math.max(1e5, Math.floor(timeLimitMs * SEARCH_WORK_PER_MS)),
     highsNodes: Math.max(20, Math.floor(timeLimitMs * HIGHS_NODES_PER_MS)),
+    highsWork: Math.max(1e5, Math.floor(timeLimitMs * HIGHS_WORK_PER_MS)),
   };
 }
 
@@ -203,7 +228,12 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       }
       highsModel.setSolution({ colValue });
     }
-    highsModel.run();
+    const cols = Math.max(1, numCols);
+    highsModel.run({
+      [MIP_INTERRUPT]: (event) => {
+        if (Number(event.data.mip_total_lp_iterations ?? 0) * cols > budget.highsWork) event.interrupt();
+      },
+    });
     const status = highsModel.getModelStatus();
     const dual = Number(highsModel.info.get("mip_dual_bound"));
     let plan = incumbent;

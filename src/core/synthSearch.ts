@@ -14,13 +14,19 @@
  * is a subset DP over at most 2^m masks.
  *
  * The search fixes items in or out. Its bound charges a fixed-in item's fixed
- * cost once and an undecided item's fixed cost F split over its potential
- * users U (F / |U| for each state that uses it). That is a valid lower bound
- * on every completion: an item used in the completion is used by some of its
- * potential users only, so F >= (its users) * F / |U|; summing the per-state
- * minimum covers under these charges can only be lower still. When the
- * per-state minima use fixed-in items only, the bound is the cost of a real
- * matrix (fixed-in items and those covers), so the node is solved.
+ * cost once and splits an undecided item's fixed cost F into shares, one per
+ * potential user, non-negative and summing to at most F; a state that uses
+ * the item pays its share on top of its diode. That is a valid lower bound on
+ * every completion: an item used in the completion is used by some of its
+ * potential users only, so F >= the sum of their shares; summing the
+ * per-state minimum covers under these charges can only be lower still. (It
+ * is a Lagrangian bound: the shares are the multipliers of "a state feeds a
+ * bus only if the bus exists".) The shares start even (F / |U|) and are
+ * moved towards the states that use the item by projected subgradient steps,
+ * at each root and at every node; any shares keep the bound valid, so they
+ * are never restored on backtracking. When the per-state minima use fixed-in
+ * items only, the bound is the cost of a real matrix (fixed-in items and
+ * those covers), so the node is solved.
  *
  * Which A are possible: per-segment, every subset of outputs (level 1 takes
  * direct diodes only, level 2 everything else); mixed, the subsets of link
@@ -30,8 +36,8 @@
  * solution of one A's problem with at most its count (one bus per T suffices,
  * see synthCandidates.ts), so the smallest over all A is the optimum.
  *
- * The search stops on a node budget, never on the clock, so a run that is cut
- * short is the same every time. Then the bound it reports is the smallest
+ * The search stops on a work budget, never on the clock (that is only a safety
+ * net), so a run that is cut short is the same every time. Then the bound it reports is the smallest
  * root bound among the A it did not finish, which is valid for them, and
  * their union with the finished ones is every matrix.
  */
@@ -214,6 +220,10 @@ class Context {
   private readonly state: Uint8Array;
   /** Per state, the items it may use, and its share of each one's fixed cost (the bound's charge). */
   private readonly byState: Int32Array[];
+  /** Per item and user (in `users` order): where the item sits in that state's list. */
+  private readonly slot: readonly (readonly number[])[];
+  /** Per item: state -> its place in `users`. */
+  private readonly userIndex: readonly Map<number, number>[];
   private readonly share: Float64Array[];
   /** Per state, the charge of each of its items under the current decisions (scratch for the DP). */
   private readonly cost: Float64Array[];
@@ -242,6 +252,8 @@ class Context {
       for (const k of it.users) lists[k]?.push(i);
     });
     this.byState = lists.map((l) => Int32Array.from(l));
+    this.slot = items.map((it, i) => it.users.map((k) => (lists[k] as number[]).indexOf(i)));
+    this.userIndex = items.map((it) => new Map(it.users.map((k, u) => [k, u])));
     // Start from the even split: F / |U| for every potential user.
     this.share = lists.map((l) => Float64Array.from(l, (i) => (items[i]?.fixed ?? 0) / Math.max(1, items[i]?.users.length ?? 1)));
     this.cost = lists.map((l) => new Float64Array(l.length));
@@ -274,14 +286,13 @@ class Context {
     let bestShare = this.share.map((s) => s.slice());
     let theta = 1;
     let stall = 0;
-    // Where each item sits in each state's list, to gather its shares.
-    const pos = this.items.map((it) => it.users.map((k) => (this.byState[k] as Int32Array).indexOf(this.items.indexOf(it))));
+    const pos = this.slot;
     for (let round = 0; round < rounds && !this.spent(); round++) {
       const used: boolean[][] = this.items.map((it) => it.users.map(() => false));
       let norm = 0;
       for (let k = 0; k < n; k++) {
         for (const i of (this.covers[k] as StateCover).items) {
-          const u = (this.items[i] as Item).users.indexOf(k);
+          const u = (this.userIndex[i] as Map<number, number>).get(k) ?? 0;
           (used[i] as boolean[])[u] = true;
           norm++;
         }

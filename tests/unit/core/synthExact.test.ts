@@ -63,18 +63,18 @@ describe("exactPlan", () => {
     expect(b.value).toEqual(a.value);
     expect(a.value.lowerBound ?? Infinity).toBeLessThanOrEqual(52);
   }, 20_000);
-  it("HiGHS stopped by its node budget gives the same plan and bound every run", async () => {
+  it("HiGHS stopped by its work budget gives the same plan and bound every run", async () => {
     const p0 = compileSpec(hexProblem("mixed"));
     const hp = problemFromLit(p0.lit);
     const mixed = { maxDepth: 2, depth: "mixed", buses: true, links: true } as const;
     const warm = heuristicPlan(hp, mixed);
-    // The clock is far away; only the node budget can stop HiGHS here.
+    // The clock and the node budget are far away; only the work budget (LP iterations x columns) can stop HiGHS here.
     const opts = {
       timeLimitMs: 120_000,
       seed: 3,
       loadHighs: defaultHighsLoader,
       search: false,
-      budget: { searchWork: 0, lpWork: 0, highsNodes: 5 },
+      budget: { searchWork: 0, lpWork: 0, highsNodes: 1e9, highsWork: 5e6 },
     };
     const a = await exactPlan(hp, mixed, warm, opts);
     const b = await exactPlan(hp, mixed, warm, opts);
