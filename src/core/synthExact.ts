@@ -130,7 +130,7 @@ export interface ExactOutcome {
   readonly status: ExactStatus;
   /** Why the solver failed, for `solver-failed`. */
   readonly message?: string;
-  /** Model size, for the bench. */
+  /** Model size, for the bench; 0 when the branch-and-bound settled it without a model. */
   readonly columns: number;
   /** True when the candidate family held every useful bus shape. */
   readonly complete: boolean;

@@ -153,6 +153,11 @@ describe("searchPlan", () => {
           method: "exact",
         });
         expect(verifyMatrix(spec, matrix, { maxDepth: 2, depth }).ok).toBe(true);
+        // Cut short: the bound stays at or below the minimum (uniform: once the direct matrix is weighed in).
+        const short = searchPlan(p, rulesFor(depth), family, litCount(p) + p.n + 1, { maxWork: 40 });
+        const shortBound = depth === "uniform" ? Math.min(short.lowerBound, litCount(p)) : short.lowerBound;
+        expect(shortBound).toBeLessThanOrEqual(min);
+        if (short.plan) expect(planCount(short.plan)).toBeGreaterThanOrEqual(min);
       }),
       { seed: SEED, numRuns: 150 },
     );
