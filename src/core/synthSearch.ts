@@ -149,15 +149,21 @@ export function searchPlan(
   const roots: { set: number; bound: number; ctx: Context }[] = [];
   for (const set of sets) {
     const ctx = new Context(p, itemsFor(p, rules, family, set), rowMask, set, mixed, pads, meter);
-    // Any shares give a valid bound, so tuning may stop anywhere when the budget runs out.
-    if (ceilBound(ctx.bound()) < best) ctx.tune(best, ROOT_TUNE_ROUNDS);
     roots.push({ set, bound: ctx.bound(), ctx });
   }
+  // Best first by the even-share bound; each root is tuned only when its turn
+  // comes, by which time a better incumbent may have pruned it.
   roots.sort((a, b) => a.bound - b.bound || a.set - b.set);
 
   let unfinished = Infinity;
-  for (const root of roots) {
+  for (let r = 0; r < roots.length; r++) {
+    const root = roots[r] as (typeof roots)[number];
+    // The rest have even-share bounds at least this one's.
     if (ceilBound(root.bound) >= best) break;
+    // Any shares give a valid bound, so tuning may stop anywhere when the budget runs out.
+    root.ctx.tune(best, ROOT_TUNE_ROUNDS);
+    root.bound = root.ctx.bound();
+    if (ceilBound(root.bound) >= best) continue;
     const done = root.ctx.run(
       () => best,
       (count, plan) => {
@@ -166,8 +172,9 @@ export function searchPlan(
       },
     );
     if (!done) {
-      // The roots are sorted by bound, so this one's is the least of those left.
+      // Every root from here on is unfinished; each one's bound holds for it.
       unfinished = root.bound;
+      for (const rest of roots.slice(r + 1)) unfinished = Math.min(unfinished, rest.bound);
       break;
     }
   }
