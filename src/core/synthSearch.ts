@@ -149,21 +149,16 @@ export function searchPlan(
   const roots: { set: number; bound: number; ctx: Context }[] = [];
   for (const set of sets) {
     const ctx = new Context(p, itemsFor(p, rules, family, set), rowMask, set, mixed, pads, meter);
+    // Any shares give a valid bound, so tuning may stop anywhere when the budget runs out.
+    if (ceilBound(ctx.bound()) < best) ctx.tune(best, ROOT_TUNE_ROUNDS);
     roots.push({ set, bound: ctx.bound(), ctx });
   }
-  // Best first by the even-share bound; each root is tuned only when its turn
-  // comes, by which time a better incumbent may have pruned it.
   roots.sort((a, b) => a.bound - b.bound || a.set - b.set);
 
   let unfinished = Infinity;
   for (let r = 0; r < roots.length; r++) {
     const root = roots[r] as (typeof roots)[number];
-    // The rest have even-share bounds at least this one's.
     if (ceilBound(root.bound) >= best) break;
-    // Any shares give a valid bound, so tuning may stop anywhere when the budget runs out.
-    root.ctx.tune(best, ROOT_TUNE_ROUNDS);
-    root.bound = root.ctx.bound();
-    if (ceilBound(root.bound) >= best) continue;
     const done = root.ctx.run(
       () => best,
       (count, plan) => {
@@ -172,9 +167,8 @@ export function searchPlan(
       },
     );
     if (!done) {
-      // Every root from here on is unfinished; each one's bound holds for it.
-      unfinished = root.bound;
-      for (const rest of roots.slice(r + 1)) unfinished = Math.min(unfinished, rest.bound);
+      // The roots are sorted by bound, so the next one's is the least of those not started.
+      unfinished = Math.min(Math.max(root.bound, root.ctx.openBound), roots[r + 1]?.bound ?? Infinity);
       break;
     }
   }
@@ -333,12 +327,23 @@ class Context {
   }
 
   /**
-   * Depth-first search for plans below `best()`. Returns false when the node
-   * budget ran out first.
+   * After a `run` cut short: the least bound over the parts of the tree it
+   * left unexplored (the node it stopped at and every "out" branch it had
+   * not started), so a valid bound for all of them.
+   */
+  openBound = Infinity;
+
+  /**
+   * Depth-first search for plans below `best()`. Returns false when the work
+   * budget ran out first (see `openBound`).
    */
   run(best: () => number, improve: (count: number, plan: SharingPlan) => void): boolean {
+    this.openBound = Infinity;
     const dfs = (): boolean => {
-      if (this.spent()) return false;
+      if (this.spent()) {
+        this.openBound = Math.min(this.openBound, this.bound());
+        return false;
+      }
       this.meter.nodes++;
       let bound = this.bound();
       if (ceilBound(bound) >= best()) return true;
@@ -357,6 +362,8 @@ class Context {
       this.decide(pick, IN);
       const a = dfs();
       this.decide(pick, OUT);
+      // Cut short in the "in" branch: the whole "out" branch is left open, and its bound holds for it.
+      if (!a) this.openBound = Math.min(this.openBound, this.bound());
       const b = a && dfs();
       this.decide(pick, UNDECIDED);
       return a && b;
