@@ -37,9 +37,11 @@
  * see synthCandidates.ts), so the smallest over all A is the optimum.
  *
  * The search stops on a work budget, never on the clock (that is only a safety
- * net), so a run that is cut short is the same every time. Then the bound it reports is the smallest
- * root bound among the A it did not finish, which is valid for them, and
- * their union with the finished ones is every matrix.
+ * net), so a run that is cut short is the same every time. Then the bound it
+ * reports is the least over what it left unexplored: the branches still open
+ * in the level set it stopped in, and the root bounds of those it did not
+ * start; each is valid for its part, and with the finished parts they cover
+ * every matrix.
  */
 import type { CandidateFamily } from "./synthCandidates.ts";
 import type { PlanBus, PlanLink, SharingPlan, SharingProblem, SharingRules } from "./synthPlan.ts";
@@ -65,7 +67,7 @@ export interface SearchOptions {
   readonly maxWork: number;
   /**
    * Safety net only: a `Date.now()` value after which the search stops as if
-   * the node budget had run out. Set it well past the time the node budget
+   * the work budget had run out. Set it well past the time the work budget
    * normally takes, so that it never decides an ordinary run.
    */
   readonly deadlineMs?: number;
@@ -92,8 +94,7 @@ interface Item {
   readonly per: number;
   /** States that may use it, ascending. */
   readonly users: readonly number[];
-  /** Bus candidate index, or -1 for a link. */
-  readonly bus: number;
+  /** The link, or null for a bus. */
   readonly link: PlanLink | null;
 }
 
@@ -194,10 +195,10 @@ function ceilBound(x: number): number {
 function itemsFor(p: SharingProblem, rules: SharingRules, family: CandidateFamily, set: number): Item[] {
   const items: Item[] = [];
   if (rules.buses) {
-    family.buses.forEach((b, i) => {
+    family.buses.forEach((b) => {
       const mask = b.outputs.reduce((a, o) => a | (1 << o), 0);
       if ((mask & set) !== 0 || b.states.length < 2) return;
-      items.push({ mask, fixed: b.outputs.length, per: 1, users: b.states, bus: i, link: null });
+      items.push({ mask, fixed: b.outputs.length, per: 1, users: b.states, link: null });
     });
   }
   if (rules.links && rules.depth !== "uniform") {
@@ -205,7 +206,7 @@ function itemsFor(p: SharingProblem, rules: SharingRules, family: CandidateFamil
       if (((set >> a) & 1) === 0) continue;
       for (let b = 0; b < p.m; b++) {
         if (!p.within[a]?.[b] || ((set >> b) & 1) !== 0) continue;
-        items.push({ mask: 1 << b, fixed: 1, per: 0, users: p.col[a] ?? [], bus: -1, link: { from: a, to: b } });
+        items.push({ mask: 1 << b, fixed: 1, per: 0, users: p.col[a] ?? [], link: { from: a, to: b } });
       }
     }
   }
