@@ -158,6 +158,9 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   const floor = trivialLowerBound(p);
   const warmCount = planCount(warm);
   const budget = opts.budget ?? workBudget(opts.timeLimitMs);
+  // The clock is only the safety net; it stops a little early so that decoding,
+  // tie-breaks and the verifier still finish inside the caller's limit.
+  const deadlineMs = started + opts.timeLimitMs - Math.min(500, opts.timeLimitMs * 0.05);
 
   // Too big for the full model: bound by the LP relaxation (column
   // generation, valid at depth 2), then solve the MILP over the bus shapes
@@ -184,7 +187,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   let searchBound: number | null = null;
   let incumbent = warm;
   if (opts.search !== false && searchApplies(p, rules, family)) {
-    const s = searchPlan(p, rules, family, warmCount, { maxWork: budget.searchWork, deadlineMs: started + opts.timeLimitMs });
+    const s = searchPlan(p, rules, family, warmCount, { maxWork: budget.searchWork, deadlineMs });
     const found = s.plan === null ? warm : pickBetter(warm, breakTies(p, rules, s.plan));
     // Uniform: the search covers all-bus matrices; the all-direct one is the other choice.
     const lb = rules.depth === "uniform" ? Math.min(litCount(p), s.lowerBound) : s.lowerBound;
@@ -207,7 +210,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     highsModel = highs.createModel({ format: "lp", data: model.text });
     highsModel.options.set({
       output_flag: false,
-      time_limit: Math.max(0.01, (opts.timeLimitMs - (Date.now() - started)) / 1000),
+      time_limit: Math.max(0.01, (deadlineMs - Date.now()) / 1000),
       random_seed: opts.seed,
       mip_rel_gap: 0,
       mip_abs_gap: 1e-6,
