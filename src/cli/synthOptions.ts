@@ -2,10 +2,13 @@
  * The synthesis options that every command built on a matrix takes
  * (`synth`, `budget`, `netlist`, `export`), and how their outcome is printed.
  */
+import { compileSpec, type DecodeSpec } from "../core/decodeSpec.ts";
+import type { VerifiedMatrix } from "../core/matrix.ts";
 import type { Project } from "../core/project.ts";
-import { synthSettings, type SynthFailure, type SynthSettings } from "../core/synthesize.ts";
+import { synthesize, synthSettings, type SynthFailure, type SynthSettings } from "../core/synthesize.ts";
 import { intOption, type OptionSpec, type ParsedArgs } from "./args.ts";
 import { EXIT, type CliIo } from "./io.ts";
+import { loadProject } from "./loadProject.ts";
 
 export const SYNTH_USAGE = "[--direct | --fast] [--max-depth K] [--depth POLICY] [--time-limit MS]";
 
@@ -50,4 +53,39 @@ export function reportFailure(failure: SynthFailure, io: CliIo): number {
   }
   io.err(`${failure.message}\n${failure.details.map((d) => `  - ${d}`).join("\n")}\n`);
   return EXIT.internal;
+}
+
+/** A validated project with its spec and verified matrix. */
+export interface Synthesized {
+  readonly project: Project;
+  readonly spec: DecodeSpec;
+  readonly matrix: VerifiedMatrix;
+}
+
+/**
+ * The common first half of every matrix command: read and validate the
+ * project file, apply the synthesis options, synthesize and verify. On any
+ * problem it prints the message and returns the exit code instead.
+ *
+ * @param check an optional extra check on the project (e.g. a state number in range); it returns a message, or undefined
+ */
+export async function loadAndSynthesize(
+  args: ParsedArgs,
+  io: CliIo,
+  usage: string,
+  check?: (project: Project) => string | undefined,
+): Promise<Synthesized | number> {
+  const project = await loadProject(args, io, usage);
+  if (!project) return EXIT.input;
+  const problem = check?.(project);
+  if (problem !== undefined) {
+    io.err(problem + "\n");
+    return EXIT.input;
+  }
+  const settings = settingsFromArgs(project, args, io);
+  if (!settings) return EXIT.input;
+  const spec = compileSpec(project);
+  const result = await synthesize(spec, settings);
+  if (!result.ok) return reportFailure(result.error, io);
+  return { project, spec, matrix: result.value };
 }

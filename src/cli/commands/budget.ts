@@ -1,14 +1,12 @@
 import { solveBudget, type Budget } from "../../core/budget.ts";
-import { compileSpec, type DecodeSpec } from "../../core/decodeSpec.ts";
+import type { DecodeSpec } from "../../core/decodeSpec.ts";
 import type { ESeriesName } from "../../core/eSeries.ts";
 import type { VerifiedMatrix } from "../../core/matrix.ts";
 import { formatOhms } from "../../core/parts.ts";
 import type { Project } from "../../core/project.ts";
-import { synthesize } from "../../core/synthesize.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
-import { loadProject } from "../loadProject.ts";
-import { reportFailure, settingsFromArgs, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `budget FILE [--json] [--series E24|E96] ${SYNTH_USAGE}`;
 
@@ -27,20 +25,16 @@ export const budgetCommand: Command = {
       io.err(`--series must be E24 or E96 (got "${series}")\n`);
       return EXIT.input;
     }
-    const project = await loadProject(args, io, USAGE);
-    if (!project) return EXIT.input;
-    const settings = settingsFromArgs(project, args, io);
-    if (!settings) return EXIT.input;
-    const spec = compileSpec(project);
-    const matrix = await synthesize(spec, settings);
-    if (!matrix.ok) return reportFailure(matrix.error, io);
-    const budget = solveBudget(project, spec, matrix.value, { series: series as ESeriesName });
+    const done = await loadAndSynthesize(args, io, USAGE);
+    if (typeof done === "number") return done;
+    const { project, spec, matrix } = done;
+    const budget = solveBudget(project, spec, matrix, { series: series as ESeriesName });
     if (!budget.ok) {
       io.err(`${budget.error.message}\n`);
       return EXIT.input;
     }
     if (args.flags.has("json")) io.out(JSON.stringify(budget.value, null, 2) + "\n");
-    else io.out(describeBudget(project, spec, matrix.value, budget.value));
+    else io.out(describeBudget(project, spec, matrix, budget.value));
     return EXIT.ok;
   },
 };

@@ -13,10 +13,8 @@
 import { join } from "node:path";
 import { bomCsv, bomLines } from "../../core/bom.ts";
 import { solveBudget } from "../../core/budget.ts";
-import { compileSpec } from "../../core/decodeSpec.ts";
 import { spiceNetlist } from "../../core/netlist.ts";
 import { serializeProject } from "../../core/projectWriter.ts";
-import { synthesize } from "../../core/synthesize.ts";
 import { wiringCsv, wiringRows } from "../../core/wiringList.ts";
 import { drawingOptions, type DrawingOptions } from "../../render/drawingOptions.ts";
 import { layoutMatrix } from "../../render/layout.ts";
@@ -25,8 +23,7 @@ import { wiringPageHtml } from "../../render/wiringPage.ts";
 import type { ParsedArgs } from "../args.ts";
 import type { Command } from "../command.ts";
 import { EXIT, type CliIo } from "../io.ts";
-import { loadProject } from "../loadProject.ts";
-import { reportFailure, settingsFromArgs, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE}`;
 
@@ -54,14 +51,9 @@ export const exportCommand: Command = {
     }
     const given = drawingArgs(args, io);
     if (!given) return EXIT.input;
-    const project = await loadProject(args, io, USAGE);
-    if (!project) return EXIT.input;
-    const settings = settingsFromArgs(project, args, io);
-    if (!settings) return EXIT.input;
-    const spec = compileSpec(project);
-    const result = await synthesize(spec, settings);
-    if (!result.ok) return reportFailure(result.error, io);
-    const matrix = result.value;
+    const done = await loadAndSynthesize(args, io, USAGE);
+    if (typeof done === "number") return done;
+    const { project, spec, matrix } = done;
 
     const options = drawingOptions(project, given);
     const drawing = layoutMatrix(project, spec, matrix, options);

@@ -1,10 +1,7 @@
-import { compileSpec } from "../../core/decodeSpec.ts";
 import { spiceNetlist } from "../../core/netlist.ts";
-import { synthesize } from "../../core/synthesize.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
-import { loadProject } from "../loadProject.ts";
-import { reportFailure, settingsFromArgs, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `netlist FILE --state K ${SYNTH_USAGE}`;
 
@@ -22,21 +19,16 @@ export const netlistCommand: Command = {
       io.err(`--state is required (the active state, e.g. --state 0)\nusage: diodeloom ${USAGE}\n`);
       return EXIT.input;
     }
-    const project = await loadProject(args, io, USAGE);
-    if (!project) return EXIT.input;
-    const n = project.counter.states;
     const m = /^S?(\d+)$/i.exec(raw);
     const k = m ? Number(m[1]) : NaN;
-    if (!(Number.isInteger(k) && k >= 0 && k < n)) {
-      io.err(`--state must be a state number from 0 to ${n - 1} or a name S0..S${n - 1} (got "${raw}")\n`);
-      return EXIT.input;
-    }
-    const settings = settingsFromArgs(project, args, io);
-    if (!settings) return EXIT.input;
-    const spec = compileSpec(project);
-    const matrix = await synthesize(spec, settings);
-    if (!matrix.ok) return reportFailure(matrix.error, io);
-    io.out(spiceNetlist(project, spec, matrix.value, k));
+    const done = await loadAndSynthesize(args, io, USAGE, (project) => {
+      const n = project.counter.states;
+      if (Number.isInteger(k) && k >= 0 && k < n) return undefined;
+      return `--state must be a state number from 0 to ${n - 1} or a name S0..S${n - 1} (got "${raw}")`;
+    });
+    if (typeof done === "number") return done;
+    const { project, spec, matrix } = done;
+    io.out(spiceNetlist(project, spec, matrix, k));
     return EXIT.ok;
   },
 };

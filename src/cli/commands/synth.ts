@@ -1,12 +1,10 @@
-import { compileSpec, type DecodeSpec } from "../../core/decodeSpec.ts";
+import type { DecodeSpec } from "../../core/decodeSpec.ts";
 import type { VerifiedMatrix } from "../../core/matrix.ts";
 import { countParts, refRanges } from "../../core/parts.ts";
 import type { Project } from "../../core/project.ts";
-import { synthesize } from "../../core/synthesize.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
-import { loadProject } from "../loadProject.ts";
-import { reportFailure, settingsFromArgs, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `synth FILE [--json] ${SYNTH_USAGE}`;
 
@@ -19,15 +17,11 @@ export const synthCommand: Command = {
     ...SYNTH_OPTIONS,
   },
   async run(args, io) {
-    const project = await loadProject(args, io, USAGE);
-    if (!project) return EXIT.input;
-    const settings = settingsFromArgs(project, args, io);
-    if (!settings) return EXIT.input;
-    const spec = compileSpec(project);
-    const result = await synthesize(spec, settings);
-    if (!result.ok) return reportFailure(result.error, io);
-    if (args.flags.has("json")) io.out(JSON.stringify(result.value, null, 2) + "\n");
-    else io.out(describeMatrix(project, spec, result.value));
+    const done = await loadAndSynthesize(args, io, USAGE);
+    if (typeof done === "number") return done;
+    const { project, spec, matrix } = done;
+    if (args.flags.has("json")) io.out(JSON.stringify(matrix, null, 2) + "\n");
+    else io.out(describeMatrix(project, spec, matrix));
     return EXIT.ok;
   },
 };
