@@ -7,7 +7,7 @@
  */
 import type { DecodeSpec } from "./decodeSpec.ts";
 import { buildMatrix, type DiodeMatrix, type VerifiedMatrix } from "./matrix.ts";
-import type { DepthPolicy, Project } from "./project.ts";
+import type { Project, SynthesisOptions } from "./project.ts";
 import { fail, ok, type Result } from "./result.ts";
 import { synthesizeDirect } from "./synthDirect.ts";
 import { defaultHighsLoader, exactPlan, type HighsLoader } from "./synthExact.ts";
@@ -18,14 +18,9 @@ import { verifyMatrix } from "./verify.ts";
 /** `direct`: one diode per lit cell; `fast`: the heuristic; `exact`: the proven optimum (branch-and-bound, then HiGHS). */
 export type SynthMode = "direct" | "fast" | "exact";
 
-export interface SynthSettings {
+/** The project's synthesis options plus the mode to run. */
+export interface SynthSettings extends SynthesisOptions {
   readonly mode: SynthMode;
-  readonly maxDepth: number;
-  readonly depth: DepthPolicy;
-  readonly buses: boolean;
-  readonly links: boolean;
-  readonly timeLimitMs: number;
-  readonly seed: number;
 }
 
 export type SynthFailure =
