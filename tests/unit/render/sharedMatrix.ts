@@ -2,23 +2,16 @@
  * Hand-built matrices with buses and links, for the drawing tests: the
  * optimizer may not produce these shapes yet, but the drawing must handle them.
  */
-import { readFileSync } from "node:fs";
 import { compileSpec, type DecodeSpec } from "../../../src/core/decodeSpec.ts";
 import { buildMatrix, type DiodeMatrix, type Edge } from "../../../src/core/matrix.ts";
 import type { Project } from "../../../src/core/project.ts";
-import { parseProject } from "../../../src/core/projectSchema.ts";
 import { synthesizeDirect } from "../../../src/core/synthDirect.ts";
 import { verifyMatrix } from "../../../src/core/verify.ts";
-
-export function loadExample(name: string): Project {
-  const r = parseProject(readFileSync(new URL(`../../../public/examples/${name}.json`, import.meta.url), "utf8"));
-  if (!r.ok) throw new Error(`example ${name} does not parse`);
-  return r.value;
-}
+import { example } from "../../support/projects.ts";
 
 /** The die roller with two buses (X: S1-S5 to tr, bl; Y: S3-S5 to tl, br) and a link 1ml -> 1mr. */
 export function dieRollerShared(): { project: Project; spec: DecodeSpec; matrix: DiodeMatrix } {
-  const project = loadExample("die-roller");
+  const project = example("die-roller");
   const spec = compileSpec(project);
   const edges: Edge[] = [
     { from: "S0", to: "1c" },
@@ -41,7 +34,7 @@ export function dieRollerShared(): { project: Project; spec: DecodeSpec; matrix:
 
 /** An example project with its direct matrix. */
 export function directExample(name: string): { project: Project; spec: DecodeSpec; matrix: DiodeMatrix } {
-  const project = loadExample(name);
+  const project = example(name);
   const spec = compileSpec(project);
   return { project, spec, matrix: synthesizeDirect(spec, project.synthesis.maxDepth, project.synthesis.depth) };
 }
