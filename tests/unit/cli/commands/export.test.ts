@@ -2,15 +2,15 @@ import { mkdtemp, readFile, readdir, rm } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { main } from "../../../src/cli/main.ts";
-import type { CliIo } from "../../../src/cli/io.ts";
-import { nodeIo } from "../../../src/cli/main.ts";
-import { compileSpec } from "../../../src/core/decodeSpec.ts";
-import { formatOhms } from "../../../src/core/parts.ts";
-import { parseProject } from "../../../src/core/projectSchema.ts";
-import { synthesize, synthSettings } from "../../../src/core/synthesize.ts";
-import { xmlProblem } from "../render/xmlCheck.ts";
-import { parseCsv } from "../core/csvRead.ts";
+import { main } from "../../../../src/cli/main.ts";
+import type { CliIo } from "../../../../src/cli/io.ts";
+import { nodeIo } from "../../../../src/cli/main.ts";
+import { compileSpec } from "../../../../src/core/decodeSpec.ts";
+import { formatOhms } from "../../../../src/core/parts.ts";
+import { parseProject } from "../../../../src/core/projectSchema.ts";
+import { synthesize, synthSettings } from "../../../../src/core/synthesize.ts";
+import { xmlProblem } from "../../render/xmlCheck.ts";
+import { parseCsv } from "../../core/csvRead.ts";
 
 const dirs: string[] = [];
 afterAll(async () => {
@@ -24,7 +24,7 @@ function recordingIo(): { io: CliIo; out: string[]; err: string[] } {
   return { io: { ...nodeIo, out: (t) => void out.push(t), err: (t) => void err.push(t) }, out, err };
 }
 
-const example = (name: string): string => new URL(`../../../public/examples/${name}.json`, import.meta.url).pathname;
+const example = (name: string): string => new URL(`../../../../public/examples/${name}.json`, import.meta.url).pathname;
 
 describe("diodeloom export", () => {
   it.each(["relay-hex-monitor", "turntable-position", "die-roller"])("writes every file for the %s example", async (name) => {

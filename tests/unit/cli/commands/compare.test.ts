@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { main } from "../../../src/cli/main.ts";
-import { recordingIo } from "../../support/recordingIo.ts";
+import { main } from "../../../../src/cli/main.ts";
+import { recordingIo } from "../../../support/recordingIo.ts";
 
 describe("diodeloom compare (in-process)", () => {
   it("prints diodeloom/compare@1 rows, best first, for every variant combination", async () => {

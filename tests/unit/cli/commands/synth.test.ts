@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { main } from "../../../src/cli/main.ts";
-import { recordingIo } from "../../support/recordingIo.ts";
+import { main } from "../../../../src/cli/main.ts";
+import { recordingIo } from "../../../support/recordingIo.ts";
 
 describe("diodeloom synth (in-process)", () => {
   it("prints the matrix JSON with from = anode on a counter line", async () => {
