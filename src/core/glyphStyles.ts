@@ -12,6 +12,7 @@ import { SEG7_VARIANTS, segmentsOfString } from "./glyphs.ts";
 import type { Project } from "./project.ts";
 import { splitText } from "./projectSchema.ts";
 import { ok, type Result } from "./result.ts";
+import { SEARCH_MAX_OUTPUTS } from "./synthSearch.ts";
 import { synthesize, synthSettings, type SynthFailure, type SynthHooks, type SynthSettings } from "./synthesize.ts";
 
 export const COMPARE_SCHEMA = "diodeloom/compare@1";
@@ -44,8 +45,10 @@ export function variantChoices(project: Project): { char: string; options: strin
 }
 
 /**
- * Synthesizes every glyph-variant combination. The time limit of each run is
- * the project's limit shared out over the combinations (at least 1 s each).
+ * Synthesizes every glyph-variant combination. A display with few outputs
+ * (where the exact search usually proves the optimum at once) gives each run
+ * the project's whole time limit; a bigger one shares the limit out over the
+ * combinations, at least 1 s each.
  *
  * @example
  * const r = await compareGlyphStyles(project);
@@ -61,13 +64,17 @@ export async function compareGlyphStyles(
   for (const c of choices) combos = combos.flatMap((combo) => c.options.map((o) => ({ ...combo, [c.char]: o })));
   combos = combos.slice(0, MAX_COMBINATIONS);
   const base = synthSettings(project, overrides);
-  const settings: SynthSettings = { ...base, timeLimitMs: Math.max(1000, Math.floor(base.timeLimitMs / combos.length)) };
+  // Small instances, where the per-state branch-and-bound applies and usually proves the optimum in well
+  // under a second, get the whole limit each, as a single synth run would, so that every row is worked out
+  // like the project's own matrix. Bigger ones share the limit out (at least 1 s each).
+  const shared: SynthSettings = { ...base, timeLimitMs: Math.max(1000, Math.floor(base.timeLimitMs / combos.length)) };
 
   const rows: GlyphStyleRow[] = [];
   for (const combo of combos) {
     const glyphs: Record<string, readonly string[]> = { ...project.glyphs };
     for (const [ch, lit] of Object.entries(combo)) glyphs[ch] = segmentsOfString(lit);
     const spec = compileSpec({ ...project, glyphs });
+    const settings = base.maxDepth === 2 && spec.outputs.length <= SEARCH_MAX_OUTPUTS ? base : shared;
     const r = await synthesize(spec, settings, hooks);
     if (!r.ok) return r;
     rows.push({ glyphs: combo, count: r.value.count, lowerBound: r.value.lowerBound, optimal: r.value.optimal });

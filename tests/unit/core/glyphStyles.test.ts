@@ -25,3 +25,35 @@ describe("glyphStyles", () => {
     for (let i = 1; i < r.value.length; i++) expect(r.value[i - 1]!.count).toBeLessThanOrEqual(r.value[i]!.count);
   });
 });
+
+describe("glyphStyles against single runs", () => {
+  it("works every row out as a synth run of that glyph set would (0-9, per-segment)", async () => {
+    const { compileSpec } = await import("../../../src/core/decodeSpec.ts");
+    const { synthesize, synthSettings } = await import("../../../src/core/synthesize.ts");
+    const { segmentsOfString } = await import("../../../src/core/glyphs.ts");
+    const p = project([..."0123456789"]);
+    const r = await compareGlyphStyles(p);
+    if (!r.ok) throw new Error(JSON.stringify(r.error));
+    expect(r.value).toHaveLength(8);
+    for (const row of r.value) {
+      const glyphs = { ...p.glyphs, ...Object.fromEntries(Object.entries(row.glyphs).map(([ch, lit]) => [ch, segmentsOfString(lit)])) };
+      const single = await synthesize(compileSpec({ ...p, glyphs }), synthSettings(p));
+      if (!single.ok) throw new Error(JSON.stringify(single.error));
+      expect([row.count, row.optimal]).toEqual([single.value.count, single.value.optimal]);
+    }
+  });
+
+  it("gives the hex monitor's own glyphs the proven count a synth run gives (0-F, per-segment)", async () => {
+    const { compileSpec } = await import("../../../src/core/decodeSpec.ts");
+    const { synthesize, synthSettings } = await import("../../../src/core/synthesize.ts");
+    const { example } = await import("../../support/projects.ts");
+    const p = example("relay-hex-monitor");
+    const single = await synthesize(compileSpec(p), synthSettings(p));
+    if (!single.ok) throw new Error(JSON.stringify(single.error));
+    const r = await compareGlyphStyles(p);
+    if (!r.ok) throw new Error(JSON.stringify(r.error));
+    const own = r.value.find((row) => row.glyphs["6"] === "acdefg" && row.glyphs["7"] === "abc" && row.glyphs["9"] === "abcdfg");
+    expect(own && [own.count, own.optimal]).toEqual([single.value.count, single.value.optimal]);
+    expect(single.value.optimal).toBe(true);
+  }, 120_000);
+});
