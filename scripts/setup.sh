@@ -9,6 +9,6 @@ command -v chromium >/dev/null 2>&1 || need+=(chromium)
 if [ ${#need[@]} -gt 0 ]; then
   export DEBIAN_FRONTEND=noninteractive
   apt-get update -qq
-  apt-get install -y -qq --no-install-recommends "${need[@]}" fonts-dejavu-core
+  apt-get install -y -qq "${need[@]}" fonts-dejavu-core
 fi
 npm ci --no-audit --no-fund
