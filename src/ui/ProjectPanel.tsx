@@ -29,7 +29,7 @@ const POLICY_NAMES: Record<DepthPolicy, string> = { "per-segment": "per segment"
 
 export function ProjectPanel() {
   const d = () => app.draft();
-  const [pattern, setPattern] = createSignal("0-9");
+  const [pattern, setPattern] = createSignal("");
   const [patternError, setPatternError] = createSignal<string | null>(null);
   const problemsAt = (path: string) =>
     app.problems().filter((p) => p.path === path || p.path.startsWith(`${path}.`) || p.path.startsWith(`${path}[`));
