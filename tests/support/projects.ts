@@ -25,3 +25,12 @@ export function example(name: string): Project {
   if (!r.ok) throw new Error(`example ${name} is invalid: ${JSON.stringify(r.error)}`);
   return r.value;
 }
+
+/** A three-state seven-segment project ("1", "7", "8") as file text, for command tests. */
+export const ONE_SEVEN_EIGHT_TEXT = JSON.stringify({
+  schema: "diodeloom/project@1",
+  title: "One seven",
+  counter: { states: 3 },
+  display: {},
+  show: ["1", "7", "8"],
+});

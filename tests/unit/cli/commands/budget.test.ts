@@ -3,15 +3,10 @@ import { main } from "../../../../src/cli/main.ts";
 import { solveBudget } from "../../../../src/core/budget.ts";
 import { describeBudget } from "../../../../src/cli/commands/budget.ts";
 import { recordingIo } from "../../../support/recordingIo.ts";
+import { ONE_SEVEN_EIGHT_TEXT } from "../../../support/projects.ts";
 import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
 
-const PROJECT = JSON.stringify({
-  schema: "diodeloom/project@1",
-  title: "One seven",
-  counter: { states: 3 },
-  display: {},
-  show: ["1", "7", "8"],
-});
+const PROJECT = ONE_SEVEN_EIGHT_TEXT;
 
 describe("budget command", () => {
   it("prints the budget JSON and exits 0", async () => {

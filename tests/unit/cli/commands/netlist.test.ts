@@ -1,14 +1,9 @@
 import { describe, expect, it } from "vitest";
 import { main } from "../../../../src/cli/main.ts";
 import { recordingIo } from "../../../support/recordingIo.ts";
+import { ONE_SEVEN_EIGHT_TEXT } from "../../../support/projects.ts";
 
-const PROJECT = JSON.stringify({
-  schema: "diodeloom/project@1",
-  title: "One seven",
-  counter: { states: 3 },
-  display: {},
-  show: ["1", "7", "8"],
-});
+const PROJECT = ONE_SEVEN_EIGHT_TEXT;
 
 describe("netlist command", () => {
   it("prints the deck of the state asked for, by number or name", async () => {
