@@ -6,12 +6,12 @@
  *
  * Run alone: npx tsx -e 'import("./bench/budgetBench.ts").then(m=>m.runBudgetBench(console.log))'
  */
-import { solveBudget } from "../src/core/budget.ts";
-import { compileSpec } from "../src/core/decodeSpec.ts";
-import type { Project } from "../src/core/project.ts";
-import { parseProject } from "../src/core/projectSchema.ts";
-import { solveAllStates } from "../src/core/stateSweep.ts";
-import { synthesize, synthSettings, type SynthMode } from "../src/core/synthesize.ts";
+import { solveBudget } from "../src/core/budget/budget.ts";
+import { compileSpec } from "../src/core/spec/decodeSpec.ts";
+import type { Project } from "../src/core/project/project.ts";
+import { parseProject } from "../src/core/project/projectSchema.ts";
+import { solveAllStates } from "../src/core/circuit/stateSweep.ts";
+import { synthesize, synthSettings, type SynthMode } from "../src/core/synth/synthesize.ts";
 
 /** Target for solving every state of the 00-59 project, milliseconds. */
 export const ALL_STATES_TARGET_MS = 200;

@@ -5,12 +5,12 @@
  *
  * Run alone: npx tsx -e 'import("./bench/synthBench.ts").then(m=>m.runSynthBench(console.log))'
  */
-import { compileSpec, litCellCount } from "../src/core/decodeSpec.ts";
-import type { DepthPolicy, Project } from "../src/core/project.ts";
-import { parseProject } from "../src/core/projectSchema.ts";
-import { heuristicPlan } from "../src/core/synthHeuristic.ts";
-import { planCount, sharingProblem } from "../src/core/synthPlan.ts";
-import { synthesize, synthSettings } from "../src/core/synthesize.ts";
+import { compileSpec, litCellCount } from "../src/core/spec/decodeSpec.ts";
+import type { DepthPolicy, Project } from "../src/core/project/project.ts";
+import { parseProject } from "../src/core/project/projectSchema.ts";
+import { heuristicPlan } from "../src/core/synth/heuristic.ts";
+import { planCount, sharingProblem } from "../src/core/synth/plan.ts";
+import { synthesize, synthSettings } from "../src/core/synth/synthesize.ts";
 
 interface BenchCase {
   readonly name: string;

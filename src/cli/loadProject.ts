@@ -1,6 +1,6 @@
-import { formatProblems } from "../core/result.ts";
-import { parseProject, MAX_PROJECT_BYTES } from "../core/projectSchema.ts";
-import type { Project } from "../core/project.ts";
+import { formatProblems } from "../core/result/result.ts";
+import { parseProject, MAX_PROJECT_BYTES } from "../core/project/projectSchema.ts";
+import type { Project } from "../core/project/project.ts";
 import type { ParsedArgs } from "./args.ts";
 import type { CliIo } from "./io.ts";
 

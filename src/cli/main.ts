@@ -12,7 +12,7 @@ import { compareCommand } from "./commands/compare.ts";
 import { exportCommand } from "./commands/export.ts";
 import { budgetCommand } from "./commands/budget.ts";
 import { netlistCommand } from "./commands/netlist.ts";
-import { MAX_PROJECT_BYTES } from "../core/projectSchema.ts";
+import { MAX_PROJECT_BYTES } from "../core/project/projectSchema.ts";
 
 export const VERSION = "0.1.0";
 

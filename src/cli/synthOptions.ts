@@ -2,10 +2,10 @@
  * The synthesis options that every command built on a matrix takes
  * (`synth`, `budget`, `netlist`, `export`), and how their outcome is printed.
  */
-import { compileSpec, type DecodeSpec } from "../core/decodeSpec.ts";
-import type { VerifiedMatrix } from "../core/matrix.ts";
-import type { Project } from "../core/project.ts";
-import { synthesize, synthSettings, type SynthFailure, type SynthSettings } from "../core/synthesize.ts";
+import { compileSpec, type DecodeSpec } from "../core/spec/decodeSpec.ts";
+import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
+import type { Project } from "../core/project/project.ts";
+import { synthesize, synthSettings, type SynthFailure, type SynthSettings } from "../core/synth/synthesize.ts";
 import { intOption, type OptionSpec, type ParsedArgs } from "./args.ts";
 import { EXIT, type CliIo } from "./io.ts";
 import { loadProject } from "./loadProject.ts";

@@ -3,7 +3,7 @@
  * a person supplies. Everything has a fixed default so that the same project
  * always gives the same drawing; nothing here reads the clock.
  */
-import type { Project } from "../core/project.ts";
+import type { Project } from "../core/project/project.ts";
 import type { PaperName } from "./drawingModel.ts";
 
 export interface DrawingOptions {

@@ -3,7 +3,7 @@
  * figure with its segment names (a top, b to f clockwise, g middle, dp the
  * point), or, for a custom cell, its segment names in a framed grid.
  */
-import type { Cell } from "../core/project.ts";
+import type { Cell } from "../core/project/project.ts";
 import {
   STROKE,
   boundingBox,

@@ -20,10 +20,10 @@
  * every wire cut at a block edge ends in an arrowhead with the number of the
  * sheet it continues on.
  */
-import type { DecodeSpec } from "../core/decodeSpec.ts";
-import type { DiodeMatrix } from "../core/matrix.ts";
-import { countParts, formatMilliamps, refRanges } from "../core/parts.ts";
-import type { Project } from "../core/project.ts";
+import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
+import type { DiodeMatrix } from "../core/matrix/matrix.ts";
+import { countParts, formatMilliamps, refRanges } from "../core/papers/parts.ts";
+import type { Project } from "../core/project/project.ts";
 import {
   STROKE,
   boundingBox,

@@ -3,9 +3,9 @@
  * column heads repeated on every printed page, an empty box to tick per
  * diode, and the inspection checklist at the end. Pure text, no DOM.
  */
-import type { DiodeMatrix } from "../core/matrix.ts";
-import type { Project } from "../core/project.ts";
-import { INSPECTION_CHECKLIST, WIRING_HEADER, type WiringRow } from "../core/wiringList.ts";
+import type { DiodeMatrix } from "../core/matrix/matrix.ts";
+import type { Project } from "../core/project/project.ts";
+import { INSPECTION_CHECKLIST, WIRING_HEADER, type WiringRow } from "../core/papers/wiringList.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
 
 const PAGE_SIZE = { a4: "A4", letter: "letter" } as const;

@@ -1,12 +1,12 @@
 /** Entry of the web app: mounts the screen, wires the keyboard, loads the first project. */
 import { render } from "solid-js/web";
-import { parseProject } from "../core/projectSchema.ts";
-import type { Project } from "../core/project.ts";
-import type { Problem } from "../core/result.ts";
-import { App } from "./App.tsx";
-import { app } from "./appState.ts";
-import { decodeShareHash, isShareHash } from "./shareLink.ts";
-import { historyAction, isTextEntry } from "./undoKeys.ts";
+import { parseProject } from "../core/project/projectSchema.ts";
+import type { Project } from "../core/project/project.ts";
+import type { Problem } from "../core/result/result.ts";
+import { App } from "./components/App.tsx";
+import { app } from "./state/appState.ts";
+import { decodeShareHash, isShareHash } from "./state/shareLink.ts";
+import { historyAction, isTextEntry } from "./state/undoKeys.ts";
 import "./styles.css";
 
 const DEMO_URL = `${import.meta.env.BASE_URL}examples/relay-hex-monitor.json`;

@@ -9,9 +9,9 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
-import { compileSpec } from "../../src/core/decodeSpec.ts";
-import { parseProject } from "../../src/core/projectSchema.ts";
-import { synthesize, synthSettings } from "../../src/core/synthesize.ts";
+import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
+import { parseProject } from "../../src/core/project/projectSchema.ts";
+import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
 import { exampleText } from "../support/projects.ts";
 import { startApp, type AppHarness } from "./appBrowser.ts";
 

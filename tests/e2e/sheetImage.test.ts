@@ -16,7 +16,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { drawingOptions } from "../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../src/render/layout.ts";
 import { sheetToSvgText } from "../../src/render/nodeWindow.ts";
-import { dieRollerShared, directExample } from "../unit/render/sharedMatrix.ts";
+import { dieRollerShared, directExample } from "../support/sharedMatrix.ts";
 
 /** Pixels per millimetre of the rendered images (about 100 dpi). */
 const PX_PER_MM = 4;

@@ -5,10 +5,10 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { compileSpec, litCellCount } from "../../src/core/decodeSpec.ts";
-import { parseProject } from "../../src/core/projectSchema.ts";
-import { synthesizeDirect } from "../../src/core/synthDirect.ts";
-import { verifyMatrix } from "../../src/core/verify.ts";
+import { compileSpec, litCellCount } from "../../src/core/spec/decodeSpec.ts";
+import { parseProject } from "../../src/core/project/projectSchema.ts";
+import { synthesizeDirect } from "../../src/core/synth/direct.ts";
+import { verifyMatrix } from "../../src/core/matrix/verify.ts";
 import { projectDoc } from "../support/arbitraries.ts";
 
 const SEED = 20261201;

@@ -11,14 +11,14 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { buildCircuit, type Circuit } from "../../src/core/circuit.ts";
-import { DEFAULT_GMIN_S, solveDc, type OperatingPoint } from "../../src/core/dcSolver.ts";
-import { compileSpec, type DecodeSpec } from "../../src/core/decodeSpec.ts";
-import { diodeJunction, npnTransport } from "../../src/core/deviceModels.ts";
-import { buildMatrix, type Edge } from "../../src/core/matrix.ts";
-import { shockleyVoltage, thermalVoltage } from "../../src/core/physics.ts";
-import type { Project } from "../../src/core/project.ts";
-import { verifyMatrix } from "../../src/core/verify.ts";
+import { buildCircuit, type Circuit } from "../../src/core/circuit/circuit.ts";
+import { DEFAULT_GMIN_S, solveDc, type OperatingPoint } from "../../src/core/circuit/dcSolver.ts";
+import { compileSpec, type DecodeSpec } from "../../src/core/spec/decodeSpec.ts";
+import { diodeJunction, npnTransport } from "../../src/core/circuit/deviceModels.ts";
+import { buildMatrix, type Edge } from "../../src/core/matrix/matrix.ts";
+import { shockleyVoltage, thermalVoltage } from "../../src/core/circuit/physics.ts";
+import type { Project } from "../../src/core/project/project.ts";
+import { verifyMatrix } from "../../src/core/matrix/verify.ts";
 import { makeProject } from "../support/projects.ts";
 
 const SEED = 4242;

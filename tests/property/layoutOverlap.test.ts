@@ -7,12 +7,12 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { compileSpec } from "../../src/core/decodeSpec.ts";
-import { buildMatrix, type Edge } from "../../src/core/matrix.ts";
-import { parseProject } from "../../src/core/projectSchema.ts";
+import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
+import { buildMatrix, type Edge } from "../../src/core/matrix/matrix.ts";
+import { parseProject } from "../../src/core/project/projectSchema.ts";
 import { drawingOptions } from "../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../src/render/layout.ts";
-import { stubProblems, textProblems } from "../unit/render/layoutGeometry.ts";
+import { stubProblems, textProblems } from "../support/layoutGeometry.ts";
 import { projectDoc } from "../support/arbitraries.ts";
 
 const SEED = 5052026;

@@ -4,13 +4,13 @@
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { litCellCount, type DecodeSpec } from "../../src/core/decodeSpec.ts";
-import type { DepthPolicy } from "../../src/core/project.ts";
-import { lpLowerBound } from "../../src/core/synthBounds.ts";
-import { defaultHighsLoader } from "../../src/core/synthExact.ts";
-import { problemFromLit } from "../../src/core/synthPlan.ts";
-import { synthesize, type SynthMode, type SynthSettings } from "../../src/core/synthesize.ts";
-import { verifyMatrix } from "../../src/core/verify.ts";
+import { litCellCount, type DecodeSpec } from "../../src/core/spec/decodeSpec.ts";
+import type { DepthPolicy } from "../../src/core/project/project.ts";
+import { lpLowerBound } from "../../src/core/synth/bounds.ts";
+import { defaultHighsLoader } from "../../src/core/synth/exact.ts";
+import { problemFromLit } from "../../src/core/synth/plan.ts";
+import { synthesize, type SynthMode, type SynthSettings } from "../../src/core/synth/synthesize.ts";
+import { verifyMatrix } from "../../src/core/matrix/verify.ts";
 import { specFromLit } from "../support/litSpec.ts";
 
 const SEED = 20261201;

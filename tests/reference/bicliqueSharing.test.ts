@@ -3,8 +3,8 @@
  * matrices").
  */
 import { describe, expect, it } from "vitest";
-import { litCellCount } from "../../src/core/decodeSpec.ts";
-import { synthesize, type SynthSettings } from "../../src/core/synthesize.ts";
+import { litCellCount } from "../../src/core/spec/decodeSpec.ts";
+import { synthesize, type SynthSettings } from "../../src/core/synth/synthesize.ts";
 import { litRows, specFromLit } from "../support/litSpec.ts";
 
 // Links off: identical columns could otherwise share through output-to-output

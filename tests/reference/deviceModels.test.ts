@@ -4,12 +4,12 @@
  * figures are re-derived here from the cited formula and constants.
  */
 import { describe, expect, it } from "vitest";
-import { buildCircuit, type Circuit, type CircuitElement } from "../../src/core/circuit.ts";
-import { siliconSaturationCurrent } from "../../src/core/corners.ts";
-import { solveDc } from "../../src/core/dcSolver.ts";
-import { criticalVoltage, diodeJunction, npnTransport } from "../../src/core/deviceModels.ts";
-import { BOLTZMANN_J_PER_K, ELEMENTARY_CHARGE_C, shockleyVoltage, thermalVoltage } from "../../src/core/physics.ts";
-import { ELECTRICAL_DEFAULTS } from "../../src/core/projectSchema.ts";
+import { buildCircuit, type Circuit, type CircuitElement } from "../../src/core/circuit/circuit.ts";
+import { siliconSaturationCurrent } from "../../src/core/budget/corners.ts";
+import { solveDc } from "../../src/core/circuit/dcSolver.ts";
+import { criticalVoltage, diodeJunction, npnTransport } from "../../src/core/circuit/deviceModels.ts";
+import { BOLTZMANN_J_PER_K, ELEMENTARY_CHARGE_C, shockleyVoltage, thermalVoltage } from "../../src/core/circuit/physics.ts";
+import { ELECTRICAL_DEFAULTS } from "../../src/core/project/projectSchema.ts";
 import { directDesign } from "../support/budgetFixtures.ts";
 import { showing } from "../support/projects.ts";
 

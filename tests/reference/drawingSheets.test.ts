@@ -6,7 +6,7 @@ import { describe, expect, it } from "vitest";
 import { drawingOptions } from "../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../src/render/layout.ts";
 import { FRAME_MM, PAPER_MM, sheetFrame } from "../../src/render/sheetFrame.ts";
-import { directExample } from "../unit/render/sharedMatrix.ts";
+import { directExample } from "../support/sharedMatrix.ts";
 
 describe("drawing sheets", () => {
   it("uses A4 210 x 297 mm (source: ISO 216) and Letter 8.5 x 11 in (source: US Letter, 25.4 mm per inch)", () => {

@@ -7,8 +7,8 @@
  * the hex codes in gfedcba bit order as a second, independent check.
  */
 import { describe, expect, it } from "vitest";
-import { SEG7_GLYPHS, SEG7_SEGMENTS, SEG7_VARIANTS, seg7Code, segmentsOfString } from "../../src/core/glyphs.ts";
-import { compileSpec, litCellCount } from "../../src/core/decodeSpec.ts";
+import { SEG7_GLYPHS, SEG7_SEGMENTS, SEG7_VARIANTS, seg7Code, segmentsOfString } from "../../src/core/glyphs/glyphs.ts";
+import { compileSpec, litCellCount } from "../../src/core/spec/decodeSpec.ts";
 import { showing } from "../support/projects.ts";
 
 // Source: "Seven-segment display" (Wikipedia), table of hexadecimal digits.

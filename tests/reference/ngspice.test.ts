@@ -16,9 +16,9 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { buildCircuit } from "../../src/core/circuit.ts";
-import { solveDc } from "../../src/core/dcSolver.ts";
-import { spiceNetlist, stringDieNode } from "../../src/core/netlist.ts";
+import { buildCircuit } from "../../src/core/circuit/circuit.ts";
+import { solveDc } from "../../src/core/circuit/dcSolver.ts";
+import { spiceNetlist, stringDieNode } from "../../src/core/papers/netlist.ts";
 import { clockProject, directDesign, sharedDieRoller, type Design } from "../support/budgetFixtures.ts";
 import { example, showing } from "../support/projects.ts";
 

@@ -1,5 +1,5 @@
 import fc from "fast-check";
-import { SEG7_GLYPHS } from "../../src/core/glyphs.ts";
+import { SEG7_GLYPHS } from "../../src/core/glyphs/glyphs.ts";
 
 const SEG7_CHARS = Object.keys(SEG7_GLYPHS);
 

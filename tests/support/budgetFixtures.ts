@@ -3,11 +3,11 @@
  * a hand-built shared matrix at depth 2 (a bus and two output links), and a
  * 00-59 two-position clock.
  */
-import { compileSpec, type DecodeSpec } from "../../src/core/decodeSpec.ts";
-import { buildMatrix, type Edge, type VerifiedMatrix } from "../../src/core/matrix.ts";
-import type { Project } from "../../src/core/project.ts";
-import { synthesizeDirect } from "../../src/core/synthDirect.ts";
-import { verifyMatrix } from "../../src/core/verify.ts";
+import { compileSpec, type DecodeSpec } from "../../src/core/spec/decodeSpec.ts";
+import { buildMatrix, type Edge, type VerifiedMatrix } from "../../src/core/matrix/matrix.ts";
+import type { Project } from "../../src/core/project/project.ts";
+import { synthesizeDirect } from "../../src/core/synth/direct.ts";
+import { verifyMatrix } from "../../src/core/matrix/verify.ts";
 import { example, makeProject } from "./projects.ts";
 
 export interface Design {

@@ -3,8 +3,8 @@
  * states, columns outputs. Columns lit in no state or in every state are
  * dropped, as compileSpec does (no driver, or tied on).
  */
-import type { DecodeSpec } from "../../src/core/decodeSpec.ts";
-import { builtinCell } from "../../src/core/glyphs.ts";
+import type { DecodeSpec } from "../../src/core/spec/decodeSpec.ts";
+import { builtinCell } from "../../src/core/glyphs/glyphs.ts";
 
 export function specFromLit(lit: readonly (readonly boolean[])[]): DecodeSpec {
   const n = lit.length;

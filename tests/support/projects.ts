@@ -1,6 +1,6 @@
 import { readFileSync } from "node:fs";
-import { parseProject } from "../../src/core/projectSchema.ts";
-import type { Project } from "../../src/core/project.ts";
+import { parseProject } from "../../src/core/project/projectSchema.ts";
+import type { Project } from "../../src/core/project/project.ts";
 
 /** Builds and validates a project from a few fields; throws on a bad test fixture. */
 export function makeProject(fields: Record<string, unknown>): Project {

@@ -1,9 +1,9 @@
-import { solveBudget, type Budget } from "../../core/budget.ts";
-import type { DecodeSpec } from "../../core/decodeSpec.ts";
-import type { ESeriesName } from "../../core/eSeries.ts";
-import type { VerifiedMatrix } from "../../core/matrix.ts";
-import { formatOhms } from "../../core/parts.ts";
-import type { Project } from "../../core/project.ts";
+import { solveBudget, type Budget } from "../../core/budget/budget.ts";
+import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
+import type { ESeriesName } from "../../core/budget/eSeries.ts";
+import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
+import { formatOhms } from "../../core/papers/parts.ts";
+import type { Project } from "../../core/project/project.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";

@@ -1,4 +1,4 @@
-import { compareGlyphStyles, COMPARE_SCHEMA, type GlyphStyleRow } from "../../core/glyphStyles.ts";
+import { compareGlyphStyles, COMPARE_SCHEMA, type GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
 import { loadProject } from "../loadProject.ts";

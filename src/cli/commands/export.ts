@@ -11,11 +11,11 @@
  * BOM keeps the nominal emitter values, and the exit code is 1.
  */
 import { join } from "node:path";
-import { bomCsv, bomLines } from "../../core/bom.ts";
-import { solveBudget } from "../../core/budget.ts";
-import { spiceNetlist } from "../../core/netlist.ts";
-import { serializeProject } from "../../core/projectWriter.ts";
-import { wiringCsv, wiringRows } from "../../core/wiringList.ts";
+import { bomCsv, bomLines } from "../../core/papers/bom.ts";
+import { solveBudget } from "../../core/budget/budget.ts";
+import { spiceNetlist } from "../../core/papers/netlist.ts";
+import { serializeProject } from "../../core/project/projectWriter.ts";
+import { wiringCsv, wiringRows } from "../../core/papers/wiringList.ts";
 import { drawingOptions, type DrawingOptions } from "../../render/drawingOptions.ts";
 import { layoutMatrix } from "../../render/layout.ts";
 import { sheetToSvgText } from "../../render/nodeWindow.ts";

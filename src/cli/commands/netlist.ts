@@ -1,4 +1,4 @@
-import { spiceNetlist } from "../../core/netlist.ts";
+import { spiceNetlist } from "../../core/papers/netlist.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";

@@ -1,7 +1,7 @@
-import type { DecodeSpec } from "../../core/decodeSpec.ts";
-import type { VerifiedMatrix } from "../../core/matrix.ts";
-import { countParts, refRanges } from "../../core/parts.ts";
-import type { Project } from "../../core/project.ts";
+import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
+import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
+import { countParts, refRanges } from "../../core/papers/parts.ts";
+import type { Project } from "../../core/project/project.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";

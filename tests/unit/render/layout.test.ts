@@ -1,16 +1,16 @@
 import { describe, expect, it } from "vitest";
-import { compileSpec } from "../../../src/core/decodeSpec.ts";
-import { buildMatrix, type DiodeMatrix } from "../../../src/core/matrix.ts";
-import type { Project } from "../../../src/core/project.ts";
-import type { DecodeSpec } from "../../../src/core/decodeSpec.ts";
-import { synthesizeDirect } from "../../../src/core/synthDirect.ts";
+import { compileSpec } from "../../../src/core/spec/decodeSpec.ts";
+import { buildMatrix, type DiodeMatrix } from "../../../src/core/matrix/matrix.ts";
+import type { Project } from "../../../src/core/project/project.ts";
+import type { DecodeSpec } from "../../../src/core/spec/decodeSpec.ts";
+import { synthesizeDirect } from "../../../src/core/synth/direct.ts";
 import type { Sheet } from "../../../src/render/drawingModel.ts";
 import { drawingOptions } from "../../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../../src/render/layout.ts";
 import { PAPER_MM, FRAME_MM } from "../../../src/render/sheetFrame.ts";
 import { makeProject } from "../../support/projects.ts";
-import { arms, pieces, samePoint, stubProblems, textProblems, touches } from "./layoutGeometry.ts";
-import { dieRollerShared, directExample } from "./sharedMatrix.ts";
+import { arms, pieces, samePoint, stubProblems, textProblems, touches } from "../../support/layoutGeometry.ts";
+import { dieRollerShared, directExample } from "../../support/sharedMatrix.ts";
 
 /** 40 states on three positions: too big for one sheet. */
 function bigProject(): { project: Project; spec: DecodeSpec; matrix: DiodeMatrix } {

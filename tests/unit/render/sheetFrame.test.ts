@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { notesBlock, notesHeight, sheetFrame, titleBlock, zoneOf } from "../../../src/render/sheetFrame.ts";
-import { textProblems } from "./layoutGeometry.ts";
+import { textProblems } from "../../support/layoutGeometry.ts";
 import type { Sheet } from "../../../src/render/drawingModel.ts";
 
 function asSheet(labels: Sheet["labels"], widthMm = 297, heightMm = 210): Sheet {

@@ -1,12 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { compileSpec } from "../../../src/core/decodeSpec.ts";
-import { synthesizeDirect } from "../../../src/core/synthDirect.ts";
+import { compileSpec } from "../../../src/core/spec/decodeSpec.ts";
+import { synthesizeDirect } from "../../../src/core/synth/direct.ts";
 import { drawingOptions } from "../../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../../src/render/layout.ts";
 import { sheetToSvgText } from "../../../src/render/nodeWindow.ts";
 import { makeProject } from "../../support/projects.ts";
-import { dieRollerShared, directExample } from "./sharedMatrix.ts";
-import { xmlProblem } from "./xmlCheck.ts";
+import { dieRollerShared, directExample } from "../../support/sharedMatrix.ts";
+import { xmlProblem } from "../../support/xmlCheck.ts";
 
 describe("the strict XML check itself", () => {
   it("accepts well-formed documents", () => {

@@ -1,10 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { wiringRows } from "../../../src/core/wiringList.ts";
+import { wiringRows } from "../../../src/core/papers/wiringList.ts";
 import { drawingOptions } from "../../../src/render/drawingOptions.ts";
 import { wiringPageHtml } from "../../../src/render/wiringPage.ts";
 import { makeProject } from "../../support/projects.ts";
-import { compileSpec } from "../../../src/core/decodeSpec.ts";
-import { synthesizeDirect } from "../../../src/core/synthDirect.ts";
+import { compileSpec } from "../../../src/core/spec/decodeSpec.ts";
+import { synthesizeDirect } from "../../../src/core/synth/direct.ts";
 
 describe("printable wiring list", () => {
   const project = makeProject({ title: "R&D <rig>", counter: { states: 3 }, display: { cell: "seg7" }, show: ["1", "2", "3"] });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { main } from "../../../../src/cli/main.ts";
-import { solveBudget } from "../../../../src/core/budget.ts";
+import { solveBudget } from "../../../../src/core/budget/budget.ts";
 import { describeBudget } from "../../../../src/cli/commands/budget.ts";
 import { recordingIo } from "../../../support/recordingIo.ts";
 import { ONE_SEVEN_EIGHT_TEXT } from "../../../support/projects.ts";

@@ -5,12 +5,12 @@ import { afterAll, describe, expect, it } from "vitest";
 import { main } from "../../../../src/cli/main.ts";
 import type { CliIo } from "../../../../src/cli/io.ts";
 import { nodeIo } from "../../../../src/cli/main.ts";
-import { compileSpec } from "../../../../src/core/decodeSpec.ts";
-import { formatOhms } from "../../../../src/core/parts.ts";
-import { parseProject } from "../../../../src/core/projectSchema.ts";
-import { synthesize, synthSettings } from "../../../../src/core/synthesize.ts";
-import { xmlProblem } from "../../render/xmlCheck.ts";
-import { parseCsv } from "../../core/csvRead.ts";
+import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
+import { formatOhms } from "../../../../src/core/papers/parts.ts";
+import { parseProject } from "../../../../src/core/project/projectSchema.ts";
+import { synthesize, synthSettings } from "../../../../src/core/synth/synthesize.ts";
+import { xmlProblem } from "../../../support/xmlCheck.ts";
+import { parseCsv } from "../../../support/csvRead.ts";
 
 const dirs: string[] = [];
 afterAll(async () => {

@@ -1,0 +1,136 @@
+/**
+ * Tolerance corners: the electrical model pushed to the ends of its
+ * tolerances, so that the budget can say how low and how high a string
+ * current can go.
+ *
+ * Temperature relations (textbook; named so that a reader can check them):
+ * - thermal voltage VT = kT/q with the exact SI constants;
+ * - silicon saturation current as SPICE scales it,
+ *   Is(T) = Is(T0) (T/T0)^(XTI/N) exp((T/T0 - 1) EG / (N VT(T))), with the
+ *   SPICE defaults EG = 1.11 eV and XTI = 3 (matrix diodes with their N,
+ *   driver transistors with N = 1); this gives the familiar fall of about
+ *   2 mV per °C of a silicon junction at constant current (Sedra and Smith,
+ *   Microelectronic Circuits);
+ * - LED dies: no temperature model is given for them, so each die's forward
+ *   voltage at the target current moves by that same -2 mV per °C, and Is is
+ *   set to match;
+ * - beta: not scaled with temperature (SPICE's XTB = 0); the beta range
+ *   `tolerance.betaMin`..`betaMax` stands for spread and temperature alike.
+ */
+import { emitterOhmsOf } from "../circuit/circuit.ts";
+import { shockleyVoltage, thermalVoltage, ZERO_CELSIUS_K } from "../circuit/physics.ts";
+import type { ElectricalModel } from "../project/project.ts";
+
+/** SPICE default energy gap for silicon, electron-volts. */
+export const SILICON_EG_EV = 1.11;
+/** SPICE default saturation-current temperature exponent. */
+export const SILICON_XTI = 3;
+/** Junction voltage change at constant current, volts per kelvin (about -2 mV/°C). */
+export const JUNCTION_TEMPCO_V_PER_K = -0.002;
+
+/**
+ * Saturation current at `toC` of a junction whose `isA` holds at `fromC`,
+ * scaled as SPICE does.
+ *
+ * @param n emission coefficient
+ */
+export function siliconSaturationCurrent(
+  isA: number,
+  n: number,
+  fromC: number,
+  toC: number,
+  egEv = SILICON_EG_EV,
+  xti = SILICON_XTI,
+): number {
+  const ratio = (toC + ZERO_CELSIUS_K) / (fromC + ZERO_CELSIUS_K);
+  return isA * Math.exp((ratio - 1) * (egEv / (n * thermalVoltage(toC))) + (xti / n) * Math.log(ratio));
+}
+
+/**
+ * Saturation current at `toC` of an LED die, chosen so that its forward
+ * voltage at `atA` amperes moves by -2 mV per °C from its value at `fromC`.
+ */
+export function ledSaturationCurrent(isA: number, n: number, fromC: number, toC: number, atA: number): number {
+  const v0 = shockleyVoltage(atA, isA, n, thermalVoltage(fromC));
+  const v1 = v0 + JUNCTION_TEMPCO_V_PER_K * (toC - fromC);
+  return atA / Math.expm1(v1 / (n * thermalVoltage(toC)));
+}
+
+export type CornerName = "low" | "high";
+
+/** What a corner changes. */
+export interface CornerConditions {
+  readonly name: CornerName;
+  readonly supplyV: number;
+  readonly temperatureC: number;
+  readonly betaF: number;
+  /** Factors applied to the resistors' nominal values. */
+  readonly emitterFactor: number;
+  readonly pullDownFactor: number;
+  readonly counterFactor: number;
+}
+
+/**
+ * The two corners. `low` has everything that lowers a string current: the
+ * lowest supply, emitter and counter resistances at +tolerance, pull-downs at
+ * -tolerance (more current through the matrix diode, a bigger drop), the
+ * lowest beta and the lowest temperature (higher junction drops). `high` is
+ * the mirror image.
+ */
+export function cornerConditions(e: ElectricalModel): readonly [CornerConditions, CornerConditions] {
+  const t = e.tolerance.resistorPct / 100;
+  const [cold, hot] = e.tolerance.temperatureC;
+  return [
+    {
+      name: "low",
+      supplyV: e.supply.minVolts,
+      temperatureC: cold,
+      betaF: e.tolerance.betaMin,
+      emitterFactor: 1 + t,
+      pullDownFactor: 1 - t,
+      counterFactor: 1 + t,
+    },
+    {
+      name: "high",
+      supplyV: e.supply.maxVolts,
+      temperatureC: hot,
+      betaF: e.tolerance.betaMax,
+      emitterFactor: 1 - t,
+      pullDownFactor: 1 + t,
+      counterFactor: 1 - t,
+    },
+  ];
+}
+
+/**
+ * The electrical model at a corner. Emitter resistors, including any in
+ * `trim`, are written out per output so the corner's factor applies to each.
+ *
+ * @param outputs the driven outputs, to write their emitter resistors out
+ */
+export function cornerModel(
+  e: ElectricalModel,
+  c: CornerConditions,
+  outputs: readonly string[],
+  trim?: ReadonlyMap<string, number>,
+): ElectricalModel {
+  const t0 = e.temperatureC;
+  const emitterResistors: Record<string, number> = {};
+  for (const o of outputs) emitterResistors[o] = emitterOhmsOf(e, o, trim) * c.emitterFactor;
+  return {
+    ...e,
+    temperatureC: c.temperatureC,
+    counterOutput: { ...e.counterOutput, resistance: e.counterOutput.resistance * c.counterFactor },
+    diode: { ...e.diode, is: siliconSaturationCurrent(e.diode.is, e.diode.n, t0, c.temperatureC) },
+    pullDown: e.pullDown * c.pullDownFactor,
+    driver: {
+      ...e.driver,
+      is: siliconSaturationCurrent(e.driver.is, 1, t0, c.temperatureC),
+      betaF: c.betaF,
+      emitterResistor: e.driver.emitterResistor * c.emitterFactor,
+      emitterResistors,
+    },
+    string: { ...e.string, is: ledSaturationCurrent(e.string.is, e.string.n, t0, c.temperatureC, e.string.targetA) },
+    supply: { ...e.supply, volts: c.supplyV },
+  };
+}

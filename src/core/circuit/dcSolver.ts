@@ -1,0 +1,575 @@
+/**
+ * The DC operating point of one circuit, solved the way SPICE-class
+ * simulators do it: modified nodal analysis (every source here is grounded,
+ * so its node voltage is known and drops out of the unknowns), Newton-Raphson
+ * on companion models with pnjlim junction limiting, then, if that fails,
+ * gmin stepping and then source stepping (L. W. Nagel, SPICE2, 1975).
+ *
+ * Like SPICE, GMIN (1e-12 S) sits across every junction; gmin stepping adds a
+ * further conductance from every node to ground and takes it away step by
+ * step. A circuit that does not converge comes back as a failure naming its
+ * state, never as a number.
+ */
+import type { Circuit } from "./circuit.ts";
+import { GROUND } from "./circuit.ts";
+import { criticalVoltage, diodeConductance, diodeCurrent, diodeJunction, limitJunction, npnTransport } from "./deviceModels.ts";
+import { scratchLength, solveInPlace } from "./linearSolve.ts";
+import { thermalVoltage } from "./physics.ts";
+import { fail, ok, type Result } from "../result/result.ts";
+
+/** SPICE's default GMIN, siemens. */
+export const DEFAULT_GMIN_S = 1e-12;
+
+export interface DcSettings {
+  /** Conductance across every junction, siemens. */
+  readonly gminS: number;
+  /** Newton iterations allowed for the plain solve and for each stepping step. */
+  readonly maxIterations: number;
+  /** The methods to try, in order (tests pick one to exercise it alone). */
+  readonly methods: readonly DcMethod[];
+}
+
+export type DcMethod = "newton" | "gmin-stepping" | "source-stepping";
+
+export const DEFAULT_DC_SETTINGS: DcSettings = {
+  gminS: DEFAULT_GMIN_S,
+  maxIterations: 150,
+  methods: ["newton", "gmin-stepping", "source-stepping"],
+};
+
+export interface TransistorCurrents {
+  /** Into the collector, amperes. */
+  readonly icA: number;
+  /** Into the base, amperes. */
+  readonly ibA: number;
+  /** Out of the emitter, amperes. */
+  readonly ieA: number;
+  /**
+   * From the collector to the grounded substrate through GMIN, amperes
+   * (ngspice's collector-substrate junction); not part of Ic.
+   */
+  readonly substrateA: number;
+}
+
+/** A solved circuit. */
+export interface OperatingPoint {
+  readonly state: string;
+  readonly method: DcMethod;
+  /** Newton iterations spent, over all steps. */
+  readonly iterations: number;
+  /** Every node's voltage to ground, volts (ground `0` included). */
+  readonly voltages: Readonly<Record<string, number>>;
+  /**
+   * Two-terminal element currents, amperes: resistors from `a` to `b`,
+   * diodes and strings from anode to cathode, voltage sources out of their
+   * node into the circuit.
+   */
+  readonly currents: Readonly<Record<string, number>>;
+  readonly transistors: Readonly<Record<string, TransistorCurrents>>;
+}
+
+export interface DcFailure {
+  readonly state: string;
+  readonly message: string;
+}
+
+// ------------------------------------------------------------ compiled form
+
+/** Node reference: >= 0 an unknown, < 0 a fixed node `-(k + 1)`. */
+type NodeRef = number;
+
+interface Junction {
+  /** Anode and cathode refs. */
+  readonly a: NodeRef;
+  readonly k: NodeRef;
+  readonly isA: number;
+  readonly nVtV: number;
+  readonly gminS: number;
+  readonly vcritV: number;
+  /** Name of the element whose current this is, for the result. */
+  readonly name: string;
+}
+
+interface Transistor {
+  readonly c: NodeRef;
+  readonly b: NodeRef;
+  readonly e: NodeRef;
+  readonly params: { readonly isA: number; readonly betaF: number; readonly betaR: number };
+  readonly vcritV: number;
+  readonly name: string;
+}
+
+interface Conductance {
+  readonly a: NodeRef;
+  readonly b: NodeRef;
+  readonly g: number;
+  /** Element name for the result, or "" for a diode's series resistance. */
+  readonly name: string;
+}
+
+interface Compiled {
+  readonly n: number;
+  readonly gminS: number;
+  readonly unknownNames: readonly string[];
+  readonly fixedNames: readonly string[];
+  /** Fixed node voltages at full source strength (ground first). */
+  readonly fixedVolts: Float64Array;
+  readonly sourceNames: readonly string[];
+  readonly conductances: readonly Conductance[];
+  readonly junctions: readonly Junction[];
+  readonly transistors: readonly Transistor[];
+  readonly vtV: number;
+}
+
+function compile(circuit: Circuit, gminS: number): Compiled {
+  const vt = thermalVoltage(circuit.temperatureC);
+  const fixedNames: string[] = [GROUND];
+  const fixedVolts: number[] = [0];
+  const sourceNames: string[] = [];
+  for (const el of circuit.elements) {
+    if (el.kind !== "vsource") continue;
+    if (fixedNames.includes(el.node)) throw new Error(`bug: two sources drive node ${el.node}`);
+    fixedNames.push(el.node);
+    fixedVolts.push(el.volts);
+    sourceNames.push(el.name);
+  }
+  const fixed = new Set(fixedNames);
+  // Diode series resistances get an internal node, eliminated first.
+  const internal = circuit.elements.filter((e) => e.kind === "diode" && e.rsOhms > 0).map((e) => `${e.name}#j`);
+  const unknownNames = [...internal, ...circuit.nodes.filter((nd) => !fixed.has(nd))];
+  const index = new Map<string, NodeRef>();
+  unknownNames.forEach((nd, i) => index.set(nd, i));
+  fixedNames.forEach((nd, k) => index.set(nd, -(k + 1)));
+  const ref = (nd: string): NodeRef => {
+    const r = index.get(nd);
+    if (r === undefined) throw new Error(`bug: element refers to undeclared node ${nd}`);
+    return r;
+  };
+
+  const conductances: Conductance[] = [];
+  const junctions: Junction[] = [];
+  const transistors: Transistor[] = [];
+  for (const el of circuit.elements) {
+    switch (el.kind) {
+      case "vsource":
+        break;
+      case "resistor":
+        conductances.push({ a: ref(el.a), b: ref(el.b), g: 1 / el.ohms, name: el.name });
+        break;
+      case "diode": {
+        const nVt = el.n * vt;
+        let anode = ref(el.anode);
+        if (el.rsOhms > 0) {
+          const j = ref(`${el.name}#j`);
+          conductances.push({ a: anode, b: j, g: 1 / el.rsOhms, name: "" });
+          anode = j;
+        }
+        junctions.push({
+          a: anode,
+          k: ref(el.cathode),
+          isA: el.isA,
+          nVtV: nVt,
+          gminS,
+          vcritV: criticalVoltage(el.isA, nVt),
+          name: el.name,
+        });
+        break;
+      }
+      case "string": {
+        const nVt = el.dies * el.n * vt;
+        junctions.push({
+          a: ref(el.anode),
+          k: ref(el.cathode),
+          isA: el.isA,
+          nVtV: nVt,
+          gminS: gminS / el.dies,
+          vcritV: criticalVoltage(el.isA, nVt),
+          name: el.name,
+        });
+        break;
+      }
+      case "npn":
+        // ngspice's BJT has a collector-substrate junction (substrate grounded
+        // for three terminals) with no saturation current but GMIN across it.
+        conductances.push({ a: ref(el.collector), b: ref(GROUND), g: gminS, name: `${el.name}#sub` });
+        transistors.push({
+          c: ref(el.collector),
+          b: ref(el.base),
+          e: ref(el.emitter),
+          params: { isA: el.isA, betaF: el.betaF, betaR: el.betaR },
+          vcritV: criticalVoltage(el.isA, vt),
+          name: el.name,
+        });
+        break;
+    }
+  }
+  return {
+    n: unknownNames.length,
+    gminS,
+    unknownNames,
+    fixedNames,
+    fixedVolts: Float64Array.from(fixedVolts),
+    sourceNames,
+    conductances,
+    junctions,
+    transistors,
+    vtV: vt,
+  };
+}
+
+// ------------------------------------------------------------ Newton-Raphson
+
+interface NewtonState {
+  readonly x: Float64Array;
+  /** Junction voltages last evaluated at: diodes, then (vbe, vbc) per transistor. */
+  readonly jv: Float64Array;
+}
+
+interface NewtonRun {
+  readonly converged: boolean;
+  readonly iterations: number;
+}
+
+/**
+ * Writes companion models into the nodal matrix `G` and right-hand side.
+ * A class rather than closures: the inner loops call these for every diode
+ * in every iteration.
+ */
+class Stamper {
+  constructor(
+    readonly G: Float64Array,
+    readonly rhs: Float64Array,
+    /** Sum of |current| meeting at each node, for the KCL tolerance. */
+    readonly scale: Float64Array,
+    readonly n: number,
+    readonly fixedV: Float64Array,
+  ) {}
+
+  /** Coefficient `coef` of node `col` in the KCL row of node `row`. */
+  entry(row: NodeRef, col: NodeRef, coef: number): void {
+    if (row < 0) return;
+    if (col >= 0) this.G[row * this.n + col] = (this.G[row * this.n + col] as number) + coef;
+    else this.rhs[row] = (this.rhs[row] as number) - coef * (this.fixedV[-col - 1] as number);
+  }
+
+  /** A companion current source leaving `row`, and the true current there for the KCL scale. */
+  inject(row: NodeRef, companionA: number, trueA: number): void {
+    if (row < 0) return;
+    this.rhs[row] = (this.rhs[row] as number) - companionA;
+    this.scale[row] = (this.scale[row] as number) + Math.abs(trueA);
+  }
+
+  conductance(a: NodeRef, b: NodeRef, g: number): void {
+    this.entry(a, a, g);
+    this.entry(a, b, -g);
+    this.entry(b, b, g);
+    this.entry(b, a, -g);
+  }
+
+  /**
+   * One NPN terminal whose current is i0 + dVbe (vb - ve - vbe) + dVbc (vb - vc - vbc)
+   * around the junction voltages (vbe, vbc) it was evaluated at.
+   */
+  terminal(row: NodeRef, t: Transistor, i0: number, dVbe: number, dVbc: number, vbe: number, vbc: number): void {
+    if (row < 0) return;
+    this.entry(row, t.b, dVbe + dVbc);
+    this.entry(row, t.e, -dVbe);
+    this.entry(row, t.c, -dVbc);
+    this.inject(row, i0 - dVbe * vbe - dVbc * vbc, i0);
+  }
+}
+
+/**
+ * Runs Newton-Raphson from `st` (updated in place). Convergence needs a step
+ * with no junction limited, a last update within 1e-9 relative + 1 nV, and
+ * Kirchhoff's current law at every node within 1e-15 A + 1e-10 of the
+ * currents meeting there, checked on the unlinearized devices; that is far
+ * tighter than SPICE's 0.1 %, so the result is the solution to many digits.
+ */
+function newton(
+  cp: Compiled,
+  st: NewtonState,
+  fixedV: Float64Array,
+  gshuntS: number,
+  maxIterations: number,
+  first: boolean,
+  ws: DcWorkspace,
+): NewtonRun {
+  const n = cp.n;
+  const { x, jv } = st;
+  const G = ws.buffer("G", n * n);
+  const rhs = ws.buffer("rhs", n);
+  const scale = ws.buffer("scale", n);
+  const b = ws.buffer("b", n);
+  const lu = ws.ints("lu", scratchLength(n));
+  const sp = new Stamper(G, rhs, scale, n, fixedV);
+  const volt = (r: NodeRef): number => (r >= 0 ? (x[r] as number) : (fixedV[-r - 1] as number));
+  let stepSmall = false;
+  let useStored = first;
+  const nJ = cp.junctions.length;
+  for (let it = 1; it <= maxIterations; it++) {
+    G.fill(0);
+    rhs.fill(0);
+    scale.fill(0);
+    let limited = false;
+    for (let i = 0; i < n; i++) G[i * n + i] = gshuntS;
+    for (const c of cp.conductances) {
+      sp.conductance(c.a, c.b, c.g);
+      const iA = Math.abs(c.g * (volt(c.a) - volt(c.b)));
+      if (c.a >= 0) scale[c.a] = (scale[c.a] as number) + iA;
+      if (c.b >= 0) scale[c.b] = (scale[c.b] as number) + iA;
+    }
+    for (let j = 0; j < nJ; j++) {
+      const d = cp.junctions[j] as Junction;
+      let v = useStored ? (jv[j] as number) : volt(d.a) - volt(d.k);
+      if (!useStored) {
+        const l = limitJunction(v, jv[j] as number, d.nVtV, d.vcritV);
+        if (l !== v) limited = true;
+        v = l;
+      }
+      jv[j] = v;
+      const iA = diodeCurrent(v, d.isA, d.nVtV, d.gminS);
+      const gS = diodeConductance(v, d.isA, d.nVtV, d.gminS);
+      sp.conductance(d.a, d.k, gS);
+      // Companion source: the part of the current the conductance does not carry.
+      const ieq = iA - gS * v;
+      sp.inject(d.a, ieq, iA);
+      sp.inject(d.k, -ieq, iA);
+    }
+    for (let q = 0; q < cp.transistors.length; q++) {
+      const t = cp.transistors[q] as Transistor;
+      const slot = nJ + 2 * q;
+      let vbe = useStored ? (jv[slot] as number) : volt(t.b) - volt(t.e);
+      let vbc = useStored ? (jv[slot + 1] as number) : volt(t.b) - volt(t.c);
+      if (!useStored) {
+        const lbe = limitJunction(vbe, jv[slot] as number, cp.vtV, t.vcritV);
+        const lbc = limitJunction(vbc, jv[slot + 1] as number, cp.vtV, t.vcritV);
+        if (lbe !== vbe || lbc !== vbc) limited = true;
+        vbe = lbe;
+        vbc = lbc;
+      }
+      jv[slot] = vbe;
+      jv[slot + 1] = vbc;
+      const p = npnTransport(vbe, vbc, t.params, cp.vtV, cp.gminS);
+      // Ic and Ib enter c and b; Ie = -(Ic + Ib) leaves e.
+      sp.terminal(t.c, t, p.icA, p.dIcVbe, p.dIcVbc, vbe, vbc);
+      sp.terminal(t.b, t, p.ibA, p.dIbVbe, p.dIbVbc, vbe, vbc);
+      sp.terminal(t.e, t, -(p.icA + p.ibA), -(p.dIcVbe + p.dIbVbe), -(p.dIcVbc + p.dIbVbc), vbe, vbc);
+    }
+    if (!useStored && !limited && stepSmall && kclHolds(G, rhs, x, scale, n)) return { converged: true, iterations: it };
+    useStored = false;
+    b.set(rhs);
+    if (!solveInPlace(G, b, n, lu)) return { converged: false, iterations: it };
+    stepSmall = true;
+    for (let i = 0; i < n; i++) {
+      const xi = x[i] as number;
+      const bi = b[i] as number;
+      if (Math.abs(bi - xi) > 1e-9 * Math.max(Math.abs(bi), Math.abs(xi)) + 1e-9) stepSmall = false;
+      x[i] = bi;
+    }
+  }
+  return { converged: false, iterations: maxIterations };
+}
+
+/** Kirchhoff's current law at x: (G x - rhs) is the sum of currents leaving each node. */
+function kclHolds(G: Float64Array, rhs: Float64Array, x: Float64Array, scale: Float64Array, n: number): boolean {
+  for (let i = 0; i < n; i++) {
+    let r = -(rhs[i] as number);
+    const row = i * n;
+    for (let j = 0; j < n; j++) {
+      const g = G[row + j] as number;
+      if (g !== 0) r += g * (x[j] as number);
+    }
+    if (!(Math.abs(r) <= 1e-15 + 1e-10 * (scale[i] as number))) return false;
+  }
+  return true;
+}
+
+// ------------------------------------------------------------ the solve
+
+/**
+ * Scratch arrays a caller may share between solves (say, every state of one
+ * matrix) so that the large nodal matrix is allocated once, not per solve.
+ * Holds no results; solves with and without one give the same numbers.
+ */
+export class DcWorkspace {
+  readonly #buffers = new Map<string, Float64Array>();
+  readonly #ints = new Map<string, Int32Array>();
+
+  /** A scratch array of `length` integers, like `buffer`. */
+  ints(name: string, length: number): Int32Array {
+    const have = this.#ints.get(name);
+    if (have && have.length >= length) return have.subarray(0, length);
+    const fresh = new Int32Array(length);
+    this.#ints.set(name, fresh);
+    return fresh;
+  }
+
+  /** A scratch array of `length` doubles; its contents are whatever the last user left. */
+  buffer(name: string, length: number): Float64Array {
+    const have = this.#buffers.get(name);
+    if (have && have.length >= length) return have.subarray(0, length);
+    const fresh = new Float64Array(length);
+    this.#buffers.set(name, fresh);
+    return fresh;
+  }
+}
+
+/**
+ * Solves one circuit's DC operating point.
+ *
+ * Starts from the circuit's own guess (`guess`, node voltages), else from
+ * SPICE's junction initialisation (every junction at vcrit, base-collector
+ * at 0). Falls back to gmin stepping, then source stepping.
+ *
+ * @example
+ * const op = solveDc(buildCircuit(spec, matrix, project.electrical, 0));
+ * if (op.ok) op.value.voltages["o1a"]; // ~1.96 V for a lit segment
+ */
+export function solveDc(
+  circuit: Circuit,
+  guess?: Readonly<Record<string, number>>,
+  settings: DcSettings = DEFAULT_DC_SETTINGS,
+  workspace: DcWorkspace = new DcWorkspace(),
+): Result<OperatingPoint, DcFailure> {
+  const cp = compile(circuit, settings.gminS);
+  const jCount = cp.junctions.length + 2 * cp.transistors.length;
+  const fresh = (): NewtonState => {
+    const x = new Float64Array(cp.n);
+    const jv = new Float64Array(jCount);
+    if (guess) {
+      cp.unknownNames.forEach((nd, i) => (x[i] = guess[nd] ?? 0));
+      const volt = (r: NodeRef): number => (r >= 0 ? (x[r] as number) : (cp.fixedVolts[-r - 1] as number));
+      cp.junctions.forEach((d, j) => (jv[j] = volt(d.a) - volt(d.k)));
+      cp.transistors.forEach((t, q) => {
+        jv[cp.junctions.length + 2 * q] = volt(t.b) - volt(t.e);
+        jv[cp.junctions.length + 2 * q + 1] = volt(t.b) - volt(t.c);
+      });
+    } else {
+      cp.junctions.forEach((d, j) => (jv[j] = d.vcritV));
+      cp.transistors.forEach((t, q) => (jv[cp.junctions.length + 2 * q] = t.vcritV));
+    }
+    return { x, jv };
+  };
+  let total = 0;
+
+  const tries = new Set(settings.methods);
+  let st = fresh();
+  let run: NewtonRun;
+
+  // 1. Plain Newton.
+  if (tries.has("newton")) {
+    run = newton(cp, st, cp.fixedVolts, 0, settings.maxIterations, true, workspace);
+    total += run.iterations;
+    if (run.converged) return ok(result(circuit, cp, st, "newton", total));
+  }
+
+  // 2. gmin stepping: 1e10 x GMIN from every node to ground, a decade at a time.
+  if (tries.has("gmin-stepping")) {
+    st = fresh();
+    let good = true;
+    for (let g = 1e10 * settings.gminS, first = true; good; g /= 10, first = false) {
+      const gs = g < settings.gminS * 0.5 ? 0 : g;
+      run = newton(cp, st, cp.fixedVolts, gs, settings.maxIterations, first, workspace);
+      total += run.iterations;
+      good = run.converged;
+      if (gs === 0) break;
+    }
+    if (good) return ok(result(circuit, cp, st, "gmin-stepping", total));
+  }
+
+  // 3. Source stepping: every source ramped from 0 to full strength.
+  if (!tries.has("source-stepping")) return fail(noConvergence(circuit, total));
+  st = { x: new Float64Array(cp.n), jv: new Float64Array(jCount) };
+  let lambda = 0;
+  let step = 0.1;
+  const scaled = new Float64Array(cp.fixedVolts.length);
+  while (lambda < 1) {
+    const next = Math.min(1, lambda + step);
+    for (let k = 0; k < scaled.length; k++) scaled[k] = (cp.fixedVolts[k] as number) * next;
+    const saved: NewtonState = { x: st.x.slice(), jv: st.jv.slice() };
+    run = newton(cp, st, scaled, 0, settings.maxIterations, false, workspace);
+    total += run.iterations;
+    if (run.converged) {
+      lambda = next;
+      step = Math.min(0.25, step * 1.5);
+    } else {
+      st = saved;
+      step /= 4;
+      if (step < 1e-6) break;
+    }
+  }
+  if (lambda >= 1) return ok(result(circuit, cp, st, "source-stepping", total));
+  return fail(noConvergence(circuit, total));
+}
+
+function noConvergence(circuit: Circuit, iterations: number): DcFailure {
+  return {
+    state: circuit.state,
+    message:
+      `the DC solver did not converge for state ${circuit.state} (Newton, gmin stepping and source stepping all failed ` +
+      `after ${iterations} iterations); check the electrical values for extremes`,
+  };
+}
+
+function result(circuit: Circuit, cp: Compiled, st: NewtonState, method: DcMethod, iterations: number): OperatingPoint {
+  const voltages: Record<string, number> = {};
+  cp.fixedNames.forEach((nd, k) => (voltages[nd] = cp.fixedVolts[k] as number));
+  cp.unknownNames.forEach((nd, i) => (voltages[nd] = st.x[i] as number));
+  const volt = (r: NodeRef): number => (r >= 0 ? (st.x[r] as number) : (cp.fixedVolts[-r - 1] as number));
+  const currents: Record<string, number> = {};
+  const substrate = new Map<string, number>();
+  for (const c of cp.conductances) {
+    if (c.name.endsWith("#sub")) substrate.set(c.name.slice(0, -4), c.g * (volt(c.a) - volt(c.b)));
+    else if (c.name !== "") currents[c.name] = c.g * (volt(c.a) - volt(c.b));
+  }
+  for (const d of cp.junctions) currents[d.name] = diodeJunction(volt(d.a) - volt(d.k), d.isA, d.nVtV, d.gminS).currentA;
+  const transistors: Record<string, TransistorCurrents> = {};
+  for (const t of cp.transistors) {
+    const vbe = volt(t.b) - volt(t.e);
+    const vbc = volt(t.b) - volt(t.c);
+    const p = npnTransport(vbe, vbc, t.params, cp.vtV, cp.gminS);
+    transistors[t.name] = { icA: p.icA, ibA: p.ibA, ieA: p.icA + p.ibA, substrateA: substrate.get(t.name) ?? 0 };
+  }
+  // A source delivers what its node's other elements draw (KCL at that node).
+  const drawn = sourceDraws(circuit, currents, transistors);
+  for (const el of circuit.elements) if (el.kind === "vsource") currents[el.name] = drawn.get(el.node) ?? 0;
+  return { state: circuit.state, method, iterations, voltages, currents, transistors };
+}
+
+/** Current the elements draw out of every node, amperes (used at source nodes). */
+function sourceDraws(
+  circuit: Circuit,
+  currents: Readonly<Record<string, number>>,
+  transistors: Readonly<Record<string, TransistorCurrents>>,
+): Map<string, number> {
+  const out = new Map<string, number>();
+  const add = (node: string, i: number): void => void out.set(node, (out.get(node) ?? 0) + i);
+  for (const el of circuit.elements) {
+    switch (el.kind) {
+      case "resistor": {
+        const i = currents[el.name] as number;
+        add(el.a, i);
+        add(el.b, -i);
+        break;
+      }
+      case "diode":
+      case "string": {
+        const i = currents[el.name] as number;
+        add(el.anode, i);
+        add(el.cathode, -i);
+        break;
+      }
+      case "npn": {
+        const t = transistors[el.name] as TransistorCurrents;
+        add(el.collector, t.icA + t.substrateA);
+        add(el.base, t.ibA);
+        add(el.emitter, -t.ieA);
+        break;
+      }
+      case "vsource":
+        break;
+    }
+  }
+  return out;
+}

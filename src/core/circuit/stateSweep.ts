@@ -1,0 +1,62 @@
+/**
+ * Solves the circuit of every counter state of a matrix: the unit of work
+ * the budget, the trim and the tolerance corners repeat.
+ */
+import { buildCircuit, type Circuit } from "./circuit.ts";
+import { DcWorkspace, DEFAULT_DC_SETTINGS, solveDc, type OperatingPoint } from "./dcSolver.ts";
+import type { DecodeSpec } from "../spec/decodeSpec.ts";
+import type { DiodeMatrix } from "../matrix/matrix.ts";
+import type { ElectricalModel } from "../project/project.ts";
+import { fail, ok, type Result } from "../result/result.ts";
+
+/** One state's circuit and its operating point. */
+export interface StateSolution {
+  readonly circuit: Circuit;
+  readonly op: OperatingPoint;
+}
+
+/** The budget could not be worked out: a state's circuit did not converge. */
+export interface BudgetFailure {
+  readonly kind: "no-convergence";
+  /** The state whose circuit failed, e.g. `S7`. */
+  readonly state: string;
+  /** Which solve: `nominal`, `lowest supply`, `trim`, `low corner`, `high corner`. */
+  readonly during: string;
+  readonly message: string;
+}
+
+/**
+ * Solves every state in order.
+ *
+ * @param during names the solve in a failure message
+ * @param trim optional emitter resistor values, ohms, keyed by output
+ */
+export function solveAllStates(
+  spec: DecodeSpec,
+  matrix: DiodeMatrix,
+  model: ElectricalModel,
+  during: string,
+  trim?: ReadonlyMap<string, number>,
+): Result<readonly StateSolution[], BudgetFailure> {
+  const out: StateSolution[] = [];
+  const workspace = new DcWorkspace();
+  for (let k = 0; k < matrix.states.length; k++) {
+    const circuit = buildCircuit(spec, matrix, model, k, trim);
+    const op = solveDc(circuit, circuit.guess, DEFAULT_DC_SETTINGS, workspace);
+    if (!op.ok) return fail({ kind: "no-convergence", state: op.error.state, during, message: `${during}: ${op.error.message}` });
+    out.push({ circuit, op: op.value });
+  }
+  return ok(out);
+}
+
+/** String current of each driven output in one solved state, amperes. */
+export function stringCurrents(s: StateSolution): Map<string, number> {
+  return new Map(s.circuit.drivers.map((d) => [d.output, s.op.currents[d.display] as number]));
+}
+
+/** Whether output `o` is lit in state k (tied-on outputs always are). */
+export function isLit(spec: DecodeSpec, k: number, o: string): boolean {
+  const j = spec.outputs.indexOf(o);
+  if (j < 0) return spec.tiedOn.includes(o);
+  return spec.lit[k]?.[j] === true;
+}

@@ -1,0 +1,124 @@
+/**
+ * The diode matrix: counter lines, bus nodes and output lines joined by
+ * diodes. `from` is the driving end of a diode (the anode, for source drive).
+ */
+import type { DecodeSpec } from "../spec/decodeSpec.ts";
+import type { DepthPolicy } from "../project/project.ts";
+
+export const MATRIX_SCHEMA = "diodeloom/matrix@1";
+
+export interface Diode {
+  /** Reference designator, `D1`.. in assembly order. */
+  readonly ref: string;
+  /** Driving end (anode for source drive): a state, bus or output line. */
+  readonly from: string;
+  /** Driven end (cathode for source drive): a bus or output line. */
+  readonly to: string;
+}
+
+export type SynthesisMethod = "direct" | "heuristic" | "exact";
+
+export interface DiodeMatrix {
+  readonly schema: typeof MATRIX_SCHEMA;
+  readonly states: readonly string[];
+  readonly outputs: readonly string[];
+  readonly buses: readonly string[];
+  readonly diodes: readonly Diode[];
+  readonly tiedOn: readonly string[];
+  readonly count: number;
+  /** Proven lower bound on the diode count, or null when none was proven. */
+  readonly lowerBound: number | null;
+  /** True when `count` is proven minimal under the limit and policy. */
+  readonly optimal: boolean;
+  /** Longest path in this matrix, in diodes. */
+  readonly maxDepth: number;
+  /** The depth limit it was built under. */
+  readonly depthLimit: number;
+  readonly depth: DepthPolicy;
+  readonly method: SynthesisMethod;
+}
+
+/** A matrix that `verifyMatrix` has proven correct against its spec. */
+export type VerifiedMatrix = DiodeMatrix & { readonly verified: true };
+
+export interface Edge {
+  readonly from: string;
+  readonly to: string;
+}
+
+export interface MatrixMeta {
+  readonly lowerBound: number | null;
+  readonly optimal: boolean;
+  readonly depthLimit: number;
+  readonly depth: DepthPolicy;
+  readonly method: SynthesisMethod;
+}
+
+/** Bus node name (1-based). */
+export function busName(i: number): string {
+  return `B${i}`;
+}
+
+/**
+ * Builds a matrix from bare edges: renumbers the buses that are used in order
+ * of first use, orders the diodes for assembly (counter lines first, in state
+ * order, then buses, then output links) and gives them references D1...
+ */
+export function buildMatrix(spec: DecodeSpec, edges: readonly Edge[], meta: MatrixMeta): DiodeMatrix {
+  const stateIdx = new Map(spec.states.map((s, i) => [s, i]));
+  const outIdx = new Map(spec.outputs.map((o, i) => [o, i]));
+  const busOrder = new Map<string, number>();
+  const sortedByState = [...edges].sort((a, b) => (stateIdx.get(a.from) ?? 1e9) - (stateIdx.get(b.from) ?? 1e9));
+  for (const e of sortedByState) {
+    for (const n of [e.from, e.to]) {
+      if (!stateIdx.has(n) && !outIdx.has(n) && !busOrder.has(n)) busOrder.set(n, busOrder.size);
+    }
+  }
+  const rename = new Map<string, string>();
+  for (const [old, i] of busOrder) rename.set(old, busName(i + 1));
+  const nameOf = (n: string): string => rename.get(n) ?? n;
+
+  const rank = (n: string): number => {
+    const s = stateIdx.get(n);
+    if (s !== undefined) return s;
+    const b = busOrder.get(n);
+    if (b !== undefined) return 1e6 + b;
+    return 2e6 + (outIdx.get(n) ?? 0);
+  };
+  const ordered = [...edges].sort((a, b) => rank(a.from) - rank(b.from) || rank(a.to) - rank(b.to));
+  const diodes = ordered.map((e, i) => ({ ref: `D${i + 1}`, from: nameOf(e.from), to: nameOf(e.to) }));
+  return {
+    schema: MATRIX_SCHEMA,
+    states: spec.states,
+    outputs: spec.outputs,
+    buses: [...busOrder.keys()].map(nameOf),
+    diodes,
+    tiedOn: spec.tiedOn,
+    count: diodes.length,
+    lowerBound: meta.lowerBound,
+    optimal: meta.optimal,
+    maxDepth: longestPath(diodes, new Set(spec.states)),
+    depthLimit: meta.depthLimit,
+    depth: meta.depth,
+    method: meta.method,
+  };
+}
+
+/** Longest path, in diodes, from any counter line; assumes an acyclic graph. */
+function longestPath(diodes: readonly Edge[], states: ReadonlySet<string>): number {
+  const out = new Map<string, string[]>();
+  for (const d of diodes) out.set(d.from, [...(out.get(d.from) ?? []), d.to]);
+  const memo = new Map<string, number>();
+  const depthFrom = (n: string, guard: number): number => {
+    const m = memo.get(n);
+    if (m !== undefined) return m;
+    if (guard > diodes.length) return 0;
+    let best = 0;
+    for (const t of out.get(n) ?? []) best = Math.max(best, 1 + depthFrom(t, guard + 1));
+    memo.set(n, best);
+    return best;
+  };
+  let best = 0;
+  for (const s of states) best = Math.max(best, depthFrom(s, 0));
+  return best;
+}

@@ -1,0 +1,127 @@
+/**
+ * The independent verifier: proves a matrix against its decode spec.
+ *
+ * It trusts nothing the synthesizer says. With one counter line high and the
+ * rest low, current flows only anode to cathode, so the lines a state lights
+ * are exactly those reachable from it along diodes. The verifier walks that
+ * graph from every state and checks: exactly the intended outputs are
+ * reached, the graph has no cycle, no path is longer than the depth limit,
+ * and the depth policy holds.
+ */
+import type { DecodeSpec } from "../spec/decodeSpec.ts";
+import type { DiodeMatrix, VerifiedMatrix } from "./matrix.ts";
+import type { DepthPolicy } from "../project/project.ts";
+import { fail, ok, type Result } from "../result/result.ts";
+
+export interface VerifyLimits {
+  readonly maxDepth: number;
+  readonly depth: DepthPolicy;
+}
+
+/**
+ * Verifies a matrix. On failure the error lists every violation found (up
+ * to 50), each a sentence naming the states, lines or diodes involved.
+ */
+export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLimits): Result<VerifiedMatrix, string[]> {
+  const errors: string[] = [];
+  const states = new Set(spec.states);
+  const outputs = new Set(spec.outputs);
+  const buses = new Set(m.buses);
+  const say = (msg: string): void => {
+    if (errors.length < 50) errors.push(msg);
+  };
+
+  if (m.states.join() !== spec.states.join()) say("the matrix's state lines differ from the spec's");
+  if (m.outputs.join() !== spec.outputs.join()) say("the matrix's output lines differ from the spec's");
+  if ([...m.tiedOn].sort().join() !== [...spec.tiedOn].sort().join()) say("the tied-on outputs differ from the spec's");
+  for (const b of m.buses) if (states.has(b) || outputs.has(b)) say(`bus ${b} reuses the name of a line`);
+  if (m.count !== m.diodes.length) say(`count ${m.count} differs from the ${m.diodes.length} diodes listed`);
+
+  const out = new Map<string, string[]>();
+  const indeg = new Map<string, number>();
+  const seen = new Set<string>();
+  const refs = new Set<string>();
+  for (const d of m.diodes) {
+    if (refs.has(d.ref)) say(`reference ${d.ref} is used twice`);
+    refs.add(d.ref);
+    const known = (n: string): boolean => states.has(n) || outputs.has(n) || buses.has(n);
+    if (!known(d.from)) say(`${d.ref} starts at unknown line ${d.from}`);
+    if (!known(d.to)) say(`${d.ref} ends at unknown line ${d.to}`);
+    if (states.has(d.to)) say(`${d.ref} drives counter line ${d.to}`);
+    if (d.from === d.to) say(`${d.ref} joins ${d.from} to itself`);
+    const key = `${d.from}>${d.to}`;
+    if (seen.has(key)) say(`${d.ref} duplicates another diode from ${d.from} to ${d.to}`);
+    seen.add(key);
+    out.set(d.from, [...(out.get(d.from) ?? []), d.to]);
+    indeg.set(d.to, (indeg.get(d.to) ?? 0) + 1);
+  }
+  for (const b of m.buses) {
+    if (!indeg.get(b)) say(`bus ${b} is driven by no diode`);
+    if (!out.get(b)?.length) say(`bus ${b} drives nothing`);
+  }
+  for (const t of spec.tiedOn) if (indeg.get(t) || out.get(t)?.length) say(`tied-on output ${t} has diodes`);
+  if (errors.length > 0) return fail(errors);
+
+  // Topological order (Kahn); a leftover node means a cycle.
+  const nodes = [...spec.states, ...m.buses, ...spec.outputs];
+  const remaining = new Map(nodes.map((n) => [n, indeg.get(n) ?? 0]));
+  const order: string[] = [];
+  const queue = nodes.filter((n) => remaining.get(n) === 0);
+  while (queue.length > 0) {
+    const n = queue.shift() as string;
+    order.push(n);
+    for (const t of out.get(n) ?? []) {
+      const r = (remaining.get(t) ?? 0) - 1;
+      remaining.set(t, r);
+      if (r === 0) queue.push(t);
+    }
+  }
+  if (order.length !== nodes.length) {
+    return fail([`the diodes form a loop through ${nodes.filter((n) => (remaining.get(n) ?? 0) > 0).join(", ")}`]);
+  }
+
+  // Every path length into every node, as a bit set (bit L = a path of L diodes).
+  const lengths = new Map<string, number>();
+  for (const s of spec.states) lengths.set(s, 1);
+  for (const n of order) {
+    const here = lengths.get(n) ?? 0;
+    for (const t of out.get(n) ?? []) lengths.set(t, (lengths.get(t) ?? 0) | ((here << 1) & 0x7fffffff));
+  }
+  const all = new Set<number>();
+  for (const o of spec.outputs) {
+    const bits = lengths.get(o) ?? 0;
+    const ls = [...Array(31).keys()].filter((l) => bits & (1 << l));
+    ls.forEach((l) => all.add(l));
+    const longest = Math.max(0, ...ls);
+    if (longest > limits.maxDepth) say(`output ${o} is reached through ${longest} diodes, over the limit of ${limits.maxDepth}`);
+    if (limits.depth === "per-segment" && ls.length > 1)
+      say(`output ${o} is reached through paths of ${ls.join(" and ")} diodes; the per-segment policy wants one length`);
+  }
+  if (limits.depth === "uniform" && all.size > 1)
+    say(`paths have ${[...all].sort().join(", ")} diodes; the uniform policy wants one length`);
+
+  // Exactness: per state, the reachable outputs equal the lit ones.
+  spec.states.forEach((s, k) => {
+    const reached = new Set<string>();
+    const stack = [s];
+    while (stack.length > 0) {
+      const n = stack.pop() as string;
+      for (const t of out.get(n) ?? []) {
+        if (!reached.has(t)) {
+          reached.add(t);
+          stack.push(t);
+        }
+      }
+    }
+    const row = spec.lit[k] ?? [];
+    const missing = spec.outputs.filter((o, j) => row[j] && !reached.has(o));
+    const extra = spec.outputs.filter((o, j) => !row[j] && reached.has(o));
+    if (missing.length > 0) say(`state ${s} ("${spec.texts[k]}") does not light ${missing.join(", ")}`);
+    if (extra.length > 0) say(`state ${s} ("${spec.texts[k]}") also lights ${extra.join(", ")} through a sneak path`);
+  });
+
+  if (m.maxDepth !== Math.max(0, ...[...all])) say(`maxDepth ${m.maxDepth} differs from the longest path ${Math.max(0, ...all)}`);
+  if (m.lowerBound !== null && m.lowerBound > m.count) say(`lower bound ${m.lowerBound} exceeds the count ${m.count}`);
+  if (m.optimal && m.lowerBound !== m.count) say("marked optimal but the lower bound does not equal the count");
+  return errors.length > 0 ? fail(errors) : ok({ ...m, verified: true as const });
+}

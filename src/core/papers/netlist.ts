@@ -1,0 +1,98 @@
+/**
+ * The SPICE netlist of one state's circuit: a standard deck (title line,
+ * `.model` cards, elements, `.op`, `.end`) that any SPICE simulator runs
+ * unchanged. Each display string is written out die by die.
+ */
+import { buildCircuit, type Circuit } from "../circuit/circuit.ts";
+import type { DecodeSpec } from "../spec/decodeSpec.ts";
+import type { VerifiedMatrix } from "../matrix/matrix.ts";
+import type { Project } from "../project/project.ts";
+
+/** Formats a number the way every SPICE reads it (no unit suffixes). */
+function num(x: number): string {
+  if (!Number.isFinite(x)) throw new RangeError(`cannot write ${x} into a netlist`);
+  return String(Number(x.toPrecision(12)));
+}
+
+/** Node name of die `i` (1-based) inside a string, counted from the supply. */
+export function stringDieNode(cathode: string, i: number): string {
+  return `${cathode}_${i}`;
+}
+
+/**
+ * Writes a circuit as a SPICE deck.
+ *
+ * @param title the deck's title line (SPICE ignores the first line)
+ */
+export function circuitNetlist(circuit: Circuit, title: string, notes: readonly string[] = []): string {
+  const lines: string[] = [`* ${title.replace(/[\r\n]+/g, " ")}: state ${circuit.state} active`];
+  lines.push("* Written by diodeloom; DC operating point of one counter state. Units: V, A, ohm.");
+  for (const note of notes) lines.push(`* ${note.replace(/[\r\n]+/g, " ")}`);
+  lines.push(`.options TNOM=${num(circuit.temperatureC)}`);
+  lines.push(`.temp ${num(circuit.temperatureC)}`);
+  // One .model card per distinct parameter set: DMTX, DMTX2, ... (a corner may differ per part).
+  const models = new Map<string, string>();
+  const perPrefix = new Map<string, number>();
+  const modelOf = (prefix: string, card: string): string => {
+    const known = models.get(card);
+    if (known) return known;
+    const count = (perPrefix.get(prefix) ?? 0) + 1;
+    perPrefix.set(prefix, count);
+    const name = count === 1 ? prefix : `${prefix}${count}`;
+    models.set(card, name);
+    return name;
+  };
+  const body: string[] = [];
+  for (const el of circuit.elements) {
+    switch (el.kind) {
+      case "vsource":
+        body.push(`${el.name} ${el.node} 0 DC ${num(el.volts)}`);
+        break;
+      case "resistor":
+        body.push(`${el.name} ${el.a} ${el.b} ${num(el.ohms)}`);
+        break;
+      case "diode": {
+        const m = modelOf("DMTX", `D (IS=${num(el.isA)} N=${num(el.n)} RS=${num(el.rsOhms)})`);
+        body.push(`${el.name} ${el.anode} ${el.cathode} ${m}`);
+        break;
+      }
+      case "string": {
+        const m = modelOf("DLED", `D (IS=${num(el.isA)} N=${num(el.n)})`);
+        for (let i = 1; i <= el.dies; i++) {
+          const a = i === 1 ? el.anode : stringDieNode(el.cathode, i - 1);
+          const k = i === el.dies ? el.cathode : stringDieNode(el.cathode, i);
+          body.push(`D${el.name}_${i} ${a} ${k} ${m}`);
+        }
+        break;
+      }
+      case "npn": {
+        const m = modelOf("QDRV", `NPN (IS=${num(el.isA)} BF=${num(el.betaF)} BR=${num(el.betaR)})`);
+        body.push(`${el.name} ${el.collector} ${el.base} ${el.emitter} ${m}`);
+        break;
+      }
+    }
+  }
+  for (const [card, name] of models) lines.push(`.model ${name} ${card}`);
+  lines.push(...body, ".op", ".end");
+  return lines.join("\n") + "\n";
+}
+
+/**
+ * The SPICE netlist of a project's circuit with state `stateIndex` (0-based)
+ * active, using the project's own electrical values, or, when `trimOhms` is
+ * given, the budget's trimmed emitter resistors (the values the BOM lists).
+ *
+ * @param trimOhms emitter resistor per output name, ohms
+ * @example
+ * spiceNetlist(project, spec, matrix, 0).split("\n")[0]; // "* <title>: state S0 active"
+ */
+export function spiceNetlist(
+  project: Project,
+  spec: DecodeSpec,
+  matrix: VerifiedMatrix,
+  stateIndex: number,
+  trimOhms?: ReadonlyMap<string, number>,
+): string {
+  const note = trimOhms ? "Emitter resistors as trimmed by the budget (the values in the BOM)." : "Emitter resistors as in the project.";
+  return circuitNetlist(buildCircuit(spec, matrix, project.electrical, stateIndex, trimOhms), project.title, [note]);
+}

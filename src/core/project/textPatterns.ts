@@ -1,0 +1,71 @@
+/**
+ * Per-state texts from a short counting pattern, such as `0-9`, `0-F`,
+ * `1-12 with leading blank` or `00-59`.
+ *
+ * A pattern is one or more ranges separated by commas. A range counts in
+ * decimal, or in hexadecimal when either end holds a letter A-F; hex digits
+ * above 9 use the forms a seven-segment cell can show (A b C d E F). Each
+ * number is right-aligned in the display's positions: a start written with a
+ * leading zero (`00-59`), or the words `with leading zero(s)`, pad with
+ * zeros; otherwise, or with `with leading blank(s)`, the unused positions on
+ * the left stay blank.
+ */
+import { fail, ok, type Result } from "../result/result.ts";
+
+/** Most texts one pattern may produce (the schema's state limit). */
+const MAX_TEXTS = 256;
+const HEX_FORMS = "0123456789AbCdEF";
+const RANGE = /^([0-9a-f]+)\s*(?:-|\.\.|to)\s*([0-9a-f]+)$/i;
+
+type Padding = "blank" | "zero" | "auto";
+
+/**
+ * Expands a pattern into one text per state, each `positions` characters.
+ *
+ * @example
+ * fillPattern("1-12 with leading blank", 2); // ok([" 1", " 2", ..., "12"])
+ * fillPattern("00-59", 2);                   // ok(["00", "01", ..., "59"])
+ */
+export function fillPattern(pattern: string, positions: number): Result<string[]> {
+  const path = "pattern";
+  let body = pattern.trim();
+  let padding: Padding = "auto";
+  const suffix = /\s+with\s+leading\s+(blanks?|spaces?|zeros?|zeroes)$/i.exec(body);
+  if (suffix) {
+    padding = /^(blank|space)/i.test(suffix[1] ?? "") ? "blank" : "zero";
+    body = body.slice(0, suffix.index).trim();
+  }
+  if (body === "") return fail([{ path, message: 'write a range such as "0-9", "1-12 with leading blank" or "00-59"' }]);
+
+  const texts: string[] = [];
+  for (const part of body.split(",")) {
+    const range = RANGE.exec(part.trim());
+    if (!range) {
+      return fail([{ path, message: `"${part.trim()}" is not a range; write it like "0-9", "0-F" or "00-59"` }]);
+    }
+    const [, startText = "", endText = ""] = range;
+    const hex = /[a-f]/i.test(startText + endText);
+    const base = hex ? 16 : 10;
+    const start = parseInt(startText, base);
+    const end = parseInt(endText, base);
+    const zeros = padding === "zero" || (padding === "auto" && startText.length > 1 && startText.startsWith("0"));
+    const step = end >= start ? 1 : -1;
+    for (let k = start; ; k += step) {
+      const digits = [...k.toString(base)].map((d) => HEX_FORMS[parseInt(d, base)] ?? d).join("");
+      if (digits.length > positions) {
+        return fail([
+          {
+            path,
+            message: `${digits} needs ${digits.length} positions but the display has ${positions}; add positions or shorten the range`,
+          },
+        ]);
+      }
+      texts.push(digits.padStart(positions, zeros ? "0" : " "));
+      if (texts.length > MAX_TEXTS)
+        return fail([{ path, message: `gives more than ${MAX_TEXTS} texts; a counter has at most ${MAX_TEXTS} states` }]);
+      if (k === end) break;
+    }
+  }
+  if (texts.length < 2) return fail([{ path, message: "gives fewer than 2 texts; a counter needs at least 2 states" }]);
+  return ok(texts);
+}

@@ -1,0 +1,144 @@
+/**
+ * The sharing problem and its plans, in index form, shared by the heuristic
+ * and the exact optimizer.
+ *
+ * A plan is the matrix before naming: direct diodes (state -> output), bus
+ * nodes (a state set in, an output set out) and segment links (output ->
+ * output). `planEdges` turns it into the bare edges `buildMatrix` takes.
+ *
+ * Which structure may feed an output depends on the output's level, the
+ * longest path allowed into it (see `levelRules`): level 1 takes only direct
+ * diodes, level 2 adds buses and links from level-1 outputs, level 3 links
+ * from level-2 outputs. Buses are always fed by counter lines, so a bus path
+ * has two diodes.
+ */
+import type { DecodeSpec } from "../spec/decodeSpec.ts";
+import type { Edge } from "../matrix/matrix.ts";
+import type { DepthPolicy } from "../project/project.ts";
+
+/** The lit matrix in index form. */
+export interface SharingProblem {
+  /** Number of states (rows). */
+  readonly n: number;
+  /** Number of driven outputs (columns). */
+  readonly m: number;
+  /** `lit[k][o]`. */
+  readonly lit: readonly (readonly boolean[])[];
+  /** Per output, the states that light it, ascending. */
+  readonly col: readonly (readonly number[])[];
+  /** Per state, the outputs it lights, ascending. */
+  readonly row: readonly (readonly number[])[];
+  /** `within[a][b]`: every state lighting output a lights output b (a != b). */
+  readonly within: readonly (readonly boolean[])[];
+}
+
+export interface PlanBus {
+  /** States feeding the bus, ascending. */
+  readonly states: readonly number[];
+  /** Outputs the bus drives, ascending. */
+  readonly outputs: readonly number[];
+}
+
+export interface PlanLink {
+  readonly from: number;
+  readonly to: number;
+}
+
+export interface SharingPlan {
+  /** Direct diodes as `[state, output]`. */
+  readonly direct: readonly (readonly [number, number])[];
+  readonly buses: readonly PlanBus[];
+  readonly links: readonly PlanLink[];
+}
+
+/** What the limits allow, filled out once. */
+export interface SharingRules {
+  readonly maxDepth: number;
+  readonly depth: DepthPolicy;
+  readonly buses: boolean;
+  readonly links: boolean;
+}
+
+/** Builds the index form of a decode spec. */
+export function sharingProblem(spec: DecodeSpec): SharingProblem {
+  return problemFromLit(spec.lit);
+}
+
+/** Builds the index form of a bare lit matrix (rows = states). */
+export function problemFromLit(lit: readonly (readonly boolean[])[]): SharingProblem {
+  const n = lit.length;
+  const m = lit[0]?.length ?? 0;
+  const col: number[][] = Array.from({ length: m }, () => []);
+  const row: number[][] = [];
+  for (let k = 0; k < n; k++) {
+    const r: number[] = [];
+    for (let o = 0; o < m; o++) {
+      if (lit[k]?.[o]) {
+        r.push(o);
+        col[o]?.push(k);
+      }
+    }
+    row.push(r);
+  }
+  const within = col.map((ca, a) => col.map((_, b) => a !== b && ca.length > 0 && ca.every((k) => lit[k]?.[b] === true)));
+  return { n, m, lit, col, row, within };
+}
+
+/** Number of diodes a plan places. */
+export function planCount(plan: SharingPlan): number {
+  let c = plan.direct.length + plan.links.length;
+  for (const b of plan.buses) c += b.states.length + b.outputs.length;
+  return c;
+}
+
+/** Number of lit cells: the direct count. */
+export function litCount(p: SharingProblem): number {
+  return p.row.reduce((a, r) => a + r.length, 0);
+}
+
+/** The direct plan: one diode per lit cell. */
+export function directPlan(p: SharingProblem): SharingPlan {
+  const direct: [number, number][] = [];
+  p.row.forEach((r, k) => r.forEach((o) => direct.push([k, o])));
+  return { direct, buses: [], links: [] };
+}
+
+/**
+ * Turns a plan into bare edges. Bus placeholders are named `~bus<i>` so they
+ * cannot clash with a line name; `buildMatrix` renumbers them B1...
+ */
+export function planEdges(spec: DecodeSpec, plan: SharingPlan): Edge[] {
+  const s = (k: number): string => spec.states[k] as string;
+  const o = (j: number): string => spec.outputs[j] as string;
+  const edges: Edge[] = [];
+  for (const [k, j] of plan.direct) edges.push({ from: s(k), to: o(j) });
+  plan.buses.forEach((b, i) => {
+    const name = `~bus${i}`;
+    for (const k of b.states) edges.push({ from: s(k), to: name });
+    for (const j of b.outputs) edges.push({ from: name, to: o(j) });
+  });
+  for (const l of plan.links) edges.push({ from: o(l.from), to: o(l.to) });
+  return edges;
+}
+
+/**
+ * Level rules: which structures may feed an output at level `level` (the
+ * longest path allowed into it under `mixed`, the one path length under
+ * `per-segment` and `uniform`).
+ */
+export const levelRules = {
+  /** May direct diodes feed an output at this level? */
+  direct(rules: SharingRules, level: number): boolean {
+    return rules.depth === "mixed" || level === 1;
+  },
+  /** May a bus (two diodes per path) feed an output at this level? */
+  bus(rules: SharingRules, level: number): boolean {
+    if (!rules.buses) return false;
+    return rules.depth === "mixed" ? level >= 2 : level === 2;
+  },
+  /** May an output at `fromLevel` link into one at `toLevel`? */
+  link(rules: SharingRules, fromLevel: number, toLevel: number): boolean {
+    if (!rules.links || rules.depth === "uniform") return false;
+    return rules.depth === "mixed" ? fromLevel < toLevel : fromLevel + 1 === toLevel;
+  },
+};

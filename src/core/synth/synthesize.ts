@@ -1,0 +1,142 @@
+/**
+ * Stage 2 of the pipeline: decode spec -> verified matrix.
+ *
+ * Chooses the synthesizer, then runs every result through the independent
+ * verifier. A result the verifier rejects is a bug in diodeloom and comes
+ * back as such, never as a matrix.
+ */
+import type { DecodeSpec } from "../spec/decodeSpec.ts";
+import { buildMatrix, type DiodeMatrix, type VerifiedMatrix } from "../matrix/matrix.ts";
+import type { Project, SynthesisOptions } from "../project/project.ts";
+import { fail, ok, type Result } from "../result/result.ts";
+import { synthesizeDirect } from "./direct.ts";
+import { defaultHighsLoader, exactPlan, type HighsLoader } from "./exact.ts";
+import { heuristicPlan } from "./heuristic.ts";
+import { litCount, planCount, planEdges, sharingProblem, type SharingPlan, type SharingRules } from "./plan.ts";
+import { verifyMatrix } from "../matrix/verify.ts";
+
+/** `direct`: one diode per lit cell; `fast`: the heuristic; `exact`: the proven optimum (branch-and-bound, then HiGHS). */
+export type SynthMode = "direct" | "fast" | "exact";
+
+/** The project's synthesis options plus the mode to run. */
+export interface SynthSettings extends SynthesisOptions {
+  readonly mode: SynthMode;
+}
+
+export type SynthFailure =
+  /** The limits admit no matrix; the message says which setting to change. */
+  | { readonly kind: "infeasible"; readonly message: string }
+  /** diodeloom produced a wrong matrix; the details are the verifier's findings. */
+  | { readonly kind: "bug"; readonly message: string; readonly details: readonly string[] };
+
+/** The project's own synthesis settings, with any overrides applied. */
+export function synthSettings(project: Project, overrides: Partial<SynthSettings> = {}): SynthSettings {
+  return { mode: "exact", ...project.synthesis, ...overrides };
+}
+
+/** What a long synthesis reports as it goes. */
+export interface SynthProgress {
+  readonly stage: "heuristic" | "exact";
+  /** Diodes in the best verified matrix so far. */
+  readonly count: number;
+  /** Proven lower bound so far, or null. */
+  readonly lowerBound: number | null;
+}
+
+/** Optional plumbing: the HiGHS loader (the web worker passes its own) and a progress callback. */
+export interface SynthHooks {
+  readonly loadHighs?: HighsLoader;
+  readonly onProgress?: (progress: SynthProgress) => void;
+}
+
+/**
+ * Finds a verified matrix: `direct` places one diode per lit cell, `fast`
+ * runs the heuristic, `exact` runs the heuristic and then the MILP on HiGHS
+ * from its result. Every returned matrix has passed the verifier. If HiGHS
+ * fails, the heuristic's matrix comes back (with the bound that is still
+ * proven), not an error.
+ *
+ * @example
+ * const r = await synthesize(spec, synthSettings(project, { mode: "fast" }));
+ * if (r.ok) r.value.count;
+ */
+export async function synthesize(
+  spec: DecodeSpec,
+  settings: SynthSettings,
+  hooks: SynthHooks = {},
+): Promise<Result<VerifiedMatrix, SynthFailure>> {
+  const limits = checkLimits(settings);
+  if (limits) return fail(limits);
+  const p = sharingProblem(spec);
+  const lit = litCount(p);
+  const rules: SharingRules = { maxDepth: settings.maxDepth, depth: settings.depth, buses: settings.buses, links: settings.links };
+  // Depth 1, no sharing allowed or nothing to drive: only the direct matrix exists, so it is the optimum.
+  const sharing = lit > 0 && settings.maxDepth >= 2 && (settings.buses || (settings.links && settings.depth !== "uniform"));
+  if (settings.mode === "direct" || !sharing) {
+    const direct: DiodeMatrix = synthesizeDirect(spec, settings.maxDepth, settings.depth);
+    const proven = !sharing ? { lowerBound: lit, optimal: true } : {};
+    return verified(spec, { ...direct, ...proven }, settings);
+  }
+
+  const started = Date.now();
+  const heuristic = heuristicPlan(p, rules);
+  const fast = verified(spec, matrixOf(spec, heuristic, settings, null, "heuristic"), settings);
+  if (!fast.ok || settings.mode === "fast") return fast;
+  hooks.onProgress?.({ stage: "heuristic", count: fast.value.count, lowerBound: null });
+
+  const remainingMs = Math.max(10, settings.timeLimitMs - (Date.now() - started));
+  const exact = await exactPlan(p, rules, heuristic, {
+    timeLimitMs: remainingMs,
+    seed: settings.seed,
+    loadHighs: hooks.loadHighs ?? defaultHighsLoader,
+  });
+  const count = planCount(exact.plan);
+  const result = verified(
+    spec,
+    matrixOf(spec, exact.plan, settings, exact.lowerBound, exact.status === "solver-failed" ? "heuristic" : "exact"),
+    settings,
+  );
+  if (result.ok) hooks.onProgress?.({ stage: "exact", count, lowerBound: exact.lowerBound });
+  return result;
+}
+
+function matrixOf(
+  spec: DecodeSpec,
+  plan: SharingPlan,
+  s: SynthSettings,
+  lowerBound: number | null,
+  method: "heuristic" | "exact",
+): DiodeMatrix {
+  const count = planCount(plan);
+  return buildMatrix(spec, planEdges(spec, plan), {
+    lowerBound,
+    optimal: lowerBound !== null && lowerBound === count,
+    depthLimit: s.maxDepth,
+    depth: s.depth,
+    method,
+  });
+}
+
+/** Settings no matrix can meet (only reachable from code; the schema and CLI check ranges). */
+function checkLimits(s: SynthSettings): SynthFailure | null {
+  if (!Number.isInteger(s.maxDepth) || s.maxDepth < 1 || s.maxDepth > 3) {
+    return {
+      kind: "infeasible",
+      message: `the depth limit must be 1, 2 or 3 diodes (got ${s.maxDepth}); every path needs at least one diode`,
+    };
+  }
+  if (!(s.timeLimitMs > 0))
+    return { kind: "infeasible", message: `the time limit must be a positive number of milliseconds (got ${s.timeLimitMs})` };
+  return null;
+}
+
+/** Runs the verifier; a rejection becomes a `bug` failure. */
+export function verified(spec: DecodeSpec, matrix: DiodeMatrix, settings: SynthSettings): Result<VerifiedMatrix, SynthFailure> {
+  const v = verifyMatrix(spec, matrix, settings);
+  if (v.ok) return ok(v.value);
+  return fail({
+    kind: "bug",
+    message: `internal error: the ${matrix.method} synthesizer produced a matrix the verifier rejects; please report it with the project file`,
+    details: v.error,
+  });
+}

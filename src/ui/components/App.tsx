@@ -1,0 +1,61 @@
+/** The one screen: toolbar, result line, Project and Glyphs on the left, Drawing, Budget and Comparison on the right. */
+import { createEffect } from "solid-js";
+import { app } from "../state/appState.ts";
+import { BudgetPanel } from "./BudgetPanel.tsx";
+import { CautionBanner } from "./CautionBanner.tsx";
+import { ComparisonPanel } from "./ComparisonPanel.tsx";
+import { DrawingPanel } from "./DrawingPanel.tsx";
+import { GlyphEditor } from "./GlyphEditor.tsx";
+import { NoticeBox } from "./NoticeBox.tsx";
+import { PrintView } from "./PrintView.tsx";
+import { ProjectPanel } from "./ProjectPanel.tsx";
+import { ResultBar } from "./ResultBar.tsx";
+import { Toolbar } from "./Toolbar.tsx";
+import type { ExportKind } from "../files/exportFiles.ts";
+
+const EXPORTS: readonly { kind: ExportKind; label: string }[] = [
+  { kind: "svg", label: "SVG sheets" },
+  { kind: "wiring", label: "Wiring CSV" },
+  { kind: "wiring-page", label: "Wiring page (HTML)" },
+  { kind: "bom", label: "Parts CSV" },
+  { kind: "netlists", label: "SPICE netlists" },
+  { kind: "budget", label: "Budget JSON" },
+  { kind: "project", label: "Project JSON" },
+];
+
+export function App() {
+  createEffect(() => {
+    // @page cannot read a CSS variable, so the size rule is written here.
+    let style = document.getElementById("page-size");
+    if (!style) {
+      style = document.createElement("style");
+      style.id = "page-size";
+      document.head.append(style);
+    }
+    style.textContent = `@page { size: ${app.paper() === "a4" ? "A4" : "letter"} landscape; margin: 0; }`;
+  });
+  return (
+    <div class="app" data-ready={app.ready() ? "yes" : "no"}>
+      <div class="topbar">
+        <Toolbar paper={app.paper()} onPaper={app.setPaper} exportKinds={EXPORTS} />
+        <ResultBar />
+      </div>
+      <NoticeBox />
+      <CautionBanner />
+      <main class="workspace">
+        <div class="col-left">
+          <ProjectPanel />
+          <GlyphEditor />
+        </div>
+        <div class="col-right">
+          <DrawingPanel />
+          <div class="pair">
+            <BudgetPanel />
+            <ComparisonPanel />
+          </div>
+        </div>
+      </main>
+      <PrintView />
+    </div>
+  );
+}

@@ -1,0 +1,157 @@
+/**
+ * The Budget panel: string current per output across the states (an SVG
+ * chart), the spread and the trim, supply figures, and the warnings with
+ * their severity (a word and a mark, never colour alone).
+ */
+import { createMemo, For, Show } from "solid-js";
+import { formatOhms } from "../../core/papers/parts.ts";
+import { app } from "../state/appState.ts";
+import { budgetChart, CHART_ROW_H, formatMicro } from "./budgetChart.ts";
+
+const LEVEL = { danger: { mark: "✖", word: "DANGER" }, warn: { mark: "⚠", word: "warning" }, info: { mark: "ℹ", word: "note" } } as const;
+const WIDTH = 440;
+
+export function BudgetPanel() {
+  const view = () => app.budget();
+  const budget = createMemo(() => {
+    const v = view();
+    return v && v.result.ok ? v.result.value : null;
+  });
+  const chart = createMemo(() => {
+    const b = budget();
+    return b ? budgetChart(b, WIDTH) : null;
+  });
+  const failure = () => {
+    const v = view();
+    return v && !v.result.ok ? v.result.error : null;
+  };
+  const warnings = () => [...(budget()?.warnings ?? [])].filter((w) => w.code !== "hazardous-voltage" && w.code !== "mains-supply");
+
+  return (
+    <section class="panel" aria-labelledby="budget-h" data-testid="budget">
+      <div class="panel-head">
+        <h2 id="budget-h">Budget</h2>
+        <Show when={app.stale() || app.budgetStale() || (app.live() && !view())}>
+          <span class="chip stale">↻ {app.stale() ? "stale: from the last valid project" : view() ? "stale, updating" : "working"}</span>
+        </Show>
+      </div>
+      <Show when={failure()}>
+        {(f) => (
+          <p class="chip danger">
+            ✖{" "}
+            {f().kind === "no-convergence"
+              ? `the DC solve did not converge in ${(f() as { state: string }).state} (${(f() as { during: string }).during}): `
+              : ""}
+            {f().message}
+          </p>
+        )}
+      </Show>
+      <Show when={budget()}>
+        {(b) => (
+          <>
+            <p class="budget-summary">
+              target <strong>{formatMicro(b().targetCurrent)} µA</strong> · spread <strong>{b().spreadPct.toFixed(1)} %</strong> → after{" "}
+              {b().trim.series} trim <strong>{b().trim.spreadPct.toFixed(1)} %</strong> · supply max{" "}
+              {(b().supply.maxCurrent * 1000).toFixed(2)} mA, {(b().supply.maxPower * 1000).toFixed(0)} mW · corners{" "}
+              {formatMicro(b().corners.low.minCurrent)}–{formatMicro(b().corners.high.maxCurrent)} µA{" "}
+              {b().corners.meetsTarget ? "✓ meet" : "⚠ miss"} the ±{b().corners.windowPct} % window
+            </p>
+            <Show when={chart()}>
+              {(c) => (
+                <svg
+                  class="budget-chart"
+                  viewBox={`0 0 ${c().width} ${c().height}`}
+                  role="img"
+                  aria-label="string current of each output in every lit state, with the nominal band, the band after the trim and the target"
+                  data-testid="budget-chart"
+                >
+                  <For each={c().rows}>
+                    {(r, i) => (
+                      <g>
+                        <Show when={i() % 2 === 1}>
+                          <rect class="row-shade" x={0} y={r.y - CHART_ROW_H / 2} width={c().width} height={CHART_ROW_H} />
+                        </Show>
+                        <text class="chart-label" x={c().plotX0 - 4} y={r.y + 3} text-anchor="end">
+                          {r.output}
+                        </text>
+                        <rect class="band" x={r.band.x0} y={r.y - 3} width={Math.max(0.8, r.band.x1 - r.band.x0)} height={6} />
+                        <Show when={r.trimmed}>
+                          {(t) => <rect class="band-trim" x={t().x0} y={r.y - 5} width={Math.max(0.8, t().x1 - t().x0)} height={10} />}
+                        </Show>
+                        <For each={r.ticks}>
+                          {(t) => (
+                            <line class="tick" x1={t.x} x2={t.x} y1={r.y - 4} y2={r.y + 4}>
+                              <title>{`${r.output} in ${t.state}: ${formatMicro(t.currentA)} µA`}</title>
+                            </line>
+                          )}
+                        </For>
+                        <text class="chart-value" x={c().width - 2} y={r.y + 3} text-anchor="end">
+                          {r.spreadPct.toFixed(1)} %
+                        </text>
+                      </g>
+                    )}
+                  </For>
+                  <line class="target" x1={c().targetX} x2={c().targetX} y1={0} y2={c().height - 14} />
+                  <For each={c().axis}>
+                    {(a) => (
+                      <>
+                        <line class="axis-tick" x1={a.x} x2={a.x} y1={c().height - 16} y2={c().height - 12} />
+                        <text class="chart-label" x={a.x} y={c().height - 3} text-anchor="middle">
+                          {a.label}
+                        </text>
+                      </>
+                    )}
+                  </For>
+                  <text class="chart-label" x={c().plotX0 - 4} y={c().height - 3} text-anchor="end">
+                    µA
+                  </text>
+                </svg>
+              )}
+            </Show>
+            <p class="legend muted small">
+              <span class="key key-band" /> nominal min–max · <span class="key key-trim" /> after trim · <span class="key key-tick" /> one
+              lit state · <span class="key key-target" /> target · right: spread
+            </p>
+            <details class="trim">
+              <summary>Emitter resistor trim ({b().trim.series})</summary>
+              <table class="mini-table">
+                <thead>
+                  <tr>
+                    <th>Output</th>
+                    <th>Ohms</th>
+                    <th>Min µA</th>
+                    <th>Max µA</th>
+                  </tr>
+                </thead>
+                <tbody>
+                  <For each={Object.entries(b().trim.outputs)}>
+                    {([o, t]) => (
+                      <tr>
+                        <td>{o}</td>
+                        <td>{formatOhms(t.ohms)}</td>
+                        <td>{formatMicro(t.min)}</td>
+                        <td>{formatMicro(t.max)}</td>
+                      </tr>
+                    )}
+                  </For>
+                </tbody>
+              </table>
+            </details>
+            <ul class="warnings" aria-label="Budget warnings">
+              <For each={warnings()}>
+                {(w) => (
+                  <li class={`warning ${w.level}`} data-level={w.level}>
+                    <span class="sev">
+                      {LEVEL[w.level].mark} {LEVEL[w.level].word}
+                    </span>{" "}
+                    {w.message}
+                  </li>
+                )}
+              </For>
+            </ul>
+          </>
+        )}
+      </Show>
+    </section>
+  );
+}

@@ -1,0 +1,96 @@
+/**
+ * The print view: only visible when printing (styles.css @media print).
+ * After the drawing sheets come the wiring list, with sheet and zone of
+ * every diode and the inspection checklist, and the parts count.
+ */
+import { createMemo, For, Show } from "solid-js";
+import { bomLines } from "../../core/papers/bom.ts";
+import { INSPECTION_CHECKLIST, WIRING_HEADER, wiringRows } from "../../core/papers/wiringList.ts";
+import { app } from "../state/appState.ts";
+
+export function PrintView() {
+  const lists = createMemo(() => {
+    const r = app.live();
+    if (!r) return null;
+    const drawing = app.drawing();
+    const b = app.budget();
+    const trim =
+      b && b.forResult === r && b.result.ok ? new Map(Object.entries(b.result.value.trim.outputs).map(([o, t]) => [o, t.ohms])) : undefined;
+    return { r, rows: wiringRows(r.matrix, drawing?.placements), parts: bomLines(r.project, r.spec, r.matrix, trim) };
+  });
+  return (
+    <Show when={lists()}>
+      {(l) => (
+        <section class="print-view" aria-hidden="true" data-testid="print-view">
+          <h2>
+            Wiring list: {l().r.project.title} ({l().r.matrix.count} diodes)
+          </h2>
+          <table class="print-table">
+            <thead>
+              <tr>
+                <For each={WIRING_HEADER}>{(h) => <th>{h}</th>}</For>
+              </tr>
+            </thead>
+            <tbody>
+              <For each={l().rows}>
+                {(w) => (
+                  <tr>
+                    <td>{w.step}</td>
+                    <td>
+                      <b>{w.ref}</b>
+                    </td>
+                    <td>{w.from}</td>
+                    <td>{w.to}</td>
+                    <td>{w.sheet ?? ""}</td>
+                    <td>{w.zone}</td>
+                    <td class="box">☐</td>
+                  </tr>
+                )}
+              </For>
+            </tbody>
+          </table>
+          <h2>Inspection</h2>
+          <table class="print-table">
+            <tbody>
+              <For each={INSPECTION_CHECKLIST}>
+                {(c, i) => (
+                  <tr>
+                    <td>C{i() + 1}</td>
+                    <td>
+                      <b>{c.item}</b>
+                    </td>
+                    <td>{c.check}</td>
+                    <td class="box">☐</td>
+                  </tr>
+                )}
+              </For>
+            </tbody>
+          </table>
+          <h2>Parts count</h2>
+          <table class="print-table">
+            <thead>
+              <tr>
+                <th>Qty</th>
+                <th>References</th>
+                <th>Value</th>
+                <th>Description</th>
+              </tr>
+            </thead>
+            <tbody>
+              <For each={l().parts}>
+                {(g) => (
+                  <tr>
+                    <td>{g.quantity}</td>
+                    <td>{g.references}</td>
+                    <td>{g.value}</td>
+                    <td>{g.description}</td>
+                  </tr>
+                )}
+              </For>
+            </tbody>
+          </table>
+        </section>
+      )}
+    </Show>
+  );
+}

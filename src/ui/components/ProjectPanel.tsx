@@ -1,0 +1,239 @@
+/**
+ * The Project panel: title, counter and display, the per-state texts (as a
+ * list, or filled from a counting pattern) and the synthesis options.
+ */
+import { createMemo, createSignal, For, Index, Show } from "solid-js";
+import type { CellKind, DepthPolicy } from "../../core/project/project.ts";
+import { splitText } from "../../core/project/projectSchema.ts";
+import { formatProblems } from "../../core/result/result.ts";
+import { fillPattern } from "../../core/project/textPatterns.ts";
+import { app } from "../state/appState.ts";
+import { CellFigure } from "./CellFigure.tsx";
+import {
+  draftSegments,
+  effectiveGlyphs,
+  MAX_POSITIONS,
+  MAX_STATES,
+  setCell,
+  setPositions,
+  setStates,
+  setSupplyVolts,
+  setSynthesis,
+  setText,
+  setTexts,
+  setTitle,
+} from "../state/draftEdits.ts";
+
+const CELL_NAMES: Record<CellKind, string> = { seg7: "7-segment", seg7dp: "7-segment + dp", custom: "custom" };
+const POLICY_NAMES: Record<DepthPolicy, string> = { "per-segment": "per segment", mixed: "mixed", uniform: "uniform" };
+
+export function ProjectPanel() {
+  const d = () => app.draft();
+  const [pattern, setPattern] = createSignal("");
+  const [patternError, setPatternError] = createSignal<string | null>(null);
+  const problemsAt = (path: string) =>
+    app.problems().filter((p) => p.path === path || p.path.startsWith(`${path}.`) || p.path.startsWith(`${path}[`));
+
+  const applyPattern = () => {
+    const r = fillPattern(pattern(), d().display.positions);
+    if (!r.ok) return setPatternError(formatProblems(r.error));
+    setPatternError(null);
+    app.edit((x) => setTexts(x, r.value));
+    app.sealEdit();
+  };
+
+  // The previews depend only on the cell and the glyph table, not on the texts: a memo compared
+  // by value keeps typing in one row from redrawing every other row's preview.
+  const sameJson = <T,>(a: T, b: T) => JSON.stringify(a) === JSON.stringify(b);
+  const previewCell = createMemo(() => ({ kind: d().display.cell, segments: draftSegments(d()) }), undefined, { equals: sameJson });
+  const glyphTable = createMemo(() => effectiveGlyphs(d()), undefined, { equals: sameJson });
+  const positionsOf = (text: string) => {
+    const cell = previewCell();
+    const table = glyphTable();
+    return splitText(text, cell).map((p) => [...(table[p.char] ?? []), ...(p.dp ? ["dp"] : [])]);
+  };
+
+  return (
+    <section class="panel" aria-labelledby="project-h">
+      <h2 id="project-h">Project</h2>
+      <div class="form-grid">
+        <label for="f-title">Title</label>
+        <input
+          id="f-title"
+          type="text"
+          value={d().title}
+          maxLength={200}
+          onInput={(e) => app.edit((x) => setTitle(x, e.currentTarget.value), "title")}
+          onChange={() => app.sealEdit()}
+        />
+
+        <label for="f-states">States</label>
+        <input
+          id="f-states"
+          type="number"
+          min="2"
+          max={MAX_STATES}
+          value={d().counter.states}
+          onChange={(e) => app.edit((x) => setStates(x, Number(e.currentTarget.value) || 2))}
+        />
+
+        <label for="f-positions">Positions</label>
+        <input
+          id="f-positions"
+          type="number"
+          min="1"
+          max={MAX_POSITIONS}
+          value={d().display.positions}
+          onChange={(e) => app.edit((x) => setPositions(x, Number(e.currentTarget.value) || 1))}
+        />
+
+        <label for="f-cell">Cell</label>
+        <select id="f-cell" value={d().display.cell} onChange={(e) => app.edit((x) => setCell(x, e.currentTarget.value as CellKind))}>
+          <For each={Object.keys(CELL_NAMES) as CellKind[]}>{(k) => <option value={k}>{CELL_NAMES[k]}</option>}</For>
+        </select>
+      </div>
+
+      <fieldset class="sub">
+        <legend>Texts per state</legend>
+        <div class="pattern-row">
+          <label for="f-pattern" class="visually-hidden">
+            Fill pattern
+          </label>
+          <input
+            id="f-pattern"
+            type="text"
+            value={pattern()}
+            placeholder="0-9, 1-12 with leading blank, 00-59"
+            onInput={(e) => setPattern(e.currentTarget.value)}
+            onKeyDown={(e) => e.key === "Enter" && applyPattern()}
+          />
+          <button type="button" onClick={applyPattern}>
+            Fill
+          </button>
+        </div>
+        <Show when={patternError()}>
+          <p class="field-error" role="alert">
+            {patternError()}
+          </p>
+        </Show>
+        <Show when={problemsAt("show").some((p) => p.path === "show")}>
+          <p class="field-error">{problemsAt("show").find((p) => p.path === "show")?.message}</p>
+        </Show>
+        <ol class="state-list" aria-label="Text of each state">
+          <Index each={d().show}>
+            {(text, k) => {
+              const err = () => app.problems().find((p) => p.path === `show[${k}]`);
+              return (
+                <li class={err() ? "has-error" : ""}>
+                  <label for={`f-show-${k}`} class="state-name">
+                    S{k}
+                  </label>
+                  <input
+                    id={`f-show-${k}`}
+                    class="state-text"
+                    type="text"
+                    value={text()}
+                    data-testid={`state-text-${k}`}
+                    aria-invalid={err() ? "true" : "false"}
+                    aria-describedby={err() ? `f-show-err-${k}` : undefined}
+                    onInput={(e) => app.edit((x) => setText(x, k, e.currentTarget.value), `show[${k}]`)}
+                    onChange={() => app.sealEdit()}
+                  />
+                  <span class="state-preview" aria-hidden="true">
+                    <For each={positionsOf(text())}>
+                      {(lit) => <CellFigure kind={previewCell().kind} segments={previewCell().segments} lit={lit} height={22} />}
+                    </For>
+                  </span>
+                  <Show when={err()}>
+                    <span id={`f-show-err-${k}`} class="field-error inline">
+                      ⚠ {err()?.message}
+                    </span>
+                  </Show>
+                </li>
+              );
+            }}
+          </Index>
+        </ol>
+      </fieldset>
+
+      <fieldset class="sub">
+        <legend>Synthesis</legend>
+        <div class="form-grid">
+          <label for="f-depth">Max depth</label>
+          <select
+            id="f-depth"
+            value={String(d().synthesis.maxDepth)}
+            onChange={(e) => app.edit((x) => setSynthesis(x, { maxDepth: Number(e.currentTarget.value) }))}
+          >
+            <option value="1">1 diode</option>
+            <option value="2">2 diodes</option>
+            <option value="3">3 diodes</option>
+          </select>
+          <label for="f-policy">Depth policy</label>
+          <select
+            id="f-policy"
+            value={d().synthesis.depth}
+            onChange={(e) => app.edit((x) => setSynthesis(x, { depth: e.currentTarget.value as DepthPolicy }))}
+          >
+            <For each={Object.keys(POLICY_NAMES) as DepthPolicy[]}>{(p) => <option value={p}>{POLICY_NAMES[p]}</option>}</For>
+          </select>
+          <span class="label">Sharing</span>
+          <div class="checks">
+            <label>
+              <input
+                type="checkbox"
+                checked={d().synthesis.buses}
+                onChange={(e) => app.edit((x) => setSynthesis(x, { buses: e.currentTarget.checked }))}
+              />{" "}
+              bus nodes
+            </label>
+            <label>
+              <input
+                type="checkbox"
+                checked={d().synthesis.links}
+                onChange={(e) => app.edit((x) => setSynthesis(x, { links: e.currentTarget.checked }))}
+              />{" "}
+              links
+            </label>
+          </div>
+          <label for="f-limit">Exact limit (s)</label>
+          <input
+            id="f-limit"
+            type="number"
+            min="1"
+            max="3600"
+            value={d().synthesis.timeLimitMs / 1000}
+            onChange={(e) =>
+              app.edit((x) => setSynthesis(x, { timeLimitMs: Math.max(1, Math.round(Number(e.currentTarget.value) * 1000) || 1000) }))
+            }
+          />
+          <label for="f-seed">Seed</label>
+          <input
+            id="f-seed"
+            type="number"
+            min="0"
+            step="1"
+            value={d().synthesis.seed}
+            onChange={(e) => app.edit((x) => setSynthesis(x, { seed: Math.max(0, Math.floor(Number(e.currentTarget.value) || 0)) }))}
+          />
+          <label for="f-supply">Supply (V)</label>
+          <input
+            id="f-supply"
+            type="number"
+            min="1"
+            max="1000"
+            step="any"
+            value={d().electrical.supply.volts}
+            onChange={(e) => app.edit((x) => setSupplyVolts(x, Number(e.currentTarget.value) || x.electrical.supply.volts))}
+          />
+        </div>
+      </fieldset>
+      <Show when={app.problems().length > 0}>
+        <div class="problems" role="status" data-testid="problems">
+          <strong>⚠ The project has {app.problems().length} problem(s); results below are from the last valid version.</strong>
+          <pre>{formatProblems(app.problems())}</pre>
+        </div>
+      </Show>
+    </section>
+  );
+}

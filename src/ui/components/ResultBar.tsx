@@ -1,0 +1,104 @@
+/**
+ * The result line: the verified diode count, how it was found, whether it
+ * is stale, and the exact run's progress with its cancel button.
+ */
+import { createSignal, Match, onCleanup, Show, Switch } from "solid-js";
+import { app } from "../state/appState.ts";
+import { gapPercent } from "../workers/exactProtocol.ts";
+
+const METHOD_NAMES = { direct: "direct", heuristic: "heuristic", exact: "exact" } as const;
+
+export function ResultBar() {
+  // A clock for the running exact optimizer's elapsed time (display only).
+  const [now, setNow] = createSignal(performance.now());
+  const tick = setInterval(() => {
+    if (app.exact().status === "running") setNow(performance.now());
+  }, 500);
+  onCleanup(() => clearInterval(tick));
+  const limitS = () => Math.round(app.draft().synthesis.timeLimitMs / 1000);
+  const m = () => app.live()?.matrix;
+  const bound = () => {
+    const x = m();
+    if (!x) return "";
+    if (x.optimal) return "proven minimum";
+    return x.lowerBound !== null ? `bound ${x.lowerBound}, gap ${x.count - x.lowerBound}` : "no bound yet";
+  };
+  return (
+    <div class="result-bar" role="status" aria-live="polite">
+      <Show when={m()} fallback={<span class="muted">No result yet</span>}>
+        <span class="count" data-testid="diode-count" data-count={m()?.count}>
+          <strong>{m()?.count}</strong> diodes
+        </span>
+        <span class="chip ok" title="every state lights exactly its glyph (independent verifier)">
+          ✓ verified
+        </span>
+        <span class="muted">
+          {METHOD_NAMES[m()?.method ?? "direct"]} · {bound()} · direct {app.live()?.directCount} · {m()?.buses.length} bus · depth{" "}
+          {m()?.maxDepth}/{m()?.depthLimit}
+        </span>
+        <Show when={app.stale()}>
+          <span class="chip stale" data-testid="stale">
+            ↻ stale: fix the project to update
+          </span>
+        </Show>
+        <Show when={app.liveMs() !== null}>
+          <span
+            class="muted small"
+            data-testid="live-ms"
+            data-ms={app.liveMs()?.toFixed(1)}
+            data-pass={app.livePass()}
+            title="edit to verified result, milliseconds"
+          >
+            {app.liveMs()?.toFixed(0)} ms
+          </span>
+        </Show>
+      </Show>
+      <Show when={app.liveError()}>
+        <span class="chip danger">✖ {app.liveError()}</span>
+      </Show>
+      <span class="exact" data-testid="exact-status" data-status={app.exact().status}>
+        <Switch>
+          <Match when={app.exact().status === "running" && app.exact()}>
+            {(s) => {
+              const p = () => (s() as Extract<ReturnType<typeof app.exact>, { status: "running" }>).progress;
+              return (
+                <>
+                  <span class="spinner" aria-hidden="true" />
+                  exact: best {p().best ?? "–"}, bound {p().bound ?? "–"}
+                  <Show when={gapPercent(p()) !== null}>, gap {gapPercent(p())?.toFixed(1)} %</Show>
+                  <span class="muted">
+                    · {Math.max(0, Math.floor((now() - (s() as { startedAtMs: number }).startedAtMs) / 1000))} s of {limitS()} s
+                  </span>
+                  <button type="button" class="small-btn" onClick={() => app.cancelExact()} data-testid="exact-cancel">
+                    Cancel
+                  </button>
+                </>
+              );
+            }}
+          </Match>
+          <Match when={app.exact().status === "done" && app.exact()}>
+            {(s) => {
+              const x = () => s() as Extract<ReturnType<typeof app.exact>, { status: "done" }>;
+              return (
+                <>
+                  exact: {x().optimal ? "minimum proven" : "finished"}
+                  {x().improved ? ", improved" : ""}
+                </>
+              );
+            }}
+          </Match>
+          <Match when={app.exact().status === "cancelled"}>
+            exact: cancelled{" "}
+            <button type="button" class="small-btn" onClick={() => app.runExactNow()}>
+              Run again
+            </button>
+          </Match>
+          <Match when={app.exact().status === "failed" && app.exact()}>
+            {(s) => <span class="chip warn">⚠ exact: {(s() as { message: string }).message}</span>}
+          </Match>
+          <Match when={app.exact().status === "off"}>exact: off</Match>
+        </Switch>
+      </span>
+    </div>
+  );
+}

@@ -1,0 +1,149 @@
+/**
+ * The toolbar: open and save the project, share link, exports, print with
+ * paper size, undo and redo, and the exact optimizer switch.
+ */
+import { createSignal, For, Show } from "solid-js";
+import { MAX_PROJECT_BYTES } from "../../core/project/projectSchema.ts";
+import { app } from "../state/appState.ts";
+import { draftToJson } from "../state/draft.ts";
+import { downloadText, fileStem } from "../files/download.ts";
+import { exportFiles, type ExportKind } from "../files/exportFiles.ts";
+import { encodeShareHash } from "../state/shareLink.ts";
+
+import type { PaperName } from "../../render/drawingModel.ts";
+
+type Paper = PaperName;
+
+export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; exportKinds: readonly { kind: ExportKind; label: string }[] }) {
+  let fileInput: HTMLInputElement | undefined;
+  let menu: HTMLDetailsElement | undefined;
+  const [shareState, setShareState] = createSignal<string | null>(null);
+
+  const open = async (file: File) => {
+    if (file.size > MAX_PROJECT_BYTES) {
+      app.setNotice({
+        level: "danger",
+        title: `${file.name} was not opened; the project on screen is unchanged`,
+        lines: [`${file.name}: the file is larger than 1 MiB; a project needs far less`],
+      });
+      return;
+    }
+    app.openText(file.name, await file.text());
+  };
+  const save = () => downloadText(`${fileStem(app.draft().title)}.json`, draftToJson(app.draft()), "application/json");
+  const share = async () => {
+    const hash = await encodeShareHash(draftToJson(app.draft()));
+    const url = `${location.origin}${location.pathname}${hash}`;
+    history.replaceState(null, "", hash);
+    try {
+      await navigator.clipboard.writeText(url);
+      setShareState("link copied");
+    } catch {
+      setShareState("link in the address bar");
+    }
+    setTimeout(() => setShareState(null), 4000);
+  };
+  const doExport = (kind: ExportKind) => {
+    const r = app.live();
+    if (!r) return;
+    const stem = fileStem(r.project.title);
+    const files = exportFiles(r, kind, app.paper(), app.budget()?.forResult === r ? app.budget()?.result : undefined);
+    if (files.length === 0) {
+      app.setNotice({
+        level: "warn",
+        title: "Nothing to export yet",
+        lines: ["the budget is still being worked out; try again in a moment"],
+      });
+      return;
+    }
+    files.forEach((f) => downloadText(`${stem}-${f.name}`, f.content, f.mime));
+    if (menu) menu.open = false;
+  };
+
+  return (
+    <header class="toolbar" role="toolbar" aria-label="Project actions">
+      <span class="brand" aria-label="diodeloom">
+        diode<span>loom</span>
+      </span>
+      <div class="tool-group">
+        <button type="button" onClick={() => fileInput?.click()} data-testid="open">
+          Open…
+        </button>
+        <input
+          ref={fileInput}
+          type="file"
+          accept=".json,application/json"
+          class="visually-hidden"
+          tabindex="-1"
+          data-testid="open-input"
+          onChange={(e) => {
+            const f = e.currentTarget.files?.[0];
+            e.currentTarget.value = "";
+            if (f) void open(f);
+          }}
+        />
+        <button type="button" onClick={save} data-testid="save">
+          Save
+        </button>
+        <button type="button" onClick={() => void share()} data-testid="share">
+          Share link
+        </button>
+        <Show when={shareState()}>
+          <span class="muted small" role="status">
+            {shareState()}
+          </span>
+        </Show>
+      </div>
+      <details
+        class="menu"
+        ref={menu}
+        onKeyDown={(e) => {
+          if (e.key === "Escape" && menu?.open) {
+            menu.open = false;
+            menu.querySelector("summary")?.focus();
+          }
+        }}
+      >
+        <summary data-testid="exports-menu">Export ▾</summary>
+        <div class="menu-items" role="group" aria-label="Export">
+          <For each={props.exportKinds}>
+            {(k) => (
+              <button type="button" onClick={() => doExport(k.kind)} disabled={!app.live()} data-testid={`export-${k.kind}`}>
+                {k.label}
+              </button>
+            )}
+          </For>
+        </div>
+      </details>
+      <div class="tool-group" role="group" aria-label="Print">
+        <label for="f-paper" class="label">
+          Paper
+        </label>
+        <select id="f-paper" value={props.paper} onChange={(e) => props.onPaper(e.currentTarget.value as Paper)}>
+          <option value="a4">A4</option>
+          <option value="letter">Letter</option>
+        </select>
+        <button type="button" onClick={() => window.print()} data-testid="print">
+          Print
+        </button>
+      </div>
+      <div class="tool-group" role="group" aria-label="History">
+        <button type="button" onClick={() => app.undo()} disabled={!app.canUndo()} data-testid="undo" title="Undo (Ctrl+Z)">
+          Undo
+        </button>
+        <button type="button" onClick={() => app.redo()} disabled={!app.canRedo()} data-testid="redo" title="Redo (Ctrl+Shift+Z, Ctrl+Y)">
+          Redo
+        </button>
+      </div>
+      <label class="check-inline">
+        <input
+          type="checkbox"
+          checked={app.exactEnabled()}
+          onChange={(e) => app.setExactOn(e.currentTarget.checked)}
+          data-testid="exact-toggle"
+        />{" "}
+        exact optimizer
+      </label>
+    </header>
+  );
+}

@@ -1,0 +1,53 @@
+/**
+ * The draft: the project as the person is editing it, in the file format.
+ *
+ * The app keeps the draft as its one source of truth. Every edit makes a new
+ * draft; `validateProject` then turns it into a strict `Project` or into
+ * path-naming problems. A draft may be invalid while someone is typing; the
+ * last valid project keeps its (stale) results on screen meanwhile.
+ */
+import type { CellKind, ElectricalModel, Project, SynthesisOptions } from "../../core/project/project.ts";
+import { PROJECT_SCHEMA } from "../../core/project/project.ts";
+
+export interface Draft {
+  readonly schema: typeof PROJECT_SCHEMA;
+  readonly title: string;
+  readonly counter: { readonly states: number; readonly drive: "source" };
+  readonly display: { readonly positions: number; readonly cell: CellKind; readonly segments?: readonly string[] };
+  /** The file's own glyph entries (overrides of the built-in table). */
+  readonly glyphs: Readonly<Record<string, readonly string[]>>;
+  readonly show: readonly string[];
+  readonly synthesis: SynthesisOptions;
+  readonly electrical: ElectricalModel;
+}
+
+/** The complete draft of a validated project; saving it and reading it back gives the same project. */
+export function draftFromProject(p: Project): Draft {
+  const cell = p.display.cell;
+  return {
+    schema: PROJECT_SCHEMA,
+    title: p.title,
+    counter: { states: p.counter.states, drive: "source" },
+    display:
+      cell.kind === "custom"
+        ? { positions: p.display.positions, cell: cell.kind, segments: [...cell.segments] }
+        : { positions: p.display.positions, cell: cell.kind },
+    glyphs: Object.fromEntries(Object.entries(p.glyphOverrides).map(([ch, segs]) => [ch, [...segs]])),
+    show: [...p.show],
+    synthesis: { ...p.synthesis },
+    electrical: structuredClone(p.electrical) as ElectricalModel,
+  };
+}
+
+/**
+ * The draft as project JSON text. Seven-segment glyphs are written as
+ * lit-segment strings (`"cdefg"`, `.` for the decimal point), the way people
+ * write them by hand; custom cells keep their name lists.
+ */
+export function draftToJson(d: Draft): string {
+  const glyphs: Record<string, string | readonly string[]> = {};
+  for (const [ch, segs] of Object.entries(d.glyphs)) {
+    glyphs[ch] = d.display.cell === "custom" ? segs : segs.map((s) => (s === "dp" ? "." : s)).join("");
+  }
+  return JSON.stringify({ ...d, glyphs }, null, 2) + "\n";
+}

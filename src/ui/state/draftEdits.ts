@@ -1,0 +1,132 @@
+/**
+ * Edits of the draft: pure functions from a draft to the next draft.
+ *
+ * Each keeps the draft as close to valid as the edit allows (resizing the
+ * text list with the state count, padding texts with the positions), so a
+ * single change in the form rarely leaves the project unusable.
+ */
+import { builtinCell, builtinGlyphs } from "../../core/glyphs/glyphs.ts";
+import type { CellKind, SynthesisOptions } from "../../core/project/project.ts";
+import { splitText } from "../../core/project/projectSchema.ts";
+import type { Draft } from "./draft.ts";
+
+/** Most states and positions the schema accepts. */
+export const MAX_STATES = 256;
+export const MAX_POSITIONS = 8;
+
+/** Segment names of the draft's cell. */
+export function draftSegments(d: Draft): readonly string[] {
+  return d.display.cell === "custom" ? (d.display.segments ?? []) : builtinCell(d.display.cell).segments;
+}
+
+/** The lit segments of every character: the built-in table with the draft's own entries on top. */
+export function effectiveGlyphs(d: Draft): Record<string, readonly string[]> {
+  const cell = d.display.cell === "custom" ? { kind: "custom" as const, segments: draftSegments(d) } : builtinCell(d.display.cell);
+  return { ...builtinGlyphs(cell), ...d.glyphs };
+}
+
+/** The characters the texts use, in order of first appearance, blank excluded. */
+export function charactersShown(d: Draft): string[] {
+  const cell = d.display.cell === "custom" ? { kind: "custom" as const, segments: draftSegments(d) } : builtinCell(d.display.cell);
+  const seen = new Set<string>();
+  for (const t of d.show) for (const p of splitText(t, cell)) if (p.char !== " ") seen.add(p.char);
+  return [...seen];
+}
+
+export function setTitle(d: Draft, title: string): Draft {
+  return { ...d, title };
+}
+
+/** Sets the state count; new states show a blank, removed states drop off the end. */
+export function setStates(d: Draft, states: number): Draft {
+  const n = Math.max(2, Math.min(MAX_STATES, Math.round(states)));
+  const show = d.show.slice(0, n);
+  while (show.length < n) show.push(" ".repeat(d.display.positions));
+  return { ...d, counter: { ...d.counter, states: n }, show };
+}
+
+/** Sets the position count; texts gain blanks on the left or lose their leftmost positions. */
+export function setPositions(d: Draft, positions: number): Draft {
+  const n = Math.max(1, Math.min(MAX_POSITIONS, Math.round(positions)));
+  const cell = d.display.cell === "custom" ? { kind: "custom" as const, segments: draftSegments(d) } : builtinCell(d.display.cell);
+  const show = d.show.map((t) => {
+    const parts = splitText(t, cell).map((p) => p.char + (p.dp ? "." : ""));
+    while (parts.length < n) parts.unshift(" ");
+    return parts.slice(parts.length - n).join("");
+  });
+  return { ...d, display: { ...d.display, positions: n }, show };
+}
+
+/**
+ * Changes the cell kind. Glyph entries naming segments the new cell lacks
+ * are dropped; a new custom cell starts with the seven segment names and the
+ * shapes of the characters in use, so the texts keep showing something.
+ */
+export function setCell(d: Draft, kind: CellKind): Draft {
+  if (kind === d.display.cell) return d;
+  if (kind === "custom") {
+    const segments = [...draftSegments(d)];
+    const table = effectiveGlyphs(d);
+    const glyphs: Record<string, readonly string[]> = {};
+    for (const ch of charactersShown(d)) glyphs[ch] = [...(table[ch] ?? [])];
+    return { ...d, display: { positions: d.display.positions, cell: kind, segments }, glyphs };
+  }
+  const segments = builtinCell(kind).segments;
+  const glyphs: Record<string, readonly string[]> = {};
+  for (const [ch, segs] of Object.entries(d.glyphs)) {
+    if (segs.every((s) => segments.includes(s))) glyphs[ch] = segs;
+  }
+  return { ...d, display: { positions: d.display.positions, cell: kind }, glyphs };
+}
+
+/** Sets the segment names of a custom cell; glyph entries keep the names that remain. */
+export function setCustomSegments(d: Draft, segments: readonly string[]): Draft {
+  if (d.display.cell !== "custom") return d;
+  const glyphs: Record<string, readonly string[]> = {};
+  for (const [ch, segs] of Object.entries(d.glyphs)) glyphs[ch] = segs.filter((s) => segments.includes(s));
+  return { ...d, display: { ...d.display, segments: [...segments] }, glyphs };
+}
+
+/** Sets one state's text (0-based state index). */
+export function setText(d: Draft, state: number, text: string): Draft {
+  if (state < 0 || state >= d.show.length) throw new RangeError(`state ${state} is outside 0..${d.show.length - 1}`);
+  const show = [...d.show];
+  show[state] = text;
+  return { ...d, show };
+}
+
+/** Replaces all texts, and the state count with them. */
+export function setTexts(d: Draft, texts: readonly string[]): Draft {
+  return { ...d, counter: { ...d.counter, states: texts.length }, show: [...texts] };
+}
+
+/**
+ * Sets the lit segments of one character. An entry equal to the built-in
+ * shape is removed, so the file keeps only real overrides.
+ */
+export function setGlyph(d: Draft, char: string, segments: readonly string[]): Draft {
+  const order = draftSegments(d);
+  const ordered = order.filter((s) => segments.includes(s));
+  const glyphs: Record<string, readonly string[]> = { ...d.glyphs };
+  const cell = d.display.cell === "custom" ? { kind: "custom" as const, segments: order } : builtinCell(d.display.cell);
+  const builtin = builtinGlyphs(cell)[char];
+  if (builtin !== undefined && builtin.join() === ordered.join()) delete glyphs[char];
+  else glyphs[char] = ordered;
+  return { ...d, glyphs };
+}
+
+/** Lights or darkens one segment of one character. */
+export function toggleSegment(d: Draft, char: string, segment: string): Draft {
+  const now = effectiveGlyphs(d)[char] ?? [];
+  return setGlyph(d, char, now.includes(segment) ? now.filter((s) => s !== segment) : [...now, segment]);
+}
+
+export function setSynthesis(d: Draft, change: Partial<SynthesisOptions>): Draft {
+  return { ...d, synthesis: { ...d.synthesis, ...change } };
+}
+
+/** Sets the nominal supply and its range around it (±10 %, the defaults' proportion). */
+export function setSupplyVolts(d: Draft, volts: number): Draft {
+  const supply = { volts, minVolts: Math.round(volts * 0.9 * 100) / 100, maxVolts: Math.round(volts * 1.1 * 100) / 100 };
+  return { ...d, electrical: { ...d.electrical, supply } };
+}

@@ -1,0 +1,62 @@
+/**
+ * Starts, follows and cancels exact-optimizer runs in a Web Worker.
+ *
+ * One run at a time: starting a new run, or cancelling, terminates the
+ * worker of the old one (the solver cannot be interrupted from outside any
+ * other way), so a stale answer can never arrive.
+ */
+import type { GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
+import type { ExactProgress, ExactReply, ExactRequest } from "./exactProtocol.ts";
+
+export interface ExactCallbacks {
+  progress(p: ExactProgress): void;
+  done(matrix: unknown): void;
+  compared?(rows: readonly GlyphStyleRow[]): void;
+  failed(message: string): void;
+}
+
+export class ExactRunner {
+  private worker: Worker | null = null;
+  private runId = 0;
+
+  /** Starts a run for a project draft; any run in progress is cancelled. */
+  start(project: unknown, callbacks: ExactCallbacks, job: ExactRequest["job"] = "matrix"): void {
+    this.cancel();
+    const id = ++this.runId;
+    const worker = new Worker(new URL("./exactWorker.ts", import.meta.url), { type: "module" });
+    this.worker = worker;
+    worker.onmessage = (e: MessageEvent<ExactReply>) => {
+      const reply = e.data;
+      if (reply.id !== id || this.worker !== worker) return;
+      if (reply.type === "progress") callbacks.progress(reply.progress);
+      else {
+        this.finish(worker);
+        if (reply.type === "done") callbacks.done(reply.matrix);
+        else if (reply.type === "compared") callbacks.compared?.(reply.rows);
+        else callbacks.failed(reply.message);
+      }
+    };
+    worker.onerror = (e) => {
+      e.preventDefault();
+      if (this.worker !== worker) return;
+      this.finish(worker);
+      callbacks.failed(`the optimizer worker failed: ${e.message || "unknown error"}`);
+    };
+    const request: ExactRequest = { id, job, project };
+    worker.postMessage(request);
+  }
+
+  /** Stops the run in progress, if any. */
+  cancel(): void {
+    if (this.worker) this.finish(this.worker);
+  }
+
+  get running(): boolean {
+    return this.worker !== null;
+  }
+
+  private finish(worker: Worker): void {
+    worker.terminate();
+    if (this.worker === worker) this.worker = null;
+  }
+}

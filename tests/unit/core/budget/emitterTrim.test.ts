@@ -1,0 +1,41 @@
+import { describe, expect, it } from "vitest";
+import { currentRanges, overallSpread, spreadPct, trimEmitters } from "../../../../src/core/budget/emitterTrim.ts";
+import { preferredNeighbours } from "../../../../src/core/budget/eSeries.ts";
+import { solveAllStates } from "../../../../src/core/circuit/stateSweep.ts";
+import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
+
+describe("emitter trim", () => {
+  it("computes spreads as 100 (max - min) / max", () => {
+    expect(spreadPct(90, 100)).toBeCloseTo(10, 12);
+    expect(spreadPct(0, 0)).toBe(0);
+    expect(
+      overallSpread(
+        new Map([
+          ["a", { min: 80, max: 100, spreadPct: 20 }],
+          ["b", { min: 95, max: 120, spreadPct: 0 }],
+        ]),
+      ),
+    ).toBeCloseTo((100 * 40) / 120, 12);
+  });
+
+  it("picks one of the two preferred values around the ideal, the one centred nearer the target", () => {
+    const d = sharedDieRoller();
+    const e = d.project.electrical;
+    const nominal = solveAllStates(d.spec, d.matrix, e, "nominal");
+    if (!nominal.ok) throw new Error(nominal.error.message);
+    const t = trimEmitters(d.spec, d.matrix, e, nominal.value, "E24");
+    if (!t.ok) throw new Error(t.error.message);
+    for (const [o, x] of Object.entries(t.value.outputs)) {
+      expect(preferredNeighbours(x.idealOhms, "E24")).toContain(x.ohms);
+      // Either neighbour, tried alone on this output, would not be centred better.
+      const [lo, hi] = preferredNeighbours(x.idealOhms, "E24");
+      const other = x.ohms === lo ? hi : lo;
+      const alt = solveAllStates(d.spec, d.matrix, e, "check", new Map([...t.value.ohms, [o, other]]));
+      if (!alt.ok) throw new Error(alt.error.message);
+      const r = currentRanges(d.spec, alt.value).get(o);
+      const mid = (a: { min: number; max: number }): number => (a.min + a.max) / 2;
+      expect(Math.abs(mid(x) - e.string.targetA)).toBeLessThanOrEqual(Math.abs(mid(r ?? x) - e.string.targetA) + 1e-9);
+    }
+    expect(t.value.solutions).toHaveLength(d.spec.states.length);
+  });
+});

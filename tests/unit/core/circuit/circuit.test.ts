@@ -1,0 +1,89 @@
+import { describe, expect, it } from "vitest";
+import { buildCircuit, emitterOhmsOf, lineNode } from "../../../../src/core/circuit/circuit.ts";
+import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
+import { countParts } from "../../../../src/core/papers/parts.ts";
+import { directDesign, sharedDieRoller } from "../../../support/budgetFixtures.ts";
+import { showing } from "../../../support/projects.ts";
+
+describe("buildCircuit", () => {
+  it("drives the active counter line high and the others low, each behind its source resistance", () => {
+    const d = sharedDieRoller();
+    const c = buildCircuit(d.spec, d.matrix, d.project.electrical, 3);
+    const sources = c.elements.filter((e) => e.kind === "vsource" && /^VS\d+$/.test(e.name));
+    expect(sources.map((s) => (s.kind === "vsource" ? s.volts : NaN))).toEqual([0, 0, 0, 2.4, 0, 0]);
+    const rs = c.elements.filter((e) => e.kind === "resistor" && e.role === "counter");
+    expect(rs).toHaveLength(6);
+    expect(rs.every((r) => r.kind === "resistor" && r.ohms === 1000)).toBe(true);
+    expect(c.state).toBe("S3");
+  });
+
+  it("follows the matrix: anode = from, cathode = to, buses and links included", () => {
+    const d = sharedDieRoller();
+    const c = buildCircuit(d.spec, d.matrix, d.project.electrical, 0);
+    const diodes = c.elements.filter((e) => e.kind === "diode");
+    expect(diodes).toHaveLength(d.matrix.count);
+    const outs = new Set(d.matrix.outputs);
+    for (const m of d.matrix.diodes) {
+      const el = diodes.find((e) => e.name === m.ref);
+      expect(el && el.kind === "diode" && [el.anode, el.cathode]).toEqual([lineNode(m.from, outs), lineNode(m.to, outs)]);
+    }
+    expect(c.nodes).toContain("b1");
+    expect(diodes.some((e) => e.kind === "diode" && e.anode === "o1tl" && e.cathode === "o1br")).toBe(true);
+  });
+
+  it("gives every driven output a pull-down, NPN, emitter resistor and string; tied-on ones a base resistor from the high level", () => {
+    // " 1" / "12": 2b is lit in both states, so tied on; the rest of "1" and "2" is driven.
+    const p = showing([" 1", "12"], 2);
+    const d = directDesign("tied", p);
+    const c = buildCircuit(d.spec, d.matrix, p.electrical, 0);
+    expect(d.spec.tiedOn).toEqual(["2b"]);
+    const tie = c.elements.find((e) => e.kind === "resistor" && e.role === "tie-on");
+    expect(tie && tie.kind === "resistor" && [tie.a, tie.b, tie.ohms]).toEqual(["vhi", "o2b", 1000]);
+    const vhi = c.elements.find((e) => e.name === "VHI");
+    expect(vhi && vhi.kind === "vsource" && vhi.volts).toBe(2.4);
+    const driven = [...d.spec.outputs, ...d.spec.tiedOn];
+    expect(c.drivers.map((x) => x.output)).toEqual(d.spec.allOutputs.filter((o) => driven.includes(o)));
+    expect(c.drivers.find((x) => x.output === "2b")?.tiedOn).toBe(true);
+    for (const dr of c.drivers) {
+      const q = c.elements.find((e) => e.name === dr.transistor);
+      expect(q && q.kind === "npn" && [q.collector, q.base, q.emitter]).toEqual([dr.collectorNode, dr.baseNode, dr.emitterNode]);
+      const s = c.elements.find((e) => e.name === dr.display);
+      expect(s && s.kind === "string" && [s.anode, s.cathode, s.dies]).toEqual(["vsup", dr.collectorNode, 19]);
+      expect(c.elements.some((e) => e.kind === "resistor" && e.role === "pull-down" && e.a === dr.baseNode)).toBe(true);
+    }
+    // Never-lit outputs have no driver.
+    for (const o of d.spec.neverLit) expect(c.nodes).not.toContain(`o${o}`);
+  });
+
+  it("names parts as the parts count does", () => {
+    const p = showing([" 1", "12"], 2);
+    const d = directDesign("tied", p);
+    const c = buildCircuit(d.spec, d.matrix, p.electrical, 1);
+    const groups = countParts(p, compileSpec(p), d.matrix);
+    const names = new Set(c.elements.map((e) => e.name));
+    for (const g of groups) {
+      if (
+        g.kind === "display" ||
+        g.kind === "transistor" ||
+        g.kind === "emitter-resistor" ||
+        g.kind === "pull-down" ||
+        g.kind === "tie-on-resistor" ||
+        g.kind === "diode"
+      ) {
+        for (const r of g.refs) expect(names.has(r), `${g.kind} ${r}`).toBe(true);
+      }
+    }
+  });
+
+  it("takes emitter resistors from a trim, then the project's overrides, then the default", () => {
+    const p = showing(["1", "7"], 1, { electrical: { driver: { emitterResistors: { "1a": 8200 } } } });
+    expect(emitterOhmsOf(p.electrical, "1a")).toBe(8200);
+    expect(emitterOhmsOf(p.electrical, "1b")).toBe(10_000);
+    expect(emitterOhmsOf(p.electrical, "1a", new Map([["1a", 9100]]))).toBe(9100);
+  });
+
+  it("rejects a state outside the counter", () => {
+    const d = sharedDieRoller();
+    expect(() => buildCircuit(d.spec, d.matrix, d.project.electrical, 6)).toThrow(RangeError);
+  });
+});

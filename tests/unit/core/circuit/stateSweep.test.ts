@@ -1,0 +1,32 @@
+import { describe, expect, it } from "vitest";
+import { isLit, solveAllStates, stringCurrents } from "../../../../src/core/circuit/stateSweep.ts";
+import { directDesign } from "../../../support/budgetFixtures.ts";
+import { showing } from "../../../support/projects.ts";
+
+describe("solveAllStates", () => {
+  it("solves one circuit per state, in order, lighting exactly the lit strings", () => {
+    const d = directDesign("1 7 8", showing(["1", "7", "8"]));
+    const r = solveAllStates(d.spec, d.matrix, d.project.electrical, "nominal");
+    if (!r.ok) throw new Error(r.error.message);
+    expect(r.value.map((s) => s.circuit.state)).toEqual(["S0", "S1", "S2"]);
+    r.value.forEach((s, k) => {
+      for (const [o, i] of stringCurrents(s)) {
+        if (isLit(d.spec, k, o)) expect(i).toBeGreaterThan(100e-6);
+        else expect(i).toBeLessThan(1e-9);
+      }
+    });
+    expect(isLit(d.spec, 0, "1b")).toBe(true);
+    expect(isLit(d.spec, 0, "1a")).toBe(false);
+  });
+
+  it("names the solve and the state when a circuit fails", () => {
+    // A 1e-300 ohm counter resistance passes the schema (> 0) but its 1e300 S swamps every other
+    // conductance in double precision, so no method converges: the sweep must say so, not guess.
+    const d = directDesign("extreme", showing(["1", "7"], 1, { electrical: { counterOutput: { resistance: 1e-300 } } }));
+    const r = solveAllStates(d.spec, d.matrix, d.project.electrical, "nominal");
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.error.kind).toBe("no-convergence");
+    expect(r.error.message).toMatch(/^nominal: .*state S\d/);
+  });
+});

@@ -1,0 +1,47 @@
+import { describe, expect, it } from "vitest";
+import { circuitNetlist, spiceNetlist, stringDieNode } from "../../../../src/core/papers/netlist.ts";
+import { buildCircuit } from "../../../../src/core/circuit/circuit.ts";
+import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
+
+describe("spiceNetlist", () => {
+  const d = sharedDieRoller();
+  const deck = spiceNetlist(d.project, d.spec, d.matrix, 2);
+  const lines = deck.trimEnd().split("\n");
+
+  it("is a standard deck: title comment, .model cards, elements, .op, .end", () => {
+    expect(lines[0]).toMatch(/^\* Die roller.*state S2 active$/);
+    expect(lines.filter((l) => l.startsWith(".model"))).toEqual([
+      ".model DMTX D (IS=4e-9 N=1.9 RS=0)",
+      ".model QDRV NPN (IS=1e-14 BF=150 BR=3)",
+      ".model DLED D (IS=1e-27 N=2)",
+    ]);
+    expect(lines.slice(-2)).toEqual([".op", ".end"]);
+    expect(lines).toContain(".temp 27");
+    expect(lines).toContain("VS2 s2_v 0 DC 2.4");
+    expect(lines).toContain("VS0 s0_v 0 DC 0");
+  });
+
+  it("writes each string die by die from the supply to the collector", () => {
+    const dies = lines.filter((l) => l.startsWith("DDS1_"));
+    expect(dies).toHaveLength(19);
+    expect(dies[0]).toBe(`DDS1_1 vsup ${stringDieNode("c1tl", 1)} DLED`);
+    expect(dies[18]).toBe(`DDS1_19 ${stringDieNode("c1tl", 18)} c1tl DLED`);
+  });
+
+  it("has one element per matrix diode, unique names and no unit suffixes", () => {
+    for (const m of d.matrix.diodes) expect(lines.some((l) => l.startsWith(`${m.ref} `))).toBe(true);
+    const names = lines.filter((l) => /^[A-Z]/.test(l)).map((l) => l.split(" ")[0]);
+    expect(new Set(names).size).toBe(names.length);
+    for (const l of lines.filter((x) => /^R/.test(x))) expect(l).toMatch(/ \d+(\.\d+)?(e[+-]?\d+)?$/);
+  });
+
+  it("gives distinct parameter sets their own model cards", () => {
+    const c = buildCircuit(d.spec, d.matrix, d.project.electrical, 0);
+    const odd = { ...c, elements: c.elements.map((e) => (e.kind === "diode" && e.name === "D1" ? { ...e, isA: 1e-8 } : e)) };
+    const text = circuitNetlist(odd, "t");
+    expect(text).toContain(".model DMTX D (IS=1e-8 N=1.9 RS=0)");
+    expect(text).toContain(".model DMTX2 D (IS=4e-9 N=1.9 RS=0)");
+    expect(text).toMatch(/^D1 .* DMTX$/m);
+    expect(text).toMatch(/^D2 .* DMTX2$/m);
+  });
+});

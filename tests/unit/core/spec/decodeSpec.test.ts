@@ -1,0 +1,35 @@
+import { describe, expect, it } from "vitest";
+import { compileSpec, litCellCount } from "../../../../src/core/spec/decodeSpec.ts";
+import { example, makeProject, showing } from "../../../support/projects.ts";
+
+describe("compileSpec", () => {
+  it("names states S0.. and outputs <position><segment>", () => {
+    const spec = compileSpec(showing([" 1", "12"], 2));
+    expect(spec.states).toEqual(["S0", "S1"]);
+    expect(spec.allOutputs.slice(0, 3)).toEqual(["1a", "1b", "1c"]);
+    expect(spec.allOutputs).toHaveLength(14);
+  });
+
+  it("leaves out outputs never lit and ties on outputs lit in every state", () => {
+    // " 1" and "12": 1b and 1c are lit only in S1; 2b is lit in both (1: bc, 2: abdeg).
+    const spec = compileSpec(showing([" 1", "12"], 2));
+    expect(spec.tiedOn).toEqual(["2b"]);
+    expect(spec.outputs).toEqual(["1b", "1c", "2a", "2c", "2d", "2e", "2g"]);
+    expect(spec.neverLit).toEqual(["1a", "1d", "1e", "1f", "1g", "2f"]);
+    expect(spec.lit[0]).toEqual([false, false, false, true, false, false, false]);
+    expect(spec.lit[1]).toEqual([true, true, true, false, true, true, true]);
+  });
+
+  it("lights the decimal point of a seg7dp position", () => {
+    const p = makeProject({ counter: { states: 2 }, display: { positions: 1, cell: "seg7dp" }, show: ["1.", "1"] });
+    const spec = compileSpec(p);
+    expect(spec.outputs).toEqual(["1dp"]);
+    expect(spec.tiedOn).toEqual(["1b", "1c"]);
+  });
+
+  it("compiles the die roller on its custom cell", () => {
+    const spec = compileSpec(example("die-roller"));
+    expect(spec.outputs).toEqual(["1tl", "1tr", "1ml", "1c", "1mr", "1bl", "1br"]);
+    expect(litCellCount(spec)).toBe(1 + 2 + 3 + 4 + 5 + 6);
+  });
+});

@@ -1,0 +1,67 @@
+import { describe, expect, it } from "vitest";
+import { validateProject } from "../../../../src/core/project/projectSchema.ts";
+import { draftFromProject, type Draft } from "../../../../src/ui/state/draft.ts";
+import {
+  charactersShown,
+  effectiveGlyphs,
+  setCell,
+  setCustomSegments,
+  setPositions,
+  setStates,
+  setText,
+  setTexts,
+  toggleSegment,
+} from "../../../../src/ui/state/draftEdits.ts";
+import { example, showing } from "../../../support/projects.ts";
+
+const valid = (d: Draft) => {
+  const r = validateProject(d);
+  if (!r.ok) throw new Error(JSON.stringify(r.error));
+  return r.value;
+};
+
+describe("draft edits", () => {
+  const hex = draftFromProject(example("relay-hex-monitor"));
+
+  it("sets one text without touching the others", () => {
+    const d = setText(hex, 3, "8");
+    expect(d.show[3]).toBe("8");
+    expect(hex.show[3]).toBe("3");
+    expect(valid(d).show[3]).toBe("8");
+    expect(() => setText(hex, 16, "1")).toThrow(RangeError);
+  });
+  it("grows and shrinks the state count with the texts", () => {
+    expect(valid(setStates(hex, 18)).show.slice(16)).toEqual([" ", " "]);
+    expect(valid(setStates(hex, 10)).show).toHaveLength(10);
+    expect(setStates(hex, 1).counter.states).toBe(2);
+  });
+  it("pads texts on the left when positions grow, and cuts from the left when they shrink", () => {
+    const two = setPositions(hex, 2);
+    expect(valid(two).show[10]).toBe(" A");
+    expect(valid(setPositions(two, 1)).show[10]).toBe("A");
+  });
+  it("toggles a segment into an override and back out", () => {
+    const d = toggleSegment(hex, "7", "f");
+    expect(d.glyphs["7"]).toEqual(["a", "b", "c", "f"]);
+    expect(valid(d).glyphs["7"]).toEqual(["a", "b", "c", "f"]);
+    const back = toggleSegment(d, "7", "f");
+    expect(back.glyphs["7"]).toBeUndefined();
+  });
+  it("switches to a custom cell keeping the shapes in use", () => {
+    const d = setCell(hex, "custom");
+    const p = valid(d);
+    expect(p.display.cell.kind).toBe("custom");
+    expect(p.glyphs["8"]).toEqual(["a", "b", "c", "d", "e", "f", "g"]);
+    const fewer = setCustomSegments(d, ["a", "b", "c", "d"]);
+    expect(valid(fewer).glyphs["8"]).toEqual(["a", "b", "c", "d"]);
+    expect(valid(setCell(d, "seg7")).display.cell.kind).toBe("seg7");
+  });
+  it("lists the characters shown, blank excluded", () => {
+    const d = draftFromProject(showing([" 1", "12", " 1."], 2, { display: { positions: 2, cell: "seg7dp" } }));
+    expect(charactersShown(d)).toEqual(["1", "2"]);
+    expect(effectiveGlyphs(d)["1"]).toEqual(["b", "c"]);
+  });
+  it("replaces all texts and the state count", () => {
+    expect(valid(setTexts(hex, ["0", "1", "2"])).counter.states).toBe(3);
+  });
+});
