@@ -82,7 +82,7 @@ export async function runSynthBench(log: (line: string) => void): Promise<void> 
       const spec = compileSpec(project);
       const settings = synthSettings(project);
       const p = sharingProblem(spec);
-      const rules = { maxDepth: settings.maxDepth, depth, buses: settings.buses, links: settings.links };
+      const rules = { depthLimit: settings.depthLimit, policy: depth, buses: settings.buses, links: settings.links };
       let heur = 0;
       const heurMs = timeMs(() => void (heur = planCount(heuristicPlan(p, rules))), 5);
       const t0 = performance.now();
@@ -124,7 +124,10 @@ export async function runSynthBench(log: (line: string) => void): Promise<void> 
     const spec = compileSpec(benchProject(c, "per-segment"));
     const p = sharingProblem(spec);
     let heur = 0;
-    const ms = timeMs(() => void (heur = planCount(heuristicPlan(p, { maxDepth: 2, depth: "per-segment", buses: true, links: true }))), 5);
+    const ms = timeMs(
+      () => void (heur = planCount(heuristicPlan(p, { depthLimit: 2, policy: "per-segment", buses: true, links: true }))),
+      5,
+    );
     log(row([n, litCellCount(spec), heur, ms.toFixed(1)], gw));
   }
 }

@@ -31,7 +31,7 @@ export function settingsFromArgs(project: Project, args: ParsedArgs, io: CliIo):
   if (args.flags.has("fast")) overrides.mode = "fast";
   const depthK = intOption(args, "max-depth", 1, 3);
   if (!depthK.ok) return void io.err(depthK.message + "\n");
-  if (depthK.value !== undefined) overrides.maxDepth = depthK.value;
+  if (depthK.value !== undefined) overrides.depthLimit = depthK.value;
   const limit = intOption(args, "time-limit", 1, 3_600_000);
   if (!limit.ok) return void io.err(limit.message + "\n");
   if (limit.value !== undefined) overrides.timeLimitMs = limit.value;
@@ -40,7 +40,7 @@ export function settingsFromArgs(project: Project, args: ParsedArgs, io: CliIo):
     if (policy !== "mixed" && policy !== "per-segment" && policy !== "uniform") {
       return void io.err(`--depth must be mixed, per-segment or uniform (got "${policy}")\n`);
     }
-    overrides.depth = policy;
+    overrides.policy = policy;
   }
   return synthSettings(project, overrides);
 }

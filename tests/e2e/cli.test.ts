@@ -31,14 +31,26 @@ describe("diodeloom command", () => {
     expect(h.stdout).toMatch(/synth/);
   });
 
-  it.each(EXAMPLES)("gives a verified matrix for %s as diodeloom/matrix@1 JSON", async (name) => {
+  it.each(EXAMPLES)("gives a verified matrix for %s as diodeloom/matrix@2 JSON", async (name) => {
     const r = await run(["synth", `public/examples/${name}.json`, "--json", "--direct"]);
     expect(r.stderr).toBe("");
     expect(r.code).toBe(0);
     const m = JSON.parse(r.stdout) as Record<string, unknown>;
-    expect(m["schema"]).toBe("diodeloom/matrix@1");
+    expect(m["schema"]).toBe("diodeloom/matrix@2");
     expect(m["verified"]).toBe(true);
-    for (const key of ["states", "outputs", "buses", "diodes", "tiedOn", "count", "lowerBound", "optimal", "maxDepth"])
+    for (const key of [
+      "states",
+      "outputs",
+      "buses",
+      "diodes",
+      "tiedOn",
+      "count",
+      "lowerBound",
+      "optimal",
+      "longestPath",
+      "depthLimit",
+      "policy",
+    ])
       expect(m).toHaveProperty(key);
     const diodes = m["diodes"] as { ref: string; from: string; to: string }[];
     expect(diodes.length).toBe(m["count"]);

@@ -23,7 +23,7 @@ describe("direct synthesis on random projects (fast-check seed 20261201)", () =>
         const spec = compileSpec(parsed.value);
         for (const depth of ["mixed", "per-segment", "uniform"] as const) {
           const m = synthesizeDirect(spec, 1, depth);
-          const v = verifyMatrix(spec, m, { maxDepth: 1, depth });
+          const v = verifyMatrix(spec, m, { depthLimit: 1, policy: depth });
           expect(v.ok ? [] : v.error).toEqual([]);
           expect(m.count).toBe(litCellCount(spec));
         }

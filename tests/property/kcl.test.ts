@@ -184,8 +184,8 @@ describe("Kirchhoff's current law", () => {
       fc.property(projectArb, ({ project, pick, link }) => {
         const spec = compileSpec(project);
         const edges = sharedEdges(spec, pick, link);
-        const m = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: 2, depth: "mixed", method: "heuristic" });
-        const v = verifyMatrix(spec, m, { maxDepth: 2, depth: "mixed" });
+        const m = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: 2, policy: "mixed", method: "heuristic" });
+        const v = verifyMatrix(spec, m, { depthLimit: 2, policy: "mixed" });
         expect(v.ok, v.ok ? "" : v.error.join("; ")).toBe(true);
         if (!v.ok) return;
         if (v.value.buses.length > 0) seen.buses++;

@@ -82,7 +82,7 @@ describe(`drawing text on random projects (fast-check seed ${SEED})`, () => {
           lowerBound: null,
           optimal: false,
           depthLimit: 3,
-          depth: "mixed",
+          policy: "mixed",
           method: "heuristic",
         });
         const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project, { paper }));

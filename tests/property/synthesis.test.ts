@@ -17,7 +17,7 @@ const SEED = 20261201;
 const POLICIES: readonly DepthPolicy[] = ["mixed", "per-segment", "uniform"];
 
 function settings(mode: SynthMode, maxDepth: number, depth: DepthPolicy, timeLimitMs = 3000): SynthSettings {
-  return { mode, maxDepth, depth, buses: true, links: true, timeLimitMs, seed: 1 };
+  return { mode, depthLimit: maxDepth, policy: depth, buses: true, links: true, timeLimitMs, seed: 1 };
 }
 
 /** Random lit matrices; `density` is the chance of a lit cell, in quarters (2 = one half). */
@@ -52,7 +52,7 @@ async function checkInvariants(lit: boolean[][], mode: SynthMode, maxDepth: numb
   expect(r.ok).toBe(true);
   if (!r.ok) return;
   const m = r.value;
-  expect(verifyMatrix(spec, m, { maxDepth, depth }).ok).toBe(true);
+  expect(verifyMatrix(spec, m, { depthLimit: maxDepth, policy: depth }).ok).toBe(true);
   expect(m.count).toBeLessThanOrEqual(litCellCount(spec));
   if (m.lowerBound !== null) expect(m.lowerBound).toBeLessThanOrEqual(m.count);
   const lengths = pathLengths(spec, m.diodes);
@@ -203,7 +203,7 @@ describe("exact optimum against brute force (4 x 4 and smaller, depth 2, seed 20
         const highs = await defaultHighsLoader();
         const lp = lpLowerBound(
           problemFromLit(spec.lit),
-          { depth, links: true, buses: true },
+          { policy: depth, links: true, buses: true },
           {
             solveLp: (text) => highs.createModel({ format: "lp", data: text }),
             timeLimitMs: 2000,

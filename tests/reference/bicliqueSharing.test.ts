@@ -9,7 +9,7 @@ import { litRows, specFromLit } from "../support/litSpec.ts";
 
 // Links off: identical columns could otherwise share through output-to-output
 // links, which the cited arithmetic does not count.
-const BUSES_ONLY: SynthSettings = { mode: "exact", maxDepth: 2, depth: "mixed", buses: true, links: false, timeLimitMs: 5000, seed: 1 };
+const BUSES_ONLY: SynthSettings = { mode: "exact", depthLimit: 2, policy: "mixed", buses: true, links: false, timeLimitMs: 5000, seed: 1 };
 
 /** An r-by-c all-ones block plus one blank state, so no output is lit in every state (tied on). */
 function block(r: number, c: number): boolean[][] {

@@ -18,8 +18,8 @@ export interface Design {
 }
 
 function verified(spec: DecodeSpec, edges: readonly Edge[], maxDepth: number, depth: "mixed" | "per-segment"): VerifiedMatrix {
-  const m = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: maxDepth, depth, method: "heuristic" });
-  const v = verifyMatrix(spec, m, { maxDepth, depth });
+  const m = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: maxDepth, policy: depth, method: "heuristic" });
+  const v = verifyMatrix(spec, m, { depthLimit: maxDepth, policy: depth });
   if (!v.ok) throw new Error(`bad fixture matrix: ${v.error.join("; ")}`);
   return v.value;
 }
@@ -27,7 +27,7 @@ function verified(spec: DecodeSpec, edges: readonly Edge[], maxDepth: number, de
 /** One diode per lit cell. */
 export function directDesign(name: string, project: Project): Design {
   const spec = compileSpec(project);
-  const m = synthesizeDirect(spec, project.synthesis.maxDepth, project.synthesis.depth);
+  const m = synthesizeDirect(spec, project.synthesis.depthLimit, project.synthesis.policy);
   const v = verifyMatrix(spec, m, project.synthesis);
   if (!v.ok) throw new Error(`direct matrix rejected: ${v.error.join("; ")}`);
   return { name, project, spec, matrix: v.value };

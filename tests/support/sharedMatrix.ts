@@ -26,8 +26,8 @@ export function dieRollerShared(): { project: Project; spec: DecodeSpec; matrix:
     { from: "S5", to: "1ml" },
     { from: "1ml", to: "1mr" },
   ];
-  const matrix = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: 2, depth: "mixed", method: "heuristic" });
-  const v = verifyMatrix(spec, matrix, { maxDepth: 2, depth: "mixed" });
+  const matrix = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: 2, policy: "mixed", method: "heuristic" });
+  const v = verifyMatrix(spec, matrix, { depthLimit: 2, policy: "mixed" });
   if (!v.ok) throw new Error(`fixture matrix is wrong: ${v.error.join("; ")}`);
   return { project, spec, matrix: v.value };
 }
@@ -36,5 +36,5 @@ export function dieRollerShared(): { project: Project; spec: DecodeSpec; matrix:
 export function directExample(name: string): { project: Project; spec: DecodeSpec; matrix: DiodeMatrix } {
   const project = example(name);
   const spec = compileSpec(project);
-  return { project, spec, matrix: synthesizeDirect(spec, project.synthesis.maxDepth, project.synthesis.depth) };
+  return { project, spec, matrix: synthesizeDirect(spec, project.synthesis.depthLimit, project.synthesis.policy) };
 }

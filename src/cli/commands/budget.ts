@@ -57,7 +57,7 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
   L.push(project.title);
   L.push(
     `DC budget at ${e.temperatureC} °C: supply ${e.supply.volts} V (${e.supply.minVolts}-${e.supply.maxVolts} V), ` +
-      `strings of ${e.string.dies} dies, target ${uA(e.string.targetA)} µA; ${m.method} matrix, ${m.count} diodes, longest path ${m.maxDepth}`,
+      `strings of ${e.string.dies} dies, target ${uA(e.string.targetA)} µA; ${m.method} matrix, ${m.count} diodes, longest path ${m.longestPath}`,
   );
   L.push("");
   if (b.warnings.length > 0) {

@@ -27,14 +27,14 @@ export const compareCommand: Command = {
       io.out(JSON.stringify({ schema: COMPARE_SCHEMA, rows }, null, 2) + "\n");
       return EXIT.ok;
     }
-    io.out(describeRows(project.title, rows, settings.depth, settings.maxDepth));
+    io.out(describeRows(project.title, rows, settings.policy, settings.depthLimit));
     return EXIT.ok;
   },
 };
 
 /** The readable report: one block per combination, best first, with the glyphs drawn. */
-export function describeRows(title: string, rows: readonly GlyphStyleRow[], depth: string, maxDepth: number): string {
-  const lines = [title, `Glyph styles by smallest verified matrix (depth limit ${maxDepth}, ${depth})`, ""];
+export function describeRows(title: string, rows: readonly GlyphStyleRow[], policy: string, depthLimit: number): string {
+  const lines = [title, `Glyph styles by smallest verified matrix (depth limit ${depthLimit}, ${policy})`, ""];
   if (rows.length === 1 && Object.keys(rows[0]?.glyphs ?? {}).length === 0) {
     lines.push("The project shows no character with a built-in variant (6, 7, 9); nothing to compare.");
   }

@@ -13,7 +13,7 @@ export const synthCommand: Command = {
   usage: USAGE,
   summary: "find the smallest verified diode matrix for a project",
   options: {
-    json: { help: "print the matrix as diodeloom/matrix@1 JSON" },
+    json: { help: "print the matrix as diodeloom/matrix@2 JSON" },
     ...SYNTH_OPTIONS,
   },
   async run(args, io) {
@@ -46,7 +46,9 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
     : m.lowerBound !== null
       ? `lower bound ${m.lowerBound}, gap ${m.count - m.lowerBound}`
       : "no lower bound";
-  lines.push(`Method: ${METHOD_TEXT[m.method]}; verified; depth limit ${m.depthLimit} (${m.depth}), longest path ${m.maxDepth}; ${bound}`);
+  lines.push(
+    `Method: ${METHOD_TEXT[m.method]}; verified; depth limit ${m.depthLimit} (${m.policy}), longest path ${m.longestPath}; ${bound}`,
+  );
   lines.push("");
 
   const fromOf = new Map<string, string[]>();

@@ -51,7 +51,7 @@ export interface Resistor {
 }
 
 /** A matrix diode. */
-export interface Diode {
+export interface CircuitDiode {
   readonly kind: "diode";
   readonly name: string;
   readonly anode: string;
@@ -92,7 +92,7 @@ export interface Npn {
   readonly betaR: number;
 }
 
-export type CircuitElement = VoltageSource | Resistor | Diode | LedString | Npn;
+export type CircuitElement = VoltageSource | Resistor | CircuitDiode | LedString | Npn;
 
 /** The parts of one output's driver stage. */
 export interface DriverStage {

@@ -74,7 +74,7 @@ export async function compareGlyphStyles(
     const glyphs: Record<string, readonly string[]> = { ...project.glyphs };
     for (const [ch, lit] of Object.entries(combo)) glyphs[ch] = segmentsOfString(lit);
     const spec = compileSpec({ ...project, glyphs });
-    const settings = base.maxDepth === 2 && spec.outputs.length <= SEARCH_MAX_OUTPUTS ? base : shared;
+    const settings = base.depthLimit === 2 && spec.outputs.length <= SEARCH_MAX_OUTPUTS ? base : shared;
     const r = await synthesize(spec, settings, hooks);
     if (!r.ok) return r;
     rows.push({ glyphs: combo, count: r.value.count, lowerBound: r.value.lowerBound, optimal: r.value.optimal });

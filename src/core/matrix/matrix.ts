@@ -5,7 +5,7 @@
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DepthPolicy } from "../project/project.ts";
 
-export const MATRIX_SCHEMA = "diodeloom/matrix@1";
+export const MATRIX_SCHEMA = "diodeloom/matrix@2";
 
 export interface Diode {
   /** Reference designator, `D1`.. in assembly order. */
@@ -31,10 +31,10 @@ export interface DiodeMatrix {
   /** True when `count` is proven minimal under the limit and policy. */
   readonly optimal: boolean;
   /** Longest path in this matrix, in diodes. */
-  readonly maxDepth: number;
+  readonly longestPath: number;
   /** The depth limit it was built under. */
   readonly depthLimit: number;
-  readonly depth: DepthPolicy;
+  readonly policy: DepthPolicy;
   readonly method: SynthesisMethod;
 }
 
@@ -50,7 +50,7 @@ export interface MatrixMeta {
   readonly lowerBound: number | null;
   readonly optimal: boolean;
   readonly depthLimit: number;
-  readonly depth: DepthPolicy;
+  readonly policy: DepthPolicy;
   readonly method: SynthesisMethod;
 }
 
@@ -97,9 +97,9 @@ export function buildMatrix(spec: DecodeSpec, edges: readonly Edge[], meta: Matr
     count: diodes.length,
     lowerBound: meta.lowerBound,
     optimal: meta.optimal,
-    maxDepth: longestPath(diodes, new Set(spec.states)),
+    longestPath: longestPath(diodes, new Set(spec.states)),
     depthLimit: meta.depthLimit,
-    depth: meta.depth,
+    policy: meta.policy,
     method: meta.method,
   };
 }

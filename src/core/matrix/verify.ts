@@ -14,8 +14,8 @@ import type { DepthPolicy } from "../project/project.ts";
 import { fail, ok, type Result } from "../result/result.ts";
 
 export interface VerifyLimits {
-  readonly maxDepth: number;
-  readonly depth: DepthPolicy;
+  readonly depthLimit: number;
+  readonly policy: DepthPolicy;
 }
 
 /**
@@ -93,11 +93,11 @@ export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLim
     const ls = [...Array(31).keys()].filter((l) => bits & (1 << l));
     ls.forEach((l) => all.add(l));
     const longest = Math.max(0, ...ls);
-    if (longest > limits.maxDepth) say(`output ${o} is reached through ${longest} diodes, over the limit of ${limits.maxDepth}`);
-    if (limits.depth === "per-segment" && ls.length > 1)
+    if (longest > limits.depthLimit) say(`output ${o} is reached through ${longest} diodes, over the limit of ${limits.depthLimit}`);
+    if (limits.policy === "per-segment" && ls.length > 1)
       say(`output ${o} is reached through paths of ${ls.join(" and ")} diodes; the per-segment policy wants one length`);
   }
-  if (limits.depth === "uniform" && all.size > 1)
+  if (limits.policy === "uniform" && all.size > 1)
     say(`paths have ${[...all].sort().join(", ")} diodes; the uniform policy wants one length`);
 
   // Exactness: per state, the reachable outputs equal the lit ones.
@@ -120,7 +120,7 @@ export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLim
     if (extra.length > 0) say(`state ${s} ("${spec.texts[k]}") also lights ${extra.join(", ")} through a sneak path`);
   });
 
-  if (m.maxDepth !== Math.max(0, ...[...all])) say(`maxDepth ${m.maxDepth} differs from the longest path ${Math.max(0, ...all)}`);
+  if (m.longestPath !== Math.max(0, ...[...all])) say(`longestPath ${m.longestPath} differs from the longest path ${Math.max(0, ...all)}`);
   if (m.lowerBound !== null && m.lowerBound > m.count) say(`lower bound ${m.lowerBound} exceeds the count ${m.count}`);
   if (m.optimal && m.lowerBound !== m.count) say("marked optimal but the lower bound does not equal the count");
   return errors.length > 0 ? fail(errors) : ok({ ...m, verified: true as const });

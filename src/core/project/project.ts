@@ -19,8 +19,8 @@ export interface Cell {
 
 export interface SynthesisOptions {
   /** Most diodes on any path from a counter line to an output line (1-3). */
-  readonly maxDepth: number;
-  readonly depth: DepthPolicy;
+  readonly depthLimit: number;
+  readonly policy: DepthPolicy;
   /** May the optimizer add shared bus nodes? */
   readonly buses: boolean;
   /** May the optimizer add output-to-output links? */
@@ -28,6 +28,16 @@ export interface SynthesisOptions {
   /** Wall-clock limit for the exact optimizer, milliseconds. */
   readonly timeLimitMs: number;
   /** Seed for any randomised step, so a run can be repeated. */
+  readonly seed: number;
+}
+
+/** The synthesis options as the project file spells them. */
+export interface SynthesisFields {
+  readonly maxDepth: number;
+  readonly depth: DepthPolicy;
+  readonly buses: boolean;
+  readonly links: boolean;
+  readonly timeLimitMs: number;
   readonly seed: number;
 }
 

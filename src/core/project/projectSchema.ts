@@ -7,7 +7,7 @@
  */
 import * as v from "valibot";
 import { builtinCell, builtinGlyphs, segmentsOfString } from "../glyphs/glyphs.ts";
-import type { Cell, ElectricalModel, Project } from "./project.ts";
+import type { Cell, ElectricalModel, Project, SynthesisFields, SynthesisOptions } from "./project.ts";
 import { PROJECT_SCHEMA } from "./project.ts";
 import { fail, ok, type Problem, type Result } from "../result/result.ts";
 import { shockleyVoltage, thermalVoltage } from "../circuit/physics.ts";
@@ -173,6 +173,11 @@ const SynthesisSchema = strict({
   seed: v.optional(num({ min: 0, max: 2 ** 31 - 1, integer: true }), 1),
 });
 
+/** The file keeps `maxDepth` and `depth`; in code they are the depth limit and the depth policy. */
+function synthesisOf(f: SynthesisFields): SynthesisOptions {
+  return { depthLimit: f.maxDepth, policy: f.depth, buses: f.buses, links: f.links, timeLimitMs: f.timeLimitMs, seed: f.seed };
+}
+
 const ProjectSchema = strict({
   schema: v.literal(PROJECT_SCHEMA, `must be "${PROJECT_SCHEMA}"`),
   title: v.optional(v.pipe(v.string("must be a string"), v.maxLength(200, "must be at most 200 characters")), "Untitled"),
@@ -309,7 +314,7 @@ function complete(p: LooseProject): Result<Project> {
     glyphs,
     glyphOverrides,
     show: [...p.show],
-    synthesis: { ...(p.synthesis as Project["synthesis"]) },
+    synthesis: synthesisOf(p.synthesis as SynthesisFields),
     electrical: e,
   };
   return ok(deepFreeze(project));

@@ -6,7 +6,12 @@
  * It round-trips: `parseProject(serializeProject(p))` gives a project equal
  * to `p`, and so the same decode spec and the same matrix.
  */
-import type { Project } from "./project.ts";
+import type { Project, SynthesisFields, SynthesisOptions } from "./project.ts";
+
+/** The synthesis options as the file spells them (`maxDepth` is the depth limit, `depth` the policy). */
+export function synthesisFields(s: SynthesisOptions): SynthesisFields {
+  return { maxDepth: s.depthLimit, depth: s.policy, buses: s.buses, links: s.links, timeLimitMs: s.timeLimitMs, seed: s.seed };
+}
 
 /**
  * @example
@@ -27,14 +32,7 @@ export function serializeProject(project: Project): string {
     },
     glyphs: Object.fromEntries(Object.entries(project.glyphOverrides).map(([ch, segs]) => [ch, [...segs]])),
     show: [...project.show],
-    synthesis: {
-      maxDepth: project.synthesis.maxDepth,
-      depth: project.synthesis.depth,
-      buses: project.synthesis.buses,
-      links: project.synthesis.links,
-      timeLimitMs: project.synthesis.timeLimitMs,
-      seed: project.synthesis.seed,
-    },
+    synthesis: synthesisFields(project.synthesis),
     electrical: {
       temperatureC: e.temperatureC,
       counterOutput: { ...e.counterOutput },

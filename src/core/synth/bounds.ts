@@ -63,7 +63,7 @@ export interface LpBoundOptions {
  */
 export function lpLowerBound(
   p: SharingProblem,
-  rules: { readonly depth: string; readonly links: boolean; readonly buses: boolean },
+  rules: { readonly policy: string; readonly links: boolean; readonly buses: boolean },
   opts: LpBoundOptions,
 ): { readonly bound: number | null; readonly shapes: readonly (readonly number[])[] } {
   const started = Date.now();
@@ -73,7 +73,7 @@ export function lpLowerBound(
   for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) cellRow[k * m + o] = rows++;
   if (rows === 0) return { bound: 0, shapes: [] };
   const links: [number, number][] = [];
-  if (rules.links && rules.depth !== "uniform") {
+  if (rules.links && rules.policy !== "uniform") {
     for (let a = 0; a < m; a++) for (let b = 0; b < m; b++) if (p.within[a]?.[b]) links.push([a, b]);
   }
   const patterns: { s: number[]; t: number[] }[] = [];

@@ -153,7 +153,7 @@ const PRIMAL_FEASIBLE = 2;
 export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: SharingPlan, opts: ExactOptions): Promise<ExactOutcome> {
   const started = Date.now();
   const warmShapes = warm.buses.filter((b) => b.states.length >= 2).map((b) => b.outputs);
-  const minOutputs = rules.depth === "mixed" ? 2 : 1;
+  const minOutputs = rules.policy === "mixed" ? 2 : 1;
   let family = candidateFamily(p, minOutputs, opts.familyLimits ?? DEFAULT_FAMILY_LIMITS, warmShapes);
   const floor = trivialLowerBound(p);
   const warmCount = planCount(warm);
@@ -166,7 +166,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   // generation, valid at depth 2), then solve the MILP over the bus shapes
   // the pricing found plus the heuristic's ("price and branch").
   let lpBound: number | null = null;
-  if (!family.complete && rules.maxDepth <= 2) {
+  if (!family.complete && rules.depthLimit <= 2) {
     try {
       const lpHighs = await opts.loadHighs();
       const lp = lpLowerBound(p, rules, {
@@ -190,7 +190,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     const s = searchPlan(p, rules, family, warmCount, { maxWork: budget.searchWork, deadlineMs });
     const found = s.plan === null ? warm : pickBetter(warm, breakTies(p, rules, s.plan));
     // Uniform: the search covers all-bus matrices; the all-direct one is the other choice.
-    const lb = rules.depth === "uniform" ? Math.min(litCount(p), s.lowerBound) : s.lowerBound;
+    const lb = rules.policy === "uniform" ? Math.min(litCount(p), s.lowerBound) : s.lowerBound;
     searchBound = Math.min(Math.max(floor, lb), planCount(found));
     if (s.proven) return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "optimal" };
     incumbent = found;
@@ -201,7 +201,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "time-limit" };
   }
   const model = buildSharingModel(p, rules, family);
-  const boundIsGlobal = family.complete && rules.maxDepth <= 2;
+  const boundIsGlobal = family.complete && rules.depthLimit <= 2;
   const base = { columns: model.columns.length, complete: family.complete };
 
   let highsModel: HighsModelLike | undefined;
@@ -254,7 +254,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     if (boundIsGlobal && Number.isFinite(dual)) {
       const milpBound = Math.ceil(dual - 1e-6);
       // Uniform: the model is the all-bus matrix; the all-direct one is the other choice.
-      lowerBound = Math.max(floor, rules.depth === "uniform" ? Math.min(litCount(p), milpBound) : milpBound);
+      lowerBound = Math.max(floor, rules.policy === "uniform" ? Math.min(litCount(p), milpBound) : milpBound);
     }
     if (lpBound !== null) lowerBound = Math.max(lowerBound, lpBound);
     if (searchBound !== null) lowerBound = Math.max(lowerBound, searchBound);
@@ -296,7 +296,7 @@ function tieRank(plan: SharingPlan): number {
  * direct diodes, one bus node and some long paths fewer.
  */
 function breakTies(p: SharingProblem, rules: SharingRules, plan: SharingPlan): SharingPlan {
-  if (rules.depth !== "mixed") return plan;
+  if (rules.policy !== "mixed") return plan;
   const direct: (readonly [number, number])[] = [...plan.direct];
   const have = new Set(direct.map(([k, o]) => k * p.m + o));
   const buses = plan.buses.filter((b) => {

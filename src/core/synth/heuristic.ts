@@ -13,15 +13,7 @@
  * Basis Problem"): candidate output sets are the rows and the pairwise row
  * intersections.
  */
-import {
-  levelRules,
-  planCount,
-  type PlanBus,
-  type PlanLink,
-  type SharingPlan,
-  type SharingProblem,
-  type SharingRules,
-} from "./plan.ts";
+import { levelRules, planCount, type PlanBus, type PlanLink, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
 
 /** Outer-search budget: most level assignments tried. Keeps big instances bounded. */
 const MAX_EVALUATIONS = 400;
@@ -36,10 +28,10 @@ const RECREATE_BUSES = 12;
  * starts, and it is valid under every policy.
  *
  * @example
- * const plan = heuristicPlan(problemFromLit(spec.lit), { maxDepth: 2, depth: "per-segment", buses: true, links: true });
+ * const plan = heuristicPlan(problemFromLit(spec.lit), { depthLimit: 2, policy: "per-segment", buses: true, links: true });
  */
 export function heuristicPlan(p: SharingProblem, rules: SharingRules): SharingPlan {
-  const maxLevel = Math.max(1, Math.min(rules.maxDepth, rules.buses || rules.links ? 3 : 1));
+  const maxLevel = Math.max(1, Math.min(rules.depthLimit, rules.buses || rules.links ? 3 : 1));
   const cands = busCandidates(p);
   const cache = new Map<string, SharingPlan | null>();
   let evaluations = 0;
@@ -55,7 +47,7 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules): SharingPl
   const better = (a: SharingPlan, b: SharingPlan | null): boolean => b === null || rank(a) < rank(b);
 
   const starts: number[][] = [Array(p.m).fill(1)];
-  if (rules.depth === "uniform") {
+  if (rules.policy === "uniform") {
     // One length for every path: all direct, or everything through buses.
     if (maxLevel >= 2 && rules.buses) starts.push(Array(p.m).fill(2));
   } else if (maxLevel >= 2) {
@@ -67,7 +59,7 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules): SharingPl
 
   // Few outputs: every level assignment is cheap to try, so the climb below
   // only refines from a global best.
-  if (rules.depth !== "uniform" && maxLevel >= 2 && Math.pow(maxLevel, p.m) <= EXHAUSTIVE_ASSIGNMENTS) {
+  if (rules.policy !== "uniform" && maxLevel >= 2 && Math.pow(maxLevel, p.m) <= EXHAUSTIVE_ASSIGNMENTS) {
     let bestAll: SharingPlan | null = null;
     let bestLevels: number[] | null = null;
     const levels = Array(p.m).fill(1) as number[];
@@ -91,7 +83,7 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules): SharingPl
     let levels = start;
     let current = evaluate(levels);
     if (current === null) continue;
-    if (rules.depth !== "uniform" && maxLevel >= 2) {
+    if (rules.policy !== "uniform" && maxLevel >= 2) {
       // First-improvement hill climb over single-output level changes.
       let improved = true;
       while (improved && evaluations < MAX_EVALUATIONS) {

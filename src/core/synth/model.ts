@@ -36,11 +36,11 @@ export interface SharingModel {
   warmStart(plan: SharingPlan): Map<string, number> | null;
 }
 
-/** Builds the model; `rules.maxDepth` must be 2 or 3 (depth 1 needs no model). */
+/** Builds the model; `rules.depthLimit` must be 2 or 3 (depth 1 needs no model). */
 export function buildSharingModel(p: SharingProblem, rules: SharingRules, family: CandidateFamily): SharingModel {
-  const L = Math.min(3, rules.maxDepth);
-  const mixed = rules.depth === "mixed";
-  const uniform = rules.depth === "uniform";
+  const L = Math.min(3, rules.depthLimit);
+  const mixed = rules.policy === "mixed";
+  const uniform = rules.policy === "uniform";
   const pads = !mixed && rules.buses;
   const buses = rules.buses ? family.buses : [];
   const linkPairs: PlanLink[] = [];

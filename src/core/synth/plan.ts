@@ -53,8 +53,8 @@ export interface SharingPlan {
 
 /** What the limits allow, filled out once. */
 export interface SharingRules {
-  readonly maxDepth: number;
-  readonly depth: DepthPolicy;
+  readonly depthLimit: number;
+  readonly policy: DepthPolicy;
   readonly buses: boolean;
   readonly links: boolean;
 }
@@ -129,16 +129,16 @@ export function planEdges(spec: DecodeSpec, plan: SharingPlan): Edge[] {
 export const levelRules = {
   /** May direct diodes feed an output at this level? */
   direct(rules: SharingRules, level: number): boolean {
-    return rules.depth === "mixed" || level === 1;
+    return rules.policy === "mixed" || level === 1;
   },
   /** May a bus (two diodes per path) feed an output at this level? */
   bus(rules: SharingRules, level: number): boolean {
     if (!rules.buses) return false;
-    return rules.depth === "mixed" ? level >= 2 : level === 2;
+    return rules.policy === "mixed" ? level >= 2 : level === 2;
   },
   /** May an output at `fromLevel` link into one at `toLevel`? */
   link(rules: SharingRules, fromLevel: number, toLevel: number): boolean {
-    if (!rules.links || rules.depth === "uniform") return false;
-    return rules.depth === "mixed" ? fromLevel < toLevel : fromLevel + 1 === toLevel;
+    if (!rules.links || rules.policy === "uniform") return false;
+    return rules.policy === "mixed" ? fromLevel < toLevel : fromLevel + 1 === toLevel;
   },
 };

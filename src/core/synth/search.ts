@@ -110,7 +110,7 @@ interface StateCover {
  * (Depth 3 needs chains the per-state cover does not model.)
  */
 export function searchApplies(p: SharingProblem, rules: SharingRules, family: CandidateFamily): boolean {
-  return rules.maxDepth === 2 && family.complete && p.m <= SEARCH_MAX_OUTPUTS;
+  return rules.depthLimit === 2 && family.complete && p.m <= SEARCH_MAX_OUTPUTS;
 }
 
 /**
@@ -127,8 +127,8 @@ export function searchPlan(
 ): SearchOutcome {
   const m = p.m;
   const full = (1 << m) - 1;
-  const mixed = rules.depth === "mixed";
-  const uniform = rules.depth === "uniform";
+  const mixed = rules.policy === "mixed";
+  const uniform = rules.policy === "uniform";
   const pads = !mixed && rules.buses;
   const rowMask = p.row.map((r) => r.reduce((a, o) => a | (1 << o), 0));
 
@@ -201,7 +201,7 @@ function itemsFor(p: SharingProblem, rules: SharingRules, family: CandidateFamil
       items.push({ mask, fixed: b.outputs.length, per: 1, users: b.states, link: null });
     });
   }
-  if (rules.links && rules.depth !== "uniform") {
+  if (rules.links && rules.policy !== "uniform") {
     for (let a = 0; a < p.m; a++) {
       if (((set >> a) & 1) === 0) continue;
       for (let b = 0; b < p.m; b++) {

@@ -69,11 +69,11 @@ export async function synthesize(
   if (limits) return fail(limits);
   const p = sharingProblem(spec);
   const lit = litCount(p);
-  const rules: SharingRules = { maxDepth: settings.maxDepth, depth: settings.depth, buses: settings.buses, links: settings.links };
+  const rules: SharingRules = { depthLimit: settings.depthLimit, policy: settings.policy, buses: settings.buses, links: settings.links };
   // Depth 1, no sharing allowed or nothing to drive: only the direct matrix exists, so it is the optimum.
-  const sharing = lit > 0 && settings.maxDepth >= 2 && (settings.buses || (settings.links && settings.depth !== "uniform"));
+  const sharing = lit > 0 && settings.depthLimit >= 2 && (settings.buses || (settings.links && settings.policy !== "uniform"));
   if (settings.mode === "direct" || !sharing) {
-    const direct: DiodeMatrix = synthesizeDirect(spec, settings.maxDepth, settings.depth);
+    const direct: DiodeMatrix = synthesizeDirect(spec, settings.depthLimit, settings.policy);
     const proven = !sharing ? { lowerBound: lit, optimal: true } : {};
     return verified(spec, { ...direct, ...proven }, settings);
   }
@@ -111,18 +111,18 @@ function matrixOf(
   return buildMatrix(spec, planEdges(spec, plan), {
     lowerBound,
     optimal: lowerBound !== null && lowerBound === count,
-    depthLimit: s.maxDepth,
-    depth: s.depth,
+    depthLimit: s.depthLimit,
+    policy: s.policy,
     method,
   });
 }
 
 /** Settings no matrix can meet (only reachable from code; the schema and CLI check ranges). */
 function checkLimits(s: SynthSettings): SynthFailure | null {
-  if (!Number.isInteger(s.maxDepth) || s.maxDepth < 1 || s.maxDepth > 3) {
+  if (!Number.isInteger(s.depthLimit) || s.depthLimit < 1 || s.depthLimit > 3) {
     return {
       kind: "infeasible",
-      message: `the depth limit must be 1, 2 or 3 diodes (got ${s.maxDepth}); every path needs at least one diode`,
+      message: `the depth limit must be 1, 2 or 3 diodes (got ${s.depthLimit}); every path needs at least one diode`,
     };
   }
   if (!(s.timeLimitMs > 0))

@@ -159,7 +159,7 @@ export function ProjectPanel() {
       <fieldset class="sub">
         <legend>Synthesis</legend>
         <div class="form-grid">
-          <label for="f-depth">Max depth</label>
+          <label for="f-depth">Depth limit</label>
           <select
             id="f-depth"
             value={String(d().synthesis.maxDepth)}

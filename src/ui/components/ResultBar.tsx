@@ -34,7 +34,7 @@ export function ResultBar() {
         </span>
         <span class="muted">
           {METHOD_NAMES[m()?.method ?? "direct"]} · {bound()} · direct {app.live()?.directCount} · {m()?.buses.length} bus · depth{" "}
-          {m()?.maxDepth}/{m()?.depthLimit}
+          {m()?.longestPath}/{m()?.depthLimit}
         </span>
         <Show when={app.stale()}>
           <span class="chip stale" data-testid="stale">

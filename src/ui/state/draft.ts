@@ -6,7 +6,8 @@
  * path-naming problems. A draft may be invalid while someone is typing; the
  * last valid project keeps its (stale) results on screen meanwhile.
  */
-import type { CellKind, ElectricalModel, Project, SynthesisOptions } from "../../core/project/project.ts";
+import type { CellKind, ElectricalModel, Project, SynthesisFields } from "../../core/project/project.ts";
+import { synthesisFields } from "../../core/project/projectWriter.ts";
 import { PROJECT_SCHEMA } from "../../core/project/project.ts";
 
 export interface Draft {
@@ -17,7 +18,7 @@ export interface Draft {
   /** The file's own glyph entries (overrides of the built-in table). */
   readonly glyphs: Readonly<Record<string, readonly string[]>>;
   readonly show: readonly string[];
-  readonly synthesis: SynthesisOptions;
+  readonly synthesis: SynthesisFields;
   readonly electrical: ElectricalModel;
 }
 
@@ -34,7 +35,7 @@ export function draftFromProject(p: Project): Draft {
         : { positions: p.display.positions, cell: cell.kind },
     glyphs: Object.fromEntries(Object.entries(p.glyphOverrides).map(([ch, segs]) => [ch, [...segs]])),
     show: [...p.show],
-    synthesis: { ...p.synthesis },
+    synthesis: synthesisFields(p.synthesis),
     electrical: structuredClone(p.electrical) as ElectricalModel,
   };
 }

@@ -6,7 +6,7 @@
  * single change in the form rarely leaves the project unusable.
  */
 import { builtinCell, builtinGlyphs } from "../../core/glyphs/glyphs.ts";
-import type { CellKind, SynthesisOptions } from "../../core/project/project.ts";
+import type { CellKind, SynthesisFields } from "../../core/project/project.ts";
 import { splitText } from "../../core/project/projectSchema.ts";
 import type { Draft } from "./draft.ts";
 
@@ -121,7 +121,7 @@ export function toggleSegment(d: Draft, char: string, segment: string): Draft {
   return setGlyph(d, char, now.includes(segment) ? now.filter((s) => s !== segment) : [...now, segment]);
 }
 
-export function setSynthesis(d: Draft, change: Partial<SynthesisOptions>): Draft {
+export function setSynthesis(d: Draft, change: Partial<SynthesisFields>): Draft {
   return { ...d, synthesis: { ...d.synthesis, ...change } };
 }
 

@@ -172,7 +172,7 @@ describe("layout details", () => {
       .sort((a, b) => a.a.x - b.a.x)[0]!;
     const source = spec.outputs[spec.outputs.length - 1]!;
     const edges = [...matrix.diodes.map((d) => ({ from: d.from, to: d.to })), { from: source, to: leftmost.net! }];
-    const linked = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: 2, depth: "mixed", method: "heuristic" });
+    const linked = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: 2, policy: "mixed", method: "heuristic" });
     const drawing = layoutMatrix(project, spec, linked, drawingOptions(project));
     expect(drawing.sheets.length).toBe(first.sheets.length);
     for (const sheet of drawing.sheets) expect(stubProblems(sheet)).toEqual([]);

@@ -11,7 +11,7 @@ describe("diodeloom synth (in-process)", () => {
     expect(m.diodes.every((d: { from: string }) => /^S\d+$/.test(d.from))).toBe(true);
     expect(m.lowerBound).toBeNull();
     expect(m.optimal).toBe(false);
-    expect(m.maxDepth).toBe(1);
+    expect(m.longestPath).toBe(1);
   });
   it("rejects bad option values with exit 2", async () => {
     for (const args of [

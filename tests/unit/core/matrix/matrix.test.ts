@@ -4,7 +4,7 @@ import { buildMatrix } from "../../../../src/core/matrix/matrix.ts";
 import { example } from "../../../support/projects.ts";
 
 const spec = compileSpec(example("die-roller"));
-const meta = { lowerBound: null, optimal: false, depthLimit: 2, depth: "mixed", method: "heuristic" } as const;
+const meta = { lowerBound: null, optimal: false, depthLimit: 2, policy: "mixed", method: "heuristic" } as const;
 
 describe("buildMatrix", () => {
   it("renumbers buses B1.. in order of first use and orders diodes for assembly", () => {
@@ -22,7 +22,7 @@ describe("buildMatrix", () => {
     expect(m.buses).toEqual(["B1"]);
     expect(m.diodes.map((d) => `${d.ref} ${d.from}>${d.to}`)).toEqual(["D1 S1>1bl", "D2 S3>B1", "D3 S5>B1", "D4 B1>1br", "D5 1bl>1tr"]);
     expect(m.count).toBe(5);
-    expect(m.maxDepth).toBe(2);
+    expect(m.longestPath).toBe(2);
   });
 
   it("measures the longest path through links", () => {
@@ -35,7 +35,7 @@ describe("buildMatrix", () => {
       ],
       { ...meta, depthLimit: 3 },
     );
-    expect(m.maxDepth).toBe(3);
+    expect(m.longestPath).toBe(3);
     expect(m.buses).toEqual([]);
   });
 });

@@ -17,8 +17,8 @@ const spec: DecodeSpec = compileSpec(
 );
 
 function check(edges: Edge[], depth: DepthPolicy = "mixed", maxDepth = 2) {
-  const m = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: maxDepth, depth, method: "heuristic" });
-  return verifyMatrix(spec, m, { maxDepth, depth });
+  const m = buildMatrix(spec, edges, { lowerBound: null, optimal: false, depthLimit: maxDepth, policy: depth, method: "heuristic" });
+  return verifyMatrix(spec, m, { depthLimit: maxDepth, policy: depth });
 }
 
 const direct: Edge[] = [
@@ -109,8 +109,8 @@ describe("verifyMatrix", () => {
   });
 
   it("rejects claims the numbers do not support", () => {
-    const m = buildMatrix(spec, direct, { lowerBound: 7, optimal: true, depthLimit: 2, depth: "mixed", method: "exact" });
-    const r = verifyMatrix(spec, m, { maxDepth: 2, depth: "mixed" });
+    const m = buildMatrix(spec, direct, { lowerBound: 7, optimal: true, depthLimit: 2, policy: "mixed", method: "exact" });
+    const r = verifyMatrix(spec, m, { depthLimit: 2, policy: "mixed" });
     expect(!r.ok && r.error.join()).toMatch(/lower bound 7 exceeds the count 6/);
   });
 });

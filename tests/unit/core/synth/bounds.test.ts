@@ -14,11 +14,11 @@ describe("synthBounds", () => {
     const solveLp = (text: string) => highs.createModel({ format: "lp", data: text });
     // A 3x3 block under a blank state: 6 through one bus (links off); 5 with links.
     const p = problemFromLit(litRows("111", "111", "111", "000"));
-    const noLinks = lpLowerBound(p, { depth: "mixed", links: false, buses: true }, { solveLp, timeLimitMs: 5000 });
+    const noLinks = lpLowerBound(p, { policy: "mixed", links: false, buses: true }, { solveLp, timeLimitMs: 5000 });
     expect(noLinks.bound).not.toBeNull();
     expect(noLinks.bound!).toBeGreaterThanOrEqual(trivialLowerBound(p));
     expect(noLinks.bound!).toBeLessThanOrEqual(6);
-    const withLinks = lpLowerBound(p, { depth: "mixed", links: true, buses: true }, { solveLp, timeLimitMs: 5000 });
+    const withLinks = lpLowerBound(p, { policy: "mixed", links: true, buses: true }, { solveLp, timeLimitMs: 5000 });
     expect(withLinks.bound!).toBeLessThanOrEqual(5);
   });
   it("gives no bound when the pricing search may not visit every output set", async () => {
@@ -26,7 +26,7 @@ describe("synthBounds", () => {
     const p = problemFromLit(litRows("1111", "1111", "1110", "0000"));
     const r = lpLowerBound(
       p,
-      { depth: "mixed", links: false, buses: true },
+      { policy: "mixed", links: false, buses: true },
       { solveLp: (t) => highs.createModel({ format: "lp", data: t }), timeLimitMs: 5000, maxVisits: 2 },
     );
     expect(r.bound).toBeNull();

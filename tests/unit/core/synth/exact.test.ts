@@ -7,14 +7,14 @@ import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../../../src/core/synth/synthesize.ts";
 import { benchProject, BENCH_CASES } from "../../../../bench/synthBench.ts";
 
-function hexProblem(depth: "mixed" | "per-segment" | "uniform") {
+function hexProblem(policy: "mixed" | "per-segment" | "uniform") {
   const c = BENCH_CASES.find((x) => x.name === "0-F");
   if (!c) throw new Error("bench case 0-F is missing");
-  return benchProject({ ...c, timeLimitMs: 2000 }, depth);
+  return benchProject({ ...c, timeLimitMs: 2000 }, policy);
 }
 
 const p = problemFromLit(litRows("1101", "0111", "1111", "0100", "1010", "0000"));
-const rules = { maxDepth: 2, depth: "per-segment", buses: true, links: true } as const;
+const rules = { depthLimit: 2, policy: "per-segment", buses: true, links: true } as const;
 
 describe("exactPlan", () => {
   it("proves a small optimum, never above the warm start", async () => {
@@ -47,7 +47,7 @@ describe("exactPlan", () => {
     expect(r.lowerBound).toBeLessThanOrEqual(planCount(warm));
   });
   it("claims only the combinatorial bound at depth 3", async () => {
-    const deep = { ...rules, maxDepth: 3 };
+    const deep = { ...rules, depthLimit: 3 };
     const r = await exactPlan(p, deep, heuristicPlan(p, deep), { timeLimitMs: 5000, seed: 1, loadHighs: defaultHighsLoader });
     expect(r.lowerBound).toBe(5); // max(4 outputs, 5 active states)
   });
@@ -66,7 +66,7 @@ describe("exactPlan", () => {
   it("HiGHS stopped by its work budget gives the same plan and bound every run", async () => {
     const p0 = compileSpec(hexProblem("mixed"));
     const hp = problemFromLit(p0.lit);
-    const mixed = { maxDepth: 2, depth: "mixed", buses: true, links: true } as const;
+    const mixed = { depthLimit: 2, policy: "mixed", buses: true, links: true } as const;
     const warm = heuristicPlan(hp, mixed);
     // The clock and the node budget are far away; only the work budget (LP iterations x columns) can stop HiGHS here.
     const opts = {

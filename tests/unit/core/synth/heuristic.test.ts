@@ -8,15 +8,15 @@ import { litRows, specFromLit } from "../../../support/litSpec.ts";
 
 function run(rows: string[], depth: DepthPolicy, maxDepth = 2, links = true) {
   const spec = specFromLit(litRows(...rows));
-  const plan = heuristicPlan(problemFromLit(spec.lit), { maxDepth, depth, buses: true, links });
+  const plan = heuristicPlan(problemFromLit(spec.lit), { depthLimit: maxDepth, policy: depth, buses: true, links });
   const m = buildMatrix(spec, planEdges(spec, plan), {
     lowerBound: null,
     optimal: false,
     depthLimit: maxDepth,
-    depth,
+    policy: depth,
     method: "heuristic",
   });
-  return { plan, verdict: verifyMatrix(spec, m, { maxDepth, depth }) };
+  return { plan, verdict: verifyMatrix(spec, m, { depthLimit: maxDepth, policy: depth }) };
 }
 
 describe("heuristicPlan", () => {

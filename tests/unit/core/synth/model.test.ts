@@ -6,7 +6,7 @@ import { litRows } from "../../../support/litSpec.ts";
 
 describe("buildSharingModel", () => {
   const p = problemFromLit(litRows("111", "111", "110", "000"));
-  const rules = { maxDepth: 2, depth: "per-segment", buses: true, links: true } as const;
+  const rules = { depthLimit: 2, policy: "per-segment", buses: true, links: true } as const;
   const model = buildSharingModel(p, rules, candidateFamily(p, 1));
   it("writes LP-format sections with binary columns", () => {
     expect(model.text).toMatch(/^Minimize\n obj: /);
@@ -40,7 +40,7 @@ describe("buildSharingModel", () => {
     expect(objective).not.toMatch(/\d\.\d/);
   });
   it("under the uniform policy models the all-bus matrix only (no direct diodes, no links)", () => {
-    const uniform = buildSharingModel(p, { ...rules, depth: "uniform" }, candidateFamily(p, 1));
+    const uniform = buildSharingModel(p, { ...rules, policy: "uniform" }, candidateFamily(p, 1));
     expect(uniform.columns.some((c) => c.startsWith("d_") || c.startsWith("l_"))).toBe(false);
     expect(uniform.warmStart({ direct: [[0, 0]], buses: [], links: [] })).toBeNull();
   });

@@ -27,9 +27,9 @@ describe("synthPlan", () => {
     expect(planCount(directPlan(problemFromLit(lit)))).toBe(7);
   });
   it("level rules follow the depth policy", () => {
-    const mixed = { maxDepth: 3, depth: "mixed", buses: true, links: true } as const;
-    const perSeg = { ...mixed, depth: "per-segment" } as const;
-    const uniform = { ...mixed, depth: "uniform" } as const;
+    const mixed = { depthLimit: 3, policy: "mixed", buses: true, links: true } as const;
+    const perSeg = { ...mixed, policy: "per-segment" } as const;
+    const uniform = { ...mixed, policy: "uniform" } as const;
     expect(levelRules.direct(mixed, 2)).toBe(true);
     expect(levelRules.direct(perSeg, 2)).toBe(false);
     expect(levelRules.bus(perSeg, 3)).toBe(false);

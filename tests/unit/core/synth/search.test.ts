@@ -16,7 +16,7 @@ const SEED = 20261202;
 const POLICIES: readonly DepthPolicy[] = ["mixed", "per-segment", "uniform"];
 const UNLIMITED = { maxWork: 1e12 };
 
-const rulesFor = (depth: DepthPolicy) => ({ maxDepth: 2, depth, buses: true, links: true }) as const;
+const rulesFor = (depth: DepthPolicy) => ({ depthLimit: 2, policy: depth, buses: true, links: true }) as const;
 const familyFor = (p: SharingProblem, depth: DepthPolicy) => candidateFamily(p, depth === "mixed" ? 2 : 1);
 
 // Independent brute force, depth limit 2. Every path is a direct diode
@@ -149,10 +149,10 @@ describe("searchPlan", () => {
           lowerBound: null,
           optimal: false,
           depthLimit: 2,
-          depth,
+          policy: depth,
           method: "exact",
         });
-        expect(verifyMatrix(spec, matrix, { maxDepth: 2, depth }).ok).toBe(true);
+        expect(verifyMatrix(spec, matrix, { depthLimit: 2, policy: depth }).ok).toBe(true);
         // Cut short: the bound stays at or below the minimum (uniform: once the direct matrix is weighed in).
         const short = searchPlan(p, rulesFor(depth), family, litCount(p) + p.n + 1, { maxWork: 40 });
         const shortBound = depth === "uniform" ? Math.min(short.lowerBound, litCount(p)) : short.lowerBound;
@@ -206,7 +206,7 @@ describe("searchPlan", () => {
   it("per-segment without buses: level sets that no link can serve are infeasible, not a crash", () => {
     // Links 1 -> 0 and 2 -> 0 together reach every state of output 0 (5 diodes instead of 6); output 1 or 2 long has no source.
     const p = problemFromLit(litRows("110", "110", "101"));
-    const rules = { maxDepth: 2, depth: "per-segment", buses: false, links: true } as const;
+    const rules = { depthLimit: 2, policy: "per-segment", buses: false, links: true } as const;
     const r = searchPlan(p, rules, candidateFamily(p, 1), litCount(p) + 1, UNLIMITED);
     expect(r.proven).toBe(true);
     expect(bruteNoBuses(p)).toBe(5);

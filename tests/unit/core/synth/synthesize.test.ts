@@ -22,8 +22,8 @@ describe("synthesize", () => {
   });
 
   it("takes the project's settings and lets overrides win", () => {
-    const s = synthSettings(project, { maxDepth: 1, mode: "fast" });
-    expect(s).toEqual({ ...project.synthesis, maxDepth: 1, mode: "fast" });
+    const s = synthSettings(project, { depthLimit: 1, mode: "fast" });
+    expect(s).toEqual({ ...project.synthesis, depthLimit: 1, mode: "fast" });
     expect(synthSettings(project).mode).toBe("exact");
   });
 
@@ -34,7 +34,7 @@ describe("synthesize", () => {
       lowerBound: null,
       optimal: false,
       depthLimit: 2,
-      depth: "mixed",
+      policy: "mixed",
       method: "heuristic",
     });
     const r = verified(dieSpec, wrong, synthSettings(die));
