@@ -1,5 +1,5 @@
 /**
- * Bus arithmetic against the sources in REFERENCES.md ("Diode logic and
+ * Bus arithmetic against the sources in docs/sources.md ("Diode logic and
  * matrices").
  */
 import { describe, expect, it } from "vitest";
@@ -17,7 +17,7 @@ function block(r: number, c: number): boolean[][] {
 }
 
 describe("sharing through a common node", () => {
-  // Source: REFERENCES.md, "Sharing through a common node": r*c diodes direct,
+  // Source: docs/sources.md, "Sharing through a common node": r*c diodes direct,
   // r+c through one node; 2x2 saves nothing, 2x3 saves 1, 3x3 saves 3.
   for (const [r, c, saved] of [
     [2, 2, 0],
@@ -38,7 +38,7 @@ describe("sharing through a common node", () => {
     });
   }
 
-  // Source: REFERENCES.md: the general problem is the minimum-total-vertex
+  // Source: docs/sources.md: the general problem is the minimum-total-vertex
   // biclique cover/partition (T. Feder and R. Motwani, "Clique partitions,
   // graph compression and speeding-up algorithms", JCSS 1995; NP-complete),
   // related to Boolean rank / set basis (J. Orlin 1977; L. J. Stockmeyer,

@@ -23,7 +23,7 @@ describe("thermal voltage (check d)", () => {
     // Source: SI Brochure, 9th ed., 2019: k = 1.380649e-23 J/K, e = 1.602176634e-19 C (exact).
     expect(BOLTZMANN_J_PER_K).toBe(1.380649e-23);
     expect(ELEMENTARY_CHARGE_C).toBe(1.602176634e-19);
-    // Computed (REFERENCES.md): 25.852 mV at 300 K, 25.865 mV at 300.15 K.
+    // Computed (docs/sources.md): 25.852 mV at 300 K, 25.865 mV at 300.15 K.
     expect(thermalVoltage(300 - 273.15) * 1e3).toBeCloseTo(25.852, 3);
     expect(thermalVoltage(27) * 1e3).toBeCloseTo(25.865, 3);
     expect(thermalVoltage(27)).toBe((1.380649e-23 * 300.15) / 1.602176634e-19);
@@ -32,7 +32,7 @@ describe("thermal voltage (check d)", () => {
 
 describe("SPICE-default diode operating point (check c)", () => {
   it("5 V through 1 kOhm into IS = 1e-14, N = 1 at 300.15 K gives Vd = 0.69289 V, I = 4.3071 mA", () => {
-    // Source: REFERENCES.md "Device physics" (SPICE diode defaults IS = 1e-14 A, N = 1, TNOM = 27 C; computed).
+    // Source: docs/sources.md "Device physics" (SPICE diode defaults IS = 1e-14 A, N = 1, TNOM = 27 C; computed).
     const c = circuit(
       ["a", "in"],
       [
@@ -49,14 +49,14 @@ describe("SPICE-default diode operating point (check c)", () => {
   });
 
   it("limits junctions from vcrit = 0.7303 V for Is = 1e-14 at 300.15 K", () => {
-    // Source: REFERENCES.md "DC operating point" (pnjlim; vcrit = n VT ln(n VT / (sqrt(2) Is)), computed).
+    // Source: docs/sources.md "DC operating point" (pnjlim; vcrit = n VT ln(n VT / (sqrt(2) Is)), computed).
     expect(criticalVoltage(1e-14, thermalVoltage(27))).toBeCloseTo(0.7303, 4);
   });
 });
 
 describe("NCERT Class 12 Physics, Exercise 14.10 (check c)", () => {
   it("I0 = 5e-12 A at 300 K: 0.6 V gives about 0.0625 A (published, k = 8.6e-5 eV/K), 0.0600 A with the exact constants", () => {
-    // Source: NCERT Class 12 Physics, Exercise 14.10 (published answer), and REFERENCES.md (computed with exact constants).
+    // Source: NCERT Class 12 Physics, Exercise 14.10 (published answer), and docs/sources.md (computed with exact constants).
     const published = diodeJunction(0.6, 5e-12, 8.6e-5 * 300, 0).currentA;
     expect(published).toBeGreaterThan(0.0625 * 0.97);
     expect(published).toBeLessThan(0.0625 * 1.03);
@@ -130,7 +130,7 @@ describe("emitter-resistor current sink (checks b, c)", () => {
 
 describe("Ebers-Moll forward active (check c)", () => {
   it("gives Ic = Is exp(Vbe/VT), Ib = Ic/beta, Ie = Ic + Ib", () => {
-    // Source: REFERENCES.md "Device physics" (Ebers-Moll forward active).
+    // Source: docs/sources.md "Device physics" (Ebers-Moll forward active).
     const vt = thermalVoltage(27);
     const p = npnTransport(0.6, -50, { isA: 1e-14, betaF: 150, betaR: 3 }, vt, 0);
     const ic = 1e-14 * Math.exp(0.6 / vt);
@@ -141,14 +141,14 @@ describe("Ebers-Moll forward active (check c)", () => {
 
 describe("LED strings", () => {
   it("19 blue-white dies at 2.8-3.3 V each drop 53-63 V; only the upper part of that range is above 60 V", () => {
-    // Source: Wikipedia "Light-emitting diode" (InGaN blue/white 2.8-3.3 V per die), via REFERENCES.md.
+    // Source: Wikipedia "Light-emitting diode" (InGaN blue/white 2.8-3.3 V per die), via docs/sources.md.
     // The "19 dies need more than 60 V" (common practice, no source) holds at the top of that range:
     expect(19 * 3.3).toBeGreaterThan(60);
     expect(19 * 2.8).toBeLessThan(60);
   });
 
   it("the default string model drops 2.8-3.3 V per die at its rated 15 mA and less at the 140 uA target", () => {
-    // Source: Wikipedia "Light-emitting diode" (2.8-3.3 V per InGaN die at rated current), via REFERENCES.md.
+    // Source: Wikipedia "Light-emitting diode" (2.8-3.3 V per InGaN die at rated current), via docs/sources.md.
     const s = ELECTRICAL_DEFAULTS.string;
     const vt = thermalVoltage(27);
     const rated = shockleyVoltage(s.maxA, s.is, s.n, vt);
@@ -171,7 +171,7 @@ describe("LED strings", () => {
 
 describe("temperature relations", () => {
   it("silicon junction voltage falls about 2 mV per degree C at constant current", () => {
-    // Source: Sedra and Smith, Microelectronic Circuits; Wikipedia "Silicon bandgap temperature sensor" (via REFERENCES.md).
+    // Source: Sedra and Smith, Microelectronic Circuits; Wikipedia "Silicon bandgap temperature sensor" (via docs/sources.md).
     // The default driver junction (Is 1e-14, N 1) and matrix diode (Is 4e-9, N 1.9), at 100 uA.
     for (const [is, n] of [
       [1e-14, 1],

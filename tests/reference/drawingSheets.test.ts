@@ -1,6 +1,6 @@
 /**
  * Sheet sizes, frame and title-block fields against their sources
- * (REFERENCES.md, "Drawings and shop papers").
+ * (docs/sources.md, "Drawings and shop papers").
  */
 import { describe, expect, it } from "vitest";
 import { drawingOptions } from "../../src/render/drawingOptions.ts";

@@ -3,7 +3,7 @@
  *
  * Source: encyclopedia article "Seven-segment display" (Wikipedia; copy seen
  * at primidi.com/seven-segment_display/displaying_letters), as collected in
- * shared/REFERENCES.md: segment names, the glyph table for 0-9 and A-F, and
+ * docs/sources.md: segment names, the glyph table for 0-9 and A-F, and
  * the hex codes in gfedcba bit order as a second, independent check.
  */
 import { describe, expect, it } from "vitest";

@@ -1,6 +1,6 @@
 /**
  * Cross-check (a) of issue 4: ngspice (the open reference simulator, Debian
- * package `ngspice`, batch mode `ngspice -b file.cir`; source: REFERENCES.md
+ * package `ngspice`, batch mode `ngspice -b file.cir`; source: docs/sources.md
  * "DC operating point") runs the exported netlist of every state of three
  * designs, and every string current, node voltage and diode current agrees
  * with diodeloom's own solver within 0.5 %.

@@ -4,7 +4,7 @@
  *
  * Threshold: 60 V DC, the usual touch-safe limit for SELV (IEC 61140 allows
  * up to 120 V ripple-free DC as extra-low voltage; IEC 60335-1 and the IEC
- * IEV take 60 V DC as the SELV limit). Source: REFERENCES.md "Safety
+ * IEV take 60 V DC as the SELV limit). Source: docs/sources.md "Safety
  * thresholds for the cautions".
  */
 

@@ -9,7 +9,7 @@ const centre = (s: ReturnType<typeof cellShapes>[number]) => {
 
 describe("cell shapes", () => {
   it("places the seven segments as the trade names them: a top, b-f clockwise, g middle", () => {
-    // Segment naming: encyclopedia article "Seven-segment display" (source in REFERENCES.md).
+    // Segment naming: encyclopedia article "Seven-segment display" (source in docs/sources.md).
     const at = Object.fromEntries(cellShapes("seg7", []).map((s) => [s.segment, centre(s)]));
     const mid = { x: CELL_WIDTH / 2, y: CELL_HEIGHT / 2 };
     expect(at["a"]?.y).toBeLessThan(at["g"]?.y ?? 0);
