@@ -5,6 +5,7 @@
  */
 import { availableParallelism, cpus, totalmem } from "node:os";
 import { runBudgetBench } from "./budgetBench.ts";
+import { runStartupBench } from "./startupBench.ts";
 import { runSynthBench } from "./synthBench.ts";
 
 const log = (line: string): void => void process.stdout.write(line + "\n");
@@ -12,6 +13,8 @@ const log = (line: string): void => void process.stdout.write(line + "\n");
 log(
   `diodeloom bench: node ${process.version}, ${availableParallelism()} cores (${cpus()[0]?.model ?? "unknown cpu"}), ${(totalmem() / 2 ** 30).toFixed(0)} GiB`,
 );
+log("");
+await runStartupBench(log);
 log("");
 await runSynthBench(log);
 log("");

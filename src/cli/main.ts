@@ -2,21 +2,54 @@
  * The `diodeloom` command: dispatches to one subcommand per file in
  * commands/. Every expected failure ends in a message and an exit code,
  * never a stack trace.
+ *
+ * A subcommand's module is imported only when it runs (or prints its own
+ * help), so `diodeloom --version` and `diodeloom --help` load this file and
+ * little else; the build (scripts/buildCli.mjs) splits each command into its
+ * own chunk along these imports.
  */
-import { readFile, writeFile, mkdir, stat } from "node:fs/promises";
 import { helpLines, parseArgs } from "./args.ts";
 import type { Command } from "./command.ts";
 import { EXIT, type CliIo } from "./io.ts";
-import { synthCommand } from "./commands/synth.ts";
-import { compareCommand } from "./commands/compare.ts";
-import { exportCommand } from "./commands/export.ts";
-import { budgetCommand } from "./commands/budget.ts";
-import { netlistCommand } from "./commands/netlist.ts";
-import { MAX_PROJECT_BYTES } from "../core/project/projectSchema.ts";
+import { nodeIo } from "./nodeIo.ts";
 
 export const VERSION = "0.1.0";
 
-const COMMANDS: readonly Command[] = [synthCommand, compareCommand, exportCommand, budgetCommand, netlistCommand];
+/** A subcommand as the top-level help lists it, with the import that loads the rest. */
+export interface CommandEntry {
+  readonly name: string;
+  readonly summary: string;
+  load(): Promise<Command>;
+}
+
+/** Every subcommand, in the order the help lists them. */
+export const COMMANDS: readonly CommandEntry[] = [
+  {
+    name: "synth",
+    summary: "find the smallest verified diode matrix for a project",
+    load: async () => (await import("./commands/synth.ts")).synthCommand,
+  },
+  {
+    name: "compare",
+    summary: "compare the built-in glyph styles (6, 7, 9) by the smallest matrix each allows",
+    load: async () => (await import("./commands/compare.ts")).compareCommand,
+  },
+  {
+    name: "export",
+    summary: "write the matrix drawing, wiring list, budget, BOM, SPICE netlists and normalised project",
+    load: async () => (await import("./commands/export.ts")).exportCommand,
+  },
+  {
+    name: "budget",
+    summary: "solve every state's circuit: currents, voltages, ratings, trim and tolerance corners",
+    load: async () => (await import("./commands/budget.ts")).budgetCommand,
+  },
+  {
+    name: "netlist",
+    summary: "print the SPICE netlist (.model, .op) of the circuit with one state active",
+    load: async () => (await import("./commands/netlist.ts")).netlistCommand,
+  },
+];
 
 function usage(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length));
@@ -34,25 +67,6 @@ function usage(): string {
   ].join("\n");
 }
 
-/** The real file system, for the installed command. */
-export const nodeIo: CliIo = {
-  out: (t) => void process.stdout.write(t),
-  err: (t) => void process.stderr.write(t),
-  async readFile(path) {
-    try {
-      const s = await stat(path);
-      if (!s.isFile()) return { ok: false, message: "not a file" };
-      if (s.size > MAX_PROJECT_BYTES) return { ok: false, message: "the file is larger than 1 MiB; a project needs far less" };
-      return { ok: true, text: await readFile(path, "utf8") };
-    } catch (e) {
-      const code = (e as NodeJS.ErrnoException).code;
-      return { ok: false, message: code === "ENOENT" ? "no such file" : `cannot read it (${code ?? String(e)})` };
-    }
-  },
-  writeFile: (path, data) => writeFile(path, data),
-  makeDir: async (path) => void (await mkdir(path, { recursive: true })),
-};
-
 /** Runs the command line and returns the exit code. */
 export async function main(argv: readonly string[], io: CliIo = nodeIo): Promise<number> {
   const [name, ...rest] = argv;
@@ -64,13 +78,14 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo): Promise
     io.out(`${VERSION}\n`);
     return EXIT.ok;
   }
-  const command = COMMANDS.find((c) => c.name === name);
-  if (!command) {
+  const entry = COMMANDS.find((c) => c.name === name);
+  if (!entry) {
     io.err(`unknown command "${name}"; commands are ${COMMANDS.map((c) => c.name).join(", ")} (see diodeloom --help)\n`);
     return EXIT.input;
   }
+  const command = await entry.load();
   if (rest.includes("--help") || rest.includes("-h")) {
-    io.out([`usage: diodeloom ${command.usage}`, "", command.summary, "", ...helpLines(command.options), ""].join("\n"));
+    io.out([`usage: diodeloom ${command.usage}`, "", entry.summary, "", ...helpLines(command.options), ""].join("\n"));
     return EXIT.ok;
   }
   const parsed = parseArgs(rest, command.options);

@@ -13,7 +13,6 @@ const USAGE = `budget FILE [--json] [--series E24|E96] ${SYNTH_USAGE}`;
 export const budgetCommand: Command = {
   name: "budget",
   usage: USAGE,
-  summary: "solve every state's circuit: currents, voltages, ratings, trim and tolerance corners",
   options: {
     json: { help: "print the budget as diodeloom/budget@1 JSON (SI units)" },
     series: { value: true, meta: "E24|E96", help: "preferred values for the emitter-resistor trim (default E24)" },

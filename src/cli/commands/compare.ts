@@ -9,7 +9,6 @@ const USAGE = "compare FILE [--json] [--fast] [--time-limit MS]";
 export const compareCommand: Command = {
   name: "compare",
   usage: USAGE,
-  summary: "compare the built-in glyph styles (6, 7, 9) by the smallest matrix each allows",
   options: {
     json: { help: "print diodeloom/compare@1 JSON" },
     fast: { help: "the heuristic only (no exact optimizer, no bounds)" },

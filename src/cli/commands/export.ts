@@ -33,7 +33,6 @@ const MAX_FIELD = 40;
 export const exportCommand: Command = {
   name: "export",
   usage: USAGE,
-  summary: "write the matrix drawing, wiring list, budget, BOM, SPICE netlists and normalised project",
   options: {
     out: { value: true, meta: "DIR", help: "directory to write into (created if missing)" },
     paper: { value: true, meta: "SIZE", help: "a4 (default) or letter" },

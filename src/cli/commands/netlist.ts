@@ -8,7 +8,6 @@ const USAGE = `netlist FILE --state K ${SYNTH_USAGE}`;
 export const netlistCommand: Command = {
   name: "netlist",
   usage: USAGE,
-  summary: "print the SPICE netlist (.model, .op) of the circuit with one state active",
   options: {
     state: { value: true, meta: "K", help: "the active state: its number 0..N-1 or its name S0..S(N-1)" },
     ...SYNTH_OPTIONS,

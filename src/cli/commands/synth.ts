@@ -11,7 +11,6 @@ const USAGE = `synth FILE [--json] ${SYNTH_USAGE}`;
 export const synthCommand: Command = {
   name: "synth",
   usage: USAGE,
-  summary: "find the smallest verified diode matrix for a project",
   options: {
     json: { help: "print the matrix as diodeloom/matrix@2 JSON" },
     ...SYNTH_OPTIONS,

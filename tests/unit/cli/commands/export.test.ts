@@ -4,7 +4,7 @@ import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { main } from "../../../../src/cli/main.ts";
 import type { CliIo } from "../../../../src/cli/io.ts";
-import { nodeIo } from "../../../../src/cli/main.ts";
+import { nodeIo } from "../../../../src/cli/nodeIo.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
 import { formatOhms } from "../../../../src/core/papers/parts.ts";
 import { parseProject } from "../../../../src/core/project/projectSchema.ts";
