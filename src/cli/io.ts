@@ -5,7 +5,8 @@
 export interface CliIo {
   out(text: string): void;
   err(text: string): void;
-  readFile(path: string): Promise<{ ok: true; text: string } | { ok: false; message: string }>;
+  /** The bytes of a file (a project file: at most `LIMITS.fileBytes`, checked before reading). */
+  readFile(path: string): Promise<{ ok: true; bytes: Uint8Array } | { ok: false; message: string }>;
   writeFile(path: string, data: string | Uint8Array): Promise<void>;
   makeDir(path: string): Promise<void>;
 }

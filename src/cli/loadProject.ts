@@ -1,7 +1,7 @@
 import { formatProblems } from "../core/result/result.ts";
-import { parseProject, MAX_PROJECT_BYTES } from "../core/project/projectSchema.ts";
+import { parseProjectBytes } from "../core/project/projectBytes.ts";
 import type { Project } from "../core/project/project.ts";
-import type { ParsedArgs } from "./args.ts";
+import { shownArg, type ParsedArgs } from "./args.ts";
 import type { CliIo } from "./io.ts";
 
 /**
@@ -15,21 +15,18 @@ export async function loadProject(args: ParsedArgs, io: CliIo, usage: string): P
     io.err(`usage: diodeloom ${usage}\n`);
     return undefined;
   }
+  const name = shownArg(file, 400);
   const read = await io.readFile(file);
   if (!read.ok) {
-    io.err(`${file}: ${read.message}\n`);
+    io.err(`${name}: ${read.message}\n`);
     return undefined;
   }
-  if (read.text.length > MAX_PROJECT_BYTES) {
-    io.err(`${file}: the file is larger than 1 MiB; a project needs far less\n`);
-    return undefined;
-  }
-  const parsed = parseProject(read.text);
+  const parsed = parseProjectBytes(read.bytes);
   if (!parsed.ok) {
     io.err(
       formatProblems(parsed.error)
         .split("\n")
-        .map((l) => `${file}: ${l}`)
+        .map((l) => `${name}: ${l}`)
         .join("\n") + "\n",
     );
     return undefined;

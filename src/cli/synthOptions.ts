@@ -5,44 +5,70 @@
 import { compileSpec, type DecodeSpec } from "../core/spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
+import { LIMITS } from "../core/project/limits.ts";
+import { checkSynthesisOverrides, DEPTH_POLICIES, numberFromText } from "../core/project/synthesisSchema.ts";
 import { synthesize, synthSettings, type SynthFailure, type SynthSettings } from "../core/synth/synthesize.ts";
-import { intOption, type OptionSpec, type ParsedArgs } from "./args.ts";
+import type { OptionSpec, ParsedArgs } from "./args.ts";
 import { EXIT, type CliIo } from "./io.ts";
 import { loadProject } from "./loadProject.ts";
 
-export const SYNTH_USAGE = "[--direct | --fast] [--max-depth K] [--depth POLICY] [--time-limit MS]";
+export const SYNTH_USAGE = "[--direct | --fast] [--depth-limit K] [--policy NAME] [--time-limit MS] [--seed N]";
+
+const { depthLimit, timeLimitMs, seed } = LIMITS;
 
 export const SYNTH_OPTIONS: Readonly<Record<string, OptionSpec>> = {
   direct: { help: "one diode per lit cell, no sharing" },
   fast: { help: "the heuristic only (no exact optimizer)" },
-  "max-depth": { value: true, meta: "K", help: "most diodes on any path, 1-3 (overrides the project)" },
-  depth: { value: true, meta: "POLICY", help: "mixed | per-segment | uniform (overrides the project)" },
-  "time-limit": { value: true, meta: "MS", help: "time limit of the exact optimizer, milliseconds" },
+  "depth-limit": {
+    value: true,
+    meta: "K",
+    help: `most diodes on any path, ${depthLimit.min}-${depthLimit.max} (overrides synthesis.maxDepth)`,
+  },
+  policy: { value: true, meta: "NAME", help: `depth policy: ${DEPTH_POLICIES.join(" | ")} (overrides synthesis.depth)` },
+  "time-limit": {
+    value: true,
+    meta: "MS",
+    help: `time limit of the exact optimizer, ${timeLimitMs.min}-${timeLimitMs.max} ms (overrides synthesis.timeLimitMs)`,
+  },
+  seed: { value: true, meta: "N", help: `seed of the optimizer's randomised steps, ${seed.min}-${seed.max} (overrides synthesis.seed)` },
+  "max-depth": { value: true, meta: "K", olderSpellingOf: "depth-limit", help: "" },
+  depth: { value: true, meta: "NAME", olderSpellingOf: "policy", help: "" },
 };
 
-/** Applies the synthesis options shared by `synth` and the commands built on it. */
+/** Each override option, by its documented name, with the synthesis option it sets and whether it is a number. */
+const OVERRIDES: readonly { readonly option: string; readonly field: string; readonly numeric: boolean }[] = [
+  { option: "depth-limit", field: "depthLimit", numeric: true },
+  { option: "policy", field: "policy", numeric: false },
+  { option: "time-limit", field: "timeLimitMs", numeric: true },
+  { option: "seed", field: "seed", numeric: true },
+];
+
+/**
+ * Applies the synthesis options shared by `synth` and the commands built on
+ * it. The values are checked by the same rules as the project file's
+ * `synthesis` section; a problem is printed under the option's name as the
+ * person typed it (`--max-depth: got 7; must be a whole number from 1 to 3`).
+ */
 export function settingsFromArgs(project: Project, args: ParsedArgs, io: CliIo): SynthSettings | undefined {
-  const overrides: { -readonly [K in keyof SynthSettings]?: SynthSettings[K] } = {};
   if (args.flags.has("direct") && args.flags.has("fast")) {
     io.err("--direct and --fast exclude each other; give one\n");
     return undefined;
   }
-  if (args.flags.has("direct")) overrides.mode = "direct";
-  if (args.flags.has("fast")) overrides.mode = "fast";
-  const depthK = intOption(args, "max-depth", 1, 3);
-  if (!depthK.ok) return void io.err(depthK.message + "\n");
-  if (depthK.value !== undefined) overrides.depthLimit = depthK.value;
-  const limit = intOption(args, "time-limit", 1, 3_600_000);
-  if (!limit.ok) return void io.err(limit.message + "\n");
-  if (limit.value !== undefined) overrides.timeLimitMs = limit.value;
-  const policy = args.values.get("depth");
-  if (policy !== undefined) {
-    if (policy !== "mixed" && policy !== "per-segment" && policy !== "uniform") {
-      return void io.err(`--depth must be mixed, per-segment or uniform (got "${policy}")\n`);
-    }
-    overrides.policy = policy;
+  const raw: Record<string, unknown> = {};
+  const optionOf = new Map<string, string>();
+  for (const o of OVERRIDES) {
+    const text = args.values.get(o.option);
+    if (text === undefined) continue;
+    raw[o.field] = o.numeric ? numberFromText(text) : text;
+    optionOf.set(o.field, args.spelling.get(o.option) ?? `--${o.option}`);
   }
-  return synthSettings(project, overrides);
+  const checked = checkSynthesisOverrides(raw);
+  if (!checked.ok) {
+    io.err(checked.error.map((p) => `${optionOf.get(p.path) ?? p.path}: ${p.message}\n`).join(""));
+    return undefined;
+  }
+  const mode = args.flags.has("direct") ? "direct" : args.flags.has("fast") ? "fast" : undefined;
+  return synthSettings(project, { ...checked.value, ...(mode ? { mode } : {}) });
 }
 
 /** Prints a synthesis failure and returns its exit code. */

@@ -71,7 +71,7 @@ describe("diodeloom command", () => {
     writeFileSync(bad, JSON.stringify({ schema: "diodeloom/project@1", counter: { states: 300 }, display: {}, show: [] }));
     const r = await run(["synth", bad], dir);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/counter\.states: must be a whole number from 2 to 256/);
+    expect(r.stderr).toBe(`${bad}: counter.states: got 300; must be a whole number from 2 to 256\n`);
     expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
     expect(r.stdout).toBe("");
     expect(readdirSync(dir)).toEqual(["bad.json"]);

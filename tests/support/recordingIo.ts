@@ -19,9 +19,9 @@ export function recordingIo(files: Record<string, string> = {}, opts: { writeToD
     out: (t) => void stdout.push(t),
     err: (t) => void stderr.push(t),
     async readFile(path) {
-      if (path in files) return { ok: true, text: files[path] as string };
+      if (path in files) return { ok: true, bytes: new TextEncoder().encode(files[path] as string) };
       try {
-        return { ok: true, text: await readFile(path, "utf8") };
+        return { ok: true, bytes: new Uint8Array(await readFile(path)) };
       } catch {
         return { ok: false, message: "no such file" };
       }

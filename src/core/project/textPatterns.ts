@@ -11,9 +11,11 @@
  * the left stay blank.
  */
 import { fail, ok, type Result } from "../result/result.ts";
+import { LIMITS } from "./limits.ts";
+import { quoteText } from "./valueText.ts";
 
 /** Most texts one pattern may produce (the schema's state limit). */
-const MAX_TEXTS = 256;
+const MAX_TEXTS = LIMITS.states.max;
 const HEX_FORMS = "0123456789AbCdEF";
 const RANGE = /^([0-9a-f]+)\s*(?:-|\.\.|to)\s*([0-9a-f]+)$/i;
 
@@ -41,7 +43,7 @@ export function fillPattern(pattern: string, positions: number): Result<string[]
   for (const part of body.split(",")) {
     const range = RANGE.exec(part.trim());
     if (!range) {
-      return fail([{ path, message: `"${part.trim()}" is not a range; write it like "0-9", "0-F" or "00-59"` }]);
+      return fail([{ path, message: `${quoteText(part.trim())} is not a range; write it like "0-9", "0-F" or "00-59"` }]);
     }
     const [, startText = "", endText = ""] = range;
     const hex = /[a-f]/i.test(startText + endText);
@@ -66,6 +68,8 @@ export function fillPattern(pattern: string, positions: number): Result<string[]
       if (k === end) break;
     }
   }
-  if (texts.length < 2) return fail([{ path, message: "gives fewer than 2 texts; a counter needs at least 2 states" }]);
+  if (texts.length < LIMITS.states.min) {
+    return fail([{ path, message: `gives fewer than ${LIMITS.states.min} texts; a counter needs at least ${LIMITS.states.min} states` }]);
+  }
   return ok(texts);
 }

@@ -8,6 +8,7 @@
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import { buildMatrix, type DiodeMatrix, type VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project, SynthesisOptions } from "../project/project.ts";
+import { LIMITS } from "../project/limits.ts";
 import { fail, ok, type Result } from "../result/result.ts";
 import { synthesizeDirect } from "./direct.ts";
 import { defaultHighsLoader, exactPlan, type HighsLoader } from "./exact.ts";
@@ -117,16 +118,21 @@ function matrixOf(
   });
 }
 
-/** Settings no matrix can meet (only reachable from code; the schema and CLI check ranges). */
+/** Settings outside the project limits (only reachable from code; the schema checks files and overrides). */
 function checkLimits(s: SynthSettings): SynthFailure | null {
-  if (!Number.isInteger(s.depthLimit) || s.depthLimit < 1 || s.depthLimit > 3) {
+  const { depthLimit, timeLimitMs } = LIMITS;
+  if (!Number.isInteger(s.depthLimit) || s.depthLimit < depthLimit.min || s.depthLimit > depthLimit.max) {
     return {
       kind: "infeasible",
-      message: `the depth limit must be 1, 2 or 3 diodes (got ${s.depthLimit}); every path needs at least one diode`,
+      message: `the depth limit must be ${depthLimit.min} to ${depthLimit.max} diodes (got ${s.depthLimit}); every path needs at least one diode`,
     };
   }
-  if (!(s.timeLimitMs > 0))
-    return { kind: "infeasible", message: `the time limit must be a positive number of milliseconds (got ${s.timeLimitMs})` };
+  if (!(s.timeLimitMs >= timeLimitMs.min && s.timeLimitMs <= timeLimitMs.max)) {
+    return {
+      kind: "infeasible",
+      message: `the time limit must be ${timeLimitMs.min} to ${timeLimitMs.max} milliseconds (got ${s.timeLimitMs})`,
+    };
+  }
   return null;
 }
 

@@ -4,6 +4,8 @@
  */
 import { createMemo, createSignal, For, Index, Show } from "solid-js";
 import type { CellKind, DepthPolicy } from "../../core/project/project.ts";
+import { LIMITS } from "../../core/project/limits.ts";
+import { numberFromText } from "../../core/project/synthesisSchema.ts";
 import { splitText } from "../../core/project/projectSchema.ts";
 import { formatProblems } from "../../core/result/result.ts";
 import { fillPattern } from "../../core/project/textPatterns.ts";
@@ -12,8 +14,6 @@ import { CellFigure } from "./CellFigure.tsx";
 import {
   draftSegments,
   effectiveGlyphs,
-  MAX_POSITIONS,
-  MAX_STATES,
   setCell,
   setPositions,
   setStates,
@@ -26,6 +26,13 @@ import {
 
 const CELL_NAMES: Record<CellKind, string> = { seg7: "7-segment", seg7dp: "7-segment + dp", custom: "custom" };
 const POLICY_NAMES: Record<DepthPolicy, string> = { "per-segment": "per segment", mixed: "mixed", uniform: "uniform" };
+const DEPTH_LIMITS = Array.from({ length: LIMITS.depthLimit.max - LIMITS.depthLimit.min + 1 }, (_, i) => LIMITS.depthLimit.min + i);
+
+/** The number in a number field, or null while the field is empty or not a number. */
+function numberOrNull(text: string): number | null {
+  const x = numberFromText(text);
+  return typeof x === "number" ? x : null;
+}
 
 export function ProjectPanel() {
   const d = () => app.draft();
@@ -71,8 +78,8 @@ export function ProjectPanel() {
         <input
           id="f-states"
           type="number"
-          min="2"
-          max={MAX_STATES}
+          min={LIMITS.states.min}
+          max={LIMITS.states.max}
           value={d().counter.states}
           onChange={(e) => app.edit((x) => setStates(x, Number(e.currentTarget.value) || 2))}
         />
@@ -81,8 +88,8 @@ export function ProjectPanel() {
         <input
           id="f-positions"
           type="number"
-          min="1"
-          max={MAX_POSITIONS}
+          min={LIMITS.positions.min}
+          max={LIMITS.positions.max}
           value={d().display.positions}
           onChange={(e) => app.edit((x) => setPositions(x, Number(e.currentTarget.value) || 1))}
         />
@@ -165,9 +172,7 @@ export function ProjectPanel() {
             value={String(d().synthesis.maxDepth)}
             onChange={(e) => app.edit((x) => setSynthesis(x, { maxDepth: Number(e.currentTarget.value) }))}
           >
-            <option value="1">1 diode</option>
-            <option value="2">2 diodes</option>
-            <option value="3">3 diodes</option>
+            <For each={DEPTH_LIMITS}>{(k) => <option value={String(k)}>{k === 1 ? "1 diode" : `${k} diodes`}</option>}</For>
           </select>
           <label for="f-policy">Depth policy</label>
           <select
@@ -200,21 +205,27 @@ export function ProjectPanel() {
           <input
             id="f-limit"
             type="number"
-            min="1"
-            max="3600"
+            min={LIMITS.timeLimitMs.min / 1000}
+            max={LIMITS.timeLimitMs.max / 1000}
             value={d().synthesis.timeLimitMs / 1000}
-            onChange={(e) =>
-              app.edit((x) => setSynthesis(x, { timeLimitMs: Math.max(1, Math.round(Number(e.currentTarget.value) * 1000) || 1000) }))
-            }
+            onChange={(e) => {
+              // Out-of-range values go into the draft, so the schema names them as it names a file's.
+              const seconds = numberOrNull(e.currentTarget.value);
+              if (seconds !== null) app.edit((x) => setSynthesis(x, { timeLimitMs: Math.round(seconds * 1000) }));
+            }}
           />
           <label for="f-seed">Seed</label>
           <input
             id="f-seed"
             type="number"
-            min="0"
+            min={LIMITS.seed.min}
+            max={LIMITS.seed.max}
             step="1"
             value={d().synthesis.seed}
-            onChange={(e) => app.edit((x) => setSynthesis(x, { seed: Math.max(0, Math.floor(Number(e.currentTarget.value) || 0)) }))}
+            onChange={(e) => {
+              const seed = numberOrNull(e.currentTarget.value);
+              if (seed !== null) app.edit((x) => setSynthesis(x, { seed }));
+            }}
           />
           <label for="f-supply">Supply (V)</label>
           <input

@@ -3,7 +3,7 @@
  * paper size, undo and redo, and the exact optimizer switch.
  */
 import { createSignal, For, Show } from "solid-js";
-import { MAX_PROJECT_BYTES } from "../../core/project/projectSchema.ts";
+import { fileSizeProblem } from "../../core/project/limits.ts";
 import { app } from "../state/appState.ts";
 import { draftToJson } from "../state/draft.ts";
 import { downloadText, fileStem } from "../files/download.ts";
@@ -20,15 +20,17 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
   const [shareState, setShareState] = createSignal<string | null>(null);
 
   const open = async (file: File) => {
-    if (file.size > MAX_PROJECT_BYTES) {
+    const tooLarge = fileSizeProblem(file.size);
+    if (tooLarge) {
       app.setNotice({
         level: "danger",
         title: `${file.name} was not opened; the project on screen is unchanged`,
-        lines: [`${file.name}: the file is larger than 1 MiB; a project needs far less`],
+        lines: [`${file.name}: ${tooLarge.message}`],
       });
       return;
     }
-    app.openText(file.name, await file.text());
+    // The bytes, not file.text(): the same reading as the command line's (byte-order mark, UTF-8 check).
+    app.openText(file.name, new Uint8Array(await file.arrayBuffer()));
   };
   const save = () => downloadText(`${fileStem(app.draft().title)}.json`, draftToJson(app.draft()), "application/json");
   const share = async () => {

@@ -13,6 +13,7 @@ import { drawingOptions } from "../../render/drawingOptions.ts";
 import { layoutMatrix, type MatrixDrawing } from "../../render/layout.ts";
 import type { Project } from "../../core/project/project.ts";
 import { parseProject, validateProject } from "../../core/project/projectSchema.ts";
+import { parseProjectBytes } from "../../core/project/projectBytes.ts";
 import { formatProblems, type Problem } from "../../core/result/result.ts";
 import { readAutosave, writeAutosave } from "./autosave.ts";
 import { draftFromProject, type Draft } from "./draft.ts";
@@ -211,11 +212,12 @@ function createAppState() {
   }
 
   /**
-   * Opens project JSON text. A bad file leaves the open project as it was
-   * and shows the same path-naming messages as the command line.
+   * Opens project JSON, as text or as a file's bytes (read exactly as the
+   * command line reads a file). A bad file leaves the open project as it
+   * was and shows the same path-naming messages as the command line.
    */
-  function openText(name: string, text: string): boolean {
-    const r = parseProject(text);
+  function openText(name: string, content: string | Uint8Array): boolean {
+    const r = typeof content === "string" ? parseProject(content) : parseProjectBytes(content);
     if (!r.ok) {
       setNotice({
         level: "danger",

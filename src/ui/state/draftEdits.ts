@@ -7,12 +7,9 @@
  */
 import { builtinCell, builtinGlyphs } from "../../core/glyphs/glyphs.ts";
 import type { CellKind, SynthesisFields } from "../../core/project/project.ts";
+import { LIMITS } from "../../core/project/limits.ts";
 import { splitText } from "../../core/project/projectSchema.ts";
 import type { Draft } from "./draft.ts";
-
-/** Most states and positions the schema accepts. */
-export const MAX_STATES = 256;
-export const MAX_POSITIONS = 8;
 
 /** Segment names of the draft's cell. */
 export function draftSegments(d: Draft): readonly string[] {
@@ -39,7 +36,7 @@ export function setTitle(d: Draft, title: string): Draft {
 
 /** Sets the state count; new states show a blank, removed states drop off the end. */
 export function setStates(d: Draft, states: number): Draft {
-  const n = Math.max(2, Math.min(MAX_STATES, Math.round(states)));
+  const n = Math.max(LIMITS.states.min, Math.min(LIMITS.states.max, Math.round(states)));
   const show = d.show.slice(0, n);
   while (show.length < n) show.push(" ".repeat(d.display.positions));
   return { ...d, counter: { ...d.counter, states: n }, show };
@@ -47,7 +44,7 @@ export function setStates(d: Draft, states: number): Draft {
 
 /** Sets the position count; texts gain blanks on the left or lose their leftmost positions. */
 export function setPositions(d: Draft, positions: number): Draft {
-  const n = Math.max(1, Math.min(MAX_POSITIONS, Math.round(positions)));
+  const n = Math.max(LIMITS.positions.min, Math.min(LIMITS.positions.max, Math.round(positions)));
   const cell = d.display.cell === "custom" ? { kind: "custom" as const, segments: draftSegments(d) } : builtinCell(d.display.cell);
   const show = d.show.map((t) => {
     const parts = splitText(t, cell).map((p) => p.char + (p.dp ? "." : ""));

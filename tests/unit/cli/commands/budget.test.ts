@@ -33,7 +33,7 @@ describe("budget command", () => {
     });
     const io = recordingIo({ "bad.json": bad });
     expect(await main(["budget", "bad.json"], io)).toBe(2);
-    expect(io.stderr.join("")).toMatch(/^bad\.json: electrical\.string\.dies: must be a whole number/);
+    expect(io.stderr.join("")).toBe("bad.json: electrical.string.dies: got 0; must be a whole number from 1 to 200\n");
   });
 
   it("describes a shared design: depths, trim, corners and the cautions first", () => {

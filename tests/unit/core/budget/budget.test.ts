@@ -106,7 +106,7 @@ describe("solveBudget", () => {
   });
 
   it("warns of a diode over its rating", () => {
-    const p = showing(["1", "7", "8"], 1, { electrical: { diode: { maxForwardA: 1e-6, maxReverseV: 0.5 } } });
+    const p = showing(["1", "7", "8"], 1, { electrical: { diode: { maxForwardA: 1e-6, maxReverseV: 1 } } });
     const codes = budgetOf(directDesign("weak diode", p)).warnings.map((x) => x.code);
     expect(codes).toContain("diode-current");
     expect(codes).toContain("diode-reverse");

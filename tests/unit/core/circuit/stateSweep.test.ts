@@ -20,10 +20,12 @@ describe("solveAllStates", () => {
   });
 
   it("names the solve and the state when a circuit fails", () => {
-    // A 1e-300 ohm counter resistance passes the schema (> 0) but its 1e300 S swamps every other
-    // conductance in double precision, so no method converges: the sweep must say so, not guess.
-    const d = directDesign("extreme", showing(["1", "7"], 1, { electrical: { counterOutput: { resistance: 1e-300 } } }));
-    const r = solveAllStates(d.spec, d.matrix, d.project.electrical, "nominal");
+    // A 1e-300 ohm counter resistance (which the schema now refuses, but code may still hand the
+    // solver) has a 1e300 S conductance that swamps every other one in double precision, so no
+    // method converges: the sweep must say so, not guess.
+    const d = directDesign("extreme", showing(["1", "7"], 1));
+    const e = d.project.electrical;
+    const r = solveAllStates(d.spec, d.matrix, { ...e, counterOutput: { ...e.counterOutput, resistance: 1e-300 } }, "nominal");
     expect(r.ok).toBe(false);
     if (r.ok) return;
     expect(r.error.kind).toBe("no-convergence");

@@ -1,0 +1,35 @@
+/**
+ * Stage 0 of the pipeline: the project file, read and checked once.
+ */
+export { PROJECT_SCHEMA } from "./project.ts";
+export type {
+  Cell,
+  CellKind,
+  CounterOutputModel,
+  DepthPolicy,
+  DiodeModel,
+  DriverModel,
+  ElectricalModel,
+  Project,
+  StringModel,
+  SupplyModel,
+  SynthesisFields,
+  SynthesisOptions,
+  ToleranceModel,
+} from "./project.ts";
+export { LIMITS, fileSizeProblem } from "./limits.ts";
+export type { WholeRange } from "./limits.ts";
+export { ELECTRICAL_DEFAULTS, ELECTRICAL_RANGES } from "./electricalSchema.ts";
+export type { RangeRule } from "./electricalSchema.ts";
+export { DEPTH_POLICIES, SYNTHESIS_DEFAULTS, checkSynthesisOverrides, numberFromText } from "./synthesisSchema.ts";
+export type { SynthesisOverrides } from "./synthesisSchema.ts";
+export { MAX_PROJECT_BYTES, parseProject, splitText, validateProject } from "./projectSchema.ts";
+export type { TextPosition } from "./projectSchema.ts";
+export { decodeProjectBytes, firstInvalidUtf8, parseProjectBytes } from "./projectBytes.ts";
+export { lineColumn, readJson } from "./jsonText.ts";
+export type { JsonRead, JsonReadOptions } from "./jsonText.ts";
+export { EXCERPT_CHARS, describeValue, fieldPath, hasUnsafeText, quoteText } from "./valueText.ts";
+export { numberRuleText } from "./fieldRules.ts";
+export type { NumberRule } from "./fieldRules.ts";
+export { serializeProject, synthesisFields } from "./projectWriter.ts";
+export { fillPattern } from "./textPatterns.ts";
