@@ -22,7 +22,8 @@
  */
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import type { DiodeMatrix } from "../core/matrix/matrix.ts";
-import { countParts, formatMilliamps, refRanges } from "../core/papers/parts.ts";
+import { designators } from "../core/matrix/designators.ts";
+import { refRanges } from "../core/papers/parts.ts";
 import type { Project } from "../core/project/project.ts";
 import {
   STROKE,
@@ -42,6 +43,7 @@ import {
 } from "./drawingModel.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
 import { glyphKey, glyphKeyHeight } from "./glyphKey.ts";
+import { milliampsExact } from "./units.ts";
 import { TITLE_BLOCK_MM, notesBlock, notesHeight, sheetFrame, titleBlock, zoneOf, type SheetFrame } from "./sheetFrame.ts";
 
 /** Where the wiring list finds a diode on the drawing. */
@@ -174,8 +176,7 @@ function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, m: M
     ...[...matrix.buses].reverse().map((b) => ({ net: b, kind: "bus" as const, text: `${b} (bus)` })),
     ...linkSources.map((o) => ({ net: o, kind: "link" as const, text: `${o} (link)` })),
   ];
-  const transistors = countParts(project, spec, matrix).find((g) => g.kind === "transistor");
-  const driverOf = new Map((transistors?.serves ?? []).map((o, i) => [o, transistors?.refs[i] ?? ""]));
+  const driverOf = new Map(designators(spec, matrix, project.electrical).drivers.map((d) => [d.output, d.transistor]));
   const columns: GridColumn[] = [
     ...matrix.buses.map((b) => ({ net: b, kind: "bus" as const, group: "Buses", head: b, foot: "" })),
     ...matrix.outputs.map((o) => {
@@ -437,7 +438,7 @@ function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, co
   const notes: string[] = [];
   if (refs.length > 0) {
     notes.push(
-      `Diodes ${refRanges(refs)} (${refs.length}): small-signal silicon, at least ${e.diode.maxReverseV} V reverse and ${formatMilliamps(e.diode.maxForwardA)} mA forward.`,
+      `Diodes ${refRanges(refs)} (${refs.length}): small-signal silicon, at least ${e.diode.maxReverseV} V reverse and ${milliampsExact(e.diode.maxForwardA)} mA forward.`,
     );
   }
   notes.push(

@@ -1,32 +1,23 @@
 /**
- * Node only: svg.js on a svgdom window, so the CLI and tests can render
- * sheets to SVG text. The browser never imports this file.
+ * Node only: gives svg.js a svgdom window, so that the command line and the
+ * tests can draw sheets and write them with sheetSvg.ts. The browser never
+ * imports this file (it has a window of its own).
  */
 import { createSVGWindow } from "svgdom";
-import { registerWindow, SVG } from "@svgdotjs/svg.js";
-import type { Sheet } from "./drawingModel.ts";
-import { drawSheet } from "./drawSheet.ts";
+import { registerWindow } from "@svgdotjs/svg.js";
 
 let registered = false;
 
-function ensureWindow(): void {
+/**
+ * Registers a svgdom window with svg.js, once.
+ *
+ * @example
+ * registerNodeWindow();
+ * sheetSvgText(drawing.sheets[0]);
+ */
+export function registerNodeWindow(): void {
   if (registered) return;
   const window = createSVGWindow();
   registerWindow(window, window.document);
   registered = true;
-}
-
-/**
- * Renders a sheet to a standalone SVG document.
- *
- * @example
- * await writeFile("matrix.svg", sheetToSvgText(drawing.sheets[0]));
- */
-export function sheetToSvgText(sheet: Sheet): string {
-  ensureWindow();
-  const root = SVG();
-  drawSheet(root, sheet);
-  const text = root.svg();
-  root.remove();
-  return `<?xml version="1.0" encoding="UTF-8"?>\n${text}\n`;
 }

@@ -6,14 +6,24 @@
  * counts the page shows are checked against the core run in Node on the
  * project the page saves, so the screen cannot drift from the pipeline.
  */
-import { readFileSync } from "node:fs";
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
 import { parseProject } from "../../src/core/project/projectSchema.ts";
 import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
+import { formatOhms } from "../../src/render/units.ts";
 import { exampleText } from "../support/projects.ts";
+import { bomValues, budgetEmitters } from "../support/partValues.ts";
+import { xmlProblem } from "../support/xmlCheck.ts";
+import { storedZipEntries } from "../support/zipRead.ts";
 import { startApp, type AppHarness } from "./appBrowser.ts";
+
+const BIN = new URL("../../bin/diodeloom.mjs", import.meta.url).pathname;
+const ROOT = new URL("../../", import.meta.url).pathname;
 
 let app: AppHarness;
 let context: BrowserContext;
@@ -215,13 +225,20 @@ describe("the web app", () => {
             names.push(name);
             expect(bytes.length, `${kind}: ${name} is empty`).toBeGreaterThan(0);
             if (name.endsWith(".json")) expect(() => JSON.parse(text)).not.toThrow();
-            if (name.endsWith(".svg")) expect(text).toMatch(/<svg[\s>]/);
+            if (name.endsWith(".svg")) {
+              expect(text).toMatch(/<svg[\s>]/);
+              // The web app's SVG is XML that XML tools read (no HTML entities such as &nbsp;).
+              expect(xmlProblem(text), name).toBeNull();
+            }
             if (name.endsWith(".csv")) expect(text.split("\n").length).toBeGreaterThan(1);
             if (name.endsWith(".html")) expect(text).toMatch(/<table/);
             if (name.endsWith(".zip")) {
               expect(bytes.readUInt32LE(0)).toBe(0x04034b50);
               if (kind === "export-netlists") expect(text.match(/\.end\b/g)?.length).toBe(16);
-              if (kind === "export-svg") expect(text.match(/<svg[\s>]/g)?.length).toBeGreaterThan(1);
+              if (kind === "export-svg") {
+                expect(text.match(/<svg[\s>]/g)?.length).toBeGreaterThan(1);
+                for (const e of storedZipEntries(bytes)) expect(xmlProblem(e.text), e.name).toBeNull();
+              }
             }
           })(),
         );
@@ -234,6 +251,36 @@ describe("the web app", () => {
       expect(downloads.length, `${kind} downloaded nothing`).toBeGreaterThan(0);
     }
     console.log(`exports downloaded: ${names.join(", ")}`);
+  });
+
+  it("shows one value per resistor, the same as the command line's, with the trim as set in the Budget panel", async () => {
+    const work = mkdtempSync(join(tmpdir(), "diodeloom-app-design-"));
+    try {
+      const file = join(work, "project.json");
+      writeFileSync(file, await savedProject());
+      for (const [mode, args] of [
+        ["on", ["--trim", "on"]],
+        ["auto", []],
+      ] as const) {
+        await page.getByTestId("trim-mode").selectOption(mode);
+        await expect.poll(() => page.getByTestId("budget").locator(".chip.stale").count(), { timeout: 20_000 }).toBe(0);
+        const cli = JSON.parse(
+          execFileSync(process.execPath, [BIN, "budget", file, "--json", "--fast", ...args], { cwd: ROOT, encoding: "utf8" }),
+        ) as Parameters<typeof budgetEmitters>[0];
+        const emitters = budgetEmitters(cli);
+        expect(emitters.size).toBeGreaterThan(0);
+        for (const [ref, ohms] of emitters) {
+          const cell = page.locator(`[data-testid="emitter-${ref}"] [data-testid="emitter-value"]`);
+          await expect.poll(() => cell.textContent(), { timeout: 20_000 }).toBe(formatOhms(ohms));
+        }
+        if (!(await page.getByTestId("export-bom").isVisible())) await page.getByTestId("exports-menu").click();
+        const [download] = await Promise.all([page.waitForEvent("download"), page.getByTestId("export-bom").click()]);
+        const bom = bomValues(readFileSync(await download.path(), "utf8"));
+        for (const [ref, ohms] of emitters) expect([ref, bom.get(ref)]).toEqual([ref, formatOhms(ohms)]);
+      }
+    } finally {
+      rmSync(work, { recursive: true, force: true });
+    }
   });
 
   it("prints to PDF with the drawing on the page", async () => {

@@ -24,16 +24,17 @@ function run(args: string[]): Promise<{ code: number; stdout: string; stderr: st
 }
 
 describe("diodeloom budget", () => {
-  it.each(EXAMPLES)("prints diodeloom/budget@1 JSON for %s", async (name) => {
+  it.each(EXAMPLES)("prints diodeloom/budget@2 JSON for %s", async (name) => {
     const r = await run(["budget", `public/examples/${name}.json`, "--json", "--direct"]);
     expect(r.stderr).toBe("");
     expect(r.code).toBe(0);
     const b = JSON.parse(r.stdout) as Record<string, unknown>;
-    expect(b["schema"]).toBe("diodeloom/budget@1");
+    expect(b["schema"]).toBe("diodeloom/budget@2");
     for (const k of ["states", "outputs", "diodes", "supply", "warnings", "trim", "corners", "drivers", "counterLines"])
       expect(b).toHaveProperty(k);
-    const warnings = b["warnings"] as { level: string; code: string }[];
+    const warnings = b["warnings"] as { level: string; code: string; message: string }[];
     expect(warnings.filter((w) => w.level === "danger").map((w) => w.code)).toEqual(["hazardous-voltage", "mains-supply"]);
+    expect(warnings.every((w) => w.message.length > 0)).toBe(true);
   });
 
   it("prints a readable report with every section, and takes --series E96", async () => {

@@ -15,7 +15,8 @@ import { launchChromium } from "../support/chromium.ts";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { drawingOptions } from "../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../src/render/layout.ts";
-import { sheetToSvgText } from "../../src/render/nodeWindow.ts";
+import { registerNodeWindow } from "../../src/render/nodeWindow.ts";
+import { sheetSvgText } from "../../src/render/sheetSvg.ts";
 import { dieRollerShared, directExample } from "../support/sharedMatrix.ts";
 
 /** Pixels per millimetre of the rendered images (about 100 dpi). */
@@ -31,6 +32,7 @@ const update = process.env["UPDATE_REFERENCE_IMAGES"] === "1";
 let browser: Browser;
 
 beforeAll(async () => {
+  registerNodeWindow();
   browser = await launchChromium();
 });
 
@@ -106,7 +108,7 @@ describe("matrix sheets rendered in Chromium", () => {
       const { project, spec, matrix } = make();
       const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project, { date: "2026-12-01" }));
       const sheet = drawing.sheets[0]!;
-      const { png, parseError } = await renderPng(sheetToSvgText(sheet), sheet.widthMm, sheet.heightMm);
+      const { png, parseError } = await renderPng(sheetSvgText(sheet), sheet.widthMm, sheet.heightMm);
       expect(parseError).toBeNull();
       const file = new URL(`${name}.png`, REFERENCE_DIR);
       if (update) writeFileSync(file, png);
@@ -122,8 +124,8 @@ describe("matrix sheets rendered in Chromium", () => {
     const sa = layoutMatrix(a.project, a.spec, a.matrix, drawingOptions(a.project)).sheets[0]!;
     const sb = layoutMatrix(b.project, b.spec, b.matrix, drawingOptions(b.project)).sheets[0]!;
     const [pa, pb] = [
-      await renderPng(sheetToSvgText(sa), sa.widthMm, sa.heightMm),
-      await renderPng(sheetToSvgText(sb), sb.widthMm, sb.heightMm),
+      await renderPng(sheetSvgText(sa), sa.widthMm, sa.heightMm),
+      await renderPng(sheetSvgText(sb), sb.widthMm, sb.heightMm),
     ];
     expect(await differingShare(pa.png, pb.png)).toBeGreaterThan(MAX_DIFFERING);
   });

@@ -19,6 +19,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { buildCircuit } from "../../src/core/circuit/circuit.ts";
 import { solveDc } from "../../src/core/circuit/dcSolver.ts";
 import { spiceNetlist, stringDieNode } from "../../src/core/papers/netlist.ts";
+import { projectDesign } from "../../src/core/budget/emitterDesign.ts";
 import { clockProject, directDesign, sharedDieRoller, type Design } from "../support/budgetFixtures.ts";
 import { example, showing } from "../support/projects.ts";
 
@@ -106,7 +107,9 @@ function checkDesign(d: Design): Worst {
       ...diodes.map((r) => `@${r}[id]`),
       ...circuit.drivers.flatMap((dr) => [`@${dr.transistor.toLowerCase()}[ic]`, `@d${dr.display.toLowerCase()}_1[id]`]),
     ];
-    const ng = runNgspice(spiceNetlist(d.project, d.spec, d.matrix, k), probes, `${d.name.replace(/\W+/g, "-")}-${k}.cir`);
+    // The project's own emitter resistors, as buildCircuit above has them.
+    const design = projectDesign(d.project.electrical, d.matrix, { mode: "off", series: "E24" });
+    const ng = runNgspice(spiceNetlist(d.project, d.spec, d.matrix, k, design), probes, `${d.name.replace(/\W+/g, "-")}-${k}.cir`);
     for (const node of circuit.nodes) {
       const theirs = ng.get(node);
       expect(theirs, `ngspice printed no voltage for ${node}`).toBeDefined();

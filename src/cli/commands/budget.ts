@@ -1,46 +1,43 @@
-import { solveBudget, type Budget } from "../../core/budget/budget.ts";
+import { budgetDesign, solveBudget } from "../../core/budget/budget.ts";
+import type { Budget } from "../../core/budget/budgetTypes.ts";
+import { designNote } from "../../core/budget/emitterDesign.ts";
 import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
-import type { ESeriesName } from "../../core/budget/eSeries.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
-import { formatOhms } from "../../core/papers/parts.ts";
 import type { Project } from "../../core/project/project.ts";
+import { budgetJsonText } from "../../render/budgetJson.ts";
+import { warningText } from "../../render/budgetWarningText.ts";
+import { formatOhms, microamps, milliamps, milliwatts, nanoamps, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
+import { designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `budget FILE [--json] [--series E24|E96] ${SYNTH_USAGE}`;
+const USAGE = `budget FILE [--json] ${DESIGN_USAGE} ${SYNTH_USAGE}`;
 
 export const budgetCommand: Command = {
   name: "budget",
   usage: USAGE,
   options: {
-    json: { help: "print the budget as diodeloom/budget@1 JSON (SI units)" },
-    series: { value: true, meta: "E24|E96", help: "preferred values for the emitter-resistor trim (default E24)" },
+    json: { help: "print the budget as diodeloom/budget@2 JSON (SI units)" },
+    ...DESIGN_OPTIONS,
     ...SYNTH_OPTIONS,
   },
   async run(args, io) {
-    const series = args.values.get("series") ?? "E24";
-    if (series !== "E24" && series !== "E96") {
-      io.err(`--series must be E24 or E96 (got "${series}")\n`);
-      return EXIT.input;
-    }
+    const given = designArgs(args, io);
+    if (!given) return EXIT.input;
     const done = await loadAndSynthesize(args, io, USAGE);
     if (typeof done === "number") return done;
     const { project, spec, matrix } = done;
-    const budget = solveBudget(project, spec, matrix, { series: series as ESeriesName });
+    const budget = solveBudget(project, spec, matrix, { series: given.series, trim: given.mode });
     if (!budget.ok) {
       io.err(`${budget.error.message}\n`);
       return EXIT.input;
     }
-    if (args.flags.has("json")) io.out(JSON.stringify(budget.value, null, 2) + "\n");
+    if (args.flags.has("json")) io.out(budgetJsonText(budget.value));
     else io.out(describeBudget(project, spec, matrix, budget.value));
     return EXIT.ok;
   },
 };
-
-const uA = (a: number): string => (a * 1e6).toFixed(1);
-const mA = (a: number): string => (a * 1e3).toFixed(2);
-const V = (v: number): string => v.toFixed(2);
 
 function table(head: readonly string[], rows: readonly (readonly string[])[]): string[] {
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? "").length)));
@@ -56,12 +53,12 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
   L.push(project.title);
   L.push(
     `DC budget at ${e.temperatureC} °C: supply ${e.supply.volts} V (${e.supply.minVolts}-${e.supply.maxVolts} V), ` +
-      `strings of ${e.string.dies} dies, target ${uA(e.string.targetA)} µA; ${m.method} matrix, ${m.count} diodes, longest path ${m.longestPath}`,
+      `strings of ${e.string.dies} dies, target ${microamps(e.string.targetA)} µA; ${m.method} matrix, ${m.count} diodes, longest path ${m.longestPath}`,
   );
   L.push("");
   if (b.warnings.length > 0) {
     L.push("Warnings");
-    for (const w of b.warnings) L.push(`  ${w.level.toUpperCase().padEnd(6)} ${w.code}: ${w.message}`);
+    for (const w of b.warnings) L.push(`  ${w.level.toUpperCase().padEnd(6)} ${w.code}: ${warningText(w)}`);
     L.push("");
   }
   const outs = Object.keys(b.outputs);
@@ -72,84 +69,100 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
       b.states.map((s) => [
         s.state,
         `"${s.text}"`,
-        uA(s.sourceCurrent),
-        mA(s.supplyCurrent),
+        microamps(s.sourceCurrentA),
+        milliamps(s.supplyCurrentA),
         ...outs.map((o) => {
           const x = s.outputs[o];
-          return x && x.lit ? uA(x.stringCurrent) : ".";
+          return x && x.lit ? microamps(x.stringCurrentA) : ".";
         }),
       ]),
     ),
   );
   L.push("");
-  L.push(`Outputs (spread = how much dimmer the dimmest state is; trim: ${b.trim.series} emitter resistor and the range it gives)`);
+  const trimState = b.trim.applied ? "applied" : "not applied";
+  L.push(
+    `Outputs (spread = how much dimmer the dimmest state is; Re = the design's emitter resistor; trim: ${b.trim.series}, ${trimState}, and the range it gives)`,
+  );
   L.push(
     ...table(
-      ["Output", "Depth", "Min µA", "Max µA", "Spread %", "Off max nA", "Re", "Trim", "Trimmed µA"],
+      ["Output", "Depth", "Min µA", "Max µA", "Spread %", "Off max nA", "R", "Re", "Trim", "Trim µA"],
       outs.map((o) => {
         const r = b.outputs[o] as Budget["outputs"][string];
         const t = b.trim.outputs[o];
         const dr = b.drivers[o];
         return [
           o,
-          r.tiedOn ? "tied" : r.depths.join("+"),
-          uA(r.min),
-          uA(r.max),
-          r.spreadPct.toFixed(1),
-          (r.offMax * 1e9).toFixed(2),
+          r.tiedOn ? "tied" : r.pathLengths.join("+"),
+          microamps(r.minA),
+          microamps(r.maxA),
+          percent(r.spreadPct),
+          nanoamps(r.offMaxA),
+          dr ? dr.emitterResistor : "",
           dr ? formatOhms(dr.emitterOhms) : "",
           t ? formatOhms(t.ohms) : "",
-          t ? `${uA(t.min)}-${uA(t.max)}` : "",
+          t ? `${microamps(t.minA)}-${microamps(t.maxA)}` : "",
         ];
       }),
     ),
   );
-  L.push(`  Spread over all strings: ${b.spreadPct.toFixed(1)} %; after the trim ${b.trim.spreadPct.toFixed(1)} %`);
+  L.push(
+    `  Spread over all strings: ${percent(b.spreadPct)} %; with the project's emitter resistors ${percent(b.trim.spreadPctBefore)} %, ` +
+      `with the ${b.trim.series} trim ${percent(b.trim.spreadPct)} %`,
+  );
+  L.push(
+    `  Farthest string from the target: ${percent(b.trim.offTargetPctBefore)} % with the project's emitter resistors, ` +
+      `${percent(b.trim.offTargetPct)} % with the trim`,
+  );
+  L.push(`  ${designNote(budgetDesign(b))}`);
   L.push("");
   const diodes = Object.entries(b.diodes);
   if (diodes.length > 0) {
-    const [fRef, f] = diodes.reduce((a, c) => (c[1].maxCurrent > a[1].maxCurrent ? c : a));
-    const [rRef, r] = diodes.reduce((a, c) => (c[1].maxReverse > a[1].maxReverse ? c : a));
+    const [fRef, f] = diodes.reduce((a, c) => (c[1].maxCurrentA > a[1].maxCurrentA ? c : a));
+    const [rRef, r] = diodes.reduce((a, c) => (c[1].maxReverseV > a[1].maxReverseV ? c : a));
     L.push(`Diodes (${diodes.length}; every one in --json)`);
-    L.push(`  largest forward current ${uA(f.maxCurrent)} µA in ${fRef} (${f.from} -> ${f.to}); rated ${mA(f.ratedCurrent)} mA`);
-    L.push(`  largest reverse voltage ${V(r.maxReverse)} V across ${rRef} (${r.from} -> ${r.to}); rated ${V(r.ratedReverse)} V`);
+    L.push(
+      `  largest forward current ${microamps(f.maxCurrentA)} µA in ${fRef} (${f.from} -> ${f.to}); rated ${milliamps(f.ratedCurrentA)} mA`,
+    );
+    L.push(`  largest reverse voltage ${volts(r.maxReverseV)} V across ${rRef} (${r.from} -> ${r.to}); rated ${volts(r.ratedReverseV)} V`);
     L.push("");
   }
   L.push("Counter lines (when active)");
   L.push(
     ...table(
       ["Line", "Sources µA", "Line V", "Sag V"],
-      Object.entries(b.counterLines).map(([l, c]) => [l, uA(c.sourceCurrent), V(c.lineVoltage), V(c.sag)]),
+      Object.entries(b.counterLines).map(([l, c]) => [l, microamps(c.sourceCurrentA), volts(c.lineV), volts(c.sagV)]),
     ),
   );
   L.push("");
   L.push(`Drivers (headroom = lowest collector-base voltage of a lit driver at the ${e.supply.minVolts} V supply)`);
   L.push(
     ...table(
-      ["Output", "Q", "Re", "Vce max V", "P max mW", "Headroom V"],
+      ["Output", "Q", "R", "Re", "Vce max V", "P max mW", "Headroom V"],
       Object.entries(b.drivers).map(([o, d]) => [
         o,
         d.transistor,
+        d.emitterResistor,
         formatOhms(d.emitterOhms),
-        V(d.maxVce),
-        (d.maxPower * 1e3).toFixed(2),
-        V(d.headroom),
+        volts(d.maxVceV),
+        milliwatts(d.maxPowerW, 2),
+        volts(d.headroomV),
       ]),
     ),
   );
   L.push("");
-  L.push(`Supply: up to ${mA(b.supply.maxCurrent)} mA, ${(b.supply.maxPower * 1e3).toFixed(1)} mW at ${b.supply.volts} V`);
+  L.push(`Supply: up to ${milliamps(b.supply.maxCurrentA)} mA, ${milliwatts(b.supply.maxPowerW)} mW at ${b.supply.volts} V`);
   L.push("");
-  L.push(`Tolerance corners (trimmed design; ±${e.tolerance.resistorPct} % resistors, beta ${e.tolerance.betaMin}-${e.tolerance.betaMax})`);
+  const which = b.trim.applied ? "trimmed design" : "design with the project's emitter resistors";
+  L.push(`Tolerance corners (${which}; ±${e.tolerance.resistorPct} % resistors, beta ${e.tolerance.betaMin}-${e.tolerance.betaMax})`);
   for (const c of [b.corners.low, b.corners.high]) {
     const k = c.conditions;
     L.push(
-      `  ${k.name.padEnd(4)} ${k.supplyV} V, ${k.temperatureC} °C, beta ${k.betaF}: strings ${uA(c.minCurrent)}-${uA(c.maxCurrent)} µA, ` +
-        `headroom ${V(c.minHeadroom)} V, driver up to ${(c.maxPower * 1e3).toFixed(2)} mW`,
+      `  ${k.name.padEnd(4)} ${k.supplyV} V, ${k.temperatureC} °C, beta ${k.betaF}: strings ${microamps(c.minCurrentA)}-${microamps(c.maxCurrentA)} µA, ` +
+        `headroom ${volts(c.minHeadroomV)} V, driver up to ${milliwatts(c.maxPowerW, 2)} mW`,
     );
   }
   L.push(
-    `  ${b.corners.meetsTarget ? "Meets" : "Misses"} the target: every corner within ±${b.corners.windowPct} % of ${uA(e.string.targetA)} µA, under the rating, no saturation`,
+    `  ${b.corners.meetsTarget ? "Meets" : "Misses"} the target: every corner within ±${b.corners.windowPct} % of ${microamps(e.string.targetA)} µA, under the rating, no saturation`,
   );
   L.push(`  Temperature: VT = kT/q; silicon Is(T) as SPICE scales it (EG 1.11 eV, XTI 3); LED dies -2 mV/°C at constant current`);
   return L.join("\n") + "\n";

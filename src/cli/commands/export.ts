@@ -1,31 +1,30 @@
 /**
- * `diodeloom export FILE --out DIR`: everything a builder takes to the bench.
- *
- * Writes the matrix drawing (matrix.svg, or matrix-1.svg ... when it needs
- * several sheets), the wiring list (wiring.csv and the printable
- * wiring.html), the budget (budget.json, diodeloom/budget@1), the BOM
- * (bom.csv, with the budget's trimmed emitter resistors), one SPICE netlist
- * per state (spice/S0.cir ...) and the normalised project (project.json).
+ * `diodeloom export FILE --out DIR`: everything a builder takes to the bench,
+ * the files the papers builder (render/papers.ts) makes, the same the web
+ * app's Export menu offers: the matrix drawing (matrix.svg, or matrix-1.svg
+ * ... when it needs several sheets), the wiring list (wiring.csv and the
+ * printable wiring.html), the budget (budget.json, diodeloom/budget@2), the
+ * BOM (bom.csv) and one SPICE netlist per state (spice/S0.cir ...), both
+ * with the design's emitter resistors, and the normalised project
+ * (project.json).
  *
  * When the budget cannot be solved the other files are still written, the
- * BOM keeps the nominal emitter values, and the exit code is 1.
+ * BOM and decks keep the project's emitter values, and the exit code is 1.
  */
 import { join } from "node:path";
-import { bomCsv, bomLines } from "../../core/papers/bom.ts";
 import { solveBudget } from "../../core/budget/budget.ts";
-import { spiceNetlist } from "../../core/papers/netlist.ts";
-import { serializeProject } from "../../core/project/projectWriter.ts";
-import { wiringCsv, wiringRows } from "../../core/papers/wiringList.ts";
+import { designNote } from "../../core/budget/emitterDesign.ts";
 import { drawingOptions, type DrawingOptions } from "../../render/drawingOptions.ts";
 import { layoutMatrix } from "../../render/layout.ts";
-import { sheetToSvgText } from "../../render/nodeWindow.ts";
-import { wiringPageHtml } from "../../render/wiringPage.ts";
+import { registerNodeWindow } from "../../render/nodeWindow.ts";
+import { allPaperFiles, paperDesign } from "../../render/papers.ts";
 import type { ParsedArgs } from "../args.ts";
 import type { Command } from "../command.ts";
+import { designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT, type CliIo } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE}`;
+const USAGE = `export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${DESIGN_USAGE} ${SYNTH_USAGE}`;
 
 /** Longest free text accepted for a title-block field. */
 const MAX_FIELD = 40;
@@ -40,6 +39,7 @@ export const exportCommand: Command = {
     "drawing-number": { value: true, meta: "TEXT", help: "drawing number (default: DL- and a hash of the project)" },
     revision: { value: true, meta: "TEXT", help: "revision (default A)" },
     "drawn-by": { value: true, meta: "TEXT", help: "creator for the title block (default diodeloom)" },
+    ...DESIGN_OPTIONS,
     ...SYNTH_OPTIONS,
   },
   async run(args, io) {
@@ -50,34 +50,27 @@ export const exportCommand: Command = {
     }
     const given = drawingArgs(args, io);
     if (!given) return EXIT.input;
+    const design = designArgs(args, io);
+    if (!design) return EXIT.input;
     const done = await loadAndSynthesize(args, io, USAGE);
     if (typeof done === "number") return done;
     const { project, spec, matrix } = done;
 
     const options = drawingOptions(project, given);
     const drawing = layoutMatrix(project, spec, matrix, options);
-    const rows = wiringRows(matrix, drawing.placements);
-    const files: [string, string][] = [];
-    const single = drawing.sheets.length === 1;
-    drawing.sheets.forEach((sheet) => files.push([single ? "matrix.svg" : `matrix-${sheet.number}.svg`, sheetToSvgText(sheet)]));
-    files.push(["wiring.csv", wiringCsv(rows)]);
-    files.push(["wiring.html", wiringPageHtml(project, matrix, rows, options, drawing.sheets.length)]);
-    const budget = solveBudget(project, spec, matrix);
-    let trimmed: Map<string, number> | undefined;
-    if (budget.ok) {
-      files.push(["budget.json", JSON.stringify(budget.value, null, 2) + "\n"]);
-      trimmed = new Map(Object.entries(budget.value.trim.outputs).map(([o, t]) => [o, t.ohms]));
-    } else {
-      io.err(`budget: ${budget.error.message}; budget.json left out, the BOM keeps the nominal emitter resistors\n`);
-    }
-    files.push(["bom.csv", bomCsv(bomLines(project, spec, matrix, trimmed))]);
-    spec.states.forEach((s, k) => files.push([join("spice", `${s}.cir`), spiceNetlist(project, spec, matrix, k, trimmed)]));
-    files.push(["project.json", serializeProject(project)]);
+    const budget = solveBudget(project, spec, matrix, { series: design.series, trim: design.mode });
+    if (!budget.ok)
+      io.err(`budget: ${budget.error.message}; budget.json left out, the BOM and decks keep the project's emitter resistors\n`);
+    registerNodeWindow();
+    const files = allPaperFiles({ project, spec, matrix, options, drawing, budget });
 
     await io.makeDir(out);
-    await io.makeDir(join(out, "spice"));
-    for (const [name, text] of files) await io.writeFile(join(out, name), text);
-    io.out(`${project.title}\nWrote ${files.length} files to ${out}:\n${files.map(([n]) => `  ${n}`).join("\n")}\n`);
+    for (const dir of new Set(files.map((f) => f.name.split("/").slice(0, -1).join("/")).filter((d) => d !== ""))) {
+      await io.makeDir(join(out, ...dir.split("/")));
+    }
+    for (const f of files) await io.writeFile(join(out, ...f.name.split("/")), f.text);
+    io.out(`${project.title}\nWrote ${files.length} files to ${out}:\n${files.map((f) => `  ${f.name}`).join("\n")}\n`);
+    io.out(`${designNote(paperDesign({ project, matrix, budget }))}\n`);
     if (budget.ok && budget.value.warnings.length > 0)
       io.out(`The budget has ${budget.value.warnings.length} warning(s); see budget.json or run diodeloom budget.\n`);
     return budget.ok ? EXIT.ok : EXIT.findings;

@@ -1,15 +1,17 @@
 import { spiceNetlist } from "../../core/papers/netlist.ts";
 import type { Command } from "../command.ts";
+import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `netlist FILE --state K ${SYNTH_USAGE}`;
+const USAGE = `netlist FILE --state K ${DESIGN_USAGE} ${SYNTH_USAGE}`;
 
 export const netlistCommand: Command = {
   name: "netlist",
   usage: USAGE,
   options: {
     state: { value: true, meta: "K", help: "the active state: its number 0..N-1 or its name S0..S(N-1)" },
+    ...DESIGN_OPTIONS,
     ...SYNTH_OPTIONS,
   },
   async run(args, io) {
@@ -18,6 +20,8 @@ export const netlistCommand: Command = {
       io.err(`--state is required (the active state, e.g. --state 0)\nusage: diodeloom ${USAGE}\n`);
       return EXIT.input;
     }
+    const given = designArgs(args, io);
+    if (!given) return EXIT.input;
     const m = /^S?(\d+)$/i.exec(raw);
     const k = m ? Number(m[1]) : NaN;
     const done = await loadAndSynthesize(args, io, USAGE, (project) => {
@@ -27,7 +31,7 @@ export const netlistCommand: Command = {
     });
     if (typeof done === "number") return done;
     const { project, spec, matrix } = done;
-    io.out(spiceNetlist(project, spec, matrix, k));
+    io.out(spiceNetlist(project, spec, matrix, k, designFor(project, spec, matrix, given)));
     return EXIT.ok;
   },
 };

@@ -1,26 +1,33 @@
+import { designNote, type EmitterDesign } from "../../core/budget/emitterDesign.ts";
 import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
+import { designators } from "../../core/matrix/designators.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import { countParts, refRanges } from "../../core/papers/parts.ts";
 import type { Project } from "../../core/project/project.ts";
+import { partValue } from "../../render/bom.ts";
 import type { Command } from "../command.ts";
+import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `synth FILE [--json] ${SYNTH_USAGE}`;
+const USAGE = `synth FILE [--json] ${DESIGN_USAGE} ${SYNTH_USAGE}`;
 
 export const synthCommand: Command = {
   name: "synth",
   usage: USAGE,
   options: {
     json: { help: "print the matrix as diodeloom/matrix@2 JSON" },
+    ...DESIGN_OPTIONS,
     ...SYNTH_OPTIONS,
   },
   async run(args, io) {
+    const given = designArgs(args, io);
+    if (!given) return EXIT.input;
     const done = await loadAndSynthesize(args, io, USAGE);
     if (typeof done === "number") return done;
     const { project, spec, matrix } = done;
     if (args.flags.has("json")) io.out(JSON.stringify(matrix, null, 2) + "\n");
-    else io.out(describeMatrix(project, spec, matrix));
+    else io.out(describeMatrix(project, spec, matrix, designFor(project, spec, matrix, given)));
     return EXIT.ok;
   },
 };
@@ -31,8 +38,12 @@ const METHOD_TEXT = {
   exact: "exact optimizer",
 } as const;
 
-/** The readable report of `synth`. */
-export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMatrix): string {
+/**
+ * The readable report of `synth`.
+ *
+ * @param design the emitter resistors the parts list shows (as the budget, the BOM and the decks do)
+ */
+export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMatrix, design: EmitterDesign): string {
   const lines: string[] = [];
   const lit = spec.lit.reduce((a, row) => a + row.filter(Boolean).length, 0);
   lines.push(project.title);
@@ -87,9 +98,10 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
   if (spec.neverLit.length > 0) lines.push(`Never lit (no driver): ${spec.neverLit.join(" ")}`);
 
   lines.push("", "Parts");
-  for (const g of countParts(project, spec, m)) {
-    lines.push(`  ${String(g.refs.length).padStart(4)}  ${g.value.padEnd(22)} ${refRanges(g.refs)}`);
+  for (const g of countParts(designators(spec, m, project.electrical, design.emitterOhms))) {
+    lines.push(`  ${String(g.refs.length).padStart(4)}  ${partValue(g, project.electrical).padEnd(22)} ${refRanges(g.refs)}`);
   }
+  lines.push(`  ${designNote(design)}`);
   lines.push("", `Totals: ${m.count} diodes (direct ${lit}, saved ${lit - m.count}), ${m.buses.length} bus nodes, ${links.length} links`);
   return lines.join("\n") + "\n";
 }

@@ -17,7 +17,7 @@
  * - beta: not scaled with temperature (SPICE's XTB = 0); the beta range
  *   `tolerance.betaMin`..`betaMax` stands for spread and temperature alike.
  */
-import { emitterOhmsOf } from "../circuit/circuit.ts";
+import { emitterOhmsOf } from "../matrix/designators.ts";
 import { shockleyVoltage, thermalVoltage, ZERO_CELSIUS_K } from "../circuit/physics.ts";
 import type { ElectricalModel } from "../project/project.ts";
 

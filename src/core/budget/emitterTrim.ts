@@ -11,7 +11,7 @@
  * the target wins. "Centred" uses the middle of the output's range over the
  * states that light it, so that the worst deviation is smallest.
  */
-import { emitterOhmsOf } from "../circuit/circuit.ts";
+import { emitterOhmsOf } from "../matrix/designators.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import { preferredNeighbours, type ESeriesName } from "./eSeries.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
@@ -21,9 +21,10 @@ import { isLit, solveAllStates, type BudgetFailure, type StateSolution } from ".
 
 /** Range of one output's string current over the states that light it. */
 export interface CurrentRange {
-  /** Amperes. */
-  readonly min: number;
-  readonly max: number;
+  /** Lowest lit string current, amperes. */
+  readonly minA: number;
+  /** Highest lit string current, amperes. */
+  readonly maxA: number;
   /** 100 (max - min) / max: how much dimmer the dimmest state is, percent. */
   readonly spreadPct: number;
 }
@@ -60,26 +61,36 @@ export function currentRanges(spec: DecodeSpec, solutions: readonly StateSolutio
     }
   });
   const out = new Map<string, CurrentRange>();
-  for (const [o, min] of lo) {
-    const max = hi.get(o) as number;
-    out.set(o, { min, max, spreadPct: spreadPct(min, max) });
+  for (const [o, minA] of lo) {
+    const maxA = hi.get(o) as number;
+    out.set(o, { minA, maxA, spreadPct: spreadPct(minA, maxA) });
   }
   return out;
 }
 
 /** 100 (max - min) / max, percent; 0 when nothing flows. */
-export function spreadPct(min: number, max: number): number {
-  return max > 0 ? (100 * (max - min)) / max : 0;
+export function spreadPct(minA: number, maxA: number): number {
+  return maxA > 0 ? (100 * (maxA - minA)) / maxA : 0;
 }
 
 /** Spread over all lit strings of all outputs, percent. */
 export function overallSpread(ranges: ReadonlyMap<string, CurrentRange>): number {
   const rs = [...ranges.values()];
   if (rs.length === 0) return 0;
-  return spreadPct(Math.min(...rs.map((r) => r.min)), Math.max(...rs.map((r) => r.max)));
+  return spreadPct(Math.min(...rs.map((r) => r.minA)), Math.max(...rs.map((r) => r.maxA)));
 }
 
-const mid = (r: CurrentRange): number => (r.min + r.max) / 2;
+/**
+ * Largest distance of any lit string from the target current, percent of
+ * the target: 100 max |I - target| / target. 0 when nothing is lit.
+ */
+export function offTargetPct(ranges: ReadonlyMap<string, CurrentRange>, targetA: number): number {
+  let worst = 0;
+  for (const r of ranges.values()) worst = Math.max(worst, Math.abs(r.minA - targetA), Math.abs(r.maxA - targetA));
+  return (100 * worst) / targetA;
+}
+
+const mid = (r: CurrentRange): number => (r.minA + r.maxA) / 2;
 
 /**
  * Works out the trim from the nominal solution.

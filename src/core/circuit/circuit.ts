@@ -19,13 +19,15 @@
  * Node names are SPICE-safe and lower case: counter line `s0`, its source
  * `s0_v`, bus `b1`, output line (= driver base) `o1a`, emitter `e1a`,
  * collector `c1a`, string supply `vsup`, tie-on source `vhi`; ground is `0`.
- * Element names follow the parts count (Q1, R1, DS1...) so that a netlist
- * and a BOM name the same parts.
+ * Element names and resistor values come from the designators
+ * (`matrix/designators.ts`), so that a netlist and a BOM name the same parts
+ * with the same values.
  */
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
 import { shockleyVoltage, thermalVoltage } from "./physics.ts";
 import type { ElectricalModel } from "../project/project.ts";
+import { designators, type DriverParts, type PartResistorRole } from "../matrix/designators.ts";
 
 export const GROUND = "0";
 export const SUPPLY_NODE = "vsup";
@@ -39,7 +41,8 @@ export interface VoltageSource {
   readonly volts: number;
 }
 
-export type ResistorRole = "counter" | "tie-on" | "pull-down" | "emitter";
+/** `counter`: the counter line's own source resistance (part of the counter, not a part to fit). */
+export type ResistorRole = "counter" | PartResistorRole;
 
 export interface Resistor {
   readonly kind: "resistor";
@@ -94,14 +97,8 @@ export interface Npn {
 
 export type CircuitElement = VoltageSource | Resistor | CircuitDiode | LedString | Npn;
 
-/** The parts of one output's driver stage. */
-export interface DriverStage {
-  readonly output: string;
-  readonly tiedOn: boolean;
-  readonly transistor: string;
-  readonly emitterResistor: string;
-  readonly emitterOhms: number;
-  readonly display: string;
+/** One output's driver stage: its parts (from the designators) and the nodes they join. */
+export interface DriverStage extends DriverParts {
   readonly baseNode: string;
   readonly emitterNode: string;
   readonly collectorNode: string;
@@ -136,18 +133,10 @@ export function lineNode(line: string, outputs: ReadonlySet<string>): string {
 }
 
 /**
- * Emitter resistor of each driven output, ohms: an explicit map (a trim)
- * first, then the project's per-output override, then the default.
- */
-export function emitterOhmsOf(model: ElectricalModel, output: string, trim?: ReadonlyMap<string, number>): number {
-  return trim?.get(output) ?? model.driver.emitterResistors[output] ?? model.driver.emitterResistor;
-}
-
-/**
  * Builds the circuit of the state `stateIndex` (0-based) of a matrix.
  *
  * @param model the electrical model (a tolerance corner passes a changed copy)
- * @param trim optional emitter resistor values, ohms, keyed by output
+ * @param trim optional emitter resistor values of the design, ohms, keyed by output (see `designators`)
  * @example
  * const c = buildCircuit(spec, matrix, project.electrical, 0);
  * c.elements.find((e) => e.name === "VS0"); // { kind: "vsource", node: "s0_v", volts: 2.4, ... }
@@ -163,8 +152,8 @@ export function buildCircuit(
     throw new RangeError(`state index ${stateIndex} is outside 0..${matrix.states.length - 1}`);
   }
   const outputs = new Set(matrix.outputs);
-  const tied = new Set(matrix.tiedOn);
-  const driven = spec.allOutputs.filter((o) => outputs.has(o) || tied.has(o));
+  const parts = designators(spec, matrix, model, trim);
+  const tiedCount = parts.drivers.filter((d) => d.tiedOn).length;
   const co = model.counterOutput;
   const elements: CircuitElement[] = [];
   const lineNodes: Record<string, string> = {};
@@ -194,59 +183,31 @@ export function buildCircuit(
   }
 
   const drivers: DriverStage[] = [];
-  if (driven.length > 0) elements.push({ kind: "vsource", name: "VSUP", node: SUPPLY_NODE, volts: model.supply.volts });
-  if (tied.size > 0) elements.push({ kind: "vsource", name: "VHI", node: TIE_ON_NODE, volts: co.high });
-  // Designators as in the parts count: Q/R(emitter)/DS by display order,
-  // then pull-downs of driven outputs, then tie-on resistors, then the
-  // pull-downs of tied-on outputs.
-  let r = driven.length;
-  const pullDownRef = new Map<string, string>();
-  for (const o of matrix.outputs) pullDownRef.set(o, `R${++r}`);
-  const tieRef = new Map<string, string>();
-  for (const o of matrix.tiedOn) tieRef.set(o, `R${++r}`);
-  const tiedPullDownRef = new Map<string, string>();
-  for (const o of matrix.tiedOn) tiedPullDownRef.set(o, `R${++r}`);
-
-  driven.forEach((o, i) => {
-    const base = `o${o}`;
-    const emitter = `e${o}`;
-    const collector = `c${o}`;
-    const ohms = emitterOhmsOf(model, o, trim);
-    const stage: DriverStage = {
-      output: o,
-      tiedOn: tied.has(o),
-      transistor: `Q${i + 1}`,
-      emitterResistor: `R${i + 1}`,
-      emitterOhms: ohms,
-      display: `DS${i + 1}`,
-      baseNode: base,
-      emitterNode: emitter,
-      collectorNode: collector,
-    };
+  if (parts.drivers.length > 0) elements.push({ kind: "vsource", name: "VSUP", node: SUPPLY_NODE, volts: model.supply.volts });
+  if (tiedCount > 0) elements.push({ kind: "vsource", name: "VHI", node: TIE_ON_NODE, volts: co.high });
+  for (const p of parts.drivers) {
+    const o = p.output;
+    const stage: DriverStage = { ...p, baseNode: `o${o}`, emitterNode: `e${o}`, collectorNode: `c${o}` };
     drivers.push(stage);
-    const pd = pullDownRef.get(o) ?? tieRef.get(o);
-    if (pd === undefined) throw new Error(`bug: no pull-down designator for ${o}`);
-    if (tied.has(o)) {
-      elements.push({ kind: "resistor", name: pd, role: "tie-on", a: TIE_ON_NODE, b: base, ohms: co.resistance });
-      // A tied-on output's pull-down comes after the tie-on resistors in the parts count.
-      const tpd = tiedPullDownRef.get(o);
-      if (tpd === undefined) throw new Error(`bug: no pull-down designator for tied-on ${o}`);
-      elements.push({ kind: "resistor", name: tpd, role: "pull-down", a: base, b: GROUND, ohms: model.pullDown });
-    } else {
-      elements.push({ kind: "resistor", name: pd, role: "pull-down", a: base, b: GROUND, ohms: model.pullDown });
+    const base = stage.baseNode;
+    if (p.tieOn !== null && p.tieOnOhms !== null) {
+      elements.push({ kind: "resistor", name: p.tieOn, role: "tie-on", a: TIE_ON_NODE, b: base, ohms: p.tieOnOhms });
     }
+    elements.push({ kind: "resistor", name: p.pullDown, role: "pull-down", a: base, b: GROUND, ohms: p.pullDownOhms });
     const dr = model.driver;
-    elements.push({ kind: "npn", name: stage.transistor, collector, base, emitter, isA: dr.is, betaF: dr.betaF, betaR: dr.betaR });
-    elements.push({ kind: "resistor", name: stage.emitterResistor, role: "emitter", a: emitter, b: GROUND, ohms });
+    const emitter = stage.emitterNode;
+    const collector = stage.collectorNode;
+    elements.push({ kind: "npn", name: p.transistor, collector, base, emitter, isA: dr.is, betaF: dr.betaF, betaR: dr.betaR });
+    elements.push({ kind: "resistor", name: p.emitterResistor, role: "emitter", a: emitter, b: GROUND, ohms: p.emitterOhms });
     const st = model.string;
-    elements.push({ kind: "string", name: stage.display, anode: SUPPLY_NODE, cathode: collector, dies: st.dies, isA: st.is, n: st.n });
-  });
+    elements.push({ kind: "string", name: p.display, anode: SUPPLY_NODE, cathode: collector, dies: st.dies, isA: st.is, n: st.n });
+  }
 
   const nodes = [
     ...lineOrder,
     ...sourceOrder,
-    ...(driven.length > 0 ? [SUPPLY_NODE] : []),
-    ...(tied.size > 0 ? [TIE_ON_NODE] : []),
+    ...(drivers.length > 0 ? [SUPPLY_NODE] : []),
+    ...(tiedCount > 0 ? [TIE_ON_NODE] : []),
     ...drivers.map((d) => d.collectorNode),
     ...drivers.map((d) => d.emitterNode),
     ...matrix.buses.map((b) => lineNode(b, outputs)),

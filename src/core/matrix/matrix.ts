@@ -4,6 +4,7 @@
  */
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DepthPolicy } from "../project/project.ts";
+import { diodeRef } from "./designators.ts";
 
 export const MATRIX_SCHEMA = "diodeloom/matrix@2";
 
@@ -63,6 +64,7 @@ export function busName(i: number): string {
  * Builds a matrix from bare edges: renumbers the buses that are used in order
  * of first use, orders the diodes for assembly (counter lines first, in state
  * order, then buses, then output links) and gives them references D1...
+ * (`diodeRef`)
  */
 export function buildMatrix(spec: DecodeSpec, edges: readonly Edge[], meta: MatrixMeta): DiodeMatrix {
   const stateIdx = new Map(spec.states.map((s, i) => [s, i]));
@@ -86,7 +88,7 @@ export function buildMatrix(spec: DecodeSpec, edges: readonly Edge[], meta: Matr
     return 2e6 + (outIdx.get(n) ?? 0);
   };
   const ordered = [...edges].sort((a, b) => rank(a.from) - rank(b.from) || rank(a.to) - rank(b.to));
-  const diodes = ordered.map((e, i) => ({ ref: `D${i + 1}`, from: nameOf(e.from), to: nameOf(e.to) }));
+  const diodes = ordered.map((e, i) => ({ ref: diodeRef(i), from: nameOf(e.from), to: nameOf(e.to) }));
   return {
     schema: MATRIX_SCHEMA,
     states: spec.states,

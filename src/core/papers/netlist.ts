@@ -7,6 +7,7 @@ import { buildCircuit, type Circuit } from "../circuit/circuit.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
+import { designNote, type EmitterDesign } from "../budget/emitterDesign.ts";
 
 /** Formats a number the way every SPICE reads it (no unit suffixes). */
 function num(x: number): string {
@@ -79,20 +80,19 @@ export function circuitNetlist(circuit: Circuit, title: string, notes: readonly 
 
 /**
  * The SPICE netlist of a project's circuit with state `stateIndex` (0-based)
- * active, using the project's own electrical values, or, when `trimOhms` is
- * given, the budget's trimmed emitter resistors (the values the BOM lists).
+ * active, with the design's emitter resistors (the values the BOM lists);
+ * a comment line says which they are.
  *
- * @param trimOhms emitter resistor per output name, ohms
  * @example
- * spiceNetlist(project, spec, matrix, 0).split("\n")[0]; // "* <title>: state S0 active"
+ * spiceNetlist(project, spec, matrix, 0, design).split("\n")[0]; // "* <title>: state S0 active"
  */
 export function spiceNetlist(
   project: Project,
   spec: DecodeSpec,
   matrix: VerifiedMatrix,
   stateIndex: number,
-  trimOhms?: ReadonlyMap<string, number>,
+  design: EmitterDesign,
 ): string {
-  const note = trimOhms ? "Emitter resistors as trimmed by the budget (the values in the BOM)." : "Emitter resistors as in the project.";
-  return circuitNetlist(buildCircuit(spec, matrix, project.electrical, stateIndex, trimOhms), project.title, [note]);
+  const circuit = buildCircuit(spec, matrix, project.electrical, stateIndex, design.emitterOhms);
+  return circuitNetlist(circuit, project.title, [designNote(design)]);
 }

@@ -1,12 +1,22 @@
 /**
  * The Budget panel: string current per output across the states (an SVG
- * chart), the spread and the trim, supply figures, and the warnings with
- * their severity (a word and a mark, never colour alone).
+ * chart), the spread, the design's emitter resistors with the trim and the
+ * control that says whether the design takes it, supply figures, and the
+ * warnings with their severity (a word and a mark, never colour alone).
  */
 import { createMemo, For, Show } from "solid-js";
-import { formatOhms } from "../../core/papers/parts.ts";
+import { budgetDesign } from "../../core/budget/budget.ts";
+import { designNote, TRIM_MODES, type TrimMode } from "../../core/budget/emitterDesign.ts";
+import { warningText } from "../../render/budgetWarningText.ts";
+import { formatOhms, microampsShort, milliamps, milliwatts, percent } from "../../render/units.ts";
 import { app } from "../state/appState.ts";
-import { budgetChart, CHART_ROW_H, formatMicro } from "./budgetChart.ts";
+import { budgetChart, CHART_ROW_H } from "./budgetChart.ts";
+
+const TRIM_LABEL: Readonly<Record<TrimMode, string>> = {
+  auto: "where it improves the design",
+  off: "off: the project's values",
+  on: "always",
+};
 
 const LEVEL = { danger: { mark: "✖", word: "DANGER" }, warn: { mark: "⚠", word: "warning" }, info: { mark: "ℹ", word: "note" } } as const;
 const WIDTH = 440;
@@ -31,6 +41,18 @@ export function BudgetPanel() {
     <section class="panel" aria-labelledby="budget-h" data-testid="budget">
       <div class="panel-head">
         <h2 id="budget-h">Budget</h2>
+        <label class="label" for="f-trim">
+          Emitter trim
+        </label>
+        <select
+          id="f-trim"
+          data-testid="trim-mode"
+          value={app.trimMode()}
+          onChange={(e) => app.setTrimMode(e.currentTarget.value as TrimMode)}
+          title="Whether the design (the BOM, the SPICE decks, the print view) takes the emitter-resistor trim"
+        >
+          <For each={TRIM_MODES}>{(m) => <option value={m}>{TRIM_LABEL[m]}</option>}</For>
+        </select>
         <Show when={app.stale() || app.budgetStale() || (app.live() && !view())}>
           <span class="chip stale">↻ {app.stale() ? "stale: from the last valid project" : view() ? "stale, updating" : "working"}</span>
         </Show>
@@ -50,11 +72,12 @@ export function BudgetPanel() {
         {(b) => (
           <>
             <p class="budget-summary">
-              target <strong>{formatMicro(b().targetCurrent)} µA</strong> · spread <strong>{b().spreadPct.toFixed(1)} %</strong> → after{" "}
-              {b().trim.series} trim <strong>{b().trim.spreadPct.toFixed(1)} %</strong> · supply max{" "}
-              {(b().supply.maxCurrent * 1000).toFixed(2)} mA, {(b().supply.maxPower * 1000).toFixed(0)} mW · corners{" "}
-              {formatMicro(b().corners.low.minCurrent)}–{formatMicro(b().corners.high.maxCurrent)} µA{" "}
-              {b().corners.meetsTarget ? "✓ meet" : "⚠ miss"} the ±{b().corners.windowPct} % window
+              target <strong>{microampsShort(b().targetCurrentA)} µA</strong> · spread <strong>{percent(b().spreadPct)} %</strong> (
+              {b().trim.applied ? "trimmed" : "project's resistors"}; project's {percent(b().trim.spreadPctBefore)} %, {b().trim.series}{" "}
+              trim {percent(b().trim.spreadPct)} %) · supply max {milliamps(b().supply.maxCurrentA)} mA,{" "}
+              {milliwatts(b().supply.maxPowerW, 0)} mW · corners {microampsShort(b().corners.low.minCurrentA)}–
+              {microampsShort(b().corners.high.maxCurrentA)} µA {b().corners.meetsTarget ? "✓ meet" : "⚠ miss"} the ±{b().corners.windowPct}{" "}
+              % window
             </p>
             <Show when={chart()}>
               {(c) => (
@@ -81,12 +104,12 @@ export function BudgetPanel() {
                         <For each={r.ticks}>
                           {(t) => (
                             <line class="tick" x1={t.x} x2={t.x} y1={r.y - 4} y2={r.y + 4}>
-                              <title>{`${r.output} in ${t.state}: ${formatMicro(t.currentA)} µA`}</title>
+                              <title>{`${r.output} in ${t.state}: ${microampsShort(t.currentA)} µA`}</title>
                             </line>
                           )}
                         </For>
                         <text class="chart-value" x={c().width - 2} y={r.y + 3} text-anchor="end">
-                          {r.spreadPct.toFixed(1)} %
+                          {percent(r.spreadPct)} %
                         </text>
                       </g>
                     )}
@@ -109,30 +132,38 @@ export function BudgetPanel() {
               )}
             </Show>
             <p class="legend muted small">
-              <span class="key key-band" /> nominal min–max · <span class="key key-trim" /> after trim · <span class="key key-tick" /> one
-              lit state · <span class="key key-target" /> target · right: spread
+              <span class="key key-band" /> the design's min–max · <span class="key key-trim" /> with the trim ·{" "}
+              <span class="key key-tick" /> one lit state · <span class="key key-target" /> target · right: spread
             </p>
-            <details class="trim">
-              <summary>Emitter resistor trim ({b().trim.series})</summary>
-              <table class="mini-table">
+            <details class="trim" open>
+              <summary>Emitter resistors</summary>
+              <p class="design-note" data-testid="design-note">
+                {designNote(budgetDesign(b()))}
+              </p>
+              <table class="mini-table" data-testid="emitter-table">
                 <thead>
                   <tr>
+                    <th>Ref</th>
                     <th>Output</th>
-                    <th>Ohms</th>
-                    <th>Min µA</th>
-                    <th>Max µA</th>
+                    <th>Value</th>
+                    <th>{b().trim.series} trim</th>
+                    <th>Trim µA</th>
                   </tr>
                 </thead>
                 <tbody>
-                  <For each={Object.entries(b().trim.outputs)}>
-                    {([o, t]) => (
-                      <tr>
-                        <td>{o}</td>
-                        <td>{formatOhms(t.ohms)}</td>
-                        <td>{formatMicro(t.min)}</td>
-                        <td>{formatMicro(t.max)}</td>
-                      </tr>
-                    )}
+                  <For each={Object.entries(b().drivers)}>
+                    {([o, d]) => {
+                      const t = () => b().trim.outputs[o];
+                      return (
+                        <tr data-testid={`emitter-${d.emitterResistor}`}>
+                          <td>{d.emitterResistor}</td>
+                          <td>{o}</td>
+                          <td data-testid="emitter-value">{formatOhms(d.emitterOhms)}</td>
+                          <td>{t() ? formatOhms(t()?.ohms ?? 0) : ""}</td>
+                          <td>{t() ? `${microampsShort(t()?.minA ?? 0)}–${microampsShort(t()?.maxA ?? 0)}` : ""}</td>
+                        </tr>
+                      );
+                    }}
                   </For>
                 </tbody>
               </table>
@@ -144,7 +175,7 @@ export function BudgetPanel() {
                     <span class="sev">
                       {LEVEL[w.level].mark} {LEVEL[w.level].word}
                     </span>{" "}
-                    {w.message}
+                    {warningText(w)}
                   </li>
                 )}
               </For>

@@ -7,8 +7,9 @@
  */
 import { createEffect, createMemo, createSignal, For, onCleanup, Show } from "solid-js";
 import type { DiodeSymbol, Sheet } from "../../render/drawingModel.ts";
+import { SVG, type Svg } from "@svgdotjs/svg.js";
+import { drawSheet } from "../../render/drawSheet.ts";
 import { app } from "../state/appState.ts";
-import { mountSheet } from "../files/sheetSvg.ts";
 
 /** Zoom steps, as a share of the panel width. */
 const ZOOMS = [0.5, 0.75, 1, 1.5, 2, 3, 4] as const;
@@ -107,6 +108,14 @@ export function DrawingPanel() {
       </div>
     </section>
   );
+}
+
+/** Draws a sheet into an element (emptied first) with the svg.js adapter and returns the svg.js root. */
+function mountSheet(into: HTMLElement, sheet: Sheet): Svg {
+  into.replaceChildren();
+  const root = SVG().addTo(into);
+  drawSheet(root, sheet);
+  return root;
 }
 
 function SheetView(props: {

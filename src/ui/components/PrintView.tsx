@@ -1,11 +1,15 @@
 /**
  * The print view: only visible when printing (styles.css @media print).
  * After the drawing sheets come the wiring list, with sheet and zone of
- * every diode and the inspection checklist, and the parts count.
+ * every diode and the inspection checklist, and the parts count with the
+ * budget's design (the values the BOM and the decks carry).
  */
 import { createMemo, For, Show } from "solid-js";
-import { bomLines } from "../../core/papers/bom.ts";
+import { designNote } from "../../core/budget/emitterDesign.ts";
+import { designators } from "../../core/matrix/designators.ts";
 import { INSPECTION_CHECKLIST, WIRING_HEADER, wiringRows } from "../../core/papers/wiringList.ts";
+import { bomLines } from "../../render/bom.ts";
+import { paperDesign } from "../../render/papers.ts";
 import { app } from "../state/appState.ts";
 
 export function PrintView() {
@@ -13,10 +17,16 @@ export function PrintView() {
     const r = app.live();
     if (!r) return null;
     const drawing = app.drawing();
-    const b = app.budget();
-    const trim =
-      b && b.forResult === r && b.result.ok ? new Map(Object.entries(b.result.value.trim.outputs).map(([o, t]) => [o, t.ohms])) : undefined;
-    return { r, rows: wiringRows(r.matrix, drawing?.placements), parts: bomLines(r.project, r.spec, r.matrix, trim) };
+    const budget = app.currentBudget();
+    const design = paperDesign({ project: r.project, matrix: r.matrix, budget });
+    const parts = designators(r.spec, r.matrix, r.project.electrical, design.emitterOhms);
+    // Until the budget settles the emitter resistors, the print view shows no values it may then change.
+    return {
+      r,
+      rows: wiringRows(r.matrix, drawing?.placements),
+      parts: budget ? bomLines(r.project.electrical, parts, design) : [],
+      design,
+    };
   });
   return (
     <Show when={lists()}>
@@ -67,6 +77,7 @@ export function PrintView() {
             </tbody>
           </table>
           <h2>Parts count</h2>
+          <p>{l().parts.length > 0 ? designNote(l().design) : "The parts count follows when the budget has been worked out."}</p>
           <table class="print-table">
             <thead>
               <tr>

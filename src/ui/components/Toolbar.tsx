@@ -49,7 +49,7 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
     const r = app.live();
     if (!r) return;
     const stem = fileStem(r.project.title);
-    const files = exportFiles(r, kind, app.paper(), app.budget()?.forResult === r ? app.budget()?.result : undefined);
+    const files = exportFiles(r, kind, app.paper(), app.currentBudget());
     if (files.length === 0) {
       app.setNotice({
         level: "warn",
@@ -58,7 +58,7 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
       });
       return;
     }
-    files.forEach((f) => downloadText(`${stem}-${f.name}`, f.content, f.mime));
+    files.forEach((f) => downloadText(`${stem}-${f.name}`, f.content, f.mediaType));
     if (menu) menu.open = false;
   };
 

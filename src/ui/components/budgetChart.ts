@@ -1,10 +1,11 @@
 /**
  * Geometry of the budget chart: one row per output, the string current of
- * every lit state as a tick on a shared current axis, the nominal min-max
- * band, the band after the trim, and the target as a vertical line. Pure,
+ * every lit state as a tick on a shared current axis, the design's min-max
+ * band, the band the trim gives, and the target as a vertical line. Pure,
  * so the scale can be checked without a DOM.
  */
-import type { Budget } from "../../core/budget/budget.ts";
+import type { Budget } from "../../core/budget/budgetTypes.ts";
+import { microampsShort } from "../../render/units.ts";
 
 export interface ChartRow {
   readonly output: string;
@@ -34,9 +35,9 @@ const AXIS_H = 18;
 /** Lays out the chart in a box `width` units wide. */
 export function budgetChart(b: Budget, width: number): BudgetChart {
   const outputs = Object.keys(b.outputs);
-  let top = b.targetCurrent;
+  let top = b.targetCurrentA;
   for (const o of outputs) {
-    top = Math.max(top, b.outputs[o]?.max ?? 0, b.trim.outputs[o]?.max ?? 0);
+    top = Math.max(top, b.outputs[o]?.maxA ?? 0, b.trim.outputs[o]?.maxA ?? 0);
   }
   const scaleMax = niceCeil(top * 1.08);
   const plotX0 = 34;
@@ -46,29 +47,24 @@ export function budgetChart(b: Budget, width: number): BudgetChart {
     const ob = b.outputs[o];
     const ticks = b.states.flatMap((s) => {
       const v = s.outputs[o];
-      return v && v.lit ? [{ x: x(v.stringCurrent), state: s.state, currentA: v.stringCurrent }] : [];
+      return v && v.lit ? [{ x: x(v.stringCurrentA), state: s.state, currentA: v.stringCurrentA }] : [];
     });
     const t = b.trim.outputs[o];
     return {
       output: o,
       y: TOP + i * CHART_ROW_H + CHART_ROW_H / 2,
       ticks,
-      band: { x0: x(ob?.min ?? 0), x1: x(ob?.max ?? 0) },
-      trimmed: t ? { x0: x(t.min), x1: x(t.max) } : null,
+      band: { x0: x(ob?.minA ?? 0), x1: x(ob?.maxA ?? 0) },
+      trimmed: t ? { x0: x(t.minA), x1: x(t.maxA) } : null,
       spreadPct: ob?.spreadPct ?? 0,
     };
   });
   const steps = 4;
   const axis = Array.from({ length: steps + 1 }, (_, k) => {
     const a = (scaleMax * k) / steps;
-    return { x: x(a), label: formatMicro(a) };
+    return { x: x(a), label: microampsShort(a) };
   });
-  return { width, height: TOP + rows.length * CHART_ROW_H + AXIS_H, plotX0, plotX1, targetX: x(b.targetCurrent), axis, rows };
-}
-
-/** A current in µA for the axis, to 3 significant figures. */
-export function formatMicro(amperes: number): string {
-  return `${Number((amperes * 1e6).toPrecision(3))}`;
+  return { width, height: TOP + rows.length * CHART_ROW_H + AXIS_H, plotX0, plotX1, targetX: x(b.targetCurrentA), axis, rows };
 }
 
 /** The next 1, 2 or 5 times a power of ten at or above v. */

@@ -5,7 +5,9 @@
  * domain work happens in src/core through liveResult.ts.
  */
 import { batch, createMemo, createRoot, createSignal } from "solid-js";
-import type { Budget, BudgetFailure } from "../../core/budget/budget.ts";
+import type { BudgetFailure } from "../../core/budget/budget.ts";
+import type { Budget } from "../../core/budget/budgetTypes.ts";
+import type { TrimMode } from "../../core/budget/emitterDesign.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import type { Result } from "../../core/result/result.ts";
 import type { PaperName } from "../../render/drawingModel.ts";
@@ -45,6 +47,8 @@ const BUDGET_DELAY_MS = 150;
 export interface BudgetView {
   /** The result the budget belongs to; it is stale when the shown result differs. */
   readonly forResult: LiveResult;
+  /** The trim setting it was solved with; it is stale when the setting differs. */
+  readonly trim: TrimMode;
   readonly result: Result<Budget, BudgetFailure | { readonly kind: "rejected"; readonly message: string }>;
 }
 
@@ -71,6 +75,8 @@ function createAppState() {
   const [ready, setReady] = createSignal(false);
   const [paper, setPaperSignal] = createSignal<PaperName>(readPaper());
   const [budget, setBudget] = createSignal<BudgetView | null>(null);
+  /** Whether the design takes the emitter-resistor trim (the Budget panel's control); every paper follows it. */
+  const [trimMode, setTrimMode] = createSignal<TrimMode>("auto");
   /** The drawing of the shown result, laid out once for the screen, the print view and the exports. */
   const drawing = createMemo<MatrixDrawing | null>(() => {
     const r = live();
@@ -81,11 +87,17 @@ function createAppState() {
   /** Shows a result and schedules its budget. */
   function show(r: LiveResult): void {
     setLive(r);
+    scheduleBudget(r);
+  }
+
+  /** Asks the worker for the budget of a result with the current trim setting. */
+  function scheduleBudget(r: LiveResult): void {
     clearTimeout(budgetTimer);
     budgetTimer = setTimeout(async () => {
+      const trim = trimMode();
       if (live() !== r) return;
-      const reply = await analysis.request<"budget">({ job: "budget", project: draftFromProject(r.project), matrix: r.matrix });
-      if (live() === r) setBudget({ forResult: r, result: reply.result });
+      const reply = await analysis.request<"budget">({ job: "budget", project: draftFromProject(r.project), matrix: r.matrix, trim });
+      if (live() === r && trimMode() === trim) setBudget({ forResult: r, trim, result: reply.result });
     }, BUDGET_DELAY_MS);
   }
 
@@ -271,7 +283,19 @@ function createAppState() {
     live,
     drawing,
     budget,
-    budgetStale: () => budget() !== null && budget()?.forResult !== live(),
+    budgetStale: () => budget() !== null && (budget()?.forResult !== live() || budget()?.trim !== trimMode()),
+    /** The budget of the shown result with the current trim setting, or undefined while it is being worked out. */
+    currentBudget: () => {
+      const b = budget();
+      return b && b.forResult === live() && b.trim === trimMode() ? b.result : undefined;
+    },
+    trimMode,
+    setTrimMode: (mode: TrimMode) => {
+      if (mode === trimMode()) return;
+      setTrimMode(mode);
+      const r = live();
+      if (r) scheduleBudget(r);
+    },
     paper,
     setPaper: (p: PaperName) => {
       setPaperSignal(p);

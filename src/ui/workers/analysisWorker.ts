@@ -30,5 +30,5 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
   const spec = compileSpec(project);
   const checked = verifyMatrix(spec, req.matrix as DiodeMatrix, synthSettings(project));
   if (!checked.ok) return post({ id: req.id, job: "budget", result: fail({ kind: "rejected", message: checked.error.join("; ") }) });
-  post({ id: req.id, job: "budget", result: solveBudget(project, spec, checked.value) });
+  post({ id: req.id, job: "budget", result: solveBudget(project, spec, checked.value, { trim: req.trim }) });
 };

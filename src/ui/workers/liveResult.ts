@@ -1,12 +1,11 @@
 /**
  * One pass of the pipeline for the screen: validated project -> decode
- * spec -> verified matrix -> parts (and, where the modules exist, budget and
- * drawing). The heuristic runs here for live results; the exact optimizer
+ * spec -> verified matrix (the budget, which settles the parts' values,
+ * follows in the analysis worker). The heuristic runs here for live results; the exact optimizer
  * runs in the worker and its answer replaces the matrix when it arrives.
  */
 import { compileSpec, litCellCount, type DecodeSpec } from "../../core/spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
-import { countParts, type PartGroup } from "../../core/papers/parts.ts";
 import type { Project } from "../../core/project/project.ts";
 import { fail, ok, type Result } from "../../core/result/result.ts";
 import { synthesize, synthSettings, type SynthFailure, type SynthSettings } from "../../core/synth/synthesize.ts";
@@ -19,7 +18,6 @@ export interface LiveResult {
   readonly matrix: VerifiedMatrix;
   /** One diode per lit cell: the count without sharing. */
   readonly directCount: number;
-  readonly parts: readonly PartGroup[];
 }
 
 /** Runs the heuristic on a validated project. */
@@ -33,7 +31,7 @@ export async function liveResult(project: Project): Promise<Result<LiveResult, S
 
 /** The same result around another verified matrix (the exact optimizer's). */
 export function withMatrix(project: Project, spec: DecodeSpec, settings: SynthSettings, matrix: VerifiedMatrix): LiveResult {
-  return { project, spec, settings, matrix, directCount: litCellCount(spec), parts: countParts(project, spec, matrix) };
+  return { project, spec, settings, matrix, directCount: litCellCount(spec) };
 }
 
 /**

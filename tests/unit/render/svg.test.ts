@@ -3,7 +3,10 @@ import { compileSpec } from "../../../src/core/spec/decodeSpec.ts";
 import { synthesizeDirect } from "../../../src/core/synth/direct.ts";
 import { drawingOptions } from "../../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../../src/render/layout.ts";
-import { sheetToSvgText } from "../../../src/render/nodeWindow.ts";
+import { SVG } from "@svgdotjs/svg.js";
+import { drawSheet } from "../../../src/render/drawSheet.ts";
+import { registerNodeWindow } from "../../../src/render/nodeWindow.ts";
+import { sheetSvgText, xmlText } from "../../../src/render/sheetSvg.ts";
 import { makeProject } from "../../support/projects.ts";
 import { dieRollerShared, directExample } from "../../support/sharedMatrix.ts";
 import { xmlProblem } from "../../support/xmlCheck.ts";
@@ -29,6 +32,8 @@ describe("the strict XML check itself", () => {
   });
 });
 
+registerNodeWindow();
+
 describe("rendered sheets", () => {
   const cases = {
     "hex monitor (direct)": directExample("relay-hex-monitor"),
@@ -39,13 +44,32 @@ describe("rendered sheets", () => {
     it(`every SVG sheet of the ${name} parses as XML and draws every diode`, () => {
       const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project));
       for (const sheet of drawing.sheets) {
-        const svg = sheetToSvgText(sheet);
+        const svg = sheetSvgText(sheet);
         expect(xmlProblem(svg)).toBeNull();
         expect(svg).toContain('viewBox="0 0 297 210"');
         expect(svg.match(/data-ref="D\d+"/g)?.length).toBe(sheet.diodes.length);
       }
     });
   }
+
+  it("writes the element tree as svgdom's own XML markup would, so the command line's files did not change", () => {
+    for (const { project, spec, matrix } of Object.values(cases)) {
+      for (const sheet of layoutMatrix(project, spec, matrix, drawingOptions(project)).sheets) {
+        const root = SVG();
+        drawSheet(root, sheet);
+        expect(xmlText(root.node)).toBe(root.svg());
+        root.remove();
+      }
+    }
+  });
+
+  it("writes a no-break space as the character itself, never as an HTML entity", () => {
+    const root = SVG();
+    root.plain("a\u00a0b & <c>");
+    expect(xmlText(root.node)).toContain("<text>a\u00a0b &amp; &lt;c&gt;</text>");
+    expect(xmlProblem(xmlText(root.node))).toBeNull();
+    root.remove();
+  });
 
   it("escapes markup characters in the title and texts", () => {
     const project = makeProject({
@@ -56,7 +80,7 @@ describe("rendered sheets", () => {
     });
     const spec = compileSpec(project);
     const drawing = layoutMatrix(project, spec, synthesizeDirect(spec, 1, "mixed"), drawingOptions(project));
-    const svg = sheetToSvgText(drawing.sheets[0]!);
+    const svg = sheetSvgText(drawing.sheets[0]!);
     expect(xmlProblem(svg)).toBeNull();
     // Spaces are written as no-break spaces so that SVG keeps them.
     expect(svg).toContain("R&amp;D\u00a0&lt;&quot;bench&quot;&gt;");
@@ -65,7 +89,7 @@ describe("rendered sheets", () => {
   it("renders Letter sheets at Letter size", () => {
     const { project, spec, matrix } = directExample("relay-hex-monitor");
     const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project, { paper: "letter" }));
-    const svg = sheetToSvgText(drawing.sheets[0]!);
+    const svg = sheetSvgText(drawing.sheets[0]!);
     expect(svg).toContain('width="279.4mm" height="215.9mm"');
     expect(xmlProblem(svg)).toBeNull();
   });

@@ -3,6 +3,7 @@ import { main } from "../../../../src/cli/main.ts";
 import { solveBudget } from "../../../../src/core/budget/budget.ts";
 import { describeBudget } from "../../../../src/cli/commands/budget.ts";
 import { recordingIo } from "../../../support/recordingIo.ts";
+import { formatOhms } from "../../../../src/render/units.ts";
 import { ONE_SEVEN_EIGHT_TEXT } from "../../../support/projects.ts";
 import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
 
@@ -12,15 +13,32 @@ describe("budget command", () => {
   it("prints the budget JSON and exits 0", async () => {
     const io = recordingIo({ "p.json": PROJECT });
     expect(await main(["budget", "p.json", "--json", "--direct"], io)).toBe(0);
-    const b = JSON.parse(io.stdout.join("")) as { schema: string; trim: { series: string } };
-    expect(b.schema).toBe("diodeloom/budget@1");
+    const b = JSON.parse(io.stdout.join("")) as { schema: string; trim: { series: string; mode: string } };
+    expect(b.schema).toBe("diodeloom/budget@2");
     expect(b.trim.series).toBe("E24");
+    expect(b.trim.mode).toBe("auto");
   });
 
   it("uses the E96 series when asked", async () => {
     const io = recordingIo({ "p.json": PROJECT });
     expect(await main(["budget", "p.json", "--json", "--direct", "--series", "E96"], io)).toBe(0);
     expect((JSON.parse(io.stdout.join("")) as { trim: { series: string } }).trim.series).toBe("E96");
+  });
+
+  it("takes --trim off and --trim on, and refuses another value", async () => {
+    for (const [mode, applied] of [
+      ["off", false],
+      ["on", true],
+    ] as const) {
+      const io = recordingIo({ "p.json": PROJECT });
+      expect(await main(["budget", "p.json", "--json", "--direct", "--trim", mode], io)).toBe(0);
+      const b = JSON.parse(io.stdout.join("")) as { trim: { mode: string; applied: boolean; effect: string } };
+      expect(b.trim.mode).toBe(mode);
+      expect(b.trim.applied).toBe(applied && b.trim.effect !== "no-change");
+    }
+    const io = recordingIo({ "p.json": PROJECT });
+    expect(await main(["budget", "p.json", "--trim", "maybe"], io)).toBe(2);
+    expect(io.stderr.join("")).toMatch(/--trim must be auto, off or on \(got "maybe"\)/);
   });
 
   it("passes project errors through with the file name and exit 2", async () => {
@@ -48,6 +66,11 @@ describe("budget command", () => {
     );
     expect(text).toMatch(/^ {2}1tr +2 /m);
     expect(text).toMatch(/^ {2}1c +1 /m);
-    expect(text).toContain("Tolerance corners");
+    expect(text).toContain("Tolerance corners (trimmed design;");
+    expect(text).toContain("  Emitter resistors: the E24 trim, applied because it ");
+    // The outputs table names each emitter resistor and gives the design's value.
+    for (const [o, dr] of Object.entries(b.value.drivers)) {
+      expect(text).toMatch(new RegExp(`^  ${o} .* ${dr.emitterResistor} +${formatOhms(dr.emitterOhms)} +`, "m"));
+    }
   });
 });

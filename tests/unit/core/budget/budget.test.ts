@@ -1,10 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { BUDGET_SCHEMA, solveBudget, type Budget } from "../../../../src/core/budget/budget.ts";
+import { budgetDesign, solveBudget } from "../../../../src/core/budget/budget.ts";
+import { BUDGET_SCHEMA, type Budget, type BudgetOptions } from "../../../../src/core/budget/budgetTypes.ts";
 import { E24, E96 } from "../../../../src/core/budget/eSeries.ts";
 import { directDesign, sharedDieRoller, type Design } from "../../../support/budgetFixtures.ts";
 import { example, showing } from "../../../support/projects.ts";
 
-function budgetOf(d: Design, options = {}): Budget {
+function budgetOf(d: Design, options: BudgetOptions = {}): Budget {
   const b = solveBudget(d.project, d.spec, d.matrix, options);
   if (!b.ok) throw new Error(b.error.message);
   return b.value;
@@ -20,16 +21,16 @@ describe("solveBudget", () => {
   const shared = sharedDieRoller();
   const b = budgetOf(shared);
 
-  it("has the issue's JSON shape in SI units, with finite numbers only", () => {
+  it("has the budget@2 shape in SI units, each unit in its field's name, with finite numbers only", () => {
     expect(b.schema).toBe(BUDGET_SCHEMA);
     expect(b.states.map((s) => s.state)).toEqual(shared.spec.states);
     const s0 = b.states[0];
     expect(Object.keys(s0?.outputs ?? {}).sort()).toEqual([...shared.spec.outputs].sort());
     expect(s0?.outputs["1c"]?.lit).toBe(true);
-    expect(s0?.outputs["1c"]?.stringCurrent).toBeGreaterThan(50e-6);
-    expect(s0?.outputs["1c"]?.stringCurrent).toBeLessThan(300e-6);
-    expect(s0?.outputs["1tl"]?.stringCurrent).toBeLessThan(1e-9);
-    expect(s0?.outputs["1c"]?.baseVoltage).toBeGreaterThan(1.5);
+    expect(s0?.outputs["1c"]?.stringCurrentA).toBeGreaterThan(50e-6);
+    expect(s0?.outputs["1c"]?.stringCurrentA).toBeLessThan(300e-6);
+    expect(s0?.outputs["1tl"]?.stringCurrentA).toBeLessThan(1e-9);
+    expect(s0?.outputs["1c"]?.baseV).toBeGreaterThan(1.5);
     const text = JSON.stringify(b);
     expect(text).not.toMatch(/null|NaN|Infinity/);
     expect(Object.keys(JSON.parse(text) as object)).toEqual(
@@ -38,57 +39,59 @@ describe("solveBudget", () => {
   });
 
   it("shows the dimming of a second diode drop, and the trim taking it out", () => {
-    const depth1 = b.outputs["1c"];
-    const depth2 = b.outputs["1tr"];
-    expect(depth1?.depths).toEqual([1]);
-    expect(depth2?.depths).toEqual([2]);
-    expect(depth2?.max ?? 1).toBeLessThan((depth1?.min ?? 0) * 0.8);
+    // The project's own emitter resistors (the trim off): the depth-2 output runs dimmer.
+    const own = budgetOf(shared, { trim: "off" });
+    const depth1 = own.outputs["1c"];
+    const depth2 = own.outputs["1tr"];
+    expect(depth1?.pathLengths).toEqual([1]);
+    expect(depth2?.pathLengths).toEqual([2]);
+    expect(depth2?.maxA ?? 1).toBeLessThan((depth1?.minA ?? 0) * 0.8);
     expect(b.trim.spreadPct).toBeLessThan(b.trim.spreadPctBefore / 2);
     // A depth-2 output needs a smaller emitter resistor for the same current.
     expect(b.trim.outputs["1tr"]?.ohms ?? 0).toBeLessThan(b.trim.outputs["1c"]?.ohms ?? 0);
     for (const t of Object.values(b.trim.outputs)) {
       expect(isPreferred(t.ohms, E24)).toBe(true);
-      expect(Math.abs((t.min + t.max) / 2 - b.targetCurrent)).toBeLessThan(b.targetCurrent * 0.06);
+      expect(Math.abs((t.minA + t.maxA) / 2 - b.targetCurrentA)).toBeLessThan(b.targetCurrentA * 0.06);
     }
     const e96 = budgetOf(shared, { series: "E96" });
     for (const t of Object.values(e96.trim.outputs)) {
       expect(isPreferred(t.ohms, E96)).toBe(true);
-      expect(Math.abs((t.min + t.max) / 2 - b.targetCurrent)).toBeLessThan(b.targetCurrent * 0.02);
+      expect(Math.abs((t.minA + t.maxA) / 2 - b.targetCurrentA)).toBeLessThan(b.targetCurrentA * 0.02);
     }
   });
 
   it("per output: min, max and spread over the states that light it", () => {
     for (const [o, r] of Object.entries(b.outputs)) {
       const lit = b.states.map((s) => s.outputs[o]).filter((x) => x?.lit);
-      expect(r.min).toBe(Math.min(...lit.map((x) => x?.stringCurrent as number)));
-      expect(r.max).toBe(Math.max(...lit.map((x) => x?.stringCurrent as number)));
-      expect(r.spreadPct).toBeCloseTo((100 * (r.max - r.min)) / r.max, 9);
+      expect(r.minA).toBe(Math.min(...lit.map((x) => x?.stringCurrentA as number)));
+      expect(r.maxA).toBe(Math.max(...lit.map((x) => x?.stringCurrentA as number)));
+      expect(r.spreadPct).toBeCloseTo((100 * (r.maxA - r.minA)) / r.maxA, 9);
     }
   });
 
   it("per diode, counter line and supply: the worst case over the states", () => {
     const d1 = b.diodes["D1"];
     expect(d1?.from).toBe("S0");
-    expect(d1?.maxCurrent).toBeGreaterThan(10e-6);
-    expect(d1?.maxReverse).toBeGreaterThan(1.5);
-    expect(d1?.ratedCurrent).toBe(0.1);
+    expect(d1?.maxCurrentA).toBeGreaterThan(10e-6);
+    expect(d1?.maxReverseV).toBeGreaterThan(1.5);
+    expect(d1?.ratedCurrentA).toBe(0.1);
     for (const [line, c] of Object.entries(b.counterLines)) {
-      expect(c.sag).toBeCloseTo(2.4 - c.lineVoltage, 12);
-      expect(c.sourceCurrent).toBeCloseTo(c.sag / 1000, 12);
-      expect(b.states.find((s) => s.state === line)?.sourceCurrent).toBe(c.sourceCurrent);
+      expect(c.sagV).toBeCloseTo(2.4 - c.lineV, 12);
+      expect(c.sourceCurrentA).toBeCloseTo(c.sagV / 1000, 12);
+      expect(b.states.find((s) => s.state === line)?.sourceCurrentA).toBe(c.sourceCurrentA);
     }
-    const most = Math.max(...b.states.map((s) => Object.values(s.outputs).reduce((a, o) => a + o.stringCurrent, 0)));
-    expect(b.supply.maxCurrent).toBeCloseTo(most, 12);
-    expect(b.supply.maxPower).toBeCloseTo(most * 100, 10);
+    const most = Math.max(...b.states.map((s) => Object.values(s.outputs).reduce((a, o) => a + o.stringCurrentA, 0)));
+    expect(b.supply.maxCurrentA).toBeCloseTo(most, 12);
+    expect(b.supply.maxPowerW).toBeCloseTo(most * 100, 10);
   });
 
   it("per driver: Vce, dissipation and headroom at the lowest supply", () => {
     for (const d of Object.values(b.drivers)) {
-      expect(d.maxVce).toBeGreaterThan(30);
-      expect(d.maxPower).toBeGreaterThan(1e-3);
-      expect(d.maxPower).toBeLessThan(0.5);
-      expect(d.headroom).toBeGreaterThan(20);
-      expect(d.headroom).toBeLessThan(90 - 50);
+      expect(d.maxVceV).toBeGreaterThan(30);
+      expect(d.maxPowerW).toBeGreaterThan(1e-3);
+      expect(d.maxPowerW).toBeLessThan(0.5);
+      expect(d.headroomV).toBeGreaterThan(20);
+      expect(d.headroomV).toBeLessThan(90 - 50);
     }
   });
 
@@ -121,8 +124,8 @@ describe("solveBudget", () => {
     });
     const fb = budgetOf(directDesign("fixed", fixed));
     expect(fb.corners.meetsTarget).toBe(true);
-    expect(fb.corners.low.minCurrent).toBeCloseTo(Math.min(...Object.values(fb.trim.outputs).map((t) => t.min)), 12);
-    expect(b.corners.low.minCurrent).toBeLessThan(b.corners.high.minCurrent);
+    expect(fb.corners.low.minCurrentA).toBeCloseTo(Math.min(...Object.values(fb.trim.outputs).map((t) => t.minA)), 12);
+    expect(b.corners.low.minCurrentA).toBeLessThan(b.corners.high.minCurrentA);
     expect(b.corners.low.conditions.temperatureC).toBe(0);
   });
 
@@ -143,5 +146,47 @@ describe("solveBudget", () => {
       const eb = budgetOf(directDesign(name, example(name)));
       expect(eb.states.every((s) => s.solver.method === "newton")).toBe(true);
     }
+  });
+
+  it("describes one design: with the trim applied every figure is the trimmed design's, and budgetDesign gives its values", () => {
+    expect(b.trim.applied).toBe(true);
+    expect(b.emitterResistors).toBe("trimmed");
+    for (const [o, d] of Object.entries(b.drivers)) {
+      expect(d.emitterOhms).toBe(b.trim.outputs[o]?.ohms);
+      expect([b.outputs[o]?.minA, b.outputs[o]?.maxA]).toEqual([b.trim.outputs[o]?.minA, b.trim.outputs[o]?.maxA]);
+    }
+    expect(b.spreadPct).toBe(b.trim.spreadPct);
+    expect(Object.fromEntries(budgetDesign(b).emitterOhms)).toEqual(
+      Object.fromEntries(Object.entries(b.trim.outputs).map(([o, t]) => [o, t.ohms])),
+    );
+    const own = budgetOf(shared, { trim: "off" });
+    expect(own.emitterResistors).toBe("project");
+    expect(Object.values(own.drivers).every((d) => d.emitterOhms === 10_000)).toBe(true);
+    expect(own.spreadPct).toBe(own.trim.spreadPctBefore);
+    expect(own.corners.low.minCurrentA).toBeLessThan(b.corners.low.minCurrentA);
+  });
+
+  it("warns of the design it describes: the project's dim segments only where the trim is not applied, and why", () => {
+    const own = budgetOf(shared, { trim: "off" });
+    const dim = own.warnings.filter((w) => w.code === "dim-segment");
+    expect(dim.map((w) => w.code === "dim-segment" && w.output).sort()).toEqual(["1bl", "1br", "1mr", "1tr"]);
+    for (const w of dim) if (w.code === "dim-segment") expect(w.unappliedTrim?.why).toBe("turned-off");
+    const spread = own.warnings.find((w) => w.code === "brightness-spread");
+    expect(spread).toMatchObject({ spreadPct: own.trim.spreadPctBefore, trim: "turned-off", otherSpreadPct: own.trim.spreadPct });
+    // With the trim applied, the design's strings all sit inside the window.
+    expect(b.warnings.filter((w) => w.code === "dim-segment")).toEqual([]);
+  });
+
+  it("never applies by default a trim that widens the spread, and says so (hex monitor, direct)", () => {
+    const hex = directDesign("hex monitor", example("relay-hex-monitor"));
+    const auto = budgetOf(hex);
+    expect(auto.trim.effect).toBe("widens-spread");
+    expect(auto.trim.spreadPct).toBeGreaterThan(auto.trim.spreadPctBefore);
+    expect(auto.trim.applied).toBe(false);
+    expect(Object.values(auto.drivers).every((d) => d.emitterOhms === 10_000)).toBe(true);
+    const forced = budgetOf(hex, { trim: "on" });
+    expect(forced.trim.applied).toBe(true);
+    expect(forced.spreadPct).toBe(forced.trim.spreadPct);
+    for (const [o, d] of Object.entries(forced.drivers)) expect(d.emitterOhms).toBe(forced.trim.outputs[o]?.ohms);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { currentRanges, overallSpread, spreadPct, trimEmitters } from "../../../../src/core/budget/emitterTrim.ts";
+import { currentRanges, offTargetPct, overallSpread, spreadPct, trimEmitters } from "../../../../src/core/budget/emitterTrim.ts";
 import { preferredNeighbours } from "../../../../src/core/budget/eSeries.ts";
 import { solveAllStates } from "../../../../src/core/circuit/stateSweep.ts";
 import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
@@ -11,11 +11,21 @@ describe("emitter trim", () => {
     expect(
       overallSpread(
         new Map([
-          ["a", { min: 80, max: 100, spreadPct: 20 }],
-          ["b", { min: 95, max: 120, spreadPct: 0 }],
+          ["a", { minA: 80, maxA: 100, spreadPct: 20 }],
+          ["b", { minA: 95, maxA: 120, spreadPct: 0 }],
         ]),
       ),
     ).toBeCloseTo((100 * 40) / 120, 12);
+  });
+
+  it("measures the farthest lit string from the target, percent of the target", () => {
+    const ranges = new Map([
+      ["a", { minA: 80, maxA: 100, spreadPct: 20 }],
+      ["b", { minA: 95, maxA: 130, spreadPct: 0 }],
+    ]);
+    expect(offTargetPct(ranges, 100)).toBeCloseTo(30, 12);
+    expect(offTargetPct(ranges, 120)).toBeCloseTo((100 * 40) / 120, 12);
+    expect(offTargetPct(new Map(), 100)).toBe(0);
   });
 
   it("picks one of the two preferred values around the ideal, the one centred nearer the target", () => {
@@ -33,7 +43,7 @@ describe("emitter trim", () => {
       const alt = solveAllStates(d.spec, d.matrix, e, "check", new Map([...t.value.ohms, [o, other]]));
       if (!alt.ok) throw new Error(alt.error.message);
       const r = currentRanges(d.spec, alt.value).get(o);
-      const mid = (a: { min: number; max: number }): number => (a.min + a.max) / 2;
+      const mid = (a: { minA: number; maxA: number }): number => (a.minA + a.maxA) / 2;
       expect(Math.abs(mid(x) - e.string.targetA)).toBeLessThanOrEqual(Math.abs(mid(r ?? x) - e.string.targetA) + 1e-9);
     }
     expect(t.value.solutions).toHaveLength(d.spec.states.length);

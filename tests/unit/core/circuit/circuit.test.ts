@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { buildCircuit, emitterOhmsOf, lineNode } from "../../../../src/core/circuit/circuit.ts";
+import { buildCircuit, lineNode } from "../../../../src/core/circuit/circuit.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
+import { designators } from "../../../../src/core/matrix/designators.ts";
 import { countParts } from "../../../../src/core/papers/parts.ts";
 import { directDesign, sharedDieRoller } from "../../../support/budgetFixtures.ts";
 import { showing } from "../../../support/projects.ts";
@@ -59,7 +60,7 @@ describe("buildCircuit", () => {
     const p = showing([" 1", "12"], 2);
     const d = directDesign("tied", p);
     const c = buildCircuit(d.spec, d.matrix, p.electrical, 1);
-    const groups = countParts(p, compileSpec(p), d.matrix);
+    const groups = countParts(designators(compileSpec(p), d.matrix, p.electrical));
     const names = new Set(c.elements.map((e) => e.name));
     for (const g of groups) {
       if (
@@ -75,11 +76,17 @@ describe("buildCircuit", () => {
     }
   });
 
-  it("takes emitter resistors from a trim, then the project's overrides, then the default", () => {
+  it("takes each emitter resistor from the designators: the trim, then the project's overrides, then the default", () => {
     const p = showing(["1", "7"], 1, { electrical: { driver: { emitterResistors: { "1a": 8200 } } } });
-    expect(emitterOhmsOf(p.electrical, "1a")).toBe(8200);
-    expect(emitterOhmsOf(p.electrical, "1b")).toBe(10_000);
-    expect(emitterOhmsOf(p.electrical, "1a", new Map([["1a", 9100]]))).toBe(9100);
+    const d = directDesign("1 7", p);
+    const ohms = (c: ReturnType<typeof buildCircuit>, o: string): number => {
+      const el = c.elements.find((e) => e.kind === "resistor" && e.role === "emitter" && e.a === `e${o}`);
+      return el && el.kind === "resistor" ? el.ohms : NaN;
+    };
+    const plain = buildCircuit(d.spec, d.matrix, p.electrical, 0);
+    expect([ohms(plain, "1a"), ohms(plain, "1b")]).toEqual([8200, 10_000]);
+    const trimmed = buildCircuit(d.spec, d.matrix, p.electrical, 0, new Map([["1a", 9100]]));
+    expect([ohms(trimmed, "1a"), ohms(trimmed, "1b")]).toEqual([9100, 10_000]);
   });
 
   it("rejects a state outside the counter", () => {

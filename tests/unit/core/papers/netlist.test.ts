@@ -1,11 +1,13 @@
 import { describe, expect, it } from "vitest";
 import { circuitNetlist, spiceNetlist, stringDieNode } from "../../../../src/core/papers/netlist.ts";
 import { buildCircuit } from "../../../../src/core/circuit/circuit.ts";
+import { projectDesign, type EmitterDesign } from "../../../../src/core/budget/emitterDesign.ts";
 import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
 
 describe("spiceNetlist", () => {
   const d = sharedDieRoller();
-  const deck = spiceNetlist(d.project, d.spec, d.matrix, 2);
+  const own = projectDesign(d.project.electrical, d.matrix, { mode: "off", series: "E24" });
+  const deck = spiceNetlist(d.project, d.spec, d.matrix, 2, own);
   const lines = deck.trimEnd().split("\n");
 
   it("is a standard deck: title comment, .model cards, elements, .op, .end", () => {
@@ -33,6 +35,16 @@ describe("spiceNetlist", () => {
     const names = lines.filter((l) => /^[A-Z]/.test(l)).map((l) => l.split(" ")[0]);
     expect(new Set(names).size).toBe(names.length);
     for (const l of lines.filter((x) => /^R/.test(x))) expect(l).toMatch(/ \d+(\.\d+)?(e[+-]?\d+)?$/);
+  });
+
+  it("writes the design's emitter resistors and says which they are", () => {
+    expect(lines).toContain("* Emitter resistors as in the project (the trim is turned off).");
+    expect(lines.filter((l) => /^R\d+ e\S+ 0 /.test(l)).every((l) => l.endsWith(" 10000"))).toBe(true);
+    const trim = new Map([...own.emitterOhms].map(([o], i) => [o, i % 2 === 0 ? 6200 : 9100]));
+    const design: EmitterDesign = { mode: "auto", series: "E24", trimmed: true, effect: "improves", emitterOhms: trim };
+    const trimmed = spiceNetlist(d.project, d.spec, d.matrix, 2, design);
+    expect(trimmed).toMatch(/^\* Emitter resistors: the E24 trim, applied because it /m);
+    for (const [o, ohms] of trim) expect(trimmed).toMatch(new RegExp(`^R\\d+ e${o} 0 ${ohms}$`, "m"));
   });
 
   it("gives distinct parameter sets their own model cards", () => {

@@ -2,7 +2,8 @@ import { describe, expect, it } from "vitest";
 import { solveBudget } from "../../../../src/core/budget/budget.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../../../src/core/synth/synthesize.ts";
-import { budgetChart, formatMicro } from "../../../../src/ui/components/budgetChart.ts";
+import { budgetChart } from "../../../../src/ui/components/budgetChart.ts";
+import { microampsShort } from "../../../../src/render/units.ts";
 import { example } from "../../../support/projects.ts";
 
 describe("budget chart", async () => {
@@ -37,8 +38,9 @@ describe("budget chart", async () => {
     const last = chart.axis[chart.axis.length - 1];
     expect(last?.x).toBeCloseTo(chart.plotX1, 9);
   });
-  it("formats microamperes to 3 significant figures", () => {
-    expect(formatMicro(0.00014)).toBe("140");
-    expect(formatMicro(8.57e-5)).toBe("85.7");
+  it("labels the axis in microamperes to 3 significant figures", () => {
+    expect(microampsShort(0.00014)).toBe("140");
+    expect(microampsShort(8.57e-5)).toBe("85.7");
+    for (const a of chart.axis.slice(1)) expect(a.label).toMatch(/^\d{1,3}(\.\d+)?$/);
   });
 });

@@ -1,0 +1,49 @@
+/**
+ * The design options of every command that prints parts or their values
+ * (`synth`, `budget`, `netlist`, `export`): whether the emitter resistors
+ * take the trim, and in which preferred-value series. All four settle the
+ * design the same way, so they print the same value for each resistor.
+ */
+import { settleDesign, projectDesign, TRIM_MODES, type EmitterDesign, type TrimMode } from "../core/budget/emitterDesign.ts";
+import type { ESeriesName } from "../core/budget/eSeries.ts";
+import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
+import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
+import type { Project } from "../core/project/project.ts";
+import type { OptionSpec, ParsedArgs } from "./args.ts";
+import type { CliIo } from "./io.ts";
+
+export const DESIGN_USAGE = "[--trim auto|off|on] [--series E24|E96]";
+
+export const DESIGN_OPTIONS: Readonly<Record<string, OptionSpec>> = {
+  trim: {
+    value: true,
+    meta: "auto|off|on",
+    help: "emitter-resistor trim: auto (default) applies it where it improves the design, off prints the untrimmed design, on applies it regardless",
+  },
+  series: { value: true, meta: "E24|E96", help: "preferred values for the emitter-resistor trim (default E24)" },
+};
+
+export interface DesignArgs {
+  readonly mode: TrimMode;
+  readonly series: ESeriesName;
+}
+
+/** Reads `--trim` and `--series`, or prints what is wrong and returns undefined. */
+export function designArgs(args: ParsedArgs, io: CliIo): DesignArgs | undefined {
+  const series = args.values.get("series") ?? "E24";
+  if (series !== "E24" && series !== "E96") return void io.err(`--series must be E24 or E96 (got "${series}")\n`);
+  const mode = args.values.get("trim") ?? "auto";
+  if (!(TRIM_MODES as readonly string[]).includes(mode)) return void io.err(`--trim must be auto, off or on (got "${mode}")\n`);
+  return { mode: mode as TrimMode, series };
+}
+
+/**
+ * The design's emitter resistors for the parts list and the decks: settled
+ * as the budget settles them. When the circuit cannot be solved they stay
+ * the project's, and the design says the trim could not be worked out.
+ */
+export function designFor(project: Project, spec: DecodeSpec, matrix: VerifiedMatrix, given: DesignArgs): EmitterDesign {
+  if (given.mode === "off") return projectDesign(project.electrical, matrix, given);
+  const settled = settleDesign(project, spec, matrix, given);
+  return settled.ok ? settled.value.design : projectDesign(project.electrical, matrix, given);
+}

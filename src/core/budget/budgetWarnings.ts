@@ -1,0 +1,127 @@
+/**
+ * The budget's findings, most severe first. Thresholds are the parts' own
+ * ratings from the project; the 10 % spread note is a choice of diodeloom.
+ * Each finding carries its figures in SI; the reports put them in words
+ * (render/budgetWarningText.ts).
+ */
+import type { Project } from "../project/project.ts";
+import { safetyCautions, type WarningLevel } from "./safety.ts";
+import type { Budget, BudgetWarning, UnappliedWhy } from "./budgetTypes.ts";
+
+/** Brightness spread above which the budget adds a note, percent (a choice of diodeloom). */
+export const SPREAD_NOTE_PCT = 10;
+
+/** Why the design does not take a worked-out trim, or null when it does (or the trim changes nothing). */
+export function unappliedWhy(trim: Budget["trim"]): UnappliedWhy | null {
+  if (trim.applied || trim.effect === "no-change") return null;
+  if (trim.mode === "off") return "turned-off";
+  return trim.effect === "improves" ? null : trim.effect;
+}
+
+/** The findings of a budget, most severe first. */
+export function budgetWarnings(project: Project, b: Omit<Budget, "warnings">): BudgetWarning[] {
+  const e = project.electrical;
+  const w: BudgetWarning[] = [];
+  for (const c of safetyCautions([e.supply.volts, e.supply.minVolts, e.supply.maxVolts])) {
+    w.push(
+      c.code === "hazardous-voltage"
+        ? { level: "danger", code: c.code, supplyV: highestSupplyV(project) }
+        : { level: "danger", code: c.code },
+    );
+  }
+  for (const [ref, d] of Object.entries(b.diodes)) {
+    if (d.maxCurrentA > d.ratedCurrentA) {
+      w.push({
+        level: "warn",
+        code: "diode-current",
+        diode: ref,
+        from: d.from,
+        to: d.to,
+        currentA: d.maxCurrentA,
+        ratedA: d.ratedCurrentA,
+      });
+    }
+    if (d.maxReverseV > d.ratedReverseV) {
+      w.push({
+        level: "warn",
+        code: "diode-reverse",
+        diode: ref,
+        from: d.from,
+        to: d.to,
+        reverseV: d.maxReverseV,
+        ratedV: d.ratedReverseV,
+      });
+    }
+  }
+  const hi = b.corners.high;
+  const lo = b.corners.low;
+  for (const [o, d] of Object.entries(b.drivers)) {
+    const vceV = Math.max(d.maxVceV, hi.maxVceV);
+    if (vceV > d.ratedVceV) w.push({ level: "warn", code: "driver-vce", transistor: d.transistor, output: o, vceV, ratedV: d.ratedVceV });
+    const powerW = Math.max(d.maxPowerW, hi.maxPowerW);
+    if (powerW > d.ratedPowerW) {
+      w.push({ level: "warn", code: "driver-power", transistor: d.transistor, output: o, powerW, ratedW: d.ratedPowerW });
+    }
+    if (d.headroomV <= 0) {
+      w.push({
+        level: "warn",
+        code: "driver-saturation",
+        transistor: d.transistor,
+        output: o,
+        supplyV: e.supply.minVolts,
+        belowV: -d.headroomV,
+      });
+    }
+  }
+  if (Object.keys(b.drivers).length > 0 && lo.minHeadroomV <= 0 && Object.values(b.drivers).every((d) => d.headroomV > 0)) {
+    w.push({ level: "warn", code: "corner-saturation", belowV: -lo.minHeadroomV });
+  }
+  const maxA = Math.max(0, ...Object.values(b.outputs).map((o) => o.maxA), hi.maxCurrentA);
+  if (maxA > e.string.maxA) w.push({ level: "warn", code: "string-current", currentA: maxA, ratedA: e.string.maxA });
+  const targetA = e.string.targetA;
+  const windowPct = b.corners.windowPct;
+  const windowLowA = targetA * (1 - windowPct / 100);
+  const why = unappliedWhy(b.trim);
+  for (const [o, r] of Object.entries(b.outputs)) {
+    if (r.maxA > 0 && r.minA < windowLowA) {
+      const t = b.trim.outputs[o];
+      const helps =
+        t !== undefined && why !== null && Math.abs((t.minA + t.maxA) / 2 - targetA) < Math.abs((r.minA + r.maxA) / 2 - targetA);
+      w.push({
+        level: "warn",
+        code: "dim-segment",
+        output: o,
+        minA: r.minA,
+        targetA,
+        windowPct,
+        unappliedTrim: helps && t ? { series: b.trim.series, ohms: t.ohms, why, minA: t.minA, maxA: t.maxA, spreadPct: t.spreadPct } : null,
+      });
+    }
+  }
+  if (!b.corners.meetsTarget) {
+    w.push({ level: "warn", code: "corner-target", minA: lo.minCurrentA, maxA: hi.maxCurrentA, targetA, windowPct });
+  }
+  if (b.spreadPct > SPREAD_NOTE_PCT) {
+    const trimmed = b.trim.applied;
+    w.push({
+      level: "info",
+      code: "brightness-spread",
+      spreadPct: b.spreadPct,
+      series: b.trim.series,
+      trim: trimmed ? "applied" : (why ?? "no-change"),
+      otherSpreadPct: trimmed ? b.trim.spreadPctBefore : b.trim.spreadPct,
+    });
+  }
+  const sags = Object.entries(b.counterLines);
+  if (sags.length > 0) {
+    const [line, worst] = sags.reduce((a, c) => (c[1].sagV > a[1].sagV ? c : a));
+    w.push({ level: "info", code: "counter-sag", line, sagV: worst.sagV, sourceCurrentA: worst.sourceCurrentA });
+  }
+  const order: Record<WarningLevel, number> = { danger: 0, warn: 1, info: 2 };
+  return w.sort((a, c) => order[a.level] - order[c.level]);
+}
+
+function highestSupplyV(project: Project): number {
+  const s = project.electrical.supply;
+  return Math.max(s.volts, s.minVolts, s.maxVolts);
+}

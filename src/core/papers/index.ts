@@ -1,0 +1,7 @@
+/** Stage "papers": what the builder takes to the bench, as data and plain text (parts count, wiring list, SPICE decks, CSV). */
+export { countParts, refRanges } from "./parts.ts";
+export type { PartGroup, PartKind } from "./parts.ts";
+export { INSPECTION_CHECKLIST, WIRING_HEADER, wiringCsv, wiringRows } from "./wiringList.ts";
+export type { DrawingPosition, WiringRow } from "./wiringList.ts";
+export { circuitNetlist, spiceNetlist, stringDieNode } from "./netlist.ts";
+export { csvField, csvText } from "./csv.ts";

@@ -1,0 +1,83 @@
+/**
+ * The bill of materials: one line per distinct part, from the parts count
+ * (and so from the designators), with quantity, designators as ranges
+ * (D1-D24), value and description. The emitter resistors are the design's
+ * (the trim where the design takes it), and their description says which.
+ * The same words serve the parts list of `synth` and the print view.
+ */
+import { csvText } from "../core/papers/csv.ts";
+import { designSource, type EmitterDesign } from "../core/budget/emitterDesign.ts";
+import type { Designators } from "../core/matrix/designators.ts";
+import { countParts, refRanges, type PartGroup } from "../core/papers/parts.ts";
+import type { ElectricalModel } from "../core/project/project.ts";
+import { formatOhms, milliampsExact } from "./units.ts";
+
+export interface BomLine {
+  readonly quantity: number;
+  /** Designators as ranges, e.g. `D1-D24, D30`. */
+  readonly references: string;
+  /** The designators one by one. */
+  readonly refs: readonly string[];
+  readonly value: string;
+  readonly description: string;
+}
+
+/** A part's value as a BOM prints it: `10k`, `NPN`, `19-die string`. */
+export function partValue(g: PartGroup, e: ElectricalModel): string {
+  if (g.ohms !== null) return formatOhms(g.ohms);
+  switch (g.kind) {
+    case "diode":
+      return "small-signal silicon";
+    case "transistor":
+      return "NPN";
+    case "display":
+      return `${e.string.dies}-die string`;
+    default:
+      throw new Error(`bug: a ${g.kind} group without a resistance`);
+  }
+}
+
+/** A part's description as a BOM prints it, with the ratings to buy to. */
+export function partDescription(g: PartGroup, e: ElectricalModel, design: EmitterDesign): string {
+  switch (g.kind) {
+    case "diode":
+      return `matrix diode, ≥${e.diode.maxReverseV} V reverse, ≥${milliampsExact(e.diode.maxForwardA)} mA forward`;
+    case "transistor":
+      return `segment driver, Vce(max) ≥ ${e.driver.maxVceV} V, ≥ ${e.driver.maxPowerW} W`;
+    case "emitter-resistor":
+      return `emitter resistor, ${e.tolerance.resistorPct} %, ${designSource(design)}`;
+    case "pull-down":
+      return "driver base pull-down";
+    case "tie-on-resistor":
+      return "base bias for an always-lit segment, from the counter's high level";
+    case "display":
+      return `segment LED string, ${e.string.dies} dies in series, ${milliampsExact(e.string.targetA)} mA`;
+  }
+}
+
+/**
+ * The BOM lines, in the order of the parts count (diodes, drivers, emitter
+ * resistors by value, pull-downs, tie-on resistors, display strings).
+ *
+ * @param parts the designators of the design (with its emitter values)
+ * @param design which emitter values those are, for their description
+ * @example
+ * bomLines(project.electrical, designators(spec, matrix, project.electrical, design.emitterOhms), design)[0];
+ * // { quantity: 78, references: "D1-D78", value: "small-signal silicon", ... }
+ */
+export function bomLines(e: ElectricalModel, parts: Designators, design: EmitterDesign): BomLine[] {
+  return countParts(parts).map((g) => ({
+    quantity: g.refs.length,
+    references: refRanges(g.refs),
+    refs: g.refs,
+    value: partValue(g, e),
+    description: partDescription(g, e, design),
+  }));
+}
+
+export const BOM_HEADER = ["Quantity", "References", "Value", "Description"] as const;
+
+/** The BOM as CSV, header first. */
+export function bomCsv(lines: readonly BomLine[]): string {
+  return csvText([[...BOM_HEADER], ...lines.map((l) => [l.quantity, l.references, l.value, l.description])]);
+}

@@ -1,0 +1,123 @@
+/**
+ * The papers of one result, as files: the matrix drawing's sheets, the
+ * wiring list (CSV and printable page), the budget, the BOM, one SPICE deck
+ * per state and the normalised project. The command line's `export` writes
+ * them all; the web app's Export menu offers them kind by kind. Both call
+ * this one builder, so both write the same files with the same names.
+ *
+ * Every paper shows one design: the BOM and the decks take their emitter
+ * resistors from the budget (the trim where the design takes it); without
+ * a budget they keep the project's values and say why.
+ */
+import { budgetDesign } from "../core/budget/budget.ts";
+import type { Budget } from "../core/budget/budgetTypes.ts";
+import { projectDesign, type EmitterDesign } from "../core/budget/emitterDesign.ts";
+import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
+import { designators } from "../core/matrix/designators.ts";
+import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
+import { spiceNetlist } from "../core/papers/netlist.ts";
+import { wiringCsv, wiringRows } from "../core/papers/wiringList.ts";
+import type { Project } from "../core/project/project.ts";
+import { serializeProject } from "../core/project/projectWriter.ts";
+import type { Result } from "../core/result/result.ts";
+import { bomCsv, bomLines } from "./bom.ts";
+import { budgetJsonText } from "./budgetJson.ts";
+import type { DrawingOptions } from "./drawingOptions.ts";
+import type { MatrixDrawing } from "./layout.ts";
+import { sheetSvgText } from "./sheetSvg.ts";
+import { wiringPageHtml } from "./wiringPage.ts";
+
+export interface PaperFile {
+  /** Path inside the export, `/`-separated, e.g. `spice/S0.cir`. */
+  readonly name: string;
+  /** IANA media type, e.g. `text/csv`. */
+  readonly mediaType: string;
+  readonly text: string;
+}
+
+export type PaperKind = "svg" | "wiring" | "wiring-page" | "bom" | "netlists" | "budget" | "project";
+
+/** Every kind, in the order `export` writes them. */
+export const PAPER_KINDS: readonly PaperKind[] = ["svg", "wiring", "wiring-page", "budget", "bom", "netlists", "project"];
+
+/** A budget, or why there is none. */
+export type BudgetOutcome = Result<Budget, { readonly kind: string; readonly message: string }>;
+
+export interface PaperInput {
+  readonly project: Project;
+  readonly spec: DecodeSpec;
+  readonly matrix: VerifiedMatrix;
+  readonly options: DrawingOptions;
+  /** The drawing laid out with `options`. */
+  readonly drawing: MatrixDrawing;
+  /** The budget of this matrix; undefined while it is still being worked out. */
+  readonly budget: BudgetOutcome | undefined;
+}
+
+/** The design the papers show: the budget's, or the project's values when there is no budget. */
+export function paperDesign(input: Pick<PaperInput, "project" | "matrix" | "budget">): EmitterDesign {
+  return input.budget?.ok ? budgetDesign(input.budget.value) : projectDesign(input.project.electrical, input.matrix);
+}
+
+/**
+ * The files of one kind. The BOM, the decks and the budget wait for the
+ * budget (an empty list while `budget` is undefined), so that they never
+ * show a design the budget then changes. A failed budget gives its error as
+ * budget.json, and the BOM and decks with the project's values.
+ *
+ * @example
+ * paperFiles(input, "bom"); // [{ name: "bom.csv", mediaType: "text/csv", text: "Quantity,References,..." }]
+ */
+export function paperFiles(input: PaperInput, kind: PaperKind): PaperFile[] {
+  const { project, spec, matrix, options, drawing, budget } = input;
+  switch (kind) {
+    case "svg": {
+      const single = drawing.sheets.length === 1;
+      return drawing.sheets.map((s) => ({
+        name: single ? "matrix.svg" : `matrix-${s.number}.svg`,
+        mediaType: "image/svg+xml",
+        text: sheetSvgText(s),
+      }));
+    }
+    case "wiring":
+      return [{ name: "wiring.csv", mediaType: "text/csv", text: wiringCsv(wiringRows(matrix, drawing.placements)) }];
+    case "wiring-page": {
+      const rows = wiringRows(matrix, drawing.placements);
+      return [{ name: "wiring.html", mediaType: "text/html", text: wiringPageHtml(project, matrix, rows, options, drawing.sheets.length) }];
+    }
+    case "budget":
+      if (!budget) return [];
+      return [
+        {
+          name: "budget.json",
+          mediaType: "application/json",
+          text: budget.ok ? budgetJsonText(budget.value) : JSON.stringify({ error: budget.error }, null, 2) + "\n",
+        },
+      ];
+    case "bom": {
+      if (!budget) return [];
+      const design = paperDesign(input);
+      const parts = designators(spec, matrix, project.electrical, design.emitterOhms);
+      return [{ name: "bom.csv", mediaType: "text/csv", text: bomCsv(bomLines(project.electrical, parts, design)) }];
+    }
+    case "netlists": {
+      if (!budget) return [];
+      const design = paperDesign(input);
+      return spec.states.map((s, k) => ({
+        name: `spice/${s}.cir`,
+        mediaType: "text/plain",
+        text: spiceNetlist(project, spec, matrix, k, design),
+      }));
+    }
+    case "project":
+      return [{ name: "project.json", mediaType: "application/json", text: serializeProject(project) }];
+  }
+}
+
+/**
+ * Every paper, in the order `export` writes them. A failed budget leaves
+ * budget.json out (the caller reports the failure).
+ */
+export function allPaperFiles(input: PaperInput): PaperFile[] {
+  return PAPER_KINDS.filter((k) => k !== "budget" || input.budget?.ok === true).flatMap((k) => paperFiles(input, k));
+}

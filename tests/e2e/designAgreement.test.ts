@@ -1,0 +1,117 @@
+/**
+ * One design, one value per designator: the hex monitor run through the
+ * real command as a user runs it (`synth`, `budget --json`, `netlist`,
+ * `export`) and through the web app's Export files, and every paper must
+ * give each resistor the same value. Once with the default trim setting
+ * (auto: on the hex monitor the E24 trim would widen the spread, so the
+ * design keeps the project's 10k) and once with `--trim on` (the trim's
+ * values), so both kinds of design are checked.
+ */
+import { execFile } from "node:child_process";
+import { mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { solveBudget } from "../../src/core/budget/budget.ts";
+import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
+import { parseProject } from "../../src/core/project/projectSchema.ts";
+import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
+import { registerNodeWindow } from "../../src/render/nodeWindow.ts";
+import { formatOhms } from "../../src/render/units.ts";
+import { exportFiles } from "../../src/ui/files/exportFiles.ts";
+import { withMatrix } from "../../src/ui/workers/liveResult.ts";
+import { bomValues, budgetEmitters, deckResistors, synthPartValues } from "../support/partValues.ts";
+import { exampleText } from "../support/projects.ts";
+
+const BIN = new URL("../../bin/diodeloom.mjs", import.meta.url).pathname;
+const ROOT = new URL("../../", import.meta.url).pathname;
+const FILE = "public/examples/relay-hex-monitor.json";
+const dir = mkdtempSync(join(tmpdir(), "diodeloom-agreement-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function run(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  return new Promise((resolve) => {
+    execFile(process.execPath, [BIN, ...args], { cwd: ROOT, timeout: 120_000, maxBuffer: 64 * 1024 * 1024 }, (err, stdout, stderr) => {
+      resolve({ code: err ? (typeof err.code === "number" ? err.code : 99) : 0, stdout, stderr });
+    });
+  });
+}
+
+/** The web app's files for the same project, matrix and trim setting, built as the page builds them. */
+async function webFiles(trim: "auto" | "on"): Promise<{ bom: string; deck: string }> {
+  const parsed = parseProject(exampleText("relay-hex-monitor"));
+  if (!parsed.ok) throw new Error("the example does not parse");
+  const project = parsed.value;
+  const spec = compileSpec(project);
+  const settings = synthSettings(project, { mode: "fast" });
+  const m = await synthesize(spec, settings);
+  if (!m.ok) throw new Error(m.error.message);
+  const r = withMatrix(project, spec, settings, m.value);
+  // The analysis worker solves the budget exactly so (analysisWorker.ts).
+  const budget = solveBudget(project, spec, m.value, { trim });
+  registerNodeWindow();
+  const [bom] = exportFiles(r, "bom", "a4", budget);
+  const [decks] = exportFiles(r, "netlists", "a4", budget);
+  if (!bom || typeof bom.content !== "string" || !decks) throw new Error("the web export gave no BOM or decks");
+  // Several decks come as one stored ZIP; S0.cir is the first entry, its text stored as it is.
+  const zipText = Buffer.from(decks.content as Uint8Array).toString("utf8");
+  const deck = /\* [^\n]*: state S0 active\n[\s\S]*?\n\.end\n/.exec(zipText)?.[0] ?? "";
+  return { bom: bom.content, deck };
+}
+
+describe.each([
+  ["the default design", [] as string[], "auto" as const],
+  ["the trimmed design (--trim on)", ["--trim", "on"], "on" as const],
+])("%s of the hex monitor", (_, trimArgs, webTrim) => {
+  // --fast: the heuristic matrix, the one the web app shows first, so the web app's files can be compared too.
+  const synthArgs = ["--fast", ...trimArgs];
+
+  it("gives every resistor one value in synth, budget --json, netlist, export (bom.csv, deck) and the web app's export", async () => {
+    const [synth, budget, netlist, exp] = await Promise.all([
+      run(["synth", FILE, ...synthArgs]),
+      run(["budget", FILE, "--json", ...synthArgs]),
+      run(["netlist", FILE, "--state", "0", ...synthArgs]),
+      run(["export", FILE, "--out", join(dir, webTrim), ...synthArgs]),
+    ]);
+    for (const r of [synth, budget, netlist, exp]) expect(r.stderr).toBe("");
+    expect([synth.code, budget.code, netlist.code, exp.code]).toEqual([0, 0, 0, 0]);
+
+    const json = JSON.parse(budget.stdout) as Parameters<typeof budgetEmitters>[0] & { trim: { applied: boolean; effect: string } };
+    const emitters = budgetEmitters(json);
+    expect(emitters.size).toBe(7);
+    // auto keeps the project's 10k (the trim would widen the spread); on takes the trim's values.
+    if (webTrim === "auto") {
+      expect([json.trim.applied, json.trim.effect]).toEqual([false, "widens-spread"]);
+      expect([...emitters.values()].every((o) => o === 10_000)).toBe(true);
+    } else {
+      expect(json.trim.applied).toBe(true);
+      expect([...emitters.values()].every((o) => o !== 10_000)).toBe(true);
+    }
+
+    const parts = synthPartValues(synth.stdout);
+    const deck = deckResistors(netlist.stdout);
+    const bom = bomValues(readFileSync(join(dir, webTrim, "bom.csv"), "utf8"));
+    const exportDeck = deckResistors(readFileSync(join(dir, webTrim, "spice", "S0.cir"), "utf8"));
+    const web = await webFiles(webTrim);
+    const webBom = bomValues(web.bom);
+    const webDeck = deckResistors(web.deck);
+    for (const [ref, ohms] of emitters) {
+      const printed = formatOhms(ohms);
+      expect([ref, parts.get(ref), bom.get(ref), webBom.get(ref)]).toEqual([ref, printed, printed, printed]);
+      expect([ref, deck.get(ref), exportDeck.get(ref), webDeck.get(ref)]).toEqual([ref, ohms, ohms, ohms]);
+    }
+    // Every other resistor (the pull-downs) reads alike too.
+    for (const [ref, ohms] of deck) {
+      expect([ref, exportDeck.get(ref), webDeck.get(ref)]).toEqual([ref, ohms, ohms]);
+      if (/^R\d+$/.test(ref)) expect([ref, parts.get(ref), bom.get(ref)]).toEqual([ref, formatOhms(ohms), formatOhms(ohms)]);
+    }
+    // And each says which design it is.
+    const note =
+      webTrim === "auto"
+        ? /Emitter resistors as in the project: the E24 trim is not applied/
+        : /Emitter resistors: the E24 trim, applied on request/;
+    expect(synth.stdout).toMatch(note);
+    expect(netlist.stdout).toMatch(note);
+    expect(web.deck).toMatch(note);
+  });
+});
