@@ -12,15 +12,15 @@ import { designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `budget FILE [--json] ${DESIGN_USAGE} ${SYNTH_USAGE}`;
+const USAGE = `budget FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
 export const budgetCommand: Command = {
   name: "budget",
   usage: USAGE,
   options: {
     json: { help: "print the budget as diodeloom/budget@2 JSON (SI units)" },
-    ...DESIGN_OPTIONS,
     ...SYNTH_OPTIONS,
+    ...DESIGN_OPTIONS,
   },
   async run(args, io) {
     const given = designArgs(args, io);

@@ -24,7 +24,7 @@ import { designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT, type CliIo } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${DESIGN_USAGE} ${SYNTH_USAGE}`;
+const USAGE = `export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
 /** Longest free text accepted for a title-block field. */
 const MAX_FIELD = 40;
@@ -39,8 +39,8 @@ export const exportCommand: Command = {
     "drawing-number": { value: true, meta: "TEXT", help: "drawing number (default: DL- and a hash of the project)" },
     revision: { value: true, meta: "TEXT", help: "revision (default A)" },
     "drawn-by": { value: true, meta: "TEXT", help: "creator for the title block (default diodeloom)" },
-    ...DESIGN_OPTIONS,
     ...SYNTH_OPTIONS,
+    ...DESIGN_OPTIONS,
   },
   async run(args, io) {
     const out = args.values.get("out");

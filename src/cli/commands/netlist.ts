@@ -4,15 +4,15 @@ import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOp
 import { EXIT } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `netlist FILE --state K ${DESIGN_USAGE} ${SYNTH_USAGE}`;
+const USAGE = `netlist FILE --state K ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
 export const netlistCommand: Command = {
   name: "netlist",
   usage: USAGE,
   options: {
     state: { value: true, meta: "K", help: "the active state: its number 0..N-1 or its name S0..S(N-1)" },
-    ...DESIGN_OPTIONS,
     ...SYNTH_OPTIONS,
+    ...DESIGN_OPTIONS,
   },
   async run(args, io) {
     const raw = args.values.get("state");

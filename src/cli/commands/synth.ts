@@ -10,15 +10,15 @@ import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOp
 import { EXIT } from "../io.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `synth FILE [--json] ${DESIGN_USAGE} ${SYNTH_USAGE}`;
+const USAGE = `synth FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
 export const synthCommand: Command = {
   name: "synth",
   usage: USAGE,
   options: {
     json: { help: "print the matrix as diodeloom/matrix@2 JSON" },
-    ...DESIGN_OPTIONS,
     ...SYNTH_OPTIONS,
+    ...DESIGN_OPTIONS,
   },
   async run(args, io) {
     const given = designArgs(args, io);
