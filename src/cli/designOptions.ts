@@ -9,6 +9,7 @@ import type { ESeriesName } from "../core/budget/eSeries.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
+import { quoteText } from "../core/project/valueText.ts";
 import type { OptionSpec, ParsedArgs } from "./args.ts";
 import type { CliIo } from "./io.ts";
 
@@ -31,9 +32,9 @@ export interface DesignArgs {
 /** Reads `--trim` and `--series`, or prints what is wrong and returns undefined. */
 export function designArgs(args: ParsedArgs, io: CliIo): DesignArgs | undefined {
   const series = args.values.get("series") ?? "E24";
-  if (series !== "E24" && series !== "E96") return void io.err(`--series must be E24 or E96 (got "${series}")\n`);
+  if (series !== "E24" && series !== "E96") return void io.err(`--series: got ${quoteText(series)}; must be E24 or E96\n`);
   const mode = args.values.get("trim") ?? "auto";
-  if (!(TRIM_MODES as readonly string[]).includes(mode)) return void io.err(`--trim must be auto, off or on (got "${mode}")\n`);
+  if (!(TRIM_MODES as readonly string[]).includes(mode)) return void io.err(`--trim: got ${quoteText(mode)}; must be auto, off or on\n`);
   return { mode: mode as TrimMode, series };
 }
 

@@ -1,3 +1,5 @@
+import type { FolderOutcome, OutputFile, OwnNames } from "./outputFolder.ts";
+
 /**
  * What a command may touch of the outside world. `main` gets the real one;
  * tests pass a recording one.
@@ -7,8 +9,10 @@ export interface CliIo {
   err(text: string): void;
   /** The bytes of a file (a project file: at most `LIMITS.fileBytes`, checked before reading). */
   readFile(path: string): Promise<{ ok: true; bytes: Uint8Array } | { ok: false; message: string }>;
-  writeFile(path: string, data: string | Uint8Array): Promise<void>;
-  makeDir(path: string): Promise<void>;
+  /** Checks that a folder can take an export, before the work (see outputFolder.ts). */
+  checkOutputFolder(dir: string, ours: OwnNames): Promise<FolderOutcome>;
+  /** Writes files as the folder `dir`, all or nothing (see outputFolder.ts). */
+  writeOutputFolder(dir: string, files: readonly OutputFile[], ours: OwnNames): Promise<FolderOutcome>;
 }
 
 /** Exit codes of the `diodeloom` command. */

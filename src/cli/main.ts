@@ -12,6 +12,7 @@ import { helpLines, parseArgs } from "./args.ts";
 import type { Command } from "./command.ts";
 import { EXIT, type CliIo } from "./io.ts";
 import { nodeIo } from "./nodeIo.ts";
+import { quoteText } from "../core/project/valueText.ts";
 
 export const VERSION = "0.1.0";
 
@@ -80,7 +81,7 @@ export async function main(argv: readonly string[], io: CliIo = nodeIo): Promise
   }
   const entry = COMMANDS.find((c) => c.name === name);
   if (!entry) {
-    io.err(`unknown command "${name}"; commands are ${COMMANDS.map((c) => c.name).join(", ")} (see diodeloom --help)\n`);
+    io.err(`unknown command ${quoteText(name)}; commands are ${COMMANDS.map((c) => c.name).join(", ")} (see diodeloom --help)\n`);
     return EXIT.input;
   }
   const command = await entry.load();

@@ -1,8 +1,9 @@
 /** The real file system and terminal, for the installed command (tests pass a recording CliIo instead). */
-import { readFile, writeFile, mkdir, stat } from "node:fs/promises";
+import { readFile, stat } from "node:fs/promises";
 // limits.ts is a few constants with no imports of its own, so `diodeloom --version` stays light.
 import { fileSizeProblem } from "../core/project/limits.ts";
 import type { CliIo } from "./io.ts";
+import { checkOutputFolder, writeOutputFolder } from "./outputFolder.ts";
 
 export const nodeIo: CliIo = {
   out: (t) => void process.stdout.write(t),
@@ -19,6 +20,6 @@ export const nodeIo: CliIo = {
       return { ok: false, message: code === "ENOENT" ? "no such file" : `cannot read it (${code ?? String(e)})` };
     }
   },
-  writeFile: (path, data) => writeFile(path, data),
-  makeDir: async (path) => void (await mkdir(path, { recursive: true })),
+  checkOutputFolder,
+  writeOutputFolder,
 };

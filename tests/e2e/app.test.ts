@@ -150,6 +150,15 @@ describe("the web app", () => {
     await page.getByTestId("open-input").setInputFiles({ name: "junk.json", mimeType: "application/json", buffer: Buffer.from("{ nope") });
     await expect.poll(() => notice.textContent()).toMatch(/junk\.json: not valid JSON/);
     expect(await savedProject()).toBe(before);
+    // Read as the command line reads a file: bytes that are not UTF-8 are named, not turned into U+FFFD.
+    const latin1 = Buffer.from(before.replace(/"title": "[^"]*"/, '"title": "Caf\u00e9"'), "latin1");
+    await page.getByTestId("open-input").setInputFiles({ name: "latin1.json", mimeType: "application/json", buffer: latin1 });
+    await expect.poll(() => notice.textContent()).toMatch(/latin1\.json: title: holds a byte that is not UTF-8 \(0xE9 at byte \d+/);
+    // A leading byte-order mark is accepted, as on the command line: the same project opens.
+    const marked = Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from(before)]);
+    await page.getByTestId("open-input").setInputFiles({ name: "marked.json", mimeType: "application/json", buffer: marked });
+    await expect.poll(() => notice.textContent()).toMatch(/Opened marked\.json/);
+    expect(await savedProject()).toBe(before);
     await notice.getByRole("button", { name: "Dismiss message" }).click();
   });
 

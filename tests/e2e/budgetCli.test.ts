@@ -59,7 +59,7 @@ describe("diodeloom budget", () => {
   it("refuses an unknown series", async () => {
     const r = await run(["budget", "public/examples/die-roller.json", "--series", "E12"]);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/--series must be E24 or E96/);
+    expect(r.stderr).toBe(`--series: got "E12"; must be E24 or E96\n`);
   });
 });
 

@@ -1,5 +1,7 @@
-import { readFile, writeFile, mkdir } from "node:fs/promises";
+import { readFile } from "node:fs/promises";
+import { join } from "node:path";
 import type { CliIo } from "../../src/cli/io.ts";
+import { checkOutputFolder, writeOutputFolder } from "../../src/cli/outputFolder.ts";
 
 /** A CliIo that records what a command prints; files come from a map first, then the disk. */
 export interface RecordingIo extends CliIo {
@@ -26,12 +28,13 @@ export function recordingIo(files: Record<string, string> = {}, opts: { writeToD
         return { ok: false, message: "no such file" };
       }
     },
-    async writeFile(path, data) {
-      written.set(path, data);
-      if (opts.writeToDisk) await writeFile(path, data);
+    async checkOutputFolder(dir, ours) {
+      return opts.writeToDisk ? checkOutputFolder(dir, ours) : { ok: true };
     },
-    async makeDir(path) {
-      if (opts.writeToDisk) await mkdir(path, { recursive: true });
+    async writeOutputFolder(dir, files, ours) {
+      const r = opts.writeToDisk ? await writeOutputFolder(dir, files, ours) : { ok: true as const };
+      if (r.ok) for (const f of files) written.set(join(dir, f.name), f.data);
+      return r;
     },
   };
 }

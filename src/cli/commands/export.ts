@@ -11,20 +11,30 @@
  * When the budget cannot be solved the other files are still written, the
  * BOM and decks keep the project's emitter values, and the exit code is 1.
  */
-import { join } from "node:path";
 import { solveBudget } from "../../core/budget/budget.ts";
 import { designNote } from "../../core/budget/emitterDesign.ts";
 import { drawingOptions, type DrawingOptions } from "../../render/drawingOptions.ts";
 import { layoutMatrix } from "../../render/layout.ts";
 import { registerNodeWindow } from "../../render/nodeWindow.ts";
 import { allPaperFiles, paperDesign } from "../../render/papers.ts";
-import type { ParsedArgs } from "../args.ts";
+import { quoteText } from "../../core/project/valueText.ts";
+import { shownArg, type ParsedArgs } from "../args.ts";
 import type { Command } from "../command.ts";
 import { designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT, type CliIo } from "../io.ts";
+import type { OwnNames } from "../outputFolder.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+
+/**
+ * The names an export writes. A folder holding only these (an earlier
+ * export) may be written again; the new export replaces it whole.
+ */
+export const EXPORT_NAMES: OwnNames = {
+  files: [/^matrix(-\d+)?\.svg$/, /^wiring\.(csv|html)$/, /^budget\.json$/, /^bom\.csv$/, /^project\.json$/, /^spice\/S\d+\.cir$/],
+  folders: [/^spice$/],
+};
 
 /** Longest free text accepted for a title-block field. */
 const MAX_FIELD = 40;
@@ -33,7 +43,11 @@ export const exportCommand: Command = {
   name: "export",
   usage: USAGE,
   options: {
-    out: { value: true, meta: "DIR", help: "directory to write into (created if missing)" },
+    out: {
+      value: true,
+      meta: "DIR",
+      help: "folder to write: a new one (created), an empty one, or an earlier export's (replaced whole)",
+    },
     paper: { value: true, meta: "SIZE", help: "a4 (default) or letter" },
     date: { value: true, meta: "DATE", help: "date of issue for the title block, YYYY-MM-DD (default: left blank)" },
     "drawing-number": { value: true, meta: "TEXT", help: "drawing number (default: DL- and a hash of the project)" },
@@ -52,6 +66,12 @@ export const exportCommand: Command = {
     if (!given) return EXIT.input;
     const design = designArgs(args, io);
     if (!design) return EXIT.input;
+    // Checked before the work, so a synthesis of many seconds never ends in "cannot write there".
+    const where = await io.checkOutputFolder(out, EXPORT_NAMES);
+    if (!where.ok) {
+      io.err(`--out ${shownArg(out, 200)}: ${where.message}\n`);
+      return EXIT.input;
+    }
     const done = await loadAndSynthesize(args, io, USAGE);
     if (typeof done === "number") return done;
     const { project, spec, matrix } = done;
@@ -64,11 +84,16 @@ export const exportCommand: Command = {
     registerNodeWindow();
     const files = allPaperFiles({ project, spec, matrix, options, drawing, budget });
 
-    await io.makeDir(out);
-    for (const dir of new Set(files.map((f) => f.name.split("/").slice(0, -1).join("/")).filter((d) => d !== ""))) {
-      await io.makeDir(join(out, ...dir.split("/")));
+    // All or nothing: written beside or inside the target first, then moved into place.
+    const wrote = await io.writeOutputFolder(
+      out,
+      files.map((f) => ({ name: f.name, data: f.text })),
+      EXPORT_NAMES,
+    );
+    if (!wrote.ok) {
+      io.err(`--out ${shownArg(out, 200)}: ${wrote.message}\n`);
+      return EXIT.input;
     }
-    for (const f of files) await io.writeFile(join(out, ...f.name.split("/")), f.text);
     io.out(`${project.title}\nWrote ${files.length} files to ${out}:\n${files.map((f) => `  ${f.name}`).join("\n")}\n`);
     io.out(`${designNote(paperDesign({ project, matrix, budget }))}\n`);
     if (budget.ok && budget.value.warnings.length > 0)
@@ -82,14 +107,13 @@ function drawingArgs(args: ParsedArgs, io: CliIo): Partial<DrawingOptions> | und
   const given: { -readonly [K in keyof DrawingOptions]?: DrawingOptions[K] } = {};
   const paper = args.values.get("paper");
   if (paper !== undefined) {
-    if (paper !== "a4" && paper !== "letter") return void io.err(`--paper must be a4 or letter (got "${paper}")\n`);
+    if (paper !== "a4" && paper !== "letter") return void io.err(`--paper: got ${quoteText(paper)}; must be a4 or letter\n`);
     given.paper = paper;
   }
   const date = args.values.get("date");
   if (date !== undefined) {
-    const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(date);
-    const valid = m !== null && Number(m[2]) >= 1 && Number(m[2]) <= 12 && Number(m[3]) >= 1 && Number(m[3]) <= 31;
-    if (!valid) return void io.err(`--date must be a date like 2026-03-01 (got "${date}")\n`);
+    const problem = dateProblem(date);
+    if (problem !== undefined) return void io.err(`--date: got ${quoteText(date)}; ${problem}\n`);
     given.date = date;
   }
   const text: [string, "drawingNumber" | "revision" | "drawnBy"][] = [
@@ -101,9 +125,28 @@ function drawingArgs(args: ParsedArgs, io: CliIo): Partial<DrawingOptions> | und
     const v = args.values.get(option);
     if (v === undefined) continue;
     if ([...v].length > MAX_FIELD || /[\u0000-\u001f\u007f]/.test(v)) {
-      return void io.err(`--${option} must be at most ${MAX_FIELD} printable characters\n`);
+      return void io.err(`--${option}: got ${quoteText(v)}; must be at most ${MAX_FIELD} printable characters\n`);
     }
     given[field] = v;
   }
   return given;
+}
+
+/**
+ * What is wrong with a date of issue, or undefined for a real calendar date
+ * written YYYY-MM-DD (ISO 8601, proleptic Gregorian calendar).
+ *
+ * @example
+ * dateProblem("2026-02-31"); // "2026-02 has no day 31; give a real date, like 2026-03-01"
+ */
+export function dateProblem(text: string): string | undefined {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
+  if (!m) return "must be a date written YYYY-MM-DD, like 2026-03-01";
+  const [year, month, day] = [Number(m[1]), Number(m[2]), Number(m[3])];
+  if (month < 1 || month > 12) return `there is no month ${m[2]}; give a real date, like 2026-03-01`;
+  // Day 0 of the next month is the last day of this one; setUTCFullYear keeps years below 100 as written.
+  const last = new Date(0);
+  last.setUTCFullYear(year, month, 0);
+  if (day < 1 || day > last.getUTCDate()) return `${m[1]}-${m[2]} has no day ${m[3]}; give a real date, like 2026-03-01`;
+  return undefined;
 }

@@ -2,6 +2,7 @@ import { spiceNetlist } from "../../core/papers/netlist.ts";
 import type { Command } from "../command.ts";
 import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
+import { quoteText } from "../../core/project/valueText.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `netlist FILE --state K ${SYNTH_USAGE} ${DESIGN_USAGE}`;
@@ -27,7 +28,7 @@ export const netlistCommand: Command = {
     const done = await loadAndSynthesize(args, io, USAGE, (project) => {
       const n = project.counter.states;
       if (Number.isInteger(k) && k >= 0 && k < n) return undefined;
-      return `--state must be a state number from 0 to ${n - 1} or a name S0..S${n - 1} (got "${raw}")`;
+      return `--state: got ${quoteText(raw)}; must be a state number from 0 to ${n - 1} or a name S0..S${n - 1}`;
     });
     if (typeof done === "number") return done;
     const { project, spec, matrix } = done;

@@ -117,13 +117,26 @@ describe("diodeloom export", () => {
 
   it.each([
     [["--fast"], "--out"],
-    [["--out", "/nonexistent-never", "--paper", "a5"], "--paper must be a4 or letter"],
-    [["--out", "/nonexistent-never", "--date", "tomorrow"], "--date must be a date"],
-    [["--out", "/nonexistent-never", "--revision", "x".repeat(41)], "--revision must be at most 40"],
+    [["--out", "/nonexistent-never", "--paper", "a5"], '--paper: got "a5"; must be a4 or letter\n'],
+    [["--out", "/nonexistent-never", "--date", "tomorrow"], '--date: got "tomorrow"; must be a date written YYYY-MM-DD, like 2026-03-01\n'],
+    [
+      ["--out", "/nonexistent-never", "--date", "2026-02-31"],
+      '--date: got "2026-02-31"; 2026-02 has no day 31; give a real date, like 2026-03-01\n',
+    ],
+    [
+      ["--out", "/nonexistent-never", "--date", "2026-13-01"],
+      '--date: got "2026-13-01"; there is no month 13; give a real date, like 2026-03-01\n',
+    ],
+    [
+      ["--out", "/nonexistent-never", "--revision", "x".repeat(41)],
+      `--revision: got "${"x".repeat(40)}…" (41 characters); must be at most 40 printable characters\n`,
+    ],
   ])("refuses %j with exit code 2", async (args, message) => {
     const { io, err } = recordingIo();
     expect(await main(["export", example("die-roller"), ...args], io)).toBe(2);
-    expect(err.join("")).toContain(message);
+    // A whole message (ending in a newline) is checked exactly, a fragment by inclusion.
+    if (message.endsWith("\n")) expect(err.join("")).toBe(message);
+    else expect(err.join("")).toContain(message);
   });
 });
 
