@@ -1,0 +1,167 @@
+/**
+ * The grid of the matrix drawing, before it is cut into sheets: every net
+ * that drives a diode has a horizontal row (counter lines first, then bus
+ * rows, then the link rows of outputs that drive other outputs); every net a
+ * diode drives has a vertical column (bus columns on the left, then the
+ * output columns grouped per display position). A diode sits where its
+ * driving row crosses its driven column: the anode lead taps the row just
+ * left of the crossing, the cathode lead taps the column just below it, so
+ * the triangle points from row to column and the bar faces the driven line.
+ * A bus has both a column (where states feed it) and a row (where it feeds
+ * outputs), joined at a corner; bus B1 gets the leftmost column and the
+ * lowest row so that the bus lines nest without crossing. Millimetres, in
+ * grid coordinates (the sheet layout moves them onto paper).
+ */
+import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
+import { designators } from "../core/matrix/designators.ts";
+import type { DiodeMatrix } from "../core/matrix/matrix.ts";
+import type { Project } from "../core/project/project.ts";
+import { boundingBox, textWidth, type DiodeSymbol, type Dot, type Point } from "./drawingModel.ts";
+import { glyphKeyHeight } from "./glyphKey.ts";
+import { findDots } from "./junctions.ts";
+import type { Metrics } from "./layoutMetrics.ts";
+
+export type RowKind = "state" | "bus" | "link";
+
+export interface GridRow {
+  readonly net: string;
+  readonly kind: RowKind;
+  readonly text: string;
+}
+
+export interface GridColumn {
+  readonly net: string;
+  readonly kind: "bus" | "output";
+  /** `Buses` or the display position number. */
+  readonly group: string;
+  /** Name printed at the column's head. */
+  readonly head: string;
+  /** Printed at the foot of an output column: its driver. */
+  readonly foot: string;
+}
+
+/** One wire of a net, in grid millimetres (before placing on a sheet). */
+export interface Wire {
+  readonly net: string;
+  readonly a: Point;
+  readonly b: Point;
+  readonly horizontal: boolean;
+}
+
+export interface Grid {
+  readonly rows: readonly GridRow[];
+  readonly columns: readonly GridColumn[];
+  readonly pitchX: number;
+  readonly wires: readonly Wire[];
+  readonly diodes: readonly DiodeSymbol[];
+  readonly dots: readonly Dot[];
+  readonly rotateHeads: boolean;
+  readonly keyH: number;
+  readonly m: Metrics;
+}
+
+/** x of column `c` in grid millimetres. */
+export const X = (c: number, pitchX: number): number => c * pitchX;
+/** y of row `r` in grid millimetres. */
+export const Y = (r: number, m: Metrics): number => r * m.pitchY;
+
+/** Lays out the rows, columns, wires, diodes and junction dots of a matrix at one scale. */
+export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, m: Metrics): Grid {
+  const drivers = new Set(matrix.diodes.map((d) => d.from));
+  const linkSources = matrix.outputs.filter((o) => drivers.has(o));
+  const rows: GridRow[] = [
+    ...spec.states.map((s, k) => ({ net: s, kind: "state" as const, text: `${s} "${spec.texts[k] ?? ""}"` })),
+    ...[...matrix.buses].reverse().map((b) => ({ net: b, kind: "bus" as const, text: `${b} (bus)` })),
+    ...linkSources.map((o) => ({ net: o, kind: "link" as const, text: `${o} (link)` })),
+  ];
+  const driverOf = new Map(designators(spec, matrix, project.electrical).drivers.map((d) => [d.output, d.transistor]));
+  const columns: GridColumn[] = [
+    ...matrix.buses.map((b) => ({ net: b, kind: "bus" as const, group: "Buses", head: b, foot: "" })),
+    ...matrix.outputs.map((o) => {
+      const m = /^(\d+)(.*)$/.exec(o);
+      return { net: o, kind: "output" as const, group: m?.[1] ?? "", head: m?.[2] ?? o, foot: driverOf.get(o) ?? "" };
+    }),
+  ];
+  const refW = Math.max(0, ...matrix.diodes.map((d) => textWidth(d.ref, m.refSize)));
+  const pitchX = Math.ceil(Math.max(m.minPitchX, m.leftPad + 1.0 * m.scale + refW + 0.6 * m.scale) * 10) / 10;
+  const rowOf = new Map(rows.map((r, i) => [r.net, i]));
+  const colOf = new Map(columns.map((c, i) => [c.net, i]));
+  const C = Math.max(columns.length, 1);
+  const R = rows.length;
+  const left = X(0, pitchX) - m.leftPad;
+  const right = X(C - 1, pitchX) + pitchX - m.leftPad;
+  const top = Y(0, m) - m.topPad;
+  const bottom = Y(R - 1, m) + m.pitchY - m.topPad;
+
+  const diodes: DiodeSymbol[] = matrix.diodes.map((d) => {
+    const r = rowOf.get(d.from);
+    const c = colOf.get(d.to);
+    if (r === undefined || c === undefined) throw new Error(`bug: diode ${d.ref} from ${d.from} to ${d.to} has no row or column`);
+    return diodeSymbol(d, { x: X(c, pitchX), y: Y(r, m) }, m);
+  });
+
+  const wires: Wire[] = [];
+  for (const [r, row] of rows.entries()) {
+    const y = Y(r, m);
+    if (row.kind === "state") {
+      wires.push({ net: row.net, a: { x: left, y }, b: { x: right, y }, horizontal: true });
+      continue;
+    }
+    const own = colOf.get(row.net);
+    const ownX = own === undefined ? [] : [X(own, pitchX)];
+    // From the leftmost anode tap to just past the rightmost crossing, so the
+    // row really crosses every column it feeds.
+    const fed = diodes.filter((d) => d.from === row.net);
+    const x0 = Math.min(...ownX, ...fed.map((d) => d.anode.x - m.overshoot));
+    const x1 = Math.max(...ownX, ...fed.map((d) => d.crossing.x + m.overshoot));
+    wires.push({ net: row.net, a: { x: x0, y }, b: { x: x1, y }, horizontal: true });
+  }
+  for (const [c, col] of columns.entries()) {
+    const x = X(c, pitchX);
+    if (col.kind === "output") {
+      wires.push({ net: col.net, a: { x, y: top }, b: { x, y: bottom }, horizontal: false });
+      continue;
+    }
+    const own = rowOf.get(col.net);
+    const taps = diodes.filter((d) => d.to === col.net).map((d) => d.cathode.y + m.overshoot);
+    const y1 = Math.max(...(own === undefined ? [] : [Y(own, m)]), ...taps);
+    wires.push({ net: col.net, a: { x, y: top }, b: { x, y: y1 }, horizontal: false });
+  }
+
+  const dots = findDots(wires, diodes, m.dotR);
+  const rotateHeads = columns.some((c) => textWidth(c.head, m.columnSize) > pitchX - 1.5);
+  // Room for the tallest key of a whole position group; a group cut by a
+  // sheet edge is narrower, and a key that then grows taller is left out.
+  const groupSizes = new Map<string, number>();
+  for (const c of columns) if (c.kind === "output") groupSizes.set(c.group, (groupSizes.get(c.group) ?? 0) + 1);
+  const keyH = Math.max(0, ...[...groupSizes.values()].map((n) => glyphKeyHeight(spec.cell, n * pitchX - 1.6, m.scale)));
+  return { rows, columns, pitchX, wires, diodes, dots, rotateHeads, keyH, m };
+}
+
+/** The symbol of a diode at a crossing, its taps `m.tap` left of and below it. */
+export function diodeSymbol(
+  d: { readonly ref: string; readonly from: string; readonly to: string },
+  crossing: Point,
+  m: Metrics,
+): DiodeSymbol {
+  const { ref, from, to } = d;
+  const anode = { x: crossing.x - m.tap, y: crossing.y };
+  const cathode = { x: crossing.x, y: crossing.y + m.tap };
+  const len = Math.hypot(cathode.x - anode.x, cathode.y - anode.y);
+  const u = { x: (cathode.x - anode.x) / len, y: (cathode.y - anode.y) / len };
+  const p = { x: -u.y, y: u.x };
+  const mid = { x: (anode.x + cathode.x) / 2, y: (anode.y + cathode.y) / 2 };
+  const half = m.symbolHalf;
+  const base = { x: mid.x - u.x * half, y: mid.y - u.y * half };
+  const apex = { x: mid.x + u.x * half, y: mid.y + u.y * half };
+  const triangle: [Point, Point, Point] = [
+    { x: base.x + p.x * half, y: base.y + p.y * half },
+    { x: base.x - p.x * half, y: base.y - p.y * half },
+    apex,
+  ];
+  const bar: [Point, Point] = [
+    { x: apex.x + p.x * half, y: apex.y + p.y * half },
+    { x: apex.x - p.x * half, y: apex.y - p.y * half },
+  ];
+  return { ref, from, to, crossing, anode, cathode, triangle, bar, box: boundingBox([anode, cathode, ...triangle, ...bar]) };
+}

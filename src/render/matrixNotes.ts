@@ -1,0 +1,52 @@
+/**
+ * The notes printed on every sheet of the matrix drawing: what to buy for
+ * the diodes, how to read the symbol and the grid, and what to fit first.
+ */
+import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
+import type { DiodeMatrix } from "../core/matrix/matrix.ts";
+import { refRanges } from "../core/papers/parts.ts";
+import type { Project } from "../core/project/project.ts";
+import { milliampsExact } from "./units.ts";
+
+/**
+ * The notes of a drawing.
+ *
+ * @param continued the drawing takes more than one sheet (adds the continuation note)
+ */
+export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, continued: boolean): string[] {
+  const e = project.electrical;
+  const refs = matrix.diodes.map((d) => d.ref);
+  const notes: string[] = [];
+  if (refs.length > 0) {
+    notes.push(
+      `Diodes ${refRanges(refs)} (${refs.length}): small-signal silicon, at least ${e.diode.maxReverseV} V reverse and ${milliampsExact(e.diode.maxForwardA)} mA forward.`,
+    );
+  }
+  notes.push(
+    "Band = cathode = bar on the symbol. The anode takes the row (counter, bus or link line); the cathode goes to the column it drives.",
+  );
+  notes.push("Lines that cross without a dot are not joined; a dot marks a joint.");
+  notes.push(
+    `Rows: the counter lines ${spec.states[0]}-${spec.states[spec.states.length - 1]}, each with the text it shows. Columns: output lines, grouped by display position; each ends at its driver's base (Q).`,
+  );
+  if (matrix.buses.length > 0)
+    notes.push(`Bus nodes ${matrix.buses.join(", ")}: the counter lines feed the bus column; the bus row feeds the outputs.`);
+  const outputs = new Set(matrix.outputs);
+  const links = matrix.diodes.filter((d) => outputs.has(d.from));
+  if (links.length > 0) {
+    const shown = links.slice(0, 6).map((d) => `${d.ref} ${d.from} to ${d.to}`);
+    const more = links.length > shown.length ? ` and ${links.length - shown.length} more (see the wiring list)` : "";
+    notes.push(`Links, output to output: ${shown.join(", ")}${more}; a link row taps its source column at the dot.`);
+  }
+  if (spec.tiedOn.length > 0) notes.push(`Lit in every state, no diodes: ${someOf(spec.tiedOn)} (base held high, see the BOM).`);
+  if (spec.neverLit.length > 0) notes.push(`Never lit, not wired: ${someOf(spec.neverLit)}.`);
+  if (continued) notes.push("An arrowhead with sh.N marks a line continued on sheet N.");
+  notes.push("Fit the diodes in the order of the wiring list, row by row, ticking each one.");
+  return notes;
+}
+
+/** A list for a note: the first dozen names, then how many more. */
+function someOf(names: readonly string[]): string {
+  const shown = names.slice(0, 12).join(", ");
+  return names.length > 12 ? `${shown} and ${names.length - 12} more` : shown;
+}
