@@ -11,7 +11,8 @@ import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
 import { quoteText } from "../core/project/valueText.ts";
 import type { OptionSpec, ParsedArgs } from "./args.ts";
-import type { CliIo } from "./io.ts";
+import { EXIT, type CliIo } from "./io.ts";
+import { loadAndSynthesize, type Synthesized } from "./synthOptions.ts";
 
 export const DESIGN_USAGE = "[--trim auto|off|on] [--series E24|E96]";
 
@@ -47,4 +48,21 @@ export function designFor(project: Project, spec: DecodeSpec, matrix: VerifiedMa
   if (given.mode === "off") return projectDesign(project.electrical, matrix, given);
   const settled = settleDesign(project, spec, matrix, given);
   return settled.ok ? settled.value.design : projectDesign(project.electrical, matrix, given);
+}
+
+/**
+ * The first half of every command that prints the design: read the design
+ * options, then load, check and synthesize as `loadAndSynthesize` does. On
+ * any problem it prints the message and returns the exit code instead.
+ */
+export async function loadForDesign(
+  args: ParsedArgs,
+  io: CliIo,
+  usage: string,
+  check?: (project: Project) => string | undefined,
+): Promise<(Synthesized & { readonly design: DesignArgs }) | number> {
+  const design = designArgs(args, io);
+  if (!design) return EXIT.input;
+  const done = await loadAndSynthesize(args, io, usage, check);
+  return typeof done === "number" ? done : { ...done, design };
 }

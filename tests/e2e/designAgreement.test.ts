@@ -12,16 +12,9 @@ import { mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
-import { solveBudget } from "../../src/core/budget/budget.ts";
-import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
-import { parseProject } from "../../src/core/project/projectSchema.ts";
-import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
-import { registerNodeWindow } from "../../src/render/nodeWindow.ts";
 import { formatOhms } from "../../src/render/units.ts";
-import { exportFiles } from "../../src/ui/files/exportFiles.ts";
-import { withMatrix } from "../../src/ui/workers/liveResult.ts";
 import { bomValues, budgetEmitters, deckResistors, synthPartValues } from "../support/partValues.ts";
-import { exampleText } from "../support/projects.ts";
+import { webExport } from "../support/webExport.ts";
 
 const BIN = new URL("../../bin/diodeloom.mjs", import.meta.url).pathname;
 const ROOT = new URL("../../", import.meta.url).pathname;
@@ -35,28 +28,6 @@ function run(args: string[]): Promise<{ code: number; stdout: string; stderr: st
       resolve({ code: err ? (typeof err.code === "number" ? err.code : 99) : 0, stdout, stderr });
     });
   });
-}
-
-/** The web app's files for the same project, matrix and trim setting, built as the page builds them. */
-async function webFiles(trim: "auto" | "on"): Promise<{ bom: string; deck: string }> {
-  const parsed = parseProject(exampleText("relay-hex-monitor"));
-  if (!parsed.ok) throw new Error("the example does not parse");
-  const project = parsed.value;
-  const spec = compileSpec(project);
-  const settings = synthSettings(project, { mode: "fast" });
-  const m = await synthesize(spec, settings);
-  if (!m.ok) throw new Error(m.error.message);
-  const r = withMatrix(project, spec, settings, m.value);
-  // The analysis worker solves the budget exactly so (analysisWorker.ts).
-  const budget = solveBudget(project, spec, m.value, { trim });
-  registerNodeWindow();
-  const [bom] = exportFiles(r, "bom", "a4", budget);
-  const [decks] = exportFiles(r, "netlists", "a4", budget);
-  if (!bom || typeof bom.content !== "string" || !decks) throw new Error("the web export gave no BOM or decks");
-  // Several decks come as one stored ZIP; S0.cir is the first entry, its text stored as it is.
-  const zipText = Buffer.from(decks.content as Uint8Array).toString("utf8");
-  const deck = /\* [^\n]*: state S0 active\n[\s\S]*?\n\.end\n/.exec(zipText)?.[0] ?? "";
-  return { bom: bom.content, deck };
 }
 
 describe.each([
@@ -92,9 +63,11 @@ describe.each([
     const deck = deckResistors(netlist.stdout);
     const bom = bomValues(readFileSync(join(dir, webTrim, "bom.csv"), "utf8"));
     const exportDeck = deckResistors(readFileSync(join(dir, webTrim, "spice", "S0.cir"), "utf8"));
-    const web = await webFiles(webTrim);
-    const webBom = bomValues(web.bom);
-    const webDeck = deckResistors(web.deck);
+    // The web app's Export of the same project, heuristic matrix and trim setting.
+    const web = await webExport("relay-hex-monitor", webTrim);
+    const webBom = bomValues(web.get("bom.csv") ?? "");
+    const webDeckText = web.get("spice/S0.cir") ?? "";
+    const webDeck = deckResistors(webDeckText);
     for (const [ref, ohms] of emitters) {
       const printed = formatOhms(ohms);
       expect([ref, parts.get(ref), bom.get(ref), webBom.get(ref)]).toEqual([ref, printed, printed, printed]);
@@ -112,6 +85,6 @@ describe.each([
         : /Emitter resistors: the E24 trim, applied on request/;
     expect(synth.stdout).toMatch(note);
     expect(netlist.stdout).toMatch(note);
-    expect(web.deck).toMatch(note);
+    expect(webDeckText).toMatch(note);
   });
 });

@@ -8,9 +8,9 @@ import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
 import { formatOhms, microamps, milliamps, milliwatts, nanoamps, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
-import { designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
+import { DESIGN_OPTIONS, DESIGN_USAGE, loadForDesign } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
-import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `budget FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
@@ -23,12 +23,10 @@ export const budgetCommand: Command = {
     ...DESIGN_OPTIONS,
   },
   async run(args, io) {
-    const given = designArgs(args, io);
-    if (!given) return EXIT.input;
-    const done = await loadAndSynthesize(args, io, USAGE);
+    const done = await loadForDesign(args, io, USAGE);
     if (typeof done === "number") return done;
-    const { project, spec, matrix } = done;
-    const budget = solveBudget(project, spec, matrix, { series: given.series, trim: given.mode });
+    const { project, spec, matrix, design } = done;
+    const budget = solveBudget(project, spec, matrix, { series: design.series, trim: design.mode });
     if (!budget.ok) {
       io.err(`${budget.error.message}\n`);
       return EXIT.input;

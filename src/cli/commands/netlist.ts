@@ -1,9 +1,9 @@
 import { spiceNetlist } from "../../core/papers/netlist.ts";
 import type { Command } from "../command.ts";
-import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
+import { designFor, DESIGN_OPTIONS, DESIGN_USAGE, loadForDesign } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
 import { quoteText } from "../../core/project/valueText.ts";
-import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `netlist FILE --state K ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
@@ -21,18 +21,16 @@ export const netlistCommand: Command = {
       io.err(`--state is required (the active state, e.g. --state 0)\nusage: diodeloom ${USAGE}\n`);
       return EXIT.input;
     }
-    const given = designArgs(args, io);
-    if (!given) return EXIT.input;
     const m = /^S?(\d+)$/i.exec(raw);
     const k = m ? Number(m[1]) : NaN;
-    const done = await loadAndSynthesize(args, io, USAGE, (project) => {
+    const done = await loadForDesign(args, io, USAGE, (project) => {
       const n = project.counter.states;
       if (Number.isInteger(k) && k >= 0 && k < n) return undefined;
       return `--state: got ${quoteText(raw)}; must be a state number from 0 to ${n - 1} or a name S0..S${n - 1}`;
     });
     if (typeof done === "number") return done;
-    const { project, spec, matrix } = done;
-    io.out(spiceNetlist(project, spec, matrix, k, designFor(project, spec, matrix, given)));
+    const { project, spec, matrix, design } = done;
+    io.out(spiceNetlist(project, spec, matrix, k, designFor(project, spec, matrix, design)));
     return EXIT.ok;
   },
 };

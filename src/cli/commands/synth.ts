@@ -6,9 +6,9 @@ import { countParts, refRanges } from "../../core/papers/parts.ts";
 import type { Project } from "../../core/project/project.ts";
 import { partValue } from "../../render/bom.ts";
 import type { Command } from "../command.ts";
-import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
+import { designFor, DESIGN_OPTIONS, DESIGN_USAGE, loadForDesign } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
-import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `synth FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
@@ -21,13 +21,11 @@ export const synthCommand: Command = {
     ...DESIGN_OPTIONS,
   },
   async run(args, io) {
-    const given = designArgs(args, io);
-    if (!given) return EXIT.input;
-    const done = await loadAndSynthesize(args, io, USAGE);
+    const done = await loadForDesign(args, io, USAGE);
     if (typeof done === "number") return done;
-    const { project, spec, matrix } = done;
+    const { project, spec, matrix, design } = done;
     if (args.flags.has("json")) io.out(JSON.stringify(matrix, null, 2) + "\n");
-    else io.out(describeMatrix(project, spec, matrix, designFor(project, spec, matrix, given)));
+    else io.out(describeMatrix(project, spec, matrix, designFor(project, spec, matrix, design)));
     return EXIT.ok;
   },
 };
