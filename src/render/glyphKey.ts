@@ -36,13 +36,26 @@ export function glyphKeyHeight(cell: Cell, widthMm: number, scale = 1): number {
 const SEG7_KEY_H = 14;
 const NAME_SIZE = 1.8;
 
+/** Where a key goes, millimetres. */
+export interface KeyPlace {
+  /** Centre of the key, across. */
+  readonly cx: number;
+  /** Top of the key. */
+  readonly top: number;
+  /** The width the key may use (the group's columns). */
+  readonly widthMm: number;
+  /** Size relative to the plain key (the drawing's scale); 1 when left out. */
+  readonly scale?: number;
+}
+
 /**
- * Draws the key centred on `cx`, with its top at `top`.
+ * Draws the key of a cell at a place.
  *
- * @param widthMm the width the key may use (the group's columns)
- * @param scale size relative to the plain key (the drawing's scale)
+ * @example
+ * glyphKey(spec.cell, { cx: 60, top: 21.5, widthMm: 70, scale: 1.25 }).box;
  */
-export function glyphKey(cell: Cell, cx: number, top: number, widthMm: number, scale = 1): GlyphKey {
+export function glyphKey(cell: Cell, place: KeyPlace): GlyphKey {
+  const { cx, top, widthMm, scale = 1 } = place;
   const plain = cell.kind === "custom" ? customKey(cell, 0, 0, widthMm / scale) : seg7Key(cell.kind === "seg7dp", 0, 0);
   const k = scaled(plain, cx, top, scale);
   const corners = [

@@ -227,7 +227,7 @@ export function layoutSheet(job: SheetJob): SheetLayout {
     segments.push({ a: { x: x0, y: bracketY + 1 }, b: { x: x0, y: bracketY }, width: STROKE.thin });
     segments.push({ a: { x: x0, y: bracketY }, b: { x: x1, y: bracketY }, width: STROKE.thin });
     segments.push({ a: { x: x1, y: bracketY }, b: { x: x1, y: bracketY + 1 }, width: STROKE.thin });
-    const k = glyphKey(job.cell, cx, headTop + 3.5, x1 - x0, m.scale);
+    const k = glyphKey(job.cell, { cx, top: headTop + 3.5, widthMm: x1 - x0, scale: m.scale });
     // A key wider than its group's columns would run into the next group's: leave it out.
     const fits =
       k.box.x >= x0 - 0.8 - 1e-9 && k.box.x + k.box.w <= x1 + 0.8 + 1e-9 && k.box.y + k.box.h <= headTop + 3.5 + grid.keyH + 1e-9;

@@ -83,7 +83,13 @@ export function paperFiles(input: PaperInput, kind: PaperKind): PaperFile[] {
       return [{ name: "wiring.csv", mediaType: "text/csv", text: wiringCsv(wiringRows(matrix, drawing.placements)) }];
     case "wiring-page": {
       const rows = wiringRows(matrix, drawing.placements);
-      return [{ name: "wiring.html", mediaType: "text/html", text: wiringPageHtml(project, matrix, rows, options, drawing.sheets.length) }];
+      return [
+        {
+          name: "wiring.html",
+          mediaType: "text/html",
+          text: wiringPageHtml({ project, matrix, rows, options, sheetCount: drawing.sheets.length }),
+        },
+      ];
     }
     case "budget":
       if (!budget) return [];

@@ -15,18 +15,24 @@ function esc(text: string): string {
   return text.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
 }
 
+/** What the printable wiring list shows. */
+export interface WiringPageInput {
+  readonly project: Project;
+  readonly matrix: DiodeMatrix;
+  readonly rows: readonly WiringRow[];
+  readonly options: DrawingOptions;
+  /** Number of matrix drawing sheets the rows refer to. */
+  readonly sheetCount: number;
+}
+
 /**
- * @param sheetCount number of matrix drawing sheets the rows refer to
+ * The printable wiring list as one HTML page.
+ *
  * @example
- * await writeFile("wiring.html", wiringPageHtml(project, matrix, rows, options, drawing.sheets.length));
+ * await writeFile("wiring.html", wiringPageHtml({ project, matrix, rows, options, sheetCount: drawing.sheets.length }));
  */
-export function wiringPageHtml(
-  project: Project,
-  matrix: DiodeMatrix,
-  rows: readonly WiringRow[],
-  options: DrawingOptions,
-  sheetCount: number,
-): string {
+export function wiringPageHtml(input: WiringPageInput): string {
+  const { project, matrix, rows, options, sheetCount } = input;
   const body = rows
     .map(
       (r) =>

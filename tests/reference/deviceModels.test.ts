@@ -179,7 +179,7 @@ describe("temperature relations", () => {
     ] as const) {
       const i = 1e-4;
       const v0 = shockleyVoltage(i, is, n, thermalVoltage(27));
-      const v1 = shockleyVoltage(i, siliconSaturationCurrent(is, n, 27, 37), n, thermalVoltage(37));
+      const v1 = shockleyVoltage(i, siliconSaturationCurrent({ isA: is, n, fromC: 27 }, 37), n, thermalVoltage(37));
       const perK = (v1 - v0) / 10;
       expect(perK).toBeLessThan(-1.5e-3);
       expect(perK).toBeGreaterThan(-3e-3);

@@ -28,20 +28,22 @@ export const SILICON_XTI = 3;
 /** Junction voltage change at constant current, volts per kelvin (about -2 mV/°C). */
 export const JUNCTION_TEMPCO_V_PER_K = -0.002;
 
+/** A junction's saturation current `isA` (amperes), which holds at `fromC`, and its emission coefficient `n`. */
+export interface JunctionAt {
+  readonly isA: number;
+  readonly n: number;
+  readonly fromC: number;
+}
+
 /**
- * Saturation current at `toC` of a junction whose `isA` holds at `fromC`,
- * scaled as SPICE does.
+ * Saturation current at `toC` of a junction, scaled as SPICE does, with
+ * SPICE's silicon defaults EG = 1.11 eV and XTI = 3 unless given.
  *
- * @param n emission coefficient
+ * @example
+ * siliconSaturationCurrent({ isA: 1e-14, n: 1, fromC: 27 }, 50); // about 1.5e-13
  */
-export function siliconSaturationCurrent(
-  isA: number,
-  n: number,
-  fromC: number,
-  toC: number,
-  egEv = SILICON_EG_EV,
-  xti = SILICON_XTI,
-): number {
+export function siliconSaturationCurrent(j: JunctionAt & { readonly egEv?: number; readonly xti?: number }, toC: number): number {
+  const { isA, n, fromC, egEv = SILICON_EG_EV, xti = SILICON_XTI } = j;
   const ratio = (toC + ZERO_CELSIUS_K) / (fromC + ZERO_CELSIUS_K);
   return isA * Math.exp((ratio - 1) * (egEv / (n * thermalVoltage(toC))) + (xti / n) * Math.log(ratio));
 }
@@ -49,8 +51,12 @@ export function siliconSaturationCurrent(
 /**
  * Saturation current at `toC` of an LED die, chosen so that its forward
  * voltage at `atA` amperes moves by -2 mV per °C from its value at `fromC`.
+ *
+ * @example
+ * ledSaturationCurrent({ isA: 1e-27, n: 2, fromC: 27, atA: 1.4e-4 }, 50);
  */
-export function ledSaturationCurrent(isA: number, n: number, fromC: number, toC: number, atA: number): number {
+export function ledSaturationCurrent(die: JunctionAt & { readonly atA: number }, toC: number): number {
+  const { isA, n, fromC, atA } = die;
   const v0 = shockleyVoltage(atA, isA, n, thermalVoltage(fromC));
   const v1 = v0 + JUNCTION_TEMPCO_V_PER_K * (toC - fromC);
   return atA / Math.expm1(v1 / (n * thermalVoltage(toC)));
@@ -121,16 +127,19 @@ export function cornerModel(
     ...e,
     temperatureC: c.temperatureC,
     counterOutput: { ...e.counterOutput, resistance: e.counterOutput.resistance * c.counterFactor },
-    diode: { ...e.diode, is: siliconSaturationCurrent(e.diode.is, e.diode.n, t0, c.temperatureC) },
+    diode: { ...e.diode, is: siliconSaturationCurrent({ isA: e.diode.is, n: e.diode.n, fromC: t0 }, c.temperatureC) },
     pullDown: e.pullDown * c.pullDownFactor,
     driver: {
       ...e.driver,
-      is: siliconSaturationCurrent(e.driver.is, 1, t0, c.temperatureC),
+      is: siliconSaturationCurrent({ isA: e.driver.is, n: 1, fromC: t0 }, c.temperatureC),
       betaF: c.betaF,
       emitterResistor: e.driver.emitterResistor * c.emitterFactor,
       emitterResistors,
     },
-    string: { ...e.string, is: ledSaturationCurrent(e.string.is, e.string.n, t0, c.temperatureC, e.string.targetA) },
+    string: {
+      ...e.string,
+      is: ledSaturationCurrent({ isA: e.string.is, n: e.string.n, fromC: t0, atA: e.string.targetA }, c.temperatureC),
+    },
     supply: { ...e.supply, volts: c.supplyV },
   };
 }

@@ -117,7 +117,7 @@ export function settleDesign(
   const e = project.electrical;
   const nominal = solveAllStates(spec, matrix, e, "nominal");
   if (!nominal.ok) return nominal;
-  const trim = trimEmitters(spec, matrix, e, nominal.value, options.series);
+  const trim = trimEmitters({ spec, matrix, model: e, nominal: nominal.value, series: options.series });
   if (!trim.ok) return trim;
   const target = e.string.targetA;
   const before = designFigures(currentRanges(spec, nominal.value), target);

@@ -92,18 +92,25 @@ export function offTargetPct(ranges: ReadonlyMap<string, CurrentRange>, targetA:
 
 const mid = (r: CurrentRange): number => (r.minA + r.maxA) / 2;
 
+/** What the trim works from. */
+export interface TrimInput {
+  readonly spec: DecodeSpec;
+  readonly matrix: DiodeMatrix;
+  readonly model: ElectricalModel;
+  /** Every state solved with the model's own emitter resistors. */
+  readonly nominal: readonly StateSolution[];
+  readonly series: ESeriesName;
+}
+
 /**
  * Works out the trim from the nominal solution.
  *
- * @param nominal every state solved with the model's own emitter resistors
+ * @example
+ * const t = trimEmitters({ spec, matrix, model: project.electrical, nominal, series: "E24" });
+ * if (t.ok) t.value.ohms.get("1a"); // 6200
  */
-export function trimEmitters(
-  spec: DecodeSpec,
-  matrix: DiodeMatrix,
-  model: ElectricalModel,
-  nominal: readonly StateSolution[],
-  series: ESeriesName,
-): Result<EmitterTrim, BudgetFailure> {
+export function trimEmitters(input: TrimInput): Result<EmitterTrim, BudgetFailure> {
+  const { spec, matrix, model, nominal, series } = input;
   const target = model.string.targetA;
   const before = currentRanges(spec, nominal);
   const outputs = [...before.keys()];

@@ -31,7 +31,7 @@ export {
 } from "./emitterDesign.ts";
 export type { DesignFigures, EmitterDesign, SettledDesign, TrimEffect, TrimMode } from "./emitterDesign.ts";
 export { currentRanges, offTargetPct, overallSpread, spreadPct, trimEmitters } from "./emitterTrim.ts";
-export type { CurrentRange, EmitterTrim, TrimmedOutput } from "./emitterTrim.ts";
+export type { CurrentRange, EmitterTrim, TrimInput, TrimmedOutput } from "./emitterTrim.ts";
 export {
   cornerConditions,
   cornerModel,
@@ -41,7 +41,7 @@ export {
   SILICON_XTI,
   siliconSaturationCurrent,
 } from "./corners.ts";
-export type { CornerConditions, CornerName } from "./corners.ts";
+export type { CornerConditions, CornerName, JunctionAt } from "./corners.ts";
 export { E24, E96, nearestPreferred, preferredNeighbours } from "./eSeries.ts";
 export type { ESeriesName } from "./eSeries.ts";
 export { hazardousVoltageText, MAINS_SUPPLY_TEXT, safetyCautions, SELV_DC_LIMIT_V } from "./safety.ts";

@@ -133,8 +133,3 @@ export function designators(
 function refNumber(ref: string): number {
   return Number(ref.replace(/^[A-Z]+/, ""));
 }
-
-/** The emitter resistor values of a design, ohms, keyed by output. */
-export function emitterValues(parts: Designators): Map<string, number> {
-  return new Map(parts.drivers.map((d) => [d.output, d.emitterOhms]));
-}

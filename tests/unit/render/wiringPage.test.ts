@@ -13,7 +13,7 @@ describe("printable wiring list", () => {
   const rows = wiringRows(matrix);
 
   it("has one table row with an empty tick box per diode, in order, then the checklist", () => {
-    const html = wiringPageHtml(project, matrix, rows, drawingOptions(project, { paper: "letter" }), 1);
+    const html = wiringPageHtml({ project, matrix, rows, options: drawingOptions(project, { paper: "letter" }), sheetCount: 1 });
     const refs = [...html.matchAll(/<tr><td>\d+<\/td><td><b>(D\d+)<\/b>/g)].map((m) => m[1]);
     expect(refs).toEqual(matrix.diodes.map((d) => d.ref));
     expect(html.match(/<td class="box"><\/td>/g)?.length).toBe(matrix.count + 5);
@@ -22,7 +22,7 @@ describe("printable wiring list", () => {
   });
 
   it("escapes the title", () => {
-    const html = wiringPageHtml(project, matrix, rows, drawingOptions(project), 1);
+    const html = wiringPageHtml({ project, matrix, rows, options: drawingOptions(project), sheetCount: 1 });
     expect(html).toContain("R&amp;D &lt;rig&gt;");
     expect(html).not.toContain("<rig>");
   });

@@ -5,18 +5,18 @@ import { ELECTRICAL_DEFAULTS } from "../../../../src/core/project/projectSchema.
 
 describe("tolerance corners", () => {
   it("leave saturation currents alone at the model's own temperature", () => {
-    expect(siliconSaturationCurrent(1e-14, 1, 27, 27)).toBe(1e-14);
-    expect(ledSaturationCurrent(1e-27, 2, 27, 27, 1.4e-4) / 1e-27).toBeCloseTo(1, 9);
+    expect(siliconSaturationCurrent({ isA: 1e-14, n: 1, fromC: 27 }, 27)).toBe(1e-14);
+    expect(ledSaturationCurrent({ isA: 1e-27, n: 2, fromC: 27, atA: 1.4e-4 }, 27) / 1e-27).toBeCloseTo(1, 9);
   });
 
   it("scale silicon Is up with temperature", () => {
-    expect(siliconSaturationCurrent(1e-14, 1, 27, 50)).toBeGreaterThan(1e-13);
-    expect(siliconSaturationCurrent(1e-14, 1, 27, 0)).toBeLessThan(1e-15);
+    expect(siliconSaturationCurrent({ isA: 1e-14, n: 1, fromC: 27 }, 50)).toBeGreaterThan(1e-13);
+    expect(siliconSaturationCurrent({ isA: 1e-14, n: 1, fromC: 27 }, 0)).toBeLessThan(1e-15);
   });
 
   it("move an LED die's drop at the target current by exactly -2 mV per degree", () => {
     const v0 = shockleyVoltage(1.4e-4, 1e-27, 2, thermalVoltage(27));
-    const v1 = shockleyVoltage(1.4e-4, ledSaturationCurrent(1e-27, 2, 27, 50, 1.4e-4), 2, thermalVoltage(50));
+    const v1 = shockleyVoltage(1.4e-4, ledSaturationCurrent({ isA: 1e-27, n: 2, fromC: 27, atA: 1.4e-4 }, 50), 2, thermalVoltage(50));
     expect(v1 - v0).toBeCloseTo(-0.046, 9);
   });
 

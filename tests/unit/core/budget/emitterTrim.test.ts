@@ -33,7 +33,7 @@ describe("emitter trim", () => {
     const e = d.project.electrical;
     const nominal = solveAllStates(d.spec, d.matrix, e, "nominal");
     if (!nominal.ok) throw new Error(nominal.error.message);
-    const t = trimEmitters(d.spec, d.matrix, e, nominal.value, "E24");
+    const t = trimEmitters({ spec: d.spec, matrix: d.matrix, model: e, nominal: nominal.value, series: "E24" });
     if (!t.ok) throw new Error(t.error.message);
     for (const [o, x] of Object.entries(t.value.outputs)) {
       expect(preferredNeighbours(x.idealOhms, "E24")).toContain(x.ohms);
