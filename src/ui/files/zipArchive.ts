@@ -29,6 +29,25 @@ export function crc32(bytes: Uint8Array): number {
 }
 
 /**
+ * The fields a local file header and its central directory entry share,
+ * from "version needed" to the extra-field length, written at `at`: version
+ * 2.0, flags with bit 11 (UTF-8 names), method 0 (stored), the fixed time
+ * and date 1980-01-01 00:00, the CRC, both sizes, the name length, no extra.
+ */
+function entryFields(view: DataView, at: number, e: { readonly crc: number; readonly size: number; readonly nameLength: number }): void {
+  view.setUint16(at, 20, true);
+  view.setUint16(at + 2, 0x0800, true);
+  view.setUint16(at + 4, 0, true);
+  view.setUint16(at + 6, 0, true);
+  view.setUint16(at + 8, 0x21, true);
+  view.setUint32(at + 10, e.crc, true);
+  view.setUint32(at + 14, e.size, true);
+  view.setUint32(at + 18, e.size, true);
+  view.setUint16(at + 22, e.nameLength, true);
+  view.setUint16(at + 24, 0, true);
+}
+
+/**
  * Packs text files into a ZIP archive. Names are stored as UTF-8 (flag bit
  * 11); the timestamp is fixed (1980-01-01) so the same files give the same
  * bytes.
@@ -45,16 +64,7 @@ export function zipArchive(entries: readonly ArchiveEntry[]): Uint8Array {
     const local = new Uint8Array(30 + name.length + data.length);
     const lv = new DataView(local.buffer);
     lv.setUint32(0, 0x04034b50, true);
-    lv.setUint16(4, 20, true);
-    lv.setUint16(6, 0x0800, true);
-    lv.setUint16(8, 0, true);
-    lv.setUint16(10, 0, true);
-    lv.setUint16(12, 0x21, true);
-    lv.setUint32(14, crc, true);
-    lv.setUint32(18, data.length, true);
-    lv.setUint32(22, data.length, true);
-    lv.setUint16(26, name.length, true);
-    lv.setUint16(28, 0, true);
+    entryFields(lv, 4, { crc, size: data.length, nameLength: name.length });
     local.set(name, 30);
     local.set(data, 30 + name.length);
     locals.push(local);
@@ -62,16 +72,8 @@ export function zipArchive(entries: readonly ArchiveEntry[]): Uint8Array {
     const central = new Uint8Array(46 + name.length);
     const cv = new DataView(central.buffer);
     cv.setUint32(0, 0x02014b50, true);
-    cv.setUint16(4, 20, true);
-    cv.setUint16(6, 20, true);
-    cv.setUint16(8, 0x0800, true);
-    cv.setUint16(10, 0, true);
-    cv.setUint16(12, 0, true);
-    cv.setUint16(14, 0x21, true);
-    cv.setUint32(16, crc, true);
-    cv.setUint32(20, data.length, true);
-    cv.setUint32(24, data.length, true);
-    cv.setUint16(28, name.length, true);
+    cv.setUint16(4, 20, true); // version made by: 2.0
+    entryFields(cv, 6, { crc, size: data.length, nameLength: name.length });
     cv.setUint32(42, offset, true);
     central.set(name, 46);
     centrals.push(central);
