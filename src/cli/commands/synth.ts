@@ -57,6 +57,11 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
   lines.push(
     `Method: ${METHOD_TEXT[m.method]}; verified; depth limit ${m.depthLimit} (${m.policy}), longest path ${m.longestPath}; ${bound}`,
   );
+  if (m.deadlineHit) {
+    lines.push(
+      "The time limit ran out before the optimizer's work budget did (a busy machine?): another run may give a different matrix or bound.",
+    );
+  }
   lines.push("");
 
   const fromOf = new Map<string, string[]>();

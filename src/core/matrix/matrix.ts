@@ -37,6 +37,13 @@ export interface DiodeMatrix {
   readonly depthLimit: number;
   readonly policy: DepthPolicy;
   readonly method: SynthesisMethod;
+  /**
+   * True when the clock (the time limit) stopped the optimizer before its
+   * work budget ran out. The work budgets come from the configured limit, so
+   * the same settings give the same matrix and bound on any machine, except
+   * in such a run: another run may then differ.
+   */
+  readonly deadlineHit: boolean;
 }
 
 /** A matrix that `verifyMatrix` has proven correct against its spec. */
@@ -53,6 +60,8 @@ export interface MatrixMeta {
   readonly depthLimit: number;
   readonly policy: DepthPolicy;
   readonly method: SynthesisMethod;
+  /** See `DiodeMatrix.deadlineHit`; false when left out. */
+  readonly deadlineHit?: boolean;
 }
 
 /** Bus node name (1-based). */
@@ -103,6 +112,7 @@ export function buildMatrix(spec: DecodeSpec, edges: readonly Edge[], meta: Matr
     depthLimit: meta.depthLimit,
     policy: meta.policy,
     method: meta.method,
+    deadlineHit: meta.deadlineHit ?? false,
   };
 }
 

@@ -8,7 +8,8 @@
  * the exact model does not cover every structure (depth 3, or a candidate
  * family cut short for size); the MILP's dual bound is used everywhere else.
  */
-import type { SharingProblem } from "./plan.ts";
+import type { SharingProblem, SharingRules } from "./plan.ts";
+import { linkPairs, statesLighting } from "./rules.ts";
 
 /** max(driven outputs, states that light something). */
 export function trivialLowerBound(p: SharingProblem): number {
@@ -21,6 +22,7 @@ export function trivialLowerBound(p: SharingProblem): number {
 export interface LpModelLike {
   readonly options: { set(values: Readonly<Record<string, number | boolean | string>>): unknown };
   run(): unknown;
+  getModelStatus(): number;
   getSolution(): { readonly colValue: Float64Array; readonly rowDual: Float64Array };
   addCol(cost: number, lower: number, upper: number, entries: { readonly indices: Int32Array; readonly values: Float64Array }): unknown;
   dispose(): void;
@@ -29,16 +31,28 @@ export interface LpModelLike {
 export interface LpBoundOptions {
   /** Solves one LP-format text (a fresh model each call). */
   readonly solveLp: (text: string) => LpModelLike;
-  /** Wall-clock limit, milliseconds: a safety net; `maxWork` is meant to stop it first. */
-  readonly timeLimitMs: number;
+  /** Safety net only: a `Date.now()` value past which no round starts (and the LP solver stops); `maxWork` is meant to stop it first. */
+  readonly deadlineMs: number;
   /**
    * Most LP work, the deterministic stop: the sum over rounds of the
-   * model's nonzeros when it is solved (the LP time tracks it: measured
-   * 280 to 360 a millisecond on 00-59 and 00-99). Unlimited by default.
+   * model's nonzeros when it is solved (the LP time tracks it; the pricing
+   * search takes little beside it). Unlimited by default.
    */
   readonly maxWork?: number;
   /** Most output sets the pricing search visits per round. */
   readonly maxVisits?: number;
+}
+
+/** What `lpLowerBound` found. */
+export interface LpBound {
+  /** The bound, or null when the pricing could not visit every output set. */
+  readonly bound: number | null;
+  /** Bus output sets the pricing found worth adding, the most used first. */
+  readonly shapes: readonly (readonly number[])[];
+  /** True when the clock, not the work budget, ended it. */
+  readonly deadlineHit: boolean;
+  /** LP work done (see `LpBoundOptions.maxWork`), for the bench and for calibrating budgets. */
+  readonly work: number;
 }
 
 /**
@@ -61,21 +75,14 @@ export interface LpBoundOptions {
  * set; `shapes` are the bus output sets the pricing found worth adding, a
  * good small candidate family for the MILP.
  */
-export function lpLowerBound(
-  p: SharingProblem,
-  rules: { readonly policy: string; readonly links: boolean; readonly buses: boolean },
-  opts: LpBoundOptions,
-): { readonly bound: number | null; readonly shapes: readonly (readonly number[])[] } {
-  const started = Date.now();
+export function lpLowerBound(p: SharingProblem, rules: Pick<SharingRules, "policy" | "links" | "buses">, opts: LpBoundOptions): LpBound {
   const m = p.m;
+  let deadlineHit = false;
   const cellRow = new Int32Array(p.n * m).fill(-1);
   let rows = 0;
   for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) cellRow[k * m + o] = rows++;
-  if (rows === 0) return { bound: 0, shapes: [] };
-  const links: [number, number][] = [];
-  if (rules.links && rules.policy !== "uniform") {
-    for (let a = 0; a < m; a++) for (let b = 0; b < m; b++) if (p.within[a]?.[b]) links.push([a, b]);
-  }
+  if (rows === 0) return { bound: 0, shapes: [], deadlineHit, work: 0 };
+  const links: [number, number][] = linkPairs(p, rules).map((l) => [l.from, l.to]);
   const patterns: { s: number[]; t: number[] }[] = [];
   const seen = new Set<string>();
   const maxVisits = opts.maxVisits ?? 3_000_000;
@@ -93,8 +100,13 @@ export function lpLowerBound(
     try {
       if (!lp) {
         lp = opts.solveLp(relaxedText(p, cellRow, rows, links));
-        // HiGHS counts time over all runs of one model, so one budget for all rounds.
-        lp.options.set({ output_flag: false, solver: "ipm", run_crossover: "off", time_limit: Math.max(0.05, opts.timeLimitMs / 1000) });
+        // HiGHS counts time over all runs of one model, so one limit for all rounds: the deadline.
+        lp.options.set({
+          output_flag: false,
+          solver: "ipm",
+          run_crossover: "off",
+          time_limit: Math.max(0.05, (opts.deadlineMs - Date.now()) / 1000),
+        });
         firstPattern = rows + links.length;
       }
       for (; inModel < patterns.length; inModel++) {
@@ -105,6 +117,7 @@ export function lpLowerBound(
         lp.addCol(pt.s.length + pt.t.length, 0, 1e30, { indices: Int32Array.from(idx), values: new Float64Array(idx.length).fill(1) });
       }
       lp.run();
+      if (lp.getModelStatus() === LP_TIME_LIMIT) deadlineHit = true;
       const sol = lp.getSolution();
       if (sol.rowDual.length !== rows) return null;
       return { pi: Float64Array.from(sol.rowDual, (x) => Math.abs(x)), patternValue: sol.colValue.slice(firstPattern) };
@@ -114,7 +127,10 @@ export function lpLowerBound(
   };
 
   for (let round = 0; round < 500; round++) {
-    if (Date.now() - started > opts.timeLimitMs) break;
+    if (Date.now() > opts.deadlineMs) {
+      deadlineHit = true;
+      break;
+    }
     for (let i = inModel; i < patterns.length; i++) nonzeros += (patterns[i]?.s.length ?? 0) * (patterns[i]?.t.length ?? 0);
     // The first round always runs: without it there is no bound at all.
     if (round > 0 && work + nonzeros > (opts.maxWork ?? Infinity)) break;
@@ -142,7 +158,7 @@ export function lpLowerBound(
             complete = false;
             return;
           }
-          const s2 = sm.filter((k) => p.lit[k]?.[o]);
+          const s2 = statesLighting(p, sm, o);
           if (s2.length < 2) continue;
           const t2 = [...t, o];
           if (t2.length >= 2) {
@@ -205,8 +221,11 @@ export function lpLowerBound(
   const order = patterns.map((_, i) => i).sort((a, b) => (lastUsed[b] ?? 0) - (lastUsed[a] ?? 0) || a - b);
   const keys = [...new Set(order.map((i) => (patterns[i]?.t ?? []).join(",")))].slice(0, 400);
   const shapes = keys.map((key) => key.split(",").map(Number));
-  return { bound: best === null ? null : Math.ceil(best - 1e-6), shapes };
+  return { bound: best === null ? null : Math.ceil(best - 1e-6), shapes, deadlineHit, work };
 }
+
+/** HiGHS model status: its time limit (here the deadline) stopped it. */
+const LP_TIME_LIMIT = 13;
 
 /** The relaxed LP with direct and link columns only (bus columns are added as they are priced). */
 function relaxedText(p: SharingProblem, cellRow: Int32Array, rows: number, links: readonly [number, number][]): string {

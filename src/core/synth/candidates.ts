@@ -5,7 +5,7 @@
  * Smax(T), those lighting every output of T. One bus per T is enough: two
  * buses with the same T merge into one that costs |T| fewer diodes. So the
  * family "every T with |Smax(T)| >= 2" is complete; single-state buses are
- * modelled separately, one padding bus per state (see synthModel.ts).
+ * modelled separately, one padding bus per state (see model.ts).
  *
  * Dominance pruning under the mixed policy: a bus with one output, or one
  * whose |S| x |T| block is 2 x 2 or smaller, is never better than direct
@@ -13,6 +13,7 @@
  * left out (and a bus must then take enough states to be worth it).
  */
 import type { SharingProblem } from "./plan.ts";
+import { busPays, busStates, statesLighting } from "./rules.ts";
 
 export interface BusCandidate {
   /** Output set T, ascending. */
@@ -51,11 +52,11 @@ export function candidateFamily(
   const found: BusCandidate[] = [];
   let inputs = 0;
   let overflow = false;
-  const worth = (s: number, t: number): boolean => t >= minOutputs && (minOutputs < 2 || (s - 1) * (t - 1) >= 2);
+  const worth = (s: number, t: number): boolean => t >= minOutputs && (minOutputs < 2 || busPays(s, t));
   const visit = (t: number[], s: number[], next: number): void => {
     if (overflow) return;
     for (let o = next; o < p.m; o++) {
-      const s2 = s.filter((k) => p.lit[k]?.[o]);
+      const s2 = statesLighting(p, s, o);
       if (s2.length < 2) continue;
       const t2 = [...t, o];
       if (worth(s2.length, t2.length)) {
@@ -82,11 +83,11 @@ export function candidateFamily(
   const all = new Map<string, BusCandidate>();
   const collect = (t: number[], s: number[], next: number, budget: { left: number }): void => {
     for (let o = next; o < p.m && budget.left > 0; o++) {
-      const s2 = s.filter((k) => p.lit[k]?.[o]);
+      const s2 = statesLighting(p, s, o);
       if (s2.length < 2) continue;
       const t2 = [...t, o];
       budget.left--;
-      if (t2.length >= 2 && (s2.length - 1) * (t2.length - 1) >= 2) all.set(t2.join(","), { outputs: t2, states: s2 });
+      if (t2.length >= 2 && busPays(s2.length, t2.length)) all.set(t2.join(","), { outputs: t2, states: s2 });
       collect(t2, s2, o + 1, budget);
     }
   };
@@ -115,16 +116,10 @@ function withExtra(p: SharingProblem, found: BusCandidate[], extra: readonly (re
   for (const t of extra) {
     const key = t.join(",");
     if (keys.has(key) || t.length === 0) continue;
-    const s: number[] = [];
-    for (let k = 0; k < p.n; k++) if (t.every((o) => p.lit[k]?.[o])) s.push(k);
+    const s = busStates(p, t);
     if (s.length < 2) continue;
     keys.add(key);
     out.push({ outputs: [...t], states: s });
   }
   return out;
-}
-
-/** A family of the given output sets only (each with all its states); never complete. */
-export function familyFromShapes(p: SharingProblem, shapes: readonly (readonly number[])[]): CandidateFamily {
-  return { buses: withExtra(p, [], shapes), complete: false };
 }

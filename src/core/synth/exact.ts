@@ -1,9 +1,14 @@
 /**
- * The exact optimizer: the MILP of synthModel.ts solved by HiGHS
- * (WebAssembly), warm-started from the heuristic. At depth limit 2 with few
- * outputs the branch-and-bound of synthSearch.ts runs first and usually
- * proves the optimum on its own; HiGHS takes over where it does not apply or
- * runs out of nodes.
+ * The exact optimizer: the MILP of model.ts solved by HiGHS (WebAssembly),
+ * warm-started from the heuristic. At depth limit 2 with few outputs the
+ * branch-and-bound of search.ts runs first and usually proves the optimum
+ * on its own; HiGHS takes over where it does not apply or runs out of work.
+ * Where the candidate family is too big for the model (depth 2), the LP
+ * bound of bounds.ts bounds the heuristic's matrix.
+ *
+ * Every phase stops on a work budget computed from the configured time limit
+ * (`workBudget`), so the same settings give the same plan and bound on any
+ * machine; the clock is only a deadline, and a run it cuts says so.
  *
  * HiGHS is reached only through a loader function, so src/core imports no
  * solver at load time: Node passes the npm package, the web app's Web Worker
@@ -12,11 +17,12 @@
  * after it has aborted once. A solver that throws or aborts is a typed
  * outcome: the caller keeps the heuristic's matrix.
  */
-import { candidateFamily, DEFAULT_FAMILY_LIMITS, familyFromShapes, type FamilyLimits } from "./candidates.ts";
+import { candidateFamily, DEFAULT_FAMILY_LIMITS, type FamilyLimits } from "./candidates.ts";
 import { lpLowerBound, trivialLowerBound } from "./bounds.ts";
 import { buildSharingModel } from "./model.ts";
 import { searchApplies, searchPlan } from "./search.ts";
 import { litCount, planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
+import { betterPlan, breakTies } from "./tieBreak.ts";
 
 /** The part of a HiGHS model the driver uses (the npm `highs` persistent API). */
 export interface HighsModelLike {
@@ -57,8 +63,19 @@ export const defaultHighsLoader: HighsLoader = async () => {
 };
 
 export interface ExactOptions {
-  /** Wall-clock limit for the solve, milliseconds. */
+  /**
+   * The configured time limit, milliseconds. The work budgets come from it
+   * (see `workBudget`), never from the time left on the clock, so the same
+   * settings give the same result on an idle or a busy machine.
+   */
   readonly timeLimitMs: number;
+  /**
+   * Safety net only: a `Date.now()` value past which every phase stops as if
+   * its work budget had run out (then the outcome says `deadlineHit`). By
+   * default the time limit from the start of this call, less a little room
+   * for decoding and verification.
+   */
+  readonly deadlineMs?: number;
   readonly seed: number;
   readonly loadHighs: HighsLoader;
   readonly familyLimits?: FamilyLimits;
@@ -87,22 +104,35 @@ export interface WorkBudget {
   readonly highsWork: number;
 }
 
-/** Search work units per millisecond of time limit: a sixth of the rate measured on 0-9 and 0-F (50 000 to 120 000 a millisecond), because a first run (before the JIT has warmed up) on a busy machine is much slower. */
-const SEARCH_WORK_PER_MS = 15_000;
-/** LP-bound work (nonzeros solved, see synthBounds.ts) per millisecond: about 70 % of the rate measured on 00-59 and 00-99 (345 to 360 a millisecond; 280 while the machine was busier). */
-const LP_WORK_PER_MS = 250;
+/**
+ * The budgets are planned to take about a fifth of the time limit in CPU
+ * time at the slowest rate measured on this 2-core machine (a first, cold
+ * run), so that a run on a machine loaded four times over still
+ * ends on its budget, not on the clock. Rates are per CPU millisecond
+ * (`process.cpuUsage`), which other processes' load leaves alone.
+ */
+const BUDGET_SHARE = 0.2;
+/** Search work units per CPU millisecond: 20 000 cold on 0-9, 44 000 to 120 000 warm on 0-9, 0-F and 1-12. */
+const SEARCH_RATE = 20_000;
+/**
+ * LP-bound work (nonzeros solved, see bounds.ts) per CPU millisecond: 360 to
+ * 400 on 00-23 and 00-59, 232 on 00-99, 139 on 00-99 uniform (bigger LPs
+ * cost more a nonzero). Loading HiGHS costs about 1 s more on a first run.
+ */
+const LP_RATE = 140;
 /**
  * HiGHS work (LP iterations times model columns, see `WorkBudget`) per
- * millisecond of time limit. Measured 5 200 to 12 200 a millisecond over
- * whole solves on 0-F, 1-12 and 00-23, but only 3 200 in the first 5 s on
- * 00-23, whose root spends long stretches on other work; so about a third
- * of the slowest.
+ * millisecond: 5 200 to 12 200 over whole solves on 0-F, 1-12 and 00-23, but
+ * only 3 200 in the first 5 s on 00-23, whose root spends long stretches on
+ * other work. HiGHS looks at its interrupt checkpoint only every so often
+ * (gaps of up to 4 s measured on 0-F at depth 3), so its phase is the one
+ * most likely to meet the deadline; then the result says so.
  */
-const HIGHS_WORK_PER_MS = 1000;
+const HIGHS_RATE = 5_000;
 /** Least time limit at which HiGHS runs after a search that was cut short, milliseconds. */
 const HIGHS_AFTER_SEARCH_MIN_MS = 5000;
-/** HiGHS branch-and-bound nodes per millisecond of time limit (measured 10 to 35 ms a node on 0-F, after a root of 1 to 7 s). */
-const HIGHS_NODES_PER_MS = 1 / 100;
+/** HiGHS branch-and-bound nodes per millisecond (measured 10 to 35 ms a node on 0-F, after a root of 1 to 7 s). */
+const HIGHS_NODE_RATE = 1 / 35;
 
 /**
  * Work budgets derived from the time limit. A run stops on them, not on the
@@ -113,11 +143,10 @@ const HIGHS_NODES_PER_MS = 1 / 100;
  */
 export function workBudget(timeLimitMs: number): WorkBudget {
   return {
-    // The LP bound gets 70 % of the time limit, as its safety-net clock does.
-    lpWork: Math.max(1e4, Math.floor(timeLimitMs * 0.7 * LP_WORK_PER_MS)),
-    searchWork: Math.max(1e5, Math.floor(timeLimitMs * SEARCH_WORK_PER_MS)),
-    highsNodes: Math.max(20, Math.floor(timeLimitMs * HIGHS_NODES_PER_MS)),
-    highsWork: Math.max(1e5, Math.floor(timeLimitMs * HIGHS_WORK_PER_MS)),
+    searchWork: Math.max(1e5, Math.floor(timeLimitMs * BUDGET_SHARE * SEARCH_RATE)),
+    lpWork: Math.max(1e4, Math.floor(timeLimitMs * BUDGET_SHARE * LP_RATE)),
+    highsNodes: Math.max(20, Math.floor(timeLimitMs * BUDGET_SHARE * HIGHS_NODE_RATE)),
+    highsWork: Math.max(1e5, Math.floor(timeLimitMs * BUDGET_SHARE * HIGHS_RATE)),
   };
 }
 
@@ -134,10 +163,18 @@ export interface ExactOutcome {
   readonly columns: number;
   /** True when the candidate family held every useful bus shape. */
   readonly complete: boolean;
+  /**
+   * True when the clock (the deadline) stopped a phase before its work
+   * budget ran out. Only then may another run of the same settings give a
+   * different plan or bound; the budgets are set so that this is rare.
+   */
+  readonly deadlineHit: boolean;
 }
 
 /** HiGHS model status codes used here (`highs.constants.modelStatus`). */
 const STATUS_OPTIMAL = 7;
+/** HiGHS model status: its own time limit (the deadline) stopped it. */
+const STATUS_TIME_LIMIT = 13;
 /** HiGHS info `primal_solution_status`: 2 = feasible. */
 const PRIMAL_FEASIBLE = 2;
 
@@ -154,31 +191,39 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   const started = Date.now();
   const warmShapes = warm.buses.filter((b) => b.states.length >= 2).map((b) => b.outputs);
   const minOutputs = rules.policy === "mixed" ? 2 : 1;
-  let family = candidateFamily(p, minOutputs, opts.familyLimits ?? DEFAULT_FAMILY_LIMITS, warmShapes);
+  const family = candidateFamily(p, minOutputs, opts.familyLimits ?? DEFAULT_FAMILY_LIMITS, warmShapes);
   const floor = trivialLowerBound(p);
   const warmCount = planCount(warm);
   const budget = opts.budget ?? workBudget(opts.timeLimitMs);
   // The clock is only the safety net; it stops a little early so that decoding,
   // tie-breaks and the verifier still finish inside the caller's limit.
-  const deadlineMs = started + opts.timeLimitMs - Math.min(500, opts.timeLimitMs * 0.05);
+  const deadlineMs = opts.deadlineMs ?? started + opts.timeLimitMs - deadlineMarginMs(opts.timeLimitMs);
+  let deadlineHit = false;
 
   // Too big for the full model: bound by the LP relaxation (column
-  // generation, valid at depth 2), then solve the MILP over the bus shapes
-  // the pricing found plus the heuristic's ("price and branch").
-  let lpBound: number | null = null;
+  // generation, valid at depth 2) and keep the heuristic's matrix. A MILP
+  // over the bus shapes the pricing found is no longer run here: HiGHS
+  // reaches its first interrupt checkpoint only after a root of several
+  // seconds on these models (00-23: 3.5 s, 00-59: 8 s on a busy machine),
+  // so no work budget could stop it before the clock did, and it improved
+  // the heuristic's matrix by one diode at most on the bench.
   if (!family.complete && rules.depthLimit <= 2) {
+    const plan = warm;
+    let lowerBound = floor;
     try {
       const lpHighs = await opts.loadHighs();
       const lp = lpLowerBound(p, rules, {
         solveLp: (text) => lpHighs.createModel({ format: "lp", data: text }),
-        timeLimitMs: opts.timeLimitMs * 0.7,
+        deadlineMs,
         maxWork: budget.lpWork,
       });
-      lpBound = lp.bound;
-      family = familyFromShapes(p, [...warmShapes, ...lp.shapes]);
+      if (lp.bound !== null) lowerBound = Math.max(lowerBound, lp.bound);
+      deadlineHit ||= lp.deadlineHit;
     } catch {
-      // A failed LP leaves the truncated family and the combinatorial bound.
+      // A failed LP leaves the combinatorial bound.
     }
+    lowerBound = Math.min(lowerBound, warmCount);
+    return { columns: 0, complete: false, plan, lowerBound, status: lowerBound === warmCount ? "optimal" : "time-limit", deadlineHit };
   }
 
   // The branch-and-bound first: on small instances it proves the optimum
@@ -188,17 +233,18 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   let incumbent = warm;
   if (opts.search !== false && searchApplies(p, rules, family)) {
     const s = searchPlan(p, rules, family, warmCount, { maxWork: budget.searchWork, deadlineMs });
-    const found = s.plan === null ? warm : pickBetter(warm, breakTies(p, rules, s.plan));
+    deadlineHit ||= s.deadlineHit;
+    const found = s.plan === null ? warm : betterPlan(warm, breakTies(p, rules, s.plan));
     // Uniform: the search covers all-bus matrices; the all-direct one is the other choice.
     const lb = rules.policy === "uniform" ? Math.min(litCount(p), s.lowerBound) : s.lowerBound;
     searchBound = Math.min(Math.max(floor, lb), planCount(found));
-    if (s.proven) return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "optimal" };
+    if (s.proven) return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "optimal", deadlineHit };
     incumbent = found;
     // A short limit leaves HiGHS no time for its root (measured 1 to 7 s on
     // 0-F), and a root cut short by the clock would make the result depend
     // on the machine: so below this limit the search's result stands.
     if (opts.timeLimitMs < HIGHS_AFTER_SEARCH_MIN_MS)
-      return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "time-limit" };
+      return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "time-limit", deadlineHit };
   }
   const model = buildSharingModel(p, rules, family);
   const boundIsGlobal = family.complete && rules.depthLimit <= 2;
@@ -238,6 +284,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       },
     });
     const status = highsModel.getModelStatus();
+    deadlineHit ||= status === STATUS_TIME_LIMIT;
     const dual = Number(highsModel.info.get("mip_dual_bound"));
     let plan = incumbent;
     if (Number(highsModel.info.get("primal_solution_status")) === PRIMAL_FEASIBLE) {
@@ -247,7 +294,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
         rules,
         model.decode((name) => x[index.get(name) ?? -1] ?? 0),
       );
-      plan = pickBetter(incumbent, found);
+      plan = betterPlan(incumbent, found);
     }
     const count = planCount(plan);
     let lowerBound = floor;
@@ -256,17 +303,17 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       // Uniform: the model is the all-bus matrix; the all-direct one is the other choice.
       lowerBound = Math.max(floor, rules.policy === "uniform" ? Math.min(litCount(p), milpBound) : milpBound);
     }
-    if (lpBound !== null) lowerBound = Math.max(lowerBound, lpBound);
     if (searchBound !== null) lowerBound = Math.max(lowerBound, searchBound);
     lowerBound = Math.min(lowerBound, count);
-    return { ...base, plan, lowerBound, status: status === STATUS_OPTIMAL ? "optimal" : "time-limit" };
+    return { ...base, plan, lowerBound, status: status === STATUS_OPTIMAL ? "optimal" : "time-limit", deadlineHit };
   } catch (e) {
     return {
       ...base,
       plan: incumbent,
-      lowerBound: Math.min(Math.max(floor, lpBound ?? 0, searchBound ?? 0), planCount(incumbent)),
+      lowerBound: Math.min(Math.max(floor, searchBound ?? 0), planCount(incumbent)),
       status: "solver-failed",
       message: String((e as Error)?.message ?? e),
+      deadlineHit,
     };
   } finally {
     try {
@@ -277,39 +324,10 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   }
 }
 
-/** The better of two valid plans: fewer diodes, then the tie-break rank; `a` on a full tie. */
-function pickBetter(a: SharingPlan, b: SharingPlan): SharingPlan {
-  const ca = planCount(a);
-  const cb = planCount(b);
-  return cb < ca || (cb === ca && tieRank(b) < tieRank(a)) ? b : a;
-}
-
-/** Tie-break rank among plans of one count: bus nodes first, then long paths (bus outputs and links). */
-function tieRank(plan: SharingPlan): number {
-  const long = plan.links.length + plan.buses.reduce((a, b) => a + b.outputs.length, 0);
-  return plan.buses.length * 1e6 + long;
-}
-
 /**
- * Count-neutral clean-up of a solver plan: under the mixed policy a bus whose
- * block costs no more direct (2 x 2, or one state or one output) becomes
- * direct diodes, one bus node and some long paths fewer.
+ * Room left after the deadline for decoding, tie-breaks and the verifier,
+ * so that the whole run ends inside the caller's limit: 5 %, at most 0.5 s.
  */
-function breakTies(p: SharingProblem, rules: SharingRules, plan: SharingPlan): SharingPlan {
-  if (rules.policy !== "mixed") return plan;
-  const direct: (readonly [number, number])[] = [...plan.direct];
-  const have = new Set(direct.map(([k, o]) => k * p.m + o));
-  const buses = plan.buses.filter((b) => {
-    if (b.states.length * b.outputs.length > b.states.length + b.outputs.length) return true;
-    for (const k of b.states) {
-      for (const o of b.outputs) {
-        if (!have.has(k * p.m + o)) {
-          have.add(k * p.m + o);
-          direct.push([k, o]);
-        }
-      }
-    }
-    return false;
-  });
-  return { direct, buses, links: plan.links };
+export function deadlineMarginMs(timeLimitMs: number): number {
+  return Math.min(500, timeLimitMs * 0.05);
 }

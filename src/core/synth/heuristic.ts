@@ -3,7 +3,7 @@
  * instances (and as the exact optimizer's warm start).
  *
  * Two nested searches. The outer one assigns every output a level (see
- * `levelRules` in synthPlan.ts) by hill climbing from a few fixed starts. The
+ * `levelRules` in rules.ts) by hill climbing from a few fixed starts. The
  * inner one, for a fixed assignment, covers the lit cells greedily: at each
  * step it takes the bus or link that saves the most diodes over what the
  * cells would cost otherwise (1 for a cell that may be driven directly, 2 for
@@ -13,7 +13,9 @@
  * Basis Problem"): candidate output sets are the rows and the pairwise row
  * intersections.
  */
-import { levelRules, planCount, type PlanBus, type PlanLink, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
+import type { PlanBus, PlanLink, SharingPlan, SharingProblem, SharingRules } from "./plan.ts";
+import { busStates, levelRules, linkPairs } from "./rules.ts";
+import { comparePlans } from "./tieBreak.ts";
 
 /** Outer-search budget: most level assignments tried. Keeps big instances bounded. */
 const MAX_EVALUATIONS = 400;
@@ -44,7 +46,7 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules): SharingPl
     cache.set(key, plan);
     return plan;
   };
-  const better = (a: SharingPlan, b: SharingPlan | null): boolean => b === null || rank(a) < rank(b);
+  const better = (a: SharingPlan, b: SharingPlan | null): boolean => b === null || comparePlans(a, b) < 0;
 
   const starts: number[][] = [Array(p.m).fill(1)];
   if (rules.policy === "uniform") {
@@ -130,12 +132,6 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules): SharingPl
   return best;
 }
 
-/** Lexicographic rank: diodes, then bus nodes, then long paths (links and bus diodes). */
-function rank(plan: SharingPlan): number {
-  const long = plan.links.length + plan.buses.reduce((a, b) => a + b.outputs.length, 0);
-  return planCount(plan) * 1e6 + plan.buses.length * 1e3 + Math.min(999, long);
-}
-
 /** Candidate bus output sets: every row and every pairwise row intersection with 2+ outputs. */
 function busCandidates(p: SharingProblem): number[][] {
   const seen = new Set<string>();
@@ -175,7 +171,7 @@ function coverForLevels(
   let best: SharingPlan | null = null;
   for (const order of ORDERS) {
     const plan = greedyCover(p, rules, levels, cands, order, banned);
-    if (plan !== null && (best === null || rank(plan) < rank(best))) best = plan;
+    if (plan !== null && (best === null || comparePlans(plan, best) < 0)) best = plan;
   }
   return best;
 }
@@ -220,16 +216,9 @@ function greedyCover(
     const key = t.join(",");
     if (seen.has(key) || banned.has(key)) continue;
     seen.add(key);
-    const s: number[] = [];
-    for (let k = 0; k < n; k++) if (t.every((o) => p.lit[k]?.[o])) s.push(k);
-    shapes.push({ t, s });
+    shapes.push({ t, s: busStates(p, t) });
   }
-  const linkPairs: PlanLink[] = [];
-  for (let a = 0; a < m; a++) {
-    for (let b = 0; b < m; b++) {
-      if (p.within[a]?.[b] && levelRules.link(rules, lvl(a), lvl(b))) linkPairs.push({ from: a, to: b });
-    }
-  }
+  const allowedLinks = linkPairs(p, rules).filter((l) => levelRules.link(rules, lvl(l.from), lvl(l.to)));
 
   const buses: PlanBus[] = [];
   const links: PlanLink[] = [];
@@ -237,7 +226,7 @@ function greedyCover(
   for (;;) {
     let bestGain = 0;
     let pick: { bus?: PlanBus; link?: PlanLink; li?: number } | null = null;
-    linkPairs.forEach((l, li) => {
+    allowedLinks.forEach((l, li) => {
       if (usedLink.has(li)) return;
       let g = -1;
       for (const k of p.col[l.from] ?? []) g += needW[k * m + l.to] ?? 0;

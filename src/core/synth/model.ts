@@ -21,10 +21,11 @@
  * is exact. The objective counts diodes and nothing else: with whole-number
  * costs HiGHS rounds its bound up and prunes far more (measured on the bench:
  * 0-9 uniform 2.4 s instead of 7.6 s, and a better bound on 0-F), so ties
- * are broken after the solve (see synthExact.ts).
+ * are broken after the solve (see tieBreak.ts).
  */
 import type { CandidateFamily } from "./candidates.ts";
-import type { PlanBus, PlanLink, SharingPlan, SharingProblem, SharingRules } from "./plan.ts";
+import type { PlanBus, SharingPlan, SharingProblem, SharingRules } from "./plan.ts";
+import { linkPairs as allowedLinks, statesToPay } from "./rules.ts";
 
 export interface SharingModel {
   /** The LP-format text. */
@@ -43,10 +44,7 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
   const uniform = rules.policy === "uniform";
   const pads = !mixed && rules.buses;
   const buses = rules.buses ? family.buses : [];
-  const linkPairs: PlanLink[] = [];
-  if (rules.links && !uniform) {
-    for (let a = 0; a < p.m; a++) for (let b = 0; b < p.m; b++) if (p.within[a]?.[b]) linkPairs.push({ from: a, to: b });
-  }
+  const linkPairs = allowedLinks(p, rules);
 
   const obj: string[] = [];
   const rows: string[] = [];
@@ -80,8 +78,8 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
       row([x, `- ${y}`], "<=", 0);
       for (const o of b.outputs) cell(k, o).push(x);
     }
-    // Mixed: a bus must beat the direct diodes it replaces (see synthCandidates.ts).
-    if (mixed) row([...xs, `- ${b.outputs.length === 2 ? 3 : 2} ${y}`], ">=", 0);
+    // Mixed: a bus must beat the direct diodes it replaces (see busPays in rules.ts).
+    if (mixed) row([...xs, `- ${statesToPay(b.outputs.length)} ${y}`], ">=", 0);
   });
   if (pads) {
     for (let k = 0; k < p.n; k++) {

@@ -6,11 +6,8 @@
  * nodes (a state set in, an output set out) and segment links (output ->
  * output). `planEdges` turns it into the bare edges `buildMatrix` takes.
  *
- * Which structure may feed an output depends on the output's level, the
- * longest path allowed into it (see `levelRules`): level 1 takes only direct
- * diodes, level 2 adds buses and links from level-1 outputs, level 3 links
- * from level-2 outputs. Buses are always fed by counter lines, so a bus path
- * has two diodes.
+ * Which structures are exact and which a depth policy allows are the rules
+ * of rules.ts; the order among plans is tieBreak.ts's.
  */
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { Edge } from "../matrix/matrix.ts";
@@ -120,25 +117,3 @@ export function planEdges(spec: DecodeSpec, plan: SharingPlan): Edge[] {
   for (const l of plan.links) edges.push({ from: o(l.from), to: o(l.to) });
   return edges;
 }
-
-/**
- * Level rules: which structures may feed an output at level `level` (the
- * longest path allowed into it under `mixed`, the one path length under
- * `per-segment` and `uniform`).
- */
-export const levelRules = {
-  /** May direct diodes feed an output at this level? */
-  direct(rules: SharingRules, level: number): boolean {
-    return rules.policy === "mixed" || level === 1;
-  },
-  /** May a bus (two diodes per path) feed an output at this level? */
-  bus(rules: SharingRules, level: number): boolean {
-    if (!rules.buses) return false;
-    return rules.policy === "mixed" ? level >= 2 : level === 2;
-  },
-  /** May an output at `fromLevel` link into one at `toLevel`? */
-  link(rules: SharingRules, fromLevel: number, toLevel: number): boolean {
-    if (!rules.links || rules.policy === "uniform") return false;
-    return rules.policy === "mixed" ? fromLevel < toLevel : fromLevel + 1 === toLevel;
-  },
-};

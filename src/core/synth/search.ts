@@ -34,7 +34,7 @@
  * would be three diodes); uniform, only the empty set (the all-bus matrix; the
  * caller weighs it against the direct one). Every depth-2 matrix is a
  * solution of one A's problem with at most its count (one bus per T suffices,
- * see synthCandidates.ts), so the smallest over all A is the optimum.
+ * see candidates.ts), so the smallest over all A is the optimum.
  *
  * The search stops on a work budget, never on the clock (that is only a safety
  * net), so a run that is cut short is the same every time. Then the bound it
@@ -44,7 +44,8 @@
  * every matrix.
  */
 import type { CandidateFamily } from "./candidates.ts";
-import type { PlanBus, PlanLink, SharingPlan, SharingProblem, SharingRules } from "./plan.ts";
+import { planCount, type PlanBus, type PlanLink, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
+import { linkPairs } from "./rules.ts";
 
 /** Most outputs the subset DP handles (2^m masks per state). */
 export const SEARCH_MAX_OUTPUTS = 10;
@@ -80,6 +81,8 @@ export interface SearchOutcome {
   readonly lowerBound: number;
   /** True when the search finished: the optimum is `plan`, or `upper` if plan is null. */
   readonly proven: boolean;
+  /** True when the safety-net clock, not the work budget, stopped the search. */
+  readonly deadlineHit: boolean;
   /** Nodes and work units used, for the bench and for calibrating budgets. */
   readonly nodes: number;
   readonly work: number;
@@ -137,7 +140,7 @@ export function searchPlan(
   if (uniform) sets.push(0);
   else if (mixed) {
     let sources = 0;
-    if (rules.links) for (let a = 0; a < m; a++) if (p.within[a]?.some(Boolean)) sources |= 1 << a;
+    for (const l of linkPairs(p, rules)) sources |= 1 << l.from;
     for (let s = sources; ; s = (s - 1) & sources) {
       sets.push(s);
       if (s === 0) break;
@@ -146,7 +149,7 @@ export function searchPlan(
 
   let best = upper;
   let bestPlan: SharingPlan | null = null;
-  const meter: Meter = { work: 0, nodes: 0, maxWork: opts.maxWork, deadlineMs: opts.deadlineMs ?? Infinity };
+  const meter: Meter = { work: 0, nodes: 0, maxWork: opts.maxWork, deadlineMs: opts.deadlineMs ?? Infinity, deadlineHit: false };
   const roots: { set: number; bound: number; ctx: Context }[] = [];
   for (const set of sets) {
     const ctx = new Context(p, itemsFor(p, rules, family, set), rowMask, set, mixed, pads, meter);
@@ -175,7 +178,7 @@ export function searchPlan(
   }
   const proven = unfinished === Infinity;
   const lowerBound = proven ? best : Math.min(best, ceilBound(unfinished));
-  return { plan: bestPlan, lowerBound, proven, nodes: meter.nodes, work: meter.work };
+  return { plan: bestPlan, lowerBound, proven, deadlineHit: meter.deadlineHit, nodes: meter.nodes, work: meter.work };
 }
 
 /** Work done across the level sets of one search, and its limits. */
@@ -184,6 +187,8 @@ interface Meter {
   nodes: number;
   readonly maxWork: number;
   readonly deadlineMs: number;
+  /** Set when the clock stopped the search before the work budget did. */
+  deadlineHit: boolean;
 }
 
 /** Whole-number lower bound from a fractional one (diode counts are whole). */
@@ -201,14 +206,10 @@ function itemsFor(p: SharingProblem, rules: SharingRules, family: CandidateFamil
       items.push({ mask, fixed: b.outputs.length, per: 1, users: b.states, link: null });
     });
   }
-  if (rules.links && rules.policy !== "uniform") {
-    for (let a = 0; a < p.m; a++) {
-      if (((set >> a) & 1) === 0) continue;
-      for (let b = 0; b < p.m; b++) {
-        if (!p.within[a]?.[b] || ((set >> b) & 1) !== 0) continue;
-        items.push({ mask: 1 << b, fixed: 1, per: 0, users: p.col[a] ?? [], link: { from: a, to: b } });
-      }
-    }
+  // A link runs from a level-1 output (in the set) into a level-2 one (outside it).
+  for (const l of linkPairs(p, rules)) {
+    if (((set >> l.from) & 1) === 0 || ((set >> l.to) & 1) !== 0) continue;
+    items.push({ mask: 1 << l.to, fixed: 1, per: 0, users: p.col[l.from] ?? [], link: l });
   }
   return items;
 }
@@ -356,7 +357,7 @@ class Context {
       if (pick < 0) {
         // Only fixed-in items in use: the bound is a real matrix.
         const plan = this.plan();
-        const count = planDiodes(plan);
+        const count = planCount(plan);
         if (count < best()) improve(count, plan);
         return true;
       }
@@ -375,7 +376,9 @@ class Context {
   /** True when the budget, or the safety-net clock, has run out. */
   private spent(): boolean {
     const m = this.meter;
-    return m.work >= m.maxWork || (m.deadlineMs !== Infinity && Date.now() > m.deadlineMs);
+    if (m.work >= m.maxWork) return true;
+    if (m.deadlineMs !== Infinity && Date.now() > m.deadlineMs) m.deadlineHit = true;
+    return m.deadlineHit;
   }
 
   /** The undecided item that carries the most fixed cost in the minimum covers, or -1. */
@@ -545,12 +548,6 @@ function cappedSimplex(v: readonly number[], cap: number): number[] {
     if ((sorted[i] ?? 0) - t > 0) tau = t;
   }
   return v.map((x) => Math.max(0, x - tau));
-}
-
-function planDiodes(plan: SharingPlan): number {
-  let c = plan.direct.length + plan.links.length;
-  for (const b of plan.buses) c += b.states.length + b.outputs.length;
-  return c;
 }
 
 function near(a: number, b: number): boolean {

@@ -11,7 +11,7 @@ import type { Project, SynthesisOptions } from "../project/project.ts";
 import { LIMITS } from "../project/limits.ts";
 import { fail, ok, type Result } from "../result/result.ts";
 import { synthesizeDirect } from "./direct.ts";
-import { defaultHighsLoader, exactPlan, type HighsLoader } from "./exact.ts";
+import { deadlineMarginMs, defaultHighsLoader, exactPlan, workBudget, type HighsLoader } from "./exact.ts";
 import { heuristicPlan } from "./heuristic.ts";
 import { litCount, planCount, planEdges, sharingProblem, type SharingPlan, type SharingRules } from "./plan.ts";
 import { verifyMatrix } from "../matrix/verify.ts";
@@ -79,22 +79,28 @@ export async function synthesize(
     return verified(spec, { ...direct, ...proven }, settings);
   }
 
+  // Every work budget comes from the configured limit alone, never from the
+  // time left after an earlier phase: so the same settings give the same
+  // matrix and bound on a busy machine as on an idle one. The clock only
+  // enforces the deadline, which the budgets are set to leave well alone.
   const started = Date.now();
+  const deadlineMs = started + settings.timeLimitMs - deadlineMarginMs(settings.timeLimitMs);
   const heuristic = heuristicPlan(p, rules);
-  const fast = verified(spec, matrixOf(spec, heuristic, settings, null, "heuristic"), settings);
+  const fast = verified(spec, matrixOf(spec, heuristic, settings, null, "heuristic", false), settings);
   if (!fast.ok || settings.mode === "fast") return fast;
   hooks.onProgress?.({ stage: "heuristic", count: fast.value.count, lowerBound: null });
 
-  const remainingMs = Math.max(10, settings.timeLimitMs - (Date.now() - started));
   const exact = await exactPlan(p, rules, heuristic, {
-    timeLimitMs: remainingMs,
+    timeLimitMs: settings.timeLimitMs,
+    deadlineMs,
+    budget: workBudget(settings.timeLimitMs),
     seed: settings.seed,
     loadHighs: hooks.loadHighs ?? defaultHighsLoader,
   });
   const count = planCount(exact.plan);
   const result = verified(
     spec,
-    matrixOf(spec, exact.plan, settings, exact.lowerBound, exact.status === "solver-failed" ? "heuristic" : "exact"),
+    matrixOf(spec, exact.plan, settings, exact.lowerBound, exact.status === "solver-failed" ? "heuristic" : "exact", exact.deadlineHit),
     settings,
   );
   if (result.ok) hooks.onProgress?.({ stage: "exact", count, lowerBound: exact.lowerBound });
@@ -107,6 +113,7 @@ function matrixOf(
   s: SynthSettings,
   lowerBound: number | null,
   method: "heuristic" | "exact",
+  deadlineHit: boolean,
 ): DiodeMatrix {
   const count = planCount(plan);
   return buildMatrix(spec, planEdges(spec, plan), {
@@ -115,6 +122,7 @@ function matrixOf(
     depthLimit: s.depthLimit,
     policy: s.policy,
     method,
+    deadlineHit,
   });
 }
 

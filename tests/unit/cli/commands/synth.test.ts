@@ -1,6 +1,10 @@
 import { describe, expect, it } from "vitest";
 import { main } from "../../../../src/cli/main.ts";
 import { recordingIo } from "../../../support/recordingIo.ts";
+import { describeMatrix } from "../../../../src/cli/commands/synth.ts";
+import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
+import { synthesize, synthSettings } from "../../../../src/core/synth/synthesize.ts";
+import { example } from "../../../support/projects.ts";
 
 describe("diodeloom synth (in-process)", () => {
   it("prints the matrix JSON with from = anode on a counter line", async () => {
@@ -12,6 +16,17 @@ describe("diodeloom synth (in-process)", () => {
     expect(m.lowerBound).toBeNull();
     expect(m.optimal).toBe(false);
     expect(m.longestPath).toBe(1);
+  });
+  it("says so when the time limit, not the work budget, ended the run", async () => {
+    const project = example("die-roller");
+    const spec = compileSpec(project);
+    const r = await synthesize(spec, synthSettings(project, { mode: "fast" }));
+    if (!r.ok) throw new Error(r.error.message);
+    expect(r.value.deadlineHit).toBe(false);
+    expect(describeMatrix(project, spec, r.value)).not.toMatch(/time limit ran out/);
+    expect(describeMatrix(project, spec, { ...r.value, deadlineHit: true })).toMatch(
+      /time limit ran out .*another run may give a different matrix/,
+    );
   });
   it("rejects bad option values with exit 2", async () => {
     for (const args of [

@@ -14,11 +14,11 @@ describe("synthBounds", () => {
     const solveLp = (text: string) => highs.createModel({ format: "lp", data: text });
     // A 3x3 block under a blank state: 6 through one bus (links off); 5 with links.
     const p = problemFromLit(litRows("111", "111", "111", "000"));
-    const noLinks = lpLowerBound(p, { policy: "mixed", links: false, buses: true }, { solveLp, timeLimitMs: 5000 });
+    const noLinks = lpLowerBound(p, { policy: "mixed", links: false, buses: true }, { solveLp, deadlineMs: Date.now() + 5000 });
     expect(noLinks.bound).not.toBeNull();
     expect(noLinks.bound!).toBeGreaterThanOrEqual(trivialLowerBound(p));
     expect(noLinks.bound!).toBeLessThanOrEqual(6);
-    const withLinks = lpLowerBound(p, { policy: "mixed", links: true, buses: true }, { solveLp, timeLimitMs: 5000 });
+    const withLinks = lpLowerBound(p, { policy: "mixed", links: true, buses: true }, { solveLp, deadlineMs: Date.now() + 5000 });
     expect(withLinks.bound!).toBeLessThanOrEqual(5);
   });
   it("gives no bound when the pricing search may not visit every output set", async () => {
@@ -27,7 +27,7 @@ describe("synthBounds", () => {
     const r = lpLowerBound(
       p,
       { policy: "mixed", links: false, buses: true },
-      { solveLp: (t) => highs.createModel({ format: "lp", data: t }), timeLimitMs: 5000, maxVisits: 2 },
+      { solveLp: (t) => highs.createModel({ format: "lp", data: t }), deadlineMs: Date.now() + 5000, maxVisits: 2 },
     );
     expect(r.bound).toBeNull();
   });

@@ -60,9 +60,21 @@ describe("exactPlan", () => {
     expect(a.ok && b.ok).toBe(true);
     if (!a.ok || !b.ok) return;
     expect(a.value.optimal).toBe(false);
+    // The work budget, not the clock, ended both runs: so they must agree.
+    expect(a.value.deadlineHit).toBe(false);
     expect(b.value).toEqual(a.value);
     expect(a.value.lowerBound ?? Infinity).toBeLessThanOrEqual(52);
   }, 20_000);
+  it("a run the deadline cuts says so, and still returns the warm start or better with an honest bound", async () => {
+    const project = hexProblem("per-segment");
+    const hp = problemFromLit(compileSpec(project).lit);
+    const warm = heuristicPlan(hp, rules);
+    // The clock has already run out: every phase stops at its first check.
+    const r = await exactPlan(hp, rules, warm, { timeLimitMs: 2000, deadlineMs: Date.now() - 1, seed: 1, loadHighs: defaultHighsLoader });
+    expect(r.deadlineHit).toBe(true);
+    expect(planCount(r.plan)).toBeLessThanOrEqual(planCount(warm));
+    expect(r.lowerBound).toBeLessThanOrEqual(52); // the proven optimum (see the bench)
+  });
   it("HiGHS stopped by its work budget gives the same plan and bound every run", async () => {
     const p0 = compileSpec(hexProblem("mixed"));
     const hp = problemFromLit(p0.lit);
@@ -79,6 +91,7 @@ describe("exactPlan", () => {
     const a = await exactPlan(hp, mixed, warm, opts);
     const b = await exactPlan(hp, mixed, warm, opts);
     expect(a.status).toBe("time-limit");
+    expect(a.deadlineHit).toBe(false);
     expect(b.plan).toEqual(a.plan);
     expect(b.lowerBound).toBe(a.lowerBound);
     expect(a.lowerBound).toBeLessThanOrEqual(50);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { directPlan, levelRules, litCount, planCount, planEdges, problemFromLit } from "../../../../src/core/synth/plan.ts";
+import { directPlan, litCount, planCount, planEdges, problemFromLit } from "../../../../src/core/synth/plan.ts";
 import { litRows, specFromLit } from "../../../support/litSpec.ts";
 
 describe("synthPlan", () => {
@@ -25,18 +25,5 @@ describe("synthPlan", () => {
     expect(edges).toContainEqual({ from: "~bus0", to: "1o2" });
     expect(edges).toContainEqual({ from: "1o0", to: "1o1" });
     expect(planCount(directPlan(problemFromLit(lit)))).toBe(7);
-  });
-  it("level rules follow the depth policy", () => {
-    const mixed = { depthLimit: 3, policy: "mixed", buses: true, links: true } as const;
-    const perSeg = { ...mixed, policy: "per-segment" } as const;
-    const uniform = { ...mixed, policy: "uniform" } as const;
-    expect(levelRules.direct(mixed, 2)).toBe(true);
-    expect(levelRules.direct(perSeg, 2)).toBe(false);
-    expect(levelRules.bus(perSeg, 3)).toBe(false);
-    expect(levelRules.bus(mixed, 3)).toBe(true);
-    expect(levelRules.link(perSeg, 1, 3)).toBe(false);
-    expect(levelRules.link(mixed, 1, 3)).toBe(true);
-    expect(levelRules.link(uniform, 1, 2)).toBe(false);
-    expect(levelRules.bus({ ...mixed, buses: false }, 2)).toBe(false);
   });
 });

@@ -198,9 +198,22 @@ describe("searchPlan", () => {
     const a = searchPlan(p, rules, family, upper, { maxWork: 2e7 });
     const b = searchPlan(p, rules, family, upper, { maxWork: 2e7 });
     expect(a.proven).toBe(false);
+    expect(a.deadlineHit).toBe(false);
     expect(a).toEqual(b);
     // 52 is the proven optimum (see the bench); a cut-short bound must stay at or below it.
     expect(a.lowerBound).toBeLessThanOrEqual(52);
+  });
+
+  it("says when the clock, not the work budget, stopped it", () => {
+    const c = BENCH_CASES.find((x) => x.name === "0-F");
+    if (!c) throw new Error("bench case 0-F is missing");
+    const p = sharingProblem(compileSpec(benchProject(c, "mixed")));
+    const rules = rulesFor("mixed");
+    const family = familyFor(p, "mixed");
+    const r = searchPlan(p, rules, family, planCount(heuristicPlan(p, rules)), { maxWork: 1e12, deadlineMs: Date.now() - 1 });
+    expect(r.deadlineHit).toBe(true);
+    expect(r.proven).toBe(false);
+    expect(r.lowerBound).toBeLessThanOrEqual(50); // the proven optimum (see the bench)
   });
 
   it("per-segment without buses: level sets that no link can serve are infeasible, not a crash", () => {
