@@ -112,8 +112,13 @@ export interface WorkBudget {
  * (`process.cpuUsage`), which other processes' load leaves alone.
  */
 const BUDGET_SHARE = 0.2;
-/** Search work units per CPU millisecond: 20 000 cold on 0-9, 44 000 to 120 000 warm on 0-9, 0-F and 1-12. */
-const SEARCH_RATE = 20_000;
+/**
+ * Search work units per CPU millisecond. A whole search in a fresh process
+ * (cold JIT included) ran 64 000 (1-12 per-segment) to 92 000 (0-F
+ * per-segment) a millisecond, warm runs up to 120 000; tiny searches run
+ * slower (20 000 on 0-9 mixed, 4 million units in 0.2 s) but end at once.
+ */
+const SEARCH_RATE = 60_000;
 /**
  * LP-bound work (nonzeros solved, see bounds.ts) per CPU millisecond: 360 to
  * 400 on 00-23 and 00-59, 232 on 00-99, 139 on 00-99 uniform (bigger LPs
