@@ -2,20 +2,12 @@
 import { render } from "solid-js/web";
 import { parseProject } from "../core/project/projectSchema.ts";
 import type { Project } from "../core/project/project.ts";
-import type { Problem } from "../core/result/result.ts";
 import { App } from "./components/App.tsx";
 import { app } from "./state/appState.ts";
-import { decodeShareHash, isShareHash } from "./state/shareLink.ts";
 import { historyAction, isTextEntry } from "./state/undoKeys.ts";
 import "./styles.css";
 
 const DEMO_URL = `${import.meta.env.BASE_URL}examples/relay-hex-monitor.json`;
-
-async function projectFromHash(): Promise<Project | Problem[] | null> {
-  if (!isShareHash(location.hash)) return null;
-  const r = await decodeShareHash(location.hash);
-  return r.ok ? r.value : [...r.error];
-}
 
 async function demoProject(): Promise<Project> {
   const text = await (await fetch(DEMO_URL)).text();
@@ -39,12 +31,10 @@ document.addEventListener("keydown", (e) => {
   else app.redo();
 });
 
-window.addEventListener("hashchange", async () => {
-  const p = await projectFromHash();
-  if (p && !Array.isArray(p)) app.replaceProject(p);
-});
+// A link pasted into the address bar of the open page: opened like one at start, with the same notice when it is bad.
+window.addEventListener("hashchange", () => void app.openShareLink(location.hash));
 
 const root = document.getElementById("root");
 if (!root) throw new Error("bug: index.html has no #root");
 render(() => <App />, root);
-void app.boot(projectFromHash, demoProject);
+void app.boot(location.hash, demoProject);

@@ -16,6 +16,7 @@ import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
 import { parseProject } from "../../src/core/project/projectSchema.ts";
 import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
 import { formatOhms } from "../../src/render/units.ts";
+import { encodeShareHash } from "../../src/ui/state/shareLink.ts";
 import { exampleText } from "../support/projects.ts";
 import { bomValues, budgetEmitters } from "../support/partValues.ts";
 import { xmlProblem } from "../support/xmlCheck.ts";
@@ -61,6 +62,14 @@ async function coreFastCount(text: string): Promise<number> {
   const m = await synthesize(compileSpec(r.value), synthSettings(r.value, { mode: "fast" }));
   if (!m.ok) throw new Error(m.error.message);
   return m.value.count;
+}
+
+/** Runs an action that changes the project, and waits until the page shows the new result (the live pass advances). */
+async function afterResult(action: () => Promise<void>, p: Page = page): Promise<void> {
+  const pass = () => p.getByTestId("live-ms").getAttribute("data-pass");
+  const before = await pass();
+  await action();
+  await expect.poll(pass).not.toBe(before);
 }
 
 async function waitReady(p: Page = page): Promise<void> {
@@ -418,7 +427,8 @@ describe("the web app", () => {
       const [ch, lit] = (g ?? "").split(" = ");
       expect([lit, undefined]).toContain(saved.glyphs[ch ?? ""]);
     }
-    await page.getByTestId("undo").click();
+    // The results come from a worker: wait for the undone project's result before the next case points at the drawing.
+    await afterResult(() => page.getByTestId("undo").click());
   });
 
   it("highlights the diode under the pointer and steps through diodes from the keyboard", async () => {
@@ -463,6 +473,155 @@ describe("the web app", () => {
     expect(pads).toEqual(["tl", "tr", "ml", "c", "mr", "bl", "br"]);
     await page.getByTestId("undo").click();
     await expect.poll(() => savedProject()).toBe(before);
+  });
+
+  it("keeps the person's project and the last good copy over reloads and a share link", async () => {
+    const own = await app.browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
+    const p = await own.newPage();
+    watch(p);
+    const slot = (key: string) =>
+      p.evaluate((k) => {
+        const text = localStorage.getItem(k);
+        return text === null ? null : (JSON.parse(text) as { project: { title: string; show: string[] } }).project;
+      }, key);
+    await p.goto(app.url);
+    await waitReady(p);
+    await exactOff(p);
+    // Two edits: the title (copy A), then state 1 (copy B, the newest).
+    await p.locator("#f-title").fill("Workshop clock");
+    await expect.poll(async () => (await slot("diodeloom.autosave.current"))?.title).toBe("Workshop clock");
+    await p.getByTestId("state-text-1").fill("8");
+    await expect.poll(async () => (await slot("diodeloom.autosave.current"))?.show[1]).toBe("8");
+    for (let reload = 0; reload < 4; reload++) {
+      await p.reload();
+      await waitReady(p);
+      expect(await p.getByTestId("state-text-1").inputValue()).toBe("8");
+    }
+    // The last good copy is still A, not a second copy of B.
+    const lastGood = await slot("diodeloom.autosave.previous");
+    expect(lastGood?.title).toBe("Workshop clock");
+    expect(lastGood?.show[1]).not.toBe("8");
+    // A share link to another project, opened and reloaded twice.
+    await p.goto(app.url + (await encodeShareHash(exampleText("die-roller"))));
+    await waitReady(p);
+    await p.reload();
+    await waitReady(p);
+    await p.reload();
+    await waitReady(p);
+    expect(await p.locator("#f-title").inputValue()).toMatch(/Die roller/);
+    // The person's project is the last good copy, and in Recent projects, which opens it again.
+    expect((await slot("diodeloom.autosave.previous"))?.title).toBe("Workshop clock");
+    expect((await slot("diodeloom.autosave.current"))?.title).toMatch(/Die roller/);
+    await p.getByTestId("recent-menu").click();
+    expect(await p.getByTestId("recent-0").textContent()).toMatch(/^Workshop clock/);
+    await p.getByTestId("recent-0").click();
+    await expect.poll(() => p.locator("#f-title").inputValue()).toBe("Workshop clock");
+    expect(await p.getByTestId("state-text-1").inputValue()).toBe("8");
+    // The shared project took its place in the list, so nothing was lost either way.
+    await p.getByTestId("recent-menu").click();
+    expect(await p.getByTestId("recent-0").textContent()).toMatch(/^Die roller/);
+    await own.close();
+  });
+
+  it("shows the same notice for a bad link reached by a hash change as at load, and keeps the project", async () => {
+    const before = await savedProject();
+    await page.evaluate(() => (location.hash = "#p=AAAA$$"));
+    const notice = page.getByTestId("notice");
+    await expect.poll(() => notice.textContent()).toMatch(/The share link could not be read/);
+    expect(await notice.textContent()).toMatch(/damaged \(not base64url\).*The project on screen is unchanged/s);
+    expect(await savedProject()).toBe(before);
+    await notice.getByRole("button", { name: "Dismiss message" }).click();
+    await page.evaluate(() => history.replaceState(null, "", location.pathname));
+  });
+
+  it("says so the moment a save fails, offers the project as a download, and clears the mark once saving works again", async () => {
+    const full = await app.browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
+    const p = await full.newPage();
+    watch(p);
+    await p.goto(app.url);
+    await waitReady(p);
+    await exactOff(p);
+    expect(await p.getByTestId("save-problem").count()).toBe(0);
+    // From now on the browser's storage is full.
+    await p.evaluate(() => {
+      const real = Storage.prototype.setItem;
+      (window as unknown as { realSetItem: typeof real }).realSetItem = real;
+      Storage.prototype.setItem = () => {
+        throw new DOMException("The quota has been exceeded.", "QuotaExceededError");
+      };
+    });
+    await p.getByTestId("state-text-2").fill("8");
+    const notice = p.getByTestId("notice");
+    await expect.poll(() => notice.textContent()).toMatch(/Your edits are not being saved in this browser/);
+    expect(await notice.textContent()).toMatch(/storage for this page is full/);
+    expect(await p.getByTestId("save-problem").count()).toBe(1);
+    const [download] = await Promise.all([p.waitForEvent("download"), p.getByTestId("notice-action").click()]);
+    const rescued = JSON.parse(readFileSync(await download.path(), "utf8"));
+    expect(rescued.show[2]).toBe("8");
+    // Storage works again: the next save clears the mark and the notice.
+    await p.evaluate(() => {
+      Storage.prototype.setItem = (window as unknown as { realSetItem: typeof Storage.prototype.setItem }).realSetItem;
+    });
+    await p.getByTestId("state-text-3").fill("8");
+    await expect.poll(() => p.getByTestId("save-problem").count()).toBe(0);
+    expect(await p.getByTestId("notice").count()).toBe(0);
+    await full.close();
+  });
+
+  it("starts, and says saving is refused, where the browser denies storage altogether", async () => {
+    const denied = await app.browser.newContext({ viewport: { width: 1280, height: 800 } });
+    await denied.addInitScript(() => {
+      Object.defineProperty(window, "localStorage", {
+        get() {
+          throw new DOMException("Access is denied for this document.", "SecurityError");
+        },
+      });
+    });
+    const p = await denied.newPage();
+    watch(p);
+    await p.goto(app.url);
+    await waitReady(p);
+    await expect.poll(() => p.getByTestId("notice").textContent()).toMatch(/does not let this page store data/);
+    expect(await p.getByText("✓ verified").count()).toBe(1);
+    await denied.close();
+  });
+
+  it("stays answering on the largest project (256 states on 8 positions): every solve runs in a worker with a deadline", async () => {
+    const HEX = "0123456789AbCdEF";
+    const show = Array.from({ length: 256 }, (_, k) =>
+      Array.from({ length: 8 }, (_, j) => HEX[(k * (2 * j + 3) + 5 * j + (k >> j)) % 16]).join(""),
+    );
+    const text = JSON.stringify({
+      schema: "diodeloom/project@1",
+      title: "Departure board 256 x 8",
+      counter: { states: 256 },
+      display: { positions: 8, cell: "seg7" },
+      show,
+      synthesis: { timeLimitMs: 20_000 },
+    });
+    const big = await app.browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const p = await big.newPage();
+    watch(p);
+    await p.goto(app.url);
+    await waitReady(p);
+    await exactOff(p);
+    await p.getByTestId("open-input").setInputFiles({ name: "board.json", mimeType: "application/json", buffer: Buffer.from(text) });
+    // The direct matrix shows while the heuristic still runs in the worker, and the page runs a
+    // script meanwhile: on the main thread the heuristic would hold the page for minutes.
+    await p.getByTestId("live-busy").waitFor({ timeout: 60_000 });
+    expect(await p.evaluate(() => document.querySelector('[data-testid="live-busy"]') !== null)).toBe(true);
+    await p.locator("#f-title").fill("Departure board");
+    await expect.poll(() => p.locator("#f-title").inputValue()).toBe("Departure board");
+    // At the deadline the worker is stopped; the verified direct matrix stays, and the page says why.
+    await expect.poll(() => p.getByTestId("live-note").count(), { timeout: 90_000, interval: 500 }).toBe(1);
+    expect(await p.getByTestId("live-note").textContent()).toMatch(/did not finish within the 20 s limit/);
+    const r = parseProject(text);
+    if (!r.ok) throw new Error("bad fixture");
+    const direct = await synthesize(compileSpec(r.value), synthSettings(r.value, { mode: "direct" }));
+    if (!direct.ok) throw new Error(direct.error.message);
+    expect(await shownCount(p)).toBe(direct.value.count);
+    expect(await p.getByText("✓ verified").count()).toBe(1);
+    await big.close();
   });
 
   it("looks right at 1280x800 and 390x844 (screenshots for a person to look at)", async () => {

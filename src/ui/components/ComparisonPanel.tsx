@@ -30,7 +30,8 @@ export function ComparisonPanel() {
 
   createEffect(
     on(
-      () => app.live()?.project,
+      // Once the live result is final: the comparison's syntheses would only slow the heuristic still running.
+      () => (app.liveBusy() ? undefined : app.live()?.project),
       (project) => {
         clearTimeout(timer);
         runner.cancel();

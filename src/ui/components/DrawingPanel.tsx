@@ -110,6 +110,23 @@ export function DrawingPanel() {
   );
 }
 
+/**
+ * Sheets after the first wait their turn to be drawn, one per task, so that
+ * a drawing of many sheets (a 256-state, 8-position direct matrix has 45)
+ * never holds the page for long; the first is drawn at once with its result.
+ */
+const mountQueue: (() => void)[] = [];
+
+function mountLater(job: () => void): void {
+  mountQueue.push(job);
+  if (mountQueue.length === 1) setTimeout(mountNext, 0);
+}
+
+function mountNext(): void {
+  mountQueue.shift()?.();
+  if (mountQueue.length > 0) setTimeout(mountNext, 0);
+}
+
 /** Draws a sheet into an element (emptied first) with the svg.js adapter and returns the svg.js root. */
 function mountSheet(into: HTMLElement, sheet: Sheet): Svg {
   into.replaceChildren();
@@ -130,34 +147,43 @@ function SheetView(props: {
   let overlay: SVGGElement | null = null;
   const NS = "http://www.w3.org/2000/svg";
 
+  const [mounted, setMounted] = createSignal(0);
   createEffect(() => {
+    const sheet = props.sheet;
+    if (props.first) return draw(sheet);
+    let live = true;
+    onCleanup(() => void (live = false));
+    mountLater(() => {
+      if (live) draw(sheet);
+    });
+  });
+
+  function draw(sheet: Sheet): void {
     if (!host) return;
-    const root = mountSheet(host, props.sheet);
+    const root = mountSheet(host, sheet);
     svgEl = root.node;
     svgEl.classList.add("sheet-svg");
     svgEl.setAttribute("role", "img");
-    svgEl.setAttribute(
-      "aria-label",
-      `matrix drawing, sheet ${props.sheet.number} of ${props.sheet.count}, ${props.sheet.diodes.length} diodes`,
-    );
-    svgEl.dataset.sheet = String(props.sheet.number);
+    svgEl.setAttribute("aria-label", `matrix drawing, sheet ${sheet.number} of ${sheet.count}, ${sheet.diodes.length} diodes`);
+    svgEl.dataset.sheet = String(sheet.number);
     if (props.first) svgEl.dataset.testid = "matrix-drawing";
     overlay = document.createElementNS(NS, "g");
     overlay.setAttribute("class", "hl-layer");
     overlay.setAttribute("pointer-events", "none");
     svgEl.append(overlay);
-  });
+    setMounted((n) => n + 1);
+  }
 
   createEffect(() => {
+    mounted(); // re-apply after a redraw
     if (!svgEl) return;
     const z = props.zoom;
-    props.sheet; // re-apply after a redraw
     svgEl.setAttribute("width", `${z * 100}%`);
     svgEl.removeAttribute("height");
   });
 
   createEffect(() => {
-    props.sheet;
+    mounted();
     const d = props.highlight;
     if (!overlay) return;
     overlay.replaceChildren();

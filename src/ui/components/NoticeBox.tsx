@@ -1,4 +1,4 @@
-/** A dismissable message: an opened file's problems, a share-link failure, autosave notes. */
+/** A dismissable message: an opened file's problems, a share-link failure, autosave notes, a save that failed (with its download button). */
 import { For, Show } from "solid-js";
 import { app } from "../state/appState.ts";
 
@@ -13,6 +13,13 @@ export function NoticeBox() {
             <strong>
               {MARK[n().level]} {n().title}
             </strong>
+            <Show when={n().action}>
+              {(a) => (
+                <button type="button" class="small-btn" onClick={() => a().run()} data-testid="notice-action">
+                  {a().label}
+                </button>
+              )}
+            </Show>
             <button type="button" class="small-btn" onClick={() => app.setNotice(null)} aria-label="Dismiss message">
               Dismiss
             </button>

@@ -53,6 +53,16 @@ export function ResultBar() {
           </span>
         </Show>
       </Show>
+      <Show when={app.liveBusy() && app.live()}>
+        <span class="chip stale" data-testid="live-busy">
+          <span class="spinner" aria-hidden="true" /> heuristic running
+        </span>
+      </Show>
+      <Show when={app.liveNote()}>
+        <span class="chip warn" data-testid="live-note">
+          ⚠ {app.liveNote()}
+        </span>
+      </Show>
       <Show when={app.liveError()}>
         <span class="chip danger">✖ {app.liveError()}</span>
       </Show>

@@ -1,6 +1,7 @@
 /**
- * The toolbar: open and save the project, share link, exports, print with
- * paper size, undo and redo, and the exact optimizer switch.
+ * The toolbar: open and save the project, the recent projects, share link,
+ * exports, print with paper size, undo and redo, and the exact optimizer
+ * switch. A mark beside Save says when the browser refuses the autosave.
  */
 import { createSignal, For, Show } from "solid-js";
 import { fileSizeProblem } from "../../core/project/limits.ts";
@@ -32,7 +33,8 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
     // The bytes, not file.text(): the same reading as the command line's (byte-order mark, UTF-8 check).
     app.openText(file.name, new Uint8Array(await file.arrayBuffer()));
   };
-  const save = () => downloadText(`${fileStem(app.draft().title)}.json`, draftToJson(app.draft()), "application/json");
+  let recentMenu: HTMLDetailsElement | undefined;
+  const save = () => app.downloadProject();
   const share = async () => {
     const hash = await encodeShareHash(draftToJson(app.draft()));
     const url = `${location.origin}${location.pathname}${hash}`;
@@ -87,6 +89,34 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
         <button type="button" onClick={save} data-testid="save">
           Save
         </button>
+        <Show when={app.saveProblem()}>
+          {(p) => (
+            <span class="chip danger" role="status" data-testid="save-problem" title={`Not saved in this browser: ${p().message}`}>
+              ⚠ not saved in the browser
+            </span>
+          )}
+        </Show>
+        <Show when={app.recent().length > 0}>
+          <details class="menu" ref={recentMenu}>
+            <summary data-testid="recent-menu">Recent ▾</summary>
+            <div class="menu-items" role="group" aria-label="Recent projects">
+              <For each={app.recent()}>
+                {(r, i) => (
+                  <button
+                    type="button"
+                    data-testid={`recent-${i()}`}
+                    onClick={() => {
+                      if (recentMenu) recentMenu.open = false;
+                      app.openRecent(i());
+                    }}
+                  >
+                    {r.title} ({r.project.counter.states} states)
+                  </button>
+                )}
+              </For>
+            </div>
+          </details>
+        </Show>
         <button type="button" onClick={() => void share()} data-testid="share">
           Share link
         </button>

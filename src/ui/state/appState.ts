@@ -1,8 +1,10 @@
 /**
  * The app's state as Solid signals: the undo history of drafts, the
- * validated project, the live (heuristic) result, the exact run, and
- * messages for the person. Components read these and call the actions; the
- * domain work happens in src/core through liveResult.ts.
+ * validated project, the live result and its drawing, the exact run, the
+ * saved copies, and messages for the person. Components read these and call
+ * the actions. Every solve and layout runs in a worker with a deadline
+ * (src/ui/workers), so the page answers at any project size; the page itself
+ * only validates drafts and verifies the matrices it is sent.
  */
 import { batch, createMemo, createRoot, createSignal } from "solid-js";
 import type { BudgetFailure } from "../../core/budget/budget.ts";
@@ -11,18 +13,25 @@ import type { TrimMode } from "../../core/budget/emitterDesign.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import type { Result } from "../../core/result/result.ts";
 import type { PaperName } from "../../render/drawingModel.ts";
-import { drawingOptions } from "../../render/drawingOptions.ts";
-import { layoutMatrix, type MatrixDrawing } from "../../render/layout.ts";
+import type { MatrixDrawing } from "../../render/layout.ts";
 import type { Project } from "../../core/project/project.ts";
+import { compileSpec } from "../../core/spec/decodeSpec.ts";
+import { synthSettings } from "../../core/synth/synthesize.ts";
 import { parseProject, validateProject } from "../../core/project/projectSchema.ts";
 import { parseProjectBytes } from "../../core/project/projectBytes.ts";
 import { formatProblems, type Problem } from "../../core/result/result.ts";
-import { readAutosave, writeAutosave } from "./autosave.ts";
-import { draftFromProject, type Draft } from "./draft.ts";
+import { readAutosave, writeAutosave, type KeyValueStore, type StoreFailure } from "./autosave.ts";
+import { draftFromProject, draftToJson, type Draft } from "./draft.ts";
+import { downloadText, fileStem } from "../files/download.ts";
+import { pageStore } from "./pageStore.ts";
+import { keepCurrentProject, readRecent, type RecentProject } from "./recentProjects.ts";
+import { decodeShareHash, isShareHash } from "./shareLink.ts";
+import type { WorkerFailure } from "../workers/analysisProtocol.ts";
+import { LiveRunner } from "../workers/liveRun.ts";
 import type { ExactProgress } from "../workers/exactProtocol.ts";
 import { ExactRunner } from "../workers/exactRun.ts";
 import { analysis } from "../workers/analysisClient.ts";
-import { acceptMatrix, liveResult, withMatrix, type LiveResult } from "../workers/liveResult.ts";
+import { acceptMatrix, withMatrix, type LiveResult } from "../workers/liveResult.ts";
 import { canRedo, canUndo, record, redo, seal, startHistory, undo, type UndoHistory } from "./undoHistory.ts";
 
 export type ExactState =
@@ -37,19 +46,26 @@ export interface Notice {
   readonly level: "info" | "warn" | "danger";
   readonly title: string;
   readonly lines: readonly string[];
+  /** A button beside the message, e.g. to download the project when it cannot be saved. */
+  readonly action?: { readonly label: string; run(): void };
 }
 
 /** Wait after the last edit before the exact optimizer starts, milliseconds. */
 const EXACT_DELAY_MS = 500;
 /** Wait after a result before the budget is asked for (typing settles first), milliseconds. */
 const BUDGET_DELAY_MS = 150;
+/**
+ * Time the exact run may take beyond its own limit and the heuristic it
+ * starts with, before the page stops it, milliseconds.
+ */
+const EXACT_GRACE_MS = 10_000;
 
 export interface BudgetView {
   /** The result the budget belongs to; it is stale when the shown result differs. */
   readonly forResult: LiveResult;
   /** The trim setting it was solved with; it is stale when the setting differs. */
   readonly trim: TrimMode;
-  readonly result: Result<Budget, BudgetFailure | { readonly kind: "rejected"; readonly message: string }>;
+  readonly result: Result<Budget, BudgetFailure | WorkerFailure>;
 }
 
 function createAppState() {
@@ -71,23 +87,46 @@ function createAppState() {
   const [livePass, setLivePass] = createSignal(0);
   const [exact, setExact] = createSignal<ExactState>({ status: "idle" });
   const [exactEnabled, setExactEnabled] = createSignal(true);
+  /** A run of the live worker has not given its final answer yet. */
+  const [liveBusy, setLiveBusy] = createSignal(false);
+  /** Why the shown result is not the heuristic's (its deadline passed), or null. */
+  const [liveNote, setLiveNote] = createSignal<string | null>(null);
   const [notice, setNotice] = createSignal<Notice | null>(null);
   const [ready, setReady] = createSignal(false);
-  const [paper, setPaperSignal] = createSignal<PaperName>(readPaper());
+  const store = pageStore();
+  const [paper, setPaperSignal] = createSignal<PaperName>(readPaper(store));
+  /** Why the last autosave failed, or null while saving works. */
+  const [saveProblem, setSaveProblem] = createSignal<StoreFailure | null>(null);
+  const [recent, setRecent] = createSignal<readonly RecentProject[]>([]);
   const [budget, setBudget] = createSignal<BudgetView | null>(null);
   /** Whether the design takes the emitter-resistor trim (the Budget panel's control); every paper follows it. */
   const [trimMode, setTrimMode] = createSignal<TrimMode>("auto");
-  /** The drawing of the shown result, laid out once for the screen, the print view and the exports. */
-  const drawing = createMemo<MatrixDrawing | null>(() => {
-    const r = live();
-    return r ? layoutMatrix(r.project, r.spec, r.matrix, drawingOptions(r.project, { paper: paper() })) : null;
-  });
+  /** The drawing of the shown result, laid out once (in a worker) for the screen, the print view and the exports. */
+  const [drawing, setDrawing] = createSignal<MatrixDrawing | null>(null);
   let budgetTimer: ReturnType<typeof setTimeout> | undefined;
 
-  /** Shows a result and schedules its budget. */
-  function show(r: LiveResult): void {
-    setLive(r);
-    scheduleBudget(r);
+  /**
+   * Shows a result with its drawing and, when it is final (not the direct
+   * matrix shown while the heuristic still works), schedules its budget. A
+   * drawing laid out for another paper than the one chosen now is laid out
+   * again.
+   */
+  function show(r: LiveResult, laidOut: { readonly drawing: MatrixDrawing; readonly paper: PaperName } | null, final = true): void {
+    batch(() => {
+      setLive(r);
+      setDrawing(laidOut?.drawing ?? null);
+    });
+    if (final) scheduleBudget(r);
+    if (laidOut && laidOut.paper !== paper()) void relayout(r);
+  }
+
+  /** Lays out the shown result again, for the paper chosen now. */
+  async function relayout(r: LiveResult): Promise<void> {
+    const p = paper();
+    const reply = await analysis.request<"layout">({ job: "layout", project: draftFromProject(r.project), matrix: r.matrix, paper: p });
+    if (live() !== r || paper() !== p) return;
+    if (reply.result.ok) setDrawing(reply.result.value);
+    else setLiveNote(`the drawing could not be made: ${reply.result.error.message}`);
   }
 
   /** Asks the worker for the budget of a result with the current trim setting. */
@@ -103,32 +142,127 @@ function createAppState() {
 
   const stale = createMemo(() => live() !== null && liveDraft() !== draft());
   const runner = new ExactRunner();
+  const liveRunner = new LiveRunner();
   let exactTimer: ReturnType<typeof setTimeout> | undefined;
   let pass = 0;
   let editStartedAt = 0;
+  /** Time the last live run took to its final answer, milliseconds (the exact run repeats that work first). */
+  let liveRunMs = 0;
+  /** Ends the wait of the previous recompute() when a newer one supersedes it. */
+  let settlePending: (() => void) | null = null;
 
-  /** Recomputes the live result for the current draft (called after every change). */
-  async function recompute(): Promise<void> {
+  /**
+   * Recomputes the live result for the current draft (called after every
+   * change): saves a valid draft, then sends it to the live worker. Resolves
+   * once a result (or a message) is on screen, or a newer change superseded it.
+   */
+  function recompute(): Promise<void> {
+    settlePending?.();
+    settlePending = null;
     const d = draft();
     const v = validation();
     const mine = ++pass;
     cancelExact(false);
-    if (!v.ok) return;
-    const r = await liveResult(v.value);
-    if (mine !== pass) return;
-    batch(() => {
-      if (r.ok) {
-        show(r.value);
-        setLiveError(null);
-      } else {
-        setLiveError(r.error.kind === "bug" ? `${r.error.message}\n${r.error.details.join("\n")}` : r.error.message);
-      }
-      setLiveDraft(d);
-      setLiveMs(performance.now() - editStartedAt);
-      setLivePass((n) => n + 1);
+    if (!v.ok) {
+      liveRunner.cancel();
+      setLiveBusy(false);
+      return Promise.resolve();
+    }
+    const project = v.value;
+    if (persist) save(project);
+    const spec = compileSpec(project);
+    const settings = synthSettings(project, { mode: "fast" });
+    const startedAt = performance.now();
+    const sentPaper = paper();
+    setLiveBusy(true);
+    return new Promise<void>((resolve) => {
+      settlePending = resolve;
+      const settle = (final: boolean, update: () => void) => {
+        if (mine !== pass) return resolve();
+        batch(() => {
+          update();
+          setLiveDraft(d);
+          if (final) {
+            setLiveBusy(false);
+            setLiveMs(performance.now() - editStartedAt);
+            setLivePass((n) => n + 1);
+          }
+        });
+        resolve();
+      };
+      liveRunner.start(draftFromProject(project), sentPaper, project.synthesis.timeLimitMs, {
+        matrix: (reply, final) => {
+          const checked = acceptMatrix(spec, settings, reply.matrix);
+          settle(final, () => {
+            if (!checked.ok) {
+              setLiveError(`internal error: the live worker's matrix failed verification and is not shown: ${checked.error[0] ?? ""}`);
+              return;
+            }
+            show(withMatrix(project, spec, settings, checked.value), { drawing: reply.drawing, paper: sentPaper }, final);
+            setLiveError(null);
+            setLiveNote(null);
+          });
+          if (final && checked.ok && mine === pass) {
+            liveRunMs = performance.now() - startedAt;
+            scheduleExact(d, project);
+          }
+        },
+        failed: (message) => settle(true, () => setLiveError(message)),
+        deadline: () =>
+          settle(true, () => {
+            setLiveNote(
+              `the heuristic did not finish within the ${Math.round(project.synthesis.timeLimitMs / 1000)} s limit, so this is the direct matrix (one diode per lit cell)`,
+            );
+            // The direct matrix is the final result now: its budget follows.
+            const shown = live();
+            if (shown) scheduleBudget(shown);
+          }),
+      });
     });
-    if (v.ok && persist) writeAutosave(localStorage, v.value);
-    if (r.ok) scheduleExact(d, v.value);
+  }
+
+  /** Saves a valid project; says so at once when the browser refuses, with the project to download. */
+  function save(project: Project): void {
+    const w = writeAutosave(store, project);
+    if (!w.ok) {
+      const first = saveProblem() === null;
+      setSaveProblem({ reason: w.reason, message: w.message });
+      if (first) setNotice(saveFailedNotice(w.message));
+      return;
+    }
+    if (saveProblem() !== null) {
+      setSaveProblem(null);
+      if (notice()?.title === SAVE_FAILED_TITLE) setNotice(null);
+    }
+    if (w.notes.length > 0) setNotice({ level: "warn", title: "Autosave", lines: w.notes });
+  }
+
+  function saveFailedNotice(message: string): Notice {
+    return {
+      level: "danger",
+      title: SAVE_FAILED_TITLE,
+      lines: [`${message}.`, "Your edits stay on screen until you close or reload the page: download the project to keep them."],
+      action: { label: "Download project", run: () => downloadDraft(draft()) },
+    };
+  }
+
+  /**
+   * Before another project replaces the one on screen (a share link, a file,
+   * a recent project): keeps the person's saved project in the recent list.
+   */
+  function keepOutgoing(incoming: Project): void {
+    if (!persist) return;
+    const r = keepCurrentProject(store, incoming);
+    if (!r.ok) {
+      const kept = r.kept;
+      setNotice({
+        level: "danger",
+        title: `"${kept.title}" could not be kept in Recent projects`,
+        lines: [`${r.message}.`, "Download it now to keep a copy."],
+        action: { label: "Download it", run: () => downloadDraft(draftFromProject(kept)) },
+      });
+    }
+    setRecent(readRecent(store));
   }
 
   let persist = true;
@@ -151,33 +285,49 @@ function createAppState() {
       progress: { best: base.matrix.count, bound: base.matrix.lowerBound, elapsedS: 0 },
       startedAtMs: performance.now(),
     });
-    runner.start(draftFromProject(project), {
-      progress: (p) => {
-        const s = exact();
-        if (s.status === "running")
-          setExact({ ...s, progress: { ...p, best: p.best ?? s.progress.best, bound: p.bound ?? s.progress.bound } });
+    const deadlineMs = project.synthesis.timeLimitMs + liveRunMs + EXACT_GRACE_MS;
+    runner.start(
+      draftFromProject(project),
+      {
+        progress: (p) => {
+          const s = exact();
+          if (s.status === "running")
+            setExact({ ...s, progress: { ...p, best: p.best ?? s.progress.best, bound: p.bound ?? s.progress.bound } });
+        },
+        done: (m) => {
+          const current = live();
+          if (draft() !== d || !current) return;
+          const checked = acceptMatrix(current.spec, current.settings, m);
+          if (!checked.ok) {
+            setExact({
+              status: "failed",
+              message: `the optimizer's matrix failed verification and is not shown: ${checked.error[0] ?? ""}`,
+            });
+            return;
+          }
+          void adoptIfBetter(d, current, checked.value);
+        },
+        failed: (message) => setExact({ status: "failed", message }),
       },
-      done: (m) => {
-        const current = live();
-        if (draft() !== d || !current) return;
-        const checked = acceptMatrix(current.spec, current.settings, m);
-        if (!checked.ok) {
-          setExact({ status: "failed", message: `the optimizer's matrix failed verification and is not shown: ${checked.error[0] ?? ""}` });
-          return;
-        }
-        const better = adoptIfBetter(current, checked.value);
-        setExact({ status: "done", improved: better, optimal: checked.value.optimal });
-      },
-      failed: (message) => setExact({ status: "failed", message }),
-    });
+      "matrix",
+      deadlineMs,
+    );
   }
 
-  /** Shows the exact matrix when it is no worse than the heuristic one (and so carries the bound). */
-  function adoptIfBetter(current: LiveResult, m: VerifiedMatrix): boolean {
-    if (m.count > current.matrix.count) return false;
-    const improved = m.count < current.matrix.count;
-    show(withMatrix(current.project, current.spec, current.settings, m));
-    return improved;
+  /**
+   * Shows the exact matrix when it is no worse than the heuristic one (and so
+   * carries the bound), together with its drawing once a worker has laid it out.
+   */
+  async function adoptIfBetter(d: Draft, current: LiveResult, m: VerifiedMatrix): Promise<void> {
+    const done: ExactState = { status: "done", improved: m.count < current.matrix.count, optimal: m.optimal };
+    if (m.count > current.matrix.count) return void setExact(done);
+    const r = withMatrix(current.project, current.spec, current.settings, m);
+    const p = paper();
+    const reply = await analysis.request<"layout">({ job: "layout", project: draftFromProject(r.project), matrix: r.matrix, paper: p });
+    if (draft() !== d || live() !== current) return;
+    if (!reply.result.ok) setLiveNote(`the drawing could not be made: ${reply.result.error.message}`);
+    show(r, reply.result.ok ? { drawing: reply.result.value, paper: p } : null);
+    setExact(done);
   }
 
   function cancelExact(show = true): void {
@@ -217,10 +367,27 @@ function createAppState() {
     void recompute();
   }
 
-  /** Replaces the project (opened file, share link, example); undoable. */
+  /** Replaces the project (opened file, share link, recent project); undoable, and the outgoing one stays in Recent. */
   function replaceProject(p: Project): void {
+    keepOutgoing(p);
     edit(() => draftFromProject(p));
     sealEdit();
+  }
+
+  /** Opens a share link (the page's hash); a bad one leaves the project as it is and says why. */
+  async function openShareLink(hash: string): Promise<void> {
+    if (!isShareHash(hash)) return;
+    const r = await decodeShareHash(hash);
+    if (!r.ok) setNotice(shareLinkNotice(r.error));
+    else replaceProject(r.value);
+  }
+
+  /** Reopens a project from the recent list; the one on screen takes its place there. */
+  function openRecent(index: number): void {
+    const entry = recent()[index];
+    if (!entry) return;
+    replaceProject(entry.project);
+    setNotice({ level: "info", title: `Opened "${entry.title}" from Recent projects`, lines: [] });
   }
 
   /**
@@ -245,20 +412,23 @@ function createAppState() {
     return true;
   }
 
-  /** Loads the first project: share link, else autosave, else the demo. */
-  async function boot(fromHash: () => Promise<Project | Problem[] | null>, demo: () => Promise<Project>): Promise<void> {
-    const shared = await fromHash();
+  /**
+   * Loads the first project: a share link, else the autosave, else the demo.
+   * A shared project never takes the place of the person's own: that one is
+   * kept in the recent list first.
+   */
+  async function boot(hash: string, demo: () => Promise<Project>): Promise<void> {
+    const shared = isShareHash(hash) ? await decodeShareHash(hash) : null;
+    const saved = readAutosave(store);
     let start: Project | null = null;
-    if (Array.isArray(shared)) {
-      setNotice({ level: "warn", title: "The share link could not be read", lines: formatProblems(shared).split("\n") });
-    } else if (shared) {
-      start = shared;
+    if (shared && !shared.ok) setNotice(shareLinkNotice(shared.error));
+    else if (shared) {
+      start = shared.value;
+      keepOutgoing(start);
     }
-    if (!start) {
-      const saved = readAutosave(localStorage);
-      if (saved.found) start = saved.project;
-      if (saved.notes.length > 0) setNotice({ level: "warn", title: "Autosave", lines: saved.notes });
-    }
+    if (!start && saved.found) start = saved.project;
+    if (saved.notes.length > 0 && !(shared && !shared.ok)) setNotice({ level: "warn", title: "Autosave", lines: saved.notes });
+    setRecent(readRecent(store));
     start ??= await demo();
     editStartedAt = performance.now();
     setHistory(startHistory(draftFromProject(start)));
@@ -298,13 +468,24 @@ function createAppState() {
     },
     paper,
     setPaper: (p: PaperName) => {
+      if (p === paper()) return;
       setPaperSignal(p);
+      const r = live();
+      if (r) void relayout(r);
       try {
-        localStorage.setItem(PAPER_KEY, p);
+        store.setItem(PAPER_KEY, p);
       } catch {
         // A refused store only loses the preference.
       }
     },
+    liveBusy,
+    liveNote,
+    saveProblem,
+    recent,
+    openRecent,
+    openShareLink,
+    /** Downloads the project on screen as a file (the Save button). */
+    downloadProject: () => downloadDraft(draft()),
     liveError,
     liveMs,
     livePass,
@@ -344,12 +525,28 @@ function forgetShareHash(): void {
   if (location.hash.startsWith("#p=")) history.replaceState(null, "", location.pathname + location.search);
 }
 
-function readPaper(): PaperName {
+function readPaper(store: KeyValueStore): PaperName {
   try {
-    return localStorage.getItem(PAPER_KEY) === "letter" ? "letter" : "a4";
+    return store.getItem(PAPER_KEY) === "letter" ? "letter" : "a4";
   } catch {
     return "a4";
   }
+}
+
+const SAVE_FAILED_TITLE = "Your edits are not being saved in this browser";
+
+/** The notice for a share link that cannot be read, the same at start and when the address changes. */
+function shareLinkNotice(problems: readonly Problem[]): Notice {
+  return {
+    level: "warn",
+    title: "The share link could not be read",
+    lines: [...formatProblems(problems).split("\n"), "The project on screen is unchanged."],
+  };
+}
+
+/** Saves a draft as a project file through the browser's download. */
+function downloadDraft(d: Draft): void {
+  downloadText(`${fileStem(d.title)}.json`, draftToJson(d), "application/json");
 }
 
 /** A minimal valid draft to hold the place until the first project loads. */

@@ -16,7 +16,8 @@
  * Projects replaced by another one from outside (a share link, a file, a
  * recent project) live on in the recent list (recentProjects.ts).
  */
-import { MAX_PROJECT_BYTES, validateProject } from "../../core/project/projectSchema.ts";
+import { LIMITS } from "../../core/project/limits.ts";
+import { validateProject } from "../../core/project/projectSchema.ts";
 import type { Project } from "../../core/project/project.ts";
 import type { Draft } from "./draft.ts";
 import { draftFromProject } from "./draft.ts";
@@ -35,7 +36,7 @@ export const AUTOSAVE_KEYS = {
  * of at most 1 MiB; anything longer is not one, and keeping it would only use
  * up the quota.
  */
-export const RESCUE_MAX_CHARS = MAX_PROJECT_BYTES;
+export const RESCUE_MAX_CHARS = LIMITS.fileBytes;
 
 /** The part of the Web Storage interface autosave uses. */
 export interface KeyValueStore {

@@ -7,7 +7,8 @@
  * unpacking stops there, so a small link that would inflate to hundreds of
  * megabytes costs no more than a 1 MiB one.
  */
-import { MAX_PROJECT_BYTES, parseProject } from "../../core/project/projectSchema.ts";
+import { LIMITS } from "../../core/project/limits.ts";
+import { parseProject } from "../../core/project/projectSchema.ts";
 import type { Project } from "../../core/project/project.ts";
 import { fail, type Result } from "../../core/result/result.ts";
 
@@ -18,7 +19,7 @@ const PREFIX = "#p=";
  * no more than itself plus deflate's stored-block overhead (5 bytes per
  * 16 KiB block, 1 KiB is ample), times 4/3.
  */
-const MAX_PAYLOAD_CHARS = Math.ceil(((MAX_PROJECT_BYTES + 1024) * 4) / 3);
+const MAX_PAYLOAD_CHARS = Math.ceil(((LIMITS.fileBytes + 1024) * 4) / 3);
 
 async function pipe(bytes: Uint8Array, stream: CompressionStream | DecompressionStream): Promise<Uint8Array> {
   const out = new Blob([bytes as BlobPart]).stream().pipeThrough(stream);
@@ -91,7 +92,7 @@ export async function decodeShareHash(hash: string): Promise<Result<Project>> {
   if (!bytes) return fail([{ path: "", message: "the link is damaged (not base64url); copy it again in full" }]);
   let text: string;
   try {
-    const unpacked = await inflateCapped(bytes, MAX_PROJECT_BYTES);
+    const unpacked = await inflateCapped(bytes, LIMITS.fileBytes);
     if (!unpacked) return fail([{ path: "", message: TOO_BIG }]);
     text = new TextDecoder("utf-8", { fatal: true }).decode(unpacked);
   } catch {

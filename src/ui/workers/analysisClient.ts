@@ -1,41 +1,105 @@
 /**
- * The page's side of the analysis worker: one long-lived worker, one
- * outstanding request per job; a newer request makes the older one's answer
- * be dropped when it arrives.
+ * The page's side of the analysis workers: one worker per job (budget,
+ * comparison, layout), so a long comparison never holds up a budget, and one
+ * outstanding request per job. A newer request supersedes the older one: its
+ * answer is dropped, and a worker still busy with it is terminated and
+ * replaced, since a solve cannot be interrupted from outside any other way.
+ * A request that passes its job's deadline ends the same way and resolves
+ * with a `deadline` failure, so every request gets an answer.
  */
+import { fail } from "../../core/result/result.ts";
 import type { AnalysisReply, AnalysisRequest } from "./analysisProtocol.ts";
+import type { WorkerPort } from "./workerPort.ts";
 
 type Job = AnalysisRequest["job"];
 type ReplyOf<J extends Job> = Extract<AnalysisReply, { job: J }>;
+export type AnalysisWorker = WorkerPort<AnalysisRequest, AnalysisReply>;
+
+/** Longest a job may run before its worker is stopped, milliseconds. */
+export const ANALYSIS_DEADLINE_MS: Readonly<Record<Job, number>> = { budget: 30_000, compare: 30_000, layout: 30_000 };
+
+const newWorker = (): AnalysisWorker =>
+  new Worker(new URL("./analysisWorker.ts", import.meta.url), { type: "module" }) as unknown as AnalysisWorker;
+
+interface Waiting {
+  readonly id: number;
+  resolve(reply: AnalysisReply): void;
+  readonly timer: ReturnType<typeof setTimeout>;
+}
 
 export class AnalysisClient {
-  private worker: Worker | null = null;
   private nextId = 0;
-  private readonly latest = new Map<Job, { id: number; resolve: (r: AnalysisReply) => void }>();
+  private readonly workers = new Map<Job, AnalysisWorker>();
+  private readonly latest = new Map<Job, Waiting>();
 
-  private ensure(): Worker {
-    if (this.worker) return this.worker;
-    const w = new Worker(new URL("./analysisWorker.ts", import.meta.url), { type: "module" });
-    w.onmessage = (e: MessageEvent<AnalysisReply>) => {
+  constructor(
+    private readonly createWorker: () => AnalysisWorker = newWorker,
+    private readonly deadlineMs: Readonly<Record<Job, number>> = ANALYSIS_DEADLINE_MS,
+  ) {}
+
+  /**
+   * Sends a request; resolves with its answer or, past the job's deadline,
+   * with a `deadline` failure; never when a newer request of the same job
+   * supersedes it.
+   *
+   * @example const reply = await analysis.request<"budget">({ job: "budget", project, matrix, trim: "auto" });
+   */
+  request<J extends Job>(req: Omit<Extract<AnalysisRequest, { job: J }>, "id">): Promise<ReplyOf<J>> {
+    const job = req.job as J;
+    const id = ++this.nextId;
+    const older = this.latest.get(job);
+    if (older) {
+      clearTimeout(older.timer);
+      this.latest.delete(job);
+      this.stop(job);
+    }
+    const worker = this.ensure(job);
+    return new Promise<ReplyOf<J>>((resolve) => {
+      const timer = setTimeout(() => {
+        if (this.latest.get(job)?.id !== id) return;
+        this.latest.delete(job);
+        this.stop(job);
+        const seconds = Math.round(this.deadlineMs[job] / 1000);
+        const result = fail({ kind: "deadline" as const, message: `${JOB_NAMES[job]} did not finish within ${seconds} s and was stopped` });
+        resolve({ id, job, result } as ReplyOf<J>);
+      }, this.deadlineMs[job]);
+      this.latest.set(job, { id, resolve: resolve as (r: AnalysisReply) => void, timer });
+      worker.postMessage({ ...req, id } as AnalysisRequest);
+    });
+  }
+
+  private ensure(job: Job): AnalysisWorker {
+    const existing = this.workers.get(job);
+    if (existing) return existing;
+    const w = this.createWorker();
+    w.onmessage = (e) => {
       const wait = this.latest.get(e.data.job);
-      if (wait && wait.id === e.data.id) {
-        this.latest.delete(e.data.job);
-        wait.resolve(e.data);
-      }
+      if (this.workers.get(job) !== w || !wait || wait.id !== e.data.id) return;
+      clearTimeout(wait.timer);
+      this.latest.delete(e.data.job);
+      wait.resolve(e.data);
     };
-    this.worker = w;
+    w.onerror = (e) => {
+      e.preventDefault?.();
+      const wait = this.latest.get(job);
+      if (this.workers.get(job) !== w || !wait) return;
+      clearTimeout(wait.timer);
+      this.latest.delete(job);
+      this.stop(job);
+      const result = fail({ kind: "rejected" as const, message: `the ${job} worker stopped: ${e.message || "unknown error"}` });
+      wait.resolve({ id: wait.id, job, result } as AnalysisReply);
+    };
+    this.workers.set(job, w);
     return w;
   }
 
-  /** Sends a request; resolves with its answer, or never when a newer request of the same job supersedes it. */
-  request<J extends Job>(req: Omit<Extract<AnalysisRequest, { job: J }>, "id">): Promise<ReplyOf<J>> {
-    const id = ++this.nextId;
-    return new Promise<ReplyOf<J>>((resolve) => {
-      this.latest.set(req.job, { id, resolve: resolve as (r: AnalysisReply) => void });
-      this.ensure().postMessage({ ...req, id });
-    });
+  private stop(job: Job): void {
+    this.workers.get(job)?.terminate();
+    this.workers.delete(job);
   }
 }
 
-/** The one analysis worker of the page. */
+const JOB_NAMES: Readonly<Record<Job, string>> = { budget: "the budget", compare: "the comparison", layout: "the drawing" };
+
+/** The analysis workers of the page. */
 export const analysis = new AnalysisClient();

@@ -1,7 +1,8 @@
 /**
- * Messages between the app and the analysis worker, which solves the
- * budget and runs the heuristic glyph-style comparison off the main thread,
- * so typing never waits for them.
+ * Messages between the app and the analysis workers, which solve the
+ * budget, run the heuristic glyph-style comparison and lay out drawings off
+ * the main thread, so typing never waits for them. Each job has a worker of
+ * its own and a deadline (analysisClient.ts).
  */
 import type { BudgetFailure } from "../../core/budget/budget.ts";
 import type { Budget } from "../../core/budget/budgetTypes.ts";
@@ -9,21 +10,24 @@ import type { TrimMode } from "../../core/budget/emitterDesign.ts";
 import type { GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
 import type { SynthFailure } from "../../core/synth/synthesize.ts";
 import type { Result } from "../../core/result/result.ts";
+import type { PaperName } from "../../render/drawingModel.ts";
+import type { MatrixDrawing } from "../../render/layout.ts";
+
+/** A job the worker would not do (`rejected`: the input did not check out) or did not finish in time (`deadline`). */
+export interface WorkerFailure {
+  readonly kind: "rejected" | "deadline";
+  readonly message: string;
+}
 
 export type AnalysisRequest =
   /** The budget of a verified matrix; the worker checks the matrix again before solving. */
   | { readonly id: number; readonly job: "budget"; readonly project: unknown; readonly matrix: unknown; readonly trim: TrimMode }
   /** The glyph-style comparison with the heuristic. */
-  | { readonly id: number; readonly job: "compare"; readonly project: unknown };
+  | { readonly id: number; readonly job: "compare"; readonly project: unknown }
+  /** The drawing of a matrix on another paper. */
+  | { readonly id: number; readonly job: "layout"; readonly project: unknown; readonly matrix: unknown; readonly paper: PaperName };
 
 export type AnalysisReply =
-  | {
-      readonly id: number;
-      readonly job: "budget";
-      readonly result: Result<Budget, BudgetFailure | { readonly kind: "rejected"; readonly message: string }>;
-    }
-  | {
-      readonly id: number;
-      readonly job: "compare";
-      readonly result: Result<GlyphStyleRow[], SynthFailure | { readonly kind: "rejected"; readonly message: string }>;
-    };
+  | { readonly id: number; readonly job: "budget"; readonly result: Result<Budget, BudgetFailure | WorkerFailure> }
+  | { readonly id: number; readonly job: "compare"; readonly result: Result<GlyphStyleRow[], SynthFailure | WorkerFailure> }
+  | { readonly id: number; readonly job: "layout"; readonly result: Result<MatrixDrawing, WorkerFailure> };

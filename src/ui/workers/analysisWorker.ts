@@ -1,13 +1,15 @@
 /// <reference lib="webworker" />
-/** The analysis worker: budget and heuristic comparison (see analysisProtocol.ts). */
+/** An analysis worker: budget, heuristic comparison and layout (see analysisProtocol.ts). */
 import { solveBudget } from "../../core/budget/budget.ts";
 import { compileSpec } from "../../core/spec/decodeSpec.ts";
 import { compareGlyphStyles } from "../../core/compare/glyphStyles.ts";
 import type { DiodeMatrix } from "../../core/matrix/matrix.ts";
 import { validateProject } from "../../core/project/projectSchema.ts";
-import { fail, formatProblems } from "../../core/result/result.ts";
+import { fail, formatProblems, ok } from "../../core/result/result.ts";
 import { synthSettings } from "../../core/synth/synthesize.ts";
 import { verifyMatrix } from "../../core/matrix/verify.ts";
+import { drawingOptions } from "../../render/drawingOptions.ts";
+import { layoutMatrix } from "../../render/layout.ts";
 import type { AnalysisReply, AnalysisRequest } from "./analysisProtocol.ts";
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -20,8 +22,8 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
   const req = event.data;
   const parsed = validateProject(req.project);
   if (!parsed.ok) {
-    const rejected = fail({ kind: "rejected" as const, message: formatProblems(parsed.error) });
-    return post(req.job === "budget" ? { id: req.id, job: "budget", result: rejected } : { id: req.id, job: "compare", result: rejected });
+    const result = fail({ kind: "rejected" as const, message: formatProblems(parsed.error) });
+    return post({ id: req.id, job: req.job, result } as AnalysisReply);
   }
   const project = parsed.value;
   if (req.job === "compare") {
@@ -29,6 +31,16 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
   }
   const spec = compileSpec(project);
   const checked = verifyMatrix(spec, req.matrix as DiodeMatrix, synthSettings(project));
-  if (!checked.ok) return post({ id: req.id, job: "budget", result: fail({ kind: "rejected", message: checked.error.join("; ") }) });
+  if (!checked.ok) {
+    const result = fail({ kind: "rejected" as const, message: checked.error.join("; ") });
+    return post({ id: req.id, job: req.job, result } as AnalysisReply);
+  }
+  if (req.job === "layout") {
+    return post({
+      id: req.id,
+      job: "layout",
+      result: ok(layoutMatrix(project, spec, checked.value, drawingOptions(project, { paper: req.paper }))),
+    });
+  }
   post({ id: req.id, job: "budget", result: solveBudget(project, spec, checked.value, { trim: req.trim }) });
 };

@@ -3,7 +3,8 @@
  *
  * One run at a time: starting a new run, or cancelling, terminates the
  * worker of the old one (the solver cannot be interrupted from outside any
- * other way), so a stale answer can never arrive.
+ * other way), so a stale answer can never arrive. A run given a deadline is
+ * ended the same way when it passes it, and reported as failed.
  */
 import type { GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
 import type { ExactProgress, ExactReply, ExactRequest } from "./exactProtocol.ts";
@@ -18,13 +19,25 @@ export interface ExactCallbacks {
 export class ExactRunner {
   private worker: Worker | null = null;
   private runId = 0;
+  private deadline: ReturnType<typeof setTimeout> | undefined;
 
-  /** Starts a run for a project draft; any run in progress is cancelled. */
-  start(project: unknown, callbacks: ExactCallbacks, job: ExactRequest["job"] = "matrix"): void {
+  /**
+   * Starts a run for a project draft; any run in progress is cancelled.
+   *
+   * @param deadlineMs when given, the run is stopped and reported as failed after this long
+   */
+  start(project: unknown, callbacks: ExactCallbacks, job: ExactRequest["job"] = "matrix", deadlineMs?: number): void {
     this.cancel();
     const id = ++this.runId;
     const worker = new Worker(new URL("./exactWorker.ts", import.meta.url), { type: "module" });
     this.worker = worker;
+    if (deadlineMs !== undefined) {
+      this.deadline = setTimeout(() => {
+        if (this.worker !== worker) return;
+        this.finish(worker);
+        callbacks.failed(`the optimizer did not finish within ${Math.round(deadlineMs / 1000)} s and was stopped`);
+      }, deadlineMs);
+    }
     worker.onmessage = (e: MessageEvent<ExactReply>) => {
       const reply = e.data;
       if (reply.id !== id || this.worker !== worker) return;
@@ -56,6 +69,7 @@ export class ExactRunner {
   }
 
   private finish(worker: Worker): void {
+    clearTimeout(this.deadline);
     worker.terminate();
     if (this.worker === worker) this.worker = null;
   }
