@@ -11,6 +11,22 @@ import { parseProject } from "../src/core/project/projectSchema.ts";
 import { heuristicPlan } from "../src/core/synth/heuristic.ts";
 import { planCount, sharingProblem } from "../src/core/synth/plan.ts";
 import { synthesize, synthSettings } from "../src/core/synth/synthesize.ts";
+import { largestCustomProject, largestHexProject } from "../tests/support/largestProject.ts";
+
+/** A seven-segment project showing `show`, validated like a file. */
+function showingProject(show: readonly string[], positions: number): Project {
+  const r = parseProject(
+    JSON.stringify({
+      schema: "diodeloom/project@1",
+      title: "bench",
+      counter: { states: show.length },
+      display: { positions, cell: "seg7" },
+      show,
+    }),
+  );
+  if (!r.ok) throw new Error(`bench project is invalid: ${JSON.stringify(r.error)}`);
+  return r.value;
+}
 
 interface BenchCase {
   readonly name: string;
@@ -113,6 +129,49 @@ export async function runSynthBench(log: (line: string) => void): Promise<void> 
         ),
       );
     }
+  }
+
+  log("");
+  log("Largest sizes: 20 s limit, per-segment, depth 2; the limit is kept when the time stays under it (peak RSS is the process's so far)");
+  const lw = [34, 7, 7, 7, 9, 9, 10];
+  log(row(["project", "direct", "count", "bound", "time ms", "deadline", "peak MiB"], lw));
+  const stride = Array.from({ length: 100 }, (_, k) => Array.from({ length: 8 }, (_, i) => String((k * i) % 10)).join(""));
+  const largest: [string, Project][] = [
+    [
+      "256 x 1, hex digits repeated",
+      showingProject(
+        [...Array(256).keys()].map((k) => "0123456789AbCdEF"[k % 16] as string),
+        1,
+      ),
+    ],
+    ["100 x 8, position i shows k*i mod 10", showingProject(stride, 8)],
+    ["256 x 8, random hex digits", largestHexProject()],
+    ["256 x 8 of a 32-segment custom cell", largestCustomProject()],
+  ];
+  for (const [name, project] of largest) {
+    const spec = compileSpec(project);
+    const t0 = performance.now();
+    const r = await synthesize(spec, synthSettings(project));
+    const ms = performance.now() - t0;
+    if (!r.ok) {
+      log(`${name}: ${r.error.message}`);
+      continue;
+    }
+    const peak = process.resourceUsage().maxRSS / 1024;
+    log(
+      row(
+        [
+          name,
+          litCellCount(spec),
+          r.value.count,
+          r.value.lowerBound ?? "-",
+          ms.toFixed(0),
+          r.value.deadlineHit ? "hit" : "no",
+          peak.toFixed(0),
+        ],
+        lw,
+      ),
+    );
   }
 
   log("");

@@ -10,11 +10,12 @@
  */
 import type { SharingProblem, SharingRules } from "./plan.ts";
 import { linkPairs, statesLighting } from "./rules.ts";
+import { WorkMeter } from "./workMeter.ts";
 
-/** max(driven outputs, states that light something). */
+/** max(driven outputs, states that light something); a merged row counts for its states. */
 export function trivialLowerBound(p: SharingProblem): number {
   const outputs = p.col.filter((c) => c.length > 0).length;
-  const states = p.row.filter((r) => r.length > 0).length;
+  const states = p.row.reduce((a, r, k) => a + (r.length > 0 ? (p.weight[k] ?? 1) : 0), 0);
   return Math.max(outputs, states);
 }
 
@@ -35,8 +36,10 @@ export interface LpBoundOptions {
   readonly deadlineMs: number;
   /**
    * Most LP work, the deterministic stop: the sum over rounds of the
-   * model's nonzeros when it is solved (the LP time tracks it; the pricing
-   * search takes little beside it). Unlimited by default.
+   * model's nonzeros when it is solved, plus the states the pricing search
+   * looks at. Unlimited by default. A round that would overrun it does not
+   * start; a pricing search that overruns it ends the bound at the last
+   * complete round.
    */
   readonly maxWork?: number;
   /** Most output sets the pricing search visits per round. */
@@ -59,9 +62,10 @@ export interface LpBound {
  * Lower bound from the LP relaxation of a relaxed problem, by column
  * generation; valid at depth limit 2 under every policy.
  *
- * The relaxed problem covers every lit cell by direct diodes (cost 1), links
- * (cost 1, where every state lighting the source lights the target; left out
- * under the uniform policy, which has none) and buses S x T (cost |S|+|T|),
+ * The relaxed problem covers every lit cell by direct diodes (cost 1, or w
+ * for a row standing for w states), links (cost 1, where every state
+ * lighting the source lights the target; left out under the uniform policy,
+ * which has none) and buses S x T (cost |S|+|T|, each row counted w times),
  * with no depth policy at all, so any depth-2 matrix is a solution of it. Bus
  * columns are priced out over every output set T by depth-first search
  * (Kovacs, Gunluk and Hauser, "Binary Matrix Factorisation via Column
@@ -77,17 +81,24 @@ export interface LpBound {
  */
 export function lpLowerBound(p: SharingProblem, rules: Pick<SharingRules, "policy" | "links" | "buses">, opts: LpBoundOptions): LpBound {
   const m = p.m;
+  const meter = new WorkMeter(opts.maxWork ?? Infinity, opts.deadlineMs);
+  const w = (k: number): number => p.weight[k] ?? 1;
   let deadlineHit = false;
   const cellRow = new Int32Array(p.n * m).fill(-1);
+  const cellWeight: number[] = [];
   let rows = 0;
-  for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) cellRow[k * m + o] = rows++;
+  for (let k = 0; k < p.n; k++) {
+    for (const o of p.row[k] ?? []) {
+      cellRow[k * m + o] = rows++;
+      cellWeight.push(w(k));
+    }
+  }
   if (rows === 0) return { bound: 0, shapes: [], deadlineHit, work: 0 };
   const links: [number, number][] = linkPairs(p, rules).map((l) => [l.from, l.to]);
   const patterns: { s: number[]; t: number[] }[] = [];
   const seen = new Set<string>();
   const maxVisits = opts.maxVisits ?? 3_000_000;
   let best: number | null = null;
-  let work = 0;
   let nonzeros = rows + links.reduce((a, [l]) => a + (p.col[l]?.length ?? 0), 0);
   let lastUsed: Float64Array = new Float64Array(0);
 
@@ -114,7 +125,8 @@ export function lpLowerBound(p: SharingProblem, rules: Pick<SharingRules, "polic
         const idx: number[] = [];
         for (const k of pt.s) for (const o of pt.t) idx.push(cellRow[k * m + o] ?? 0);
         idx.sort((a, b) => a - b);
-        lp.addCol(pt.s.length + pt.t.length, 0, 1e30, { indices: Int32Array.from(idx), values: new Float64Array(idx.length).fill(1) });
+        const cost = pt.t.length + pt.s.reduce((a, k) => a + w(k), 0);
+        lp.addCol(cost, 0, 1e30, { indices: Int32Array.from(idx), values: new Float64Array(idx.length).fill(1) });
       }
       lp.run();
       if (lp.getModelStatus() === LP_TIME_LIMIT) deadlineHit = true;
@@ -127,21 +139,18 @@ export function lpLowerBound(p: SharingProblem, rules: Pick<SharingRules, "polic
   };
 
   for (let round = 0; round < 500; round++) {
-    if (Date.now() > opts.deadlineMs) {
-      deadlineHit = true;
-      break;
-    }
+    if (meter.checkClock()) break;
     for (let i = inModel; i < patterns.length; i++) nonzeros += (patterns[i]?.s.length ?? 0) * (patterns[i]?.t.length ?? 0);
-    // The first round always runs: without it there is no bound at all.
-    if (round > 0 && work + nonzeros > (opts.maxWork ?? Infinity)) break;
-    work += nonzeros;
+    // A round the budget cannot pay for does not start.
+    if (meter.work + nonzeros > meter.maxWork) break;
+    meter.charge(nonzeros);
     const solved = solve();
     if (solved === null) break;
     const pi = solved.pi;
     lastUsed = solved.patternValue;
     // Largest dual-sum-to-cost ratio over every column, and new columns to add.
     let theta = 0;
-    for (let r = 0; r < rows; r++) theta = Math.max(theta, pi[r] ?? 0);
+    for (let r = 0; r < rows; r++) theta = Math.max(theta, (pi[r] ?? 0) / (cellWeight[r] ?? 1));
     for (const [a, b] of links) {
       let s = 0;
       for (const k of p.col[a] ?? []) s += pi[cellRow[k * m + b] ?? 0] ?? 0;
@@ -152,48 +161,131 @@ export function lpLowerBound(p: SharingProblem, rules: Pick<SharingRules, "polic
     let complete = true;
     if (rules.buses) {
       const v = new Float64Array(p.n);
+      // By state sets of two or more rows: for a fixed S the best outputs are those inside
+      // every row of S, by the sum u_o of their duals over S (a prefix for the ratio, u_o > 1
+      // for the reduced cost).
+      const u = new Float64Array(m);
+      const priceByStates = (): void => {
+        const grow = (sm: number[], common: number[], weightS: number, next: number): void => {
+          for (let k = next; k < p.n && complete; k++) {
+            if (++visits > maxVisits || meter.charge(common.length + 1)) {
+              complete = false;
+              return;
+            }
+            const lk = p.lit[k];
+            const c2 = common.filter((o) => lk?.[o] === true);
+            if (c2.length === 0) continue;
+            const s2 = [...sm, k];
+            const w2 = weightS + w(k);
+            if (s2.length >= 2) {
+              for (const o of c2) {
+                let x = 0;
+                for (const q of s2) x += pi[cellRow[q * m + o] ?? 0] ?? 0;
+                u[o] = x;
+              }
+              meter.charge(c2.length * s2.length);
+              const byDual = [...c2].sort((a, b) => (u[b] ?? 0) - (u[a] ?? 0) || a - b);
+              let sum = 0;
+              byDual.forEach((o, i) => {
+                sum += u[o] ?? 0;
+                theta = Math.max(theta, sum / (w2 + i + 1));
+              });
+              const t = c2.filter((o) => (u[o] ?? 0) > 1 + 1e-9);
+              const rc = w2 + t.reduce((a, o) => a + 1 - (u[o] ?? 0), 0);
+              if (t.length > 0 && rc < -1e-7 && !seen.has(`${s2.join(",")}|${t.join(",")}`)) {
+                fresh.push({ s: s2, t, rc });
+                if (fresh.length >= 4000) {
+                  fresh.sort((a, b) => a.rc - b.rc);
+                  fresh.length = 500;
+                }
+              }
+            }
+            grow(s2, c2, w2, k + 1);
+          }
+        };
+        grow(
+          [],
+          Array.from({ length: m }, (_, o) => o),
+          0,
+          0,
+        );
+      };
       const visit = (t: number[], sm: number[], next: number): void => {
         for (let o = next; o < m; o++) {
-          if (++visits > maxVisits) {
+          if (++visits > maxVisits || meter.charge(sm.length + 1)) {
             complete = false;
             return;
           }
           const s2 = statesLighting(p, sm, o);
+          // Buses of one row are priced below, row by row.
           if (s2.length < 2) continue;
           const t2 = [...t, o];
           if (t2.length >= 2) {
-            const vals = s2.map((k) => {
+            for (const k of s2) {
               let x = 0;
               for (const q of t2) x += pi[cellRow[k * m + q] ?? 0] ?? 0;
               v[k] = x;
-              return x;
-            });
-            // Best ratio for this T: the states with the largest dual sums, a prefix after sorting.
-            vals.sort((x, y) => y - x);
+            }
+            meter.charge(s2.length * t2.length);
+            // Best ratio for this T: the rows with the largest dual sum per state, a prefix after sorting.
+            const byRatio = [...s2].sort((x, y) => (v[y] ?? 0) / w(y) - (v[x] ?? 0) / w(x) || x - y);
             let sum = 0;
-            for (let i = 0; i < vals.length; i++) {
-              sum += vals[i] ?? 0;
-              theta = Math.max(theta, sum / (i + 1 + t2.length));
+            let cost = t2.length;
+            for (const k of byRatio) {
+              sum += v[k] ?? 0;
+              cost += w(k);
+              theta = Math.max(theta, sum / cost);
             }
             let rc = t2.length;
             const chosen: number[] = [];
             for (const k of s2) {
-              if ((v[k] ?? 0) > 1 + 1e-9) {
-                rc += 1 - (v[k] ?? 0);
+              if ((v[k] ?? 0) > w(k) + 1e-9) {
+                rc += w(k) - (v[k] ?? 0);
                 chosen.push(k);
               }
             }
-            if (rc < -1e-7 && chosen.length > 0) fresh.push({ s: chosen, t: t2, rc });
+            if (rc < -1e-7 && chosen.length > 0 && !seen.has(`${chosen.join(",")}|${t2.join(",")}`)) {
+              fresh.push({ s: chosen, t: t2, rc });
+              // Only the 500 best are added a round: keep the list short as it grows.
+              if (fresh.length >= 4000) {
+                fresh.sort((a, b) => a.rc - b.rc);
+                fresh.length = 500;
+              }
+            }
           }
           visit(t2, s2, o + 1);
           if (!complete) return;
         }
       };
-      visit(
-        [],
-        Array.from({ length: p.n }, (_, k) => k),
-        0,
-      );
+      // Enumerate the smaller side: output sets T (each with its best states), or state sets S
+      // (each with its best outputs); either way every bus column is looked at.
+      if (p.n < m) priceByStates();
+      else
+        visit(
+          [],
+          Array.from({ length: p.n }, (_, k) => k),
+          0,
+        );
+      // A bus of one row standing for w states (see reduce.ts): over T inside its row, the best
+      // ratio takes the outputs with the largest duals, and the best reduced cost those above 1.
+      for (let k = 0; k < p.n && complete; k++) {
+        const wk = w(k);
+        const row = p.row[k] ?? [];
+        if (wk < 2 || row.length < 2) continue;
+        if (meter.charge(row.length)) {
+          complete = false;
+          break;
+        }
+        const duals = row.map((o) => pi[cellRow[k * m + o] ?? 0] ?? 0).sort((x, y) => y - x);
+        let sum = 0;
+        duals.forEach((d, i) => {
+          sum += d;
+          theta = Math.max(theta, sum / (wk + i + 1));
+        });
+        const t = row.filter((o) => (pi[cellRow[k * m + o] ?? 0] ?? 0) > 1 + 1e-9);
+        const rc = wk + t.reduce((a, o) => a + 1 - (pi[cellRow[k * m + o] ?? 0] ?? 0), 0);
+        if (t.length > 0 && rc < -1e-7 && !seen.has(`${k}|${t.join(",")}`)) fresh.push({ s: [k], t, rc });
+      }
     }
     if (!complete) break;
     let dualSum = 0;
@@ -212,6 +304,7 @@ export function lpLowerBound(p: SharingProblem, rules: Pick<SharingRules, "polic
     }
     if (added === 0) break;
   }
+  deadlineHit ||= meter.deadlineHit;
   try {
     lp?.dispose();
   } catch {
@@ -221,7 +314,7 @@ export function lpLowerBound(p: SharingProblem, rules: Pick<SharingRules, "polic
   const order = patterns.map((_, i) => i).sort((a, b) => (lastUsed[b] ?? 0) - (lastUsed[a] ?? 0) || a - b);
   const keys = [...new Set(order.map((i) => (patterns[i]?.t ?? []).join(",")))].slice(0, 400);
   const shapes = keys.map((key) => key.split(",").map(Number));
-  return { bound: best === null ? null : Math.ceil(best - 1e-6), shapes, deadlineHit, work };
+  return { bound: best === null ? null : Math.ceil(best - 1e-6), shapes, deadlineHit, work: meter.work };
 }
 
 /** HiGHS model status: its time limit (here the deadline) stopped it. */
@@ -234,8 +327,9 @@ function relaxedText(p: SharingProblem, cellRow: Int32Array, rows: number, links
   const obj: string[] = [];
   let c = 0;
   for (let k = 0; k < p.n; k++) {
+    const w = p.weight[k] ?? 1;
     for (const o of p.row[k] ?? []) {
-      obj.push(`+ z${c}`);
+      obj.push(w === 1 ? `+ z${c}` : `+ ${w} z${c}`);
       terms[cellRow[k * m + o] ?? 0]?.push(`+ z${c}`);
       c++;
     }

@@ -14,6 +14,7 @@
  */
 import type { SharingProblem } from "./plan.ts";
 import { busPays, busStates, statesLighting } from "./rules.ts";
+import { WorkMeter } from "./workMeter.ts";
 
 export interface BusCandidate {
   /** Output set T, ascending. */
@@ -38,37 +39,81 @@ export interface FamilyLimits {
 
 export const DEFAULT_FAMILY_LIMITS: FamilyLimits = { maxBuses: 1500, maxInputs: 5000 };
 
+/** Most output sets the enumeration visits when the family overflows (each visit narrows a state list). */
+const MAX_VISITS = 2_000_000;
+
 /**
  * Enumerates bus shapes by depth-first search over outputs, shrinking Smax as
  * outputs join T. `minOutputs` is 2 under the mixed policy, else 1.
  * `extra` shapes (the heuristic's, for the warm start) are always kept.
+ *
+ * When the shapes overflow the limits, the search goes on (up to
+ * `MAX_VISITS` output sets, or until `meter` stops it) keeping only the
+ * `maxBuses` shapes that save the most diodes as full blocks, so its memory
+ * stays proportional to the family it returns; with `whenTooMany` "stop" it
+ * ends there instead (for a caller that needs only a complete family).
  */
 export function candidateFamily(
   p: SharingProblem,
   minOutputs: number,
   limits: FamilyLimits = DEFAULT_FAMILY_LIMITS,
   extra: readonly (readonly number[])[] = [],
+  meter: WorkMeter = new WorkMeter(Infinity),
+  whenTooMany: "best" | "stop" = "best",
 ): CandidateFamily {
-  const found: BusCandidate[] = [];
+  const weightOf = (states: readonly number[]): number => states.reduce((a, k) => a + (p.weight[k] ?? 1), 0);
+  // A bus of one row is that row's padding bus, which the engines model on their own (see model.ts, search.ts).
+  const enough = (states: readonly number[]): boolean => states.length >= 2;
+  const worth = (s: number, t: number): boolean => t >= minOutputs && (minOutputs < 2 || busPays(s, t));
+  // Diodes a full block saves, and the shape's key, worked out once per shape for the ranking.
+  const saves = new Map<BusCandidate, number>();
+  const keys = new Map<BusCandidate, string>();
+  const note = (b: BusCandidate): BusCandidate => {
+    const w = weightOf(b.states);
+    saves.set(b, w * b.outputs.length - w - b.outputs.length);
+    keys.set(b, b.outputs.join(","));
+    return b;
+  };
+  const rank = (a: BusCandidate, b: BusCandidate): number =>
+    (saves.get(b) ?? 0) - (saves.get(a) ?? 0) || (keys.get(a) ?? "").localeCompare(keys.get(b) ?? "");
+
+  let found: BusCandidate[] = [];
   let inputs = 0;
   let overflow = false;
-  const worth = (s: number, t: number): boolean => t >= minOutputs && (minOutputs < 2 || busPays(s, t));
+  let visits = 0;
+  let stopped = false;
+  const keepBest = (): void => {
+    found.sort(rank);
+    for (const b of found.slice(limits.maxBuses)) {
+      saves.delete(b);
+      keys.delete(b);
+    }
+    found = found.slice(0, limits.maxBuses);
+  };
   const visit = (t: number[], s: number[], next: number): void => {
-    if (overflow) return;
-    for (let o = next; o < p.m; o++) {
+    for (let o = next; o < p.m && !stopped; o++) {
       const s2 = statesLighting(p, s, o);
-      if (s2.length < 2) continue;
+      if (++visits > MAX_VISITS || meter.charge(s.length + 1)) {
+        stopped = true;
+        return;
+      }
+      if (!enough(s2)) continue;
       const t2 = [...t, o];
-      if (worth(s2.length, t2.length)) {
-        found.push({ outputs: t2, states: s2 });
+      // Past the limits only shapes of two or more outputs that pay count (the most promising).
+      if (overflow ? t2.length >= 2 && busPays(weightOf(s2), t2.length) : worth(weightOf(s2), t2.length)) {
+        found.push(note({ outputs: t2, states: s2 }));
         inputs += s2.length;
-        if (found.length > limits.maxBuses || inputs > limits.maxInputs) {
+        if (!overflow && (found.length > limits.maxBuses || inputs > limits.maxInputs)) {
           overflow = true;
-          return;
+          if (whenTooMany === "stop") {
+            stopped = true;
+            return;
+          }
+          found = found.filter((b) => b.outputs.length >= 2 && busPays(weightOf(b.states), b.outputs.length));
         }
+        if (overflow && found.length >= 2 * limits.maxBuses) keepBest();
       }
       visit(t2, s2, o + 1);
-      if (overflow) return;
     }
   };
   visit(
@@ -76,48 +121,33 @@ export function candidateFamily(
     Array.from({ length: p.n }, (_, k) => k),
     0,
   );
-  if (!overflow) return { buses: withExtra(p, found, extra), complete: true };
+  if (!overflow && !stopped) return { buses: withExtra(p, found, extra, enough), complete: true };
 
-  // Too many shapes: keep the most promising ones, by diodes a full block saves.
-  const scored: BusCandidate[] = [];
-  const all = new Map<string, BusCandidate>();
-  const collect = (t: number[], s: number[], next: number, budget: { left: number }): void => {
-    for (let o = next; o < p.m && budget.left > 0; o++) {
-      const s2 = statesLighting(p, s, o);
-      if (s2.length < 2) continue;
-      const t2 = [...t, o];
-      budget.left--;
-      if (t2.length >= 2 && busPays(s2.length, t2.length)) all.set(t2.join(","), { outputs: t2, states: s2 });
-      collect(t2, s2, o + 1, budget);
-    }
-  };
-  collect(
-    [],
-    Array.from({ length: p.n }, (_, k) => k),
-    0,
-    { left: 2_000_000 },
-  );
-  scored.push(...all.values());
-  const save = (b: BusCandidate): number => b.states.length * b.outputs.length - b.states.length - b.outputs.length;
-  scored.sort((a, b) => save(b) - save(a) || a.outputs.join(",").localeCompare(b.outputs.join(",")));
+  // Too many shapes, or the search stopped: keep the most promising ones, by diodes a full block saves.
+  keepBest();
   const kept: BusCandidate[] = [];
   let used = 0;
-  for (const b of scored) {
+  for (const b of found) {
     if (kept.length >= limits.maxBuses || used + b.states.length > limits.maxInputs) break;
     kept.push(b);
     used += b.states.length;
   }
-  return { buses: withExtra(p, kept, extra), complete: false };
+  return { buses: withExtra(p, kept, extra, enough), complete: false };
 }
 
-function withExtra(p: SharingProblem, found: BusCandidate[], extra: readonly (readonly number[])[]): BusCandidate[] {
+function withExtra(
+  p: SharingProblem,
+  found: BusCandidate[],
+  extra: readonly (readonly number[])[],
+  enough: (states: readonly number[]) => boolean,
+): BusCandidate[] {
   const keys = new Set(found.map((b) => b.outputs.join(",")));
   const out = [...found];
   for (const t of extra) {
     const key = t.join(",");
     if (keys.has(key) || t.length === 0) continue;
     const s = busStates(p, t);
-    if (s.length < 2) continue;
+    if (!enough(s)) continue;
     keys.add(key);
     out.push({ outputs: [...t], states: s });
   }

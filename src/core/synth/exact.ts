@@ -21,7 +21,10 @@ import { candidateFamily, DEFAULT_FAMILY_LIMITS, type FamilyLimits } from "./can
 import { lpLowerBound, trivialLowerBound } from "./bounds.ts";
 import { buildSharingModel } from "./model.ts";
 import { searchApplies, searchPlan } from "./search.ts";
-import { litCount, planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
+import { litCount, planCost, planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
+import { contractPlan, expandPlan, reduceRows } from "./reduce.ts";
+import { WorkMeter } from "./workMeter.ts";
+import { deadlineMarginMs, workBudget, type WorkBudget } from "./workBudget.ts";
 import { betterPlan, breakTies } from "./tieBreak.ts";
 
 /** The part of a HiGHS model the driver uses (the npm `highs` persistent API). */
@@ -84,76 +87,20 @@ export interface ExactOptions {
    * (default true); false sends every instance straight to HiGHS.
    */
   readonly search?: boolean;
-  /** Work budgets; by default `workBudget(timeLimitMs)`. */
+  /** Work budgets; by default `workBudget(timeLimitMs)` (workBudget.ts). */
   readonly budget?: WorkBudget;
 }
 
-/** Deterministic work limits of one exact run (see `workBudget`). */
-export interface WorkBudget {
-  /** Branch-and-bound work units (synthSearch.ts). */
-  readonly searchWork: number;
-  /** LP-bound work for big instances (synthBounds.ts). */
-  readonly lpWork: number;
-  /** HiGHS `mip_max_nodes`. */
-  readonly highsNodes: number;
-  /**
-   * HiGHS LP iterations (over the whole MIP solve) times the model's columns:
-   * it tracks time even at the root, where no node is counted. HiGHS stops
-   * at the first interrupt checkpoint past it.
-   */
-  readonly highsWork: number;
-}
-
-/**
- * The budgets are planned to take about a fifth of the time limit in CPU
- * time at the slowest rate measured on this 2-core machine (a first, cold
- * run), so that a run on a machine loaded four times over still
- * ends on its budget, not on the clock. Rates are per CPU millisecond
- * (`process.cpuUsage`), which other processes' load leaves alone.
- */
-const BUDGET_SHARE = 0.2;
-/**
- * Search work units per CPU millisecond. A whole search in a fresh process
- * (cold JIT included) ran 64 000 (1-12 per-segment) to 92 000 (0-F
- * per-segment) a millisecond, warm runs up to 120 000; tiny searches run
- * slower (20 000 on 0-9 mixed, 4 million units in 0.2 s) but end at once.
- */
-const SEARCH_RATE = 60_000;
-/**
- * LP-bound work (nonzeros solved, see bounds.ts) per CPU millisecond: 360 to
- * 400 on 00-23 and 00-59, 232 on 00-99, 139 on 00-99 uniform (bigger LPs
- * cost more a nonzero). Loading HiGHS costs about 1 s more on a first run.
- */
-const LP_RATE = 140;
-/**
- * HiGHS work (LP iterations times model columns, see `WorkBudget`) per
- * millisecond: 5 200 to 12 200 over whole solves on 0-F, 1-12 and 00-23, but
- * only 3 200 in the first 5 s on 00-23, whose root spends long stretches on
- * other work. HiGHS looks at its interrupt checkpoint only every so often
- * (gaps of up to 4 s measured on 0-F at depth 3), so its phase is the one
- * most likely to meet the deadline; then the result says so.
- */
-const HIGHS_RATE = 5_000;
 /** Least time limit at which HiGHS runs after a search that was cut short, milliseconds. */
 const HIGHS_AFTER_SEARCH_MIN_MS = 5000;
-/** HiGHS branch-and-bound nodes per millisecond (measured 10 to 35 ms a node on 0-F, after a root of 1 to 7 s). */
-const HIGHS_NODE_RATE = 1 / 35;
-
 /**
- * Work budgets derived from the time limit. A run stops on them, not on the
- * clock, so the same configuration gives the same matrix every run; the
- * clock is only a safety net. The rates above leave room for a slower or
- * busier machine (measured on a shared 2-core one), so the budgets normally
- * run out well before the clock does.
+ * A HiGHS model runs only when its rows x columns stay within this many times
+ * the HiGHS work budget. Its work at the checkpoint after the root LP was
+ * half of rows x columns on 00-23 at depth 3 (6 054 columns, 10 688 rows)
+ * and 3.4 times on 0-F (930 columns): a rough guide, meant to keep HiGHS
+ * away from the big models it could not finish near the budget.
  */
-export function workBudget(timeLimitMs: number): WorkBudget {
-  return {
-    searchWork: Math.max(1e5, Math.floor(timeLimitMs * BUDGET_SHARE * SEARCH_RATE)),
-    lpWork: Math.max(1e4, Math.floor(timeLimitMs * BUDGET_SHARE * LP_RATE)),
-    highsNodes: Math.max(20, Math.floor(timeLimitMs * BUDGET_SHARE * HIGHS_NODE_RATE)),
-    highsWork: Math.max(1e5, Math.floor(timeLimitMs * BUDGET_SHARE * HIGHS_RATE)),
-  };
-}
+const HIGHS_ROOT_SHARE = 4;
 
 export type ExactStatus = "optimal" | "time-limit" | "solver-failed";
 
@@ -194,16 +141,37 @@ const PRIMAL_FEASIBLE = 2;
  */
 export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: SharingPlan, opts: ExactOptions): Promise<ExactOutcome> {
   const started = Date.now();
-  const warmShapes = warm.buses.filter((b) => b.states.length >= 2).map((b) => b.outputs);
-  const minOutputs = rules.policy === "mixed" ? 2 : 1;
-  const family = candidateFamily(p, minOutputs, opts.familyLimits ?? DEFAULT_FAMILY_LIMITS, warmShapes);
-  const floor = trivialLowerBound(p);
-  const warmCount = planCount(warm);
-  const budget = opts.budget ?? workBudget(opts.timeLimitMs);
   // The clock is only the safety net; it stops a little early so that decoding,
   // tie-breaks and the verifier still finish inside the caller's limit.
   const deadlineMs = opts.deadlineMs ?? started + opts.timeLimitMs - deadlineMarginMs(opts.timeLimitMs);
-  let deadlineHit = false;
+  // Identical states merged (exact, see reduce.ts): the engines below see each distinct row once.
+  const reduction = reduceRows(p);
+  const out = await exactReduced(reduction.problem, rules, contractPlan(reduction, warm), { ...opts, deadlineMs });
+  const plan = betterPlan(warm, expandPlan(reduction, out.plan));
+  const count = planCount(plan);
+  const lowerBound = Math.min(out.lowerBound, count);
+  const status = out.status === "solver-failed" ? out.status : lowerBound === count ? "optimal" : "time-limit";
+  return { ...out, plan, lowerBound, status };
+}
+
+/** `exactPlan` on a reduced problem (rows may stand for several states). */
+async function exactReduced(
+  p: SharingProblem,
+  rules: SharingRules,
+  warm: SharingPlan,
+  opts: ExactOptions & { readonly deadlineMs: number },
+): Promise<ExactOutcome> {
+  const deadlineMs = opts.deadlineMs;
+  const budget = opts.budget ?? workBudget(opts.timeLimitMs);
+  const warmShapes = warm.buses.filter((b) => b.states.length >= 2).map((b) => b.outputs);
+  const minOutputs = rules.policy === "mixed" ? 2 : 1;
+  const familyMeter = new WorkMeter(budget.familyWork, deadlineMs);
+  // At depth 2 a family too big for the model is not used (the LP bound takes over), so its enumeration stops there.
+  const whenTooMany = rules.depthLimit <= 2 ? "stop" : "best";
+  const family = candidateFamily(p, minOutputs, opts.familyLimits ?? DEFAULT_FAMILY_LIMITS, warmShapes, familyMeter, whenTooMany);
+  let deadlineHit = familyMeter.deadlineHit;
+  const floor = trivialLowerBound(p);
+  const warmCount = planCost(p, warm);
 
   // Too big for the full model: bound by the LP relaxation (column
   // generation, valid at depth 2) and keep the heuristic's matrix. A MILP
@@ -239,10 +207,10 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   if (opts.search !== false && searchApplies(p, rules, family)) {
     const s = searchPlan(p, rules, family, warmCount, { maxWork: budget.searchWork, deadlineMs });
     deadlineHit ||= s.deadlineHit;
-    const found = s.plan === null ? warm : betterPlan(warm, breakTies(p, rules, s.plan));
+    const found = s.plan === null ? warm : betterPlan(warm, breakTies(p, rules, s.plan), p);
     // Uniform: the search covers all-bus matrices; the all-direct one is the other choice.
     const lb = rules.policy === "uniform" ? Math.min(litCount(p), s.lowerBound) : s.lowerBound;
-    searchBound = Math.min(Math.max(floor, lb), planCount(found));
+    searchBound = Math.min(Math.max(floor, lb), planCost(p, found));
     if (s.proven) return { columns: 0, complete: true, plan: found, lowerBound: searchBound, status: "optimal", deadlineHit };
     incumbent = found;
     // A short limit leaves HiGHS no time for its root (measured 1 to 7 s on
@@ -254,6 +222,13 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
   const model = buildSharingModel(p, rules, family);
   const boundIsGlobal = family.complete && rules.depthLimit <= 2;
   const base = { columns: model.columns.length, complete: family.complete };
+  // HiGHS looks at its work budget only at checkpoints, the first after its
+  // root LP, whose work is about rows x columns: a model whose root alone
+  // would overrun the budget is not started (the clock would stop it).
+  if (model.rows * model.columns.length > budget.highsWork * HIGHS_ROOT_SHARE) {
+    const lowerBound = Math.min(Math.max(floor, searchBound ?? 0), planCost(p, incumbent));
+    return { ...base, plan: incumbent, lowerBound, status: "time-limit", deadlineHit };
+  }
 
   let highsModel: HighsModelLike | undefined;
   try {
@@ -299,9 +274,9 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
         rules,
         model.decode((name) => x[index.get(name) ?? -1] ?? 0),
       );
-      plan = betterPlan(incumbent, found);
+      plan = betterPlan(incumbent, found, p);
     }
-    const count = planCount(plan);
+    const count = planCost(p, plan);
     let lowerBound = floor;
     if (boundIsGlobal && Number.isFinite(dual)) {
       const milpBound = Math.ceil(dual - 1e-6);
@@ -315,7 +290,7 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
     return {
       ...base,
       plan: incumbent,
-      lowerBound: Math.min(Math.max(floor, searchBound ?? 0), planCount(incumbent)),
+      lowerBound: Math.min(Math.max(floor, searchBound ?? 0), planCost(p, incumbent)),
       status: "solver-failed",
       message: String((e as Error)?.message ?? e),
       deadlineHit,
@@ -327,12 +302,4 @@ export async function exactPlan(p: SharingProblem, rules: SharingRules, warm: Sh
       // A module that aborted cannot free its memory; it is dropped with the instance.
     }
   }
-}
-
-/**
- * Room left after the deadline for decoding, tie-breaks and the verifier,
- * so that the whole run ends inside the caller's limit: 5 %, at most 0.5 s.
- */
-export function deadlineMarginMs(timeLimitMs: number): number {
-  return Math.min(500, timeLimitMs * 0.05);
 }

@@ -7,18 +7,15 @@
 export { synthesize, synthSettings, verified } from "./synthesize.ts";
 export type { SynthFailure, SynthHooks, SynthMode, SynthProgress, SynthSettings } from "./synthesize.ts";
 export { synthesizeDirect } from "./direct.ts";
-export { heuristicPlan } from "./heuristic.ts";
-export { deadlineMarginMs, defaultHighsLoader, exactPlan, workBudget } from "./exact.ts";
-export type {
-  ExactOptions,
-  ExactOutcome,
-  ExactStatus,
-  HighsInterruptEvent,
-  HighsLike,
-  HighsLoader,
-  HighsModelLike,
-  WorkBudget,
-} from "./exact.ts";
+export { HEURISTIC_DEFAULT_WORK, heuristicPlan } from "./heuristic.ts";
+export type { HeuristicOptions } from "./heuristic.ts";
+export { busShapes, greedyCover, GREEDY_ORDERS } from "./greedyCover.ts";
+export type { GreedyOrder, ShapePool } from "./greedyCover.ts";
+export { defaultHighsLoader, exactPlan } from "./exact.ts";
+export type { ExactOptions, ExactOutcome, ExactStatus, HighsInterruptEvent, HighsLike, HighsLoader, HighsModelLike } from "./exact.ts";
+export { deadlineMarginMs, workBudget } from "./workBudget.ts";
+export type { WorkBudget } from "./workBudget.ts";
+export { WorkMeter } from "./workMeter.ts";
 export { SEARCH_MAX_OUTPUTS, searchApplies, searchPlan } from "./search.ts";
 export type { SearchOptions, SearchOutcome } from "./search.ts";
 export { lpLowerBound, trivialLowerBound } from "./bounds.ts";
@@ -27,7 +24,9 @@ export { candidateFamily, DEFAULT_FAMILY_LIMITS } from "./candidates.ts";
 export type { BusCandidate, CandidateFamily, FamilyLimits } from "./candidates.ts";
 export { buildSharingModel } from "./model.ts";
 export type { SharingModel } from "./model.ts";
-export { directPlan, litCount, planCount, planEdges, problemFromLit, sharingProblem } from "./plan.ts";
+export { contractPlan, expandPlan, reduceRows, unionPlans } from "./reduce.ts";
+export type { Reduction } from "./reduce.ts";
+export { directPlan, litCount, planCost, planCount, planEdges, problemFromLit, sharingProblem } from "./plan.ts";
 export type { PlanBus, PlanLink, SharingPlan, SharingProblem, SharingRules } from "./plan.ts";
 export { busFits, busPays, busStates, levelRules, linkFits, linkPairs, statesLighting, statesToPay } from "./rules.ts";
 export { betterPlan, breakTies, comparePlans } from "./tieBreak.ts";

@@ -7,14 +7,18 @@
  * - `y_i` bus candidate i used (it drives every output of its T), `x_i_k`
  *   state k feeds it;
  * - `q_k` state k feeds its own padding bus, `p_k_o` that bus drives o
- *   (per-segment and uniform only; a single-state bus is never better than
- *   direct diodes under the mixed policy);
+ *   (under the mixed policy only for a row that stands for two or more
+ *   states: a single-state bus is never better than direct diodes);
  * - `l_a_b` link output a -> output b, only where every state lighting a
  *   lights b;
  * - levels: per-segment `v_o_L` (output o sits at level L, exactly one);
  *   mixed `g_o_L` (some path into o has at least L diodes). Under the
  *   uniform policy the model has no direct diodes and no links: it is the
  *   all-bus matrix, which the caller weighs against the all-direct one.
+ *
+ * A row that stands for w identical states (see reduce.ts) costs w for each
+ * direct diode and bus input (`d`, `x`, `q`); bus outputs, padding-bus
+ * outputs and links cost 1.
  *
  * Every lit cell must be covered by a direct diode, a bus, a padding bus or a
  * link; structures never reach an unlit cell by construction, so the matrix
@@ -32,6 +36,8 @@ export interface SharingModel {
   readonly text: string;
   /** Column names in the order `warmStart` and `decode` use. */
   readonly columns: readonly string[];
+  /** Number of constraint rows. */
+  readonly rows: number;
   decode(values: (name: string) => number): SharingPlan;
   /** Column values of a plan, for the warm start; null if the plan uses a shape outside the family. */
   warmStart(plan: SharingPlan): Map<string, number> | null;
@@ -42,7 +48,11 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
   const L = Math.min(3, rules.depthLimit);
   const mixed = rules.policy === "mixed";
   const uniform = rules.policy === "uniform";
-  const pads = !mixed && rules.buses;
+  // Padding buses: under per-segment and uniform for every row; under mixed only for a merged row
+  // (weight 2 or more, see reduce.ts), the one case where a single-row bus can beat direct diodes.
+  const weight = (k: number): number => p.weight[k] ?? 1;
+  const padRow = (k: number): boolean => rules.buses && (!mixed || weight(k) >= 2) && (p.row[k] ?? []).length > 0;
+  const pads = p.row.some((_, k) => padRow(k));
   const buses = rules.buses ? family.buses : [];
   const linkPairs = allowedLinks(p, rules);
 
@@ -68,13 +78,14 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
   };
   const dName = (k: number, o: number): string => `d_${k}_${o}`;
   // Uniform: the model covers everything through buses; the caller compares it with the direct matrix.
-  if (!uniform) for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) cell(k, o).push(bin(dName(k, o), 1));
+  // A row standing for w states pays w for each direct diode and bus input.
+  if (!uniform) for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) cell(k, o).push(bin(dName(k, o), weight(k)));
   buses.forEach((b, i) => {
     const y = bin(`y_${i}`, b.outputs.length);
     const xs: string[] = [];
     for (const k of b.states) {
-      const x = bin(`x_${i}_${k}`, 1);
-      xs.push(x);
+      const x = bin(`x_${i}_${k}`, weight(k));
+      xs.push(weight(k) === 1 ? x : `${weight(k)} ${x}`);
       row([x, `- ${y}`], "<=", 0);
       for (const o of b.outputs) cell(k, o).push(x);
     }
@@ -84,8 +95,8 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
   if (pads) {
     for (let k = 0; k < p.n; k++) {
       const r = p.row[k] ?? [];
-      if (r.length === 0) continue;
-      const q = bin(`q_${k}`, 1);
+      if (!padRow(k)) continue;
+      const q = bin(`q_${k}`, weight(k));
       for (const o of r) {
         const pv = bin(`p_${k}_${o}`, 1);
         row([pv, `- ${q}`], "<=", 0);
@@ -111,6 +122,7 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
     buses.forEach((b, i) => {
       for (const o of b.outputs) row([`y_${i}`, `- ${g(o, 2)}`], "<=", 0);
     });
+    for (let k = 0; k < p.n; k++) if (padRow(k)) for (const o of p.row[k] ?? []) row([`p_${k}_${o}`, `- ${g(o, 2)}`], "<=", 0);
     for (const lk of linkPairs) {
       const ln = `l_${lk.from}_${lk.to}`;
       row([ln, `- ${g(lk.to, 2)}`], "<=", 0);
@@ -128,9 +140,7 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
     buses.forEach((b, i) => {
       for (const o of b.outputs) row([`y_${i}`, `- ${v(o, 2)}`], "<=", 0);
     });
-    if (pads) {
-      for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) row([`p_${k}_${o}`, `- ${v(o, 2)}`], "<=", 0);
-    }
+    for (let k = 0; k < p.n; k++) if (padRow(k)) for (const o of p.row[k] ?? []) row([`p_${k}_${o}`, `- ${v(o, 2)}`], "<=", 0);
     for (const lk of linkPairs) {
       const ln = `l_${lk.from}_${lk.to}`;
       for (let l = 1; l < L; l++) row([ln, `+ ${v(lk.from, l)}`, `- ${v(lk.to, l + 1)}`], "<=", 1);
@@ -153,6 +163,7 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
   return {
     text,
     columns: binaries,
+    rows: rows.length,
     decode(value) {
       const on = (name: string): boolean => value(name) > 0.5;
       const direct: [number, number][] = [];
@@ -165,7 +176,7 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
       });
       if (pads) {
         for (let k = 0; k < p.n; k++) {
-          if ((p.row[k] ?? []).length === 0 || !on(`q_${k}`)) continue;
+          if (!padRow(k) || !on(`q_${k}`)) continue;
           const outs = (p.row[k] ?? []).filter((o) => on(`p_${k}_${o}`));
           if (outs.length > 0) planBuses.push({ states: [k], outputs: outs });
         }
@@ -181,7 +192,7 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
         if (i !== undefined && rules.buses) {
           vals.set(`y_${i}`, 1);
           for (const k of b.states) vals.set(`x_${i}_${k}`, 1);
-        } else if (pads && b.states.length === 1) {
+        } else if (b.states.length === 1 && padRow(b.states[0] as number)) {
           const k = b.states[0] as number;
           vals.set(`q_${k}`, 1);
           for (const o of b.outputs) vals.set(`p_${k}_${o}`, 1);

@@ -27,6 +27,15 @@ export interface SharingProblem {
   readonly row: readonly (readonly number[])[];
   /** `within[a][b]`: every state lighting output a lights output b (a != b). */
   readonly within: readonly (readonly boolean[])[];
+  /**
+   * Per row, the number of states it stands for: 1, or in a reduced problem
+   * (see reduce.ts) the number of identical states merged into it. A direct
+   * diode or a bus input at row k costs `weight[k]` diodes; a bus output or
+   * a link costs 1.
+   */
+  readonly weight: readonly number[];
+  /** Per output, its group (the display position, 0-based); outputs of one group share a digit. */
+  readonly group: readonly number[];
 }
 
 export interface PlanBus {
@@ -56,13 +65,23 @@ export interface SharingRules {
   readonly links: boolean;
 }
 
-/** Builds the index form of a decode spec. */
+/** Builds the index form of a decode spec; outputs are grouped by display position. */
 export function sharingProblem(spec: DecodeSpec): SharingProblem {
-  return problemFromLit(spec.lit);
+  const perPosition = Math.max(1, spec.cell.segments.length);
+  const position = new Map(spec.allOutputs.map((name, i) => [name, Math.floor(i / perPosition)]));
+  return problemFromLit(spec.lit, {
+    group: spec.outputs.map((name) => position.get(name) ?? 0),
+  });
 }
 
-/** Builds the index form of a bare lit matrix (rows = states). */
-export function problemFromLit(lit: readonly (readonly boolean[])[]): SharingProblem {
+/**
+ * Builds the index form of a bare lit matrix (rows = states). By default
+ * every row stands for one state and every output is in group 0.
+ */
+export function problemFromLit(
+  lit: readonly (readonly boolean[])[],
+  extra: { readonly weight?: readonly number[]; readonly group?: readonly number[] } = {},
+): SharingProblem {
   const n = lit.length;
   const m = lit[0]?.length ?? 0;
   const col: number[][] = Array.from({ length: m }, () => []);
@@ -78,19 +97,33 @@ export function problemFromLit(lit: readonly (readonly boolean[])[]): SharingPro
     row.push(r);
   }
   const within = col.map((ca, a) => col.map((_, b) => a !== b && ca.length > 0 && ca.every((k) => lit[k]?.[b] === true)));
-  return { n, m, lit, col, row, within };
+  const weight = extra.weight ?? Array<number>(n).fill(1);
+  const group = extra.group ?? Array<number>(m).fill(0);
+  return { n, m, lit, col, row, within, weight, group };
 }
 
-/** Number of diodes a plan places. */
+/** Number of diodes a plan places (every row standing for one state). */
 export function planCount(plan: SharingPlan): number {
   let c = plan.direct.length + plan.links.length;
   for (const b of plan.buses) c += b.states.length + b.outputs.length;
   return c;
 }
 
-/** Number of lit cells: the direct count. */
+/** Number of diodes a plan of `p` places once its rows are expanded into their states (see `SharingProblem.weight`). */
+export function planCost(p: SharingProblem, plan: SharingPlan): number {
+  const w = p.weight;
+  let c = plan.links.length;
+  for (const [k] of plan.direct) c += w[k] ?? 1;
+  for (const b of plan.buses) {
+    c += b.outputs.length;
+    for (const k of b.states) c += w[k] ?? 1;
+  }
+  return c;
+}
+
+/** Number of lit cells, each row counted for the states it stands for: the direct count. */
 export function litCount(p: SharingProblem): number {
-  return p.row.reduce((a, r) => a + r.length, 0);
+  return p.row.reduce((a, r, k) => a + r.length * (p.weight[k] ?? 1), 0);
 }
 
 /** The direct plan: one diode per lit cell. */

@@ -9,8 +9,11 @@
  * (fixed cost |T|, one diode per state that feeds it) or a link a -> b
  * (fixed cost 1, free for the states lighting a). A state covers the lit
  * outputs it has outside A with items whose outputs it lights, direct diodes
- * (mixed policy) or its padding bus (per-segment and uniform: cost 1 plus one
- * per output), and the outputs in A with direct diodes. That per-state cover
+ * (mixed policy) or its padding bus (cost 1 plus one per output; under
+ * mixed only for a merged row, see below), and the outputs in A with direct
+ * diodes. A row that stands for w identical states (reduce.ts) pays w for
+ * each direct diode and bus input, and w plus one per output for its padding
+ * bus, which all w states feed. That per-state cover
  * is a subset DP over at most 2^m masks.
  *
  * The search fixes items in or out. Its bound charges a fixed-in item's fixed
@@ -44,7 +47,7 @@
  * every matrix.
  */
 import type { CandidateFamily } from "./candidates.ts";
-import { planCount, type PlanBus, type PlanLink, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
+import { planCost, type PlanBus, type PlanLink, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
 import { linkPairs } from "./rules.ts";
 
 /** Most outputs the subset DP handles (2^m masks per state). */
@@ -132,7 +135,9 @@ export function searchPlan(
   const full = (1 << m) - 1;
   const mixed = rules.policy === "mixed";
   const uniform = rules.policy === "uniform";
-  const pads = !mixed && rules.buses;
+  // Padding buses (one row's own bus): under per-segment and uniform for every row; under mixed
+  // only a merged row (weight 2 or more) can gain from one, over direct diodes.
+  const pads = rules.buses;
   const rowMask = p.row.map((r) => r.reduce((a, o) => a | (1 << o), 0));
 
   // The level sets A to search.
@@ -239,6 +244,8 @@ class Context {
   private readonly stampPad: Uint32Array;
   private tick = 0;
   private current = 0;
+  /** Cost of a direct diode for the row being covered (its weight). */
+  private directCost = 1;
 
   constructor(
     private readonly p: SharingProblem,
@@ -357,7 +364,7 @@ class Context {
       if (pick < 0) {
         // Only fixed-in items in use: the bound is a real matrix.
         const plan = this.plan();
-        const count = planCount(plan);
+        const count = planCost(this.p, plan);
         if (count < best()) improve(count, plan);
         return true;
       }
@@ -412,33 +419,40 @@ class Context {
     const list = this.byState[k] as Int32Array;
     const share = this.share[k] as Float64Array;
     const cost = this.cost[k] as Float64Array;
+    const w = this.p.weight[k] ?? 1;
     for (let j = 0; j < list.length; j++) {
       const i = list[j] as number;
       const st = this.state[i];
       const it = this.items[i] as Item;
-      cost[j] = st === IN ? it.per : st === OUT ? Infinity : it.per + (share[j] ?? 0);
+      cost[j] = st === IN ? it.per * w : st === OUT ? Infinity : it.per * w + (share[j] ?? 0);
     }
     const c = this.coverState(k);
     this.value[k] = c.cost;
     this.covers[k] = c.cover;
   }
 
-  /** Minimum cover of state k under the charges in `cost[k]`. */
+  /**
+   * Minimum cover of state k under the charges in `cost[k]`. A row standing
+   * for w states (see reduce.ts) pays w for each direct diode and bus input,
+   * and w plus one per output for its padding bus.
+   */
   private coverState(k: number): { cost: number; cover: StateCover } {
     const lit = this.rowMask[k] ?? 0;
     const direct = lit & this.set;
     const work = lit & ~this.set;
-    const base = popcount(direct);
+    const w = this.p.weight[k] ?? 1;
+    const base = popcount(direct) * w;
     if (work === 0) return { cost: base, cover: { items: [], direct, pad: 0 } };
     this.tick++;
     this.current = k;
+    this.directCost = w;
     const list = this.byState[k] as Int32Array;
     const charge = this.cost[k] as Float64Array;
     const noPad = this.dp(work, false);
     let cost = noPad;
     let usePad = false;
-    if (this.pads) {
-      const withPad = 1 + this.dp(work, true);
+    if (this.pads && (!this.mixed || w >= 2)) {
+      const withPad = w + this.dp(work, true);
       if (withPad < cost) {
         cost = withPad;
         usePad = true;
@@ -457,7 +471,7 @@ class Context {
       const bit = mask & -mask;
       const target = memo[mask] ?? 0;
       const rest = mask & ~bit;
-      if ((this.mixed || usePad) && near(1 + after(rest), target)) {
+      if ((this.mixed || usePad) && near((usePad ? 1 : w) + after(rest), target)) {
         if (usePad) pmask |= bit;
         else dmask |= bit;
         mask = rest;
@@ -492,7 +506,8 @@ class Context {
     const stamp = pad ? this.stampPad : this.stamp;
     if (stamp[mask] === this.tick) return memo[mask] ?? Infinity;
     const bit = mask & -mask;
-    let best = this.mixed || pad ? 1 + this.dp(mask & ~bit, pad) : Infinity;
+    // A padding-bus output costs one diode; a direct one (mixed) one per state the row stands for.
+    let best = this.mixed || pad ? (pad ? 1 : this.directCost) + this.dp(mask & ~bit, pad) : Infinity;
     const list = this.byState[this.current] as Int32Array;
     const charge = this.cost[this.current] as Float64Array;
     this.meter.work += list.length;

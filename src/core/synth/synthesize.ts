@@ -11,8 +11,10 @@ import type { Project, SynthesisOptions } from "../project/project.ts";
 import { LIMITS } from "../project/limits.ts";
 import { fail, ok, type Result } from "../result/result.ts";
 import { synthesizeDirect } from "./direct.ts";
-import { deadlineMarginMs, defaultHighsLoader, exactPlan, workBudget, type HighsLoader } from "./exact.ts";
-import { heuristicPlan } from "./heuristic.ts";
+import { defaultHighsLoader, exactPlan, type HighsLoader } from "./exact.ts";
+import { deadlineMarginMs, workBudget } from "./workBudget.ts";
+import { WorkMeter } from "./workMeter.ts";
+import { HEURISTIC_DEFAULT_WORK, heuristicPlan } from "./heuristic.ts";
 import { litCount, planCount, planEdges, sharingProblem, type SharingPlan, type SharingRules } from "./plan.ts";
 import { verifyMatrix } from "../matrix/verify.ts";
 
@@ -85,22 +87,31 @@ export async function synthesize(
   // enforces the deadline, which the budgets are set to leave well alone.
   const started = Date.now();
   const deadlineMs = started + settings.timeLimitMs - deadlineMarginMs(settings.timeLimitMs);
-  const heuristic = heuristicPlan(p, rules);
-  const fast = verified(spec, matrixOf(spec, heuristic, settings, null, "heuristic", false), settings);
+  const budget = workBudget(settings.timeLimitMs);
+  const meter = new WorkMeter(Math.min(budget.heuristicWork, HEURISTIC_DEFAULT_WORK), deadlineMs);
+  const heuristic = heuristicPlan(p, rules, { meter });
+  const fast = verified(spec, matrixOf(spec, heuristic, settings, null, "heuristic", meter.deadlineHit), settings);
   if (!fast.ok || settings.mode === "fast") return fast;
   hooks.onProgress?.({ stage: "heuristic", count: fast.value.count, lowerBound: null });
 
   const exact = await exactPlan(p, rules, heuristic, {
     timeLimitMs: settings.timeLimitMs,
     deadlineMs,
-    budget: workBudget(settings.timeLimitMs),
+    budget,
     seed: settings.seed,
     loadHighs: hooks.loadHighs ?? defaultHighsLoader,
   });
   const count = planCount(exact.plan);
   const result = verified(
     spec,
-    matrixOf(spec, exact.plan, settings, exact.lowerBound, exact.status === "solver-failed" ? "heuristic" : "exact", exact.deadlineHit),
+    matrixOf(
+      spec,
+      exact.plan,
+      settings,
+      exact.lowerBound,
+      exact.status === "solver-failed" ? "heuristic" : "exact",
+      exact.deadlineHit || meter.deadlineHit,
+    ),
     settings,
   );
   if (result.ok) hooks.onProgress?.({ stage: "exact", count, lowerBound: exact.lowerBound });

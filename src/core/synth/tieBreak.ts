@@ -5,7 +5,7 @@
  * driver must make up for). The heuristic, the search and the exact stage
  * all rank by it, so a plan that wins in one wins in every one.
  */
-import { planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
+import { planCost, planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
 import { busPays } from "./rules.ts";
 
 /** Long paths of a plan: links and bus outputs. */
@@ -15,17 +15,21 @@ function longPaths(plan: SharingPlan): number {
 
 /**
  * Negative when `a` comes first, positive when `b` does, 0 on a full tie.
+ * Diodes are counted as `planCost` counts them when the plans' problem `p`
+ * is given (a reduced problem's rows stand for several states), else one a
+ * row.
  *
  * @example
  * comparePlans(heuristic, exact) > 0; // the exact plan is better
  */
-export function comparePlans(a: SharingPlan, b: SharingPlan): number {
-  return planCount(a) - planCount(b) || a.buses.length - b.buses.length || longPaths(a) - longPaths(b);
+export function comparePlans(a: SharingPlan, b: SharingPlan, p?: SharingProblem): number {
+  const count = (x: SharingPlan): number => (p ? planCost(p, x) : planCount(x));
+  return count(a) - count(b) || a.buses.length - b.buses.length || longPaths(a) - longPaths(b);
 }
 
 /** The better of two plans under `comparePlans`; `a` on a full tie. */
-export function betterPlan(a: SharingPlan, b: SharingPlan): SharingPlan {
-  return comparePlans(b, a) < 0 ? b : a;
+export function betterPlan(a: SharingPlan, b: SharingPlan, p?: SharingProblem): SharingPlan {
+  return comparePlans(b, a, p) < 0 ? b : a;
 }
 
 /**
@@ -38,7 +42,8 @@ export function breakTies(p: SharingProblem, rules: SharingRules, plan: SharingP
   const direct: (readonly [number, number])[] = [...plan.direct];
   const have = new Set(direct.map(([k, o]) => k * p.m + o));
   const buses = plan.buses.filter((b) => {
-    if (busPays(b.states.length, b.outputs.length)) return true;
+    const states = b.states.reduce((a, k) => a + (p.weight[k] ?? 1), 0);
+    if (busPays(states, b.outputs.length)) return true;
     for (const k of b.states) {
       for (const o of b.outputs) {
         if (!have.has(k * p.m + o)) {

@@ -23,3 +23,19 @@ describe("candidateFamily", () => {
     expect(f.buses.map((b) => b.outputs.join(""))).toContain("01");
   });
 });
+
+describe("candidateFamily on the largest project the format allows", () => {
+  it("keeps at most maxBuses shapes and says the family is cut short, without running out of stack", async () => {
+    const { compileSpec } = await import("../../../../src/core/spec/decodeSpec.ts");
+    const { sharingProblem } = await import("../../../../src/core/synth/plan.ts");
+    const { reduceRows } = await import("../../../../src/core/synth/reduce.ts");
+    const { largestCustomProject } = await import("../../../support/largestProject.ts");
+    const p = reduceRows(sharingProblem(compileSpec(largestCustomProject()))).problem;
+    // The overflow path used to collect every shape in one map and spread it into an array.
+    const f = candidateFamily(p, 2);
+    expect(f.complete).toBe(false);
+    expect(f.buses.length).toBeGreaterThan(0);
+    expect(f.buses.length).toBeLessThanOrEqual(1500);
+    for (const b of f.buses.slice(0, 50)) for (const k of b.states) for (const o of b.outputs) expect(p.lit[k]?.[o]).toBe(true);
+  }, 60_000);
+});

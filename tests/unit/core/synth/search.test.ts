@@ -6,7 +6,17 @@ import type { DepthPolicy } from "../../../../src/core/project/project.ts";
 import { candidateFamily } from "../../../../src/core/synth/candidates.ts";
 import { defaultHighsLoader, exactPlan } from "../../../../src/core/synth/exact.ts";
 import { heuristicPlan } from "../../../../src/core/synth/heuristic.ts";
-import { litCount, planCount, planEdges, problemFromLit, sharingProblem, type SharingProblem } from "../../../../src/core/synth/plan.ts";
+import {
+  litCount,
+  planCost,
+  planCount,
+  planEdges,
+  problemFromLit,
+  sharingProblem,
+  type SharingProblem,
+} from "../../../../src/core/synth/plan.ts";
+import { expandPlan, reduceRows } from "../../../../src/core/synth/reduce.ts";
+import { showing } from "../../../support/projects.ts";
 import { searchApplies, searchPlan } from "../../../../src/core/synth/search.ts";
 import { verifyMatrix } from "../../../../src/core/matrix/verify.ts";
 import { benchProject, BENCH_CASES } from "../../../../bench/synthBench.ts";
@@ -161,6 +171,57 @@ describe("searchPlan", () => {
       }),
       { seed: SEED, numRuns: 150 },
     );
+  });
+
+  it(`merging identical states keeps the optimum: random 4 x 5 rows, each repeated 1 to 3 times, every policy (seed ${SEED})`, () => {
+    fc.assert(
+      fc.property(
+        litMatrix(4, 5, 2, 3),
+        fc.array(fc.integer({ min: 1, max: 3 }), { minLength: 4, maxLength: 4 }),
+        fc.constantFrom(...POLICIES),
+        (rows, times, depth) => {
+          const spec = specFromLit(rows.flatMap((r, i) => Array.from({ length: times[i] ?? 1 }, () => r)));
+          const p = problemFromLit(spec.lit);
+          if (litCount(p) === 0) return;
+          const r = reduceRows(p);
+          const rules = rulesFor(depth);
+          const upper = litCount(p) + p.n + 1;
+          const whole = searchPlan(p, rules, familyFor(p, depth), upper, UNLIMITED);
+          const merged = searchPlan(r.problem, rules, familyFor(r.problem, depth), upper, UNLIMITED);
+          expect(whole.proven && merged.proven).toBe(true);
+          if (!whole.plan || !merged.plan) throw new Error("the all-padding-bus bound leaves a plan to find");
+          expect(planCost(r.problem, merged.plan)).toBe(planCount(whole.plan));
+          expect(merged.lowerBound).toBe(whole.lowerBound);
+          // Expanded, the merged plan is a verified matrix of that count.
+          const expanded = expandPlan(r, merged.plan);
+          expect(planCount(expanded)).toBe(planCount(whole.plan));
+          const matrix = buildMatrix(spec, planEdges(spec, expanded), {
+            lowerBound: null,
+            optimal: false,
+            depthLimit: 2,
+            policy: depth,
+            method: "exact",
+          });
+          expect(verifyMatrix(spec, matrix, { depthLimit: 2, policy: depth }).ok).toBe(true);
+        },
+      ),
+      { seed: SEED, numRuns: 100 },
+    );
+  });
+
+  it("256 states showing 0-9 repeated (one position) are proven at once: 305 diodes, per-segment", () => {
+    const show = Array.from({ length: 256 }, (_, k) => String(k % 10));
+    const p = sharingProblem(compileSpec(showing(show)));
+    const r = reduceRows(p);
+    expect(r.problem.n).toBe(10);
+    const rules = rulesFor("per-segment");
+    const warm = heuristicPlan(p, rules);
+    const s = searchPlan(r.problem, rules, familyFor(r.problem, "per-segment"), planCount(warm) + 1, { maxWork: 5e7 });
+    expect(s.proven).toBe(true);
+    const best = s.plan ? planCost(r.problem, s.plan) : planCount(warm);
+    // The outside study's best known matrix has 305 diodes (issue 16, not a published source).
+    expect(best).toBe(305);
+    expect(s.lowerBound).toBe(305);
   });
 
   it("the brute force itself: a 3 x 3 all-lit block under a blank state", () => {

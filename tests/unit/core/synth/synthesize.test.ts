@@ -3,6 +3,8 @@ import { compileSpec, litCellCount } from "../../../../src/core/spec/decodeSpec.
 import { buildMatrix } from "../../../../src/core/matrix/matrix.ts";
 import { synthesize, synthSettings, verified } from "../../../../src/core/synth/synthesize.ts";
 import { example, showing } from "../../../support/projects.ts";
+import { largestCustomProject, largestHexProject } from "../../../support/largestProject.ts";
+import { verifyMatrix } from "../../../../src/core/matrix/verify.ts";
 
 describe("synthesize", () => {
   const project = showing([..."0123456789"]);
@@ -44,4 +46,27 @@ describe("synthesize", () => {
     expect(r.error.message).toMatch(/verifier rejects/);
     if (r.error.kind === "bug") expect(r.error.details.join()).toMatch(/does not light/);
   });
+});
+
+describe("synthesize at the largest size the format allows", () => {
+  // Times are the bench's business; here: it ends, verified, with a bound no higher than its count.
+  for (const [name, make] of [
+    ["256 states, 8 positions of a 32-segment custom cell", () => largestCustomProject()],
+    ["256 states of 8 hex digits", () => largestHexProject()],
+  ] as const) {
+    it(`${name}: a verified matrix and its bound, by default and with --fast`, async () => {
+      const project = make();
+      const spec = compileSpec(project);
+      const exact = await synthesize(spec, synthSettings(project));
+      if (!exact.ok) throw new Error(JSON.stringify(exact.error));
+      expect(verifyMatrix(spec, exact.value, synthSettings(project)).ok).toBe(true);
+      expect(exact.value.lowerBound).not.toBeNull();
+      expect(exact.value.lowerBound ?? Infinity).toBeLessThanOrEqual(exact.value.count);
+      expect(exact.value.count).toBeLessThanOrEqual(litCellCount(spec));
+      const fast = await synthesize(spec, synthSettings(project, { mode: "fast" }));
+      if (!fast.ok) throw new Error(JSON.stringify(fast.error));
+      expect(verifyMatrix(spec, fast.value, synthSettings(project)).ok).toBe(true);
+      expect(exact.value.count).toBeLessThanOrEqual(fast.value.count);
+    }, 120_000);
+  }
 });
