@@ -612,14 +612,16 @@ describe("the web app", () => {
     expect(await p.evaluate(() => document.querySelector('[data-testid="live-busy"]') !== null)).toBe(true);
     await p.locator("#f-title").fill("Departure board");
     await expect.poll(() => p.locator("#f-title").inputValue()).toBe("Departure board");
-    // At the deadline the worker is stopped; the verified direct matrix stays, and the page says why.
-    await expect.poll(() => p.getByTestId("live-note").count(), { timeout: 90_000, interval: 500 }).toBe(1);
-    expect(await p.getByTestId("live-note").textContent()).toMatch(/did not finish within the 20 s limit/);
+    // The heuristic keeps its own work budget at every size, so the worker answers well inside the
+    // 20 s limit with a verified matrix smaller than the direct one (before, it ran past the limit and
+    // the page fell back to the direct matrix with a note).
+    await expect.poll(() => p.getByTestId("live-busy").count(), { timeout: 40_000, interval: 500 }).toBe(0);
+    expect(await p.getByTestId("live-note").count()).toBe(0);
     const r = parseProject(text);
     if (!r.ok) throw new Error("bad fixture");
     const direct = await synthesize(compileSpec(r.value), synthSettings(r.value, { mode: "direct" }));
     if (!direct.ok) throw new Error(direct.error.message);
-    expect(await shownCount(p)).toBe(direct.value.count);
+    expect(await shownCount(p)).toBeLessThan(direct.value.count);
     expect(await p.getByText("✓ verified").count()).toBe(1);
     await big.close();
   });
