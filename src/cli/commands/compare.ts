@@ -19,7 +19,7 @@ export const compareCommand: Command = {
     if (!project) return EXIT.input;
     const settings = settingsFromArgs(project, args, io);
     if (!settings) return EXIT.input;
-    const result = await compareGlyphStyles(project, settings);
+    const result = await compareGlyphStyles(project, { settings });
     if (!result.ok) return reportFailure(result.error, io);
     const rows = result.value;
     if (args.flags.has("json")) {
@@ -39,7 +39,7 @@ export function describeRows(title: string, rows: readonly GlyphStyleRow[], poli
   }
   rows.forEach((r, i) => {
     const chars = Object.keys(r.glyphs);
-    const bound = r.optimal ? "proven minimum" : r.lowerBound !== null ? `lower bound ${r.lowerBound}` : "no bound";
+    const bound = r.optimal ? "proven minimum" : `${r.status}; ${r.lowerBound !== null ? `lower bound ${r.lowerBound}` : "no bound"}`;
     lines.push(`#${i + 1}  ${r.count} diodes (${bound})  ${chars.map((c) => `${c}=${r.glyphs[c]}`).join(" ")}`);
     if (chars.length > 0) {
       const art = chars.map((c) => drawSeg7(r.glyphs[c] ?? ""));

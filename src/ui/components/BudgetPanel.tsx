@@ -11,6 +11,7 @@ import { warningText } from "../../render/budgetWarningText.ts";
 import { formatOhms, microampsShort, milliamps, milliwatts, percent } from "../../render/units.ts";
 import { app } from "../state/appState.ts";
 import { budgetChart, CHART_ROW_H } from "./budgetChart.ts";
+import { spreadWords } from "./trimWords.ts";
 
 const TRIM_LABEL: Readonly<Record<TrimMode, string>> = {
   auto: "where it improves the design",
@@ -72,12 +73,19 @@ export function BudgetPanel() {
         {(b) => (
           <>
             <p class="budget-summary">
-              target <strong>{microampsShort(b().targetCurrentA)} µA</strong> · spread <strong>{percent(b().spreadPct)} %</strong> (
-              {b().trim.applied ? "trimmed" : "project's resistors"}; project's {percent(b().trim.spreadPctBefore)} %, {b().trim.series}{" "}
-              trim {percent(b().trim.spreadPct)} %) · supply max {milliamps(b().supply.maxCurrentA)} mA,{" "}
-              {milliwatts(b().supply.maxPowerW, 0)} mW · corners {microampsShort(b().corners.low.minCurrentA)}–
-              {microampsShort(b().corners.high.maxCurrentA)} µA {b().corners.meetsTarget ? "✓ meet" : "⚠ miss"} the ±{b().corners.windowPct}{" "}
-              % window
+              target <strong>{microampsShort(b().targetCurrentA)} µA</strong> ·{" "}
+              <span data-testid="spread-words">
+                {spreadWords({
+                  spreadPct: b().spreadPct,
+                  applied: b().trim.applied,
+                  spreadPctBefore: b().trim.spreadPctBefore,
+                  trimSpreadPct: b().trim.spreadPct,
+                  series: b().trim.series,
+                })}
+              </span>{" "}
+              · supply max {milliamps(b().supply.maxCurrentA)} mA, {milliwatts(b().supply.maxPowerW, 0)} mW · corners{" "}
+              {microampsShort(b().corners.low.minCurrentA)}–{microampsShort(b().corners.high.maxCurrentA)} µA{" "}
+              {b().corners.meetsTarget ? "✓ meet" : "⚠ miss"} the ±{b().corners.windowPct} % window
             </p>
             <Show when={chart()}>
               {(c) => (

@@ -1,84 +1,119 @@
 /**
  * The Comparison panel: the glyph-style comparison table (core
  * glyphStyles.ts), with a button that adopts a row's glyphs. The heuristic
- * counts come at once; "Exact" runs the optimizer on every row in the worker.
+ * figures come at once; "Exact" runs the optimizer on every row in the
+ * worker, row by row with its progress. Each row shows one figure with its
+ * status, combined with every other run on the same glyph set (figures.ts),
+ * so the row in use always agrees with the result line, and exact results
+ * survive adopting a row.
  */
-import { createEffect, createSignal, For, on, onCleanup, Show } from "solid-js";
-import type { GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
+import { createEffect, createMemo, createSignal, For, on, onCleanup, Show } from "solid-js";
+import { rowKey, type GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
 import { segmentsOfString } from "../../core/glyphs/glyphs.ts";
 import type { Project } from "../../core/project/project.ts";
 import { app } from "../state/appState.ts";
+import { combineFigures, tableCaption, type Figure } from "../state/figures.ts";
 import { CellFigure } from "./CellFigure.tsx";
 import { setGlyph } from "../state/draftEdits.ts";
 import { draftFromProject } from "../state/draft.ts";
 import { analysis } from "../workers/analysisClient.ts";
 import { ExactRunner } from "../workers/exactRun.ts";
 
+interface TableRow {
+  readonly glyphs: Readonly<Record<string, string>>;
+  readonly key: string;
+  /** The heuristic's figure for the row. */
+  readonly figure: Figure;
+}
+
 interface Table {
   readonly project: Project;
-  readonly rows: readonly GlyphStyleRow[];
-  readonly method: "heuristic" | "exact";
+  readonly rows: readonly TableRow[];
+}
+
+/** The exact comparison in progress: which row, and its best and bound so far. */
+interface Running {
+  readonly key: string | null;
+  readonly index: number;
+  readonly total: number;
+  readonly best: number | null;
+  readonly bound: number | null;
+  readonly startedAtMs: number;
 }
 
 export function ComparisonPanel() {
   const [table, setTable] = createSignal<Table | null>(null);
-  const [running, setRunning] = createSignal(false);
+  const [running, setRunning] = createSignal<Running | null>(null);
   const [error, setError] = createSignal<string | null>(null);
+  const [now, setNow] = createSignal(performance.now());
   const runner = new ExactRunner();
   let timer: ReturnType<typeof setTimeout> | undefined;
-  onCleanup(() => runner.cancel());
+  const tick = setInterval(() => running() && setNow(performance.now()), 500);
+  onCleanup(() => (runner.cancel(), clearInterval(tick)));
 
+  // Once the live result is final: the comparison's syntheses would only slow the heuristic still running.
+  const settledProject = createMemo(() => (app.liveBusy() ? undefined : app.live()?.project));
   createEffect(
-    on(
-      // Once the live result is final: the comparison's syntheses would only slow the heuristic still running.
-      () => (app.liveBusy() ? undefined : app.live()?.project),
-      (project) => {
-        clearTimeout(timer);
-        runner.cancel();
-        setRunning(false);
-        if (!project) return;
-        // In the analysis worker, once typing settles: the comparison runs several syntheses.
-        timer = setTimeout(async () => {
-          const r = (await analysis.request<"compare">({ job: "compare", project: draftFromProject(project) })).result;
-          if (app.live()?.project !== project) return;
-          if (r.ok) {
-            setTable({ project, rows: r.value, method: "heuristic" });
-            setError(null);
-          } else setError(r.error.message);
-        }, 250);
-      },
-    ),
+    on(settledProject, (project) => {
+      clearTimeout(timer);
+      runner.cancel();
+      setRunning(null);
+      if (!project) return;
+      // In the analysis worker, once typing settles: the comparison runs several syntheses.
+      timer = setTimeout(async () => {
+        const r = (await analysis.request<"compare">({ job: "compare", project: draftFromProject(project) })).result;
+        if (app.live()?.project !== project) return;
+        if (r.ok) {
+          setTable({ project, rows: r.value.map((row) => tableRow(project, row)) });
+          setError(null);
+        } else setError(r.error.message);
+      }, 250);
+    }),
   );
 
   const runExact = () => {
     const project = app.live()?.project;
     if (!project) return;
-    setRunning(true);
+    setError(null);
+    setRunning({ key: null, index: 0, total: table()?.rows.length ?? 0, best: null, bound: null, startedAtMs: performance.now() });
+    const known = app.provenRows().map(([key, f]): [string, GlyphStyleRow] => [key, { glyphs: {}, ...f, optimal: true }]);
     runner.start(
       draftFromProject(project),
       {
-        progress: () => {},
-        done: () => {},
-        compared: (rows) => {
-          setRunning(false);
-          if (app.live()?.project === project) setTable({ project, rows, method: "exact" });
+        rowStart: (s) =>
+          setRunning({ key: s.key, index: s.index, total: s.total, best: null, bound: null, startedAtMs: performance.now() }),
+        progress: (p) => setRunning((r) => (r ? { ...r, best: p.best ?? r.best, bound: p.bound ?? r.bound } : r)),
+        row: (d) => {
+          if (d.matrix !== undefined)
+            app.remember(d.key, { figure: { count: d.row.count, lowerBound: d.row.lowerBound, status: d.row.status }, matrix: d.matrix });
         },
+        done: () => {},
+        compared: () => setRunning(null),
         failed: (message) => {
-          setRunning(false);
+          setRunning(null);
           setError(message);
         },
       },
-      "compare",
+      { job: "compare", known },
     );
   };
 
   /** The table belongs to the project on screen; otherwise it is stale and cannot be adopted from. */
   const fresh = () => table() !== null && table()?.project === app.live()?.project;
-  const current = (row: GlyphStyleRow) => {
+  const current = (row: TableRow) => {
     const p = app.live()?.project;
     return !!p && Object.entries(row.glyphs).every(([ch, lit]) => (p.glyphs[ch] ?? []).join("") === segmentsOfString(lit).join(""));
   };
-  const adopt = (row: GlyphStyleRow) =>
+  /** A row's one figure: its own, every run's on the same glyph set, and the result line's when it is the row in use. */
+  const figureOf = (row: TableRow): Figure =>
+    combineFigures([row.figure, app.knownFigure(row.key), fresh() && current(row) ? app.headerFigure() : null]) ?? row.figure;
+  const shown = createMemo(() => {
+    const t = table();
+    if (!t) return [];
+    const rows = t.rows.map((row) => ({ row, figure: figureOf(row) }));
+    return rows.sort((a, b) => a.figure.count - b.figure.count || (b.figure.lowerBound ?? -1) - (a.figure.lowerBound ?? -1));
+  });
+  const adopt = (row: TableRow) =>
     app.edit((d) => Object.entries(row.glyphs).reduce((x, [ch, lit]) => setGlyph(x, ch, segmentsOfString(lit)), d));
 
   return (
@@ -86,7 +121,9 @@ export function ComparisonPanel() {
       <div class="panel-head">
         <h2 id="compare-h">Comparison</h2>
         <Show when={table()}>
-          <span class="muted small">{table()?.method} counts</span>
+          <span class="muted small" data-testid="comparison-caption">
+            {tableCaption(shown().map((r) => r.figure.status))}
+          </span>
         </Show>
         <Show when={app.stale() && fresh()}>
           <span class="chip stale">↻ stale: from the last valid project</span>
@@ -97,16 +134,23 @@ export function ComparisonPanel() {
           </span>
         </Show>
         <Show
-          when={!running()}
+          when={running()}
           fallback={
-            <button type="button" class="small-btn" onClick={() => (runner.cancel(), setRunning(false))}>
-              <span class="spinner" aria-hidden="true" /> Cancel exact
+            <button type="button" class="small-btn" onClick={runExact} disabled={!fresh() || table()?.rows.length === 0}>
+              Exact
             </button>
           }
         >
-          <button type="button" class="small-btn" onClick={runExact} disabled={!fresh() || table()?.rows.length === 0}>
-            Exact
-          </button>
+          {(r) => (
+            <>
+              <span class="muted small" data-testid="comparison-progress">
+                <span class="spinner" aria-hidden="true" /> exact: row {r().index + 1} of {r().total}
+              </span>
+              <button type="button" class="small-btn" onClick={() => (runner.cancel(), setRunning(null))}>
+                Cancel exact
+              </button>
+            </>
+          )}
         </Show>
       </div>
       <Show when={error()}>
@@ -123,38 +167,48 @@ export function ComparisonPanel() {
                 <tr>
                   <th>Glyphs</th>
                   <th>Diodes</th>
+                  <th>Status</th>
                   <th>Bound</th>
                   <th />
                 </tr>
               </thead>
               <tbody>
-                <For each={t().rows}>
-                  {(row, i) => (
-                    <tr class={fresh() && current(row) ? "is-current" : ""}>
-                      <td class="glyph-cells">
-                        <For each={Object.entries(row.glyphs)}>
-                          {([ch, lit]) => (
-                            <span class="glyph-pair" title={`${ch} = ${lit}`}>
-                              <CellFigure kind="seg7" segments={[]} lit={segmentsOfString(lit)} height={24} />
-                              <code>{lit}</code>
-                            </span>
-                          )}
-                        </For>
-                      </td>
-                      <td>
-                        <strong>{row.count}</strong>
-                        {i() === 0 ? " ★ best" : ""}
-                      </td>
-                      <td>{row.optimal ? "= min" : (row.lowerBound ?? "–")}</td>
-                      <td>
-                        <Show when={fresh() && !current(row)} fallback={<span class="muted small">{fresh() ? "in use" : "–"}</span>}>
-                          <button type="button" class="small-btn" onClick={() => adopt(row)} data-testid={`adopt-${i()}`}>
-                            Adopt
-                          </button>
-                        </Show>
-                      </td>
-                    </tr>
-                  )}
+                <For each={shown()}>
+                  {(item, i) => {
+                    const working = () => running()?.key === item.row.key;
+                    return (
+                      <tr class={fresh() && current(item.row) ? "is-current" : ""} data-key-index={i()}>
+                        <td class="glyph-cells">
+                          <For each={Object.entries(item.row.glyphs)}>
+                            {([ch, lit]) => (
+                              <span class="glyph-pair" title={`${ch} = ${lit}`}>
+                                <CellFigure kind="seg7" segments={[]} lit={segmentsOfString(lit)} height={24} />
+                                <code>{lit}</code>
+                              </span>
+                            )}
+                          </For>
+                        </td>
+                        <td>
+                          <strong data-testid="row-count">{item.figure.count}</strong>
+                          {i() === 0 ? " ★ best" : ""}
+                        </td>
+                        <td data-testid="row-status" data-status={working() ? "working" : item.figure.status}>
+                          <Show when={working()} fallback={item.figure.status}>
+                            <span class="spinner" aria-hidden="true" /> working: best {running()?.best ?? "–"}, bound{" "}
+                            {running()?.bound ?? "–"}, {Math.max(0, Math.floor((now() - (running()?.startedAtMs ?? now())) / 1000))} s
+                          </Show>
+                        </td>
+                        <td>{item.figure.lowerBound ?? "–"}</td>
+                        <td>
+                          <Show when={fresh() && !current(item.row)} fallback={<span class="muted small">{fresh() ? "in use" : "–"}</span>}>
+                            <button type="button" class="small-btn" onClick={() => adopt(item.row)} data-testid={`adopt-${i()}`}>
+                              Adopt
+                            </button>
+                          </Show>
+                        </td>
+                      </tr>
+                    );
+                  }}
                 </For>
               </tbody>
             </table>
@@ -163,4 +217,13 @@ export function ComparisonPanel() {
       </Show>
     </section>
   );
+}
+
+/** A row of the heuristic comparison with its glyph-set key. */
+function tableRow(project: Project, row: GlyphStyleRow): TableRow {
+  return {
+    glyphs: row.glyphs,
+    key: rowKey(project, row.glyphs),
+    figure: { count: row.count, lowerBound: row.lowerBound, status: row.status },
+  };
 }

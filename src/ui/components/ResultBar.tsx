@@ -5,6 +5,7 @@
 import { createSignal, Match, onCleanup, Show, Switch } from "solid-js";
 import { app } from "../state/appState.ts";
 import { gapPercent } from "../workers/exactProtocol.ts";
+import { doneText } from "../state/exactStatus.ts";
 
 const METHOD_NAMES = { direct: "direct", heuristic: "heuristic", exact: "exact" } as const;
 
@@ -17,11 +18,13 @@ export function ResultBar() {
   onCleanup(() => clearInterval(tick));
   const limitS = () => Math.round(app.draft().synthesis.timeLimitMs / 1000);
   const m = () => app.live()?.matrix;
+  // The shown matrix with the best bound any run found for its glyph set (figures.ts), so the line
+  // and the comparison's row in use always agree.
   const bound = () => {
-    const x = m();
-    if (!x) return "";
-    if (x.optimal) return "proven minimum";
-    return x.lowerBound !== null ? `bound ${x.lowerBound}, gap ${x.count - x.lowerBound}` : "no bound yet";
+    const f = app.headerFigure();
+    if (!f) return "";
+    if (f.status === "proven") return "proven minimum";
+    return f.lowerBound !== null ? `bound ${f.lowerBound}, gap ${f.count - f.lowerBound}` : "no bound yet";
   };
   return (
     <div class="result-bar" role="status" aria-live="polite">
@@ -87,15 +90,7 @@ export function ResultBar() {
             }}
           </Match>
           <Match when={app.exact().status === "done" && app.exact()}>
-            {(s) => {
-              const x = () => s() as Extract<ReturnType<typeof app.exact>, { status: "done" }>;
-              return (
-                <>
-                  exact: {x().optimal ? "minimum proven" : "finished"}
-                  {x().improved ? ", improved" : ""}
-                </>
-              );
-            }}
+            {(s) => <>{doneText(s() as Extract<ReturnType<typeof app.exact>, { status: "done" }>)}</>}
           </Match>
           <Match when={app.exact().status === "cancelled"}>
             exact: cancelled{" "}

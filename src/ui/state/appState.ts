@@ -28,19 +28,16 @@ import { keepCurrentProject, readRecent, type RecentProject } from "./recentProj
 import { decodeShareHash, isShareHash } from "./shareLink.ts";
 import type { WorkerFailure } from "../workers/analysisProtocol.ts";
 import { LiveRunner } from "../workers/liveRun.ts";
-import type { ExactProgress } from "../workers/exactProtocol.ts";
 import { ExactRunner } from "../workers/exactRun.ts";
 import { analysis } from "../workers/analysisClient.ts";
 import { acceptMatrix, withMatrix, type LiveResult } from "../workers/liveResult.ts";
 import { canRedo, canUndo, record, redo, seal, startHistory, undo, type UndoHistory } from "./undoHistory.ts";
+import { rowKey } from "../../core/compare/glyphStyles.ts";
+import type { ExactState } from "./exactStatus.ts";
+import { matrixFigure, shownFigure, type Figure } from "./figures.ts";
+import { KnownResults, type KnownResult } from "./knownResults.ts";
 
-export type ExactState =
-  | { readonly status: "idle" }
-  | { readonly status: "off" }
-  | { readonly status: "running"; readonly progress: ExactProgress; readonly startedAtMs: number }
-  | { readonly status: "done"; readonly improved: boolean; readonly optimal: boolean }
-  | { readonly status: "cancelled" }
-  | { readonly status: "failed"; readonly message: string };
+export type { ExactState } from "./exactStatus.ts";
 
 export interface Notice {
   readonly level: "info" | "warn" | "danger";
@@ -104,6 +101,25 @@ function createAppState() {
   /** The drawing of the shown result, laid out once (in a worker) for the screen, the print view and the exports. */
   const [drawing, setDrawing] = createSignal<MatrixDrawing | null>(null);
   let budgetTimer: ReturnType<typeof setTimeout> | undefined;
+  /** Results already worked out, by glyph set; `knownVersion` counts their changes for the screen. */
+  const known = new KnownResults();
+  const [knownVersion, setKnownVersion] = createSignal(0);
+  function remember(key: string, result: KnownResult): void {
+    if (known.remember(key, result)) setKnownVersion((n) => n + 1);
+  }
+  /** The glyph-set key of the shown result's project. */
+  const liveKey = createMemo(() => {
+    const r = live();
+    return r ? rowKey(r.project) : null;
+  });
+  /** The figure of the shown matrix, with the best bound any run found for its glyph set. */
+  const headerFigure = createMemo<Figure | null>(() => {
+    knownVersion();
+    const r = live();
+    const key = liveKey();
+    if (!r || key === null) return null;
+    return shownFigure(matrixFigure(r.matrix), known.get(key)?.figure);
+  });
 
   /**
    * Shows a result with its drawing and, when it is final (not the direct
@@ -204,7 +220,7 @@ function createAppState() {
           });
           if (final && checked.ok && mine === pass) {
             liveRunMs = performance.now() - startedAt;
-            scheduleExact(d, project);
+            if (!showKnown(d, project)) scheduleExact(d, project);
           }
         },
         failed: (message) => settle(true, () => setLiveError(message)),
@@ -305,21 +321,49 @@ function createAppState() {
             });
             return;
           }
-          void adoptIfBetter(d, current, checked.value);
+          remember(rowKey(current.project), { figure: matrixFigure(checked.value), matrix: checked.value });
+          void adoptIfBetter(d, current, checked.value, false);
         },
         failed: (message) => setExact({ status: "failed", message }),
       },
-      "matrix",
-      deadlineMs,
+      { job: "matrix", deadlineMs },
     );
+  }
+
+  /**
+   * After the live result: when an earlier run (the project's exact run, a
+   * comparison row) worked out this glyph set better, shows its matrix at
+   * once (an exact run still follows when it is not proven). Returns false
+   * when nothing better is known.
+   */
+  function showKnown(d: Draft, project: Project): boolean {
+    const current = live();
+    const key = liveKey();
+    if (!current || key === null) return false;
+    const entry = known.get(key);
+    if (!entry || entry.figure.status === "heuristic" || entry.figure.count > current.matrix.count) return false;
+    const checked = acceptMatrix(current.spec, current.settings, entry.matrix);
+    if (!checked.ok || checked.value.method !== "exact") return false;
+    void adoptIfBetter(d, current, checked.value, true).then(() => {
+      if (!checked.value.optimal && draft() === d) scheduleExact(d, project);
+    });
+    return true;
   }
 
   /**
    * Shows the exact matrix when it is no worse than the heuristic one (and so
    * carries the bound), together with its drawing once a worker has laid it out.
    */
-  async function adoptIfBetter(d: Draft, current: LiveResult, m: VerifiedMatrix): Promise<void> {
-    const done: ExactState = { status: "done", improved: m.count < current.matrix.count, optimal: m.optimal };
+  async function adoptIfBetter(d: Draft, current: LiveResult, m: VerifiedMatrix, reused: boolean): Promise<void> {
+    const done: ExactState = {
+      status: "done",
+      improved: m.count < current.matrix.count,
+      optimal: m.optimal,
+      deadlineHit: m.deadlineHit,
+      count: m.count,
+      lowerBound: m.lowerBound,
+      reused,
+    };
     if (m.count > current.matrix.count) return void setExact(done);
     const r = withMatrix(current.project, current.spec, current.settings, m);
     const p = paper();
@@ -451,6 +495,20 @@ function createAppState() {
     validation,
     problems,
     live,
+    /** The shown matrix's figure with the best bound known for its glyph set. */
+    headerFigure,
+    /** The best figure known for a glyph set (a `rowKey`), from any run; reactive. */
+    knownFigure: (key: string): Figure | undefined => {
+      knownVersion();
+      return known.get(key)?.figure;
+    },
+    /** Glyph sets already proven, for an exact comparison to skip. */
+    provenRows: () => {
+      knownVersion();
+      return known.proven();
+    },
+    /** Keeps what a run found for a glyph set (a comparison row, for one). */
+    remember,
     drawing,
     budget,
     budgetStale: () => budget() !== null && (budget()?.forResult !== live() || budget()?.trim !== trimMode()),

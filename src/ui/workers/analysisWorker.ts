@@ -27,7 +27,7 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
   }
   const project = parsed.value;
   if (req.job === "compare") {
-    return post({ id: req.id, job: "compare", result: await compareGlyphStyles(project, { mode: "fast" }) });
+    return post({ id: req.id, job: "compare", result: await compareGlyphStyles(project, { settings: { mode: "fast" } }) });
   }
   const spec = compileSpec(project);
   const checked = verifyMatrix(spec, req.matrix as DiodeMatrix, synthSettings(project));

@@ -6,7 +6,7 @@
  * exact optimizer and answers with progress and one final message.
  */
 
-import type { GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
+import type { GlyphStyleRow, RowStart } from "../../core/compare/glyphStyles.ts";
 
 export interface ExactRequest {
   readonly id: number;
@@ -14,6 +14,17 @@ export interface ExactRequest {
   readonly job: "matrix" | "compare";
   /** The project as plain JSON (a draft); the worker validates it itself. */
   readonly project: unknown;
+  /** For `compare`: rows already worked out, by row key; proven ones are not worked out again. */
+  readonly known?: readonly (readonly [string, GlyphStyleRow])[];
+}
+
+/** A comparison row as it finishes (see `RowDone` in core/compare), its matrix as plain data for the page to verify. */
+export interface RowReply {
+  readonly index: number;
+  readonly total: number;
+  readonly key: string;
+  readonly row: GlyphStyleRow;
+  readonly matrix: unknown;
 }
 
 export interface ExactProgress {
@@ -26,6 +37,8 @@ export interface ExactProgress {
 export type ExactReply =
   | { readonly id: number; readonly type: "progress"; readonly progress: ExactProgress }
   | { readonly id: number; readonly type: "done"; readonly matrix: unknown }
+  | { readonly id: number; readonly type: "row-start"; readonly start: RowStart }
+  | { readonly id: number; readonly type: "row"; readonly done: RowReply }
   | { readonly id: number; readonly type: "compared"; readonly rows: readonly GlyphStyleRow[] }
   | { readonly id: number; readonly type: "failed"; readonly message: string };
 

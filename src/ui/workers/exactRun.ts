@@ -6,14 +6,27 @@
  * other way), so a stale answer can never arrive. A run given a deadline is
  * ended the same way when it passes it, and reported as failed.
  */
-import type { GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
-import type { ExactProgress, ExactReply, ExactRequest } from "./exactProtocol.ts";
+import type { GlyphStyleRow, RowStart } from "../../core/compare/glyphStyles.ts";
+import type { ExactProgress, ExactReply, ExactRequest, RowReply } from "./exactProtocol.ts";
 
 export interface ExactCallbacks {
   progress(p: ExactProgress): void;
   done(matrix: unknown): void;
+  /** A comparison row starts. */
+  rowStart?(start: RowStart): void;
+  /** A comparison row finished. */
+  row?(done: RowReply): void;
   compared?(rows: readonly GlyphStyleRow[]): void;
   failed(message: string): void;
+}
+
+export interface ExactRunOptions {
+  /** `matrix` (the default) or `compare`. */
+  readonly job?: ExactRequest["job"];
+  /** When given, the run is stopped and reported as failed after this long, milliseconds. */
+  readonly deadlineMs?: number;
+  /** For `compare`: rows already worked out, by row key. */
+  readonly known?: ExactRequest["known"];
 }
 
 export class ExactRunner {
@@ -24,9 +37,10 @@ export class ExactRunner {
   /**
    * Starts a run for a project draft; any run in progress is cancelled.
    *
-   * @param deadlineMs when given, the run is stopped and reported as failed after this long
+   * @example runner.start(draft, { progress, done, failed }, { job: "matrix", deadlineMs: 30_000 });
    */
-  start(project: unknown, callbacks: ExactCallbacks, job: ExactRequest["job"] = "matrix", deadlineMs?: number): void {
+  start(project: unknown, callbacks: ExactCallbacks, options: ExactRunOptions = {}): void {
+    const { job = "matrix", deadlineMs, known } = options;
     this.cancel();
     const id = ++this.runId;
     const worker = new Worker(new URL("./exactWorker.ts", import.meta.url), { type: "module" });
@@ -42,6 +56,8 @@ export class ExactRunner {
       const reply = e.data;
       if (reply.id !== id || this.worker !== worker) return;
       if (reply.type === "progress") callbacks.progress(reply.progress);
+      else if (reply.type === "row-start") callbacks.rowStart?.(reply.start);
+      else if (reply.type === "row") callbacks.row?.(reply.done);
       else {
         this.finish(worker);
         if (reply.type === "done") callbacks.done(reply.matrix);
@@ -55,7 +71,7 @@ export class ExactRunner {
       this.finish(worker);
       callbacks.failed(`the optimizer worker failed: ${e.message || "unknown error"}`);
     };
-    const request: ExactRequest = { id, job, project };
+    const request: ExactRequest = known ? { id, job, project, known } : { id, job, project };
     worker.postMessage(request);
   }
 

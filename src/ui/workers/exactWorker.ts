@@ -25,7 +25,7 @@ function post(reply: ExactReply): void {
 }
 
 scope.onmessage = async (event: MessageEvent<ExactRequest>) => {
-  const { id, project: data, job } = event.data;
+  const { id, project: data, job, known } = event.data;
   const started = performance.now();
   const elapsedS = () => (performance.now() - started) / 1000;
   const parsed = validateProject(data);
@@ -36,7 +36,13 @@ scope.onmessage = async (event: MessageEvent<ExactRequest>) => {
   };
   try {
     if (job === "compare") {
-      const r = await compareGlyphStyles(parsed.value, { mode: "exact" }, { loadHighs });
+      const r = await compareGlyphStyles(parsed.value, {
+        settings: { mode: "exact" },
+        hooks,
+        known: new Map(known ?? []),
+        onRowStart: (start) => post({ id, type: "row-start", start }),
+        onRow: (d) => post({ id, type: "row", done: { index: d.index, total: d.total, key: d.key, row: d.row, matrix: d.matrix } }),
+      });
       if (!r.ok) return post({ id, type: "failed", message: r.error.message });
       return post({ id, type: "compared", rows: r.value });
     }

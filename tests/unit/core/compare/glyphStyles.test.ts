@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { compareGlyphStyles, variantChoices } from "../../../../src/core/compare/glyphStyles.ts";
+import { compareGlyphStyles, rowKey, variantChoices, withGlyphs } from "../../../../src/core/compare/glyphStyles.ts";
 import { parseProject } from "../../../../src/core/project/projectSchema.ts";
 
 function project(show: string[], extra: object = {}) {
@@ -18,7 +18,7 @@ describe("glyphStyles", () => {
     expect(c[0]?.options).toEqual(["abcfg", "abc", "abcf"]);
   });
   it("sorts combinations by count, best first", async () => {
-    const r = await compareGlyphStyles(project(["6", "7", "9", "0"]), { mode: "fast" });
+    const r = await compareGlyphStyles(project(["6", "7", "9", "0"]), { settings: { mode: "fast" } });
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.value).toHaveLength(8);
@@ -56,4 +56,64 @@ describe("glyphStyles against single runs", () => {
     expect(own && [own.count, own.optimal]).toEqual([single.value.count, single.value.optimal]);
     expect(single.value.optimal).toBe(true);
   }, 120_000);
+});
+
+describe("glyphStyles: row status, row by row, and rows already known", () => {
+  it("marks heuristic rows 'heuristic' unless proven, and exact rows 'proven' or 'best found'", async () => {
+    const p = project(["6", "7", "9", "0"]);
+    const fast = await compareGlyphStyles(p, { settings: { mode: "fast" } });
+    if (!fast.ok) throw new Error(JSON.stringify(fast.error));
+    for (const r of fast.value) expect(r.status).toBe(r.optimal ? "proven" : "heuristic");
+    const exact = await compareGlyphStyles(p);
+    if (!exact.ok) throw new Error(JSON.stringify(exact.error));
+    for (const r of exact.value) expect(r.status).toBe(r.optimal ? "proven" : "best found");
+    expect(exact.value.some((r) => r.status === "proven")).toBe(true);
+  }, 60_000);
+
+  it("reports each row as it starts and finishes, with the verified matrix of the row", async () => {
+    const p = project(["6", "7", "1"]);
+    const starts: number[] = [];
+    const done: { index: number; total: number; count: number; matrixCount: number | undefined }[] = [];
+    const r = await compareGlyphStyles(p, {
+      settings: { mode: "fast" },
+      onRowStart: (s) => starts.push(s.index),
+      onRow: (d) => done.push({ index: d.index, total: d.total, count: d.row.count, matrixCount: d.matrix?.count }),
+    });
+    if (!r.ok) throw new Error(JSON.stringify(r.error));
+    expect(starts).toEqual([0, 1, 2, 3]);
+    expect(done.map((d) => [d.index, d.total])).toEqual([
+      [0, 4],
+      [1, 4],
+      [2, 4],
+      [3, 4],
+    ]);
+    for (const d of done) expect(d.matrixCount).toBe(d.count);
+  });
+
+  it("takes a proven row it is given as it is, without synthesizing it again", async () => {
+    const p = project(["6", "7", "1"]);
+    const key = rowKey(p, { "6": "cdefg", "7": "abc" });
+    const given = { glyphs: {}, count: 3, lowerBound: 3, optimal: true, status: "proven" as const };
+    const starts: string[] = [];
+    const r = await compareGlyphStyles(p, {
+      settings: { mode: "fast" },
+      known: new Map([[key, given]]),
+      onRowStart: (s) => starts.push(s.key),
+    });
+    if (!r.ok) throw new Error(JSON.stringify(r.error));
+    expect(starts).toHaveLength(3);
+    expect(starts).not.toContain(key);
+    const row = r.value.find((x) => x.glyphs["6"] === "cdefg" && x.glyphs["7"] === "abc");
+    expect(row).toMatchObject({ count: 3, status: "proven" });
+  });
+
+  it("gives a row and the project with that row's glyphs adopted the same key", () => {
+    const p = project(["6", "7", "9", "0"]);
+    const combo = { "6": "cdefg", "7": "abcf", "9": "abcfg" };
+    expect(rowKey(p, combo)).toBe(rowKey(withGlyphs(p, combo)));
+    expect(rowKey(p, combo)).not.toBe(rowKey(p));
+    // The rules a matrix must keep are part of the key: another depth limit is another problem.
+    const deeper = project(["6", "7", "9", "0"], { synthesis: { maxDepth: 3 } });
+    expect(rowKey(deeper)).not.toBe(rowKey(p));
+  });
 });

@@ -1,0 +1,3 @@
+/** Glyph-style comparison: the exports of the stage. */
+export { COMPARE_SCHEMA, compareGlyphStyles, figureStatus, rowKey, variantChoices, withGlyphs } from "./glyphStyles.ts";
+export type { CompareOptions, FigureStatus, GlyphStyleRow, RowDone, RowStart } from "./glyphStyles.ts";
