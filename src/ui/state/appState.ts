@@ -364,7 +364,8 @@ function createAppState() {
       lowerBound: m.lowerBound,
       reused,
     };
-    if (m.count > current.matrix.count) return void setExact(done);
+    // The shown matrix stays when it is smaller; the line then gives its count with the exact run's bound.
+    if (m.count > current.matrix.count) return void setExact({ ...done, count: current.matrix.count });
     const r = withMatrix(current.project, current.spec, current.settings, m);
     const p = paper();
     const reply = await analysis.request<"layout">({ job: "layout", project: draftFromProject(r.project), matrix: r.matrix, paper: p });
