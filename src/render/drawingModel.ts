@@ -108,14 +108,22 @@ export interface Dot {
   readonly net: string;
 }
 
-export type PaperName = "a4" | "letter";
+/** Paper sizes: ISO 216 A4 and A3 (for big matrices), and US Letter. */
+export type PaperName = "a4" | "a3" | "letter";
+
+/** Every paper, in the order the command line and the app list them. */
+export const PAPER_NAMES: readonly PaperName[] = ["a4", "a3", "letter"];
+
+export type Orientation = "landscape" | "portrait";
 
 export interface Sheet {
   /** 1-based sheet number. */
   readonly number: number;
   readonly count: number;
   readonly paper: PaperName;
-  /** Paper width, millimetres (landscape for the matrix). */
+  /** Every sheet of a drawing has the same orientation, chosen for the fewest sheets. */
+  readonly orientation: Orientation;
+  /** Paper width, millimetres, as the sheet is read. */
   readonly widthMm: number;
   readonly heightMm: number;
   readonly segments: readonly Segment[];

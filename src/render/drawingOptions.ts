@@ -4,7 +4,7 @@
  * always gives the same drawing; nothing here reads the clock.
  */
 import type { Project } from "../core/project/project.ts";
-import type { PaperName } from "./drawingModel.ts";
+import { PAPER_NAMES, type PaperName } from "./drawingModel.ts";
 
 export interface DrawingOptions {
   readonly paper: PaperName;
@@ -45,4 +45,46 @@ export function defaultDrawingNumber(project: Project): string {
     h = Math.imul(h, 0x01000193) >>> 0;
   }
   return `DL-${h.toString(16).toUpperCase().padStart(8, "0")}`;
+}
+
+/** True for a paper name the drawing knows (`a4`, `a3`, `letter`). */
+export function isPaper(name: string): name is PaperName {
+  return (PAPER_NAMES as readonly string[]).includes(name);
+}
+
+/** Longest free text accepted for a title-block field (drawing number, revision, drawn by). */
+export const TITLE_FIELD_MAX = 40;
+
+/**
+ * What is wrong with a title-block text, or undefined when it fits: at most
+ * `TITLE_FIELD_MAX` printable characters. The command line and the app check
+ * with the same rule.
+ *
+ * @example
+ * titleTextProblem("Rev B\n"); // "must be at most 40 printable characters"
+ */
+export function titleTextProblem(text: string): string | undefined {
+  if ([...text].length > TITLE_FIELD_MAX || /[\u0000-\u001f\u007f]/.test(text)) {
+    return `must be at most ${TITLE_FIELD_MAX} printable characters`;
+  }
+  return undefined;
+}
+
+/**
+ * What is wrong with a date of issue, or undefined for a real calendar date
+ * written YYYY-MM-DD (ISO 8601, proleptic Gregorian calendar).
+ *
+ * @example
+ * dateProblem("2026-02-31"); // "2026-02 has no day 31; give a real date, like 2026-03-01"
+ */
+export function dateProblem(text: string): string | undefined {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
+  if (!m) return "must be a date written YYYY-MM-DD, like 2026-03-01";
+  const [year, month, day] = [Number(m[1]), Number(m[2]), Number(m[3])];
+  if (month < 1 || month > 12) return `there is no month ${m[2]}; give a real date, like 2026-03-01`;
+  // Day 0 of the next month is the last day of this one; setUTCFullYear keeps years below 100 as written.
+  const last = new Date(0);
+  last.setUTCFullYear(year, month, 0);
+  if (day < 1 || day > last.getUTCDate()) return `${m[1]}-${m[2]} has no day ${m[3]}; give a real date, like 2026-03-01`;
+  return undefined;
 }

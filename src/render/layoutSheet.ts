@@ -15,6 +15,7 @@ import {
   type DiodeSymbol,
   type Dot,
   type Label,
+  type Orientation,
   type Point,
   type Polygon,
   type Rect,
@@ -25,16 +26,9 @@ import type { DrawingOptions } from "./drawingOptions.ts";
 import { glyphKey } from "./glyphKey.ts";
 import { diodeSymbol, X, Y, type Grid, type GridColumn, type GridRow } from "./layoutGrid.ts";
 import { GAP, type Metrics } from "./layoutMetrics.ts";
+import type { Edge } from "./continuation.ts";
 import { bottomBand, headerHeight, rowLabelWidth, type Chunk, type Plan } from "./pagination.ts";
 import { notesBlock, sheetFrame, titleBlock, TITLE_BLOCK_MM, zoneOf } from "./sheetFrame.ts";
-
-/** The sheets a cut wire continues on, by the edge it is cut at; undefined where the drawing ends. */
-export interface Neighbours {
-  readonly left: number | undefined;
-  readonly right: number | undefined;
-  readonly up: number | undefined;
-  readonly down: number | undefined;
-}
 
 /** What one sheet shows and where it sits among the others. */
 export interface SheetJob {
@@ -46,7 +40,9 @@ export interface SheetJob {
   /** This sheet's number, 1-based, and how many sheets the drawing has. */
   readonly number: number;
   readonly count: number;
-  readonly neighbours: Neighbours;
+  /** The sheets a net cut at an edge of this sheet continues on; empty where it ends. */
+  readonly continues: (net: string, edge: Edge) => readonly number[];
+  readonly orientation: Orientation;
   readonly options: DrawingOptions;
   /** The project's title, for the title block. */
   readonly title: string;
@@ -67,12 +63,16 @@ export interface SheetLayout {
  * Lays out one sheet of the drawing.
  *
  * @example
- * const { sheet, zones } = layoutSheet({ grid, plan, rows, cols, number: 1, count: 1, neighbours, options, title, cell, diodeCount, notes });
+ * const { sheet, zones } = layoutSheet({ grid, plan, orientation: "landscape", rows, cols, number: 1, count: 1, continues: () => [], options, title, cell, diodeCount, notes });
  */
 export function layoutSheet(job: SheetJob): SheetLayout {
-  const { grid, plan: p, rows, cols, number, count, neighbours, options, notes } = job;
+  const { grid, plan: p, rows, cols, number, count, continues, options, notes } = job;
   const m = grid.m;
-  const frame = sheetFrame(options.paper, "landscape");
+  const frame = sheetFrame(options.paper, job.orientation);
+  const marks = (net: string, edge: Edge): string | null => {
+    const to = continues(net, edge);
+    return to.length > 0 ? `sh.${to.join(",")}` : null;
+  };
   const segments: Segment[] = [...frame.segments];
   const rects: Rect[] = [...frame.rects];
   const labels: Label[] = [...frame.labels];
@@ -113,28 +113,19 @@ export function layoutSheet(job: SheetJob): SheetLayout {
       if (x1 <= x0 + eps) continue;
       segments.push({ a: at({ x: x0, y }), b: at({ x: x1, y }), width: STROKE.wire, net: w.net });
       const py = y + dy;
-      if (w.a.x < win.left - eps && neighbours.left !== undefined) {
+      const left = w.a.x < win.left - eps ? marks(w.net, "left") : null;
+      const right = w.b.x > win.right + eps ? marks(w.net, "right") : null;
+      if (left !== null) {
         polygons.push(arrow({ x: paperWin.left, y: py }, "right", true, m));
         labels.push(
-          label(
-            `sh.${neighbours.left}`,
-            { x: paperWin.left - m.arrow - 0.6 * m.scale, y: py + 0.36 * m.contSize },
-            m.contSize,
-            "continuation",
-            { anchor: "end" },
-          ),
+          label(left, { x: paperWin.left - m.arrow - 0.6 * m.scale, y: py + 0.36 * m.contSize }, m.contSize, "continuation", {
+            anchor: "end",
+          }),
         );
       }
-      if (w.b.x > win.right + eps && neighbours.right !== undefined) {
+      if (right !== null) {
         polygons.push(arrow({ x: paperWin.right, y: py }, "right", false, m));
-        labels.push(
-          label(
-            `sh.${neighbours.right}`,
-            { x: paperWin.right + m.arrow + 0.6 * m.scale, y: py + 0.36 * m.contSize },
-            m.contSize,
-            "continuation",
-          ),
-        );
+        labels.push(label(right, { x: paperWin.right + m.arrow + 0.6 * m.scale, y: py + 0.36 * m.contSize }, m.contSize, "continuation"));
       }
     } else {
       const x = w.a.x;
@@ -144,18 +135,20 @@ export function layoutSheet(job: SheetJob): SheetLayout {
       if (y1 <= y0 + eps) continue;
       segments.push({ a: at({ x, y: y0 }), b: at({ x, y: y1 }), width: STROKE.wire, net: w.net });
       const pxx = x + dx;
-      if (w.a.y < win.top - eps && neighbours.up !== undefined) {
+      const up = w.a.y < win.top - eps ? marks(w.net, "up") : null;
+      const down = w.b.y > win.bottom + eps ? marks(w.net, "down") : null;
+      if (up !== null) {
         polygons.push(arrow({ x: pxx, y: paperWin.top }, "down", true, m));
         labels.push(
-          label(`sh.${neighbours.up}`, { x: pxx, y: paperWin.top - m.arrow - 0.8 * m.scale }, m.contSize, "continuation", {
+          label(up, { x: pxx, y: paperWin.top - m.arrow - 0.8 * m.scale }, m.contSize, "continuation", {
             anchor: "middle",
           }),
         );
       }
-      if (w.b.y > win.bottom + eps && neighbours.down !== undefined) {
+      if (down !== null) {
         polygons.push(arrow({ x: pxx, y: paperWin.bottom }, "down", false, m));
         labels.push(
-          label(`sh.${neighbours.down}`, { x: pxx, y: paperWin.bottom + m.arrow + 2.0 * m.scale }, m.contSize, "continuation", {
+          label(down, { x: pxx, y: paperWin.bottom + m.arrow + 2.0 * m.scale }, m.contSize, "continuation", {
             anchor: "middle",
           }),
         );
@@ -274,6 +267,7 @@ export function layoutSheet(job: SheetJob): SheetLayout {
     number,
     count,
     paper: options.paper,
+    orientation: job.orientation,
     widthMm: frame.widthMm,
     heightMm: frame.heightMm,
     segments,

@@ -1,8 +1,8 @@
 /**
  * Pagination: a matrix too big for one sheet is cut into blocks of rows and
- * columns, as few sheets as the paper allows, with the notes and title
- * block beside the matrix (side) or under it (bottom), whichever needs
- * fewer sheets.
+ * columns, as few as the paper allows, with the notes and title block
+ * beside the matrix (side) or under it (bottom); only the blocks with
+ * something on them become sheets.
  */
 import type { Box } from "./drawingModel.ts";
 import { textWidth } from "./drawingModel.ts";
@@ -51,7 +51,11 @@ export function bottomBand(notes: readonly string[], content: Box): number {
   return Math.max(TITLE_BLOCK_MM.h, notesHeight(notes, content.w - TITLE_BLOCK_MM.w - GAP));
 }
 
-export function plan(grid: Grid, frame: SheetFrame, notes: readonly string[]): Plan {
+/**
+ * The two ways to place the notes and title block (beside the matrix, then
+ * under it), each with its cut into blocks of rows and columns.
+ */
+export function plans(grid: Grid, frame: SheetFrame, notes: readonly string[]): Plan[] {
   const m = grid.m;
   const c = frame.content;
   const regions: Record<Plan["arrangement"], Box> = {
@@ -64,7 +68,7 @@ export function plan(grid: Grid, frame: SheetFrame, notes: readonly string[]): P
     cols: Math.floor((region.w - rowLabelWidth(grid) - (hStrips ? 2 * m.stripW : 0)) / grid.pitchX),
     rows: Math.floor((region.h - headerHeight(grid) - m.terminalH - (vStrips ? 2 * m.stripH : 0)) / m.pitchY),
   });
-  const plans = (["side", "bottom"] as const).map((arrangement): Plan => {
+  return (["side", "bottom"] as const).map((arrangement): Plan => {
     const region = regions[arrangement];
     const first = fit(region, false, false);
     const hStrips = C > first.cols;
@@ -73,7 +77,43 @@ export function plan(grid: Grid, frame: SheetFrame, notes: readonly string[]): P
     if (f.cols < 1 || f.rows < 1) return { arrangement, region, rowChunks: [], colChunks: [], hStrips, vStrips, fits: false };
     return { arrangement, region, rowChunks: chunks(R, f.rows), colChunks: chunks(C, f.cols), hStrips, vStrips, fits: true };
   });
-  const sheets = (p: Plan): number => (p.fits ? p.rowChunks.length * p.colChunks.length : Infinity);
-  const [side, bottom] = plans as [Plan, Plan];
-  return sheets(bottom) < sheets(side) ? bottom : side;
+}
+
+/** A block of the grid that gets a sheet: its place among the blocks and its rows and columns. */
+export interface Block {
+  /** Index of its row chunk and its column chunk. */
+  readonly ri: number;
+  readonly ci: number;
+  readonly rows: Chunk;
+  readonly cols: Chunk;
+}
+
+/**
+ * The blocks worth a sheet, in reading order: those holding a diode, and
+ * those at the foot of an output column, which show its driver. A block
+ * with neither (counter lines crossing columns they do not feed, a bus's
+ * corner) would be a sheet of bare lines, so it gets none; when no block
+ * holds anything (a matrix without diodes), the first one is kept.
+ */
+export function drawnBlocks(grid: Grid, p: Plan): Block[] {
+  const m = grid.m;
+  const used = new Set<string>();
+  const chunkOf = (chunks: readonly Chunk[], i: number): number => chunks.findIndex((c) => i >= c.first && i <= c.last);
+  for (const d of grid.diodes) {
+    const r = Math.round(d.crossing.y / m.pitchY);
+    const c = Math.round(d.crossing.x / grid.pitchX);
+    used.add(`${chunkOf(p.rowChunks, r)},${chunkOf(p.colChunks, c)}`);
+  }
+  const lastRow = p.rowChunks.length - 1;
+  grid.columns.forEach((col, c) => {
+    if (col.kind === "output" && col.foot) used.add(`${lastRow},${chunkOf(p.colChunks, c)}`);
+  });
+  const blocks: Block[] = [];
+  p.rowChunks.forEach((rows, ri) =>
+    p.colChunks.forEach((cols, ci) => {
+      if (used.has(`${ri},${ci}`)) blocks.push({ ri, ci, rows, cols });
+    }),
+  );
+  const first = { ri: 0, ci: 0, rows: p.rowChunks[0], cols: p.colChunks[0] };
+  return blocks.length > 0 || !first.rows || !first.cols ? blocks : [{ ...first, rows: first.rows, cols: first.cols }];
 }

@@ -2,7 +2,8 @@
  * The parts every drawing sheet shares: the paper, the 10 mm frame, the
  * zone grid in the border, the ISO 7200 title block and the notes box.
  *
- * Sheet sizes: A4 210 x 297 mm (ISO 216), Letter 8.5 x 11 in; the frame
+ * Sheet sizes: A4 210 x 297 mm and A3 297 x 420 mm (ISO 216), Letter
+ * 8.5 x 11 in; the frame
  * sits 10 mm in from the paper edge.
  */
 import {
@@ -13,6 +14,7 @@ import {
   wrapText,
   type Box,
   type Label,
+  type Orientation,
   type PaperName,
   type Point,
   type Rect,
@@ -22,6 +24,7 @@ import {
 /** Paper size, millimetres, portrait. */
 export const PAPER_MM: Readonly<Record<PaperName, { readonly w: number; readonly h: number }>> = {
   a4: { w: 210, h: 297 },
+  a3: { w: 297, h: 420 },
   letter: { w: 215.9, h: 279.4 },
 };
 
@@ -72,7 +75,7 @@ export interface SheetFrame {
  *
  * @param orientation landscape for the matrix, portrait for tables
  */
-export function sheetFrame(paper: PaperName, orientation: "landscape" | "portrait"): SheetFrame {
+export function sheetFrame(paper: PaperName, orientation: Orientation): SheetFrame {
   const p = PAPER_MM[paper];
   const widthMm = orientation === "landscape" ? p.h : p.w;
   const heightMm = orientation === "landscape" ? p.w : p.h;

@@ -1,5 +1,5 @@
 /**
- * The printable wiring list: an HTML page sized for A4 or Letter, with the
+ * The printable wiring list: an HTML page sized for A4, A3 or Letter, with the
  * column heads repeated on every printed page, an empty box to tick per
  * diode, and the inspection checklist at the end. Pure text, no DOM.
  */
@@ -8,7 +8,7 @@ import type { Project } from "../core/project/project.ts";
 import { INSPECTION_CHECKLIST, WIRING_HEADER, type WiringRow } from "../core/papers/wiringList.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
 
-const PAGE_SIZE = { a4: "A4", letter: "letter" } as const;
+const PAGE_SIZE = { a4: "A4", a3: "A3", letter: "letter" } as const;
 
 /** Escapes text for HTML element content and attribute values. */
 function esc(text: string): string {

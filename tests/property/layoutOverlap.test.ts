@@ -33,7 +33,7 @@ const scenario = fc.record({
   doc: projectDoc,
   longNames: fc.boolean(),
   longTitle: fc.boolean(),
-  paper: fc.constantFrom("a4" as const, "letter" as const),
+  paper: fc.constantFrom("a4" as const, "a3" as const, "letter" as const),
   buses: fc.integer({ min: 0, max: 4 }),
   links: fc.integer({ min: 0, max: 3 }),
   shape: fc.integer({ min: 0, max: 2 ** 31 - 1 }),

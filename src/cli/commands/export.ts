@@ -13,7 +13,8 @@
  */
 import { solveBudget } from "../../core/budget/budget.ts";
 import { designNote } from "../../core/budget/emitterDesign.ts";
-import { drawingOptions, type DrawingOptions } from "../../render/drawingOptions.ts";
+import { dateProblem, drawingOptions, isPaper, titleTextProblem, type DrawingOptions } from "../../render/drawingOptions.ts";
+import { PAPER_NAMES } from "../../render/drawingModel.ts";
 import { layoutMatrix } from "../../render/layout.ts";
 import { registerNodeWindow } from "../../render/nodeWindow.ts";
 import { allPaperFiles, paperDesign } from "../../render/papers.ts";
@@ -25,7 +26,7 @@ import { EXIT, type CliIo } from "../io.ts";
 import type { OwnNames } from "../outputFolder.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `export FILE --out DIR [--paper a4|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+const USAGE = `export FILE --out DIR [--paper a4|a3|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
 /**
  * The names an export writes. A folder holding only these (an earlier
@@ -36,9 +37,6 @@ export const EXPORT_NAMES: OwnNames = {
   folders: [/^spice$/],
 };
 
-/** Longest free text accepted for a title-block field. */
-const MAX_FIELD = 40;
-
 export const exportCommand: Command = {
   name: "export",
   usage: USAGE,
@@ -48,7 +46,7 @@ export const exportCommand: Command = {
       meta: "DIR",
       help: "folder to write: a new one (created), an empty one, or an earlier export's (replaced whole)",
     },
-    paper: { value: true, meta: "SIZE", help: "a4 (default) or letter" },
+    paper: { value: true, meta: "SIZE", help: "a4 (default), a3 for big matrices, or letter" },
     date: { value: true, meta: "DATE", help: "date of issue for the title block, YYYY-MM-DD (default: left blank)" },
     "drawing-number": { value: true, meta: "TEXT", help: "drawing number (default: DL- and a hash of the project)" },
     revision: { value: true, meta: "TEXT", help: "revision (default A)" },
@@ -107,7 +105,7 @@ function drawingArgs(args: ParsedArgs, io: CliIo): Partial<DrawingOptions> | und
   const given: { -readonly [K in keyof DrawingOptions]?: DrawingOptions[K] } = {};
   const paper = args.values.get("paper");
   if (paper !== undefined) {
-    if (paper !== "a4" && paper !== "letter") return void io.err(`--paper: got ${quoteText(paper)}; must be a4 or letter\n`);
+    if (!isPaper(paper)) return void io.err(`--paper: got ${quoteText(paper)}; must be ${PAPER_NAMES.join(", ")}\n`);
     given.paper = paper;
   }
   const date = args.values.get("date");
@@ -124,29 +122,9 @@ function drawingArgs(args: ParsedArgs, io: CliIo): Partial<DrawingOptions> | und
   for (const [option, field] of text) {
     const v = args.values.get(option);
     if (v === undefined) continue;
-    if ([...v].length > MAX_FIELD || /[\u0000-\u001f\u007f]/.test(v)) {
-      return void io.err(`--${option}: got ${quoteText(v)}; must be at most ${MAX_FIELD} printable characters\n`);
-    }
+    const problem = titleTextProblem(v);
+    if (problem !== undefined) return void io.err(`--${option}: got ${quoteText(v)}; ${problem}\n`);
     given[field] = v;
   }
   return given;
-}
-
-/**
- * What is wrong with a date of issue, or undefined for a real calendar date
- * written YYYY-MM-DD (ISO 8601, proleptic Gregorian calendar).
- *
- * @example
- * dateProblem("2026-02-31"); // "2026-02 has no day 31; give a real date, like 2026-03-01"
- */
-export function dateProblem(text: string): string | undefined {
-  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text);
-  if (!m) return "must be a date written YYYY-MM-DD, like 2026-03-01";
-  const [year, month, day] = [Number(m[1]), Number(m[2]), Number(m[3])];
-  if (month < 1 || month > 12) return `there is no month ${m[2]}; give a real date, like 2026-03-01`;
-  // Day 0 of the next month is the last day of this one; setUTCFullYear keeps years below 100 as written.
-  const last = new Date(0);
-  last.setUTCFullYear(year, month, 0);
-  if (day < 1 || day > last.getUTCDate()) return `${m[1]}-${m[2]} has no day ${m[3]}; give a real date, like 2026-03-01`;
-  return undefined;
 }

@@ -12,6 +12,10 @@ import { ProjectPanel } from "./ProjectPanel.tsx";
 import { ResultBar } from "./ResultBar.tsx";
 import { Toolbar } from "./Toolbar.tsx";
 import type { ExportKind } from "../files/exportFiles.ts";
+import type { PaperName } from "../../render/drawingModel.ts";
+
+/** CSS page-size names of the papers. */
+const PAGE_SIZE: Readonly<Record<PaperName, string>> = { a4: "A4", a3: "A3", letter: "letter" };
 
 const EXPORTS: readonly { kind: ExportKind; label: string }[] = [
   { kind: "svg", label: "SVG sheets" },
@@ -32,7 +36,9 @@ export function App() {
       style.id = "page-size";
       document.head.append(style);
     }
-    style.textContent = `@page { size: ${app.paper() === "a4" ? "A4" : "letter"} landscape; margin: 0; }`;
+    // The sheets' own orientation: the layout picks the one that needs the fewest sheets.
+    const orientation = app.drawing()?.sheets[0]?.orientation ?? "landscape";
+    style.textContent = `@page { size: ${PAGE_SIZE[app.paper()]} ${orientation}; margin: 0; }`;
   });
   return (
     <div class="app" data-ready={app.ready() ? "yes" : "no"}>

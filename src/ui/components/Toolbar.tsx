@@ -11,9 +11,11 @@ import { downloadText, fileStem } from "../files/download.ts";
 import { exportFiles, type ExportKind } from "../files/exportFiles.ts";
 import { encodeShareHash } from "../state/shareLink.ts";
 
-import type { PaperName } from "../../render/drawingModel.ts";
+import { PAPER_NAMES, type PaperName } from "../../render/drawingModel.ts";
 
 type Paper = PaperName;
+
+const PAPER_LABELS: Readonly<Record<Paper, string>> = { a4: "A4", a3: "A3 (big matrices)", letter: "Letter" };
 
 export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; exportKinds: readonly { kind: ExportKind; label: string }[] }) {
   let fileInput: HTMLInputElement | undefined;
@@ -152,8 +154,7 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
           Paper
         </label>
         <select id="f-paper" value={props.paper} onChange={(e) => props.onPaper(e.currentTarget.value as Paper)}>
-          <option value="a4">A4</option>
-          <option value="letter">Letter</option>
+          <For each={PAPER_NAMES}>{(p) => <option value={p}>{PAPER_LABELS[p]}</option>}</For>
         </select>
         <button type="button" onClick={() => window.print()} data-testid="print">
           Print

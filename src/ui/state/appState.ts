@@ -16,6 +16,7 @@ import type { PaperName } from "../../render/drawingModel.ts";
 import type { MatrixDrawing } from "../../render/layout.ts";
 import type { Project } from "../../core/project/project.ts";
 import { compileSpec } from "../../core/spec/decodeSpec.ts";
+import { isPaper } from "../../render/drawingOptions.ts";
 import { synthSettings } from "../../core/synth/synthesize.ts";
 import { parseProject, validateProject } from "../../core/project/projectSchema.ts";
 import { parseProjectBytes } from "../../core/project/projectBytes.ts";
@@ -586,7 +587,8 @@ function forgetShareHash(): void {
 
 function readPaper(store: KeyValueStore): PaperName {
   try {
-    return store.getItem(PAPER_KEY) === "letter" ? "letter" : "a4";
+    const stored = store.getItem(PAPER_KEY) ?? "";
+    return isPaper(stored) ? stored : "a4";
   } catch {
     return "a4";
   }

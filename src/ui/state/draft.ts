@@ -7,7 +7,8 @@
  * last valid project keeps its (stale) results on screen meanwhile.
  */
 import type { CellKind, ElectricalModel, Project, SynthesisFields } from "../../core/project/project.ts";
-import { synthesisFields } from "../../core/project/projectWriter.ts";
+import { serializeProject, synthesisFields } from "../../core/project/projectWriter.ts";
+import { validateProject } from "../../core/project/projectSchema.ts";
 import { PROJECT_SCHEMA } from "../../core/project/project.ts";
 
 export interface Draft {
@@ -41,14 +42,13 @@ export function draftFromProject(p: Project): Draft {
 }
 
 /**
- * The draft as project JSON text. Seven-segment glyphs are written as
- * lit-segment strings (`"cdefg"`, `.` for the decimal point), the way people
- * write them by hand; custom cells keep their name lists.
+ * The draft as project JSON text, in the one form every file diodeloom
+ * writes takes (the Save button, the Project JSON export, `diodeloom
+ * export`'s project.json): a draft that validates is written by
+ * `serializeProject`, byte for byte; one that does not (a project being
+ * fixed) is written as it stands, glyphs as arrays of segment names as well.
  */
 export function draftToJson(d: Draft): string {
-  const glyphs: Record<string, string | readonly string[]> = {};
-  for (const [ch, segs] of Object.entries(d.glyphs)) {
-    glyphs[ch] = d.display.cell === "custom" ? segs : segs.map((s) => (s === "dp" ? "." : s)).join("");
-  }
-  return JSON.stringify({ ...d, glyphs }, null, 2) + "\n";
+  const v = validateProject(d);
+  return v.ok ? serializeProject(v.value) : JSON.stringify(d, null, 2) + "\n";
 }

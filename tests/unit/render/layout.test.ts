@@ -118,7 +118,7 @@ describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
   it("keeps everything inside the 10 mm frame", () => {
     const p = PAPER_MM[paper ?? "a4"];
     for (const sheet of sheets) {
-      expect([sheet.widthMm, sheet.heightMm]).toEqual([p.h, p.w]);
+      expect([sheet.widthMm, sheet.heightMm]).toEqual(sheet.orientation === "landscape" ? [p.h, p.w] : [p.w, p.h]);
       const inside = (x: number, y: number): boolean =>
         x >= FRAME_MM - 1e-9 && y >= FRAME_MM - 1e-9 && x <= sheet.widthMm - FRAME_MM + 1e-9 && y <= sheet.heightMm - FRAME_MM + 1e-9;
       for (const s of sheet.segments) expect(inside(s.a.x, s.a.y) && inside(s.b.x, s.b.y)).toBe(true);
@@ -141,6 +141,84 @@ describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
   });
 });
 
+/** The sheet numbers a continuation mark names: `sh.4` or `sh.4,7`. */
+function sheetsOfMark(text: string): number[] {
+  const m = /^sh\.(\d+(?:,\d+)*)$/.exec(text);
+  if (!m) throw new Error(`not a continuation mark: ${text}`);
+  return (m[1] ?? "").split(",").map(Number);
+}
+
+/** The nets of the wires that end at a sheet's continuation marks, with the sheets each mark names. */
+function marksWithNets(sheet: Sheet): { net: string; to: number[] }[] {
+  const wires = sheet.segments.filter((w) => w.net !== undefined);
+  return sheet.polygons.map((arrow, i) => {
+    const mark = sheet.labels.filter((l) => l.role === "continuation")[i]!;
+    // The arrow's tip touches its wire's cut end, on the wire's line.
+    const tip = arrow.points[1]!;
+    const wire = wires.find((w) => (w.a.y === w.b.y ? Math.abs(w.a.y - tip.y) < 1e-6 : Math.abs(w.a.x - tip.x) < 1e-6) && near(w, tip));
+    return { net: wire?.net ?? "?", to: sheetsOfMark(mark.text) };
+  });
+}
+
+function near(w: { a: { x: number; y: number }; b: { x: number; y: number } }, p: { x: number; y: number }): boolean {
+  const d = Math.min(Math.hypot(w.a.x - p.x, w.a.y - p.y), Math.hypot(w.b.x - p.x, w.b.y - p.y));
+  return d < 3;
+}
+
+describe("sheets that are never empty (lap timer 00-59, heuristic matrix with 14 buses)", async () => {
+  const { synthesize, synthSettings } = await import("../../../src/core/synth/synthesize.ts");
+  const texts = Array.from({ length: 60 }, (_, k) => String(k).padStart(2, "0"));
+  const project = makeProject({ title: "Lap timer", counter: { states: 60 }, display: { positions: 2 }, show: texts });
+  const spec = compileSpec(project);
+  const r = await synthesize(spec, synthSettings(project, { mode: "fast" }));
+  if (!r.ok) throw new Error(r.error.message);
+  const matrix = r.value;
+  const drawings = Object.fromEntries(
+    (["a4", "a3", "letter"] as const).map((paper) => [paper, layoutMatrix(project, spec, matrix, drawingOptions(project, { paper }))]),
+  );
+
+  it.each(["a4", "a3", "letter"] as const)("gives every %s sheet a diode or a driver, never only bare lines and headings", (paper) => {
+    // Before, A4 took 9 sheets here, two of them with counter lines and bus headings and no diode.
+    for (const sheet of drawings[paper]!.sheets) {
+      const drivers = sheet.labels.filter((l) => l.role === "terminal");
+      expect(sheet.diodes.length + drivers.length, `sheet ${sheet.number} of ${sheet.count} on ${paper}`).toBeGreaterThan(0);
+    }
+  });
+
+  it("takes fewer sheets on A3 than on A4", () => {
+    expect(drawings["a3"]!.sheets.length).toBeLessThan(drawings["a4"]!.sheets.length);
+  });
+
+  it.each(["a4", "a3", "letter"] as const)("marks every cut line on %s with a sheet where the same net shows again", (paper) => {
+    const sheets = drawings[paper]!.sheets;
+    for (const sheet of sheets) {
+      for (const { net, to } of marksWithNets(sheet)) {
+        expect(net).not.toBe("?");
+        for (const k of to) {
+          const there = sheets[k - 1]!;
+          expect(
+            there.segments.some((w) => w.net === net),
+            `${net} on sheet ${sheet.number} is marked sh.${k}, which does not show it`,
+          ).toBe(true);
+        }
+      }
+    }
+  });
+
+  it("draws every diode and every driver once over the sheets, in either orientation", () => {
+    for (const paper of ["a4", "a3", "letter"] as const) {
+      const sheets = drawings[paper]!.sheets;
+      expect(sheets.flatMap((s) => s.diodes.map((d) => d.ref)).sort()).toEqual(matrix.diodes.map((d) => d.ref).sort());
+      const feet = sheets.flatMap((s) => s.labels.filter((l) => l.role === "terminal").map((l) => l.text));
+      expect(feet.sort()).toEqual(matrix.outputs.map((_, i) => `Q${i + 1}`).sort());
+      for (const s of sheets) {
+        expect(stubProblems(s)).toEqual([]);
+        expect(textProblems(s)).toEqual([]);
+      }
+    }
+  });
+});
+
 describe("layout details", () => {
   it("continues a big matrix over several sheets with marks that name the other sheet", () => {
     const { project, spec, matrix } = bigProject();
@@ -150,10 +228,11 @@ describe("layout details", () => {
       const marks = s.labels.filter((l) => l.role === "continuation");
       expect(marks.length).toBeGreaterThan(0);
       for (const m of marks) {
-        const k = Number(/^sh\.(\d+)$/.exec(m.text)?.[1]);
-        expect(k).toBeGreaterThanOrEqual(1);
-        expect(k).toBeLessThanOrEqual(sheets.length);
-        expect(k).not.toBe(s.number);
+        for (const k of sheetsOfMark(m.text)) {
+          expect(k).toBeGreaterThanOrEqual(1);
+          expect(k).toBeLessThanOrEqual(sheets.length);
+          expect(k).not.toBe(s.number);
+        }
       }
       expect(s.polygons.length).toBe(marks.length);
     }

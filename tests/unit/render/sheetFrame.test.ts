@@ -8,6 +8,7 @@ function asSheet(labels: Sheet["labels"], widthMm = 297, heightMm = 210): Sheet 
     number: 1,
     count: 1,
     paper: "a4",
+    orientation: "landscape",
     widthMm,
     heightMm,
     segments: [],

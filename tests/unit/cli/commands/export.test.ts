@@ -1,4 +1,4 @@
-import { mkdtemp, readFile, readdir, rm } from "node:fs/promises";
+import { mkdtemp, readFile, readdir, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
@@ -115,9 +115,29 @@ describe("diodeloom export", () => {
     expect(await readFile(join(dir, "wiring.html"), "utf8")).toContain("size: letter portrait");
   });
 
+  it("writes A3 sheets with --paper a3, fewer of them than on A4, none without a diode (00-59)", async () => {
+    const texts = Array.from({ length: 60 }, (_, k) => String(k).padStart(2, "0"));
+    const project = { schema: "diodeloom/project@1", title: "Lap timer", counter: { states: 60 }, display: { positions: 2 }, show: texts };
+    const work = await mkdtemp(join(tmpdir(), "diodeloom-export-"));
+    dirs.push(work);
+    const file = join(work, "lap.json");
+    await writeFile(file, JSON.stringify(project));
+    const sheets: Record<string, string[]> = {};
+    for (const paper of ["a4", "a3"]) {
+      const dir = join(work, paper);
+      expect(await main(["export", file, "--out", dir, "--fast", "--paper", paper], recordingIo().io)).toBe(0);
+      const names = (await readdir(dir)).filter((f) => f.endsWith(".svg")).sort();
+      sheets[paper] = await Promise.all(names.map((n) => readFile(join(dir, n), "utf8")));
+    }
+    // ISO 216 A3 is 297 x 420 mm (docs/sources.md), in either orientation.
+    expect(sheets["a3"]![0]).toMatch(/width="(420mm" height="297|297mm" height="420)mm"/);
+    expect(sheets["a3"]!.length).toBeLessThan(sheets["a4"]!.length);
+    for (const svg of [...sheets["a4"]!, ...sheets["a3"]!]) expect(svg).toMatch(/data-ref="D\d+"/);
+  });
+
   it.each([
     [["--fast"], "--out"],
-    [["--out", "/nonexistent-never", "--paper", "a5"], '--paper: got "a5"; must be a4 or letter\n'],
+    [["--out", "/nonexistent-never", "--paper", "a5"], '--paper: got "a5"; must be a4, a3, letter\n'],
     [["--out", "/nonexistent-never", "--date", "tomorrow"], '--date: got "tomorrow"; must be a date written YYYY-MM-DD, like 2026-03-01\n'],
     [
       ["--out", "/nonexistent-never", "--date", "2026-02-31"],
