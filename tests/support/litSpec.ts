@@ -12,8 +12,11 @@ export function specFromLit(lit: readonly (readonly boolean[])[]): DecodeSpec {
   const names = Array.from({ length: m }, (_, j) => `1o${j}`);
   const count = (j: number): number => lit.filter((r) => r[j]).length;
   const keep = names.map((_, j) => j).filter((j) => count(j) > 0 && count(j) < n);
+  const states = lit.map((_, k) => `S${k}`);
   return {
-    states: lit.map((_, k) => `S${k}`),
+    states,
+    counter: { kind: "one-hot", stages: 0, codes: [] },
+    lines: states,
     texts: lit.map((_, k) => `t${k}`),
     allOutputs: names,
     outputs: keep.map((j) => names[j] as string),

@@ -5,7 +5,9 @@ export { PROJECT_SCHEMA } from "./project.ts";
 export type {
   Cell,
   CellKind,
+  CounterCodeKind,
   CounterOutputModel,
+  CounterSection,
   DepthPolicy,
   DiodeModel,
   DriverModel,
@@ -18,6 +20,8 @@ export type {
   ToleranceModel,
 } from "./project.ts";
 export { LIMITS, fileSizeProblem } from "./limits.ts";
+export { COUNTER_CODES, CounterSectionSchema, checkCounter } from "./counterSchema.ts";
+export type { LooseCounter } from "./counterSchema.ts";
 export type { WholeRange } from "./limits.ts";
 export { ELECTRICAL_DEFAULTS, ELECTRICAL_RANGES } from "./electricalSchema.ts";
 export type { RangeRule } from "./electricalSchema.ts";

@@ -21,6 +21,12 @@ export const LIMITS = {
   nesting: 32,
   /** Counter states N. */
   states: { min: 2, max: 256 } as WholeRange,
+  /**
+   * Stages of a `custom` counter code (the length of each code string). A
+   * Johnson counter has N/2 stages and a binary one ceil(log2 N), so the
+   * state limit bounds those.
+   */
+  codeStages: { min: 1, max: 16 } as WholeRange,
   /** Display positions D. */
   positions: { min: 1, max: 8 } as WholeRange,
   /** Most diodes on any path (`synthesis.maxDepth`, in code `depthLimit`). */

@@ -9,6 +9,28 @@ export const PROJECT_SCHEMA = "diodeloom/project@1";
 
 export type DepthPolicy = "mixed" | "per-segment" | "uniform";
 
+/**
+ * How the counter holds its state:
+ * - `one-hot`: a ring counter, one line per state (`S<k>`), exactly one high;
+ * - `johnson`: a twisted-ring counter of N/2 stages;
+ * - `binary`: natural binary, state k has code k, ceil(log2 N) stages (N = 10 is BCD);
+ * - `custom`: the codes listed in `counter.codes`.
+ * A coded counter offers every stage's output `Q<i>` and its complement `nQ<i>`.
+ */
+export type CounterCodeKind = "one-hot" | "johnson" | "binary" | "custom";
+
+/** The counter section. */
+export interface CounterSection {
+  readonly states: number;
+  readonly drive: "source";
+  readonly code: CounterCodeKind;
+  /**
+   * For a `custom` code, one bit string per state, the highest stage leftmost
+   * (as a binary number is written); empty for the other codes.
+   */
+  readonly codes: readonly string[];
+}
+
 export type CellKind = "seg7" | "seg7dp" | "custom";
 
 export interface Cell {
@@ -125,7 +147,7 @@ export interface ElectricalModel {
 export interface Project {
   readonly schema: typeof PROJECT_SCHEMA;
   readonly title: string;
-  readonly counter: { readonly states: number; readonly drive: "source" };
+  readonly counter: CounterSection;
   readonly display: { readonly positions: number; readonly cell: Cell };
   /**
    * Every character the project may show, mapped to its lit segments: the

@@ -11,6 +11,7 @@ import type { Cell, ElectricalModel, Project, SynthesisFields } from "./project.
 import { PROJECT_SCHEMA } from "./project.ts";
 import { fail, ok, type Problem, type Result } from "../result/result.ts";
 import { checkElectrical, ElectricalSectionSchema } from "./electricalSchema.ts";
+import { checkCounter, CounterSectionSchema } from "./counterSchema.ts";
 import { choiceField, gotMessage, issuePath, mapField, numberField, objectField, textField } from "./fieldRules.ts";
 import { readJson } from "./jsonText.ts";
 import { fileSizeProblem, LIMITS } from "./limits.ts";
@@ -37,13 +38,7 @@ const ProjectSchema = objectField(
   {
     schema: v.literal(PROJECT_SCHEMA, gotMessage(`must be "${PROJECT_SCHEMA}"`)),
     title: v.optional(textField(LIMITS.titleChars), "Untitled"),
-    counter: objectField(
-      {
-        states: numberField({ ...STATES, integer: true }),
-        drive: v.optional(v.literal("source", gotMessage('must be "source" (the active line is high)')), "source"),
-      },
-      { states: `add "states": N, the number of counter states, a whole number from ${STATES.min} to ${STATES.max}` },
-    ),
+    counter: CounterSectionSchema,
     display: objectField({
       positions: v.optional(numberField({ ...POSITIONS, integer: true }), 1),
       cell: v.optional(choiceField(["seg7", "seg7dp", "custom"] as const), "seg7"),
@@ -179,14 +174,15 @@ function complete(p: LooseProject): Result<Project> {
     }
   });
 
+  const counter = checkCounter(p.counter, problems);
   const e = p.electrical as ElectricalModel;
   checkElectrical(e, cell, p.display.positions, problems);
-  if (problems.length > 0) return fail(problems.slice(0, MAX_PROBLEMS));
+  if (problems.length > 0 || counter === undefined) return fail(problems.slice(0, MAX_PROBLEMS));
 
   const project: Project = {
     schema: PROJECT_SCHEMA,
     title: p.title,
-    counter: { states: n, drive: "source" },
+    counter,
     display: { positions: p.display.positions, cell },
     glyphs,
     glyphOverrides,

@@ -24,7 +24,12 @@ export function serializeProject(project: Project): string {
   const doc = {
     schema: project.schema,
     title: project.title,
-    counter: { states: project.counter.states, drive: project.counter.drive },
+    counter: {
+      states: project.counter.states,
+      drive: project.counter.drive,
+      code: project.counter.code,
+      ...(project.counter.code === "custom" ? { codes: [...project.counter.codes] } : {}),
+    },
     display: {
       positions: project.display.positions,
       cell: cell.kind,

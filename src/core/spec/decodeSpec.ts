@@ -8,9 +8,18 @@
  */
 import type { Cell, Project } from "../project/project.ts";
 import { splitText } from "../project/projectSchema.ts";
+import { counterCode, stageLines, type CounterCode } from "./counterCode.ts";
 
 export interface DecodeSpec {
   readonly states: readonly string[];
+  /** How the counter holds its state; its code table for a coded counter. */
+  readonly counter: CounterCode;
+  /**
+   * The counter's lines that can drive the decoder: the state lines `S<k>`
+   * of a one-hot counter, or every stage output and its complement
+   * (`Q0`, `nQ0`, `Q1`, ...) of a coded one.
+   */
+  readonly lines: readonly string[];
   /** The text each state shows, as written in the project. */
   readonly texts: readonly string[];
   /** Every output of the display, position by position in segment order. */
@@ -59,8 +68,12 @@ export function compileSpec(project: Project): DecodeSpec {
     const c = count.get(o) ?? 0;
     return c > 0 && c < n;
   });
+  const states = project.show.map((_, k) => stateName(k));
+  const counter = counterCode(project.counter);
   return {
-    states: project.show.map((_, k) => stateName(k)),
+    states,
+    counter,
+    lines: counter.kind === "one-hot" ? states : stageLines(counter.stages),
     texts: [...project.show],
     allOutputs,
     outputs,

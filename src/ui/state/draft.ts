@@ -6,7 +6,7 @@
  * path-naming problems. A draft may be invalid while someone is typing; the
  * last valid project keeps its (stale) results on screen meanwhile.
  */
-import type { CellKind, ElectricalModel, Project, SynthesisFields } from "../../core/project/project.ts";
+import type { CellKind, CounterCodeKind, ElectricalModel, Project, SynthesisFields } from "../../core/project/project.ts";
 import { serializeProject, synthesisFields } from "../../core/project/projectWriter.ts";
 import { validateProject } from "../../core/project/projectSchema.ts";
 import { PROJECT_SCHEMA } from "../../core/project/project.ts";
@@ -14,7 +14,12 @@ import { PROJECT_SCHEMA } from "../../core/project/project.ts";
 export interface Draft {
   readonly schema: typeof PROJECT_SCHEMA;
   readonly title: string;
-  readonly counter: { readonly states: number; readonly drive: "source" };
+  readonly counter: {
+    readonly states: number;
+    readonly drive: "source";
+    readonly code: CounterCodeKind;
+    readonly codes?: readonly string[];
+  };
   readonly display: { readonly positions: number; readonly cell: CellKind; readonly segments?: readonly string[] };
   /** The file's own glyph entries (overrides of the built-in table). */
   readonly glyphs: Readonly<Record<string, readonly string[]>>;
@@ -29,7 +34,10 @@ export function draftFromProject(p: Project): Draft {
   return {
     schema: PROJECT_SCHEMA,
     title: p.title,
-    counter: { states: p.counter.states, drive: "source" },
+    counter:
+      p.counter.code === "custom"
+        ? { states: p.counter.states, drive: "source", code: "custom", codes: [...p.counter.codes] }
+        : { states: p.counter.states, drive: "source", code: p.counter.code },
     display:
       cell.kind === "custom"
         ? { positions: p.display.positions, cell: cell.kind, segments: [...cell.segments] }
