@@ -1,19 +1,33 @@
 /**
  * The diode matrix: counter lines, bus nodes and output lines joined by
  * diodes. `from` is the driving end of a diode (the anode, for source drive).
+ *
+ * A one-hot ring counter drives it from its state lines `S<k>`. A coded
+ * counter (Johnson, binary, custom) drives it from its stage lines `Q<i>` and
+ * `nQ<i>` through diode AND gates (`gates`): a gate's node has a pull-up and
+ * one diode to each input line (anode at the gate node), and drives the OR
+ * plane like a line. For a one-hot counter `gates` is empty.
  */
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DepthPolicy } from "../project/project.ts";
 import { diodeRef } from "./designators.ts";
 
-export const MATRIX_SCHEMA = "diodeloom/matrix@2";
+export const MATRIX_SCHEMA = "diodeloom/matrix@3";
+
+/** A diode AND gate of a coded counter's decoder: its node is high only when every input line is high. */
+export interface Gate {
+  /** Reference designator and node name, `G1`.. */
+  readonly ref: string;
+  /** The stage lines it ANDs (`Q0`, `nQ2`), in line order; two or more. */
+  readonly inputs: readonly string[];
+}
 
 export interface Diode {
   /** Reference designator, `D1`.. in assembly order. */
   readonly ref: string;
-  /** Driving end (anode for source drive): a state, bus or output line. */
+  /** Driving end (anode for source drive): a counter line, gate, bus or output line. */
   readonly from: string;
-  /** Driven end (cathode for source drive): a bus or output line. */
+  /** Driven end (cathode for source drive): a bus or output line, or a gate's input line. */
   readonly to: string;
 }
 
@@ -21,7 +35,17 @@ export type SynthesisMethod = "direct" | "heuristic" | "exact";
 
 export interface DiodeMatrix {
   readonly schema: typeof MATRIX_SCHEMA;
+  /** The counter's states, `S0`.., in counting order. */
   readonly states: readonly string[];
+  /**
+   * Per state, its code (the highest stage leftmost) for a coded counter;
+   * empty for a one-hot one.
+   */
+  readonly codes: readonly string[];
+  /** The counter lines that drive the matrix: the state lines, or every stage line `Q0`, `nQ0`, `Q1`, ... */
+  readonly lines: readonly string[];
+  /** The AND gates of a coded counter's decoder, `G1`..; empty for a one-hot counter. */
+  readonly gates: readonly Gate[];
   readonly outputs: readonly string[];
   readonly buses: readonly string[];
   readonly diodes: readonly Diode[];
@@ -31,9 +55,14 @@ export interface DiodeMatrix {
   readonly lowerBound: number | null;
   /** True when `count` is proven minimal under the limit and policy. */
   readonly optimal: boolean;
-  /** Longest path in this matrix, in diodes. */
+  /**
+   * Longest path in this matrix, in diodes, from a driving node to an
+   * output: from a counter line, or for a coded counter from a gate node or
+   * a stage line (the gate's own input diodes hold it low and are not on
+   * that path, so two-level decoding has paths of one diode).
+   */
   readonly longestPath: number;
-  /** The depth limit it was built under. */
+  /** The depth limit it was built under (counted as `longestPath` is). */
   readonly depthLimit: number;
   readonly policy: DepthPolicy;
   readonly method: SynthesisMethod;
@@ -101,6 +130,9 @@ export function buildMatrix(spec: DecodeSpec, edges: readonly Edge[], meta: Matr
   return {
     schema: MATRIX_SCHEMA,
     states: spec.states,
+    codes: spec.counter.codes,
+    lines: spec.lines,
+    gates: [],
     outputs: spec.outputs,
     buses: [...busOrder.keys()].map(nameOf),
     diodes,

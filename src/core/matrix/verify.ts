@@ -12,6 +12,7 @@ import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DiodeMatrix, VerifiedMatrix } from "./matrix.ts";
 import type { DepthPolicy } from "../project/project.ts";
 import { fail, ok, type Result } from "../result/result.ts";
+import { verifyLogic } from "../logic/verifyLogic.ts";
 
 export interface VerifyLimits {
   readonly depthLimit: number;
@@ -20,9 +21,12 @@ export interface VerifyLimits {
 
 /**
  * Verifies a matrix. On failure the error lists every violation found (up
- * to 50), each a sentence naming the states, lines or diodes involved.
+ * to 50), each a sentence naming the states, lines or diodes involved. A
+ * coded counter's decoder goes to the logic verifier (logic/verifyLogic.ts),
+ * which simulates its gates for every used code.
  */
 export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLimits): Result<VerifiedMatrix, string[]> {
+  if (spec.counter.kind !== "one-hot") return verifyLogic(spec, m, limits);
   const errors: string[] = [];
   const states = new Set(spec.states);
   const outputs = new Set(spec.outputs);
@@ -32,6 +36,9 @@ export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLim
   };
 
   if (m.states.join() !== spec.states.join()) say("the matrix's state lines differ from the spec's");
+  if (m.lines.join() !== spec.states.join()) say("a one-hot counter's matrix is driven by its state lines alone");
+  if (m.gates.length > 0) say(`a one-hot counter's matrix has no gates, but this one has ${m.gates.length}`);
+  if (m.codes.length > 0) say("a one-hot counter's states have no codes");
   if (m.outputs.join() !== spec.outputs.join()) say("the matrix's output lines differ from the spec's");
   if ([...m.tiedOn].sort().join() !== [...spec.tiedOn].sort().join()) say("the tied-on outputs differ from the spec's");
   for (const b of m.buses) if (states.has(b) || outputs.has(b)) say(`bus ${b} reuses the name of a line`);

@@ -17,6 +17,7 @@ import { WorkMeter } from "./workMeter.ts";
 import { HEURISTIC_DEFAULT_WORK, heuristicPlan } from "./heuristic.ts";
 import { litCount, planCount, planEdges, sharingProblem, type SharingPlan, type SharingRules } from "./plan.ts";
 import { verifyMatrix } from "../matrix/verify.ts";
+import { synthesizeCoded } from "../logic/synthesizeCoded.ts";
 
 /** `direct`: one diode per lit cell; `fast`: the heuristic; `exact`: the proven optimum (branch-and-bound, then HiGHS). */
 export type SynthMode = "direct" | "fast" | "exact";
@@ -68,6 +69,11 @@ export async function synthesize(
   settings: SynthSettings,
   hooks: SynthHooks = {},
 ): Promise<Result<VerifiedMatrix, SynthFailure>> {
+  // A coded counter (Johnson, binary, custom) is decoded by AND gates and OR diodes (src/core/logic).
+  if (spec.counter.kind !== "one-hot") {
+    const coded = await synthesizeCoded(spec, settings, { ...hooks, oneHot: (s, st) => synthesize(s, st, hooks) });
+    return coded.ok ? ok(coded.value.matrix) : coded;
+  }
   const limits = checkLimits(settings);
   if (limits) return fail(limits);
   const p = sharingProblem(spec);
