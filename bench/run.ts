@@ -7,6 +7,7 @@ import { availableParallelism, cpus, totalmem } from "node:os";
 import { runBudgetBench } from "./budgetBench.ts";
 import { runStartupBench } from "./startupBench.ts";
 import { runSynthBench } from "./synthBench.ts";
+import { runCodedBench } from "./codedBench.ts";
 
 const log = (line: string): void => void process.stdout.write(line + "\n");
 
@@ -17,5 +18,7 @@ log("");
 await runStartupBench(log);
 log("");
 await runSynthBench(log);
+log("");
+await runCodedBench(log);
 log("");
 await runBudgetBench(log);

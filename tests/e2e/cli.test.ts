@@ -31,13 +31,17 @@ describe("diodeloom command", () => {
     expect(h.stdout).toMatch(/synth/);
   });
 
-  it.each(EXAMPLES)("gives a verified matrix for %s as diodeloom/matrix@2 JSON", async (name) => {
+  it.each(EXAMPLES)("gives a verified matrix for %s as diodeloom/matrix@3 JSON", async (name) => {
     const r = await run(["synth", `public/examples/${name}.json`, "--json", "--direct"]);
     expect(r.stderr).toBe("");
     expect(r.code).toBe(0);
     const m = JSON.parse(r.stdout) as Record<string, unknown>;
-    expect(m["schema"]).toBe("diodeloom/matrix@2");
+    expect(m["schema"]).toBe("diodeloom/matrix@3");
     expect(m["verified"]).toBe(true);
+    // A ring counter drives the matrix from its state lines, with no gates and no codes.
+    expect(m["lines"]).toEqual(m["states"]);
+    expect(m["gates"]).toEqual([]);
+    expect(m["codes"]).toEqual([]);
     for (const key of [
       "states",
       "outputs",

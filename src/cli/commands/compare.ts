@@ -3,6 +3,10 @@ import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
 import { loadProject } from "../loadProject.ts";
 import { reportFailure, settingsFromArgs } from "../synthOptions.ts";
+import { decoderRows, type DecoderRow } from "../../core/compare/decoderRows.ts";
+import { synthesizeCoded } from "../../core/logic/synthesizeCoded.ts";
+import { compileSpec } from "../../core/spec/decodeSpec.ts";
+import { synthesize } from "../../core/synth/synthesize.ts";
 
 const USAGE = "compare FILE [--json] [--fast] [--time-limit MS]";
 
@@ -22,11 +26,19 @@ export const compareCommand: Command = {
     const result = await compareGlyphStyles(project, { settings });
     if (!result.ok) return reportFailure(result.error, io);
     const rows = result.value;
+    // A coded counter: its own glyphs decoded in two levels and in two ranks, side by side.
+    let decoders: DecoderRow[] | undefined;
+    if (project.counter.code !== "one-hot") {
+      const coded = await synthesizeCoded(compileSpec(project), settings, { oneHot: synthesize });
+      if (!coded.ok) return reportFailure(coded.error, io);
+      decoders = decoderRows(coded.value);
+    }
     if (args.flags.has("json")) {
-      io.out(JSON.stringify({ schema: COMPARE_SCHEMA, rows }, null, 2) + "\n");
+      io.out(JSON.stringify({ schema: COMPARE_SCHEMA, rows, ...(decoders ? { decoders } : {}) }, null, 2) + "\n");
       return EXIT.ok;
     }
     io.out(describeRows(project.title, rows, settings.policy, settings.depthLimit));
+    if (decoders) io.out(describeDecoders(decoders));
     return EXIT.ok;
   },
 };
@@ -47,6 +59,27 @@ export function describeRows(title: string, rows: readonly GlyphStyleRow[], poli
     }
     lines.push("");
   });
+  return lines.join("\n");
+}
+
+/** The decoders of a coded counter, one line each: diodes, resistors, gates. */
+export function describeDecoders(rows: readonly DecoderRow[]): string {
+  const name = {
+    "two-level": "two-level logic",
+    "two-rank": "two ranks (a gate per state, then the matrix)",
+    shared: "gates and shared OR nodes",
+  };
+  const lines = [
+    "Decoders for the project's own glyphs",
+    `  ${"".padEnd(46)} ${"diodes".padStart(6)} ${"resistors".padStart(9)} ${"gates".padStart(5)}`,
+  ];
+  for (const r of rows) {
+    const bound = r.optimal ? "  proven minimum" : r.lowerBound !== null ? `  lower bound ${r.lowerBound}` : "";
+    lines.push(
+      `${r.chosen ? "* " : "  "}${name[r.decoder].padEnd(46)} ${String(r.diodes).padStart(6)} ${String(r.resistors).padStart(9)} ${String(r.gates).padStart(5)}${bound}`,
+    );
+  }
+  lines.push("  (* the decoder synth builds; resistors: one pull-up per gate, the output drivers are the same for all)", "");
   return lines.join("\n");
 }
 

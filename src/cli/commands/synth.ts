@@ -6,9 +6,11 @@ import { countParts, refRanges } from "../../core/papers/parts.ts";
 import type { Project } from "../../core/project/project.ts";
 import { partValue } from "../../render/bom.ts";
 import type { Command } from "../command.ts";
-import { designFor, DESIGN_OPTIONS, DESIGN_USAGE, loadForDesign } from "../designOptions.ts";
+import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
-import { SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { loadProject } from "../loadProject.ts";
+import { SYNTH_OPTIONS, SYNTH_USAGE, synthesizeCodedProject, synthesizeProject } from "../synthOptions.ts";
+import { describeDecoder } from "../decoderReport.ts";
 
 const USAGE = `synth FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
@@ -16,14 +18,25 @@ export const synthCommand: Command = {
   name: "synth",
   usage: USAGE,
   options: {
-    json: { help: "print the matrix as diodeloom/matrix@2 JSON" },
+    json: { help: "print the matrix as diodeloom/matrix@3 JSON" },
     ...SYNTH_OPTIONS,
     ...DESIGN_OPTIONS,
   },
   async run(args, io) {
-    const done = await loadForDesign(args, io, USAGE);
+    const design = designArgs(args, io);
+    if (!design) return EXIT.input;
+    const project = await loadProject(args, io, USAGE);
+    if (!project) return EXIT.input;
+    if (project.counter.code !== "one-hot") {
+      const coded = await synthesizeCodedProject(project, args, io);
+      if (typeof coded === "number") return coded;
+      if (args.flags.has("json")) io.out(JSON.stringify(coded.coded.matrix, null, 2) + "\n");
+      else io.out(describeDecoder(coded.project, coded.spec, coded.coded));
+      return EXIT.ok;
+    }
+    const done = await synthesizeProject(project, args, io);
     if (typeof done === "number") return done;
-    const { project, spec, matrix, design } = done;
+    const { spec, matrix } = done;
     if (args.flags.has("json")) io.out(JSON.stringify(matrix, null, 2) + "\n");
     else io.out(describeMatrix(project, spec, matrix, designFor(project, spec, matrix, design)));
     return EXIT.ok;
