@@ -1,11 +1,16 @@
 /**
  * The small drawn key above each display position's columns: a seven-segment
  * figure with its segment names (a top, b to f clockwise, g middle, dp the
- * point), or, for a custom cell, its segment names in a framed grid.
+ * point); for a custom cell, its own figure (render/figureOutline.ts) with
+ * each segment's name beside its shape, or, when it gives no figure (or its
+ * names cannot be set apart at any size a key may take), its segment names
+ * in a framed grid.
  */
-import type { Cell } from "../core/project/project.ts";
+import type { Cell, CellFigure } from "../core/project/project.ts";
+import { shapeAnchor, shapeOutline } from "./figureOutline.ts";
 import {
   STROKE,
+  boxesOverlap,
   boundingBox,
   label,
   textWidth,
@@ -30,7 +35,9 @@ export interface GlyphKey {
 
 /** Height of a key, millimetres, for a cell drawn in a given width at a scale. */
 export function glyphKeyHeight(cell: Cell, widthMm: number, scale = 1): number {
-  return scale * (cell.kind === "custom" ? customLayout(cell, widthMm / scale).height : SEG7_KEY_H);
+  if (cell.kind !== "custom") return scale * SEG7_KEY_H;
+  const f = cell.figure ? figureKey(cell.figure, cell.segments) : null;
+  return scale * (f ? f.height : customLayout(cell, widthMm / scale).height);
 }
 
 const SEG7_KEY_H = 14;
@@ -56,10 +63,12 @@ export interface KeyPlace {
  */
 export function glyphKey(cell: Cell, place: KeyPlace): GlyphKey {
   const { cx, top, widthMm, scale = 1 } = place;
-  const plain = cell.kind === "custom" ? customKey(cell, 0, 0, widthMm / scale) : seg7Key(cell.kind === "seg7dp", 0, 0);
+  const f = cell.kind === "custom" && cell.figure ? figureKey(cell.figure, cell.segments) : null;
+  const plain = f ? f.key : cell.kind === "custom" ? customKey(cell, 0, 0, widthMm / scale) : seg7Key(cell.kind === "seg7dp", 0, 0);
   const k = scaled(plain, cx, top, scale);
   const corners = [
     ...k.segments.flatMap((s) => [s.a, s.b]),
+    ...k.polygons.flatMap((p) => p.points),
     ...k.rects.flatMap((r) => [
       { x: r.box.x, y: r.box.y },
       { x: r.box.x + r.box.w, y: r.box.y + r.box.h },
@@ -152,4 +161,152 @@ function customKey(cell: Cell, cx: number, top: number, widthMm: number): Omit<G
     labels.push(label(name, { x: x + 1.5, y: baseline }, NAME_SIZE, "key"));
   });
   return { segments: [], polygons: [], rects: [{ box: { x: x0, y: top, w: frameW, h: height }, width: STROKE.thin }], circles, labels };
+}
+
+/** Height of a figure key's drawing before any name is set, millimetres; it grows until the names stand apart. */
+const FIGURE_KEY_H = 10;
+/** The tallest a figure key may grow, millimetres. */
+const FIGURE_KEY_MAX_H = 40;
+
+/**
+ * A custom cell's figure as a key: each shape outlined, its name beside it.
+ * Each name takes the first of a few places around its shape (inside a pip
+ * big enough to hold it, else beside it; off a bar's or polyline's middle, away from the
+ * figure's centre, then to either side, then inward) where it touches no
+ * other name and no shape but its own pip. The figure is drawn as small as
+ * lets every name find such a place; null when no size up to the largest a
+ * key may take does (the caller then draws the framed grid of names).
+ */
+function figureKey(figure: CellFigure, segments: readonly string[]): { key: Omit<GlyphKey, "box">; height: number } | null {
+  // A name inside its pip reads best: first every size with the names of pips inside them, then names beside.
+  for (const pipsInside of [true, false]) {
+    for (let h = FIGURE_KEY_H; h <= FIGURE_KEY_MAX_H + 1e-9; h *= 1.1) {
+      const key = figureKeyAt(figure, segments, h / figure.height, pipsInside);
+      if (key) return key;
+    }
+  }
+  return null;
+}
+
+type Drawn = { readonly name: string; readonly circle?: Circle; readonly polygon?: Polygon };
+
+function figureKeyAt(
+  figure: CellFigure,
+  segments: readonly string[],
+  k: number,
+  pipsInside: boolean,
+): { key: Omit<GlyphKey, "box">; height: number } | null {
+  const s = NAME_SIZE;
+  const x0 = (-figure.width * k) / 2;
+  const at = (p: Point): Point => ({ x: x0 + p.x * k, y: p.y * k });
+  const centre = at({ x: figure.width / 2, y: figure.height / 2 });
+  const drawn: Drawn[] = [];
+  for (const name of segments) {
+    const shape = figure.shapes[name];
+    if (!shape) continue;
+    const o = shapeOutline(shape);
+    drawn.push(
+      o.kind === "circle"
+        ? { name, circle: { at: at(o.centre), r: o.r * k, filled: false } }
+        : { name, polygon: { points: o.points.map(at), filled: false, width: STROKE.thin } },
+    );
+  }
+  const labels: Label[] = [];
+  for (const d of drawn) {
+    const shape = figure.shapes[d.name]!;
+    const w = textWidth(d.name, s);
+    const places: Label[] = [];
+    const centred = (p: Point): Label => label(d.name, { x: p.x, y: p.y + 0.35 * s }, s, "key", { anchor: "middle" });
+    if (d.circle) {
+      const { at: c, r } = d.circle;
+      if (2 * r >= w + 0.4 && 2 * r >= 1.1 * s) places.push(centred(c));
+      const gapX = r + 0.3 + w / 2;
+      const gapY = r + 0.3 + 0.55 * s;
+      if (!pipsInside)
+        places.push(
+          centred({ x: c.x + gapX, y: c.y }),
+          centred({ x: c.x - gapX, y: c.y }),
+          centred({ x: c.x, y: c.y - gapY }),
+          centred({ x: c.x, y: c.y + gapY }),
+        );
+    } else {
+      const a = at(shapeAnchor(shape));
+      const len = Math.hypot(a.x - centre.x, a.y - centre.y);
+      const u = len < 1e-9 ? { x: 0, y: -1 } : { x: (a.x - centre.x) / len, y: (a.y - centre.y) / len };
+      const half = shape.kind === "dot" ? 0 : (shape.width * k) / 2;
+      for (const dir of [u, { x: -u.y, y: u.x }, { x: u.y, y: -u.x }, { x: -u.x, y: -u.y }]) {
+        // Far enough along the direction that the name's box clears a straight stroke; further for a pointed bend.
+        const reach = half + 0.3 + Math.abs(dir.x) * (w / 2) + Math.abs(dir.y) * 0.55 * s;
+        for (const more of [0, half, 2 * half]) places.push(centred({ x: a.x + dir.x * (reach + more), y: a.y + dir.y * (reach + more) }));
+      }
+    }
+    const place = places.find(
+      (l) =>
+        labels.every((m) => !boxesOverlap(l.box, m.box)) &&
+        drawn.every((e) =>
+          e === d && e.circle ? true : e.circle ? !boxesOverlap(l.box, circleBox(e.circle)) : !boxHitsPolygon(l.box, e.polygon!.points),
+        ),
+    );
+    if (!place) return null;
+    labels.push(place);
+  }
+  const circles = drawn.flatMap((d) => (d.circle ? [d.circle] : []));
+  const polygons = drawn.flatMap((d) => (d.polygon ? [d.polygon] : []));
+  const ys = [
+    ...labels.flatMap((l) => [l.box.y, l.box.y + l.box.h]),
+    ...circles.flatMap((c) => [c.at.y - c.r, c.at.y + c.r]),
+    ...polygons.flatMap((p) => p.points.map((q) => q.y)),
+  ];
+  const shift = 1 - Math.min(...ys);
+  const moved = (p: Point): Point => ({ x: p.x, y: p.y + shift });
+  return {
+    key: {
+      segments: [],
+      polygons: polygons.map((p) => ({ ...p, points: p.points.map(moved) })),
+      rects: [],
+      circles: circles.map((c) => ({ ...c, at: moved(c.at) })),
+      labels: labels.map((l) => label(l.text, moved(l.at), l.size, l.role, { anchor: l.anchor })),
+    },
+    height: Math.max(...ys) + shift + 0.5,
+  };
+}
+
+function circleBox(c: Circle): Box {
+  return { x: c.at.x - c.r, y: c.at.y - c.r, w: 2 * c.r, h: 2 * c.r };
+}
+
+/** True when a box and a closed polygon share some area: an edge crosses the box, or one holds the other. */
+function boxHitsPolygon(box: Box, pts: readonly Point[]): boolean {
+  const inBox = (p: Point) => p.x > box.x && p.x < box.x + box.w && p.y > box.y && p.y < box.y + box.h;
+  if (pts.some(inBox)) return true;
+  const corners: Point[] = [
+    { x: box.x, y: box.y },
+    { x: box.x + box.w, y: box.y },
+    { x: box.x + box.w, y: box.y + box.h },
+    { x: box.x, y: box.y + box.h },
+  ];
+  if (corners.some((c) => insidePolygon(c, pts))) return true;
+  return pts.some((p, i) => {
+    const q = pts[(i + 1) % pts.length]!;
+    return corners.some((c, j) => segmentsCross(p, q, c, corners[(j + 1) % 4]!));
+  });
+}
+
+function insidePolygon(p: Point, pts: readonly Point[]): boolean {
+  let inside = false;
+  for (let i = 0, j = pts.length - 1; i < pts.length; j = i++) {
+    const a = pts[i]!;
+    const b = pts[j]!;
+    if (a.y > p.y !== b.y > p.y && p.x < ((b.x - a.x) * (p.y - a.y)) / (b.y - a.y) + a.x) inside = !inside;
+  }
+  return inside;
+}
+
+function segmentsCross(a: Point, b: Point, c: Point, d: Point): boolean {
+  const cross = (o: Point, p: Point, q: Point) => (p.x - o.x) * (q.y - o.y) - (p.y - o.y) * (q.x - o.x);
+  const d1 = cross(c, d, a);
+  const d2 = cross(c, d, b);
+  const d3 = cross(a, b, c);
+  const d4 = cross(a, b, d);
+  return d1 * d2 < 0 && d3 * d4 < 0;
 }

@@ -489,6 +489,14 @@ describe("the web app", () => {
       .locator('[data-testid="glyph-cell"] [data-segment]')
       .evaluateAll((els) => els.map((e) => e.getAttribute("data-segment")));
     expect(pads).toEqual(["tl", "tr", "ml", "c", "mr", "bl", "br"]);
+    // Drawn as the project's figure says: a die face, tl above and left of c, br below and right of it.
+    const centre = (name: string) =>
+      page
+        .locator(`[data-testid="glyph-cell"] circle[data-segment="${name}"]`)
+        .evaluate((e) => [Number(e.getAttribute("cx")), Number(e.getAttribute("cy"))]);
+    const [tl, c, br] = [await centre("tl"), await centre("c"), await centre("br")];
+    expect(tl[0]! < c[0]! && c[0]! < br[0]! && tl[1]! < c[1]! && c[1]! < br[1]!).toBe(true);
+    expect(await centre("ml")).toEqual([tl[0], c[1]]);
     await page.getByTestId("undo").click();
     await expect.poll(() => savedProject()).toBe(before);
   });

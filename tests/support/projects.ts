@@ -14,7 +14,7 @@ export function showing(texts: readonly string[], positions = 1, extra: Record<s
   return makeProject({ counter: { states: texts.length }, display: { positions, cell: "seg7" }, show: texts, ...extra });
 }
 
-export const EXAMPLES = ["relay-hex-monitor", "turntable-position", "die-roller"] as const;
+export const EXAMPLES = ["relay-hex-monitor", "turntable-position", "die-roller", "antenna-rotator"] as const;
 
 export function exampleText(name: string): string {
   return readFileSync(new URL(`../../public/examples/${name}.json`, import.meta.url), "utf8");

@@ -4,8 +4,11 @@
 export { PROJECT_SCHEMA } from "./project.ts";
 export type {
   Cell,
+  CellFigure,
   CellKind,
   CounterCodeKind,
+  FigurePoint,
+  SegmentShape,
   CounterOutputModel,
   CounterSection,
   DepthPolicy,
@@ -37,3 +40,5 @@ export { numberRuleText } from "./fieldRules.ts";
 export type { NumberRule } from "./fieldRules.ts";
 export { serializeProject, synthesisFields } from "./projectWriter.ts";
 export { fillPattern } from "./textPatterns.ts";
+export { FIGURE_BOX, FIGURE_DEFAULTS, POLYLINE_POINTS, figureFields, figureOf } from "./figureSchema.ts";
+export type { LooseFigure } from "./figureSchema.ts";

@@ -37,6 +37,33 @@ export interface Cell {
   readonly kind: CellKind;
   /** Segment names in drawing order, e.g. `a`..`g` (plus `dp`). */
   readonly segments: readonly string[];
+  /**
+   * How a custom cell looks: each segment's position and shape. Absent for
+   * the built-in cells, and for a custom cell that gives none (it is then
+   * drawn as a grid of named pads).
+   */
+  readonly figure?: CellFigure;
+}
+
+/** A point in a figure's coordinate box, `[x, y]`: x to the right, y down, from the box's top left corner. */
+export type FigurePoint = readonly [number, number];
+
+/** One segment's shape in a figure's box. */
+export type SegmentShape =
+  /** A round pip (a die face's), centre and radius. */
+  | { readonly kind: "dot"; readonly at: FigurePoint; readonly r: number }
+  /** A straight bar with pointed ends, like a seven-segment bar, from end to end. */
+  | { readonly kind: "bar"; readonly points: readonly [FigurePoint, FigurePoint]; readonly width: number }
+  /** A stroke through 2 to 16 points (an arrowhead, a bent bar). */
+  | { readonly kind: "polyline"; readonly points: readonly FigurePoint[]; readonly width: number };
+
+/** A custom cell's drawing: a coordinate box and every segment's shape in it. */
+export interface CellFigure {
+  /** Size of the coordinate box, in its own units. */
+  readonly width: number;
+  readonly height: number;
+  /** One shape per segment of the cell, by segment name. */
+  readonly shapes: Readonly<Record<string, SegmentShape>>;
 }
 
 export interface SynthesisOptions {

@@ -14,6 +14,7 @@ import { checkElectrical, ElectricalSectionSchema } from "./electricalSchema.ts"
 import { checkCounter, CounterSectionSchema } from "./counterSchema.ts";
 import { choiceField, gotMessage, issuePath, mapField, numberField, objectField, textField } from "./fieldRules.ts";
 import { readJson } from "./jsonText.ts";
+import { figureOf, FigureSectionSchema } from "./figureSchema.ts";
 import { fileSizeProblem, LIMITS } from "./limits.ts";
 import { SynthesisSectionSchema, synthesisOf } from "./synthesisSchema.ts";
 import { describeValue, fieldPath, hasUnsafeText, quoteText } from "./valueText.ts";
@@ -43,6 +44,7 @@ const ProjectSchema = objectField(
       positions: v.optional(numberField({ ...POSITIONS, integer: true }), 1),
       cell: v.optional(choiceField(["seg7", "seg7dp", "custom"] as const), "seg7"),
       segments: v.optional(v.array(v.string(gotMessage("must be a segment name")), gotMessage("must be an array of segment names"))),
+      figure: v.optional(FigureSectionSchema),
     }),
     glyphs: v.optional(mapField(glyphValue, 'must be an object mapping each character to its lit segments, e.g. {"7": "abcf"}'), {}),
     show: v.array(v.string(gotMessage("must be the text of one state")), gotMessage("must be an array with one text per state")),
@@ -196,6 +198,13 @@ function complete(p: LooseProject): Result<Project> {
 function resolveCell(p: LooseProject, problems: Problem[]): Cell | undefined {
   const kind = p.display.cell;
   if (kind !== "custom") {
+    if (p.display.figure !== undefined) {
+      problems.push({
+        path: "display.figure",
+        message: `a "${kind}" cell is drawn as it is; only a "custom" cell gives a figure; remove it or set display.cell to "custom"`,
+      });
+      return undefined;
+    }
     if (p.display.segments !== undefined) {
       problems.push({
         path: "display.segments",
@@ -232,7 +241,10 @@ function resolveCell(p: LooseProject, problems: Problem[]): Cell | undefined {
     const twice = segments.find((s, i) => segments.indexOf(s) !== i) ?? "";
     problems.push({ path: "display.segments", message: `${quoteText(twice, 12)} appears twice; names must be unique` });
   }
-  return problems.length > 0 ? undefined : { kind: "custom", segments: [...segments] };
+  if (problems.length > 0) return undefined;
+  if (p.display.figure === undefined) return { kind: "custom", segments: [...segments] };
+  const figure = figureOf(p.display.figure, segments, problems);
+  return figure ? { kind: "custom", segments: [...segments], figure } : undefined;
 }
 
 /** A string glyph value lists one-letter segment names; `.` stands for `dp`. */

@@ -7,6 +7,7 @@
  * to `p`, and so the same decode spec and the same matrix.
  */
 import type { Project, SynthesisFields, SynthesisOptions } from "./project.ts";
+import { figureFields } from "./figureSchema.ts";
 
 /** The synthesis options as the file spells them (`maxDepth` is the depth limit, `depth` the policy). */
 export function synthesisFields(s: SynthesisOptions): SynthesisFields {
@@ -34,6 +35,7 @@ export function serializeProject(project: Project): string {
       positions: project.display.positions,
       cell: cell.kind,
       ...(cell.kind === "custom" ? { segments: [...cell.segments] } : {}),
+      ...(cell.figure ? { figure: figureFields(cell.figure) } : {}),
     },
     glyphs: Object.fromEntries(Object.entries(project.glyphOverrides).map(([ch, segs]) => [ch, [...segs]])),
     show: [...project.show],

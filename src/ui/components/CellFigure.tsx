@@ -3,12 +3,14 @@
  * toggle button reachable by Tab, Enter or Space), static in previews.
  */
 import { For, Show } from "solid-js";
-import type { CellKind } from "../../core/project/project.ts";
-import { CELL_HEIGHT, CELL_WIDTH, cellShapes, type SegmentShape } from "./cellShapes.ts";
+import type { CellFigure as Figure, CellKind } from "../../core/project/project.ts";
+import { cellShapes, type DrawnSegment } from "./cellShapes.ts";
 
 export interface CellFigureProps {
   readonly kind: CellKind;
   readonly segments: readonly string[];
+  /** A custom cell's own figure, when it gives one. */
+  readonly figure?: Figure | undefined;
   readonly lit: readonly string[];
   /** Height in CSS pixels. */
   readonly height: number;
@@ -18,7 +20,8 @@ export interface CellFigureProps {
 }
 
 export function CellFigure(props: CellFigureProps) {
-  const shapes = () => cellShapes(props.kind, props.segments);
+  const drawing = () => cellShapes({ kind: props.kind, segments: props.segments, figure: props.figure });
+  const shapes = () => drawing().shapes;
   const isLit = (s: string) => props.lit.includes(s);
   const interactive = () => props.onToggle !== undefined;
   const keydown = (e: KeyboardEvent, s: string) => {
@@ -27,7 +30,7 @@ export function CellFigure(props: CellFigureProps) {
       props.onToggle?.(s);
     }
   };
-  const shape = (sh: SegmentShape) => {
+  const shape = (sh: DrawnSegment) => {
     const common = {
       class: `seg ${isLit(sh.segment) ? "seg-on" : "seg-off"}`,
       "data-segment": sh.segment,
@@ -37,9 +40,9 @@ export function CellFigure(props: CellFigureProps) {
   return (
     <svg
       class={`cell ${interactive() ? "cell-edit" : ""}`}
-      viewBox={`-4 -4 ${CELL_WIDTH + 8} ${CELL_HEIGHT + 8}`}
+      viewBox={`-4 -4 ${drawing().width + 8} ${drawing().height + 8}`}
       height={props.height}
-      width={(props.height * (CELL_WIDTH + 8)) / (CELL_HEIGHT + 8)}
+      width={(props.height * (drawing().width + 8)) / (drawing().height + 8)}
       role={interactive() ? "group" : "img"}
       aria-label={props.title ?? `cell lighting ${props.lit.join(" ") || "nothing"}`}
     >
@@ -57,7 +60,12 @@ export function CellFigure(props: CellFigureProps) {
             >
               {shape(sh)}
               <Show when={props.labels}>
-                <text class="seg-label" x={sh.labelX} y={sh.labelY + 2} text-anchor="middle">
+                <text
+                  class={`seg-label ${sh.labelInside && isLit(sh.segment) ? "on" : ""}`}
+                  x={sh.labelX}
+                  y={sh.labelY + 2}
+                  text-anchor="middle"
+                >
                   {sh.segment}
                 </text>
               </Show>

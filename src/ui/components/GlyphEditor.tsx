@@ -7,7 +7,15 @@ import { createMemo, createSignal, For, Show } from "solid-js";
 import { SEG7_VARIANTS, segmentsOfString } from "../../core/glyphs/glyphs.ts";
 import { app } from "../state/appState.ts";
 import { CellFigure } from "./CellFigure.tsx";
-import { charactersShown, draftSegments, effectiveGlyphs, setCustomSegments, setGlyph, toggleSegment } from "../state/draftEdits.ts";
+import {
+  charactersShown,
+  draftFigure,
+  draftSegments,
+  effectiveGlyphs,
+  setCustomSegments,
+  setGlyph,
+  toggleSegment,
+} from "../state/draftEdits.ts";
 
 export function GlyphEditor() {
   const d = () => app.draft();
@@ -70,6 +78,7 @@ export function GlyphEditor() {
             <CellFigure
               kind={d().display.cell}
               segments={draftSegments(d())}
+              figure={draftFigure(d())}
               lit={lit()}
               height={150}
               labels

@@ -12,6 +12,7 @@ import { fillPattern } from "../../core/project/textPatterns.ts";
 import { app } from "../state/appState.ts";
 import { CellFigure } from "./CellFigure.tsx";
 import {
+  draftFigure,
   draftSegments,
   effectiveGlyphs,
   setCell,
@@ -52,7 +53,9 @@ export function ProjectPanel() {
   // The previews depend only on the cell and the glyph table, not on the texts: a memo compared
   // by value keeps typing in one row from redrawing every other row's preview.
   const sameJson = <T,>(a: T, b: T) => JSON.stringify(a) === JSON.stringify(b);
-  const previewCell = createMemo(() => ({ kind: d().display.cell, segments: draftSegments(d()) }), undefined, { equals: sameJson });
+  const previewCell = createMemo(() => ({ kind: d().display.cell, segments: draftSegments(d()), figure: draftFigure(d()) }), undefined, {
+    equals: sameJson,
+  });
   const glyphTable = createMemo(() => effectiveGlyphs(d()), undefined, { equals: sameJson });
   const positionsOf = (text: string) => {
     const cell = previewCell();
@@ -148,7 +151,15 @@ export function ProjectPanel() {
                   />
                   <span class="state-preview" aria-hidden="true">
                     <For each={positionsOf(text())}>
-                      {(lit) => <CellFigure kind={previewCell().kind} segments={previewCell().segments} lit={lit} height={22} />}
+                      {(lit) => (
+                        <CellFigure
+                          kind={previewCell().kind}
+                          segments={previewCell().segments}
+                          figure={previewCell().figure}
+                          lit={lit}
+                          height={22}
+                        />
+                      )}
                     </For>
                   </span>
                   <Show when={err()}>

@@ -8,8 +8,13 @@
  */
 import type { CellKind, CounterCodeKind, ElectricalModel, Project, SynthesisFields } from "../../core/project/project.ts";
 import { serializeProject, synthesisFields } from "../../core/project/projectWriter.ts";
+import { figureFields } from "../../core/project/figureSchema.ts";
+
 import { validateProject } from "../../core/project/projectSchema.ts";
 import { PROJECT_SCHEMA } from "../../core/project/project.ts";
+
+/** A figure as the file writes it (`display.figure`). */
+export type FigureFields = ReturnType<typeof figureFields>;
 
 export interface Draft {
   readonly schema: typeof PROJECT_SCHEMA;
@@ -20,7 +25,13 @@ export interface Draft {
     readonly code: CounterCodeKind;
     readonly codes?: readonly string[];
   };
-  readonly display: { readonly positions: number; readonly cell: CellKind; readonly segments?: readonly string[] };
+  readonly display: {
+    readonly positions: number;
+    readonly cell: CellKind;
+    readonly segments?: readonly string[];
+    /** A custom cell's figure, as the file writes it. */
+    readonly figure?: FigureFields;
+  };
   /** The file's own glyph entries (overrides of the built-in table). */
   readonly glyphs: Readonly<Record<string, readonly string[]>>;
   readonly show: readonly string[];
@@ -40,7 +51,12 @@ export function draftFromProject(p: Project): Draft {
         : { states: p.counter.states, drive: "source", code: p.counter.code },
     display:
       cell.kind === "custom"
-        ? { positions: p.display.positions, cell: cell.kind, segments: [...cell.segments] }
+        ? {
+            positions: p.display.positions,
+            cell: cell.kind,
+            segments: [...cell.segments],
+            ...(cell.figure ? { figure: figureFields(cell.figure) } : {}),
+          }
         : { positions: p.display.positions, cell: cell.kind },
     glyphs: Object.fromEntries(Object.entries(p.glyphOverrides).map(([ch, segs]) => [ch, [...segs]])),
     show: [...p.show],

@@ -6,10 +6,84 @@
  * single change in the form rarely leaves the project unusable.
  */
 import { builtinCell, builtinGlyphs } from "../../core/glyphs/glyphs.ts";
-import type { CellKind, SynthesisFields } from "../../core/project/project.ts";
+import type { CellFigure, CellKind, SynthesisFields } from "../../core/project/project.ts";
+import { figureOf } from "../../core/project/figureSchema.ts";
+import type { Problem } from "../../core/result/result.ts";
 import { LIMITS } from "../../core/project/limits.ts";
 import { splitText } from "../../core/project/projectSchema.ts";
-import type { Draft } from "./draft.ts";
+import type { Draft, FigureFields } from "./draft.ts";
+
+/**
+ * The draft's custom-cell figure as the core reads it, or undefined when the
+ * cell gives none or the one it gives does not check out yet (being edited).
+ */
+export function draftFigure(d: Draft): CellFigure | undefined {
+  const f = d.display.figure;
+  if (d.display.cell !== "custom" || !f) return undefined;
+  const problems: Problem[] = [];
+  return figureOf(f, draftSegments(d), problems);
+}
+
+/**
+ * A seven-segment cell drawn as a custom cell's figure (the bars the app
+ * draws for a built-in cell, in the same 60 x 100 box), so a cell switched
+ * to custom keeps looking like what it was.
+ */
+const SEG7_FIGURE: FigureFields = {
+  box: [60, 100],
+  shapes: {
+    a: {
+      bar: [
+        [12, 10],
+        [48, 10],
+      ],
+      width: 8,
+    },
+    b: {
+      bar: [
+        [50, 12],
+        [50, 48],
+      ],
+      width: 8,
+    },
+    c: {
+      bar: [
+        [50, 52],
+        [50, 88],
+      ],
+      width: 8,
+    },
+    d: {
+      bar: [
+        [12, 90],
+        [48, 90],
+      ],
+      width: 8,
+    },
+    e: {
+      bar: [
+        [10, 52],
+        [10, 88],
+      ],
+      width: 8,
+    },
+    f: {
+      bar: [
+        [10, 12],
+        [10, 48],
+      ],
+      width: 8,
+    },
+    g: {
+      bar: [
+        [12, 50],
+        [48, 50],
+      ],
+      width: 8,
+    },
+    dp: { dot: [56, 94], r: 3.5 },
+  },
+};
 
 /** Segment names of the draft's cell. */
 export function draftSegments(d: Draft): readonly string[] {
@@ -66,7 +140,8 @@ export function setCell(d: Draft, kind: CellKind): Draft {
     const table = effectiveGlyphs(d);
     const glyphs: Record<string, readonly string[]> = {};
     for (const ch of charactersShown(d)) glyphs[ch] = [...(table[ch] ?? [])];
-    return { ...d, display: { positions: d.display.positions, cell: kind, segments }, glyphs };
+    const shapes = Object.fromEntries(segments.map((s) => [s, SEG7_FIGURE.shapes[s] ?? {}]));
+    return { ...d, display: { positions: d.display.positions, cell: kind, segments, figure: { box: SEG7_FIGURE.box, shapes } }, glyphs };
   }
   const segments = builtinCell(kind).segments;
   const glyphs: Record<string, readonly string[]> = {};
@@ -76,12 +151,28 @@ export function setCell(d: Draft, kind: CellKind): Draft {
   return { ...d, display: { positions: d.display.positions, cell: kind }, glyphs };
 }
 
-/** Sets the segment names of a custom cell; glyph entries keep the names that remain. */
+/**
+ * Sets the segment names of a custom cell; glyph entries and the figure keep
+ * the names that remain, and a new name gets a dot in a row along the
+ * bottom of the figure, to be moved in the file.
+ */
 export function setCustomSegments(d: Draft, segments: readonly string[]): Draft {
   if (d.display.cell !== "custom") return d;
   const glyphs: Record<string, readonly string[]> = {};
   for (const [ch, segs] of Object.entries(d.glyphs)) glyphs[ch] = segs.filter((s) => segments.includes(s));
-  return { ...d, display: { ...d.display, segments: [...segments] }, glyphs };
+  const f = d.display.figure;
+  if (!f) return { ...d, display: { ...d.display, segments: [...segments] }, glyphs };
+  const [w, h] = f.box;
+  const added = segments.filter((s) => !(s in f.shapes));
+  const r = Math.round(Math.min(w, h) * 0.06 * 1000) / 1000;
+  const shapes = Object.fromEntries(
+    segments.map((s) => {
+      const k = added.indexOf(s);
+      const x = Math.round(((w * (k + 1)) / (added.length + 1)) * 1000) / 1000;
+      return [s, f.shapes[s] ?? { dot: [x, Math.round((h - 1.5 * r) * 1000) / 1000], r }];
+    }),
+  );
+  return { ...d, display: { ...d.display, segments: [...segments], figure: { box: f.box, shapes } }, glyphs };
 }
 
 /** Sets one state's text (0-based state index). */

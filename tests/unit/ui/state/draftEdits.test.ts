@@ -3,6 +3,7 @@ import { validateProject } from "../../../../src/core/project/projectSchema.ts";
 import { draftFromProject, type Draft } from "../../../../src/ui/state/draft.ts";
 import {
   charactersShown,
+  draftFigure,
   effectiveGlyphs,
   setCell,
   setCustomSegments,
@@ -63,5 +64,34 @@ describe("draft edits", () => {
   });
   it("replaces all texts and the state count", () => {
     expect(valid(setTexts(hex, ["0", "1", "2"])).counter.states).toBe(3);
+  });
+});
+
+describe("draft edits of a custom cell's figure", () => {
+  it("gives a cell switched to custom the figure of the seven bars it had, so it keeps its look", () => {
+    const d = setCell(draftFromProject(example("relay-hex-monitor")), "custom");
+    const v = validateProject(d);
+    if (!v.ok) throw new Error(JSON.stringify(v.error));
+    const f = v.value.display.cell.figure;
+    expect(Object.keys(f?.shapes ?? {})).toEqual(["a", "b", "c", "d", "e", "f", "g"]);
+    expect(f?.shapes["a"]).toEqual({
+      kind: "bar",
+      points: [
+        [12, 10],
+        [48, 10],
+      ],
+      width: 8,
+    });
+    expect(draftFigure(d)).toEqual(f);
+  });
+
+  it("keeps the shapes of the names that remain and gives a new name a dot inside the box", () => {
+    const d = setCustomSegments(draftFromProject(example("die-roller")), ["tl", "tr", "c", "bl", "br", "x"]);
+    const v = validateProject({ ...d, glyphs: { ...d.glyphs, "6": ["tl", "tr", "bl", "br"] } });
+    if (!v.ok) throw new Error(JSON.stringify(v.error));
+    const shapes = v.value.display.cell.figure?.shapes ?? {};
+    expect(Object.keys(shapes)).toEqual(["tl", "tr", "c", "bl", "br", "x"]);
+    expect(shapes["c"]).toEqual({ kind: "dot", at: [15, 15], r: 3 });
+    expect(shapes["x"]?.kind).toBe("dot");
   });
 });
