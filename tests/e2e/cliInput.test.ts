@@ -56,7 +56,7 @@ describe("wrong input that used to pass: now exit 2, naming the field", () => {
     [
       "display as an array",
       { ...BASE, display: [] },
-      "display: got an array of 0 items; must be an object with the keys positions, cell, segments",
+      "display: got an array of 0 items; must be an object with the keys positions, cell, segments, figure",
     ],
     [
       "electrical as an array",
