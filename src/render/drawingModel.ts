@@ -82,17 +82,21 @@ export interface Label {
  * A diode drawn across a crossing: the anode lead taps the driving line (a
  * horizontal row), the cathode lead taps the driven line (a vertical column).
  * The triangle points along the current; the bar sits at the cathode end.
+ * An AND gate's input diode is drawn the other way round (`reversed`): its
+ * anode taps the gate's column, its cathode the stage line's row.
  */
 export interface DiodeSymbol {
   readonly ref: string;
   readonly from: string;
   readonly to: string;
-  /** Where the driving row and the driven column cross. */
+  /** Where the row and the column cross. */
   readonly crossing: Point;
-  /** Anode tap, on the driving row. */
+  /** Anode tap: on the row, or on the column when reversed. */
   readonly anode: Point;
-  /** Cathode tap, on the driven column. */
+  /** Cathode tap: on the column, or on the row when reversed. */
   readonly cathode: Point;
+  /** True for an AND gate's input diode (anode on the gate column, cathode on the stage-line row). */
+  readonly reversed?: boolean;
   /** Triangle corners: base, base, apex (the apex touches the bar). */
   readonly triangle: readonly [Point, Point, Point];
   readonly bar: readonly [Point, Point];

@@ -9,8 +9,14 @@
  * the triangle points from row to column and the bar faces the driven line.
  * A bus has both a column (where states feed it) and a row (where it feeds
  * outputs), joined at a corner; bus B1 gets the leftmost column and the
- * lowest row so that the bus lines nest without crossing. Millimetres, in
- * grid coordinates (the sheet layout moves them onto paper).
+ * lowest row so that the bus lines nest without crossing.
+ *
+ * A coded counter's decoder has the stage lines (`Q0`, `nQ0`, ...) as its
+ * first rows and its AND gates drawn like buses: a gate column on the left,
+ * with the gate's pull-up at its top and one diode to each input row (drawn
+ * reversed: anode on the column, band on the stage line), joined at a corner
+ * to the gate's row, which feeds the outputs. Millimetres, in grid
+ * coordinates (the sheet layout moves them onto paper).
  */
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import { designators } from "../core/matrix/designators.ts";
@@ -21,7 +27,7 @@ import { glyphKeyHeight } from "./glyphKey.ts";
 import { findDots } from "./junctions.ts";
 import type { Metrics } from "./layoutMetrics.ts";
 
-export type RowKind = "state" | "bus" | "link";
+export type RowKind = "state" | "line" | "gate" | "bus" | "link";
 
 export interface GridRow {
   readonly net: string;
@@ -31,8 +37,8 @@ export interface GridRow {
 
 export interface GridColumn {
   readonly net: string;
-  readonly kind: "bus" | "output";
-  /** `Buses` or the display position number. */
+  readonly kind: "gate" | "bus" | "output";
+  /** `Gates`, `Buses` or the display position number. */
   readonly group: string;
   /** Name printed at the column's head. */
   readonly head: string;
@@ -69,13 +75,22 @@ export const Y = (r: number, m: Metrics): number => r * m.pitchY;
 export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, m: Metrics): Grid {
   const drivers = new Set(matrix.diodes.map((d) => d.from));
   const linkSources = matrix.outputs.filter((o) => drivers.has(o));
+  const gates = new Set(matrix.gates.map((g) => g.ref));
+  const lines = new Set(matrix.lines);
+  // An AND gate's input diode: drawn where the stage line's row crosses the gate's column.
+  const isGateInput = (d: { from: string; to: string }): boolean => gates.has(d.from) && lines.has(d.to);
+  const usedLines = spec.lines.filter((l) => matrix.diodes.some((d) => d.from === l || d.to === l));
   const rows: GridRow[] = [
-    ...spec.states.map((s, k) => ({ net: s, kind: "state" as const, text: `${s} "${spec.texts[k] ?? ""}"` })),
+    ...(spec.counter.kind === "one-hot"
+      ? spec.states.map((s, k) => ({ net: s, kind: "state" as const, text: `${s} "${spec.texts[k] ?? ""}"` }))
+      : usedLines.map((l) => ({ net: l, kind: "line" as const, text: l }))),
+    ...[...matrix.gates].reverse().map((g) => ({ net: g.ref, kind: "gate" as const, text: `${g.ref} (gate)` })),
     ...[...matrix.buses].reverse().map((b) => ({ net: b, kind: "bus" as const, text: `${b} (bus)` })),
     ...linkSources.map((o) => ({ net: o, kind: "link" as const, text: `${o} (link)` })),
   ];
   const driverOf = new Map(designators(spec, matrix, project.electrical).drivers.map((d) => [d.output, d.transistor]));
   const columns: GridColumn[] = [
+    ...matrix.gates.map((g) => ({ net: g.ref, kind: "gate" as const, group: "Gates", head: g.ref, foot: "" })),
     ...matrix.buses.map((b) => ({ net: b, kind: "bus" as const, group: "Buses", head: b, foot: "" })),
     ...matrix.outputs.map((o) => {
       const m = /^(\d+)(.*)$/.exec(o);
@@ -94,16 +109,17 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
   const bottom = Y(R - 1, m) + m.pitchY - m.topPad;
 
   const diodes: DiodeSymbol[] = matrix.diodes.map((d) => {
-    const r = rowOf.get(d.from);
-    const c = colOf.get(d.to);
+    const reversed = isGateInput(d);
+    const r = rowOf.get(reversed ? d.to : d.from);
+    const c = colOf.get(reversed ? d.from : d.to);
     if (r === undefined || c === undefined) throw new Error(`bug: diode ${d.ref} from ${d.from} to ${d.to} has no row or column`);
-    return diodeSymbol(d, { x: X(c, pitchX), y: Y(r, m) }, m);
+    return diodeSymbol(reversed ? { ...d, reversed } : d, { x: X(c, pitchX), y: Y(r, m) }, m);
   });
 
   const wires: Wire[] = [];
   for (const [r, row] of rows.entries()) {
     const y = Y(r, m);
-    if (row.kind === "state") {
+    if (row.kind === "state" || row.kind === "line") {
       wires.push({ net: row.net, a: { x: left, y }, b: { x: right, y }, horizontal: true });
       continue;
     }
@@ -111,7 +127,7 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
     const ownX = own === undefined ? [] : [X(own, pitchX)];
     // From the leftmost anode tap to just past the rightmost crossing, so the
     // row really crosses every column it feeds.
-    const fed = diodes.filter((d) => d.from === row.net);
+    const fed = diodes.filter((d) => d.from === row.net && !d.reversed);
     const x0 = Math.min(...ownX, ...fed.map((d) => d.anode.x - m.overshoot));
     const x1 = Math.max(...ownX, ...fed.map((d) => d.crossing.x + m.overshoot));
     wires.push({ net: row.net, a: { x: x0, y }, b: { x: x1, y }, horizontal: true });
@@ -123,7 +139,10 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
       continue;
     }
     const own = rowOf.get(col.net);
-    const taps = diodes.filter((d) => d.to === col.net).map((d) => d.cathode.y + m.overshoot);
+    // Where diodes tap the column: a bus's cathodes, a gate's input anodes.
+    const taps = diodes
+      .filter((d) => (d.reversed ? d.from : d.to) === col.net)
+      .map((d) => (d.reversed ? d.anode.y : d.cathode.y) + m.overshoot);
     const y1 = Math.max(...(own === undefined ? [] : [Y(own, m)]), ...taps);
     wires.push({ net: col.net, a: { x, y: top }, b: { x, y: y1 }, horizontal: false });
   }
@@ -138,15 +157,21 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
   return { rows, columns, pitchX, wires, diodes, dots, rotateHeads, keyH, m };
 }
 
-/** The symbol of a diode at a crossing, its taps `m.tap` left of and below it. */
+/**
+ * The symbol of a diode at a crossing, its taps `m.tap` left of and below
+ * it: the anode on the row to the left and the cathode on the column below,
+ * or the other way round for a reversed (gate input) diode.
+ */
 export function diodeSymbol(
-  d: { readonly ref: string; readonly from: string; readonly to: string },
+  d: { readonly ref: string; readonly from: string; readonly to: string; readonly reversed?: boolean },
   crossing: Point,
   m: Metrics,
 ): DiodeSymbol {
   const { ref, from, to } = d;
-  const anode = { x: crossing.x - m.tap, y: crossing.y };
-  const cathode = { x: crossing.x, y: crossing.y + m.tap };
+  const rowTap = { x: crossing.x - m.tap, y: crossing.y };
+  const columnTap = { x: crossing.x, y: crossing.y + m.tap };
+  const anode = d.reversed ? columnTap : rowTap;
+  const cathode = d.reversed ? rowTap : columnTap;
   const len = Math.hypot(cathode.x - anode.x, cathode.y - anode.y);
   const u = { x: (cathode.x - anode.x) / len, y: (cathode.y - anode.y) / len };
   const p = { x: -u.y, y: u.x };
@@ -163,5 +188,16 @@ export function diodeSymbol(
     { x: apex.x + p.x * half, y: apex.y + p.y * half },
     { x: apex.x - p.x * half, y: apex.y - p.y * half },
   ];
-  return { ref, from, to, crossing, anode, cathode, triangle, bar, box: boundingBox([anode, cathode, ...triangle, ...bar]) };
+  return {
+    ref,
+    from,
+    to,
+    crossing,
+    anode,
+    cathode,
+    ...(d.reversed ? { reversed: true } : {}),
+    triangle,
+    bar,
+    box: boundingBox([anode, cathode, ...triangle, ...bar]),
+  };
 }

@@ -176,7 +176,7 @@ export function layoutSheet(job: SheetJob): SheetLayout {
     labels.push(
       label(row.text, { x: region.x + rowLabelW - 1.5, y: Y(r, m) + dy + 0.36 * m.rowSize }, m.rowSize, "row", {
         anchor: "end",
-        bold: row.kind === "state",
+        bold: row.kind === "state" || row.kind === "line",
       }),
     );
   }
@@ -213,9 +213,12 @@ export function layoutSheet(job: SheetJob): SheetLayout {
     const x0 = X(g.first, px) + dx - px / 2 + 0.8;
     const x1 = X(g.last, px) + dx + px / 2 - 0.8;
     const cx = (x0 + x1) / 2;
-    const isBus = g.group === "Buses";
+    const isBus = g.group === "Buses" || g.group === "Gates";
     labels.push(
-      label(isBus ? "Buses" : `Pos ${g.group}`, { x: cx, y: headTop + 2.6 }, m.groupSize, "group", { anchor: "middle", bold: true }),
+      label(g.group === "Gates" ? "AND gates" : isBus ? "Buses" : `Pos ${g.group}`, { x: cx, y: headTop + 2.6 }, m.groupSize, "group", {
+        anchor: "middle",
+        bold: true,
+      }),
     );
     segments.push({ a: { x: x0, y: bracketY + 1 }, b: { x: x0, y: bracketY }, width: STROKE.thin });
     segments.push({ a: { x: x0, y: bracketY }, b: { x: x1, y: bracketY }, width: STROKE.thin });

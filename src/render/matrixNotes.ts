@@ -22,13 +22,15 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
       `Diodes ${refRanges(refs)} (${refs.length}): small-signal silicon, at least ${e.diode.maxReverseV} V reverse and ${milliampsExact(e.diode.maxForwardA)} mA forward.`,
     );
   }
-  notes.push(
-    "Band = cathode = bar on the symbol. The anode takes the row (counter, bus or link line); the cathode goes to the column it drives.",
-  );
-  notes.push("Lines that cross without a dot are not joined; a dot marks a joint.");
-  notes.push(
-    `Rows: the counter lines ${spec.states[0]}-${spec.states[spec.states.length - 1]}, each with the text it shows. Columns: output lines, grouped by display position; each ends at its driver's base (Q).`,
-  );
+  if (spec.counter.kind === "one-hot") {
+    notes.push(
+      "Band = cathode = bar on the symbol. The anode takes the row (counter, bus or link line); the cathode goes to the column it drives.",
+    );
+    notes.push("Lines that cross without a dot are not joined; a dot marks a joint.");
+    notes.push(
+      `Rows: the counter lines ${spec.states[0]}-${spec.states[spec.states.length - 1]}, each with the text it shows. Columns: output lines, grouped by display position; each ends at its driver's base (Q).`,
+    );
+  } else notes.push(...codedNotes(spec, matrix));
   if (matrix.buses.length > 0)
     notes.push(`Bus nodes ${matrix.buses.join(", ")}: the counter lines feed the bus column; the bus row feeds the outputs.`);
   const outputs = new Set(matrix.outputs);
@@ -42,6 +44,26 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
   if (spec.neverLit.length > 0) notes.push(`Never lit, not wired: ${someOf(spec.neverLit)}.`);
   if (continued) notes.push("An arrowhead with sh.N marks a line continued on sheet N.");
   notes.push("Fit the diodes in the order of the wiring list, row by row, ticking each one.");
+  return notes;
+}
+
+/** How to read a coded counter's decoder: the two planes, the gates, and the code of every state. */
+function codedNotes(spec: DecodeSpec, matrix: DiodeMatrix): string[] {
+  const n = spec.counter.stages;
+  const gates = matrix.gates.map((g) => g.ref);
+  const notes = [
+    "Band = cathode = bar on the symbol. OR diodes: the anode takes the row (stage line, gate, bus or link line), the band the column it drives. AND-gate diodes (on a gate column): the anode takes the gate column, the band the stage line.",
+    "Lines that cross without a dot are not joined; a dot marks a joint.",
+    `Rows: the counter's stage lines Q0-Q${n - 1}, nQ<i> being stage i's complement output${gates.length > 0 ? ", then one row per AND gate" : ""}. Columns: ${gates.length > 0 ? "the AND gates, then " : ""}the output lines, grouped by display position; each ends at its driver's base (Q).`,
+  ];
+  if (gates.length > 0) {
+    notes.push(
+      `AND gates ${refRanges(gates)}: each gate's column is its node, pulled up from the top of the column and held low by a diode to each input line; the column turns into the gate's row, which feeds the outputs.`,
+    );
+  }
+  const codes = spec.states.map((s, k) => `${s} ${spec.counter.codes[k]} "${spec.texts[k] ?? ""}"`);
+  const shown = codes.slice(0, 16).join(", ");
+  notes.push(`States and codes (Q${n - 1} leftmost): ${shown}${codes.length > 16 ? ` and ${codes.length - 16} more` : ""}.`);
   return notes;
 }
 

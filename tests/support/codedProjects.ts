@@ -6,6 +6,12 @@ import type { Project } from "../../src/core/project/project.ts";
 import { compileSpec, type DecodeSpec } from "../../src/core/spec/decodeSpec.ts";
 import type { SynthSettings } from "../../src/core/synth/synthesize.ts";
 import { makeProject } from "./projects.ts";
+import type { DiodeMatrix } from "../../src/core/matrix/matrix.ts";
+import { logicProblem } from "../../src/core/logic/logicProblem.ts";
+import { termFamily } from "../../src/core/logic/implicants.ts";
+import { heuristicCover } from "../../src/core/logic/coverHeuristic.ts";
+import { coverPlan, logicMatrix } from "../../src/core/logic/logicMatrix.ts";
+import { WorkMeter } from "../../src/core/synth/workMeter.ts";
 
 /** A one-position seven-segment project on a coded counter showing one character per state. */
 export function codedProject(code: "johnson" | "binary", chars: string, extra: Record<string, unknown> = {}): Project {
@@ -38,3 +44,21 @@ export const REFERENCE_CASES = [
   { name: "5-stage Johnson showing 0-9", code: "johnson", chars: "0123456789", diodes: 36, gates: 8 },
   { name: "3-stage Johnson showing 0-5", code: "johnson", chars: "012345", diodes: 21, gates: 4 },
 ] as const;
+
+/**
+ * A coded project with its heuristic two-level decoder, built without
+ * HiGHS (for drawing tests, which need no proven minimum).
+ */
+export function codedDecoder(project: Project): { project: Project; spec: DecodeSpec; matrix: DiodeMatrix } {
+  const spec = compileSpec(project);
+  const p = logicProblem(spec);
+  const cover = heuristicCover(p, termFamily(p).terms, new WorkMeter(1e8));
+  const matrix = logicMatrix(spec, coverPlan(spec, cover), {
+    lowerBound: null,
+    optimal: false,
+    depthLimit: 2,
+    policy: "per-segment",
+    method: "heuristic",
+  });
+  return { project, spec, matrix };
+}

@@ -11,6 +11,8 @@ import { PAPER_MM, FRAME_MM } from "../../../src/render/sheetFrame.ts";
 import { makeProject } from "../../support/projects.ts";
 import { arms, pieces, samePoint, stubProblems, textProblems, touches } from "../../support/layoutGeometry.ts";
 import { dieRollerShared, directExample } from "../../support/sharedMatrix.ts";
+import { codedDecoder, codedProject } from "../../support/codedProjects.ts";
+import { logicMatrix } from "../../../src/core/logic/logicMatrix.ts";
 
 /** 40 states on three positions: too big for one sheet. */
 function bigProject(): { project: Project; spec: DecodeSpec; matrix: DiodeMatrix } {
@@ -34,6 +36,37 @@ const cases: Record<string, () => { project: Project; spec: DecodeSpec; matrix: 
   "die roller with two buses and a link": dieRollerShared,
   "40 states on three positions": bigProject,
   "10 states on six positions": wideProject,
+  "BCD counter's two-level decoder": () => codedDecoder(codedProject("binary", "0123456789")),
+  "gates feeding a bus node and a link (hand-made)": () => {
+    const project = codedProject("binary", "0123");
+    const spec = compileSpec(project);
+    const plan = {
+      gates: [
+        ["nQ0", "nQ1"],
+        ["Q0", "Q1"],
+      ],
+      edges: [
+        { from: { gate: 0 }, to: "B1" },
+        { from: { gate: 1 }, to: "B1" },
+        { from: { node: "Q1" }, to: "B1" },
+        { from: { node: "B1" }, to: "1a" },
+        { from: { node: "B1" }, to: "1d" },
+        { from: { node: "nQ0" }, to: "1e" },
+        { from: { node: "1e" }, to: "1f" },
+      ],
+    };
+    const matrix = logicMatrix(spec, plan, { lowerBound: null, optimal: false, depthLimit: 3, policy: "mixed", method: "heuristic" });
+    return { project, spec, matrix };
+  },
+  "binary counter's decoder of 00-59, several sheets": () =>
+    codedDecoder(
+      makeProject({
+        title: "Minutes",
+        counter: { states: 60, code: "binary" },
+        display: { positions: 2 },
+        show: Array.from({ length: 60 }, (_, k) => String(k).padStart(2, "0")),
+      }),
+    ),
 };
 
 describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
@@ -50,16 +83,21 @@ describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
     expect([...drawing.placements.keys()].sort()).toEqual(refs);
   });
 
-  it("puts every diode symbol on the crossing of its own row and column, cathode bar toward the driven column", () => {
+  it("puts every diode symbol on the crossing of its own row and column, cathode bar toward the driven line", () => {
+    const gates = new Set(matrix.gates.map((g) => g.ref));
     for (const sheet of sheets) {
       const wires = sheet.segments.filter((s) => s.net !== undefined);
       for (const d of sheet.diodes) {
         const m = matrix.diodes.find((x) => x.ref === d.ref)!;
         expect([d.from, d.to]).toEqual([m.from, m.to]);
-        const row = wires.find((w) => w.net === d.from && w.a.y === w.b.y && touches(d.anode, w) > 0);
-        const column = wires.find((w) => w.net === d.to && w.a.x === w.b.x && touches(d.cathode, w) > 0);
-        expect(row, `${d.ref}: anode not on a row of ${d.from}`).toBeDefined();
-        expect(column, `${d.ref}: cathode not on a column of ${d.to}`).toBeDefined();
+        // An AND gate's input diode is drawn reversed: anode on the gate's column, cathode on the stage line's row.
+        const gateInput = gates.has(m.from) && matrix.lines.includes(m.to);
+        expect(d.reversed === true).toBe(gateInput);
+        const [rowNet, rowTap, colNet, colTap] = gateInput ? [d.to, d.cathode, d.from, d.anode] : [d.from, d.anode, d.to, d.cathode];
+        const row = wires.find((w) => w.net === rowNet && w.a.y === w.b.y && touches(rowTap, w) > 0);
+        const column = wires.find((w) => w.net === colNet && w.a.x === w.b.x && touches(colTap, w) > 0);
+        expect(row, `${d.ref}: no row of ${rowNet} at its tap`).toBeDefined();
+        expect(column, `${d.ref}: no column of ${colNet} at its tap`).toBeDefined();
         // The crossing is where that row and that column meet, and it lies on both.
         expect(d.crossing.y).toBeCloseTo(row!.a.y, 9);
         expect(d.crossing.x).toBeCloseTo(column!.a.x, 9);
@@ -268,6 +306,26 @@ describe("layout details", () => {
     expect(sheet!.dots.some((d) => samePoint(d.at, row.a))).toBe(false);
     const link = sheet!.segments.find((s) => s.net === "1ml" && s.a.y === s.b.y)!;
     expect(sheet!.dots.some((d) => d.net === "1ml" && samePoint(d.at, link.a))).toBe(true);
+  });
+
+  it("draws an AND gate as a column holding its input diodes, turning at a corner without a dot into the row that feeds the outputs", () => {
+    const { project, spec, matrix } = codedDecoder(codedProject("binary", "0123456789"));
+    const [sheet] = layoutMatrix(project, spec, matrix, drawingOptions(project)).sheets;
+    const gate = matrix.gates[0]!;
+    const wires = sheet!.segments.filter((s) => s.net === gate.ref);
+    expect(wires.length).toBe(2);
+    const column = wires.find((w) => w.a.x === w.b.x)!;
+    const row = wires.find((w) => w.a.y === w.b.y)!;
+    expect(samePoint(column.b, row.a)).toBe(true);
+    expect(sheet!.dots.some((d) => samePoint(d.at, row.a))).toBe(false);
+    const inputs = sheet!.diodes.filter((d) => d.from === gate.ref && matrix.lines.includes(d.to));
+    expect(inputs.map((d) => d.to).sort()).toEqual([...gate.inputs].sort());
+    for (const d of inputs) expect(d.crossing.x).toBeCloseTo(column.a.x, 9);
+    // The stage lines are the first rows, then the gates; the column heads start with the gates.
+    const rowLabels = sheet!.labels.filter((l) => l.role === "row").map((l) => l.text);
+    expect(rowLabels.slice(0, 2)).toEqual(["Q0", "nQ0"]);
+    expect(rowLabels).toContain(`${gate.ref} (gate)`);
+    expect(sheet!.labels.some((l) => l.role === "group" && l.text === "AND gates")).toBe(true);
   });
 
   it("takes the date from its input and leaves the field blank without one", () => {
