@@ -5,7 +5,7 @@
  * coded specs here; the rest is listed for the command, the app, tests and
  * the bench.
  */
-export { synthesizeCoded, twoLevelBudget } from "./synthesizeCoded.ts";
+export { synthesizeCoded, twoLevelBudget, twoRankDecoder, twoRankSettings } from "./synthesizeCoded.ts";
 export type { CodedHooks, CodedSynthesis, DecoderStructure, TwoLevelEnd, TwoLevelResult } from "./synthesizeCoded.ts";
 export { literalAt, literalIndex, literalLine, logicProblem } from "./logicProblem.ts";
 export type { LogicProblem } from "./logicProblem.ts";
@@ -36,6 +36,8 @@ export { litByCode, verifyLogic } from "./verifyLogic.ts";
 export type { LogicLimits } from "./verifyLogic.ts";
 export { hasRepeatedRows, mergedLines, rankedDecoder, stateLines } from "./twoRank.ts";
 export type { DecodedLine, OneHotSynth, RankedDecoder } from "./twoRank.ts";
+export { decoderTerms } from "./decoderTerms.ts";
+export type { DecoderTerm } from "./decoderTerms.ts";
 export { glyphNamer, POWER_UP_MAX_STAGES, powerUpTable, powerUpText } from "./powerUp.ts";
 export type { PowerUpEntry, PowerUpTable } from "./powerUp.ts";
 export {

@@ -122,10 +122,9 @@ export async function synthesizeCoded(
   // The two-level stage is the main work: its budgets are planned to take about a third of the limit
   // (TWO_LEVEL_SHARE). Each two-rank run is a synthesis of its own with a quarter of the limit, which
   // its budgets plan to end at about a third of that.
-  const rankMs = Math.max(LIMITS.timeLimitMs.min, Math.floor(settings.timeLimitMs / 4));
   const twoLevel = await twoLevelDecoder(spec, p, settings, started, hooks);
   if (!twoLevel.ok) return twoLevel;
-  const rankSettings = { ...settings, timeLimitMs: rankMs };
+  const rankSettings = twoRankSettings(settings);
   const twoRank = await rankedDecoder(spec, p, stateLines(p), rankSettings, hooks.oneHot);
   if (!twoRank.ok) return twoRank;
 
@@ -139,12 +138,37 @@ export async function synthesizeCoded(
   };
   if (settings.mode !== "direct") consider(twoRank.value.matrix, "two-rank");
   if (settings.mode !== "direct" && settings.depthLimit >= 2 && hasRepeatedRows(spec)) {
-    const walk = walkStateSets(p, { meter: new WorkMeter(workBudget(rankMs).familyWork) });
+    const walk = walkStateSets(p, { meter: new WorkMeter(workBudget(rankSettings.timeLimitMs).familyWork) });
     const merged = await rankedDecoder(spec, p, mergedLines(p, spec, walk.nodes), rankSettings, hooks.oneHot);
     if (!merged.ok) return merged;
     consider(merged.value.matrix, "merged");
   }
   return ok({ matrix, structure, twoLevel: twoLevel.value, twoRank: twoRank.value });
+}
+
+/** The settings of a two-rank run: the project's, with a quarter of its time limit. */
+export function twoRankSettings(settings: SynthSettings): SynthSettings {
+  return { ...settings, timeLimitMs: Math.max(LIMITS.timeLimitMs.min, Math.floor(settings.timeLimitMs / 4)) };
+}
+
+/**
+ * The two-rank decoder of a coded spec on its own, exactly as
+ * `synthesizeCoded` builds it for the same settings (the app asks for it
+ * beside the decoder it shows).
+ *
+ * @example
+ * const r = await twoRankDecoder(spec, synthSettings(project), synthesize);
+ * if (r.ok) r.value.gateDiodes; // 20 for 0-9 on a 5-stage Johnson counter
+ */
+export async function twoRankDecoder(
+  spec: DecodeSpec,
+  settings: SynthSettings,
+  oneHot: OneHotSynth,
+): Promise<Result<RankedDecoder, SynthFailure>> {
+  const problem = checkSettings(settings);
+  if (problem) return fail(problem);
+  const p = logicProblem(spec);
+  return rankedDecoder(spec, p, stateLines(p), twoRankSettings(settings), oneHot);
 }
 
 /** The two-level stage: direct, heuristic or exact by the mode. */

@@ -4,6 +4,7 @@ import { app } from "../state/appState.ts";
 import { BudgetPanel } from "./BudgetPanel.tsx";
 import { CautionBanner } from "./CautionBanner.tsx";
 import { ComparisonPanel } from "./ComparisonPanel.tsx";
+import { DecoderPanel } from "./DecoderPanel.tsx";
 import { DrawingPanel } from "./DrawingPanel.tsx";
 import { GlyphEditor } from "./GlyphEditor.tsx";
 import { NoticeBox } from "./NoticeBox.tsx";
@@ -51,6 +52,7 @@ export function App() {
       <main class="workspace">
         <div class="col-left">
           <ProjectPanel />
+          <DecoderPanel />
           <GlyphEditor />
         </div>
         <div class="col-right">

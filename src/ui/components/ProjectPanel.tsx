@@ -3,7 +3,7 @@
  * list, or filled from a counting pattern) and the synthesis options.
  */
 import { createMemo, createSignal, For, Index, Show } from "solid-js";
-import type { CellKind, DepthPolicy } from "../../core/project/project.ts";
+import type { CellKind, CounterCodeKind, DepthPolicy } from "../../core/project/project.ts";
 import { LIMITS } from "../../core/project/limits.ts";
 import { numberFromText } from "../../core/project/synthesisSchema.ts";
 import { splitText } from "../../core/project/projectSchema.ts";
@@ -16,6 +16,8 @@ import {
   draftSegments,
   effectiveGlyphs,
   setCell,
+  setCounterCode,
+  setCounterCodes,
   setPositions,
   setStates,
   setSupplyVolts,
@@ -26,6 +28,12 @@ import {
 } from "../state/draftEdits.ts";
 
 const CELL_NAMES: Record<CellKind, string> = { seg7: "7-segment", seg7dp: "7-segment + dp", custom: "custom" };
+const CODE_NAMES: Record<CounterCodeKind, string> = {
+  "one-hot": "ring (one line per state)",
+  johnson: "Johnson (twisted ring)",
+  binary: "binary (BCD at 10 states)",
+  custom: "custom codes",
+};
 const POLICY_NAMES: Record<DepthPolicy, string> = { "per-segment": "per segment", mixed: "mixed", uniform: "uniform" };
 const DEPTH_LIMITS = Array.from({ length: LIMITS.depthLimit.max - LIMITS.depthLimit.min + 1 }, (_, i) => LIMITS.depthLimit.min + i);
 
@@ -86,6 +94,31 @@ export function ProjectPanel() {
           value={d().counter.states}
           onChange={(e) => app.edit((x) => setStates(x, Number(e.currentTarget.value) || 2))}
         />
+
+        <label for="f-code">Counter code</label>
+        <select
+          id="f-code"
+          value={d().counter.code}
+          data-testid="counter-code"
+          onChange={(e) => app.edit((x) => setCounterCode(x, e.currentTarget.value as CounterCodeKind))}
+        >
+          <For each={Object.keys(CODE_NAMES) as CounterCodeKind[]}>{(k) => <option value={k}>{CODE_NAMES[k]}</option>}</For>
+        </select>
+
+        <Show when={d().counter.code === "custom"}>
+          <label for="f-codes">Codes</label>
+          <textarea
+            id="f-codes"
+            rows={3}
+            spellcheck={false}
+            title="one bit string per state, the highest stage leftmost, separated by spaces or new lines"
+            value={(d().counter.codes ?? []).join(" ")}
+            onChange={(e) => {
+              app.edit((x) => setCounterCodes(x, e.currentTarget.value));
+              app.sealEdit();
+            }}
+          />
+        </Show>
 
         <label for="f-positions">Positions</label>
         <input

@@ -31,6 +31,9 @@ export function ResultBar() {
       <Show when={m()} fallback={<span class="muted">No result yet</span>}>
         <span class="count" data-testid="diode-count" data-count={m()?.count}>
           <strong>{m()?.count}</strong> diodes
+          <Show when={(m()?.gates.length ?? 0) > 0}>
+            , <strong data-testid="gate-count">{m()?.gates.length}</strong> AND gates
+          </Show>
         </span>
         <span class="chip ok" title="every state lights exactly its glyph (independent verifier)">
           ✓ verified

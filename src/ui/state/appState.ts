@@ -27,7 +27,8 @@ import { downloadText, fileStem } from "../files/download.ts";
 import { pageStore } from "./pageStore.ts";
 import { keepCurrentProject, readRecent, type RecentProject } from "./recentProjects.ts";
 import { decodeShareHash, isShareHash } from "./shareLink.ts";
-import type { WorkerFailure } from "../workers/analysisProtocol.ts";
+import type { TwoRankFigures, WorkerFailure } from "../workers/analysisProtocol.ts";
+import type { SynthFailure } from "../../core/synth/synthesize.ts";
 import { LiveRunner } from "../workers/liveRun.ts";
 import { ExactRunner } from "../workers/exactRun.ts";
 import { analysis } from "../workers/analysisClient.ts";
@@ -102,6 +103,12 @@ function createAppState() {
   /** The drawing of the shown result, laid out once (in a worker) for the screen, the print view and the exports. */
   const [drawing, setDrawing] = createSignal<MatrixDrawing | null>(null);
   let budgetTimer: ReturnType<typeof setTimeout> | undefined;
+  /** A coded counter's two-rank decoder, for the project it was worked out for (its JSON). */
+  const [twoRank, setTwoRank] = createSignal<{
+    readonly key: string;
+    readonly result: Result<TwoRankFigures, SynthFailure | WorkerFailure>;
+  } | null>(null);
+  let twoRankKey: string | null = null;
   /** Results already worked out, by glyph set; `knownVersion` counts their changes for the screen. */
   const known = new KnownResults();
   const [knownVersion, setKnownVersion] = createSignal(0);
@@ -134,7 +141,17 @@ function createAppState() {
       setDrawing(laidOut?.drawing ?? null);
     });
     if (final) scheduleBudget(r);
+    if (final && r.spec.counter.kind !== "one-hot") void requestTwoRank(r.project);
     if (laidOut && laidOut.paper !== paper()) void relayout(r);
+  }
+
+  /** Asks the worker for a coded project's two-rank decoder, once per project. */
+  async function requestTwoRank(project: Project): Promise<void> {
+    const key = JSON.stringify(draftFromProject(project));
+    if (key === twoRankKey) return;
+    twoRankKey = key;
+    const reply = await analysis.request<"two-rank">({ job: "two-rank", project: draftFromProject(project) });
+    if (twoRankKey === key) setTwoRank({ key, result: reply.result });
   }
 
   /** Lays out the shown result again, for the paper chosen now. */
@@ -512,6 +529,12 @@ function createAppState() {
     /** Keeps what a run found for a glyph set (a comparison row, for one). */
     remember,
     drawing,
+    /** The two-rank decoder of the shown coded project, or undefined while it is being worked out. */
+    twoRank: () => {
+      const r = live();
+      const t = twoRank();
+      return r && t && t.key === JSON.stringify(draftFromProject(r.project)) ? t.result : undefined;
+    },
     budget,
     budgetStale: () => budget() !== null && (budget()?.forResult !== live() || budget()?.trim !== trimMode()),
     /** The budget of the shown result with the current trim setting, or undefined while it is being worked out. */

@@ -6,9 +6,10 @@
  * single change in the form rarely leaves the project unusable.
  */
 import { builtinCell, builtinGlyphs } from "../../core/glyphs/glyphs.ts";
-import type { CellFigure, CellKind, SynthesisFields } from "../../core/project/project.ts";
+import type { CellFigure, CellKind, CounterCodeKind, SynthesisFields } from "../../core/project/project.ts";
 import { figureOf } from "../../core/project/figureSchema.ts";
 import type { Problem } from "../../core/result/result.ts";
+import { binaryCodes } from "../../core/spec/counterCode.ts";
 import { LIMITS } from "../../core/project/limits.ts";
 import { splitText } from "../../core/project/projectSchema.ts";
 import type { Draft, FigureFields } from "./draft.ts";
@@ -114,6 +115,22 @@ export function setStates(d: Draft, states: number): Draft {
   const show = d.show.slice(0, n);
   while (show.length < n) show.push(" ".repeat(d.display.positions));
   return { ...d, counter: { ...d.counter, states: n }, show };
+}
+
+/**
+ * Sets how the counter holds its state. A custom code starts from the
+ * binary codes of the states, so the project stays valid; another code
+ * drops the custom table.
+ */
+export function setCounterCode(d: Draft, code: CounterCodeKind): Draft {
+  const { codes: _, ...rest } = d.counter;
+  if (code !== "custom") return { ...d, counter: { ...rest, code } };
+  return { ...d, counter: { ...rest, code, codes: d.counter.codes ?? binaryCodes(d.counter.states) } };
+}
+
+/** Sets a custom code table from text: one bit string per state, separated by spaces, commas or new lines. */
+export function setCounterCodes(d: Draft, text: string): Draft {
+  return { ...d, counter: { ...d.counter, codes: text.split(/[\s,]+/).filter((c) => c !== "") } };
 }
 
 /** Sets the position count; texts gain blanks on the left or lose their leftmost positions. */

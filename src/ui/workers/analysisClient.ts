@@ -16,7 +16,7 @@ type ReplyOf<J extends Job> = Extract<AnalysisReply, { job: J }>;
 export type AnalysisWorker = WorkerPort<AnalysisRequest, AnalysisReply>;
 
 /** Longest a job may run before its worker is stopped, milliseconds. */
-export const ANALYSIS_DEADLINE_MS: Readonly<Record<Job, number>> = { budget: 30_000, compare: 30_000, layout: 30_000 };
+export const ANALYSIS_DEADLINE_MS: Readonly<Record<Job, number>> = { budget: 30_000, compare: 30_000, layout: 30_000, "two-rank": 30_000 };
 
 const newWorker = (): AnalysisWorker =>
   new Worker(new URL("./analysisWorker.ts", import.meta.url), { type: "module" }) as unknown as AnalysisWorker;
@@ -99,7 +99,12 @@ export class AnalysisClient {
   }
 }
 
-const JOB_NAMES: Readonly<Record<Job, string>> = { budget: "the budget", compare: "the comparison", layout: "the drawing" };
+const JOB_NAMES: Readonly<Record<Job, string>> = {
+  budget: "the budget",
+  compare: "the comparison",
+  layout: "the drawing",
+  "two-rank": "the two-rank decoder",
+};
 
 /** The analysis workers of the page. */
 export const analysis = new AnalysisClient();

@@ -25,9 +25,22 @@ export type AnalysisRequest =
   /** The glyph-style comparison with the heuristic. */
   | { readonly id: number; readonly job: "compare"; readonly project: unknown }
   /** The drawing of a matrix on another paper. */
-  | { readonly id: number; readonly job: "layout"; readonly project: unknown; readonly matrix: unknown; readonly paper: PaperName };
+  | { readonly id: number; readonly job: "layout"; readonly project: unknown; readonly matrix: unknown; readonly paper: PaperName }
+  /** A coded counter's two-rank decoder (one gate per state, then the matrix), to show beside the decoder on screen. */
+  | { readonly id: number; readonly job: "two-rank"; readonly project: unknown };
+
+/** What the app shows of a two-rank decoder. */
+export interface TwoRankFigures {
+  readonly diodes: number;
+  readonly gates: number;
+  readonly gateDiodes: number;
+  readonly matrixDiodes: number;
+  /** How the matrix on the state lines was found. */
+  readonly method: string;
+}
 
 export type AnalysisReply =
   | { readonly id: number; readonly job: "budget"; readonly result: Result<Budget, BudgetFailure | WorkerFailure> }
   | { readonly id: number; readonly job: "compare"; readonly result: Result<GlyphStyleRow[], SynthFailure | WorkerFailure> }
-  | { readonly id: number; readonly job: "layout"; readonly result: Result<MatrixDrawing, WorkerFailure> };
+  | { readonly id: number; readonly job: "layout"; readonly result: Result<MatrixDrawing, WorkerFailure> }
+  | { readonly id: number; readonly job: "two-rank"; readonly result: Result<TwoRankFigures, SynthFailure | WorkerFailure> };

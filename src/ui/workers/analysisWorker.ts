@@ -6,7 +6,8 @@ import { compareGlyphStyles } from "../../core/compare/glyphStyles.ts";
 import type { DiodeMatrix } from "../../core/matrix/matrix.ts";
 import { validateProject } from "../../core/project/projectSchema.ts";
 import { fail, formatProblems, ok } from "../../core/result/result.ts";
-import { synthSettings } from "../../core/synth/synthesize.ts";
+import { synthesize, synthSettings } from "../../core/synth/synthesize.ts";
+import { twoRankDecoder } from "../../core/logic/synthesizeCoded.ts";
 import { verifyMatrix } from "../../core/matrix/verify.ts";
 import { drawingOptions } from "../../render/drawingOptions.ts";
 import { layoutMatrix } from "../../render/layout.ts";
@@ -26,6 +27,19 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
     return post({ id: req.id, job: req.job, result } as AnalysisReply);
   }
   const project = parsed.value;
+  if (req.job === "two-rank") {
+    const r = await twoRankDecoder(compileSpec(project), synthSettings(project), synthesize);
+    const result = r.ok
+      ? ok({
+          diodes: r.value.matrix.count,
+          gates: r.value.matrix.gates.length,
+          gateDiodes: r.value.gateDiodes,
+          matrixDiodes: r.value.matrixDiodes,
+          method: r.value.lineMatrix.method,
+        })
+      : r;
+    return post({ id: req.id, job: "two-rank", result });
+  }
   if (req.job === "compare") {
     return post({ id: req.id, job: "compare", result: await compareGlyphStyles(project, { settings: { mode: "fast" } }) });
   }

@@ -6,6 +6,8 @@ import {
   draftFigure,
   effectiveGlyphs,
   setCell,
+  setCounterCode,
+  setCounterCodes,
   setCustomSegments,
   setPositions,
   setStates,
@@ -23,6 +25,26 @@ const valid = (d: Draft) => {
 
 describe("draft edits", () => {
   const hex = draftFromProject(example("relay-hex-monitor"));
+
+  it("sets the counter code; a custom code starts from the binary codes, so the project stays valid", () => {
+    const binary = setCounterCode(hex, "binary");
+    expect(valid(binary).counter).toEqual({ states: 16, drive: "source", code: "binary", codes: [] });
+    const custom = setCounterCode(hex, "custom");
+    expect(custom.counter.codes?.slice(0, 3)).toEqual(["0000", "0001", "0010"]);
+    expect(valid(custom).counter.code).toBe("custom");
+    const back = setCounterCode(custom, "johnson");
+    expect(back.counter.codes).toBeUndefined();
+    expect(valid(back).counter.code).toBe("johnson");
+  });
+
+  it("reads a custom code table from text, and the schema names a bad one", () => {
+    const gray = setCounterCodes(setCounterCode(setStates(hex, 4), "custom"), "00, 01\n11 10");
+    expect(gray.counter.codes).toEqual(["00", "01", "11", "10"]);
+    expect(valid(gray).counter.codes).toEqual(["00", "01", "11", "10"]);
+    const short = setCounterCodes(gray, "00 01 11");
+    const r = validateProject(short);
+    expect(!r.ok && r.error[0]?.path).toBe("counter.codes");
+  });
 
   it("sets one text without touching the others", () => {
     const d = setText(hex, 3, "8");

@@ -14,7 +14,7 @@ function setup() {
       workers.push(w);
       return w;
     },
-    { budget: 1_000, compare: 5_000, layout: 2_000 },
+    { budget: 1_000, compare: 5_000, layout: 2_000, "two-rank": 3_000 },
   );
   return { client, workers };
 }
