@@ -5,7 +5,8 @@
  * coded specs here; the rest is listed for the command, the app, tests and
  * the bench.
  */
-export { synthesizeCoded, twoLevelBudget, twoRankDecoder, twoRankSettings } from "./synthesizeCoded.ts";
+export { coverSearchWork, synthesizeCoded, twoLevelBudget, twoRankDecoder, twoRankSettings } from "./synthesizeCoded.ts";
+export { improveCover } from "./coverSearch.ts";
 export type { CodedHooks, CodedSynthesis, DecoderStructure, TwoLevelEnd, TwoLevelResult } from "./synthesizeCoded.ts";
 export { literalAt, literalIndex, literalLine, logicProblem } from "./logicProblem.ts";
 export type { LogicProblem } from "./logicProblem.ts";
