@@ -8,7 +8,7 @@
  * number is right-aligned in the display's positions: a start written with a
  * leading zero (`00-59`), or the words `with leading zero(s)`, pad with
  * zeros; otherwise, or with `with leading blank(s)`, the unused positions on
- * the left stay blank.
+ * the left stay blank. Any other words are refused, and named.
  */
 import { fail, ok, type Result } from "../result/result.ts";
 import { LIMITS } from "./limits.ts";
@@ -18,6 +18,10 @@ import { quoteText } from "./valueText.ts";
 const MAX_TEXTS = LIMITS.states.max;
 const HEX_FORMS = "0123456789AbCdEF";
 const RANGE = /^([0-9a-f]+)\s*(?:-|\.\.|to)\s*([0-9a-f]+)$/i;
+/** A range followed by more words, to name the words that are not understood. */
+const RANGE_AND_MORE = /^([0-9a-f]+\s*(?:-|\.\.|to)\s*[0-9a-f]+)\s+(.+)$/i;
+/** The words a pattern may end with. */
+const SUFFIX_WORDS = '"with leading zeros" or "with leading blanks"';
 
 type Padding = "blank" | "zero" | "auto";
 
@@ -32,7 +36,7 @@ export function fillPattern(pattern: string, positions: number): Result<string[]
   const path = "pattern";
   let body = pattern.trim();
   let padding: Padding = "auto";
-  const suffix = /\s+with\s+leading\s+(blanks?|spaces?|zeros?|zeroes)$/i.exec(body);
+  const suffix = /\s+with\s+(?:an?\s+)?leading\s+(blanks?|spaces?|zeros?|zeroes)$/i.exec(body);
   if (suffix) {
     padding = /^(blank|space)/i.test(suffix[1] ?? "") ? "blank" : "zero";
     body = body.slice(0, suffix.index).trim();
@@ -43,6 +47,15 @@ export function fillPattern(pattern: string, positions: number): Result<string[]
   for (const part of body.split(",")) {
     const range = RANGE.exec(part.trim());
     if (!range) {
+      const more = RANGE_AND_MORE.exec(part.trim());
+      if (more) {
+        return fail([
+          {
+            path,
+            message: `${quoteText(more[2] ?? "")} after ${quoteText(more[1] ?? "")} is not understood; a range may end with ${SUFFIX_WORDS}, nothing else`,
+          },
+        ]);
+      }
       return fail([{ path, message: `${quoteText(part.trim())} is not a range; write it like "0-9", "0-F" or "00-59"` }]);
     }
     const [, startText = "", endText = ""] = range;

@@ -8,7 +8,10 @@ import { SEG7_VARIANTS, segmentsOfString } from "../../core/glyphs/glyphs.ts";
 import { app } from "../state/appState.ts";
 import { CellFigure } from "./CellFigure.tsx";
 import {
+  addCharacter,
+  builtinShape,
   charactersShown,
+  sameShapes,
   draftFigure,
   draftSegments,
   effectiveGlyphs,
@@ -19,12 +22,15 @@ import {
 
 export function GlyphEditor() {
   const d = () => app.draft();
+  /** Characters opened through "Add character" that the texts do not show and the project has no entry for yet. */
+  const [added, setAdded] = createSignal<readonly string[]>([]);
   const chars = createMemo(() => {
     const shown = charactersShown(d());
     const own = Object.keys(d().glyphs).filter((c) => c !== " " && !shown.includes(c));
-    return [...shown, ...own];
+    return [...shown, ...own, ...added().filter((c) => !shown.includes(c) && !own.includes(c))];
   });
   const [picked, setPicked] = createSignal<string | null>(null);
+  const [addMessage, setAddMessage] = createSignal<string | null>(null);
   const current = () => {
     const p = picked();
     return p !== null && chars().includes(p) ? p : (chars()[0] ?? null);
@@ -40,12 +46,19 @@ export function GlyphEditor() {
   };
   const [newChar, setNewChar] = createSignal("");
   const addChar = () => {
-    const c = [...newChar()][0];
-    if (!c || c === " ") return;
-    if (!(c in table())) app.edit((x) => setGlyph(x, c, []));
+    const r = addCharacter(d(), newChar());
+    setAddMessage(r.message);
+    const c = r.char;
+    if (c === null) return;
+    if (!added().includes(c)) setAdded((a) => [...a, c]);
     setPicked(c);
     setNewChar("");
   };
+  const builtin = () => {
+    const c = current();
+    return c === null ? undefined : builtinShape(d(), c);
+  };
+  const lookAlikes = () => sameShapes(d());
   const [segText, setSegText] = createSignal<string | null>(null);
 
   return (
@@ -116,14 +129,17 @@ export function GlyphEditor() {
                 </For>
               </div>
             </Show>
-            <Show when={current() !== null && current()! in d().glyphs}>
-              <button
-                type="button"
-                class="linkish"
-                onClick={() => app.edit((x) => setGlyph(x, current() ?? "", effectiveGlyphs({ ...x, glyphs: {} })[current() ?? ""] ?? []))}
-              >
-                Back to built-in shape
-              </button>
+            <Show when={current() !== null && current()! in d().glyphs && builtin()}>
+              {(shape) => (
+                <button
+                  type="button"
+                  class="linkish"
+                  data-testid="back-to-builtin"
+                  onClick={() => app.edit((x) => setGlyph(x, current() ?? "", shape()))}
+                >
+                  Back to built-in shape
+                </button>
+              )}
             </Show>
           </div>
         </div>
@@ -139,10 +155,23 @@ export function GlyphEditor() {
           onInput={(e) => setNewChar(e.currentTarget.value)}
           onKeyDown={(e) => e.key === "Enter" && addChar()}
         />
-        <button type="button" onClick={addChar}>
+        <button type="button" onClick={addChar} data-testid="add-char">
           Add
         </button>
       </div>
+      <Show when={addMessage()}>
+        <p class="muted small" role="status" data-testid="add-char-message">
+          {addMessage()}
+        </p>
+      </Show>
+      <For each={lookAlikes()}>
+        {(g) => (
+          <p class="chip warn" role="status" data-testid="same-shape">
+            ⚠ {g.chars.map((c) => (c === " " ? "blank" : `“${c}”`)).join(" and ")} look the same ({g.segments.join(" ") || "nothing lit"}):
+            the display cannot tell them apart
+          </p>
+        )}
+      </For>
       <Show when={d().display.cell === "custom"}>
         <div class="pattern-row">
           <label for="f-segments">Segments</label>

@@ -7,7 +7,7 @@ import type { CellKind, CounterCodeKind, DepthPolicy } from "../../core/project/
 import { LIMITS } from "../../core/project/limits.ts";
 import { numberFromText } from "../../core/project/synthesisSchema.ts";
 import { splitText } from "../../core/project/projectSchema.ts";
-import { formatProblems } from "../../core/result/result.ts";
+import { problemSentence } from "../state/problemWords.ts";
 import { fillPattern } from "../../core/project/textPatterns.ts";
 import { app } from "../state/appState.ts";
 import { CellFigure } from "./CellFigure.tsx";
@@ -52,7 +52,7 @@ export function ProjectPanel() {
 
   const applyPattern = () => {
     const r = fillPattern(pattern(), d().display.positions);
-    if (!r.ok) return setPatternError(formatProblems(r.error));
+    if (!r.ok) return setPatternError(r.error.map((p) => p.message).join("\n"));
     setPatternError(null);
     app.edit((x) => setTexts(x, r.value));
     app.sealEdit();
@@ -160,7 +160,12 @@ export function ProjectPanel() {
           </p>
         </Show>
         <Show when={problemsAt("show").some((p) => p.path === "show")}>
-          <p class="field-error">{problemsAt("show").find((p) => p.path === "show")?.message}</p>
+          <p class="field-error">
+            {problemSentence(
+              problemsAt("show").find((p) => p.path === "show")!,
+              d(),
+            )}
+          </p>
         </Show>
         <ol class="state-list" aria-label="Text of each state">
           <Index each={d().show}>
@@ -197,7 +202,7 @@ export function ProjectPanel() {
                   </span>
                   <Show when={err()}>
                     <span id={`f-show-err-${k}`} class="field-error inline">
-                      ⚠ {err()?.message}
+                      ⚠ {err() ? problemSentence(err()!, d()) : ""}
                     </span>
                   </Show>
                 </li>
@@ -286,7 +291,9 @@ export function ProjectPanel() {
       <Show when={app.problems().length > 0}>
         <div class="problems" role="status" data-testid="problems">
           <strong>⚠ The project has {app.problems().length} problem(s); results below are from the last valid version.</strong>
-          <pre>{formatProblems(app.problems())}</pre>
+          <ul class="problem-list">
+            <For each={app.problems()}>{(p) => <li>{problemSentence(p, d())}</li>}</For>
+          </ul>
         </div>
       </Show>
     </section>

@@ -20,7 +20,8 @@ import { isPaper } from "../../render/drawingOptions.ts";
 import { synthSettings } from "../../core/synth/synthesize.ts";
 import { parseProject, validateProject } from "../../core/project/projectSchema.ts";
 import { parseProjectBytes } from "../../core/project/projectBytes.ts";
-import { formatProblems, type Problem } from "../../core/result/result.ts";
+import type { Problem } from "../../core/result/result.ts";
+import { fileProblemLine } from "./problemWords.ts";
 import { readAutosave, writeAutosave, type KeyValueStore, type StoreFailure } from "./autosave.ts";
 import { draftFromProject, draftToJson, type Draft } from "./draft.ts";
 import { downloadText, fileStem } from "../files/download.ts";
@@ -464,9 +465,7 @@ function createAppState() {
       setNotice({
         level: "danger",
         title: `${name} was not opened; the project on screen is unchanged`,
-        lines: formatProblems(r.error)
-          .split("\n")
-          .map((l) => `${name}: ${l}`),
+        lines: r.error.map((p) => `${name}: ${fileProblemLine(p)}`),
       });
       return false;
     }
@@ -624,7 +623,7 @@ function shareLinkNotice(problems: readonly Problem[]): Notice {
   return {
     level: "warn",
     title: "The share link could not be read",
-    lines: [...formatProblems(problems).split("\n"), "The project on screen is unchanged."],
+    lines: [...problems.map(fileProblemLine), "The project on screen is unchanged."],
   };
 }
 

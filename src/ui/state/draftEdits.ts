@@ -235,3 +235,79 @@ export function setSupplyVolts(d: Draft, volts: number): Draft {
   const supply = { volts, minVolts: Math.round(volts * 0.9 * 100) / 100, maxVolts: Math.round(volts * 1.1 * 100) / 100 };
   return { ...d, electrical: { ...d.electrical, supply } };
 }
+
+/**
+ * The built-in shape of a character on the draft's cell, or undefined where
+ * there is none: a character the built-in table lacks, or any character of a
+ * custom cell (which has no built-in glyphs but the blank). "Back to built-in
+ * shape" applies only where this is defined.
+ *
+ * @example
+ * builtinShape(draft, "7"); // ["a", "b", "c"] on a seven-segment cell
+ * builtinShape(draft, "W"); // undefined
+ */
+export function builtinShape(d: Draft, char: string): readonly string[] | undefined {
+  if (d.display.cell === "custom" || char === " ") return undefined;
+  return builtinGlyphs(builtinCell(d.display.cell))[char];
+}
+
+/**
+ * Characters the texts show that light the same segments (a 4 edited into
+ * the shape of a 9; a character that lights nothing beside a blank the texts
+ * also show), as groups of two or more, with the shape they share.
+ *
+ * @example
+ * sameShapes(draft); // [{ chars: ["4", "9"], segments: ["a", "b", "c", "d", "f", "g"] }]
+ */
+export function sameShapes(d: Draft): { readonly chars: readonly string[]; readonly segments: readonly string[] }[] {
+  const table = effectiveGlyphs(d);
+  const order = draftSegments(d);
+  const byShape = new Map<string, string[]>();
+  const blank = d.show.some((t) => t.includes(" "));
+  for (const ch of [...(blank ? [" "] : []), ...charactersShown(d)]) {
+    const lit = table[ch];
+    if (lit === undefined) continue;
+    const key = order.filter((s) => lit.includes(s)).join(" ");
+    byShape.set(key, [...(byShape.get(key) ?? []), ch]);
+  }
+  return [...byShape.entries()]
+    .filter(([, chars]) => chars.length > 1)
+    .map(([key, chars]) => ({ chars, segments: key ? key.split(" ") : [] }));
+}
+
+/** What "Add character" does with what was typed: which character to open for editing, and what to tell the person. */
+export interface AddCharacter {
+  /** The character to open in the editor, or null when nothing can be added. */
+  readonly char: string | null;
+  readonly message: string;
+}
+
+/**
+ * Reads the "Add character" field. A character that already has a shape
+ * (built-in or the project's own) is opened for editing and the message
+ * says so; a new one is opened with no segments lit, to be clicked, and
+ * gets no glyph entry until it lights something.
+ *
+ * @example
+ * addCharacter(draft, "P"); // { char: "P", message: '"P" has a built-in shape (abefg); it is open for editing' }
+ * addCharacter(draft, "W"); // { char: "W", message: '"W" is new: click the segments it lights' }
+ */
+export function addCharacter(d: Draft, text: string): AddCharacter {
+  const chars = [...text.trim()];
+  if (chars.length === 0) return { char: null, message: "Type the character to add, for example P" };
+  if (chars.length > 1) return { char: null, message: `Add one character at a time ("${text.trim()}" is ${chars.length})` };
+  const c = chars[0] as string;
+  if (/[\u0000-\u001f\u007f-\u009f]/.test(c))
+    return { char: null, message: "A control character cannot be shown; type a letter, digit or sign" };
+  if (c in d.glyphs)
+    return { char: c, message: `"${c}" is already in the project (${shapeText(d, d.glyphs[c] ?? [])}); it is open for editing` };
+  const builtin = builtinShape(d, c);
+  if (builtin !== undefined) return { char: c, message: `"${c}" has a built-in shape (${shapeText(d, builtin)}); it is open for editing` };
+  return { char: c, message: `"${c}" is new: click the segments it lights` };
+}
+
+/** A shape for a message: `abefg` on a seven-segment cell, `tl c br` on a custom one, `nothing lit` when empty. */
+function shapeText(d: Draft, segments: readonly string[]): string {
+  if (segments.length === 0) return "nothing lit";
+  return d.display.cell === "custom" ? segments.join(" ") : segments.map((s) => (s === "dp" ? "." : s)).join("");
+}

@@ -47,4 +47,18 @@ describe("fillPattern", () => {
     expect(fillPattern("", 1).ok).toBe(false);
     expect(fillPattern("5-5", 1).ok).toBe(false);
   });
+  it("honours the words it documents, 'a' or 'an' included, and names any other words instead of taking them", () => {
+    expect(texts("1-12 with leading zero", 2)[0]).toBe("01");
+    expect(texts("1-12 with a leading blank", 2)[0]).toBe(" 1");
+    for (const [pattern, words] of [
+      ["1-12 with leading zeros please", '"with leading zeros please"'],
+      ["1-12 leading zero", '"leading zero"'],
+      ["0-9 in red", '"in red"'],
+    ] as const) {
+      const r = fillPattern(pattern, 2);
+      expect(r.ok).toBe(false);
+      if (!r.ok) expect(r.error[0]?.message).toContain(`${words} after`);
+      if (!r.ok) expect(r.error[0]?.message).toMatch(/a range may end with "with leading zeros" or "with leading blanks", nothing else$/);
+    }
+  });
 });

@@ -2,7 +2,10 @@ import { describe, expect, it } from "vitest";
 import { validateProject } from "../../../../src/core/project/projectSchema.ts";
 import { draftFromProject, type Draft } from "../../../../src/ui/state/draft.ts";
 import {
+  addCharacter,
+  builtinShape,
   charactersShown,
+  sameShapes,
   draftFigure,
   effectiveGlyphs,
   setCell,
@@ -115,5 +118,42 @@ describe("draft edits of a custom cell's figure", () => {
     expect(Object.keys(shapes)).toEqual(["tl", "tr", "c", "bl", "br", "x"]);
     expect(shapes["c"]).toEqual({ kind: "dot", at: [15, 15], r: 3 });
     expect(shapes["x"]?.kind).toBe("dot");
+  });
+});
+
+describe("the glyph editor's rules", () => {
+  const hex = () => draftFromProject(example("relay-hex-monitor"));
+
+  it("offers the built-in shape back only for a character that has one, never on a custom cell", () => {
+    // Before, "Back to built-in shape" showed for every own glyph, "W" and custom cells included.
+    expect(builtinShape(hex(), "7")).toEqual(["a", "b", "c"]);
+    expect(builtinShape(hex(), "W")).toBeUndefined();
+    expect(builtinShape(draftFromProject(example("die-roller")), "1")).toBeUndefined();
+    expect(builtinShape(draftFromProject(example("die-roller")), "c")).toBeUndefined();
+  });
+
+  it("opens a character that exists for editing and says so, and a new one unlit", () => {
+    // Before, adding "P" did nothing and said nothing, and adding "W" made a glyph that lit nothing.
+    expect(addCharacter(hex(), "P")).toEqual({ char: "P", message: '"P" has a built-in shape (abefg); it is open for editing' });
+    expect(addCharacter(hex(), "b")).toEqual({ char: "b", message: '"b" is already in the project (cdefg); it is open for editing' });
+    expect(addCharacter(hex(), "W")).toEqual({ char: "W", message: '"W" is new: click the segments it lights' });
+    expect(addCharacter(hex(), "PQ").char).toBeNull();
+    expect(addCharacter(hex(), " ").char).toBeNull();
+    // A new character gets a glyph entry only once it lights something.
+    const lit = toggleSegment(hex(), "W", "b");
+    expect(lit.glyphs["W"]).toEqual(["b"]);
+  });
+
+  it("warns when two shown characters have the same shape (a 4 edited into the shape of a 9)", () => {
+    const d = draftFromProject(showing(["4", "9", "1"]));
+    expect(sameShapes(d)).toEqual([]);
+    let four = d;
+    for (const s of ["a", "d"]) four = toggleSegment(four, "4", s);
+    expect(sameShapes(four)).toEqual([{ chars: ["4", "9"], segments: ["a", "b", "c", "d", "f", "g"] }]);
+  });
+
+  it("counts a character that lights nothing as the same as a blank the texts show", () => {
+    const d = draftFromProject(showing([" 1", " W", "11"], 2, { glyphs: { W: [] } }));
+    expect(sameShapes(d)).toEqual([{ chars: [" ", "W"], segments: [] }]);
   });
 });
