@@ -31,7 +31,7 @@ export async function webExport(name: string, trim: TrimMode = "auto"): Promise<
   registerNodeWindow();
   const offered = new Map<string, string>();
   for (const kind of PAPER_KINDS) {
-    for (const f of exportFiles(live, kind, "a4", budget)) {
+    for (const f of exportFiles(live, kind, { paper: "a4" }, budget)) {
       if (typeof f.content === "string") offered.set(f.name, f.content);
       else for (const e of storedZipEntries(f.content)) offered.set(e.name, e.text);
     }

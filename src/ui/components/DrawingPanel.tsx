@@ -60,6 +60,11 @@ export function DrawingPanel() {
         <Show when={app.stale()}>
           <span class="chip stale">↻ stale</span>
         </Show>
+        <Show when={!app.stale() && app.live() && !app.drawingCurrent()}>
+          <span class="chip stale" data-testid="drawing-follows">
+            ↻ drawing the new result
+          </span>
+        </Show>
         <span class="hover-readout" aria-live="polite" data-testid="diode-readout">
           <Show when={pickedDiode()} fallback={<span class="muted">point at a diode, or focus the drawing and use the arrow keys</span>}>
             {(d) => (

@@ -16,7 +16,8 @@ export function PrintView() {
   const lists = createMemo(() => {
     const r = app.live();
     if (!r) return null;
-    const drawing = app.drawing();
+    // Sheets and zones only from the shown result's own drawing.
+    const drawing = app.drawingCurrent() ? app.drawing() : null;
     const budget = app.currentBudget();
     const design = paperDesign({ project: r.project, matrix: r.matrix, budget });
     const parts = designators(r.spec, r.matrix, r.project.electrical, design.emitterOhms);

@@ -57,6 +57,7 @@ export function ResultBar() {
           >
             {app.liveMs()?.toFixed(0)} ms
           </span>
+          <span hidden data-testid="first-ms" data-ms={app.firstMs()?.toFixed(1)} data-pass={app.firstPass()} />
         </Show>
       </Show>
       <Show when={app.liveBusy() && app.live()}>

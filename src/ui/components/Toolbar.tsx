@@ -53,7 +53,7 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
     const r = app.live();
     if (!r) return;
     const stem = fileStem(r.project.title);
-    const files = exportFiles(r, kind, app.paper(), app.currentBudget());
+    const files = exportFiles(r, kind, app.drawingChoice(), app.currentBudget());
     if (files.length === 0) {
       app.setNotice({
         level: "warn",

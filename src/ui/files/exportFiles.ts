@@ -3,8 +3,7 @@
  * builder's files (render/papers.ts, the same the command line's `export`
  * writes), one download per kind, several files packed into one ZIP.
  */
-import type { PaperName } from "../../render/drawingModel.ts";
-import { drawingOptions } from "../../render/drawingOptions.ts";
+import { drawingOptions, type DrawingOptions } from "../../render/drawingOptions.ts";
 import { layoutMatrix } from "../../render/layout.ts";
 import { paperFiles, type BudgetOutcome, type PaperFile, type PaperKind } from "../../render/papers.ts";
 import type { LiveResult } from "../workers/liveResult.ts";
@@ -44,8 +43,13 @@ function bundle(kind: ExportKind, files: readonly PaperFile[]): ExportFile[] {
  * ready: the budget of this result, which settles the BOM's and the decks'
  * emitter resistors, has not been worked out yet.
  */
-export function exportFiles(r: LiveResult, kind: ExportKind, paper: PaperName, budget: BudgetOutcome | undefined): ExportFile[] {
-  const options = drawingOptions(r.project, { paper });
+export function exportFiles(
+  r: LiveResult,
+  kind: ExportKind,
+  choice: Partial<DrawingOptions>,
+  budget: BudgetOutcome | undefined,
+): ExportFile[] {
+  const options = drawingOptions(r.project, choice);
   const drawing = layoutMatrix(r.project, r.spec, r.matrix, options);
   return bundle(kind, paperFiles({ project: r.project, spec: r.spec, matrix: r.matrix, options, drawing, budget }, kind));
 }

@@ -16,7 +16,8 @@ import type { PaperName } from "../../render/drawingModel.ts";
 import type { MatrixDrawing } from "../../render/layout.ts";
 import type { Project } from "../../core/project/project.ts";
 import { compileSpec } from "../../core/spec/decodeSpec.ts";
-import { isPaper } from "../../render/drawingOptions.ts";
+import { isPaper, type DrawingOptions } from "../../render/drawingOptions.ts";
+import { readTitleFields, titleOptions, writeTitleFields, type TitleFields } from "./titleBlock.ts";
 import { synthSettings } from "../../core/synth/synthesize.ts";
 import { parseProject, validateProject } from "../../core/project/projectSchema.ts";
 import { parseProjectBytes } from "../../core/project/projectBytes.ts";
@@ -85,6 +86,10 @@ function createAppState() {
   const [liveMs, setLiveMs] = createSignal<number | null>(null);
   /** Counts the results shown, so a test can tell that a new one arrived. */
   const [livePass, setLivePass] = createSignal(0);
+  /** Time from the last edit to the first figure on screen (the direct matrix's or the heuristic's), milliseconds. */
+  const [firstMs, setFirstMs] = createSignal<number | null>(null);
+  /** Counts the first figures shown, one per edit, so a test can tell that a new one arrived. */
+  const [firstPass, setFirstPass] = createSignal(0);
   const [exact, setExact] = createSignal<ExactState>({ status: "idle" });
   const [exactEnabled, setExactEnabled] = createSignal(true);
   /** A run of the live worker has not given its final answer yet. */
@@ -101,8 +106,22 @@ function createAppState() {
   const [budget, setBudget] = createSignal<BudgetView | null>(null);
   /** Whether the design takes the emitter-resistor trim (the Budget panel's control); every paper follows it. */
   const [trimMode, setTrimMode] = createSignal<TrimMode>("auto");
-  /** The drawing of the shown result, laid out once (in a worker) for the screen, the print view and the exports. */
-  const [drawing, setDrawing] = createSignal<MatrixDrawing | null>(null);
+  /** The title-block fields the person filled in (titleBlock.ts). */
+  const [titleFields, setTitleFieldsSignal] = createSignal<TitleFields>(readTitleFields(store));
+  /** Paper and title block, as every drawing is laid out; compared by value. */
+  const drawingChoice = createMemo<Partial<DrawingOptions>>(
+    () => ({ paper: paper(), ...titleOptions(titleFields()) }),
+    { paper: "a4" },
+    {
+      equals: (a, b) => JSON.stringify(a) === JSON.stringify(b),
+    },
+  );
+  /**
+   * The drawing on screen, laid out (in a worker) for the screen, the print
+   * view and the exports, and the result it belongs to: for a moment after an
+   * edit it is still the previous result's, while the new one's is laid out.
+   */
+  const [laid, setLaid] = createSignal<{ readonly drawing: MatrixDrawing; readonly of: LiveResult } | null>(null);
   let budgetTimer: ReturnType<typeof setTimeout> | undefined;
   /** A coded counter's two-rank decoder, for the project it was worked out for (its JSON). */
   const [twoRank, setTwoRank] = createSignal<{
@@ -132,18 +151,20 @@ function createAppState() {
 
   /**
    * Shows a result with its drawing and, when it is final (not the direct
-   * matrix shown while the heuristic still works), schedules its budget. A
-   * drawing laid out for another paper than the one chosen now is laid out
+   * matrix shown while the heuristic still works), schedules its budget.
+   * Without a drawing (a direct matrix, whose drawing follows) the previous
+   * one stays on screen, marked as not yet this result's. A drawing laid out
+   * for other choices than the paper and title block chosen now is laid out
    * again.
    */
-  function show(r: LiveResult, laidOut: { readonly drawing: MatrixDrawing; readonly paper: PaperName } | null, final = true): void {
+  function show(r: LiveResult, laidOut: LaidOut | null, final = true): void {
     batch(() => {
       setLive(r);
-      setDrawing(laidOut?.drawing ?? null);
+      if (laidOut) setLaid({ drawing: laidOut.drawing, of: r });
     });
     if (final) scheduleBudget(r);
     if (final && r.spec.counter.kind !== "one-hot") void requestTwoRank(r.project);
-    if (laidOut && laidOut.paper !== paper()) void relayout(r);
+    if (laidOut && JSON.stringify(laidOut.choice) !== JSON.stringify(drawingChoice())) void relayout(r);
   }
 
   /** Asks the worker for a coded project's two-rank decoder, once per project. */
@@ -155,12 +176,17 @@ function createAppState() {
     if (twoRankKey === key) setTwoRank({ key, result: reply.result });
   }
 
-  /** Lays out the shown result again, for the paper chosen now. */
+  /** Lays out the shown result again, for the paper and title block chosen now. */
   async function relayout(r: LiveResult): Promise<void> {
-    const p = paper();
-    const reply = await analysis.request<"layout">({ job: "layout", project: draftFromProject(r.project), matrix: r.matrix, paper: p });
-    if (live() !== r || paper() !== p) return;
-    if (reply.result.ok) setDrawing(reply.result.value);
+    const choice = drawingChoice();
+    const reply = await analysis.request<"layout">({
+      job: "layout",
+      project: draftFromProject(r.project),
+      matrix: r.matrix,
+      drawing: choice,
+    });
+    if (live() !== r || drawingChoice() !== choice) return;
+    if (reply.result.ok) setLaid({ drawing: reply.result.value, of: r });
     else setLiveNote(`the drawing could not be made: ${reply.result.error.message}`);
   }
 
@@ -198,6 +224,10 @@ function createAppState() {
     const v = validation();
     const mine = ++pass;
     cancelExact(false);
+    // The budget and comparison of the result now stale would only slow the next one down.
+    clearTimeout(budgetTimer);
+    analysis.cancel("budget");
+    analysis.cancel("compare");
     if (!v.ok) {
       liveRunner.cancel();
       setLiveBusy(false);
@@ -208,15 +238,21 @@ function createAppState() {
     const spec = compileSpec(project);
     const settings = synthSettings(project, { mode: "fast" });
     const startedAt = performance.now();
-    const sentPaper = paper();
+    const sentChoice = drawingChoice();
     setLiveBusy(true);
     return new Promise<void>((resolve) => {
       settlePending = resolve;
+      let first = true;
       const settle = (final: boolean, update: () => void) => {
         if (mine !== pass) return resolve();
         batch(() => {
           update();
           setLiveDraft(d);
+          if (first) {
+            first = false;
+            setFirstMs(performance.now() - editStartedAt);
+            setFirstPass((n) => n + 1);
+          }
           if (final) {
             setLiveBusy(false);
             setLiveMs(performance.now() - editStartedAt);
@@ -225,7 +261,14 @@ function createAppState() {
         });
         resolve();
       };
-      liveRunner.start(draftFromProject(project), sentPaper, project.synthesis.timeLimitMs, {
+      liveRunner.start(draftFromProject(project), sentChoice, project.synthesis.timeLimitMs, {
+        drawing: (drawing) => {
+          // The direct matrix's drawing, after its figure.
+          const shown = live();
+          if (mine !== pass || !shown || shown.matrix.method !== "direct") return;
+          setLaid({ drawing, of: shown });
+          if (JSON.stringify(sentChoice) !== JSON.stringify(drawingChoice())) void relayout(shown);
+        },
         matrix: (reply, final) => {
           const checked = acceptMatrix(spec, settings, reply.matrix);
           settle(final, () => {
@@ -233,7 +276,11 @@ function createAppState() {
               setLiveError(`internal error: the live worker's matrix failed verification and is not shown: ${checked.error[0] ?? ""}`);
               return;
             }
-            show(withMatrix(project, spec, settings, checked.value), { drawing: reply.drawing, paper: sentPaper }, final);
+            show(
+              withMatrix(project, spec, settings, checked.value),
+              reply.drawing ? { drawing: reply.drawing, choice: sentChoice } : null,
+              final,
+            );
             setLiveError(null);
             setLiveNote(null);
           });
@@ -248,9 +295,10 @@ function createAppState() {
             setLiveNote(
               `the heuristic did not finish within the ${Math.round(project.synthesis.timeLimitMs / 1000)} s limit, so this is the direct matrix (one diode per lit cell)`,
             );
-            // The direct matrix is the final result now: its budget follows.
+            // The direct matrix is the final result now: its budget follows, and its drawing if it had not come.
             const shown = live();
             if (shown) scheduleBudget(shown);
+            if (shown && laid()?.of !== shown) void relayout(shown);
           }),
       });
     });
@@ -386,11 +434,16 @@ function createAppState() {
     // The shown matrix stays when it is smaller; the line then gives its count with the exact run's bound.
     if (m.count > current.matrix.count) return void setExact({ ...done, count: current.matrix.count });
     const r = withMatrix(current.project, current.spec, current.settings, m);
-    const p = paper();
-    const reply = await analysis.request<"layout">({ job: "layout", project: draftFromProject(r.project), matrix: r.matrix, paper: p });
+    const choice = drawingChoice();
+    const reply = await analysis.request<"layout">({
+      job: "layout",
+      project: draftFromProject(r.project),
+      matrix: r.matrix,
+      drawing: choice,
+    });
     if (draft() !== d || live() !== current) return;
     if (!reply.result.ok) setLiveNote(`the drawing could not be made: ${reply.result.error.message}`);
-    show(r, reply.result.ok ? { drawing: reply.result.value, paper: p } : null);
+    show(r, reply.result.ok ? { drawing: reply.result.value, choice } : null);
     setExact(done);
   }
 
@@ -513,6 +566,13 @@ function createAppState() {
     validation,
     problems,
     live,
+    /** The drawing on screen: the shown result's, or for a moment the previous result's (see `drawingCurrent`). */
+    drawing: () => laid()?.drawing ?? null,
+    /** True while the drawing on screen belongs to the shown result. */
+    drawingCurrent: () => {
+      const l = laid();
+      return l !== null && l.of === live();
+    },
     /** The shown matrix's figure with the best bound known for its glyph set. */
     headerFigure,
     /** The best figure known for a glyph set (a `rowKey`), from any run; reactive. */
@@ -527,7 +587,6 @@ function createAppState() {
     },
     /** Keeps what a run found for a glyph set (a comparison row, for one). */
     remember,
-    drawing,
     /** The two-rank decoder of the shown coded project, or undefined while it is being worked out. */
     twoRank: () => {
       const r = live();
@@ -560,6 +619,18 @@ function createAppState() {
         // A refused store only loses the preference.
       }
     },
+    /** The title-block fields as typed (some may not check out yet). */
+    titleFields,
+    /** Sets the title-block fields; every drawing follows the ones that check out. */
+    setTitleFields: (fields: TitleFields) => {
+      const before = drawingChoice();
+      setTitleFieldsSignal(fields);
+      writeTitleFields(store, fields);
+      const r = live();
+      if (r && drawingChoice() !== before) void relayout(r);
+    },
+    /** Paper and title block, as every drawing and export is laid out. */
+    drawingChoice,
     liveBusy,
     liveNote,
     saveProblem,
@@ -571,6 +642,8 @@ function createAppState() {
     liveError,
     liveMs,
     livePass,
+    firstMs,
+    firstPass,
     stale,
     exact,
     exactEnabled,
@@ -637,6 +710,12 @@ function placeholderDraft(): Draft {
   const r = validateProject({ schema: "diodeloom/project@1", title: "Loading", counter: { states: 2 }, display: {}, show: ["0", "1"] });
   if (!r.ok) throw new Error("bug: the placeholder project is invalid");
   return draftFromProject(r.value);
+}
+
+/** A drawing as laid out, with the paper and title block it was laid out for. */
+interface LaidOut {
+  readonly drawing: MatrixDrawing;
+  readonly choice: Partial<DrawingOptions>;
 }
 
 export type AppState = ReturnType<typeof createAppState>;

@@ -68,6 +68,20 @@ export class AnalysisClient {
     });
   }
 
+  /**
+   * Drops the outstanding request of a job and stops its worker, as a newer
+   * request would: its answer is never given. An edit calls this for the
+   * budget and the comparison of the result it makes stale, so that their
+   * solves stop taking the processor the next result needs.
+   */
+  cancel(job: Job): void {
+    const waiting = this.latest.get(job);
+    if (!waiting) return;
+    clearTimeout(waiting.timer);
+    this.latest.delete(job);
+    this.stop(job);
+  }
+
   private ensure(job: Job): AnalysisWorker {
     const existing = this.workers.get(job);
     if (existing) return existing;

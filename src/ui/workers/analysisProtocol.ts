@@ -10,7 +10,7 @@ import type { TrimMode } from "../../core/budget/emitterDesign.ts";
 import type { GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
 import type { SynthFailure } from "../../core/synth/synthesize.ts";
 import type { Result } from "../../core/result/result.ts";
-import type { PaperName } from "../../render/drawingModel.ts";
+import type { DrawingOptions } from "../../render/drawingOptions.ts";
 import type { MatrixDrawing } from "../../render/layout.ts";
 
 /** A job the worker would not do (`rejected`: the input did not check out) or did not finish in time (`deadline`). */
@@ -24,8 +24,14 @@ export type AnalysisRequest =
   | { readonly id: number; readonly job: "budget"; readonly project: unknown; readonly matrix: unknown; readonly trim: TrimMode }
   /** The glyph-style comparison with the heuristic. */
   | { readonly id: number; readonly job: "compare"; readonly project: unknown }
-  /** The drawing of a matrix on another paper. */
-  | { readonly id: number; readonly job: "layout"; readonly project: unknown; readonly matrix: unknown; readonly paper: PaperName }
+  /** The drawing of a matrix for other drawing options (paper, title block). */
+  | {
+      readonly id: number;
+      readonly job: "layout";
+      readonly project: unknown;
+      readonly matrix: unknown;
+      readonly drawing: Partial<DrawingOptions>;
+    }
   /** A coded counter's two-rank decoder (one gate per state, then the matrix), to show beside the decoder on screen. */
   | { readonly id: number; readonly job: "two-rank"; readonly project: unknown };
 

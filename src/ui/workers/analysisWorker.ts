@@ -53,7 +53,7 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
     return post({
       id: req.id,
       job: "layout",
-      result: ok(layoutMatrix(project, spec, checked.value, drawingOptions(project, { paper: req.paper }))),
+      result: ok(layoutMatrix(project, spec, checked.value, drawingOptions(project, req.drawing))),
     });
   }
   if (spec.counter.kind !== "one-hot") {

@@ -7,19 +7,27 @@
  *   project reuses it); a new run while one is still working terminates the
  *   old worker and starts a fresh one, since a solve cannot be interrupted
  *   from outside any other way.
- * - The direct answer is held for a moment: when the heuristic's follows
- *   within `DIRECT_GRACE_MS`, only that one is shown, so small projects do
- *   not flicker through two counts.
+ * - The direct answer comes without its drawing, so its figure shows at
+ *   once; it is held until `FIRST_HOLD_MS` after the start of the run, and
+ *   when the heuristic's arrives by then only that one is shown, so small
+ *   projects do not flicker through two counts. Its drawing follows in a
+ *   message of its own.
  * - At the deadline the worker is terminated; the direct answer, if any, is
  *   what the page keeps. A worker that has not even sent the direct answer
  *   gets `DIRECT_EXTRA_MS` more for it.
  */
-import type { PaperName } from "../../render/drawingModel.ts";
+import type { DrawingOptions } from "../../render/drawingOptions.ts";
+import type { MatrixDrawing } from "../../render/layout.ts";
 import type { LiveReply, LiveRequest } from "./liveProtocol.ts";
 import type { WorkerPort } from "./workerPort.ts";
 
-/** How long a direct answer waits for the heuristic's before it is shown, milliseconds. */
-export const DIRECT_GRACE_MS = 250;
+/**
+ * Until when a direct answer waits for the heuristic's before it is shown,
+ * milliseconds from the start of the run: short enough that the first figure
+ * shows well inside 200 ms of an edit, long enough that a small project's
+ * heuristic, which takes a few milliseconds, is shown alone.
+ */
+export const FIRST_HOLD_MS = 80;
 /** Extra time for the direct answer when the deadline finds none, milliseconds. */
 export const DIRECT_EXTRA_MS = 30_000;
 
@@ -29,8 +37,10 @@ export type MatrixReply = Extract<LiveReply, { type: "matrix" }>;
 export type LiveWorker = WorkerPort<LiveRequest, LiveReply>;
 
 export interface LiveCallbacks {
-  /** A matrix (not yet verified by the page) and its drawing; `final` for the heuristic's. */
+  /** A matrix (not yet verified by the page) and its drawing, null for a direct one whose drawing follows; `final` for the heuristic's. */
   matrix(reply: MatrixReply, final: boolean): void;
+  /** The drawing of the direct matrix shown before. */
+  drawing(drawing: MatrixDrawing): void;
   failed(message: string, bug: boolean): void;
   /** The deadline passed before the heuristic's answer; the worker was stopped. */
   deadline(): void;
@@ -56,21 +66,25 @@ export class LiveRunner {
   /**
    * Starts a run for a project draft, replacing any run in progress.
    *
+   * @param drawing the paper and title-block fields the drawings are laid out with
    * @param deadlineMs time the heuristic may take, from now
-   * @example runner.start(draftFromProject(p), "a4", p.synthesis.timeLimitMs, { matrix, failed, deadline });
+   * @example runner.start(draftFromProject(p), { paper: "a4" }, p.synthesis.timeLimitMs, { matrix, drawing, failed, deadline });
    */
-  start(project: unknown, paper: PaperName, deadlineMs: number, callbacks: LiveCallbacks): void {
+  start(project: unknown, drawing: Partial<DrawingOptions>, deadlineMs: number, callbacks: LiveCallbacks): void {
     this.cancel();
     const id = this.runId;
     const worker = this.ensureWorker();
     this.busy = true;
     let held: MatrixReply | null = null;
     let gotDirect = false;
+    let shownDirect = false;
     let pastDeadline = false;
+    const holdUntil = Date.now() + FIRST_HOLD_MS;
     const release = () => {
       if (!held) return;
       const h = held;
       held = null;
+      shownDirect = true;
       callbacks.matrix(h, false);
     };
     const end = () => {
@@ -89,11 +103,15 @@ export class LiveRunner {
         held = null;
         end();
         callbacks.failed(reply.message, reply.bug);
+      } else if (reply.type === "drawing") {
+        if (held) held = { ...held, drawing: reply.drawing };
+        else if (shownDirect && this.busy) callbacks.drawing(reply.drawing);
       } else if (reply.phase === "direct") {
         gotDirect = true;
         held = reply;
         if (pastDeadline) stopAtDeadline();
-        else this.timers.push(setTimeout(release, DIRECT_GRACE_MS));
+        else if (Date.now() >= holdUntil) release();
+        else this.timers.push(setTimeout(release, holdUntil - Date.now()));
       } else {
         held = null;
         end();
@@ -121,7 +139,7 @@ export class LiveRunner {
         );
       }, deadlineMs),
     );
-    worker.postMessage({ id, project, paper });
+    worker.postMessage({ id, project, drawing });
   }
 
   /** Stops the run in progress, if any; its answers are dropped. */

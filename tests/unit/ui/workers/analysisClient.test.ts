@@ -26,7 +26,7 @@ describe("AnalysisClient", () => {
   it("gives each job its own worker, so a long comparison never holds up a budget", async () => {
     const { client, workers } = setup();
     void client.request<"compare">({ job: "compare", project: {} });
-    const layout = client.request<"layout">({ job: "layout", project: {}, matrix: {}, paper: "a4" });
+    const layout = client.request<"layout">({ job: "layout", project: {}, matrix: {}, drawing: { paper: "a4" } });
     expect(workers).toHaveLength(2);
     const req = workers[1]?.posted[0] as AnalysisRequest;
     const drawing = { sheets: [], placements: new Map() };
@@ -63,11 +63,28 @@ describe("AnalysisClient", () => {
 
   it("keeps an idle worker for the next request of its job", async () => {
     const { client, workers } = setup();
-    const first = client.request<"layout">({ job: "layout", project: {}, matrix: {}, paper: "a4" });
+    const first = client.request<"layout">({ job: "layout", project: {}, matrix: {}, drawing: { paper: "a4" } });
     workers[0]?.reply({ id: workers[0].posted[0]?.id as number, job: "layout", result: ok({ sheets: [], placements: new Map() }) });
     await first;
-    void client.request<"layout">({ job: "layout", project: {}, matrix: {}, paper: "letter" });
+    void client.request<"layout">({ job: "layout", project: {}, matrix: {}, drawing: { paper: "letter" } });
     expect(workers).toHaveLength(1);
     expect(workers[0]?.posted).toHaveLength(2);
+  });
+
+  it("stops a job's busy worker when it is cancelled, and never answers the dropped request", async () => {
+    const { client, workers } = setup();
+    let answered = false;
+    void client.request<"compare">({ job: "compare", project: {} }).then(() => void (answered = true));
+    const layout = client.request<"layout">({ job: "layout", project: {}, matrix: {}, drawing: { paper: "a4" } });
+    client.cancel("compare");
+    expect(workers[0]?.terminated).toBe(true);
+    expect(workers[1]?.terminated).toBe(false);
+    vi.advanceTimersByTime(10_000);
+    await Promise.resolve();
+    expect(answered).toBe(false);
+    // The next comparison gets a fresh worker.
+    void client.request<"compare">({ job: "compare", project: {} });
+    expect(workers).toHaveLength(3);
+    void layout;
   });
 });
