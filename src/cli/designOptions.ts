@@ -1,10 +1,12 @@
 /**
  * The design options of every command that prints parts or their values
- * (`synth`, `budget`, `netlist`, `export`): whether the emitter resistors
- * take the trim, and in which preferred-value series. All four settle the
- * design the same way, so they print the same value for each resistor.
+ * (`synth`, `budget`, `netlist`, `export`): whether the resistors that set
+ * the segment currents (emitter resistors of a sink, series resistors of
+ * the other kinds) take the trim, and in which preferred-value series. All
+ * four settle the design the same way, so they print the same value for
+ * each resistor.
  */
-import { settleDesign, projectDesign, TRIM_MODES, type EmitterDesign, type TrimMode } from "../core/budget/emitterDesign.ts";
+import { settleDesign, projectDesign, TRIM_MODES, type SegmentDesign, type TrimMode } from "../core/budget/segmentDesign.ts";
 import type { ESeriesName } from "../core/budget/eSeries.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
@@ -20,9 +22,9 @@ export const DESIGN_OPTIONS: Readonly<Record<string, OptionSpec>> = {
   trim: {
     value: true,
     meta: "auto|off|on",
-    help: "emitter-resistor trim: auto (default) applies it where it improves the design, off prints the untrimmed design, on applies it regardless",
+    help: "trim of the resistors that set the segment currents: auto (default) applies it where the design rule allows, off prints the untrimmed design, on applies it regardless (never over the segment rating)",
   },
-  series: { value: true, meta: "E24|E96", help: "preferred values for the emitter-resistor trim (default E24)" },
+  series: { value: true, meta: "E24|E96", help: "preferred values for the trim (default E24)" },
 };
 
 export interface DesignArgs {
@@ -40,11 +42,11 @@ export function designArgs(args: ParsedArgs, io: CliIo): DesignArgs | undefined 
 }
 
 /**
- * The design's emitter resistors for the parts list and the decks: settled
+ * The design's current-setting resistors for the parts list and the decks: settled
  * as the budget settles them. When the circuit cannot be solved they stay
  * the project's, and the design says the trim could not be worked out.
  */
-export function designFor(project: Project, spec: DecodeSpec, matrix: VerifiedMatrix, given: DesignArgs): EmitterDesign {
+export function designFor(project: Project, spec: DecodeSpec, matrix: VerifiedMatrix, given: DesignArgs): SegmentDesign {
   if (given.mode === "off") return projectDesign(project.electrical, matrix, given);
   const settled = settleDesign(project, spec, matrix, given);
   return settled.ok ? settled.value.design : projectDesign(project.electrical, matrix, given);

@@ -1,12 +1,13 @@
 /**
  * The bill of materials: one line per distinct part, from the parts count
  * (and so from the designators), with quantity, designators as ranges
- * (D1-D24), value and description. The emitter resistors are the design's
- * (the trim where the design takes it), and their description says which.
+ * (D1-D24), value and description. The resistors that set the segment
+ * currents are the design's (the trim where the design takes it), and their
+ * description says which.
  * The same words serve the parts list of `synth` and the print view.
  */
 import { csvText } from "../core/papers/csv.ts";
-import { designSource, type EmitterDesign } from "../core/budget/emitterDesign.ts";
+import { designSource, type SegmentDesign } from "../core/budget/segmentDesign.ts";
 import type { Designators } from "../core/matrix/designators.ts";
 import { countParts, refRanges, type PartGroup } from "../core/papers/parts.ts";
 import type { ElectricalModel } from "../core/project/project.ts";
@@ -22,7 +23,7 @@ export interface BomLine {
   readonly description: string;
 }
 
-/** A part's value as a BOM prints it: `10k`, `NPN`, `19-die string`. */
+/** A part's value as a BOM prints it: `10k`, `NPN`, `1 LED`, `22 LEDs`. */
 export function partValue(g: PartGroup, e: ElectricalModel): string {
   if (g.ohms !== null) return formatOhms(g.ohms);
   switch (g.kind) {
@@ -31,41 +32,56 @@ export function partValue(g: PartGroup, e: ElectricalModel): string {
     case "transistor":
       return "NPN";
     case "display":
-      return `${e.string.dies}-die string`;
+      return e.segment.leds === 1 ? "1 LED" : `${e.segment.leds} LEDs`;
     default:
       throw new Error(`bug: a ${g.kind} group without a resistance`);
   }
 }
 
+const DRIVER_WORDS: Readonly<Record<ElectricalModel["driver"]["kind"], string>> = {
+  "current-sink": "constant-current sink",
+  "low-side-switch": "low-side switch",
+  "emitter-follower": "emitter follower",
+  direct: "none",
+};
+
 /** A part's description as a BOM prints it, with the ratings to buy to. */
-export function partDescription(g: PartGroup, e: ElectricalModel, design: EmitterDesign): string {
+export function partDescription(g: PartGroup, e: ElectricalModel, design: SegmentDesign): string {
   switch (g.kind) {
     case "diode":
       return `matrix diode, ≥${e.diode.maxReverseV} V reverse, ≥${milliampsExact(e.diode.maxForwardA)} mA forward`;
     case "transistor":
-      return `segment driver, Vce(max) ≥ ${e.driver.maxVceV} V, ≥ ${e.driver.maxPowerW} W`;
+      return `segment driver (${DRIVER_WORDS[e.driver.kind]}), Vce(max) ≥ ${e.driver.maxVceV} V, ≥ ${e.driver.maxPowerW} W, Ic ≥ ${milliampsExact(e.driver.maxCollectorA)} mA`;
     case "emitter-resistor":
-      return `emitter resistor, ${e.tolerance.resistorPct} %, ${designSource(design)}`;
+      return `emitter resistor, sets the segment current, ${e.tolerance.resistorPct} %, ${designSource(design)}`;
+    case "series-resistor":
+      return design.role === "series"
+        ? `segment series resistor, sets the segment current, ${e.tolerance.resistorPct} %, ${designSource(design)}`
+        : `collector resistor, takes part of the drop off the sink, ${e.tolerance.resistorPct} %`;
+    case "base-resistor":
+      return `base resistor, ${e.tolerance.resistorPct} %`;
+    case "base-emitter-resistor":
+      return `base-emitter resistor, holds the switch off, ${e.tolerance.resistorPct} %`;
     case "pull-down":
-      return "driver base pull-down";
+      return "output line pull-down";
     case "tie-on-resistor":
-      return "base bias for an always-lit segment, from the counter's high level";
+      return `holds an always-lit segment on, from the logic supply (${e.logicSupply.volts} V)`;
     case "display":
-      return `segment LED string, ${e.string.dies} dies in series, ${milliampsExact(e.string.targetA)} mA`;
+      return `segment, ${e.segment.leds === 1 ? "one LED" : `${e.segment.leds} LEDs in series`}, ${milliampsExact(e.segment.targetA)} mA`;
   }
 }
 
 /**
- * The BOM lines, in the order of the parts count (diodes, drivers, emitter
- * resistors by value, pull-downs, tie-on resistors, display strings).
+ * The BOM lines, in the order of the parts count (diodes, drivers,
+ * resistors role by role and value by value, segments).
  *
  * @param parts the designators of the design (with its emitter values)
  * @param design which emitter values those are, for their description
  * @example
- * bomLines(project.electrical, designators(spec, matrix, project.electrical, design.emitterOhms), design)[0];
+ * bomLines(project.electrical, designators(spec, matrix, project.electrical, design.ohms), design)[0];
  * // { quantity: 78, references: "D1-D78", value: "small-signal silicon", ... }
  */
-export function bomLines(e: ElectricalModel, parts: Designators, design: EmitterDesign): BomLine[] {
+export function bomLines(e: ElectricalModel, parts: Designators, design: SegmentDesign): BomLine[] {
   return countParts(parts).map((g) => ({
     quantity: g.refs.length,
     references: refRanges(g.refs),

@@ -1,5 +1,5 @@
 /**
- * A budget as the JSON document `diodeloom/budget@2`: the core's figures in
+ * A budget as the JSON document `diodeloom/budget@3`: the core's figures in
  * SI, and every warning with its message in words (budgetWarningText.ts).
  */
 import type { Budget } from "../core/budget/budgetTypes.ts";

@@ -3,14 +3,21 @@
  * budget.json alike. The core gives each finding's figures in SI; this is
  * where they become µA, mA, mW and volts.
  */
-import type { BudgetWarning, UnappliedWhy } from "../core/budget/budgetTypes.ts";
+import type { BudgetWarning, SpreadCause, UnappliedWhy } from "../core/budget/budgetTypes.ts";
 import { hazardousVoltageText, MAINS_SUPPLY_TEXT } from "../core/budget/safety.ts";
 import { microampsText, milliampsText, milliwatts, ohmsText, percent, voltsText } from "./units.ts";
 
 const NOT_APPLIED: Readonly<Record<UnappliedWhy, string>> = {
   "turned-off": "the trim is turned off",
   "widens-spread": "the trim is not applied because it would widen the brightness spread",
-  "moves-off-target": "the trim is not applied because it would move other strings further from the target",
+  "over-rating": "the trim is not applied because it would run a segment over its rating at the high corner",
+  "no-help": "the trim is not applied because it would not bring the display nearer the target",
+};
+
+const CAUSE: Readonly<Record<SpreadCause, string>> = {
+  "line-sag": "the active line's source resistance, shared by the segments lit together",
+  "diode-depth": "the diode depth",
+  "switch-unsaturated": "its switch leaving saturation",
 };
 
 /**
@@ -34,42 +41,81 @@ export function warningText(w: BudgetWarning): string {
       return `driver ${w.transistor} (${w.output}) sees up to ${voltsText(w.vceV)} Vce, over its ${voltsText(w.ratedV)} rating`;
     case "driver-power":
       return `driver ${w.transistor} (${w.output}) dissipates up to ${milliwatts(w.powerW)} mW, over its ${milliwatts(w.ratedW, 0)} mW rating`;
+    case "driver-current":
+      return `driver ${w.transistor} (${w.output}) carries up to ${milliampsText(w.currentA)}, over its ${milliampsText(w.ratedA)} rating`;
     case "driver-saturation":
       return (
         `driver ${w.transistor} (${w.output}) saturates at the lowest supply (${voltsText(w.supplyV)}): ` +
-        `its collector is ${voltsText(w.belowV)} below its base; raise the supply or use fewer dies`
+        `its collector is ${voltsText(w.belowV)} below its base; raise the supply or put fewer LEDs in each segment`
       );
     case "corner-saturation":
       return `at the low corner a driver saturates (collector ${voltsText(w.belowV)} below its base); allow more supply headroom`;
-    case "string-current":
-      return `a string carries up to ${milliampsText(w.currentA)}, over its ${milliampsText(w.ratedA)} rating`;
+    case "switch-unsaturated":
+      if (w.forcedBeta === null) {
+        return `switch ${w.transistor} (${w.output}) does not turn on at the low corner: it takes no base current; check the base resistor and the base-emitter resistor`;
+      }
+      return (
+        `switch ${w.transistor} (${w.output}) is not saturated at the low corner: its forced beta Ic/Ib reaches ${w.forcedBeta.toFixed(0)}, ` +
+        `not below the lowest beta ${w.betaMin}; give it more base current (a smaller base resistor; common practice is a forced beta of 10-20)`
+      );
+    case "segment-current":
+      return `a segment carries up to ${milliampsText(w.currentA)}, over its ${milliampsText(w.ratedA)} rating`;
+    case "line-current":
+      return `counter line ${w.line} sources ${milliampsText(w.currentA)} in ${w.state}, more than the ${milliampsText(w.ratedA)} it may`;
+    case "ghost-segment":
+      return (
+        `${w.output} is unlit in ${w.state} but carries ${microampsText(w.currentA)}, above ${microampsText(w.limitA)} (the ghost limit); ` +
+        `LEDs glow visibly at microamperes`
+      );
+    case "state-spread":
+      return stateSpreadText(w);
     case "dim-segment": {
       const t = w.unappliedTrim;
       const trim = t
-        ? `; the ${t.series} trim (a ${ohmsText(t.ohms)} emitter resistor) would bring it to ${microampsText(t.minA)}-${microampsText(t.maxA)}, but ${NOT_APPLIED[t.why]}`
+        ? `; the ${t.series} trim (${ohmsText(t.ohms)}) would bring it to ${currentText(t.minA)}-${currentText(t.maxA)}, but ${NOT_APPLIED[t.why]}`
         : "";
-      return `${w.output} runs as low as ${microampsText(w.minA)}, more than ${w.windowPct} % under the ${microampsText(w.targetA)} target${trim}`;
+      return `${w.output} runs as low as ${currentText(w.minA)}, more than ${w.windowPct} % under the ${currentText(w.targetA)} target${trim}`;
     }
     case "corner-target":
       return (
-        `over the tolerance corners the strings run from ${microampsText(w.minA)} to ${microampsText(w.maxA)}, ` +
-        `outside ±${w.windowPct} % of the ${microampsText(w.targetA)} target (or over the rating, or saturating)`
+        `over the tolerance corners the segments run from ${currentText(w.minA)} to ${currentText(w.maxA)}, ` +
+        `outside ±${w.windowPct} % of the ${currentText(w.targetA)} target (or over the rating, or a driver saturating)`
       );
     case "brightness-spread":
       return spreadText(w);
     case "counter-sag":
-      return `the counter sags most in ${w.line}: ${voltsText(w.sagV)} below its high level while sourcing ${microampsText(w.sourceCurrentA)}`;
+      return `the counter sags most in ${w.line}: ${voltsText(w.sagV)} below its high level while sourcing ${currentText(w.sourceCurrentA)}`;
   }
 }
 
+/** A current as a person reads it: µA below 1 mA, mA above. */
+function currentText(amperes: number): string {
+  return Math.abs(amperes) < 1e-3 ? microampsText(amperes) : milliampsText(amperes);
+}
+
+function stateSpreadText(w: Extract<BudgetWarning, { code: "state-spread" }>): string {
+  const why = w.causes.map((c) => {
+    if (c === "line-sag")
+      return `${CAUSE[c]} (${w.litMin} lit in ${w.minState} against ${w.litMax} in ${w.maxState}: the line sits ${voltsText(w.sagDeltaV)} lower)`;
+    if (c === "diode-depth")
+      return `${CAUSE[c]} (${w.depthMin} diode${w.depthMin === 1 ? "" : "s"} from the line in ${w.minState}, ${w.depthMax} in ${w.maxState})`;
+    return CAUSE[c];
+  });
+  return (
+    `${w.output} is ${percent(w.spreadPct)} % dimmer in ${w.minState} than in ${w.maxState}; the cause: ${why.join("; and ")}. ` +
+    "The trim cannot remove it; a stiffer counter line, fewer diodes on the path or a switch would"
+  );
+}
+
 function spreadText(w: Extract<BudgetWarning, { code: "brightness-spread" }>): string {
-  const spread = `string currents spread by ${percent(w.spreadPct)} % over the states`;
+  const spread = `segment currents spread by ${percent(w.spreadPct)} % over the states and segments`;
   const other = `${percent(w.otherSpreadPct)} %`;
-  const trim = `the ${w.series} emitter trim`;
+  const trim = `the ${w.series} trim`;
   const tail: Readonly<Record<typeof w.trim, string>> = {
-    applied: ` with ${trim} (${other} with the project's emitter resistors)`,
+    applied: ` with ${trim} (${other} with the project's resistors)`,
     "widens-spread": `; ${trim} would widen that to ${other}, so it is not applied`,
-    "moves-off-target": `; ${trim} would give ${other} but move strings further from the target, so it is not applied`,
+    "over-rating": `; ${trim} would give ${other} but run a segment over its rating, so it is not applied`,
+    "no-help": `; ${trim} would give ${other} without bringing the display nearer the target, so it is not applied`,
     "turned-off": `; ${trim}, turned off, would give ${other}`,
     "no-change": `; ${trim} changes no resistor`,
   };

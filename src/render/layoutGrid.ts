@@ -88,7 +88,7 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
     ...[...matrix.buses].reverse().map((b) => ({ net: b, kind: "bus" as const, text: `${b} (bus)` })),
     ...linkSources.map((o) => ({ net: o, kind: "link" as const, text: `${o} (link)` })),
   ];
-  const driverOf = new Map(designators(spec, matrix, project.electrical).drivers.map((d) => [d.output, d.transistor]));
+  const driverOf = new Map(designators(spec, matrix, project.electrical).drivers.map((d) => [d.output, d.transistor ?? d.current.ref]));
   const columns: GridColumn[] = [
     ...matrix.gates.map((g) => ({ net: g.ref, kind: "gate" as const, group: "Gates", head: g.ref, foot: "" })),
     ...matrix.buses.map((b) => ({ net: b, kind: "bus" as const, group: "Buses", head: b, foot: "" })),

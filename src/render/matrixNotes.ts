@@ -27,8 +27,9 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
       "Band = cathode = bar on the symbol. The anode takes the row (counter, bus or link line); the cathode goes to the column it drives.",
     );
     notes.push("Lines that cross without a dot are not joined; a dot marks a joint.");
+    const foot = e.driver.kind === "direct" ? "its series resistor (R)" : "its driver stage (Q)";
     notes.push(
-      `Rows: the counter lines ${spec.states[0]}-${spec.states[spec.states.length - 1]}, each with the text it shows. Columns: output lines, grouped by display position; each ends at its driver's base (Q).`,
+      `Rows: the counter lines ${spec.states[0]}-${spec.states[spec.states.length - 1]}, each with the text it shows. Columns: output lines, grouped by display position; each ends at ${foot}.`,
     );
   } else notes.push(...codedNotes(spec, matrix));
   if (matrix.buses.length > 0)
@@ -40,7 +41,11 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
     const more = links.length > shown.length ? ` and ${links.length - shown.length} more (see the wiring list)` : "";
     notes.push(`Links, output to output: ${shown.join(", ")}${more}; a link row taps its source column at the dot.`);
   }
-  if (spec.tiedOn.length > 0) notes.push(`Lit in every state, no diodes: ${someOf(spec.tiedOn)} (base held high, see the BOM).`);
+  if (spec.tiedOn.length > 0) {
+    notes.push(
+      `Lit in every state, no diodes: ${someOf(spec.tiedOn)}, held on from the ${e.logicSupply.volts} V logic supply (net VLOGIC) through a tie-on resistor each.`,
+    );
+  }
   if (spec.neverLit.length > 0) notes.push(`Never lit, not wired: ${someOf(spec.neverLit)}.`);
   if (continued) notes.push("An arrowhead with sh.N marks a line continued on sheet N.");
   notes.push("Fit the diodes in the order of the wiring list, row by row, ticking each one.");

@@ -11,7 +11,7 @@
  */
 import { budgetDesign } from "../core/budget/budget.ts";
 import type { Budget } from "../core/budget/budgetTypes.ts";
-import { projectDesign, type EmitterDesign } from "../core/budget/emitterDesign.ts";
+import { projectDesign, type SegmentDesign } from "../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import { designators } from "../core/matrix/designators.ts";
 import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
@@ -55,7 +55,7 @@ export interface PaperInput {
 }
 
 /** The design the papers show: the budget's, or the project's values when there is no budget. */
-export function paperDesign(input: Pick<PaperInput, "project" | "matrix" | "budget">): EmitterDesign {
+export function paperDesign(input: Pick<PaperInput, "project" | "matrix" | "budget">): SegmentDesign {
   return input.budget?.ok ? budgetDesign(input.budget.value) : projectDesign(input.project.electrical, input.matrix);
 }
 
@@ -103,7 +103,7 @@ export function paperFiles(input: PaperInput, kind: PaperKind): PaperFile[] {
     case "bom": {
       if (!budget) return [];
       const design = paperDesign(input);
-      const parts = designators(spec, matrix, project.electrical, design.emitterOhms);
+      const parts = designators(spec, matrix, project.electrical, design.ohms);
       return [{ name: "bom.csv", mediaType: "text/csv", text: bomCsv(bomLines(project.electrical, parts, design)) }];
     }
     case "netlists": {

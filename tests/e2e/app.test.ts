@@ -102,7 +102,8 @@ describe("the web app", () => {
     expect(count).toBe(await coreFastCount(await savedProject()));
     expect(await page.getByText("✓ verified").count()).toBe(1);
     expect(await page.getByTestId("matrix-drawing").evaluate((e) => e.tagName.toLowerCase())).toBe("svg");
-    expect(await page.getByTestId("caution").textContent()).toMatch(/hazardous voltage/i);
+    // The demo runs at a safe 5 V: no hazard caution.
+    expect(await page.getByTestId("caution").count()).toBe(0);
   });
 
   it("changes one state's text: the count and the drawing change and still verify", async () => {

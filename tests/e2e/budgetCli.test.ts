@@ -3,7 +3,7 @@
  * the exported netlist run unchanged through ngspice.
  */
 import { execFile, execFileSync } from "node:child_process";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
@@ -23,37 +23,61 @@ function run(args: string[]): Promise<{ code: number; stdout: string; stderr: st
   });
 }
 
+/** An example written to a temporary file with its `electrical` section replaced. */
+function exampleWith(name: string, electrical: Record<string, unknown>): string {
+  const doc = JSON.parse(readFileSync(join(ROOT, "public/examples", `${name}.json`), "utf8")) as Record<string, unknown>;
+  const file = join(dir, `${name}-${String(electrical["preset"])}.json`);
+  writeFileSync(file, JSON.stringify({ ...doc, electrical }));
+  return file;
+}
+
 describe("diodeloom budget", () => {
-  it.each(EXAMPLES)("prints diodeloom/budget@2 JSON for %s", async (name) => {
+  it.each(EXAMPLES)("prints diodeloom/budget@3 JSON for %s, at a safe low voltage: no danger", async (name) => {
     const r = await run(["budget", `public/examples/${name}.json`, "--json", "--direct"]);
     expect(r.stderr).toBe("");
     expect(r.code).toBe(0);
     const b = JSON.parse(r.stdout) as Record<string, unknown>;
-    expect(b["schema"]).toBe("diodeloom/budget@2");
-    for (const k of ["states", "outputs", "diodes", "supply", "warnings", "trim", "corners", "drivers", "counterLines"])
+    expect(b["schema"]).toBe("diodeloom/budget@3");
+    for (const k of ["kind", "states", "outputs", "diodes", "supply", "logic", "warnings", "trim", "corners", "drivers", "counterLines"])
       expect(b).toHaveProperty(k);
     const warnings = b["warnings"] as { level: string; code: string; message: string }[];
-    expect(warnings.filter((w) => w.level === "danger").map((w) => w.code)).toEqual(["hazardous-voltage", "mains-supply"]);
+    expect(warnings.filter((w) => w.level === "danger")).toEqual([]);
     expect(warnings.every((w) => w.message.length > 0)).toBe(true);
+    const states = b["states"] as { state: string; outputs: Record<string, { segmentA: number }> }[];
+    expect(states.map((s) => s.state)).toEqual(states.map((_, k) => `S${k}`));
+  });
+
+  it("carries the hazardous-voltage and mains cautions with the high-voltage preset", async () => {
+    const r = await run(["budget", exampleWith("die-roller", { preset: "string-hv-sink" }), "--json", "--direct"]);
+    expect(r.code).toBe(0);
+    const warnings = (JSON.parse(r.stdout) as { warnings: { level: string; code: string }[] }).warnings;
+    expect(warnings.filter((w) => w.level === "danger").map((w) => w.code)).toEqual(["hazardous-voltage", "mains-supply"]);
   });
 
   it("prints a readable report with every section, and takes --series E96", async () => {
-    const r = await run(["budget", "public/examples/die-roller.json", "--direct", "--series", "E96"]);
+    const r = await run(["budget", "public/examples/turntable-position.json", "--direct", "--series", "E96"]);
     expect(r.code).toBe(0);
     for (const s of [
       "Warnings",
-      "DANGER hazardous-voltage",
-      "String current per state",
+      "NPN constant-current sinks",
+      "Segment current per state",
       "Outputs",
       "Diodes",
       "Counter lines",
       "Drivers",
-      "Supply:",
+      "Segment supply:",
+      "Logic supply",
       "Tolerance corners",
       "E96",
     ]) {
       expect(r.stdout).toContain(s);
     }
+    const hv = await run(["budget", exampleWith("die-roller", { preset: "string-hv-sink" }), "--direct"]);
+    expect(hv.stdout).toContain("DANGER hazardous-voltage");
+    // Direct drive has no drivers to list and no segment supply.
+    const direct = await run(["budget", "public/examples/die-roller.json", "--direct"]);
+    expect(direct.stdout).toContain("direct drive from the counter lines");
+    expect(direct.stdout).not.toContain("Segment supply:");
   });
 
   it("refuses an unknown series", async () => {
@@ -74,7 +98,8 @@ describe("diodeloom netlist", () => {
     writeFileSync(file, r.stdout);
     // ngspice is installed in CI (Debian package); a missing one fails here on purpose.
     const out = execFileSync("ngspice", ["-b", file], { encoding: "utf8" });
-    expect(out).toMatch(/^\s*o1a\s+1\.\d+e\+00$/m);
+    // State 8 lights all seven switches: the active line sags under their base currents, 1a sits a diode drop below it.
+    expect(out).toMatch(/^\s*o1a\s+2\.\d+e\+00$/m);
   });
 
   it("accepts S-names and refuses a state outside the counter", async () => {

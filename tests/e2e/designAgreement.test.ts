@@ -1,11 +1,11 @@
 /**
- * One design, one value per designator: the hex monitor run through the
- * real command as a user runs it (`synth`, `budget --json`, `netlist`,
- * `export`) and through the web app's Export files, and every paper must
- * give each resistor the same value. Once with the default trim setting
- * (auto: on the hex monitor the E24 trim would widen the spread, so the
- * design keeps the project's 10k) and once with `--trim on` (the trim's
- * values), so both kinds of design are checked.
+ * One design, one value per designator: an example run through the real
+ * command as a user runs it (`synth`, `budget --json`, `netlist`, `export`)
+ * and through the web app's Export files, and every paper must give each
+ * resistor the same value. The hex monitor's switches keep the project's
+ * series resistors (its 300 Ω is already the E24 value that centres them),
+ * and the turntable's 12 V sinks take the trim, so both kinds of design are
+ * checked.
  */
 import { execFile } from "node:child_process";
 import { mkdtempSync, readFileSync, rmSync } from "node:fs";
@@ -18,7 +18,6 @@ import { webExport } from "../support/webExport.ts";
 
 const BIN = new URL("../../bin/diodeloom.mjs", import.meta.url).pathname;
 const ROOT = new URL("../../", import.meta.url).pathname;
-const FILE = "public/examples/relay-hex-monitor.json";
 const dir = mkdtempSync(join(tmpdir(), "diodeloom-agreement-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
@@ -31,40 +30,42 @@ function run(args: string[]): Promise<{ code: number; stdout: string; stderr: st
 }
 
 describe.each([
-  ["the default design", [] as string[], "auto" as const],
-  ["the trimmed design (--trim on)", ["--trim", "on"], "on" as const],
-])("%s of the hex monitor", (_, trimArgs, webTrim) => {
+  ["the untrimmed design", "relay-hex-monitor", 7, "Series"],
+  ["the trimmed design", "turntable-position", 9, "Emitter"],
+] as const)("%s of the %s", (_, example, drivers, resistors) => {
   // --fast: the heuristic matrix, the one the web app shows first, so the web app's files can be compared too.
-  const synthArgs = ["--fast", ...trimArgs];
+  const synthArgs = ["--fast"];
+  const FILE = `public/examples/${example}.json`;
+  const webTrim = "auto";
 
   it("gives every resistor one value in synth, budget --json, netlist, export (bom.csv, deck) and the web app's export", async () => {
     const [synth, budget, netlist, exp] = await Promise.all([
       run(["synth", FILE, ...synthArgs]),
       run(["budget", FILE, "--json", ...synthArgs]),
       run(["netlist", FILE, "--state", "0", ...synthArgs]),
-      run(["export", FILE, "--out", join(dir, webTrim), ...synthArgs]),
+      run(["export", FILE, "--out", join(dir, example), ...synthArgs]),
     ]);
     for (const r of [synth, budget, netlist, exp]) expect(r.stderr).toBe("");
     expect([synth.code, budget.code, netlist.code, exp.code]).toEqual([0, 0, 0, 0]);
 
     const json = JSON.parse(budget.stdout) as Parameters<typeof budgetEmitters>[0] & { trim: { applied: boolean; effect: string } };
     const emitters = budgetEmitters(json);
-    expect(emitters.size).toBe(7);
-    // auto keeps the project's 10k (the trim would widen the spread); on takes the trim's values.
-    if (webTrim === "auto") {
-      expect([json.trim.applied, json.trim.effect]).toEqual([false, "widens-spread"]);
-      expect([...emitters.values()].every((o) => o === 10_000)).toBe(true);
+    expect(emitters.size).toBe(drivers);
+    // The hex monitor keeps the project's 300 Ω (the trim changes nothing); the turntable takes the trim's values.
+    if (example === "relay-hex-monitor") {
+      expect([json.trim.applied, json.trim.effect]).toEqual([false, "no-change"]);
+      expect([...emitters.values()].every((o) => o === 300)).toBe(true);
     } else {
-      expect(json.trim.applied).toBe(true);
-      expect([...emitters.values()].every((o) => o !== 10_000)).toBe(true);
+      expect([json.trim.applied, json.trim.effect]).toEqual([true, "improves"]);
+      expect([...emitters.values()].some((o) => o !== 180)).toBe(true);
     }
 
     const parts = synthPartValues(synth.stdout);
     const deck = deckResistors(netlist.stdout);
-    const bom = bomValues(readFileSync(join(dir, webTrim, "bom.csv"), "utf8"));
-    const exportDeck = deckResistors(readFileSync(join(dir, webTrim, "spice", "S0.cir"), "utf8"));
+    const bom = bomValues(readFileSync(join(dir, example, "bom.csv"), "utf8"));
+    const exportDeck = deckResistors(readFileSync(join(dir, example, "spice", "S0.cir"), "utf8"));
     // The web app's Export of the same project, heuristic matrix and trim setting.
-    const web = await webExport("relay-hex-monitor", webTrim);
+    const web = await webExport(example, webTrim);
     const webBom = bomValues(web.get("bom.csv") ?? "");
     const webDeckText = web.get("spice/S0.cir") ?? "";
     const webDeck = deckResistors(webDeckText);
@@ -80,9 +81,9 @@ describe.each([
     }
     // And each says which design it is.
     const note =
-      webTrim === "auto"
-        ? /Emitter resistors as in the project: the E24 trim is not applied/
-        : /Emitter resistors: the E24 trim, applied on request/;
+      example === "relay-hex-monitor"
+        ? new RegExp(`${resistors} resistors as in the project \\(the trim would change nothing\\)`)
+        : new RegExp(`${resistors} resistors: the E24 trim, applied because it brings the segments nearer the target`);
     expect(synth.stdout).toMatch(note);
     expect(netlist.stdout).toMatch(note);
     expect(webDeckText).toMatch(note);

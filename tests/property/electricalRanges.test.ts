@@ -1,15 +1,17 @@
 /**
  * Every electrical value the schema allows gives a budget or a failure that
- * names the problem, never an internal error: for random projects whose
- * fields sit at the ends of their allowed ranges, at their defaults, or
- * anywhere in between (log-uniform for ranges over decades), `solveBudget`
- * returns a value and does not throw. Issue 15 found a 5e-324 A target
- * passing the schema and then crashing the trim.
+ * names the problem, never an internal error: for random projects of every
+ * preset (so every driver kind) whose fields sit at the ends of their
+ * allowed ranges, at their defaults, or anywhere in between (log-uniform
+ * for ranges over decades), `solveBudget` returns a value and does not
+ * throw. Issue 15 found a 5e-324 A target passing the schema and then
+ * crashing the trim.
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { solveBudget } from "../../src/core/budget/budget.ts";
 import { ELECTRICAL_DEFAULTS, ELECTRICAL_RANGES } from "../../src/core/project/electricalSchema.ts";
+import { PRESET_NAMES } from "../../src/core/project/electricalPresets.ts";
 import type { NumberRule } from "../../src/core/project/fieldRules.ts";
 import { validateProject } from "../../src/core/project/projectSchema.ts";
 import { directDesign } from "../support/budgetFixtures.ts";
@@ -49,6 +51,7 @@ function electricalWith(values: readonly (readonly [string, number])[]): Record<
     const [a, b] = path.split(".") as [string, string];
     if (b === undefined) e[a] = x;
     else if (path === "driver.emitterResistors") e["driver"] = { ...(e["driver"] as object), emitterResistors: { "1b": x } };
+    else if (path === "segment.seriesResistors") e["segment"] = { ...(e["segment"] as object), seriesResistors: { "1b": x } };
     else if (path === "tolerance.temperatureC") e["tolerance"] = { ...(e["tolerance"] as object), temperatureC: [x, x] };
     else e[a] = { ...(e[a] as object), [b]: x };
   }
@@ -60,13 +63,13 @@ describe(`electrical values across their allowed ranges (fast-check seed ${SEED}
     let solved = 0;
     let checked = 0;
     fc.assert(
-      fc.property(changes, (values) => {
+      fc.property(changes, fc.constantFrom(...PRESET_NAMES), (values, preset) => {
         const r = validateProject({
-          schema: "diodeloom/project@1",
+          schema: "diodeloom/project@2",
           counter: { states: 3 },
           display: {},
           show: ["1", "7", "8"],
-          electrical: electricalWith(values),
+          electrical: { preset, ...electricalWith(values) },
         });
         fc.pre(r.ok);
         if (!r.ok) return;

@@ -1,13 +1,17 @@
 /**
- * Kirchhoff's current law holds at every node of every solved state (issue 4,
- * check e): for random lit tables, random matrices (direct, with a shared bus
- * and with output links) and random electrical values, the currents the
- * device equations give at the solved node voltages sum to zero at every
- * node within 1e-9 A + 1e-6 of the currents meeting there.
+ * Kirchhoff's current law holds at every node of every solved state: for
+ * random lit tables, random matrices (direct, with a shared bus and with
+ * output links), every driver kind (current sink, with or without a
+ * collector resistor; low-side switch, with or without a base-emitter
+ * resistor; emitter follower, with or without a base resistor; direct
+ * drive) and random electrical values, the currents the device equations
+ * give at the solved node voltages sum to zero at every node within
+ * 1e-9 A + 1e-6 of the currents meeting there.
  *
  * The currents are recomputed here from the node voltages alone, element by
- * element, with SPICE's GMIN placement (across each junction, GMIN/dies
- * across a string, collector to substrate), not taken from the solver.
+ * element, with SPICE's GMIN placement (across each junction, GMIN/leds
+ * across a segment's junctions, collector to substrate), not taken from the
+ * solver.
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
@@ -19,9 +23,11 @@ import { buildMatrix, type Edge } from "../../src/core/matrix/matrix.ts";
 import { shockleyVoltage, thermalVoltage } from "../../src/core/circuit/physics.ts";
 import type { Project } from "../../src/core/project/project.ts";
 import { verifyMatrix } from "../../src/core/matrix/verify.ts";
-import { makeProject } from "../support/projects.ts";
+import type { DriverKind } from "../../src/core/project/project.ts";
+import { makeProject2 } from "../support/projects.ts";
 
-const SEED = 4242;
+const SEED = 4243;
+const KINDS: readonly DriverKind[] = ["current-sink", "low-side-switch", "emitter-follower", "direct"];
 const SEGMENTS = ["p", "q", "r", "s", "t"];
 
 /** Sum of currents leaving each node, and the sum of their magnitudes. */
@@ -62,9 +68,16 @@ function kclResiduals(c: Circuit, op: OperatingPoint): Map<string, { sum: number
         leave(el.cathode, -i);
         break;
       }
-      case "string": {
-        const i = diodeJunction(v(el.anode) - v(el.cathode), el.isA, el.dies * el.n * vt, DEFAULT_GMIN_S / el.dies).currentA;
-        leave(el.anode, i);
+      case "segment": {
+        let anode = el.anode;
+        if (el.rsOhms > 0) {
+          anode = `${el.name}#j`;
+          const i = (v(el.anode) - v(anode)) / (el.leds * el.rsOhms);
+          leave(el.anode, i);
+          leave(anode, -i);
+        }
+        const i = diodeJunction(v(anode) - v(el.cathode), el.isA, el.leds * el.n * vt, DEFAULT_GMIN_S / el.leds).currentA;
+        leave(anode, i);
         leave(el.cathode, -i);
         break;
       }
@@ -125,11 +138,12 @@ const logUniform = (lo: number, hi: number) => fc.double({ min: Math.log10(lo), 
 
 const projectArb = fc
   .record({
+    kind: fc.constantFrom(...KINDS),
     states: fc.integer({ min: 2, max: 7 }),
     segs: fc.integer({ min: 2, max: 5 }),
     seedBits: fc.array(fc.integer({ min: 0, max: 31 }), { minLength: 7, maxLength: 7 }),
-    high: fc.double({ min: 1.5, max: 5, noNaN: true }),
-    resistance: logUniform(100, 10_000),
+    lineHeadroom: fc.double({ min: 0.5, max: 5, noNaN: true }),
+    resistance: logUniform(10, 10_000),
     dIs: logUniform(1e-12, 1e-7),
     dN: fc.double({ min: 1, max: 2, noNaN: true }),
     rs: fc.oneof(fc.constant(0), fc.double({ min: 0.5, max: 100, noNaN: true })),
@@ -137,41 +151,72 @@ const projectArb = fc
     qIs: logUniform(1e-16, 1e-13),
     betaF: fc.double({ min: 20, max: 500, noNaN: true }),
     betaR: fc.double({ min: 0.5, max: 10, noNaN: true }),
-    re: logUniform(1000, 100_000),
-    dies: fc.integer({ min: 1, max: 30 }),
-    sIs: logUniform(1e-30, 1e-20),
-    headroom: fc.double({ min: 5, max: 60, noNaN: true }),
+    re: logUniform(100, 100_000),
+    rb: logUniform(100, 100_000),
+    rbe: fc.oneof(fc.constant(null), logUniform(1000, 1_000_000)),
+    series: logUniform(10, 10_000),
+    collector: fc.oneof(fc.constant(0), logUniform(10, 1000)),
+    leds: fc.integer({ min: 1, max: 30 }),
+    lowLeds: fc.integer({ min: 1, max: 4 }),
+    sIs: logUniform(1e-30, 1e-18),
+    sN: fc.double({ min: 1.5, max: 3, noNaN: true }),
+    ledRs: fc.oneof(fc.constant(0), fc.double({ min: 0.5, max: 20, noNaN: true })),
+    targetA: logUniform(1e-4, 2e-2),
+    headroom: fc.double({ min: 1, max: 60, noNaN: true }),
     temperatureC: fc.double({ min: -20, max: 80, noNaN: true }),
+    tied: fc.boolean(),
     pick: fc.nat(20),
     link: fc.boolean(),
   })
   .map((r) => {
     const segments = SEGMENTS.slice(0, r.segs);
-    // Glyph k lights the segments of a bit pattern; every state shows its own glyph.
+    // Glyph k lights the segments of a bit pattern; every state shows its own glyph (and, if asked, segment p in all of them: tied on).
     const glyphs: Record<string, string[]> = {};
     const show: string[] = [];
     for (let k = 0; k < r.states; k++) {
       const bits = (r.seedBits[k] ?? 1) || 1;
       const ch = String.fromCharCode(65 + k);
-      glyphs[ch] = segments.filter((_, i) => bits & (1 << i));
+      glyphs[ch] = segments.filter((_, i) => bits & (1 << i) || (r.tied && i === 0));
       if ((glyphs[ch] as string[]).length === 0) glyphs[ch] = [segments[0] as string];
       show.push(ch);
     }
-    const stringV = r.dies * shockleyVoltage(1.4e-4, r.sIs, 2, thermalVoltage(r.temperatureC));
-    const volts = Math.min(900, stringV + r.headroom);
-    const project: Project = makeProject({
+    const leds = r.kind === "current-sink" ? r.leds : r.lowLeds;
+    const vt = thermalVoltage(r.temperatureC);
+    const dropV = leds * (shockleyVoltage(r.targetA, r.sIs, r.sN, vt) + r.targetA * r.ledRs);
+    // A supply above the segment's drop, and a counter high enough for a follower's or direct drive's segment.
+    const volts = Math.min(900, dropV + r.headroom);
+    const high = Math.min(99, (r.kind === "emitter-follower" ? dropV + 1.3 : r.kind === "direct" ? dropV + 0.7 : 1.5) + r.lineHeadroom);
+    const followerSupply = r.kind === "emitter-follower" ? Math.max(volts, high) : volts;
+    const project: Project = makeProject2({
       counter: { states: r.states },
       display: { positions: 1, cell: "custom", segments },
       glyphs,
       show,
       electrical: {
         temperatureC: r.temperatureC,
-        counterOutput: { high: r.high, low: 0, resistance: r.resistance },
+        counterOutput: { high, low: 0, resistance: r.resistance },
+        logicSupply: { volts: Math.max(1, high) },
         diode: { is: r.dIs, n: r.dN, rs: r.rs },
         pullDown: r.pullDown,
-        driver: { is: r.qIs, betaF: r.betaF, betaR: r.betaR, emitterResistor: r.re },
-        string: { dies: r.dies, is: r.sIs, n: 2 },
-        supply: { volts, minVolts: volts * 0.99, maxVolts: volts * 1.01 },
+        driver: {
+          kind: r.kind,
+          is: r.qIs,
+          betaF: r.betaF,
+          betaR: r.betaR,
+          emitterResistor: r.re,
+          baseResistor: r.kind === "emitter-follower" && r.rbe === null ? 0 : r.rb,
+          baseEmitterResistor: r.rbe,
+        },
+        segment: {
+          leds,
+          is: r.sIs,
+          n: r.sN,
+          rs: r.ledRs,
+          seriesResistor: r.kind === "current-sink" ? r.collector : r.series,
+          targetA: r.targetA,
+          maxA: 10,
+        },
+        supply: { volts: followerSupply, minVolts: followerSupply * 0.99, maxVolts: followerSupply * 1.01 },
       },
     });
     return { project, pick: r.pick, link: r.link };
@@ -179,7 +224,7 @@ const projectArb = fc
 
 describe("Kirchhoff's current law", () => {
   it(`holds at every node of every solved state (seed ${SEED})`, () => {
-    const seen = { buses: 0, links: 0, rs: 0, fallback: 0 };
+    const seen = { buses: 0, links: 0, rs: 0, tied: 0, fallback: 0, kinds: {} as Record<string, number> };
     fc.assert(
       fc.property(projectArb, ({ project, pick, link }) => {
         const spec = compileSpec(project);
@@ -191,6 +236,9 @@ describe("Kirchhoff's current law", () => {
         if (v.value.buses.length > 0) seen.buses++;
         if (v.value.diodes.some((d) => spec.outputs.includes(d.from))) seen.links++;
         if (project.electrical.diode.rs > 0) seen.rs++;
+        if (spec.tiedOn.length > 0) seen.tied++;
+        const kind = project.electrical.driver.kind;
+        seen.kinds[kind] = (seen.kinds[kind] ?? 0) + 1;
         for (let k = 0; k < spec.states.length; k++) {
           const c = buildCircuit(spec, v.value, project.electrical, k);
           const op = solveDc(c, c.guess);
@@ -206,12 +254,14 @@ describe("Kirchhoff's current law", () => {
           }
         }
       }),
-      { seed: SEED, numRuns: 120 },
+      { seed: SEED, numRuns: 160 },
     );
-    // The runs must have covered shared buses, output links and diode series resistance.
+    // The runs must have covered shared buses, output links, diode series resistance, tied-on outputs and every kind.
     expect(seen.buses).toBeGreaterThan(10);
     expect(seen.links).toBeGreaterThan(5);
     expect(seen.rs).toBeGreaterThan(10);
-    console.info(`KCL: ${JSON.stringify(seen)} of 120 runs`);
+    expect(seen.tied).toBeGreaterThan(10);
+    for (const k of KINDS) expect(seen.kinds[k], k).toBeGreaterThan(20);
+    console.info(`KCL: ${JSON.stringify(seen)} of 160 runs`);
   });
 });

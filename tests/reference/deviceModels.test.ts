@@ -9,7 +9,7 @@ import { siliconSaturationCurrent } from "../../src/core/budget/corners.ts";
 import { solveDc } from "../../src/core/circuit/dcSolver.ts";
 import { criticalVoltage, diodeJunction, npnTransport } from "../../src/core/circuit/deviceModels.ts";
 import { BOLTZMANN_J_PER_K, ELEMENTARY_CHARGE_C, shockleyVoltage, thermalVoltage } from "../../src/core/circuit/physics.ts";
-import { ELECTRICAL_DEFAULTS } from "../../src/core/project/projectSchema.ts";
+import { ELECTRICAL_PRESETS, FORMAT1_ELECTRICAL } from "../../src/core/project/electricalPresets.ts";
 import { directDesign } from "../support/budgetFixtures.ts";
 import { showing } from "../support/projects.ts";
 
@@ -147,18 +147,31 @@ describe("LED strings", () => {
     expect(19 * 2.8).toBeLessThan(60);
   });
 
-  it("the default string model drops 2.8-3.3 V per die at its rated 15 mA and less at the 140 uA target", () => {
+  it("format 1's string model drops 2.8-3.3 V per die at its rated 15 mA and less at the 140 uA target", () => {
     // Source: Wikipedia "Light-emitting diode" (2.8-3.3 V per InGaN die at rated current), via docs/sources.md.
-    const s = ELECTRICAL_DEFAULTS.string;
+    const s = FORMAT1_ELECTRICAL.segment;
     const vt = thermalVoltage(27);
     const rated = shockleyVoltage(s.maxA, s.is, s.n, vt);
     expect(rated).toBeGreaterThan(2.8 * 0.95);
     expect(rated).toBeLessThan(3.3);
     // At the target current 19 dies drop about 52 V, so a supply above 60 V is what gives the driver room.
-    const atTarget = s.dies * shockleyVoltage(s.targetA, s.is, s.n, vt);
+    const atTarget = s.leds * shockleyVoltage(s.targetA, s.is, s.n, vt);
     expect(atTarget).toBeGreaterThan(50);
     expect(atTarget).toBeLessThan(60);
-    expect(ELECTRICAL_DEFAULTS.supply.volts).toBeGreaterThan(60);
+    expect(FORMAT1_ELECTRICAL.supply.volts).toBeGreaterThan(60);
+  });
+
+  it("the presets' red LED drops 1.8-2.2 V from 2 mA to 20 mA, their InGaN die about 2.9 V at 1 mA", () => {
+    // Source: Wikipedia "Light-emitting diode" (red about 1.8-2.2 V; InGaN about 2.8-3.3 V), via docs/sources.md "Drivers and levels".
+    const vt = thermalVoltage(27);
+    const red = ELECTRICAL_PRESETS["bench-5v-switch"].segment;
+    for (const i of [0.002, 0.01, 0.02]) {
+      const v = shockleyVoltage(i, red.is, red.n, vt) + i * red.rs;
+      expect(v, `${i} A`).toBeGreaterThan(1.8);
+      expect(v, `${i} A`).toBeLessThan(2.2);
+    }
+    const die = ELECTRICAL_PRESETS["string-hv-sink"].segment;
+    expect(shockleyVoltage(0.001, die.is, die.n, vt)).toBeCloseTo(2.86, 2);
   });
 
   it("a filament of 28 dies at about 75 V and 10-15 mA is about 2.7 V per die", () => {

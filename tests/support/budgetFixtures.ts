@@ -8,13 +8,25 @@ import { buildMatrix, type Edge, type VerifiedMatrix } from "../../src/core/matr
 import type { Project } from "../../src/core/project/project.ts";
 import { synthesizeDirect } from "../../src/core/synth/direct.ts";
 import { verifyMatrix } from "../../src/core/matrix/verify.ts";
-import { example, makeProject } from "./projects.ts";
+import { exampleFormat1, makeProject, makeProject2 } from "./projects.ts";
 
 export interface Design {
   readonly name: string;
   readonly project: Project;
   readonly spec: DecodeSpec;
   readonly matrix: VerifiedMatrix;
+}
+
+/** A hand-built matrix of a project, verified (throws on a bad fixture). */
+export function handBuilt(
+  name: string,
+  project: Project,
+  edges: readonly Edge[],
+  maxDepth: number,
+  depth: "mixed" | "per-segment",
+): Design {
+  const spec = compileSpec(project);
+  return { name, project, spec, matrix: verified(spec, edges, maxDepth, depth) };
 }
 
 function verified(spec: DecodeSpec, edges: readonly Edge[], maxDepth: number, depth: "mixed" | "per-segment"): VerifiedMatrix {
@@ -36,10 +48,23 @@ export function directDesign(name: string, project: Project): Design {
 /**
  * The die roller with sharing at depth 2: states 2-6 feed bus X, which drives
  * tr and bl (7 diodes for 10 crossings); tl -> br and ml -> mr are output
- * links (br and mr are lit exactly when tl and ml are).
+ * links (br and mr are lit exactly when tl and ml are). Without an
+ * `electrical` section it is format 1's current sink at 100 V; with one, a
+ * format-2 project with that section.
  */
-export function sharedDieRoller(): Design {
-  const project = example("die-roller");
+export function sharedDieRoller(electrical?: Record<string, unknown>): Design {
+  const base = exampleFormat1("die-roller");
+  const project =
+    electrical === undefined
+      ? base
+      : makeProject2({
+          title: base.title,
+          counter: { states: base.counter.states },
+          display: { positions: 1, cell: "custom", segments: [...base.display.cell.segments] },
+          glyphs: Object.fromEntries(Object.entries(base.glyphOverrides).map(([k, v]) => [k, [...v]])),
+          show: [...base.show],
+          electrical,
+        });
   const spec = compileSpec(project);
   const edges: Edge[] = [
     { from: "S0", to: "1c" },
@@ -53,7 +78,8 @@ export function sharedDieRoller(): Design {
     { from: "S5", to: "1ml" },
     { from: "1ml", to: "1mr" },
   ];
-  return { name: "die-roller shared", project, spec, matrix: verified(spec, edges, 2, "per-segment") };
+  const name = electrical === undefined ? "die-roller shared" : `die-roller shared, ${String(electrical["preset"] ?? "format 2")}`;
+  return { name, project, spec, matrix: verified(spec, edges, 2, "per-segment") };
 }
 
 /** A 00-59 counter on two positions (the bench's project). */

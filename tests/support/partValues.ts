@@ -43,7 +43,7 @@ export function deckResistors(deck: string): Map<string, number> {
   return new Map([...deck.matchAll(/^(R\d+) \S+ \S+ (\S+)$/gm)].map((m) => [m[1] as string, Number(m[2])]));
 }
 
-/** Emitter resistor of every driver in a budget JSON, by designator. */
-export function budgetEmitters(json: { drivers: Record<string, { emitterResistor: string; emitterOhms: number }> }): Map<string, number> {
-  return new Map(Object.values(json.drivers).map((d) => [d.emitterResistor, d.emitterOhms]));
+/** The current-setting resistor (emitter or series) of every driver in a budget JSON, by designator. */
+export function budgetEmitters(json: { drivers: Record<string, { currentResistor: { ref: string; ohms: number } }> }): Map<string, number> {
+  return new Map(Object.values(json.drivers).map((d) => [d.currentResistor.ref, d.currentResistor.ohms]));
 }

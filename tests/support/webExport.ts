@@ -4,7 +4,7 @@
  * solved as the analysis worker solves it, and every file of every Export
  * kind, unpacked from its ZIP where there are several.
  */
-import type { TrimMode } from "../../src/core/budget/emitterDesign.ts";
+import type { TrimMode } from "../../src/core/budget/segmentDesign.ts";
 import { solveBudget } from "../../src/core/budget/budget.ts";
 import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
 import { parseProject } from "../../src/core/project/projectSchema.ts";

@@ -1,12 +1,12 @@
 import { budgetDesign, solveBudget } from "../../core/budget/budget.ts";
 import type { Budget } from "../../core/budget/budgetTypes.ts";
-import { designNote } from "../../core/budget/emitterDesign.ts";
+import { designNote } from "../../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import type { Project } from "../../core/project/project.ts";
 import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
-import { formatOhms, microamps, milliamps, milliwatts, nanoamps, percent, volts } from "../../render/units.ts";
+import { formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
 import { DESIGN_OPTIONS, DESIGN_USAGE, loadForDesign } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
@@ -18,7 +18,7 @@ export const budgetCommand: Command = {
   name: "budget",
   usage: USAGE,
   options: {
-    json: { help: "print the budget as diodeloom/budget@2 JSON (SI units)" },
+    json: { help: "print the budget as diodeloom/budget@3 JSON (SI units)" },
     ...SYNTH_OPTIONS,
     ...DESIGN_OPTIONS,
   },
@@ -44,14 +44,31 @@ function table(head: readonly string[], rows: readonly (readonly string[])[]): s
   return [line(head), ...rows.map(line)];
 }
 
-/** The readable report of `budget`. */
+const KIND_WORDS: Readonly<Record<Budget["kind"], string>> = {
+  "current-sink": "NPN constant-current sinks",
+  "low-side-switch": "NPN low-side switches",
+  "emitter-follower": "NPN emitter followers",
+  direct: "direct drive from the counter lines",
+};
+
+/** A current for a table, in mA (three decimals) at or above 0.1 mA, else in µA. */
+function amps(a: number, unit: "mA" | "µA"): string {
+  return unit === "mA" ? milliamps(a, 3) : microamps(a);
+}
+
+/** The report of `budget`. */
 export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMatrix, b: Budget): string {
   const e = project.electrical;
+  const unit: "mA" | "µA" = e.segment.targetA >= 1e-4 ? "mA" : "µA";
   const L: string[] = [];
   L.push(project.title);
+  const supply =
+    b.kind === "direct"
+      ? `counter lines at ${e.counterOutput.high} V`
+      : `supply ${e.supply.volts} V (${e.supply.minVolts}-${e.supply.maxVolts} V)`;
   L.push(
-    `DC budget at ${e.temperatureC} °C: supply ${e.supply.volts} V (${e.supply.minVolts}-${e.supply.maxVolts} V), ` +
-      `strings of ${e.string.dies} dies, target ${microamps(e.string.targetA)} µA; ${m.method} matrix, ${m.count} diodes, longest path ${m.longestPath}`,
+    `DC budget at ${e.temperatureC} °C: ${KIND_WORDS[b.kind]}, ${supply}, segments of ${e.segment.leds} LED${e.segment.leds === 1 ? "" : "s"}, ` +
+      `target ${amps(e.segment.targetA, unit)} ${unit}${e.preset !== null ? ` (preset ${e.preset})` : ""}; ${m.method} matrix, ${m.count} diodes, longest path ${m.longestPath}`,
   );
   L.push("");
   if (b.warnings.length > 0) {
@@ -60,30 +77,33 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     L.push("");
   }
   const outs = Object.keys(b.outputs);
-  L.push("String current per state, µA (lit strings; '.' = off)");
+  L.push(`Segment current per state, ${unit} (lit segments; '.' = unlit, below the ghost limit; '!' = unlit above it)`);
+  const ghostA = e.ghostFraction * e.segment.targetA;
   L.push(
     ...table(
-      ["State", "Text", "Source µA", "Supply mA", ...outs],
+      ["State", "Text", "Source mA", "Supply mA", ...outs],
       b.states.map((s) => [
         s.state,
         `"${s.text}"`,
-        microamps(s.sourceCurrentA),
+        milliamps(s.sourceCurrentA, 3),
         milliamps(s.supplyCurrentA),
         ...outs.map((o) => {
           const x = s.outputs[o];
-          return x && x.lit ? microamps(x.stringCurrentA) : ".";
+          if (!x) return "";
+          return x.lit ? amps(x.segmentA, unit) : x.segmentA > ghostA ? "!" : ".";
         }),
       ]),
     ),
   );
   L.push("");
+  const role = b.trim.role === "emitter" ? "emitter resistor" : "series resistor";
   const trimState = b.trim.applied ? "applied" : "not applied";
   L.push(
-    `Outputs (spread = how much dimmer the dimmest state is; Re = the design's emitter resistor; trim: ${b.trim.series}, ${trimState}, and the range it gives)`,
+    `Outputs (spread = how much dimmer the dimmest state is; R = the design's ${role}; trim: ${b.trim.series}, ${trimState}, and the range it gives)`,
   );
   L.push(
     ...table(
-      ["Output", "Depth", "Min µA", "Max µA", "Spread %", "Off max nA", "R", "Re", "Trim", "Trim µA"],
+      ["Output", "Depth", `Min ${unit}`, `Max ${unit}`, "Spread %", "Off max µA", "R", "Value", "Trim", `Trim ${unit}`],
       outs.map((o) => {
         const r = b.outputs[o] as Budget["outputs"][string];
         const t = b.trim.outputs[o];
@@ -91,25 +111,25 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
         return [
           o,
           r.tiedOn ? "tied" : r.pathLengths.join("+"),
-          microamps(r.minA),
-          microamps(r.maxA),
+          amps(r.minA, unit),
+          amps(r.maxA, unit),
           percent(r.spreadPct),
-          nanoamps(r.offMaxA),
-          dr ? dr.emitterResistor : "",
-          dr ? formatOhms(dr.emitterOhms) : "",
+          microamps(r.offMaxA, 3),
+          dr ? dr.currentResistor.ref : "",
+          dr ? formatOhms(dr.currentResistor.ohms) : "",
           t ? formatOhms(t.ohms) : "",
-          t ? `${microamps(t.minA)}-${microamps(t.maxA)}` : "",
+          t ? `${amps(t.minA, unit)}-${amps(t.maxA, unit)}` : "",
         ];
       }),
     ),
   );
   L.push(
-    `  Spread over all strings: ${percent(b.spreadPct)} %; with the project's emitter resistors ${percent(b.trim.spreadPctBefore)} %, ` +
-      `with the ${b.trim.series} trim ${percent(b.trim.spreadPct)} %`,
+    `  Spread over all segments: ${percent(b.spreadPct)} %; with the project's resistors ${percent(b.trim.spreadPctBefore)} %, ` +
+      `with the values the rule judged ${percent(b.trim.spreadPct)} %`,
   );
   L.push(
-    `  Farthest string from the target: ${percent(b.trim.offTargetPctBefore)} % with the project's emitter resistors, ` +
-      `${percent(b.trim.offTargetPct)} % with the trim`,
+    `  Farthest segment from the target: ${percent(b.trim.offTargetPctBefore)} % with the project's resistors, ` +
+      `${percent(b.trim.offTargetPct)} % with the trim; outside the ±${b.corners.windowPct} % window by ${percent(b.trim.windowDistancePctBefore)} % and ${percent(b.trim.windowDistancePct)} %`,
   );
   L.push(`  ${designNote(budgetDesign(b))}`);
   L.push("");
@@ -119,49 +139,70 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     const [rRef, r] = diodes.reduce((a, c) => (c[1].maxReverseV > a[1].maxReverseV ? c : a));
     L.push(`Diodes (${diodes.length}; every one in --json)`);
     L.push(
-      `  largest forward current ${microamps(f.maxCurrentA)} µA in ${fRef} (${f.from} -> ${f.to}); rated ${milliamps(f.ratedCurrentA)} mA`,
+      `  largest forward current ${milliamps(f.maxCurrentA, 3)} mA in ${fRef} (${f.from} -> ${f.to}); rated ${milliamps(f.ratedCurrentA)} mA`,
     );
     L.push(`  largest reverse voltage ${volts(r.maxReverseV)} V across ${rRef} (${r.from} -> ${r.to}); rated ${volts(r.ratedReverseV)} V`);
     L.push("");
   }
-  L.push("Counter lines (when active)");
+  L.push(`Counter lines (when active; each may source ${milliamps(e.counterOutput.maxCurrentA)} mA)`);
   L.push(
     ...table(
-      ["Line", "Sources µA", "Line V", "Sag V"],
-      Object.entries(b.counterLines).map(([l, c]) => [l, microamps(c.sourceCurrentA), volts(c.lineV), volts(c.sagV)]),
+      ["Line", "Sources mA", "Line V", "Sag V"],
+      Object.entries(b.counterLines).map(([l, c]) => [l, milliamps(c.sourceCurrentA, 3), volts(c.lineV), volts(c.sagV)]),
     ),
   );
   L.push("");
-  L.push(`Drivers (headroom = lowest collector-base voltage of a lit driver at the ${e.supply.minVolts} V supply)`);
+  if (b.kind !== "direct") {
+    const figure =
+      b.kind === "low-side-switch"
+        ? `forced beta = largest Ic/Ib of a lit switch at the low corner, saturated below beta ${e.tolerance.betaMin}`
+        : `headroom = lowest collector-base voltage of a lit driver at the ${e.supply.minVolts} V supply`;
+    L.push(`Drivers (${figure})`);
+    L.push(
+      ...table(
+        ["Output", "Q", "R", "Value", "Vce max V", "Ic max mA", "P max mW", b.kind === "low-side-switch" ? "Forced beta" : "Headroom V"],
+        Object.entries(b.drivers).map(([o, d]) => [
+          o,
+          d.transistor ?? "",
+          d.currentResistor.ref,
+          formatOhms(d.currentResistor.ohms),
+          volts(d.maxVceV),
+          milliamps(d.maxCollectorA),
+          milliwatts(d.maxPowerW, 2),
+          d.forcedBeta !== null
+            ? `${d.forcedBeta.toFixed(1)}${d.saturated ? "" : " (not saturated)"}`
+            : d.headroomV !== null
+              ? volts(d.headroomV)
+              : "",
+        ]),
+      ),
+    );
+    L.push("");
+  }
+  if (b.kind !== "direct")
+    L.push(`Segment supply: up to ${milliamps(b.supply.maxCurrentA)} mA, ${milliwatts(b.supply.maxPowerW)} mW at ${b.supply.volts} V`);
   L.push(
-    ...table(
-      ["Output", "Q", "R", "Re", "Vce max V", "P max mW", "Headroom V"],
-      Object.entries(b.drivers).map(([o, d]) => [
-        o,
-        d.transistor,
-        d.emitterResistor,
-        formatOhms(d.emitterOhms),
-        volts(d.maxVceV),
-        milliwatts(d.maxPowerW, 2),
-        volts(d.headroomV),
-      ]),
-    ),
+    `Logic supply (counter lines and tie-on): up to ${milliamps(b.logic.maxCurrentA)} mA, ${milliwatts(b.logic.maxPowerW)} mW at ${b.logic.volts} V`,
   );
   L.push("");
-  L.push(`Supply: up to ${milliamps(b.supply.maxCurrentA)} mA, ${milliwatts(b.supply.maxPowerW)} mW at ${b.supply.volts} V`);
-  L.push("");
-  const which = b.trim.applied ? "trimmed design" : "design with the project's emitter resistors";
+  const which = b.trim.applied ? "trimmed design" : "design with the project's resistors";
   L.push(`Tolerance corners (${which}; ±${e.tolerance.resistorPct} % resistors, beta ${e.tolerance.betaMin}-${e.tolerance.betaMax})`);
   for (const c of [b.corners.low, b.corners.high]) {
     const k = c.conditions;
+    const driverFigure =
+      c.maxForcedBeta !== null
+        ? `, forced beta up to ${c.maxForcedBeta.toFixed(1)}`
+        : c.minHeadroomV !== null
+          ? `, headroom ${volts(c.minHeadroomV)} V`
+          : "";
     L.push(
-      `  ${k.name.padEnd(4)} ${k.supplyV} V, ${k.temperatureC} °C, beta ${k.betaF}: strings ${microamps(c.minCurrentA)}-${microamps(c.maxCurrentA)} µA, ` +
-        `headroom ${volts(c.minHeadroomV)} V, driver up to ${milliwatts(c.maxPowerW, 2)} mW`,
+      `  ${k.name.padEnd(4)} ${k.supplyV} V, ${k.temperatureC} °C, beta ${k.betaF}: segments ${amps(c.minCurrentA, unit)}-${amps(c.maxCurrentA, unit)} ${unit}` +
+        `${driverFigure}, driver up to ${milliwatts(c.maxPowerW, 2)} mW`,
     );
   }
   L.push(
-    `  ${b.corners.meetsTarget ? "Meets" : "Misses"} the target: every corner within ±${b.corners.windowPct} % of ${microamps(e.string.targetA)} µA, under the rating, no saturation`,
+    `  ${b.corners.meetsTarget ? "Meets" : "Misses"} the target: every corner within ±${b.corners.windowPct} % of ${amps(e.segment.targetA, unit)} ${unit}, under the rating, no driver saturating (a switch saturated)`,
   );
-  L.push(`  Temperature: VT = kT/q; silicon Is(T) as SPICE scales it (EG 1.11 eV, XTI 3); LED dies -2 mV/°C at constant current`);
+  L.push(`  Temperature: VT = kT/q; silicon Is(T) as SPICE scales it (EG 1.11 eV, XTI 3); LEDs -2 mV/°C at constant current`);
   return L.join("\n") + "\n";
 }

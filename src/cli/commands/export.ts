@@ -3,7 +3,7 @@
  * the files the papers builder (render/papers.ts) makes, the same the web
  * app's Export menu offers: the matrix drawing (matrix.svg, or matrix-1.svg
  * ... when it needs several sheets), the wiring list (wiring.csv and the
- * printable wiring.html), the budget (budget.json, diodeloom/budget@2), the
+ * printable wiring.html), the budget (budget.json, diodeloom/budget@3), the
  * BOM (bom.csv) and one SPICE netlist per state (spice/S0.cir ...), both
  * with the design's emitter resistors, and the normalised project
  * (project.json).
@@ -12,7 +12,7 @@
  * BOM and decks keep the project's emitter values, and the exit code is 1.
  */
 import { solveBudget } from "../../core/budget/budget.ts";
-import { designNote } from "../../core/budget/emitterDesign.ts";
+import { designNote } from "../../core/budget/segmentDesign.ts";
 import { dateProblem, drawingOptions, isPaper, titleTextProblem, type DrawingOptions } from "../../render/drawingOptions.ts";
 import { PAPER_NAMES } from "../../render/drawingModel.ts";
 import { layoutMatrix } from "../../render/layout.ts";

@@ -1,4 +1,4 @@
-import { designNote, type EmitterDesign } from "../../core/budget/emitterDesign.ts";
+import { designNote, type SegmentDesign } from "../../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
 import { designators } from "../../core/matrix/designators.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
@@ -52,9 +52,9 @@ const METHOD_TEXT = {
 /**
  * The readable report of `synth`.
  *
- * @param design the emitter resistors the parts list shows (as the budget, the BOM and the decks do)
+ * @param design the current-setting resistors the parts list shows (as the budget, the BOM and the decks do)
  */
-export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMatrix, design: EmitterDesign): string {
+export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMatrix, design: SegmentDesign): string {
   const lines: string[] = [];
   const lit = spec.lit.reduce((a, row) => a + row.filter(Boolean).length, 0);
   lines.push(project.title);
@@ -114,7 +114,7 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
   if (spec.neverLit.length > 0) lines.push(`Never lit (no driver): ${spec.neverLit.join(" ")}`);
 
   lines.push("", "Parts");
-  for (const g of countParts(designators(spec, m, project.electrical, design.emitterOhms))) {
+  for (const g of countParts(designators(spec, m, project.electrical, design.ohms))) {
     lines.push(`  ${String(g.refs.length).padStart(4)}  ${partValue(g, project.electrical).padEnd(22)} ${refRanges(g.refs)}`);
   }
   lines.push(`  ${designNote(design)}`);

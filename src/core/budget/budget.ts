@@ -1,23 +1,36 @@
 /**
  * Stage "budget" of the pipeline: verified matrix + electrical model -> what
- * every part carries in every state (`diodeloom/budget@2`, budgetTypes.ts).
+ * every part carries in every state (`diodeloom/budget@3`, budgetTypes.ts).
  *
- * Settles the design's emitter resistors (the trim where it improves the
- * design, emitterDesign.ts), then solves that design in every counter state
- * at nominal values, again at the lowest supply (for the drivers' headroom)
- * and at the two tolerance corners. Every figure but the trim's is of that
- * one design, the one the BOM and the decks show. All values are SI.
+ * Settles the design's current-setting resistors (the trim where the rule
+ * allows it, segmentDesign.ts), then solves that design in every counter
+ * state at nominal values, again at the lowest supply (for the sinks' and
+ * followers' headroom) and at the two tolerance corners (the low one is
+ * also where a switch's saturation is judged). Every figure but the trim's
+ * is of that one design, the one the BOM, the decks and the drawing show.
+ * All values are SI.
  */
 import { cornerConditions, cornerModel } from "./corners.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
-import { currentRanges, overallSpread } from "./emitterTrim.ts";
-import { settleDesign, type EmitterDesign } from "./emitterDesign.ts";
+import { currentRanges, overallSpread } from "./segmentTrim.ts";
+import { settleDesign, type SegmentDesign } from "./segmentDesign.ts";
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
+import { currentRole } from "../matrix/designators.ts";
 import type { Project } from "../project/project.ts";
 import { ok, type Result } from "../result/result.ts";
-import { solveAllStates, type BudgetFailure } from "../circuit/stateSweep.ts";
-import { cornerBudget, counterBudgets, diodeBudgets, driverBudgets, outputBudgets, stateBudgets } from "./budgetFigures.ts";
+import { solveAllStates, type BudgetFailure, type StateSolution } from "../circuit/stateSweep.ts";
+import {
+  cornerBudget,
+  counterBudgets,
+  diodeBudgets,
+  driverBudgets,
+  logicSupply,
+  outputBudgets,
+  segmentSupply,
+  stateBudgets,
+} from "./budgetFigures.ts";
 import { budgetWarnings } from "./budgetWarnings.ts";
+import { stateSpreads } from "./stateSpread.ts";
 import { BUDGET_SCHEMA, type Budget, type BudgetOptions, type CornerBudget } from "./budgetTypes.ts";
 
 export type { BudgetFailure } from "../circuit/stateSweep.ts";
@@ -27,7 +40,7 @@ export type { BudgetFailure } from "../circuit/stateSweep.ts";
  *
  * @example
  * const b = solveBudget(project, spec, matrix);
- * if (b.ok) b.value.outputs["1a"]; // { minA: 1.24e-4, maxA: 1.31e-4, spreadPct: 5.4, ... }
+ * if (b.ok) b.value.outputs["1a"]; // { minA: 0.0098, maxA: 0.0099, spreadPct: 0.4, ... }
  */
 export function solveBudget(
   project: Project,
@@ -41,75 +54,87 @@ export function solveBudget(
   const windowPct = options.windowPct ?? 20;
   if (!(windowPct > 0 && windowPct < 100)) throw new RangeError(`windowPct must be between 0 and 100, got ${windowPct}`);
 
-  const settled = settleDesign(project, spec, matrix, { series, mode });
+  const settled = settleDesign(project, spec, matrix, { series, mode, windowPct });
   if (!settled.ok) return settled;
   const { design, solutions, trim } = settled.value;
-  const chosen = design.trimmed ? design.emitterOhms : undefined;
+  const chosen = design.trimmed ? design.ohms : undefined;
   const lowSupply = solveAllStates(spec, matrix, { ...e, supply: { ...e.supply, volts: e.supply.minVolts } }, "lowest supply", chosen);
   if (!lowSupply.ok) return lowSupply;
 
   const driven = solutions[0]?.circuit.drivers.map((d) => d.output) ?? [];
   const corners: CornerBudget[] = [];
+  const cornerSolutions: (readonly StateSolution[])[] = [];
   for (const c of cornerConditions(e)) {
     const sol = solveAllStates(spec, matrix, cornerModel(e, c, driven, chosen), `${c.name} corner`);
     if (!sol.ok) return sol;
-    corners.push(cornerBudget(spec, c, sol.value));
+    corners.push(cornerBudget(project, spec, c, sol.value));
+    cornerSolutions.push(sol.value);
   }
   const [low, high] = corners as [CornerBudget, CornerBudget];
 
-  const states = stateBudgets(spec, solutions);
-  const maxSupplyA = Math.max(0, ...states.map((s) => s.supplyCurrentA));
-  const targetA = e.string.targetA;
+  const targetA = e.segment.targetA;
   const w = windowPct / 100;
+  const drivers = driverBudgets(project, spec, solutions, lowSupply.value, cornerSolutions[0] ?? []);
   const meetsTarget =
     driven.length === 0 ||
     (low.minCurrentA >= targetA * (1 - w) &&
       high.maxCurrentA <= targetA * (1 + w) &&
-      high.maxCurrentA <= e.string.maxA &&
-      low.minHeadroomV > 0);
+      high.maxCurrentA <= e.segment.maxA &&
+      (low.minHeadroomV === null || low.minHeadroomV > 0) &&
+      Object.values(drivers).every((d) => d.saturated !== false));
 
+  const outputs = outputBudgets(spec, matrix, solutions);
   const budget: Omit<Budget, "warnings"> = {
     schema: BUDGET_SCHEMA,
     title: project.title,
+    kind: e.driver.kind,
     temperatureC: e.temperatureC,
-    targetCurrentA: targetA,
-    emitterResistors: design.trimmed ? "trimmed" : "project",
-    states,
-    outputs: outputBudgets(spec, matrix, solutions),
+    targetA,
+    maxA: e.segment.maxA,
+    design: design.trimmed ? "trimmed" : "project",
+    states: stateBudgets(spec, solutions),
+    outputs,
     spreadPct: overallSpread(currentRanges(spec, solutions)),
     diodes: diodeBudgets(project, matrix, solutions),
     counterLines: counterBudgets(project, solutions),
-    drivers: driverBudgets(project, spec, solutions, lowSupply.value),
-    supply: { volts: e.supply.volts, maxCurrentA: maxSupplyA, maxPowerW: maxSupplyA * e.supply.volts },
+    drivers,
+    supply: segmentSupply(project, solutions),
+    logic: logicSupply(project, solutions),
     trim: {
       series,
       mode,
+      role: currentRole(e.driver.kind),
       applied: design.trimmed,
       effect: design.effect ?? "no-change",
       outputs: trim.outputs,
+      judgedOhms: Object.fromEntries(settled.value.judged),
       spreadPctBefore: settled.value.before.spreadPct,
       spreadPct: settled.value.after.spreadPct,
       offTargetPctBefore: settled.value.before.offTargetPct,
       offTargetPct: settled.value.after.offTargetPct,
+      windowDistancePctBefore: settled.value.before.windowDistancePct,
+      windowDistancePct: settled.value.after.windowDistancePct,
     },
     corners: { windowPct, meetsTarget, low, high },
   };
-  return ok({ ...budget, warnings: budgetWarnings(project, budget) });
+  const spreads = stateSpreads({ spec, matrix, kind: e.driver.kind, solutions, outputs });
+  return ok({ ...budget, warnings: budgetWarnings(project, budget, spreads) });
 }
 
 /**
- * The emitter design a budget describes: the values the BOM, the decks and
- * the parts list must show for it.
+ * The design a budget describes: the values the BOM, the decks, the drawing
+ * and the parts list must show for it.
  *
  * @example
- * designators(spec, matrix, project.electrical, budgetDesign(budget).emitterOhms);
+ * designators(spec, matrix, project.electrical, budgetDesign(budget).ohms);
  */
-export function budgetDesign(b: Budget): EmitterDesign {
+export function budgetDesign(b: Budget): SegmentDesign {
   return {
     mode: b.trim.mode,
     series: b.trim.series,
+    role: b.trim.role,
     trimmed: b.trim.applied,
     effect: b.trim.effect,
-    emitterOhms: new Map(Object.entries(b.drivers).map(([o, d]) => [o, d.emitterOhms])),
+    ohms: new Map(Object.entries(b.drivers).map(([o, d]) => [o, d.currentResistor.ohms])),
   };
 }

@@ -5,29 +5,44 @@
  */
 import type { CornerConditions } from "./corners.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
-import { currentRanges } from "./emitterTrim.ts";
+import { currentRanges } from "./segmentTrim.ts";
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
+import type { DriverStage } from "../circuit/circuit.ts";
 import { isLit, type StateSolution } from "../circuit/stateSweep.ts";
 import type {
   CornerBudget,
   CounterLineBudget,
   DiodeBudget,
   DriverBudget,
+  DriverPoint,
   OutputBudget,
   OutputInState,
+  StageResistorBudget,
   StateBudget,
+  SupplyBudget,
 } from "./budgetTypes.ts";
 
-/** Per state: what the active line sources, what the supply gives, and every string. */
+/** The operating point of a stage's transistor in one solved state; null for direct drive. */
+export function driverPoint(s: StateSolution, d: DriverStage): DriverPoint | null {
+  if (d.transistor === null || d.baseNode === null || d.collectorNode === null) return null;
+  const t = s.op.transistors[d.transistor];
+  if (!t) throw new Error(`bug: no currents for ${d.transistor}`);
+  const v = s.op.voltages;
+  const ve = d.emitterNode === null ? 0 : (v[d.emitterNode] as number);
+  return { vbeV: (v[d.baseNode] as number) - ve, vceV: (v[d.collectorNode] as number) - ve, icA: t.icA, ibA: t.ibA };
+}
+
+/** Per state: what the active line sources, what the supplies give, and every segment. */
 export function stateBudgets(spec: DecodeSpec, sols: readonly StateSolution[]): StateBudget[] {
   return sols.map((s, k) => {
     const outputs: Record<string, OutputInState> = {};
     for (const d of s.circuit.drivers) {
       outputs[d.output] = {
         lit: isLit(spec, k, d.output),
-        baseV: s.op.voltages[d.baseNode] as number,
-        stringCurrentA: s.op.currents[d.display] as number,
+        segmentA: s.op.currents[d.display] as number,
+        inputV: s.op.voltages[d.inputNode] as number,
+        driver: driverPoint(s, d),
       };
     }
     return {
@@ -35,6 +50,7 @@ export function stateBudgets(spec: DecodeSpec, sols: readonly StateSolution[]): 
       text: spec.texts[k] ?? "",
       sourceCurrentA: s.op.currents[`V${s.circuit.state}`] as number,
       supplyCurrentA: s.op.currents["VSUP"] ?? 0,
+      logicCurrentA: s.op.currents["VLOGIC"] ?? 0,
       solver: { method: s.op.method, iterations: s.op.iterations },
       outputs,
     };
@@ -59,20 +75,53 @@ function pathLengths(matrix: VerifiedMatrix): Map<string, Set<number>> {
   return lengths;
 }
 
-/** Per output: its current range when lit, its leakage when not, and its path lengths. */
+/**
+ * The fewest diodes from the line of state `k` to each line it reaches:
+ * the depth at which that state drives it.
+ */
+export function depthsFrom(matrix: VerifiedMatrix, k: number): Map<string, number> {
+  const next = new Map<string, string[]>();
+  for (const d of matrix.diodes) next.set(d.from, [...(next.get(d.from) ?? []), d.to]);
+  const start = matrix.states[k] as string;
+  const depth = new Map<string, number>([[start, 0]]);
+  const queue = [start];
+  while (queue.length > 0) {
+    const l = queue.shift() as string;
+    for (const t of next.get(l) ?? []) {
+      if (depth.has(t)) continue;
+      depth.set(t, (depth.get(l) ?? 0) + 1);
+      queue.push(t);
+    }
+  }
+  return depth;
+}
+
+/** Per output: its current range when lit (and in which states), its largest current when unlit, and its path lengths. */
 export function outputBudgets(spec: DecodeSpec, matrix: VerifiedMatrix, sols: readonly StateSolution[]): Record<string, OutputBudget> {
   const ranges = currentRanges(spec, sols);
   const lengths = pathLengths(matrix);
   const out: Record<string, OutputBudget> = {};
   for (const d of sols[0]?.circuit.drivers ?? []) {
     let offMaxA = 0;
-    sols.forEach((s, k) => {
-      if (!isLit(spec, k, d.output)) offMaxA = Math.max(offMaxA, s.op.currents[d.display] as number);
-    });
+    let offMaxState: string | null = null;
+    let minState: string | null = null;
+    let maxState: string | null = null;
     const r = ranges.get(d.output) ?? { minA: 0, maxA: 0, spreadPct: 0 };
+    sols.forEach((s, k) => {
+      const i = s.op.currents[d.display] as number;
+      if (!isLit(spec, k, d.output)) {
+        if (offMaxState === null || i > offMaxA) [offMaxA, offMaxState] = [i, s.circuit.state];
+        return;
+      }
+      if (minState === null && i === r.minA) minState = s.circuit.state;
+      if (maxState === null && i === r.maxA) maxState = s.circuit.state;
+    });
     out[d.output] = {
       ...r,
       offMaxA,
+      offMaxState,
+      minState,
+      maxState,
       pathLengths: [...(lengths.get(d.output) ?? [])].sort((a, b) => a - b),
       tiedOn: d.tiedOn,
     };
@@ -108,81 +157,144 @@ export function diodeBudgets(project: Project, matrix: VerifiedMatrix, sols: rea
 
 /** Per counter line, when its state is active: what it sources and how far it sags. */
 export function counterBudgets(project: Project, sols: readonly StateSolution[]): Record<string, CounterLineBudget> {
+  const co = project.electrical.counterOutput;
   const out: Record<string, CounterLineBudget> = {};
   for (const s of sols) {
     const st = s.circuit.state;
     const v = s.op.voltages[s.circuit.lineNodes[st] as string] as number;
-    out[st] = { sourceCurrentA: s.op.currents[`V${st}`] as number, lineV: v, sagV: project.electrical.counterOutput.high - v };
+    out[st] = { sourceCurrentA: s.op.currents[`V${st}`] as number, lineV: v, sagV: co.high - v, ratedA: co.maxCurrentA };
   }
   return out;
+}
+
+/** The largest current and power a supply gives over the states. */
+function supplyFigures(volts: number, currents: readonly number[]): SupplyBudget {
+  const maxCurrentA = Math.max(0, ...currents);
+  return { volts, maxCurrentA, maxPowerW: maxCurrentA * volts };
+}
+
+/** The segment supply: what `VSUP` gives over the states. */
+export function segmentSupply(project: Project, sols: readonly StateSolution[]): SupplyBudget {
+  return supplyFigures(
+    project.electrical.supply.volts,
+    sols.map((s) => s.op.currents["VSUP"] ?? 0),
+  );
+}
+
+/**
+ * The logic supply: the active counter line at its high level plus what the
+ * tied-on outputs draw from the rail, in the worst state.
+ */
+export function logicSupply(project: Project, sols: readonly StateSolution[]): SupplyBudget {
+  const e = project.electrical;
+  const power = sols.map(
+    (s) => (s.op.currents[`V${s.circuit.state}`] as number) * e.counterOutput.high + (s.op.currents["VLOGIC"] ?? 0) * e.logicSupply.volts,
+  );
+  const current = sols.map((s) => (s.op.currents[`V${s.circuit.state}`] as number) + (s.op.currents["VLOGIC"] ?? 0));
+  return { volts: e.logicSupply.volts, maxCurrentA: Math.max(0, ...current), maxPowerW: Math.max(0, ...power) };
 }
 
 interface DriverFigures {
   maxVceV: number;
   maxPowerW: number;
+  maxCollectorA: number;
   headroomV: number;
+  forcedBeta: number;
+  /** A lit state where the transistor takes no base current: it is off, not a switch closed. */
+  off: boolean;
 }
 
-/** Vce, dissipation and (over lit states) collector-base headroom of each driver. */
+/** Base current below which a lit switch counts as off, amperes (GMIN-level leakage, not drive). */
+const NO_BASE_A = 1e-9;
+
+/** Vce, dissipation, collector current and, over the lit states, collector-base headroom and forced beta of each driver. */
 function driverFigures(spec: DecodeSpec, sols: readonly StateSolution[]): Map<string, DriverFigures> {
   const out = new Map<string, DriverFigures>();
   sols.forEach((s, k) => {
     for (const d of s.circuit.drivers) {
-      const v = s.op.voltages;
-      const t = s.op.transistors[d.transistor];
-      if (!t) throw new Error(`bug: no currents for ${d.transistor}`);
-      const vc = v[d.collectorNode] as number;
-      const vb = v[d.baseNode] as number;
-      const ve = v[d.emitterNode] as number;
-      const f = out.get(d.output) ?? { maxVceV: -Infinity, maxPowerW: 0, headroomV: Infinity };
-      f.maxVceV = Math.max(f.maxVceV, vc - ve);
-      f.maxPowerW = Math.max(f.maxPowerW, (vc - ve) * t.icA + (vb - ve) * t.ibA);
-      if (isLit(spec, k, d.output)) f.headroomV = Math.min(f.headroomV, vc - vb);
+      const p = driverPoint(s, d);
+      const f = out.get(d.output) ?? { maxVceV: 0, maxPowerW: 0, maxCollectorA: 0, headroomV: Infinity, forcedBeta: 0, off: false };
+      if (p !== null) {
+        f.maxVceV = Math.max(f.maxVceV, p.vceV);
+        f.maxPowerW = Math.max(f.maxPowerW, p.vceV * p.icA + p.vbeV * p.ibA);
+        f.maxCollectorA = Math.max(f.maxCollectorA, p.icA);
+        if (isLit(spec, k, d.output)) {
+          f.headroomV = Math.min(f.headroomV, p.vceV - p.vbeV);
+          if (p.ibA > NO_BASE_A) f.forcedBeta = Math.max(f.forcedBeta, p.icA / p.ibA);
+          else f.off = true;
+        }
+      }
       out.set(d.output, f);
     }
   });
   return out;
 }
 
-/** Per driver: Vce and dissipation over the states, headroom at the lowest supply, with its ratings. */
+/** The stage's resistors as the budget lists them, the current-setting one first. */
+function stageResistors(d: DriverStage): StageResistorBudget[] {
+  const list = [d.current, d.emitter === null ? null : d.series, d.base, d.baseEmitter, d.pullDown, d.tieOn];
+  return list.filter((x): x is NonNullable<typeof x> => x !== null).map((x) => ({ ref: x.ref, role: x.role, ohms: x.ohms }));
+}
+
+/** Per driver: Vce, dissipation and collector current over the states, a sink's or follower's headroom at the lowest supply, a switch's forced beta at the low corner, with its ratings. */
 export function driverBudgets(
   project: Project,
   spec: DecodeSpec,
   nominal: readonly StateSolution[],
   lowSupply: readonly StateSolution[],
+  lowCorner: readonly StateSolution[],
 ): Record<string, DriverBudget> {
+  const e = project.electrical;
+  const kind = e.driver.kind;
   const nom = driverFigures(spec, nominal);
   const low = driverFigures(spec, lowSupply);
+  const weak = driverFigures(spec, lowCorner);
   const out: Record<string, DriverBudget> = {};
   for (const d of nominal[0]?.circuit.drivers ?? []) {
     const n = nom.get(d.output) as DriverFigures;
+    const w = weak.get(d.output) as DriverFigures;
+    const isSwitch = kind === "low-side-switch";
+    const headroom = (low.get(d.output) as DriverFigures).headroomV;
     out[d.output] = {
       transistor: d.transistor,
-      emitterResistor: d.emitterResistor,
-      emitterOhms: d.emitterOhms,
+      currentResistor: { ref: d.current.ref, role: d.current.role, ohms: d.current.ohms },
+      resistors: stageResistors(d),
       maxVceV: n.maxVceV,
       maxPowerW: n.maxPowerW,
-      headroomV: (low.get(d.output) as DriverFigures).headroomV,
-      ratedVceV: project.electrical.driver.maxVceV,
-      ratedPowerW: project.electrical.driver.maxPowerW,
+      maxCollectorA: n.maxCollectorA,
+      headroomV: (kind === "current-sink" || kind === "emitter-follower") && Number.isFinite(headroom) ? headroom : null,
+      forcedBeta: isSwitch && !w.off ? w.forcedBeta : null,
+      saturated: isSwitch ? !w.off && w.forcedBeta < e.tolerance.betaMin : null,
+      ratedVceV: e.driver.maxVceV,
+      ratedPowerW: e.driver.maxPowerW,
+      ratedCollectorA: e.driver.maxCollectorA,
     };
   }
   return out;
 }
 
-/** The string currents and driver figures of one tolerance corner. */
-export function cornerBudget(spec: DecodeSpec, conditions: CornerConditions, sols: readonly StateSolution[]): CornerBudget {
+/** The segment currents and driver figures of one tolerance corner. */
+export function cornerBudget(
+  project: Project,
+  spec: DecodeSpec,
+  conditions: CornerConditions,
+  sols: readonly StateSolution[],
+): CornerBudget {
+  const kind = project.electrical.driver.kind;
   const ranges = currentRanges(spec, sols);
   const figures = [...driverFigures(spec, sols).values()];
   const rs = [...ranges.values()];
+  const lit = figures.filter((f) => Number.isFinite(f.headroomV));
   return {
     conditions,
     minCurrentA: rs.length > 0 ? Math.min(...rs.map((r) => r.minA)) : 0,
     maxCurrentA: rs.length > 0 ? Math.max(...rs.map((r) => r.maxA)) : 0,
     outputs: Object.fromEntries(ranges),
-    // No driver, nothing to saturate: 0 keeps the JSON finite.
-    minHeadroomV: figures.length > 0 ? Math.min(...figures.map((f) => f.headroomV)) : 0,
-    maxVceV: figures.length > 0 ? Math.max(...figures.map((f) => f.maxVceV)) : 0,
-    maxPowerW: figures.length > 0 ? Math.max(...figures.map((f) => f.maxPowerW)) : 0,
+    // No lit driver, nothing to saturate: 0 keeps the JSON finite.
+    minHeadroomV:
+      kind === "current-sink" || kind === "emitter-follower" ? (lit.length > 0 ? Math.min(...lit.map((f) => f.headroomV)) : 0) : null,
+    maxForcedBeta: kind === "low-side-switch" ? Math.max(0, ...figures.map((f) => f.forcedBeta)) : null,
+    maxVceV: Math.max(0, ...figures.map((f) => f.maxVceV)),
+    maxPowerW: Math.max(0, ...figures.map((f) => f.maxPowerW)),
   };
 }

@@ -1,50 +1,82 @@
 /**
- * The shape of a budget (`diodeloom/budget@2`): what every part carries in
+ * The shape of a budget (`diodeloom/budget@3`): what every part carries in
  * every state, in SI units, each quantity's unit in its name (`A` amperes,
  * `V` volts, `W` watts, `Ohms`, `Pct` percent, `C` degrees Celsius).
+ *
+ * Format 3 (this one) follows the driver kinds: every output carries
+ * `segmentA`, lit or not, and its driver's operating point; each kind adds
+ * its own figures (a sink's and a follower's headroom, a switch's forced
+ * beta at the weakest corner).
  */
 import type { CornerConditions } from "./corners.ts";
-import type { CurrentRange } from "./emitterTrim.ts";
-import type { TrimEffect, TrimMode } from "./emitterDesign.ts";
+import type { CurrentRange } from "./segmentTrim.ts";
+import type { TrimEffect, TrimMode } from "./segmentDesign.ts";
 import type { ESeriesName } from "./eSeries.ts";
 import type { DcMethod } from "../circuit/dcSolver.ts";
+import type { CurrentResistorRole, PartResistorRole } from "../matrix/designators.ts";
+import type { DriverKind } from "../project/project.ts";
 import type { WarningLevel } from "./safety.ts";
 
-export const BUDGET_SCHEMA = "diodeloom/budget@2";
+export const BUDGET_SCHEMA = "diodeloom/budget@3";
 
 export interface BudgetOptions {
   /** Preferred-value series of the trim (default E24). */
   readonly series?: ESeriesName;
-  /** Whether the design takes the trim (default `auto`: where it improves the design). */
+  /** Whether the design takes the trim (default `auto`: where the rule allows it). */
   readonly trim?: TrimMode;
   /**
-   * How far from `string.targetA` a string may run at a tolerance corner and
-   * still count as meeting the target, percent (default 20, a choice of
+   * How far from `segment.targetA` a segment may run at a tolerance corner
+   * and still count as meeting the target, percent (default 20, a choice of
    * diodeloom: a difference the eye accepts between neighbouring segments).
    */
   readonly windowPct?: number;
 }
 
+/** A transistor's operating point. */
+export interface DriverPoint {
+  readonly vbeV: number;
+  readonly vceV: number;
+  /** Into the collector. */
+  readonly icA: number;
+  /** Into the base. */
+  readonly ibA: number;
+}
+
 export interface OutputInState {
   readonly lit: boolean;
-  readonly baseV: number;
-  readonly stringCurrentA: number;
+  /** The segment's current, lit or not. */
+  readonly segmentA: number;
+  /** The output line's voltage (the matrix's end of the stage). */
+  readonly inputV: number;
+  /** The driver's operating point; null for direct drive. */
+  readonly driver: DriverPoint | null;
 }
 
 export interface StateBudget {
+  /** The state's line, `S<k>`. */
   readonly state: string;
   readonly text: string;
   /** Current the active counter line sources. */
   readonly sourceCurrentA: number;
-  /** Current drawn from the string supply. */
+  /** Current drawn from the segment supply (0 for direct drive). */
   readonly supplyCurrentA: number;
+  /** Current drawn from the logic supply by the tied-on outputs. */
+  readonly logicCurrentA: number;
   readonly solver: { readonly method: DcMethod; readonly iterations: number };
   readonly outputs: Readonly<Record<string, OutputInState>>;
 }
 
+/** Why an output's current varies between the states that light it. */
+export type SpreadCause = "line-sag" | "diode-depth" | "switch-unsaturated";
+
 export interface OutputBudget extends CurrentRange {
-  /** Largest string current in a state that does not light the output (leakage). */
+  /** Largest segment current in a state that does not light the output. */
   readonly offMaxA: number;
+  /** The state of `offMaxA`, or null when the output is lit in every state. */
+  readonly offMaxState: string | null;
+  /** The states of `minA` and `maxA` (null when never lit). */
+  readonly minState: string | null;
+  readonly maxState: string | null;
   /** Lengths, in diodes, of the paths from the counter lines to this output (empty when tied on). */
   readonly pathLengths: readonly number[];
   readonly tiedOn: boolean;
@@ -68,58 +100,90 @@ export interface CounterLineBudget {
   readonly lineV: number;
   /** How far the active line falls below its open-circuit `high`. */
   readonly sagV: number;
+  /** What the line may source (`counterOutput.maxCurrentA`). */
+  readonly ratedA: number;
+}
+
+/** One resistor of a stage as the design has it. */
+export interface StageResistorBudget {
+  readonly ref: string;
+  readonly role: PartResistorRole;
+  readonly ohms: number;
 }
 
 export interface DriverBudget {
-  readonly transistor: string;
-  readonly emitterResistor: string;
-  /** The design's emitter resistor. */
-  readonly emitterOhms: number;
-  /** Largest collector-emitter voltage over the states. */
+  /** The transistor, or null for direct drive. */
+  readonly transistor: string | null;
+  /** The resistor that sets the current, with the design's value. */
+  readonly currentResistor: StageResistorBudget;
+  /** Every resistor of the stage, the current-setting one first. */
+  readonly resistors: readonly StageResistorBudget[];
+  /** Largest collector-emitter voltage over the states (0 without a transistor). */
   readonly maxVceV: number;
   /** Largest dissipation Vce Ic + Vbe Ib. */
   readonly maxPowerW: number;
+  /** Largest collector current. */
+  readonly maxCollectorA: number;
   /**
-   * Smallest collector-base voltage over the lit states at the lowest supply:
-   * how far the driver is from the edge of saturation (Vcb = 0).
+   * A sink's or a follower's smallest collector-base voltage over the lit
+   * states at the lowest supply: how far it is from saturating (Vcb = 0);
+   * null for a switch and for direct drive.
    */
-  readonly headroomV: number;
+  readonly headroomV: number | null;
+  /**
+   * A switch's largest forced beta Ic/Ib over the lit states at the low
+   * corner (lowest beta, weakest base drive); null for other kinds, and for
+   * a switch that takes no base current in a lit state (it is off).
+   */
+  readonly forcedBeta: number | null;
+  /** A switch: saturated at the low corner (forced beta below `tolerance.betaMin`); null for other kinds. */
+  readonly saturated: boolean | null;
   readonly ratedVceV: number;
   readonly ratedPowerW: number;
+  readonly ratedCollectorA: number;
 }
 
 export interface CornerBudget {
   readonly conditions: CornerConditions;
-  /** Lowest lit string current of any output. */
+  /** Lowest lit segment current of any output. */
   readonly minCurrentA: number;
-  /** Highest lit string current of any output. */
+  /** Highest lit segment current of any output. */
   readonly maxCurrentA: number;
   readonly outputs: Readonly<Record<string, CurrentRange>>;
-  /** Smallest collector-base headroom of a lit driver (0 when there is no driver). */
-  readonly minHeadroomV: number;
+  /** Smallest collector-base headroom of a lit sink or follower (null for other kinds, 0 when there is no driver). */
+  readonly minHeadroomV: number | null;
+  /** Largest forced beta of a lit switch (null for other kinds). */
+  readonly maxForcedBeta: number | null;
   readonly maxVceV: number;
   readonly maxPowerW: number;
 }
 
 /**
  * The trim as worked out, and whether the design takes it (`applied`).
- * `spreadPctBefore` / `offTargetPctBefore` are the project's values,
- * `spreadPct` / `offTargetPct` the trim's, over the states at nominal.
+ * The figures `...Before` are the project's values, the others the values
+ * the rule judged (the centred trim, or its step towards the middle), over
+ * the states at nominal.
  */
 export interface TrimBudget {
   readonly series: ESeriesName;
   readonly mode: TrimMode;
+  readonly role: CurrentResistorRole;
   readonly applied: boolean;
   readonly effect: TrimEffect;
+  /** Per output: the centred preferred value and the exact one, and the range the centred trim gives. */
   readonly outputs: Readonly<Record<string, { readonly ohms: number; readonly idealOhms: number } & CurrentRange>>;
+  /** The values the rule judged, ohms, by output. */
+  readonly judgedOhms: Readonly<Record<string, number>>;
   readonly spreadPctBefore: number;
   readonly spreadPct: number;
   readonly offTargetPctBefore: number;
   readonly offTargetPct: number;
+  readonly windowDistancePctBefore: number;
+  readonly windowDistancePct: number;
 }
 
 /** Why a worked-out trim is not in the design. */
-export type UnappliedWhy = "turned-off" | "widens-spread" | "moves-off-target";
+export type UnappliedWhy = "turned-off" | "widens-spread" | "over-rating" | "no-help";
 
 /** A finding of the budget: its severity, its code and the figures behind it (SI). The words are the reports' (render). */
 export type BudgetWarning =
@@ -161,6 +225,14 @@ export type BudgetWarning =
     }
   | {
       readonly level: "warn";
+      readonly code: "driver-current";
+      readonly transistor: string;
+      readonly output: string;
+      readonly currentA: number;
+      readonly ratedA: number;
+    }
+  | {
+      readonly level: "warn";
       readonly code: "driver-saturation";
       readonly transistor: string;
       readonly output: string;
@@ -169,7 +241,33 @@ export type BudgetWarning =
       readonly belowV: number;
     }
   | { readonly level: "warn"; readonly code: "corner-saturation"; readonly belowV: number }
-  | { readonly level: "warn"; readonly code: "string-current"; readonly currentA: number; readonly ratedA: number }
+  | {
+      readonly level: "warn";
+      readonly code: "switch-unsaturated";
+      readonly transistor: string;
+      readonly output: string;
+      /** Largest Ic/Ib of a lit state at the low corner; null when it takes no base current (off). */
+      readonly forcedBeta: number | null;
+      readonly betaMin: number;
+    }
+  | { readonly level: "warn"; readonly code: "segment-current"; readonly currentA: number; readonly ratedA: number }
+  | {
+      readonly level: "warn";
+      readonly code: "line-current";
+      readonly line: string;
+      readonly state: string;
+      readonly currentA: number;
+      readonly ratedA: number;
+    }
+  | {
+      readonly level: "warn";
+      readonly code: "ghost-segment";
+      readonly output: string;
+      readonly state: string;
+      readonly currentA: number;
+      /** `ghostFraction` of the target. */
+      readonly limitA: number;
+    }
   | {
       readonly level: "warn";
       readonly code: "dim-segment";
@@ -187,6 +285,24 @@ export type BudgetWarning =
       readonly maxA: number;
       readonly targetA: number;
       readonly windowPct: number;
+    }
+  | {
+      readonly level: "warn";
+      readonly code: "state-spread";
+      readonly output: string;
+      readonly spreadPct: number;
+      readonly minState: string;
+      readonly maxState: string;
+      /** What makes it vary, largest share first. */
+      readonly causes: readonly SpreadCause[];
+      /** How much lower the active line sits in `minState` than in `maxState`, volts. */
+      readonly sagDeltaV: number;
+      /** Segments lit in `minState` and in `maxState`, sharing the active line. */
+      readonly litMin: number;
+      readonly litMax: number;
+      /** Diodes on the path from the active line in `minState` and in `maxState`. */
+      readonly depthMin: number;
+      readonly depthMax: number;
     }
   | {
       readonly level: "info";
@@ -210,21 +326,37 @@ export type BudgetWarning =
 export type BudgetWarningCode = BudgetWarning["code"];
 export type { WarningLevel };
 
+export interface SupplyBudget {
+  readonly volts: number;
+  /** Largest current over the states, amperes. */
+  readonly maxCurrentA: number;
+  /** Largest power over the states, watts. */
+  readonly maxPowerW: number;
+}
+
 export interface Budget {
   readonly schema: typeof BUDGET_SCHEMA;
   readonly title: string;
+  /** The driver kind of every output (`electrical.driver.kind`). */
+  readonly kind: DriverKind;
   readonly temperatureC: number;
-  readonly targetCurrentA: number;
-  /** Every figure below (but `trim`) is of this design. */
-  readonly emitterResistors: "trimmed" | "project";
+  readonly targetA: number;
+  /** The segment's rating. */
+  readonly maxA: number;
+  /** Every figure below (but `trim`) is of this design: the current-setting resistors `trimmed` or as in the `project`. */
+  readonly design: "trimmed" | "project";
   readonly states: readonly StateBudget[];
   readonly outputs: Readonly<Record<string, OutputBudget>>;
-  /** Spread over every lit string, percent. */
+  /** Spread over every lit segment, percent. */
   readonly spreadPct: number;
   readonly diodes: Readonly<Record<string, DiodeBudget>>;
   readonly counterLines: Readonly<Record<string, CounterLineBudget>>;
+  /** One per driven output, keyed by output. */
   readonly drivers: Readonly<Record<string, DriverBudget>>;
-  readonly supply: { readonly volts: number; readonly maxCurrentA: number; readonly maxPowerW: number };
+  /** The segment supply (unused by direct drive). */
+  readonly supply: SupplyBudget;
+  /** The logic supply as the counter lines and the tied-on outputs draw on it (the lines at their high level). */
+  readonly logic: SupplyBudget;
   readonly trim: TrimBudget;
   readonly corners: {
     readonly windowPct: number;

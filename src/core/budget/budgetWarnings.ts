@@ -1,12 +1,14 @@
 /**
  * The budget's findings, most severe first. Thresholds are the parts' own
- * ratings from the project; the 10 % spread note is a choice of diodeloom.
- * Each finding carries its figures in SI; the reports put them in words
- * (render/budgetWarningText.ts).
+ * ratings from the project, the counter line's `maxCurrentA` and the
+ * `ghostFraction` of the target; the 10 % spread notes are a choice of
+ * diodeloom. Each finding carries its figures in SI; the reports put them
+ * in words (render/budgetWarningText.ts).
  */
 import type { Project } from "../project/project.ts";
-import { safetyCautions, type WarningLevel } from "./safety.ts";
+import { carriedVoltages, safetyCautions, type WarningLevel } from "./safety.ts";
 import type { Budget, BudgetWarning, UnappliedWhy } from "./budgetTypes.ts";
+import type { StateSpreadWarning } from "./stateSpread.ts";
 
 /** Brightness spread above which the budget adds a note, percent (a choice of diodeloom). */
 export const SPREAD_NOTE_PCT = 10;
@@ -18,15 +20,25 @@ export function unappliedWhy(trim: Budget["trim"]): UnappliedWhy | null {
   return trim.effect === "improves" ? null : trim.effect;
 }
 
-/** The findings of a budget, most severe first. */
-export function budgetWarnings(project: Project, b: Omit<Budget, "warnings">): BudgetWarning[] {
+/** Most ghost findings listed, the worst first; the rest follow from the same cause. */
+const MAX_GHOSTS = 12;
+
+/**
+ * The findings of a budget, most severe first.
+ *
+ * @param spreads the state-spread findings (stateSpread.ts), worked out from the solved states
+ */
+export function budgetWarnings(
+  project: Project,
+  b: Omit<Budget, "warnings">,
+  spreads: readonly StateSpreadWarning[] = [],
+): BudgetWarning[] {
   const e = project.electrical;
   const w: BudgetWarning[] = [];
-  for (const c of safetyCautions([e.supply.volts, e.supply.minVolts, e.supply.maxVolts])) {
+  const volts = carriedVoltages(e);
+  for (const c of safetyCautions(volts)) {
     w.push(
-      c.code === "hazardous-voltage"
-        ? { level: "danger", code: c.code, supplyV: highestSupplyV(project) }
-        : { level: "danger", code: c.code },
+      c.code === "hazardous-voltage" ? { level: "danger", code: c.code, supplyV: Math.max(...volts) } : { level: "danger", code: c.code },
     );
   }
   for (const [ref, d] of Object.entries(b.diodes)) {
@@ -56,29 +68,46 @@ export function budgetWarnings(project: Project, b: Omit<Budget, "warnings">): B
   const hi = b.corners.high;
   const lo = b.corners.low;
   for (const [o, d] of Object.entries(b.drivers)) {
+    const transistor = d.transistor;
+    if (transistor === null) continue;
     const vceV = Math.max(d.maxVceV, hi.maxVceV);
-    if (vceV > d.ratedVceV) w.push({ level: "warn", code: "driver-vce", transistor: d.transistor, output: o, vceV, ratedV: d.ratedVceV });
+    if (vceV > d.ratedVceV) w.push({ level: "warn", code: "driver-vce", transistor, output: o, vceV, ratedV: d.ratedVceV });
     const powerW = Math.max(d.maxPowerW, hi.maxPowerW);
-    if (powerW > d.ratedPowerW) {
-      w.push({ level: "warn", code: "driver-power", transistor: d.transistor, output: o, powerW, ratedW: d.ratedPowerW });
+    if (powerW > d.ratedPowerW) w.push({ level: "warn", code: "driver-power", transistor, output: o, powerW, ratedW: d.ratedPowerW });
+    if (d.maxCollectorA > d.ratedCollectorA) {
+      w.push({ level: "warn", code: "driver-current", transistor, output: o, currentA: d.maxCollectorA, ratedA: d.ratedCollectorA });
     }
-    if (d.headroomV <= 0) {
-      w.push({
-        level: "warn",
-        code: "driver-saturation",
-        transistor: d.transistor,
-        output: o,
-        supplyV: e.supply.minVolts,
-        belowV: -d.headroomV,
-      });
+    if (d.headroomV !== null && d.headroomV <= 0) {
+      w.push({ level: "warn", code: "driver-saturation", transistor, output: o, supplyV: e.supply.minVolts, belowV: -d.headroomV });
+    }
+    if (d.saturated === false) {
+      w.push({ level: "warn", code: "switch-unsaturated", transistor, output: o, forcedBeta: d.forcedBeta, betaMin: e.tolerance.betaMin });
     }
   }
-  if (Object.keys(b.drivers).length > 0 && lo.minHeadroomV <= 0 && Object.values(b.drivers).every((d) => d.headroomV > 0)) {
+  if (
+    lo.minHeadroomV !== null &&
+    lo.minHeadroomV <= 0 &&
+    Object.values(b.drivers).some((d) => d.transistor !== null) &&
+    Object.values(b.drivers).every((d) => d.headroomV === null || d.headroomV > 0)
+  ) {
     w.push({ level: "warn", code: "corner-saturation", belowV: -lo.minHeadroomV });
   }
   const maxA = Math.max(0, ...Object.values(b.outputs).map((o) => o.maxA), hi.maxCurrentA);
-  if (maxA > e.string.maxA) w.push({ level: "warn", code: "string-current", currentA: maxA, ratedA: e.string.maxA });
-  const targetA = e.string.targetA;
+  if (maxA > e.segment.maxA) w.push({ level: "warn", code: "segment-current", currentA: maxA, ratedA: e.segment.maxA });
+  for (const [line, c] of Object.entries(b.counterLines)) {
+    if (c.sourceCurrentA > c.ratedA)
+      w.push({ level: "warn", code: "line-current", line, state: line, currentA: c.sourceCurrentA, ratedA: c.ratedA });
+  }
+  const targetA = e.segment.targetA;
+  const limitA = e.ghostFraction * targetA;
+  const ghosts: Extract<BudgetWarning, { code: "ghost-segment" }>[] = [];
+  for (const s of b.states) {
+    for (const [o, x] of Object.entries(s.outputs)) {
+      if (!x.lit && x.segmentA > limitA)
+        ghosts.push({ level: "warn", code: "ghost-segment", output: o, state: s.state, currentA: x.segmentA, limitA });
+    }
+  }
+  w.push(...ghosts.sort((a, c) => c.currentA - a.currentA).slice(0, MAX_GHOSTS));
   const windowPct = b.corners.windowPct;
   const windowLowA = targetA * (1 - windowPct / 100);
   const why = unappliedWhy(b.trim);
@@ -101,6 +130,7 @@ export function budgetWarnings(project: Project, b: Omit<Budget, "warnings">): B
   if (!b.corners.meetsTarget) {
     w.push({ level: "warn", code: "corner-target", minA: lo.minCurrentA, maxA: hi.maxCurrentA, targetA, windowPct });
   }
+  w.push(...spreads);
   if (b.spreadPct > SPREAD_NOTE_PCT) {
     const trimmed = b.trim.applied;
     w.push({
@@ -119,9 +149,4 @@ export function budgetWarnings(project: Project, b: Omit<Budget, "warnings">): B
   }
   const order: Record<WarningLevel, number> = { danger: 0, warn: 1, info: 2 };
   return w.sort((a, c) => order[a.level] - order[c.level]);
-}
-
-function highestSupplyV(project: Project): number {
-  const s = project.electrical.supply;
-  return Math.max(s.volts, s.minVolts, s.maxVolts);
 }

@@ -1,7 +1,7 @@
 /**
  * Tolerance corners: the electrical model pushed to the ends of its
- * tolerances, so that the budget can say how low and how high a string
- * current can go.
+ * tolerances, so that the budget can say how low and how high a segment
+ * current can go, whatever the driver kind.
  *
  * Temperature relations (textbook; named so that a reader can check them):
  * - thermal voltage VT = kT/q with the exact SI constants;
@@ -17,7 +17,7 @@
  * - beta: not scaled with temperature (SPICE's XTB = 0); the beta range
  *   `tolerance.betaMin`..`betaMax` stands for spread and temperature alike.
  */
-import { emitterOhmsOf } from "../matrix/designators.ts";
+import { currentOhmsOf, currentRole } from "../matrix/designators.ts";
 import { shockleyVoltage, thermalVoltage, ZERO_CELSIUS_K } from "../circuit/physics.ts";
 import type { ElectricalModel } from "../project/project.ts";
 
@@ -70,18 +70,24 @@ export interface CornerConditions {
   readonly supplyV: number;
   readonly temperatureC: number;
   readonly betaF: number;
-  /** Factors applied to the resistors' nominal values. */
-  readonly emitterFactor: number;
-  readonly pullDownFactor: number;
+  /**
+   * Factors applied to the resistors' nominal values: `currentFactor` to
+   * the resistors in the segment's path (emitter, series and base
+   * resistors), `shuntFactor` to those that take current away from it
+   * (pull-downs, base-emitter resistors).
+   */
+  readonly currentFactor: number;
+  readonly shuntFactor: number;
   readonly counterFactor: number;
 }
 
 /**
- * The two corners. `low` has everything that lowers a string current: the
- * lowest supply, emitter and counter resistances at +tolerance, pull-downs at
- * -tolerance (more current through the matrix diode, a bigger drop), the
- * lowest beta and the lowest temperature (higher junction drops). `high` is
- * the mirror image.
+ * The two corners. `low` has everything that lowers a segment current: the
+ * lowest supply, the emitter, series, base and counter resistances at
+ * +tolerance, pull-downs and base-emitter resistors at -tolerance (more
+ * current away from the base, a bigger drop), the lowest beta (the weakest
+ * switch) and the lowest temperature (higher junction drops). `high` is the
+ * mirror image.
  */
 export function cornerConditions(e: ElectricalModel): readonly [CornerConditions, CornerConditions] {
   const t = e.tolerance.resistorPct / 100;
@@ -92,8 +98,8 @@ export function cornerConditions(e: ElectricalModel): readonly [CornerConditions
       supplyV: e.supply.minVolts,
       temperatureC: cold,
       betaF: e.tolerance.betaMin,
-      emitterFactor: 1 + t,
-      pullDownFactor: 1 - t,
+      currentFactor: 1 + t,
+      shuntFactor: 1 - t,
       counterFactor: 1 + t,
     },
     {
@@ -101,44 +107,52 @@ export function cornerConditions(e: ElectricalModel): readonly [CornerConditions
       supplyV: e.supply.maxVolts,
       temperatureC: hot,
       betaF: e.tolerance.betaMax,
-      emitterFactor: 1 - t,
-      pullDownFactor: 1 + t,
+      currentFactor: 1 - t,
+      shuntFactor: 1 + t,
       counterFactor: 1 - t,
     },
   ];
 }
 
 /**
- * The electrical model at a corner. Emitter resistors, including any in
- * `trim`, are written out per output so the corner's factor applies to each.
+ * The electrical model at a corner. The resistors that set the current,
+ * including any in `design`, are written out per output so the corner's
+ * factor applies to each.
  *
- * @param outputs the driven outputs, to write their emitter resistors out
+ * @param outputs the driven outputs, to write their resistors out
  */
 export function cornerModel(
   e: ElectricalModel,
   c: CornerConditions,
   outputs: readonly string[],
-  trim?: ReadonlyMap<string, number>,
+  design?: ReadonlyMap<string, number>,
 ): ElectricalModel {
   const t0 = e.temperatureC;
-  const emitterResistors: Record<string, number> = {};
-  for (const o of outputs) emitterResistors[o] = emitterOhmsOf(e, o, trim) * c.emitterFactor;
+  const perOutput: Record<string, number> = {};
+  for (const o of outputs) perOutput[o] = currentOhmsOf(e, o, design) * c.currentFactor;
+  const sink = currentRole(e.driver.kind) === "emitter";
+  const sinkSeries: Record<string, number> = {};
+  if (sink) for (const [o, ohms] of Object.entries(e.segment.seriesResistors)) sinkSeries[o] = ohms * c.currentFactor;
   return {
     ...e,
     temperatureC: c.temperatureC,
     counterOutput: { ...e.counterOutput, resistance: e.counterOutput.resistance * c.counterFactor },
     diode: { ...e.diode, is: siliconSaturationCurrent({ isA: e.diode.is, n: e.diode.n, fromC: t0 }, c.temperatureC) },
-    pullDown: e.pullDown * c.pullDownFactor,
+    pullDown: e.pullDown * c.shuntFactor,
     driver: {
       ...e.driver,
       is: siliconSaturationCurrent({ isA: e.driver.is, n: 1, fromC: t0 }, c.temperatureC),
       betaF: c.betaF,
-      emitterResistor: e.driver.emitterResistor * c.emitterFactor,
-      emitterResistors,
+      emitterResistor: e.driver.emitterResistor * c.currentFactor,
+      emitterResistors: sink ? perOutput : e.driver.emitterResistors,
+      baseResistor: e.driver.baseResistor * c.currentFactor,
+      baseEmitterResistor: e.driver.baseEmitterResistor === null ? null : e.driver.baseEmitterResistor * c.shuntFactor,
     },
-    string: {
-      ...e.string,
-      is: ledSaturationCurrent({ isA: e.string.is, n: e.string.n, fromC: t0, atA: e.string.targetA }, c.temperatureC),
+    segment: {
+      ...e.segment,
+      is: ledSaturationCurrent({ isA: e.segment.is, n: e.segment.n, fromC: t0, atA: e.segment.targetA }, c.temperatureC),
+      seriesResistor: e.segment.seriesResistor * c.currentFactor,
+      seriesResistors: sink ? sinkSeries : perOutput,
     },
     supply: { ...e.supply, volts: c.supplyV },
   };

@@ -1,4 +1,4 @@
-/** Stage "budget": the design's emitter resistors, and what every part carries in every state. */
+/** Stage "budget": the design's current-setting resistors, and what every part carries in every state. */
 export { solveBudget, budgetDesign } from "./budget.ts";
 export { BUDGET_SCHEMA } from "./budgetTypes.ts";
 export type {
@@ -10,28 +10,47 @@ export type {
   CounterLineBudget,
   DiodeBudget,
   DriverBudget,
+  DriverPoint,
   OutputBudget,
   OutputInState,
+  SpreadCause,
+  StageResistorBudget,
   StateBudget,
+  SupplyBudget,
   TrimBudget,
   UnappliedWhy,
   WarningLevel,
 } from "./budgetTypes.ts";
-export { cornerBudget, counterBudgets, diodeBudgets, driverBudgets, outputBudgets, stateBudgets } from "./budgetFigures.ts";
+export {
+  cornerBudget,
+  counterBudgets,
+  depthsFrom,
+  diodeBudgets,
+  driverBudgets,
+  driverPoint,
+  logicSupply,
+  outputBudgets,
+  segmentSupply,
+  stateBudgets,
+} from "./budgetFigures.ts";
 export { budgetWarnings, SPREAD_NOTE_PCT, unappliedWhy } from "./budgetWarnings.ts";
+export { stateSpreads } from "./stateSpread.ts";
+export type { StateSpreadWarning } from "./stateSpread.ts";
 export {
   appliesTrim,
   designFigures,
   designNote,
   designSource,
+  keepsSpreads,
+  OUTPUT_SPREAD_PCT,
   projectDesign,
   settleDesign,
   TRIM_MODES,
   trimEffect,
-} from "./emitterDesign.ts";
-export type { DesignFigures, EmitterDesign, SettledDesign, TrimEffect, TrimMode } from "./emitterDesign.ts";
-export { currentRanges, offTargetPct, overallSpread, spreadPct, trimEmitters } from "./emitterTrim.ts";
-export type { CurrentRange, EmitterTrim, TrimInput, TrimmedOutput } from "./emitterTrim.ts";
+} from "./segmentDesign.ts";
+export type { DesignFigures, DesignOptions, SegmentDesign, SettledDesign, TrimEffect, TrimMode } from "./segmentDesign.ts";
+export { currentRanges, offTargetPct, overallSpread, spreadPct, trimSegments, windowDistancePct } from "./segmentTrim.ts";
+export type { CurrentRange, SegmentTrim, TrimInput, TrimmedOutput } from "./segmentTrim.ts";
 export {
   cornerConditions,
   cornerModel,
@@ -44,6 +63,6 @@ export {
 export type { CornerConditions, CornerName, JunctionAt } from "./corners.ts";
 export { E24, E96, nearestPreferred, preferredNeighbours } from "./eSeries.ts";
 export type { ESeriesName } from "./eSeries.ts";
-export { hazardousVoltageText, MAINS_SUPPLY_TEXT, safetyCautions, SELV_DC_LIMIT_V } from "./safety.ts";
+export { carriedVoltages, hazardousVoltageText, MAINS_SUPPLY_TEXT, safetyCautions, SELV_DC_LIMIT_V } from "./safety.ts";
 export type { SafetyCaution } from "./safety.ts";
 export type { BudgetFailure } from "../circuit/stateSweep.ts";

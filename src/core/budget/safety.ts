@@ -8,6 +8,8 @@
  * thresholds for the cautions".
  */
 
+import type { ElectricalModel } from "../project/project.ts";
+
 /** Above this DC voltage a build gets the hazardous-voltage caution, volts. */
 export const SELV_DC_LIMIT_V = 60;
 
@@ -48,4 +50,17 @@ export function safetyCautions(supplyVolts: readonly number[]): SafetyCaution[] 
     { level: "danger", code: "hazardous-voltage", message: hazardousVoltageText(highest) },
     { level: "danger", code: "mains-supply", message: MAINS_SUPPLY_TEXT },
   ];
+}
+
+/**
+ * Every DC voltage a build carries, volts: the segment supply's range
+ * (where the driver kind uses it), the logic supply and the counter's levels.
+ *
+ * @example
+ * Math.max(...carriedVoltages(project.electrical)); // 88 for the string-hv-sink preset
+ */
+export function carriedVoltages(e: ElectricalModel): number[] {
+  const s = e.supply;
+  const segment = e.driver.kind === "direct" ? [] : [s.volts, s.minVolts, s.maxVolts];
+  return [...segment, e.logicSupply.volts, Math.abs(e.counterOutput.high), Math.abs(e.counterOutput.low)];
 }

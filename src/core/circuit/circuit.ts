@@ -8,30 +8,31 @@
  *   `counterOutput.resistance` ohms;
  * - matrix diodes anode = `from`, cathode = `to`, Shockley with `diode.is`,
  *   `diode.n` and series `diode.rs`;
- * - every driven output line: `pullDown` ohms to ground and the base of its
- *   own NPN; emitter to ground through its emitter resistor; collector fed
- *   from `supply.volts` through a string of `string.dies` identical dies;
- * - every tied-on output: the same driver and string, its base fed from
- *   `counterOutput.high` through a resistor of `counterOutput.resistance`
- *   ohms, plus the pull-down;
+ * - every driven output line: `pullDown` ohms to ground, then the driver
+ *   stage of `driver.kind` (driverStage.ts: one builder per kind) with its
+ *   segment of `segment.leds` LEDs;
+ * - every tied-on output: the same, its line held up from the logic supply
+ *   (`logicSupply.volts`, a real rail) through a resistor of
+ *   `counterOutput.resistance` ohms;
  * - never-lit outputs have no driver and are left out.
  *
  * Node names are SPICE-safe and lower case: counter line `s0`, its source
- * `s0_v`, bus `b1`, output line (= driver base) `o1a`, emitter `e1a`,
- * collector `c1a`, string supply `vsup`, tie-on source `vhi`; ground is `0`.
- * Element names and resistor values come from the designators
+ * `s0_v`, bus `b1`, output line `o1a`; a stage's own nodes carry the output
+ * (`b1a` base, `e1a` emitter, `c1a` collector, `k1a` and `a1a` the
+ * segment's cathode and anode pins where a resistor sits between); the
+ * segment supply `vsup`, the logic supply `vlogic`; ground is `0`. Element
+ * names and resistor values come from the designators
  * (`matrix/designators.ts`), so that a netlist and a BOM name the same parts
  * with the same values.
  */
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
-import { shockleyVoltage, thermalVoltage } from "./physics.ts";
 import type { ElectricalModel } from "../project/project.ts";
 import { designators, type DriverParts, type PartResistorRole } from "../matrix/designators.ts";
+import { GROUND, LOGIC_NODE, SUPPLY_NODE } from "./circuitNodes.ts";
+import { driverStage, type StageNodes } from "./driverStage.ts";
 
-export const GROUND = "0";
-export const SUPPLY_NODE = "vsup";
-export const TIE_ON_NODE = "vhi";
+export { GROUND, LOGIC_NODE, SUPPLY_NODE } from "./circuitNodes.ts";
 
 /** A voltage source from `node` to ground. */
 export interface VoltageSource {
@@ -67,20 +68,23 @@ export interface CircuitDiode {
 }
 
 /**
- * A display string: `dies` identical Shockley dies in series. They carry one
- * current, so each drops a `dies`-th of the string voltage and the string
- * behaves exactly like one diode with emission coefficient `dies * n` (and,
- * with SPICE's GMIN across every die, GMIN / dies across the string).
+ * A segment: `leds` identical Shockley LEDs in series, each with a series
+ * resistance. They carry one current, so each drops a `leds`-th of the
+ * segment voltage and the segment behaves exactly like one diode with
+ * emission coefficient `leds * n` in series with `leds * rs` (and, with
+ * SPICE's GMIN across every junction, GMIN / leds across the junctions).
  */
-export interface LedString {
-  readonly kind: "string";
+export interface LedSegment {
+  readonly kind: "segment";
   readonly name: string;
   readonly anode: string;
   readonly cathode: string;
-  readonly dies: number;
-  /** Saturation current per die, amperes. */
+  readonly leds: number;
+  /** Saturation current per LED, amperes. */
   readonly isA: number;
   readonly n: number;
+  /** Series resistance per LED, ohms. */
+  readonly rsOhms: number;
 }
 
 export interface Npn {
@@ -95,13 +99,12 @@ export interface Npn {
   readonly betaR: number;
 }
 
-export type CircuitElement = VoltageSource | Resistor | CircuitDiode | LedString | Npn;
+export type CircuitElement = VoltageSource | Resistor | CircuitDiode | LedSegment | Npn;
 
 /** One output's driver stage: its parts (from the designators) and the nodes they join. */
-export interface DriverStage extends DriverParts {
-  readonly baseNode: string;
-  readonly emitterNode: string;
-  readonly collectorNode: string;
+export interface DriverStage extends DriverParts, StageNodes {
+  /** The output line, the matrix's end of the stage (`o1a`). */
+  readonly inputNode: string;
 }
 
 export interface Circuit {
@@ -111,7 +114,7 @@ export interface Circuit {
   readonly temperatureC: number;
   /**
    * Every node except ground, in the order the solver eliminates them best:
-   * counter lines, sources, collectors, emitters, buses, output lines.
+   * counter lines, sources, supplies, the stages' own nodes, buses, output lines.
    */
   readonly nodes: readonly string[];
   readonly elements: readonly CircuitElement[];
@@ -120,9 +123,9 @@ export interface Circuit {
   readonly lineNodes: Readonly<Record<string, string>>;
   /**
    * A starting point for the solver, volts per node: lines the active state
-   * reaches sit half a volt lower per diode, lit emitters 0.6 V below their
-   * base, lit collectors below the supply by the string's drop at the
-   * target current. Only a guess; the solver finds the real values.
+   * reaches sit half a volt lower per diode, each stage's nodes where a lit
+   * (or dark) stage of its kind puts them at the target current. Only a
+   * guess; the solver finds the real values.
    */
   readonly guess: Readonly<Record<string, number>>;
 }
@@ -136,23 +139,23 @@ export function lineNode(line: string, outputs: ReadonlySet<string>): string {
  * Builds the circuit of the state `stateIndex` (0-based) of a matrix.
  *
  * @param model the electrical model (a tolerance corner passes a changed copy)
- * @param trim optional emitter resistor values of the design, ohms, keyed by output (see `designators`)
+ * @param design optional values of the resistors that set each output's current, ohms, keyed by output (see `designators`)
  * @example
  * const c = buildCircuit(spec, matrix, project.electrical, 0);
- * c.elements.find((e) => e.name === "VS0"); // { kind: "vsource", node: "s0_v", volts: 2.4, ... }
+ * c.elements.find((e) => e.name === "VS0"); // { kind: "vsource", node: "s0_v", volts: 5, ... }
  */
 export function buildCircuit(
   spec: DecodeSpec,
   matrix: DiodeMatrix,
   model: ElectricalModel,
   stateIndex: number,
-  trim?: ReadonlyMap<string, number>,
+  design?: ReadonlyMap<string, number>,
 ): Circuit {
   if (!Number.isInteger(stateIndex) || stateIndex < 0 || stateIndex >= matrix.states.length) {
     throw new RangeError(`state index ${stateIndex} is outside 0..${matrix.states.length - 1}`);
   }
   const outputs = new Set(matrix.outputs);
-  const parts = designators(spec, matrix, model, trim);
+  const parts = designators(spec, matrix, model, design);
   const tiedCount = parts.drivers.filter((d) => d.tiedOn).length;
   const co = model.counterOutput;
   const elements: CircuitElement[] = [];
@@ -182,36 +185,31 @@ export function buildCircuit(
     });
   }
 
+  const stage = driverStage(model.driver.kind);
+  const usesSupply = parts.drivers.length > 0 && stage.usesSupply;
+  if (usesSupply) elements.push({ kind: "vsource", name: "VSUP", node: SUPPLY_NODE, volts: model.supply.volts });
+  if (tiedCount > 0) elements.push({ kind: "vsource", name: "VLOGIC", node: LOGIC_NODE, volts: model.logicSupply.volts });
   const drivers: DriverStage[] = [];
-  if (parts.drivers.length > 0) elements.push({ kind: "vsource", name: "VSUP", node: SUPPLY_NODE, volts: model.supply.volts });
-  if (tiedCount > 0) elements.push({ kind: "vsource", name: "VHI", node: TIE_ON_NODE, volts: co.high });
+  const stageNodes: string[] = [];
   for (const p of parts.drivers) {
-    const o = p.output;
-    const stage: DriverStage = { ...p, baseNode: `o${o}`, emitterNode: `e${o}`, collectorNode: `c${o}` };
-    drivers.push(stage);
-    const base = stage.baseNode;
-    if (p.tieOn !== null && p.tieOnOhms !== null) {
-      elements.push({ kind: "resistor", name: p.tieOn, role: "tie-on", a: TIE_ON_NODE, b: base, ohms: p.tieOnOhms });
-    }
-    elements.push({ kind: "resistor", name: p.pullDown, role: "pull-down", a: base, b: GROUND, ohms: p.pullDownOhms });
-    const dr = model.driver;
-    const emitter = stage.emitterNode;
-    const collector = stage.collectorNode;
-    elements.push({ kind: "npn", name: p.transistor, collector, base, emitter, isA: dr.is, betaF: dr.betaF, betaR: dr.betaR });
-    elements.push({ kind: "resistor", name: p.emitterResistor, role: "emitter", a: emitter, b: GROUND, ohms: p.emitterOhms });
-    const st = model.string;
-    elements.push({ kind: "string", name: p.display, anode: SUPPLY_NODE, cathode: collector, dies: st.dies, isA: st.is, n: st.n });
+    const input = `o${p.output}`;
+    if (p.tieOn !== null)
+      elements.push({ kind: "resistor", name: p.tieOn.ref, role: "tie-on", a: LOGIC_NODE, b: input, ohms: p.tieOn.ohms });
+    elements.push({ kind: "resistor", name: p.pullDown.ref, role: "pull-down", a: input, b: GROUND, ohms: p.pullDown.ohms });
+    const built = stage.build({ parts: p, model, input });
+    elements.push(...built.elements);
+    stageNodes.push(...built.ownNodes);
+    drivers.push({ ...p, ...built.nodes, inputNode: input });
   }
 
   const nodes = [
     ...lineOrder,
     ...sourceOrder,
-    ...(drivers.length > 0 ? [SUPPLY_NODE] : []),
-    ...(tiedCount > 0 ? [TIE_ON_NODE] : []),
-    ...drivers.map((d) => d.collectorNode),
-    ...drivers.map((d) => d.emitterNode),
+    ...(usesSupply ? [SUPPLY_NODE] : []),
+    ...(tiedCount > 0 ? [LOGIC_NODE] : []),
+    ...stageNodes,
     ...matrix.buses.map((b) => lineNode(b, outputs)),
-    ...drivers.map((d) => d.baseNode),
+    ...drivers.map((d) => d.inputNode),
   ];
   return {
     guess: startingGuess(matrix, model, stateIndex, drivers, lineNodes),
@@ -233,7 +231,7 @@ function startingGuess(
   lineNodes: Readonly<Record<string, string>>,
 ): Record<string, number> {
   const co = model.counterOutput;
-  const guess: Record<string, number> = { [GROUND]: 0, [SUPPLY_NODE]: model.supply.volts, [TIE_ON_NODE]: co.high };
+  const guess: Record<string, number> = { [GROUND]: 0, [SUPPLY_NODE]: model.supply.volts, [LOGIC_NODE]: model.logicSupply.volts };
   const depth = new Map<string, number>();
   const active = matrix.states[stateIndex] as string;
   depth.set(active, 0);
@@ -258,15 +256,12 @@ function startingGuess(
     const d = depth.get(line);
     guess[node] = d === undefined ? co.low : co.high - 0.5 * d;
   }
-  const vt = thermalVoltage(model.temperatureC);
-  const st = model.string;
+  const stage = driverStage(model.driver.kind);
   for (const dr of drivers) {
-    const base = dr.tiedOn ? co.high : (guess[dr.baseNode] ?? co.low);
-    guess[dr.baseNode] = base;
-    const lit = base - co.low > 0.8;
-    guess[dr.emitterNode] = lit ? base - 0.6 : 0;
-    const stringA = lit ? st.targetA : 1e-10;
-    guess[dr.collectorNode] = model.supply.volts - st.dies * shockleyVoltage(stringA, st.is, st.n, vt);
+    const inputV = dr.tiedOn ? model.logicSupply.volts : (guess[dr.inputNode] ?? co.low);
+    guess[dr.inputNode] = inputV;
+    const lit = inputV - co.low > 0.8;
+    Object.assign(guess, stage.guess({ stage: dr, model, inputV, lit }));
   }
   return guess;
 }

@@ -11,11 +11,14 @@
  * state, never as a number.
  */
 import type { Circuit } from "./circuit.ts";
-import { GROUND } from "./circuit.ts";
+import { GROUND } from "./circuitNodes.ts";
 import { criticalVoltage, diodeConductance, diodeCurrent, diodeJunction, limitJunction, npnTransport } from "./deviceModels.ts";
 import { scratchLength, solveInPlace } from "./linearSolve.ts";
 import { thermalVoltage } from "./physics.ts";
 import { fail, ok, type Result } from "../result/result.ts";
+
+/** SPICE's absolute voltage tolerance VNTOL, volts: the last Newton update must be within it (plus 1e-9 relative). */
+const VNTOL_V = 1e-6;
 
 /** SPICE's default GMIN, siemens. */
 export const DEFAULT_GMIN_S = 1e-12;
@@ -134,8 +137,8 @@ function compile(circuit: Circuit, gminS: number): Compiled {
     sourceNames.push(el.name);
   }
   const fixed = new Set(fixedNames);
-  // Diode series resistances get an internal node, eliminated first.
-  const internal = circuit.elements.filter((e) => e.kind === "diode" && e.rsOhms > 0).map((e) => `${e.name}#j`);
+  // Diode and segment series resistances get an internal node, eliminated first.
+  const internal = circuit.elements.filter((e) => (e.kind === "diode" || e.kind === "segment") && e.rsOhms > 0).map((e) => `${e.name}#j`);
   const unknownNames = [...internal, ...circuit.nodes.filter((nd) => !fixed.has(nd))];
   const index = new Map<string, NodeRef>();
   unknownNames.forEach((nd, i) => index.set(nd, i));
@@ -175,14 +178,21 @@ function compile(circuit: Circuit, gminS: number): Compiled {
         });
         break;
       }
-      case "string": {
-        const nVt = el.dies * el.n * vt;
+      case "segment": {
+        // The LEDs in series as one junction of emission leds * n, behind leds * rs.
+        const nVt = el.leds * el.n * vt;
+        let anode = ref(el.anode);
+        if (el.rsOhms > 0) {
+          const j = ref(`${el.name}#j`);
+          conductances.push({ a: anode, b: j, g: 1 / (el.leds * el.rsOhms), name: "" });
+          anode = j;
+        }
         junctions.push({
-          a: ref(el.anode),
+          a: anode,
           k: ref(el.cathode),
           isA: el.isA,
           nVtV: nVt,
-          gminS: gminS / el.dies,
+          gminS: gminS / el.leds,
           vcritV: criticalVoltage(el.isA, nVt),
           name: el.name,
         });
@@ -281,9 +291,12 @@ class Stamper {
 
 /**
  * Runs Newton-Raphson from `st` (updated in place). Convergence needs a step
- * with no junction limited, a last update within 1e-9 relative + 1 nV, and
+ * with no junction limited, a last update within 1e-9 relative + 1 µV
+ * (SPICE's VNTOL: a node held only by GMIN, such as a dark follower's
+ * emitter, is known no better than that in double precision), and
  * Kirchhoff's current law at every node within 1e-15 A + 1e-10 of the
- * currents meeting there, checked on the unlinearized devices; that is far
+ * currents meeting there (plus the rounding of its terms, at most 1 pA),
+ * checked on the unlinearized devices; that is far
  * tighter than SPICE's 0.1 %, so the result is the solution to many digits.
  */
 function newton(
@@ -364,23 +377,41 @@ function newton(
     for (let i = 0; i < n; i++) {
       const xi = x[i] as number;
       const bi = b[i] as number;
-      if (Math.abs(bi - xi) > 1e-9 * Math.max(Math.abs(bi), Math.abs(xi)) + 1e-9) stepSmall = false;
+      if (Math.abs(bi - xi) > 1e-9 * Math.max(Math.abs(bi), Math.abs(xi)) + VNTOL_V) stepSmall = false;
       x[i] = bi;
     }
   }
   return { converged: false, iterations: maxIterations };
 }
 
+/**
+ * Rounding allowance of a KCL residual, relative to the sum of the
+ * magnitudes of its terms: a few units in the last place of double
+ * precision. A small resistor between two nodes near the same voltage (a
+ * dark segment's 0.5 Ω behind a 12 V supply) has terms of amperes that
+ * cancel to picoamperes, and no solver gets that residual below their
+ * rounding. The allowance never exceeds SPICE's ABSTOL, 1 pA, so a
+ * conductance that swamps every other one (1e300 S) still fails the check.
+ */
+const KCL_ROUNDING = 1e-14;
+/** SPICE's ABSTOL, amperes: the most the rounding allowance may add. */
+const ABSTOL_A = 1e-12;
+
 /** Kirchhoff's current law at x: (G x - rhs) is the sum of currents leaving each node. */
 function kclHolds(G: Float64Array, rhs: Float64Array, x: Float64Array, scale: Float64Array, n: number): boolean {
   for (let i = 0; i < n; i++) {
     let r = -(rhs[i] as number);
+    let size = Math.abs(rhs[i] as number);
     const row = i * n;
     for (let j = 0; j < n; j++) {
       const g = G[row + j] as number;
-      if (g !== 0) r += g * (x[j] as number);
+      if (g !== 0) {
+        const t = g * (x[j] as number);
+        r += t;
+        size += Math.abs(t);
+      }
     }
-    if (!(Math.abs(r) <= 1e-15 + 1e-10 * (scale[i] as number))) return false;
+    if (!(Math.abs(r) <= 1e-15 + 1e-10 * (scale[i] as number) + Math.min(ABSTOL_A, KCL_ROUNDING * size))) return false;
   }
   return true;
 }
@@ -554,7 +585,7 @@ function sourceDraws(
         break;
       }
       case "diode":
-      case "string": {
+      case "segment": {
         const i = currents[el.name] as number;
         add(el.anode, i);
         add(el.cathode, -i);

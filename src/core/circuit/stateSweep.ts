@@ -29,19 +29,19 @@ export interface BudgetFailure {
  * Solves every state in order.
  *
  * @param during names the solve in a failure message
- * @param trim optional emitter resistor values, ohms, keyed by output
+ * @param design optional values of the current-setting resistors, ohms, keyed by output
  */
 export function solveAllStates(
   spec: DecodeSpec,
   matrix: DiodeMatrix,
   model: ElectricalModel,
   during: string,
-  trim?: ReadonlyMap<string, number>,
+  design?: ReadonlyMap<string, number>,
 ): Result<readonly StateSolution[], BudgetFailure> {
   const out: StateSolution[] = [];
   const workspace = new DcWorkspace();
   for (let k = 0; k < matrix.states.length; k++) {
-    const circuit = buildCircuit(spec, matrix, model, k, trim);
+    const circuit = buildCircuit(spec, matrix, model, k, design);
     const op = solveDc(circuit, circuit.guess, DEFAULT_DC_SETTINGS, workspace);
     if (!op.ok) return fail({ kind: "no-convergence", state: op.error.state, during, message: `${during}: ${op.error.message}` });
     out.push({ circuit, op: op.value });
@@ -49,8 +49,8 @@ export function solveAllStates(
   return ok(out);
 }
 
-/** String current of each driven output in one solved state, amperes. */
-export function stringCurrents(s: StateSolution): Map<string, number> {
+/** Segment current of each driven output in one solved state, amperes. */
+export function segmentCurrents(s: StateSolution): Map<string, number> {
   return new Map(s.circuit.drivers.map((d) => [d.output, s.op.currents[d.display] as number]));
 }
 

@@ -10,49 +10,64 @@
  * - D1.. the matrix diodes, in assembly order (`buildMatrix` orders them and
  *   names each with `diodeRef`);
  * - per driven output, in display order (the cell's segment order, position
- *   by position): its driver Q<i>, emitter resistor R<i> and string DS<i>;
- * - then the pull-downs of the matrix-driven outputs, the tie-on resistors,
- *   and the pull-downs of the tied-on outputs, continuing the R numbers.
+ *   by position): its driver Q<i> (none for direct drive), the resistor that
+ *   sets its current R<i> (the emitter resistor of a sink, the series
+ *   resistor of the other kinds) and its segment DS<i>;
+ * - then, continuing the R numbers, block by block in output order: base
+ *   resistors, base-emitter resistors, a sink's collector resistors, the
+ *   pull-downs of the matrix-driven outputs, the tie-on resistors, and the
+ *   pull-downs of the tied-on outputs.
  *
- * Values: an emitter resistor takes the design's value (a trim, when one
- * is applied), else the project's per-output override, else its default;
- * a pull-down is `pullDown`; a tie-on resistor equals the counter's source
- * resistance, so a tied-on base sits where a lit one sits.
+ * Values: the resistor that sets the current takes the design's value (a
+ * trim, when one is applied), else the project's per-output override, else
+ * its default; the others come from the electrical model. A tie-on resistor
+ * equals the counter's source resistance and hangs from the logic supply,
+ * so a tied-on output's input sits where a lit one's sits.
  */
 import type { Diode, DiodeMatrix } from "./matrix.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
-import type { ElectricalModel } from "../project/project.ts";
+import type { DriverKind, ElectricalModel } from "../project/project.ts";
 
-export type PartResistorRole = "emitter" | "pull-down" | "tie-on";
+export type PartResistorRole = "emitter" | "series" | "base" | "base-emitter" | "pull-down" | "tie-on";
+
+/** The resistor that sets a segment's current for each kind: its emitter resistor for a sink, its series resistor otherwise. */
+export type CurrentResistorRole = "emitter" | "series";
+
+/** One resistor of a driver stage. */
+export interface StageResistor {
+  readonly ref: string;
+  readonly role: PartResistorRole;
+  /** Ohms. */
+  readonly ohms: number;
+}
 
 /** The parts around one driven output. */
 export interface DriverParts {
   readonly output: string;
   readonly tiedOn: boolean;
-  /** The NPN driver, `Q1`... */
-  readonly transistor: string;
-  /** Its emitter resistor, `R1`... */
-  readonly emitterResistor: string;
-  /** Ohms. */
-  readonly emitterOhms: number;
-  /** The segment's LED string, `DS1`... */
+  readonly kind: DriverKind;
+  /** The NPN driver, `Q1`...; null for direct drive. */
+  readonly transistor: string | null;
+  /** The segment (its LEDs in series), `DS1`... */
   readonly display: string;
-  readonly pullDown: string;
-  /** Ohms. */
-  readonly pullDownOhms: number;
-  /** Resistor from the counter's high level to the base of a tied-on output; null when matrix-driven. */
-  readonly tieOn: string | null;
-  /** Ohms; null when matrix-driven. */
-  readonly tieOnOhms: number | null;
+  /** The resistor that sets the segment current (`R<i>`): `emitter` for a sink, else `series`. */
+  readonly current: StageResistor;
+  /** A sink's emitter resistor; null for the other kinds. */
+  readonly emitter: StageResistor | null;
+  /** The segment's series resistor (a sink's collector resistor, when it has one); null where there is none. */
+  readonly series: StageResistor | null;
+  /** Resistor from the output line to the base; null where the base is the line itself or there is no transistor. */
+  readonly base: StageResistor | null;
+  /** Resistor from base to ground of a switch; null where there is none. */
+  readonly baseEmitter: StageResistor | null;
+  readonly pullDown: StageResistor;
+  /** Resistor from the logic supply to the output line of a tied-on output; null when matrix-driven. */
+  readonly tieOn: StageResistor | null;
 }
 
-export interface ResistorPart {
-  readonly ref: string;
-  readonly role: PartResistorRole;
-  /** The output whose driver it belongs to. */
+export interface ResistorPart extends StageResistor {
+  /** The output whose driver stage it belongs to. */
   readonly output: string;
-  /** Ohms. */
-  readonly ohms: number;
 }
 
 export interface Designators {
@@ -69,63 +84,101 @@ export function diodeRef(index: number): string {
   return `D${index + 1}`;
 }
 
+/** Which resistor sets the segment current of a kind. */
+export function currentRole(kind: DriverKind): CurrentResistorRole {
+  return kind === "current-sink" ? "emitter" : "series";
+}
+
 /**
- * Emitter resistor of a driven output, ohms: the design's value (`chosen`,
- * e.g. a trim) first, then the project's per-output override, then the
- * default.
+ * The resistor that sets an output's current, ohms: the design's value
+ * (`chosen`, e.g. a trim) first, then the project's per-output override,
+ * then the default (the emitter resistor of a sink, else the series resistor).
  */
-export function emitterOhmsOf(model: ElectricalModel, output: string, chosen?: ReadonlyMap<string, number>): number {
-  return chosen?.get(output) ?? model.driver.emitterResistors[output] ?? model.driver.emitterResistor;
+export function currentOhmsOf(model: ElectricalModel, output: string, chosen?: ReadonlyMap<string, number>): number {
+  const own = chosen?.get(output);
+  if (own !== undefined) return own;
+  if (currentRole(model.driver.kind) === "emitter") return model.driver.emitterResistors[output] ?? model.driver.emitterResistor;
+  return model.segment.seriesResistors[output] ?? model.segment.seriesResistor;
+}
+
+/** A sink's collector resistor, ohms (0 = none): the per-output override, else the default. */
+function sinkSeriesOhms(model: ElectricalModel, output: string): number {
+  return model.segment.seriesResistors[output] ?? model.segment.seriesResistor;
 }
 
 /**
  * Numbers every part of a build and gives every resistor its value.
  *
  * @param model the electrical model whose resistor values apply (a tolerance corner passes a changed copy)
- * @param emitterOhms emitter resistor values of the design, ohms, keyed by output (a trim); others as in `model`
+ * @param currentOhms values of the resistors that set the current, ohms, keyed by output (a trim); others as in `model`
  * @example
  * const parts = designators(spec, matrix, project.electrical);
- * parts.drivers[0]; // { output: "1a", transistor: "Q1", emitterResistor: "R1", emitterOhms: 10000, display: "DS1", pullDown: "R8", ... }
+ * parts.drivers[0]; // { output: "1a", transistor: "Q1", current: { ref: "R1", role: "series", ohms: 300 }, display: "DS1", ... }
  */
 export function designators(
   spec: DecodeSpec,
   matrix: DiodeMatrix,
   model: ElectricalModel,
-  emitterOhms?: ReadonlyMap<string, number>,
+  currentOhms?: ReadonlyMap<string, number>,
 ): Designators {
+  const kind = model.driver.kind;
+  const role = currentRole(kind);
   const tied = new Set(matrix.tiedOn);
   const drivenSet = new Set([...matrix.outputs, ...matrix.tiedOn]);
   const driven = spec.allOutputs.filter((o) => drivenSet.has(o));
   let r = driven.length;
-  const next = (): string => `R${++r}`;
-  const pullDownOf = new Map<string, string>();
-  for (const o of matrix.outputs) pullDownOf.set(o, next());
-  const tieOnOf = new Map<string, string>();
-  for (const o of matrix.tiedOn) tieOnOf.set(o, next());
-  for (const o of matrix.tiedOn) pullDownOf.set(o, next());
+  const block = (outputs: readonly string[], ohmsOf: (o: string) => number | null, as: PartResistorRole): Map<string, StageResistor> => {
+    const out = new Map<string, StageResistor>();
+    for (const o of outputs) {
+      const ohms = ohmsOf(o);
+      if (ohms !== null) out.set(o, { ref: `R${++r}`, role: as, ohms });
+    }
+    return out;
+  };
+  const dr = model.driver;
+  const base = block(
+    driven,
+    () => ((kind === "low-side-switch" || kind === "emitter-follower") && dr.baseResistor > 0 ? dr.baseResistor : null),
+    "base",
+  );
+  const baseEmitter = block(driven, () => (kind === "low-side-switch" ? dr.baseEmitterResistor : null), "base-emitter");
+  const collector = block(
+    driven,
+    (o) => (kind === "current-sink" && sinkSeriesOhms(model, o) > 0 ? sinkSeriesOhms(model, o) : null),
+    "series",
+  );
+  const matrixDriven = driven.filter((o) => !tied.has(o));
+  const tiedOn = driven.filter((o) => tied.has(o));
+  const pullDowns = block(matrixDriven, () => model.pullDown, "pull-down");
+  const tieOns = block(tiedOn, () => model.counterOutput.resistance, "tie-on");
+  for (const [o, p] of block(tiedOn, () => model.pullDown, "pull-down")) pullDowns.set(o, p);
 
-  const tieOnOhms = model.counterOutput.resistance;
   const drivers = driven.map((o, i): DriverParts => {
-    const pullDown = pullDownOf.get(o);
+    const pullDown = pullDowns.get(o);
     if (pullDown === undefined) throw new Error(`bug: no pull-down designator for ${o}`);
+    const current: StageResistor = { ref: `R${i + 1}`, role, ohms: currentOhmsOf(model, o, currentOhms) };
     return {
       output: o,
       tiedOn: tied.has(o),
-      transistor: `Q${i + 1}`,
-      emitterResistor: `R${i + 1}`,
-      emitterOhms: emitterOhmsOf(model, o, emitterOhms),
+      kind,
+      transistor: kind === "direct" ? null : `Q${i + 1}`,
       display: `DS${i + 1}`,
+      current,
+      emitter: role === "emitter" ? current : null,
+      series: role === "series" ? current : (collector.get(o) ?? null),
+      base: base.get(o) ?? null,
+      baseEmitter: baseEmitter.get(o) ?? null,
       pullDown,
-      pullDownOhms: model.pullDown,
-      tieOn: tieOnOf.get(o) ?? null,
-      tieOnOhms: tied.has(o) ? tieOnOhms : null,
+      tieOn: tieOns.get(o) ?? null,
     };
   });
 
   const resistors: ResistorPart[] = [];
-  for (const d of drivers) resistors.push({ ref: d.emitterResistor, role: "emitter", output: d.output, ohms: d.emitterOhms });
-  for (const d of drivers) resistors.push({ ref: d.pullDown, role: "pull-down", output: d.output, ohms: d.pullDownOhms });
-  for (const d of drivers) if (d.tieOn !== null) resistors.push({ ref: d.tieOn, role: "tie-on", output: d.output, ohms: tieOnOhms });
+  for (const d of drivers) {
+    for (const x of [d.current, d.base, d.baseEmitter, d.emitter === null ? null : d.series, d.pullDown, d.tieOn]) {
+      if (x !== null) resistors.push({ ...x, output: d.output });
+    }
+  }
   resistors.sort((a, b) => refNumber(a.ref) - refNumber(b.ref));
   return { diodes: matrix.diodes, drivers, resistors };
 }

@@ -3,5 +3,5 @@ export { buildMatrix, busName, MATRIX_SCHEMA } from "./matrix.ts";
 export type { Diode, DiodeMatrix, Edge, Gate, MatrixMeta, SynthesisMethod, VerifiedMatrix } from "./matrix.ts";
 export { verifyMatrix } from "./verify.ts";
 export type { VerifyLimits } from "./verify.ts";
-export { designators, diodeRef, emitterOhmsOf } from "./designators.ts";
-export type { Designators, DriverParts, PartResistorRole, ResistorPart } from "./designators.ts";
+export { currentOhmsOf, currentRole, designators, diodeRef } from "./designators.ts";
+export type { CurrentResistorRole, Designators, DriverParts, PartResistorRole, ResistorPart, StageResistor } from "./designators.ts";

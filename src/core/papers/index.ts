@@ -3,5 +3,5 @@ export { countParts, refRanges } from "./parts.ts";
 export type { PartGroup, PartKind } from "./parts.ts";
 export { INSPECTION_CHECKLIST, WIRING_HEADER, wiringCsv, wiringRows } from "./wiringList.ts";
 export type { DrawingPosition, WiringRow } from "./wiringList.ts";
-export { circuitNetlist, spiceNetlist, stringDieNode } from "./netlist.ts";
+export { circuitNetlist, spiceNetlist, segmentLedNode } from "./netlist.ts";
 export { csvField, csvText } from "./csv.ts";

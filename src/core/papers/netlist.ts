@@ -1,13 +1,14 @@
 /**
  * The SPICE netlist of one state's circuit: a standard deck (title line,
  * `.model` cards, elements, `.op`, `.end`) that any SPICE simulator runs
- * unchanged. Each display string is written out die by die.
+ * unchanged, for every driver kind. Each segment is written out LED by LED,
+ * each LED's series resistance in its model card.
  */
 import { buildCircuit, type Circuit } from "../circuit/circuit.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
-import { designNote, type EmitterDesign } from "../budget/emitterDesign.ts";
+import { designNote, type SegmentDesign } from "../budget/segmentDesign.ts";
 
 /** Formats a number the way every SPICE reads it (no unit suffixes). */
 function num(x: number): string {
@@ -15,9 +16,13 @@ function num(x: number): string {
   return String(Number(x.toPrecision(12)));
 }
 
-/** Node name of die `i` (1-based) inside a string, counted from the supply. */
-export function stringDieNode(cathode: string, i: number): string {
-  return `${cathode}_${i}`;
+/**
+ * Node name after LED `i` (1-based) inside a segment, counted from its
+ * anode, named after the segment's end away from the supply or ground
+ * (`c1a_3`, `a1a_2`).
+ */
+export function segmentLedNode(end: string, i: number): string {
+  return `${end}_${i}`;
 }
 
 /**
@@ -57,11 +62,14 @@ export function circuitNetlist(circuit: Circuit, title: string, notes: readonly 
         body.push(`${el.name} ${el.anode} ${el.cathode} ${m}`);
         break;
       }
-      case "string": {
-        const m = modelOf("DLED", `D (IS=${num(el.isA)} N=${num(el.n)})`);
-        for (let i = 1; i <= el.dies; i++) {
-          const a = i === 1 ? el.anode : stringDieNode(el.cathode, i - 1);
-          const k = i === el.dies ? el.cathode : stringDieNode(el.cathode, i);
+      case "segment": {
+        const rs = el.rsOhms > 0 ? ` RS=${num(el.rsOhms)}` : "";
+        const m = modelOf("DLED", `D (IS=${num(el.isA)} N=${num(el.n)}${rs})`);
+        // Inner nodes are named after the segment's far end from the supply: its cathode, or its anode when the cathode is ground.
+        const far = el.cathode === "0" ? el.anode : el.cathode;
+        for (let i = 1; i <= el.leds; i++) {
+          const a = i === 1 ? el.anode : segmentLedNode(far, i - 1);
+          const k = i === el.leds ? el.cathode : segmentLedNode(far, i);
           body.push(`D${el.name}_${i} ${a} ${k} ${m}`);
         }
         break;
@@ -80,8 +88,8 @@ export function circuitNetlist(circuit: Circuit, title: string, notes: readonly 
 
 /**
  * The SPICE netlist of a project's circuit with state `stateIndex` (0-based)
- * active, with the design's emitter resistors (the values the BOM lists);
- * a comment line says which they are.
+ * active, with the design's current-setting resistors (the values the BOM
+ * lists); a comment line says which they are.
  *
  * @example
  * spiceNetlist(project, spec, matrix, 0, design).split("\n")[0]; // "* <title>: state S0 active"
@@ -91,8 +99,8 @@ export function spiceNetlist(
   spec: DecodeSpec,
   matrix: VerifiedMatrix,
   stateIndex: number,
-  design: EmitterDesign,
+  design: SegmentDesign,
 ): string {
-  const circuit = buildCircuit(spec, matrix, project.electrical, stateIndex, design.emitterOhms);
+  const circuit = buildCircuit(spec, matrix, project.electrical, stateIndex, design.ohms);
   return circuitNetlist(circuit, project.title, [designNote(design)]);
 }

@@ -4,9 +4,18 @@
  * circuit, the BOM and the decks name and value every part alike). Values
  * stay SI here; the BOM and the reports print them.
  */
-import type { Designators, DriverParts } from "../matrix/designators.ts";
+import type { Designators, DriverParts, PartResistorRole } from "../matrix/designators.ts";
 
-export type PartKind = "diode" | "transistor" | "emitter-resistor" | "pull-down" | "tie-on-resistor" | "display";
+export type PartKind =
+  | "diode"
+  | "transistor"
+  | "emitter-resistor"
+  | "series-resistor"
+  | "base-resistor"
+  | "base-emitter-resistor"
+  | "pull-down"
+  | "tie-on-resistor"
+  | "display";
 
 export interface PartGroup {
   readonly kind: PartKind;
@@ -19,14 +28,15 @@ export interface PartGroup {
 }
 
 /**
- * Groups the parts: matrix diodes; drivers; emitter resistors, one group per
- * value, lowest first; pull-downs; tie-on resistors; display strings. Every
- * driven or tied-on output has a driver, an emitter resistor, a pull-down on
- * its base and a string; a tied-on output also a tie-on resistor.
+ * Groups the parts: matrix diodes; drivers (none for direct drive); then
+ * the resistors role by role, one group per value, lowest first: emitter,
+ * series, base, base-emitter, pull-downs, tie-on; then the segments. Every
+ * driven or tied-on output has the parts of its driver kind, a pull-down on
+ * its line and a segment; a tied-on output also a tie-on resistor.
  *
  * @example
  * countParts(designators(spec, matrix, project.electrical)).map((g) => g.kind);
- * // ["diode", "transistor", "emitter-resistor", "pull-down", "display"]
+ * // ["diode", "transistor", "series-resistor", "base-resistor", "base-emitter-resistor", "pull-down", "display"]
  */
 export function countParts(parts: Designators): PartGroup[] {
   const groups: PartGroup[] = [];
@@ -34,10 +44,16 @@ export function countParts(parts: Designators): PartGroup[] {
   if (parts.diodes.length > 0) {
     groups.push({ kind: "diode", refs: parts.diodes.map((d) => d.ref), serves: parts.diodes.map((d) => d.to), ohms: null });
   }
-  if (drivers.length > 0) {
-    groups.push({ kind: "transistor", refs: drivers.map((d) => d.transistor), serves: drivers.map((d) => d.output), ohms: null });
+  const switched = drivers.filter((d) => d.transistor !== null);
+  if (switched.length > 0) {
+    groups.push({
+      kind: "transistor",
+      refs: switched.map((d) => d.transistor as string),
+      serves: switched.map((d) => d.output),
+      ohms: null,
+    });
   }
-  const resistors = (role: "emitter" | "pull-down" | "tie-on", kind: PartKind): void => {
+  const resistors = (role: PartResistorRole, kind: PartKind): void => {
     const byValue = new Map<number, { refs: string[]; serves: string[] }>();
     for (const r of parts.resistors.filter((x) => x.role === role)) {
       const g = byValue.get(r.ohms) ?? { refs: [], serves: [] };
@@ -48,6 +64,9 @@ export function countParts(parts: Designators): PartGroup[] {
     for (const [ohms, g] of [...byValue].sort((a, b) => a[0] - b[0])) groups.push({ kind, refs: g.refs, serves: g.serves, ohms });
   };
   resistors("emitter", "emitter-resistor");
+  resistors("series", "series-resistor");
+  resistors("base", "base-resistor");
+  resistors("base-emitter", "base-emitter-resistor");
   resistors("pull-down", "pull-down");
   resistors("tie-on", "tie-on-resistor");
   if (drivers.length > 0) {

@@ -1,7 +1,7 @@
 /**
  * Stage 0 of the pipeline: the project file, read and checked once.
  */
-export { PROJECT_SCHEMA } from "./project.ts";
+export { PROJECT_SCHEMA, PROJECT_SCHEMA_V1 } from "./project.ts";
 export type {
   Cell,
   CellFigure,
@@ -13,10 +13,13 @@ export type {
   CounterSection,
   DepthPolicy,
   DiodeModel,
+  DriverKind,
   DriverModel,
   ElectricalModel,
+  LogicSupplyModel,
+  PresetName,
   Project,
-  StringModel,
+  SegmentModel,
   SupplyModel,
   SynthesisFields,
   SynthesisOptions,
@@ -26,8 +29,10 @@ export { LIMITS, fileSizeProblem } from "./limits.ts";
 export { COUNTER_CODES, CounterSectionSchema, checkCounter } from "./counterSchema.ts";
 export type { LooseCounter } from "./counterSchema.ts";
 export type { WholeRange } from "./limits.ts";
-export { ELECTRICAL_DEFAULTS, ELECTRICAL_RANGES } from "./electricalSchema.ts";
-export type { RangeRule } from "./electricalSchema.ts";
+export { DRIVER_KINDS, ELECTRICAL_DEFAULTS, ELECTRICAL_RANGES, electricalOf, electricalOfV1, segmentDropV } from "./electricalSchema.ts";
+export type { LooseElectrical, LooseElectricalV1, RangeRule } from "./electricalSchema.ts";
+export { DEFAULT_PRESET, ELECTRICAL_PRESETS, FORMAT1_ELECTRICAL, PRESET_INFO, PRESET_NAMES } from "./electricalPresets.ts";
+export type { PresetInfo } from "./electricalPresets.ts";
 export { DEPTH_POLICIES, SYNTHESIS_DEFAULTS, checkSynthesisOverrides, numberFromText } from "./synthesisSchema.ts";
 export type { SynthesisOverrides } from "./synthesisSchema.ts";
 export { MAX_PROJECT_BYTES, parseProject, splitText, validateProject } from "./projectSchema.ts";
@@ -38,7 +43,7 @@ export type { JsonRead, JsonReadOptions } from "./jsonText.ts";
 export { EXCERPT_CHARS, describeValue, fieldPath, hasUnsafeText, quoteText } from "./valueText.ts";
 export { numberRuleText } from "./fieldRules.ts";
 export type { NumberRule } from "./fieldRules.ts";
-export { serializeProject, synthesisFields } from "./projectWriter.ts";
+export { electricalFields, serializeProject, synthesisFields } from "./projectWriter.ts";
 export { fillPattern } from "./textPatterns.ts";
 export { FIGURE_BOX, FIGURE_DEFAULTS, POLYLINE_POINTS, figureFields, figureOf } from "./figureSchema.ts";
 export type { LooseFigure } from "./figureSchema.ts";

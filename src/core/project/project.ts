@@ -1,11 +1,15 @@
 /**
  * The strict, complete project that every stage past the parser works on.
  *
- * The loose JSON a person writes (`diodeloom/project@1`) is turned into this
- * once, by `parseProject`; nothing downstream sees optional fields.
+ * The loose JSON a person writes (`diodeloom/project@2`, or a format-1 file,
+ * migrated) is turned into this once, by `parseProject`; nothing downstream
+ * sees optional fields.
  */
 
-export const PROJECT_SCHEMA = "diodeloom/project@1";
+/** The format the writer writes. */
+export const PROJECT_SCHEMA = "diodeloom/project@2";
+/** The first format, still read: its `electrical` section describes a current sink with format 1's defaults. */
+export const PROJECT_SCHEMA_V1 = "diodeloom/project@1";
 
 export type DepthPolicy = "mixed" | "per-segment" | "uniform";
 
@@ -98,6 +102,17 @@ export interface CounterOutputModel {
   readonly low: number;
   /** Series resistance, ohms. */
   readonly resistance: number;
+  /** Most current one line may source, amperes; more is a warning naming the line. */
+  readonly maxCurrentA: number;
+}
+
+/**
+ * The logic supply: the rail the counter runs from. Tied-on outputs are
+ * held on from it (a real net the drawing shows), never from a counter line.
+ */
+export interface LogicSupplyModel {
+  /** Volts. */
+  readonly volts: number;
 }
 
 /** Matrix diode: Shockley model plus ratings. */
@@ -114,36 +129,69 @@ export interface DiodeModel {
   readonly maxReverseV: number;
 }
 
-/** NPN segment driver: Ebers-Moll transport model with IS, BF, BR. */
+/**
+ * The circuit between an output line and its segment (docs/electrical-model.md):
+ * - `current-sink`: NPN, base on the line, emitter resistor to ground, the
+ *   segment from the supply to the collector;
+ * - `low-side-switch`: NPN switch, base resistor from the line, emitter at
+ *   ground, the segment and its series resistor from the supply to the
+ *   collector (a common-anode display);
+ * - `emitter-follower`: NPN, collector on the supply, base on the line
+ *   (through a base resistor if given), the series resistor and the segment
+ *   from the emitter to ground (a common-cathode display);
+ * - `direct`: no transistor; the line drives the segment through its
+ *   series resistor, the other end at ground.
+ */
+export type DriverKind = "current-sink" | "low-side-switch" | "emitter-follower" | "direct";
+
+/** NPN segment driver: Ebers-Moll transport model with IS, BF, BR, its resistors and ratings. */
 export interface DriverModel {
+  readonly kind: DriverKind;
   /** Transport saturation current, amperes. */
   readonly is: number;
   readonly betaF: number;
   readonly betaR: number;
-  /** Default emitter resistor, ohms. */
+  /** Emitter resistor of a current sink, ohms. */
   readonly emitterResistor: number;
   /** Per-output emitter resistor overrides, ohms, keyed by output name (`1a`). */
   readonly emitterResistors: Readonly<Record<string, number>>;
+  /** Base resistor of a switch (required) or a follower (0 = base joined to the line), ohms. */
+  readonly baseResistor: number;
+  /** Resistor from base to ground of a switch, ohms; null = none. */
+  readonly baseEmitterResistor: number | null;
   /** Rated collector-emitter voltage, volts. */
   readonly maxVceV: number;
   /** Rated dissipation, watts. */
   readonly maxPowerW: number;
+  /** Rated continuous collector current, amperes. */
+  readonly maxCollectorA: number;
 }
 
-/** The LED string on each collector: `dies` Shockley diodes in series. */
-export interface StringModel {
-  readonly dies: number;
-  /** Saturation current per die, amperes. */
+/** The segment load: `leds` identical LEDs in series, each a Shockley diode with a series resistance, and its series resistor. */
+export interface SegmentModel {
+  /** LEDs in series per segment, 1-200. */
+  readonly leds: number;
+  /** Saturation current per LED, amperes. */
   readonly is: number;
   readonly n: number;
-  /** Intended string current, amperes. */
+  /** Series resistance per LED, ohms. */
+  readonly rs: number;
+  /**
+   * Resistor in series with the segment, ohms: it sets the current of a
+   * switch, a follower and direct drive; a current sink may have one in its
+   * collector (0 = none) to take part of the drop off the transistor.
+   */
+  readonly seriesResistor: number;
+  /** Per-output series resistor overrides, ohms, keyed by output name. */
+  readonly seriesResistors: Readonly<Record<string, number>>;
+  /** Intended segment current, amperes. */
   readonly targetA: number;
-  /** Rated string current, amperes. */
+  /** Rated segment current, amperes. */
   readonly maxA: number;
 }
 
 export interface SupplyModel {
-  /** Nominal string supply, volts. */
+  /** Nominal segment supply, volts. */
   readonly volts: number;
   readonly minVolts: number;
   readonly maxVolts: number;
@@ -158,15 +206,29 @@ export interface ToleranceModel {
   readonly temperatureC: readonly [number, number];
 }
 
+/** The names of the electrical presets (electricalPresets.ts). */
+export type PresetName = "bench-5v-switch" | "panel-12v-sink" | "cathode-5v-follower" | "line-direct" | "string-hv-sink";
+
 export interface ElectricalModel {
+  /**
+   * The preset the values start from; null when the file named none and
+   * took no default (a format-1 file, whose own defaults apply).
+   */
+  readonly preset: PresetName | null;
   /** Junction temperature for the nominal solve, degrees Celsius. */
   readonly temperatureC: number;
+  /**
+   * Largest current an unlit segment may carry, as a fraction of `segment.targetA`
+   * (LEDs glow visibly at microamperes).
+   */
+  readonly ghostFraction: number;
   readonly counterOutput: CounterOutputModel;
+  readonly logicSupply: LogicSupplyModel;
   readonly diode: DiodeModel;
   /** Pull-down from every output line to ground, ohms. */
   readonly pullDown: number;
   readonly driver: DriverModel;
-  readonly string: StringModel;
+  readonly segment: SegmentModel;
   readonly supply: SupplyModel;
   readonly tolerance: ToleranceModel;
 }

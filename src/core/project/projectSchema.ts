@@ -1,16 +1,27 @@
 /**
- * The loose file format `diodeloom/project@1`, checked once at the edge.
+ * The loose file format `diodeloom/project@2` (and format 1, migrated),
+ * checked once at the edge.
  *
  * `parseProject` turns JSON text into a complete, frozen `Project`, or into a
  * list of problems that each name a field path and say what would fix it.
- * Field-by-field documentation: docs/project-format.md.
+ * A format-1 file differs only in its `electrical` section, which keeps its
+ * meaning (electricalSchema.ts). Field-by-field documentation:
+ * docs/project-format.md.
  */
 import * as v from "valibot";
 import { builtinCell, builtinGlyphs, segmentsOfString } from "../glyphs/glyphs.ts";
 import type { Cell, ElectricalModel, Project, SynthesisFields } from "./project.ts";
-import { PROJECT_SCHEMA } from "./project.ts";
+import { PROJECT_SCHEMA, PROJECT_SCHEMA_V1 } from "./project.ts";
 import { fail, ok, type Problem, type Result } from "../result/result.ts";
-import { checkElectrical, ElectricalSectionSchema } from "./electricalSchema.ts";
+import {
+  checkElectrical,
+  electricalOf,
+  electricalOfV1,
+  ElectricalSectionSchema,
+  ElectricalSectionSchemaV1,
+  type LooseElectrical,
+  type LooseElectricalV1,
+} from "./electricalSchema.ts";
 import { checkCounter, CounterSectionSchema } from "./counterSchema.ts";
 import { choiceField, gotMessage, issuePath, mapField, numberField, objectField, textField } from "./fieldRules.ts";
 import { readJson } from "./jsonText.ts";
@@ -35,31 +46,36 @@ const glyphValue = v.union(
   gotMessage('must be a string of one-letter segment names ("abc") or an array of segment names (["tl", "c"])'),
 );
 
-const ProjectSchema = objectField(
-  {
-    schema: v.literal(PROJECT_SCHEMA, gotMessage(`must be "${PROJECT_SCHEMA}"`)),
-    title: v.optional(textField(LIMITS.titleChars), "Untitled"),
-    counter: CounterSectionSchema,
-    display: objectField({
-      positions: v.optional(numberField({ ...POSITIONS, integer: true }), 1),
-      cell: v.optional(choiceField(["seg7", "seg7dp", "custom"] as const), "seg7"),
-      segments: v.optional(v.array(v.string(gotMessage("must be a segment name")), gotMessage("must be an array of segment names"))),
-      figure: v.optional(FigureSectionSchema),
-    }),
-    glyphs: v.optional(mapField(glyphValue, 'must be an object mapping each character to its lit segments, e.g. {"7": "abcf"}'), {}),
-    show: v.array(v.string(gotMessage("must be the text of one state")), gotMessage("must be an array with one text per state")),
-    synthesis: v.optional(SynthesisSectionSchema, {}),
-    electrical: v.optional(ElectricalSectionSchema, {}),
-  },
-  {
-    schema: `add "schema": "${PROJECT_SCHEMA}"`,
-    counter: `add "counter": {"states": N}, N the number of counter states (${STATES.min} to ${STATES.max})`,
-    display: `add "display": {"positions": D, "cell": "seg7"}, or "display": {} for one seven-segment position`,
-    show: 'add "show": an array with one text per counter state, e.g. ["0", "1", "2"]',
-  },
-);
+/** The project object of one format; the formats differ in the schema name and the `electrical` section. */
+const projectSchemaFor = <S extends string, E extends v.GenericSchema>(schema: S, electrical: E) =>
+  objectField(
+    {
+      schema: v.literal(schema, gotMessage(`must be "${schema}"`)),
+      title: v.optional(textField(LIMITS.titleChars), "Untitled"),
+      counter: CounterSectionSchema,
+      display: objectField({
+        positions: v.optional(numberField({ ...POSITIONS, integer: true }), 1),
+        cell: v.optional(choiceField(["seg7", "seg7dp", "custom"] as const), "seg7"),
+        segments: v.optional(v.array(v.string(gotMessage("must be a segment name")), gotMessage("must be an array of segment names"))),
+        figure: v.optional(FigureSectionSchema),
+      }),
+      glyphs: v.optional(mapField(glyphValue, 'must be an object mapping each character to its lit segments, e.g. {"7": "abcf"}'), {}),
+      show: v.array(v.string(gotMessage("must be the text of one state")), gotMessage("must be an array with one text per state")),
+      synthesis: v.optional(SynthesisSectionSchema, {}),
+      electrical: v.optional(electrical, {}),
+    },
+    {
+      schema: `add "schema": "${PROJECT_SCHEMA}"`,
+      counter: `add "counter": {"states": N}, N the number of counter states (${STATES.min} to ${STATES.max})`,
+      display: `add "display": {"positions": D, "cell": "seg7"}, or "display": {} for one seven-segment position`,
+      show: 'add "show": an array with one text per counter state, e.g. ["0", "1", "2"]',
+    },
+  );
 
-type LooseProject = v.InferOutput<typeof ProjectSchema>;
+const ProjectSchema = projectSchemaFor(PROJECT_SCHEMA, ElectricalSectionSchema);
+const ProjectSchemaV1 = projectSchemaFor(PROJECT_SCHEMA_V1, ElectricalSectionSchemaV1);
+
+type LooseProject = Omit<v.InferOutput<typeof ProjectSchema>, "schema" | "electrical">;
 
 // ---------------------------------------------------------------- entry points
 
@@ -90,23 +106,39 @@ export function validateProject(data: unknown): Result<Project> {
     return fail([{ path: "", message: `got ${describeValue(data)}; a project must be a JSON object with "schema": "${PROJECT_SCHEMA}"` }]);
   }
   const schemaField = (data as Record<string, unknown>)["schema"];
-  if (schemaField !== PROJECT_SCHEMA) {
+  if (schemaField !== PROJECT_SCHEMA && schemaField !== PROJECT_SCHEMA_V1) {
     const message =
       schemaField === undefined
         ? `missing; add "schema": "${PROJECT_SCHEMA}" (is this a diodeloom project?)`
-        : `got ${describeValue(schemaField)}; must be "${PROJECT_SCHEMA}"`;
+        : `got ${describeValue(schemaField)}; must be "${PROJECT_SCHEMA}" (or "${PROJECT_SCHEMA_V1}", the first format)`;
     return fail([{ path: "schema", message }]);
   }
-  const parsed = v.safeParse(ProjectSchema, data, { abortPipeEarly: true });
-  if (!parsed.success) {
-    return fail(parsed.issues.slice(0, MAX_PROBLEMS).map((i) => ({ path: issuePath(i), message: i.message })));
+  const issues = (i: readonly v.BaseIssue<unknown>[]) =>
+    fail(i.slice(0, MAX_PROBLEMS).map((x) => ({ path: issuePath(x), message: x.message })));
+  if (schemaField === PROJECT_SCHEMA_V1) {
+    const parsed = v.safeParse(ProjectSchemaV1, data, { abortPipeEarly: true });
+    if (!parsed.success) return issues(parsed.issues);
+    return complete(parsed.output, electricalOfV1(parsed.output.electrical as LooseElectricalV1), true);
   }
-  return complete(parsed.output);
+  const parsed = v.safeParse(ProjectSchema, data, { abortPipeEarly: true });
+  if (!parsed.success) return issues(parsed.issues);
+  return complete(parsed.output, electricalOf(parsed.output.electrical as LooseElectrical), false);
+}
+
+/** A problem of a migrated format-1 file, with the names that file uses (`string.dies`, not `segment.leds`). */
+function inFormat1(p: Problem): Problem {
+  const rename = (t: string): string =>
+    t
+      .replace(/segment\.leds/g, "string.dies")
+      .replace(/segment\./g, "string.")
+      .replace(/(\d+) LEDs?\b/g, "$1 dies")
+      .replace(/fewer LEDs in each segment/g, "fewer dies");
+  return { path: rename(p.path), message: rename(p.message) };
 }
 
 // ---------------------------------------------------------------- cross-field checks
 
-function complete(p: LooseProject): Result<Project> {
+function complete(p: LooseProject, e: ElectricalModel, format1: boolean): Result<Project> {
   const problems: Problem[] = [];
   const cell = resolveCell(p, problems);
   if (!cell) return fail(problems);
@@ -177,8 +209,9 @@ function complete(p: LooseProject): Result<Project> {
   });
 
   const counter = checkCounter(p.counter, problems);
-  const e = p.electrical as ElectricalModel;
-  checkElectrical(e, cell, p.display.positions, problems);
+  const electrical: Problem[] = [];
+  checkElectrical(e, cell, p.display.positions, electrical);
+  problems.push(...(format1 ? electrical.map(inFormat1) : electrical));
   if (problems.length > 0 || counter === undefined) return fail(problems.slice(0, MAX_PROBLEMS));
 
   const project: Project = {

@@ -1,12 +1,14 @@
 /**
- * Writes a validated project back as `diodeloom/project@1` JSON, normalised:
- * every field spelled out (defaults included), glyph overrides as arrays of
- * segment names, two-space indentation, keys in the schema's order.
+ * Writes a validated project back as `diodeloom/project@2` JSON, normalised:
+ * every field spelled out (defaults included, the electrical preset named
+ * when the values started from one), glyph overrides as arrays of segment
+ * names, two-space indentation, keys in the schema's order. A format-1 file
+ * read and written again becomes format 2 with the same meaning.
  *
  * It round-trips: `parseProject(serializeProject(p))` gives a project equal
  * to `p`, and so the same decode spec and the same matrix.
  */
-import type { Project, SynthesisFields, SynthesisOptions } from "./project.ts";
+import type { ElectricalModel, Project, SynthesisFields, SynthesisOptions } from "./project.ts";
 import { figureFields } from "./figureSchema.ts";
 
 /** The synthesis options as the file spells them (`maxDepth` is the depth limit, `depth` the policy). */
@@ -40,16 +42,51 @@ export function serializeProject(project: Project): string {
     glyphs: Object.fromEntries(Object.entries(project.glyphOverrides).map(([ch, segs]) => [ch, [...segs]])),
     show: [...project.show],
     synthesis: synthesisFields(project.synthesis),
-    electrical: {
-      temperatureC: e.temperatureC,
-      counterOutput: { ...e.counterOutput },
-      diode: { ...e.diode },
-      pullDown: e.pullDown,
-      driver: { ...e.driver, emitterResistors: { ...e.driver.emitterResistors } },
-      string: { ...e.string },
-      supply: { ...e.supply },
-      tolerance: { ...e.tolerance, temperatureC: [...e.tolerance.temperatureC] },
-    },
+    electrical: electricalFields(e),
   };
   return JSON.stringify(doc, null, 2) + "\n";
+}
+
+/**
+ * The `electrical` section as format 2 spells it: the preset the values
+ * started from (null for none), then every field in the schema's order (a
+ * fresh copy), so that the file means the same whatever the presets become
+ * and two equal models give the same text.
+ */
+export function electricalFields(e: ElectricalModel): ElectricalModel {
+  const { counterOutput: co, logicSupply: ls, diode: d, driver: dr, segment: sg, supply: su, tolerance: t } = e;
+  return {
+    preset: e.preset,
+    temperatureC: e.temperatureC,
+    ghostFraction: e.ghostFraction,
+    counterOutput: { high: co.high, low: co.low, resistance: co.resistance, maxCurrentA: co.maxCurrentA },
+    logicSupply: { volts: ls.volts },
+    diode: { is: d.is, n: d.n, rs: d.rs, maxForwardA: d.maxForwardA, maxReverseV: d.maxReverseV },
+    pullDown: e.pullDown,
+    driver: {
+      kind: dr.kind,
+      is: dr.is,
+      betaF: dr.betaF,
+      betaR: dr.betaR,
+      emitterResistor: dr.emitterResistor,
+      emitterResistors: { ...dr.emitterResistors },
+      baseResistor: dr.baseResistor,
+      baseEmitterResistor: dr.baseEmitterResistor,
+      maxVceV: dr.maxVceV,
+      maxPowerW: dr.maxPowerW,
+      maxCollectorA: dr.maxCollectorA,
+    },
+    segment: {
+      leds: sg.leds,
+      is: sg.is,
+      n: sg.n,
+      rs: sg.rs,
+      seriesResistor: sg.seriesResistor,
+      seriesResistors: { ...sg.seriesResistors },
+      targetA: sg.targetA,
+      maxA: sg.maxA,
+    },
+    supply: { volts: su.volts, minVolts: su.minVolts, maxVolts: su.maxVolts },
+    tolerance: { resistorPct: t.resistorPct, betaMin: t.betaMin, betaMax: t.betaMax, temperatureC: [t.temperatureC[0], t.temperatureC[1]] },
+  };
 }

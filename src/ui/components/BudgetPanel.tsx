@@ -6,7 +6,7 @@
  */
 import { createMemo, For, Show } from "solid-js";
 import { budgetDesign } from "../../core/budget/budget.ts";
-import { designNote, TRIM_MODES, type TrimMode } from "../../core/budget/emitterDesign.ts";
+import { designNote, TRIM_MODES, type TrimMode } from "../../core/budget/segmentDesign.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
 import { formatOhms, microampsShort, milliamps, milliwatts, percent } from "../../render/units.ts";
 import { app } from "../state/appState.ts";
@@ -73,7 +73,7 @@ export function BudgetPanel() {
         {(b) => (
           <>
             <p class="budget-summary">
-              target <strong>{microampsShort(b().targetCurrentA)} µA</strong> ·{" "}
+              target <strong>{microampsShort(b().targetA)} µA</strong> ·{" "}
               <span data-testid="spread-words">
                 {spreadWords({
                   spreadPct: b().spreadPct,
@@ -163,10 +163,10 @@ export function BudgetPanel() {
                     {([o, d]) => {
                       const t = () => b().trim.outputs[o];
                       return (
-                        <tr data-testid={`emitter-${d.emitterResistor}`}>
-                          <td>{d.emitterResistor}</td>
+                        <tr data-testid={`emitter-${d.currentResistor.ref}`}>
+                          <td>{d.currentResistor.ref}</td>
                           <td>{o}</td>
-                          <td data-testid="emitter-value">{formatOhms(d.emitterOhms)}</td>
+                          <td data-testid="emitter-value">{formatOhms(d.currentResistor.ohms)}</td>
                           <td>{t() ? formatOhms(t()?.ohms ?? 0) : ""}</td>
                           <td>{t() ? `${microampsShort(t()?.minA ?? 0)}–${microampsShort(t()?.maxA ?? 0)}` : ""}</td>
                         </tr>

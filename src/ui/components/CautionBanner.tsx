@@ -1,20 +1,17 @@
-/** The safety cautions (core/safety.ts words), shown while any supply value is above 60 V DC. */
+/** The safety cautions (core/safety.ts words), shown while any voltage the build carries is above 60 V DC. */
 import { For, Show } from "solid-js";
-import { safetyCautions, SELV_DC_LIMIT_V } from "../../core/budget/safety.ts";
+import { carriedVoltages, safetyCautions, SELV_DC_LIMIT_V } from "../../core/budget/safety.ts";
 import { app } from "../state/appState.ts";
 
 export function CautionBanner() {
-  const cautions = () => {
-    const s = app.draft().electrical.supply;
-    return safetyCautions([s.volts, s.minVolts, s.maxVolts]);
-  };
+  const volts = () => carriedVoltages(app.draft().electrical);
+  const cautions = () => safetyCautions(volts());
   return (
     <Show when={cautions().length > 0}>
       <aside class="caution" role="note" data-testid="caution">
         <details>
           <summary>
-            <strong>⚠ DANGER: hazardous voltage.</strong> The supply reaches{" "}
-            {Math.max(app.draft().electrical.supply.maxVolts, app.draft().electrical.supply.volts)} V DC, above the {SELV_DC_LIMIT_V} V DC
+            <strong>⚠ DANGER: hazardous voltage.</strong> The supply reaches {Math.max(...volts())} V DC, above the {SELV_DC_LIMIT_V} V DC
             touch-safe limit: work only with it off and discharged, and follow local codes and licensed practice.{" "}
             <span class="linkish">Details</span>
           </summary>

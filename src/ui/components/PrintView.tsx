@@ -5,7 +5,7 @@
  * budget's design (the values the BOM and the decks carry).
  */
 import { createMemo, For, Show } from "solid-js";
-import { designNote } from "../../core/budget/emitterDesign.ts";
+import { designNote } from "../../core/budget/segmentDesign.ts";
 import { designators } from "../../core/matrix/designators.ts";
 import { INSPECTION_CHECKLIST, WIRING_HEADER, wiringRows } from "../../core/papers/wiringList.ts";
 import { bomLines } from "../../render/bom.ts";
@@ -20,7 +20,7 @@ export function PrintView() {
     const drawing = app.drawingCurrent() ? app.drawing() : null;
     const budget = app.currentBudget();
     const design = paperDesign({ project: r.project, matrix: r.matrix, budget });
-    const parts = designators(r.spec, r.matrix, r.project.electrical, design.emitterOhms);
+    const parts = designators(r.spec, r.matrix, r.project.electrical, design.ohms);
     // Until the budget settles the emitter resistors, the print view shows no values it may then change.
     return {
       r,

@@ -23,8 +23,10 @@ export interface BudgetChart {
   readonly plotX0: number;
   readonly plotX1: number;
   readonly targetX: number;
-  /** Axis ticks: x and the label in µA. */
+  /** Axis ticks: x and the label in `unit`. */
   readonly axis: readonly { readonly x: number; readonly label: string }[];
+  /** The axis unit: mA from a 0.1 mA target up, else µA. */
+  readonly unit: "mA" | "µA";
   readonly rows: readonly ChartRow[];
 }
 
@@ -35,7 +37,7 @@ const AXIS_H = 18;
 /** Lays out the chart in a box `width` units wide. */
 export function budgetChart(b: Budget, width: number): BudgetChart {
   const outputs = Object.keys(b.outputs);
-  let top = b.targetCurrentA;
+  let top = b.targetA;
   for (const o of outputs) {
     top = Math.max(top, b.outputs[o]?.maxA ?? 0, b.trim.outputs[o]?.maxA ?? 0);
   }
@@ -47,7 +49,7 @@ export function budgetChart(b: Budget, width: number): BudgetChart {
     const ob = b.outputs[o];
     const ticks = b.states.flatMap((s) => {
       const v = s.outputs[o];
-      return v && v.lit ? [{ x: x(v.stringCurrentA), state: s.state, currentA: v.stringCurrentA }] : [];
+      return v && v.lit ? [{ x: x(v.segmentA), state: s.state, currentA: v.segmentA }] : [];
     });
     const t = b.trim.outputs[o];
     return {
@@ -60,11 +62,12 @@ export function budgetChart(b: Budget, width: number): BudgetChart {
     };
   });
   const steps = 4;
+  const unit = b.targetA >= 1e-4 ? "mA" : "µA";
   const axis = Array.from({ length: steps + 1 }, (_, k) => {
     const a = (scaleMax * k) / steps;
-    return { x: x(a), label: microampsShort(a) };
+    return { x: x(a), label: unit === "mA" ? String(Number((a * 1e3).toPrecision(3))) : microampsShort(a) };
   });
-  return { width, height: TOP + rows.length * CHART_ROW_H + AXIS_H, plotX0, plotX1, targetX: x(b.targetCurrentA), axis, rows };
+  return { width, height: TOP + rows.length * CHART_ROW_H + AXIS_H, plotX0, plotX1, targetX: x(b.targetA), axis, rows, unit };
 }
 
 /** The next 1, 2 or 5 times a power of ten at or above v. */

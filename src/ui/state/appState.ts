@@ -9,7 +9,7 @@
 import { batch, createMemo, createRoot, createSignal } from "solid-js";
 import type { BudgetFailure } from "../../core/budget/budget.ts";
 import type { Budget } from "../../core/budget/budgetTypes.ts";
-import type { TrimMode } from "../../core/budget/emitterDesign.ts";
+import type { TrimMode } from "../../core/budget/segmentDesign.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import type { Result } from "../../core/result/result.ts";
 import type { PaperName } from "../../render/drawingModel.ts";
@@ -707,7 +707,7 @@ function downloadDraft(d: Draft): void {
 
 /** A minimal valid draft to hold the place until the first project loads. */
 function placeholderDraft(): Draft {
-  const r = validateProject({ schema: "diodeloom/project@1", title: "Loading", counter: { states: 2 }, display: {}, show: ["0", "1"] });
+  const r = validateProject({ schema: "diodeloom/project@2", title: "Loading", counter: { states: 2 }, display: {}, show: ["0", "1"] });
   if (!r.ok) throw new Error("bug: the placeholder project is invalid");
   return draftFromProject(r.value);
 }

@@ -7,7 +7,7 @@
  * last valid project keeps its (stale) results on screen meanwhile.
  */
 import type { CellKind, CounterCodeKind, ElectricalModel, Project, SynthesisFields } from "../../core/project/project.ts";
-import { serializeProject, synthesisFields } from "../../core/project/projectWriter.ts";
+import { electricalFields, serializeProject, synthesisFields } from "../../core/project/projectWriter.ts";
 import { figureFields } from "../../core/project/figureSchema.ts";
 
 import { validateProject } from "../../core/project/projectSchema.ts";
@@ -61,7 +61,7 @@ export function draftFromProject(p: Project): Draft {
     glyphs: Object.fromEntries(Object.entries(p.glyphOverrides).map(([ch, segs]) => [ch, [...segs]])),
     show: [...p.show],
     synthesis: synthesisFields(p.synthesis),
-    electrical: structuredClone(p.electrical) as ElectricalModel,
+    electrical: electricalFields(p.electrical),
   };
 }
 

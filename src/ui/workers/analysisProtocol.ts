@@ -6,7 +6,7 @@
  */
 import type { BudgetFailure } from "../../core/budget/budget.ts";
 import type { Budget } from "../../core/budget/budgetTypes.ts";
-import type { TrimMode } from "../../core/budget/emitterDesign.ts";
+import type { TrimMode } from "../../core/budget/segmentDesign.ts";
 import type { GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
 import type { SynthFailure } from "../../core/synth/synthesize.ts";
 import type { Result } from "../../core/result/result.ts";

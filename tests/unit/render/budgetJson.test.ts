@@ -10,23 +10,42 @@ describe("budget JSON", () => {
   if (!b.ok) throw new Error(b.error.message);
   const json = JSON.parse(budgetJsonText(b.value)) as Record<string, unknown>;
 
-  it("is diodeloom/budget@2 with the unit in every quantity's name, and none of budget@1's names", () => {
-    expect(json["schema"]).toBe("diodeloom/budget@2");
-    expect(json["targetCurrentA"]).toBe(d.project.electrical.string.targetA);
+  it("is diodeloom/budget@3 with the unit in every quantity's name, and none of budget@1's or budget@2's names", () => {
+    expect(json["schema"]).toBe("diodeloom/budget@3");
+    expect(json["kind"]).toBe("current-sink");
+    expect(json["targetA"]).toBe(d.project.electrical.segment.targetA);
     expect(Object.keys(json["supply"] as object)).toEqual(["volts", "maxCurrentA", "maxPowerW"]);
+    expect(Object.keys(json["logic"] as object)).toEqual(["volts", "maxCurrentA", "maxPowerW"]);
     const driver = Object.values(json["drivers"] as Record<string, object>)[0] ?? {};
     expect(Object.keys(driver)).toEqual([
       "transistor",
-      "emitterResistor",
-      "emitterOhms",
+      "currentResistor",
+      "resistors",
       "maxVceV",
       "maxPowerW",
+      "maxCollectorA",
       "headroomV",
+      "forcedBeta",
+      "saturated",
       "ratedVceV",
       "ratedPowerW",
+      "ratedCollectorA",
+    ]);
+    const state = (json["states"] as Record<string, unknown>[])[0] ?? {};
+    expect(state["state"]).toBe("S0");
+    expect(Object.keys(Object.values(state["outputs"] as Record<string, object>)[0] ?? {})).toEqual([
+      "lit",
+      "segmentA",
+      "inputV",
+      "driver",
     ]);
     const text = budgetJsonText(b.value);
     for (const old of [
+      "targetCurrentA",
+      "stringCurrentA",
+      "emitterOhms",
+      "emitterResistors",
+      "baseV",
       "targetCurrent",
       "sourceCurrent",
       "supplyCurrent",

@@ -52,7 +52,9 @@ describe("the papers builder", () => {
     expect(JSON.parse(json!.text)).toEqual({ error: { kind: "no-convergence", message: "nominal: no convergence in S3" } });
     expect(allPaperFiles({ ...base, budget: failed }).map((f) => f.name)).not.toContain("budget.json");
     const [bom] = paperFiles({ ...base, budget: failed }, "bom");
-    expect(bom!.text).toMatch(/,10k,"emitter resistor, 5 %, as in the project \(the trim could not be worked out\)"/);
+    expect(bom!.text).toMatch(
+      /,10k,"emitter resistor, sets the segment current, 5 %, as in the project \(the trim could not be worked out\)"/,
+    );
     const [deck] = paperFiles({ ...base, budget: failed }, "netlists");
     expect(deck!.text).toContain("* Emitter resistors as in the project (the trim could not be worked out).");
   });

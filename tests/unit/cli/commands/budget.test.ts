@@ -14,7 +14,7 @@ describe("budget command", () => {
     const io = recordingIo({ "p.json": PROJECT });
     expect(await main(["budget", "p.json", "--json", "--direct"], io)).toBe(0);
     const b = JSON.parse(io.stdout.join("")) as { schema: string; trim: { series: string; mode: string } };
-    expect(b.schema).toBe("diodeloom/budget@2");
+    expect(b.schema).toBe("diodeloom/budget@3");
     expect(b.trim.series).toBe("E24");
     expect(b.trim.mode).toBe("auto");
   });
@@ -62,15 +62,15 @@ describe("budget command", () => {
     const lines = text.split("\n");
     expect(lines[0]).toBe(d.project.title);
     expect(lines.findIndex((l) => l.includes("DANGER hazardous-voltage"))).toBeLessThan(
-      lines.findIndex((l) => l.startsWith("String current per state")),
+      lines.findIndex((l) => l.startsWith("Segment current per state")),
     );
     expect(text).toMatch(/^ {2}1tr +2 /m);
     expect(text).toMatch(/^ {2}1c +1 /m);
     expect(text).toContain("Tolerance corners (trimmed design;");
     expect(text).toContain("  Emitter resistors: the E24 trim, applied because it ");
-    // The outputs table names each emitter resistor and gives the design's value.
+    // The outputs table names each current-setting resistor (here the emitter resistor) and gives the design's value.
     for (const [o, dr] of Object.entries(b.value.drivers)) {
-      expect(text).toMatch(new RegExp(`^  ${o} .* ${dr.emitterResistor} +${formatOhms(dr.emitterOhms)} +`, "m"));
+      expect(text).toMatch(new RegExp(`^  ${o} .* ${dr.currentResistor.ref} +${formatOhms(dr.currentResistor.ohms)} +`, "m"));
     }
   });
 });

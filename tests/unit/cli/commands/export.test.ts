@@ -6,6 +6,7 @@ import { main } from "../../../../src/cli/main.ts";
 import type { CliIo } from "../../../../src/cli/io.ts";
 import { nodeIo } from "../../../../src/cli/nodeIo.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
+import { currentOhmsOf } from "../../../../src/core/matrix/designators.ts";
 import { formatOhms } from "../../../../src/render/units.ts";
 import { parseProject } from "../../../../src/core/project/projectSchema.ts";
 import { synthesize, synthSettings } from "../../../../src/core/synth/synthesize.ts";
@@ -67,21 +68,22 @@ describe("diodeloom export", () => {
     for (const d of m1.value.diodes) expect(html).toContain(`<b>${d.ref}</b>`);
     expect(html).toContain("Inspection checklist");
 
-    // budget.json is the budget of that matrix; the BOM carries the emitter resistors of the design it
-    // describes: the trim's where the design takes it, else the project's, and says which.
+    // budget.json is the budget of that matrix; the BOM carries the current-setting resistors of the design it
+    // describes: the values the rule judged where the design takes the trim, else the project's, and says which.
     const budget = JSON.parse(await readFile(join(dir, "budget.json"), "utf8"));
-    expect(budget.schema).toBe("diodeloom/budget@2");
-    const drivers = budget.drivers as Record<string, { emitterResistor: string; emitterOhms: number }>;
-    const trim = budget.trim as { applied: boolean; outputs: Record<string, { ohms: number }> };
-    const designOhms = Object.values(drivers).map((d) => d.emitterOhms);
-    if (trim.applied) expect(designOhms).toEqual(Object.keys(drivers).map((o) => trim.outputs[o]?.ohms));
-    else expect(designOhms.every((o) => o === 10_000)).toBe(true);
+    expect(budget.schema).toBe("diodeloom/budget@3");
+    expect(budget.kind).toBe(original.value.electrical.driver.kind);
+    const drivers = budget.drivers as Record<string, { currentResistor: { ref: string; ohms: number } }>;
+    const trim = budget.trim as { applied: boolean; judgedOhms: Record<string, number> };
+    const designOhms = Object.values(drivers).map((d) => d.currentResistor.ohms);
+    if (trim.applied) expect(designOhms).toEqual(Object.keys(drivers).map((o) => trim.judgedOhms[o]));
+    else expect(designOhms).toEqual(Object.keys(drivers).map((o) => currentOhmsOf(original.value.electrical, o)));
     const bom = parseCsv(await readFile(join(dir, "bom.csv"), "utf8"));
     expect(bom[1]?.[0]).toBe(String(m1.value.count));
-    const emitter = bom.filter((r) => r[3]?.startsWith("emitter resistor"));
-    expect(emitter.every((r) => r[3]?.includes(trim.applied ? "trimmed by the budget (E24)" : "as in the project"))).toBe(true);
-    expect(emitter.reduce((n, r) => n + Number(r[0]), 0)).toBe(designOhms.length);
-    expect(emitter.map((r) => r[2]).sort()).toEqual([...new Set(designOhms.map((o) => formatOhms(o)))].sort());
+    const setting = bom.filter((r) => r[3]?.includes("sets the segment current"));
+    expect(setting.every((r) => r[3]?.includes(trim.applied ? "trimmed by the budget (E24)" : "as in the project"))).toBe(true);
+    expect(setting.reduce((n, r) => n + Number(r[0]), 0)).toBe(designOhms.length);
+    expect(setting.map((r) => r[2]).sort()).toEqual([...new Set(designOhms.map((o) => formatOhms(o)))].sort());
 
     // One SPICE deck per state.
     const decks = (await readdir(join(dir, "spice"))).sort();
@@ -161,25 +163,31 @@ describe("diodeloom export", () => {
 });
 
 describe("diodeloom export: netlists and BOM agree", () => {
-  it("writes the BOM's trimmed emitter resistors into every SPICE deck where the trim improves the design", async () => {
+  it("writes the BOM's trimmed series resistors into every SPICE deck where the trim improves the design", async () => {
     const dir = await mkdtemp(join(tmpdir(), "diodeloom-export-"));
     dirs.push(dir);
     const { io } = recordingIo();
     expect(await main(["export", example("die-roller"), "--out", dir, "--fast"], io)).toBe(0);
     const budget = JSON.parse(await readFile(join(dir, "budget.json"), "utf8")) as {
-      trim: { applied: boolean; effect: string; outputs: Record<string, { ohms: number }> };
+      kind: string;
+      trim: { applied: boolean; effect: string };
+      drivers: Record<string, { currentResistor: { ref: string; ohms: number } }>;
     };
-    // The die roller's heuristic matrix has outputs at two depths: the trim evens them out, so the design takes it.
+    // The die roller drives its pips straight from the counter lines; its heuristic matrix has outputs at two depths,
+    // and the trim evens them out, so the design takes it.
+    expect(budget.kind).toBe("direct");
     expect([budget.trim.applied, budget.trim.effect]).toEqual([true, "improves"]);
     const bom = parseCsv(await readFile(join(dir, "bom.csv"), "utf8"));
-    const deck = await readFile(join(dir, "spice", "S3.cir"), "utf8");
-    expect(deck).toMatch(/^\* Emitter resistors: the E24 trim, applied because it /m);
-    // Emitter resistor lines: "R<k> e<output> 0 <ohms>".
-    const emitters = new Map([...deck.matchAll(/^(R\d+) e(\S+) 0 (\S+)$/gm)].map((m) => [m[2] as string, Number(m[3])]));
-    expect(emitters.size).toBe(Object.keys(budget.trim.outputs).length);
-    for (const [output, t] of Object.entries(budget.trim.outputs)) {
-      expect(emitters.get(output)).toBe(t.ohms);
-      expect(bom.some((row) => row[2] === formatOhms(t.ohms) && /emitter/.test(row[3] ?? ""))).toBe(true);
+    for (const state of ["S0", "S3"]) {
+      const deck = await readFile(join(dir, "spice", `${state}.cir`), "utf8");
+      expect(deck).toMatch(/^\* Series resistors: the E24 trim, applied because it /m);
+      // Series resistor lines: "R<k> o<output> a<output> <ohms>".
+      const series = new Map([...deck.matchAll(/^(R\d+) o(\S+) a\S+ (\S+)$/gm)].map((m) => [m[2] as string, [m[1], Number(m[3])]]));
+      expect(series.size).toBe(Object.keys(budget.drivers).length);
+      for (const [output, d] of Object.entries(budget.drivers)) {
+        expect(series.get(output)).toEqual([d.currentResistor.ref, d.currentResistor.ohms]);
+        expect(bom.some((row) => row[2] === formatOhms(d.currentResistor.ohms) && /series resistor/.test(row[3] ?? ""))).toBe(true);
+      }
     }
   });
 });

@@ -4,7 +4,7 @@ import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
 import { designators } from "../../../../src/core/matrix/designators.ts";
 import { countParts } from "../../../../src/core/papers/parts.ts";
 import { directDesign, sharedDieRoller } from "../../../support/budgetFixtures.ts";
-import { showing } from "../../../support/projects.ts";
+import { showing, showingWith } from "../../../support/projects.ts";
 
 describe("buildCircuit", () => {
   it("drives the active counter line high and the others low, each behind its source resistance", () => {
@@ -32,28 +32,85 @@ describe("buildCircuit", () => {
     expect(diodes.some((e) => e.kind === "diode" && e.anode === "o1tl" && e.cathode === "o1br")).toBe(true);
   });
 
-  it("gives every driven output a pull-down, NPN, emitter resistor and string; tied-on ones a base resistor from the high level", () => {
+  it("gives every driven output (a format-1 sink) a pull-down, NPN, emitter resistor and segment; tied-on ones a resistor from the logic supply", () => {
     // " 1" / "12": 2b is lit in both states, so tied on; the rest of "1" and "2" is driven.
     const p = showing([" 1", "12"], 2);
     const d = directDesign("tied", p);
     const c = buildCircuit(d.spec, d.matrix, p.electrical, 0);
     expect(d.spec.tiedOn).toEqual(["2b"]);
     const tie = c.elements.find((e) => e.kind === "resistor" && e.role === "tie-on");
-    expect(tie && tie.kind === "resistor" && [tie.a, tie.b, tie.ohms]).toEqual(["vhi", "o2b", 1000]);
-    const vhi = c.elements.find((e) => e.name === "VHI");
-    expect(vhi && vhi.kind === "vsource" && vhi.volts).toBe(2.4);
+    expect(tie && tie.kind === "resistor" && [tie.a, tie.b, tie.ohms]).toEqual(["vlogic", "o2b", 1000]);
+    // Format 1's tie-on came from the counter's high level: the logic supply keeps that voltage.
+    const logic = c.elements.find((e) => e.name === "VLOGIC");
+    expect(logic && logic.kind === "vsource" && logic.volts).toBe(2.4);
     const driven = [...d.spec.outputs, ...d.spec.tiedOn];
     expect(c.drivers.map((x) => x.output)).toEqual(d.spec.allOutputs.filter((o) => driven.includes(o)));
     expect(c.drivers.find((x) => x.output === "2b")?.tiedOn).toBe(true);
     for (const dr of c.drivers) {
       const q = c.elements.find((e) => e.name === dr.transistor);
       expect(q && q.kind === "npn" && [q.collector, q.base, q.emitter]).toEqual([dr.collectorNode, dr.baseNode, dr.emitterNode]);
+      expect(dr.baseNode).toBe(dr.inputNode);
       const s = c.elements.find((e) => e.name === dr.display);
-      expect(s && s.kind === "string" && [s.anode, s.cathode, s.dies]).toEqual(["vsup", dr.collectorNode, 19]);
-      expect(c.elements.some((e) => e.kind === "resistor" && e.role === "pull-down" && e.a === dr.baseNode)).toBe(true);
+      expect(s && s.kind === "segment" && [s.anode, s.cathode, s.leds, s.rsOhms]).toEqual(["vsup", dr.collectorNode, 19, 0]);
+      expect(c.elements.some((e) => e.kind === "resistor" && e.role === "pull-down" && e.a === dr.inputNode)).toBe(true);
     }
     // Never-lit outputs have no driver.
     for (const o of d.spec.neverLit) expect(c.nodes).not.toContain(`o${o}`);
+  });
+
+  it("builds a low-side switch: base resistor from the line, base-emitter resistor, emitter at ground, segment and series resistor from the supply", () => {
+    const p = showingWith(["1", "7"], { preset: "bench-5v-switch" });
+    const d = directDesign("switch", p);
+    const c = buildCircuit(d.spec, d.matrix, p.electrical, 0);
+    const e = p.electrical;
+    for (const dr of c.drivers) {
+      const o = dr.output;
+      const at = (name: string | undefined) => c.elements.find((x) => x.name === name);
+      const q = at(dr.transistor ?? undefined);
+      expect(q && q.kind === "npn" && [q.collector, q.base, q.emitter]).toEqual([`c${o}`, `b${o}`, "0"]);
+      const rb = at(dr.base?.ref);
+      expect(rb && rb.kind === "resistor" && [rb.a, rb.b, rb.ohms, rb.role]).toEqual([`o${o}`, `b${o}`, e.driver.baseResistor, "base"]);
+      const rbe = at(dr.baseEmitter?.ref);
+      expect(rbe && rbe.kind === "resistor" && [rbe.a, rbe.b, rbe.ohms]).toEqual([`b${o}`, "0", 47_000]);
+      const rs = at(dr.series?.ref);
+      expect(rs && rs.kind === "resistor" && [rs.a, rs.b, rs.ohms, rs.role]).toEqual([`k${o}`, `c${o}`, 300, "series"]);
+      const seg = at(dr.display);
+      expect(seg && seg.kind === "segment" && [seg.anode, seg.cathode, seg.leds, seg.rsOhms]).toEqual(["vsup", `k${o}`, 1, 2]);
+    }
+  });
+
+  it("builds an emitter follower: collector on the supply, base on the line, series resistor and segment from the emitter to ground", () => {
+    const p = showingWith(["1", "7"], { preset: "cathode-5v-follower" });
+    const d = directDesign("follower", p);
+    const c = buildCircuit(d.spec, d.matrix, p.electrical, 0);
+    for (const dr of c.drivers) {
+      const o = dr.output;
+      const q = c.elements.find((x) => x.name === dr.transistor);
+      expect(q && q.kind === "npn" && [q.collector, q.base, q.emitter]).toEqual(["vsup", `o${o}`, `e${o}`]);
+      const rs = c.elements.find((x) => x.name === dr.series?.ref);
+      expect(rs && rs.kind === "resistor" && [rs.a, rs.b, rs.ohms]).toEqual([`e${o}`, `a${o}`, 110]);
+      const seg = c.elements.find((x) => x.name === dr.display);
+      expect(seg && seg.kind === "segment" && [seg.anode, seg.cathode]).toEqual([`a${o}`, "0"]);
+    }
+    const withRb = showingWith(["1", "7"], { preset: "cathode-5v-follower", driver: { baseResistor: 1000 } });
+    const c2 = buildCircuit(d.spec, d.matrix, withRb.electrical, 0);
+    const q2 = c2.elements.find((x) => x.kind === "npn");
+    expect(q2 && q2.kind === "npn" && q2.base).toMatch(/^b1/);
+  });
+
+  it("builds direct drive: no transistor and no segment supply, the line through the series resistor and the segment to ground", () => {
+    const p = showingWith(["1", "7"], { preset: "line-direct" });
+    const d = directDesign("direct", p);
+    const c = buildCircuit(d.spec, d.matrix, p.electrical, 0);
+    expect(c.elements.some((x) => x.kind === "npn")).toBe(false);
+    expect(c.elements.some((x) => x.name === "VSUP")).toBe(false);
+    expect(c.nodes).not.toContain("vsup");
+    for (const dr of c.drivers) {
+      const rs = c.elements.find((x) => x.name === dr.series?.ref);
+      expect(rs && rs.kind === "resistor" && [rs.a, rs.b, rs.ohms]).toEqual([`o${dr.output}`, `a${dr.output}`, 820]);
+      const seg = c.elements.find((x) => x.name === dr.display);
+      expect(seg && seg.kind === "segment" && [seg.anode, seg.cathode]).toEqual([`a${dr.output}`, "0"]);
+    }
   });
 
   it("names parts as the parts count does", () => {
@@ -76,7 +133,7 @@ describe("buildCircuit", () => {
     }
   });
 
-  it("takes each emitter resistor from the designators: the trim, then the project's overrides, then the default", () => {
+  it("takes each emitter resistor from the designators: the design, then the project's overrides, then the default", () => {
     const p = showing(["1", "7"], 1, { electrical: { driver: { emitterResistors: { "1a": 8200 } } } });
     const d = directDesign("1 7", p);
     const ohms = (c: ReturnType<typeof buildCircuit>, o: string): number => {

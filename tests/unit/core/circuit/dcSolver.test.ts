@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { buildCircuit, type Circuit, type CircuitElement } from "../../../../src/core/circuit/circuit.ts";
 import { DEFAULT_DC_SETTINGS, solveDc, type DcMethod } from "../../../../src/core/circuit/dcSolver.ts";
 import { clockProject, directDesign, sharedDieRoller } from "../../../support/budgetFixtures.ts";
+import { makeProject2 } from "../../../support/projects.ts";
 
 function circuit(nodes: string[], elements: CircuitElement[]): Circuit {
   return { state: "T", stateIndex: 0, temperatureC: 27, nodes, elements, drivers: [], lineNodes: {}, guess: {} };
@@ -76,5 +77,32 @@ describe("solveDc", () => {
     const d = sharedDieRoller();
     const c = buildCircuit(d.spec, d.matrix, d.project.electrical, 5);
     expect(JSON.stringify(solveDc(c, c.guess))).toBe(JSON.stringify(solveDc(c, c.guess)));
+  });
+
+  it("converges on a dark segment with a small series resistance behind the supply (fast-check seed 4243 counterexample)", () => {
+    // Its 0.5 Ω joins two nodes near 8 V that carry picoamperes: KCL there can be no tighter than the rounding of its terms.
+    const p = makeProject2({
+      counter: { states: 2 },
+      display: { positions: 1, cell: "custom", segments: ["p", "q"] },
+      glyphs: { A: ["q"], B: ["p"] },
+      show: ["A", "B"],
+      electrical: {
+        temperatureC: -0.0000728152201361354,
+        counterOutput: { high: 2, low: 0, resistance: 10 },
+        logicSupply: { volts: 2 },
+        diode: { is: 1e-7, n: 1, rs: 0.5 },
+        pullDown: 10000,
+        driver: { is: 1e-13, betaF: 20, betaR: 0.5, kind: "current-sink", emitterResistor: 100 },
+        segment: { leds: 1, is: 1.7407897721635367e-19, n: 1.7327815909249056, rs: 0.5, seriesResistor: 0, targetA: 0.02, maxA: 10 },
+        supply: { volts: 7.99999999885537, minVolts: 7.919999998866816, maxVolts: 8.079999998843924 },
+      },
+    });
+    const d = directDesign("dark segment", p);
+    for (let k = 0; k < 2; k++) {
+      const c = buildCircuit(d.spec, d.matrix, p.electrical, k);
+      const op = solveDc(c, c.guess);
+      expect(op.ok, op.ok ? "" : op.error.message).toBe(true);
+      if (op.ok) expect(op.value.method).toBe("newton");
+    }
   });
 });

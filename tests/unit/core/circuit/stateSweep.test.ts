@@ -1,16 +1,16 @@
 import { describe, expect, it } from "vitest";
-import { isLit, solveAllStates, stringCurrents } from "../../../../src/core/circuit/stateSweep.ts";
+import { isLit, solveAllStates, segmentCurrents } from "../../../../src/core/circuit/stateSweep.ts";
 import { directDesign } from "../../../support/budgetFixtures.ts";
-import { showing } from "../../../support/projects.ts";
+import { showing, showingWith } from "../../../support/projects.ts";
 
 describe("solveAllStates", () => {
-  it("solves one circuit per state, in order, lighting exactly the lit strings", () => {
+  it("solves one circuit per state, in order, lighting exactly the lit segments", () => {
     const d = directDesign("1 7 8", showing(["1", "7", "8"]));
     const r = solveAllStates(d.spec, d.matrix, d.project.electrical, "nominal");
     if (!r.ok) throw new Error(r.error.message);
     expect(r.value.map((s) => s.circuit.state)).toEqual(["S0", "S1", "S2"]);
     r.value.forEach((s, k) => {
-      for (const [o, i] of stringCurrents(s)) {
+      for (const [o, i] of segmentCurrents(s)) {
         if (isLit(d.spec, k, o)) expect(i).toBeGreaterThan(100e-6);
         else expect(i).toBeLessThan(1e-9);
       }
@@ -18,6 +18,22 @@ describe("solveAllStates", () => {
     expect(isLit(d.spec, 0, "1b")).toBe(true);
     expect(isLit(d.spec, 0, "1a")).toBe(false);
   });
+
+  it.each(["bench-5v-switch", "panel-12v-sink", "cathode-5v-follower", "line-direct", "string-hv-sink"])(
+    "lights exactly the lit segments with every preset's kind: %s (lit above a third of the target, unlit below 1 µA)",
+    (preset) => {
+      const d = directDesign(preset, showingWith(["1", "7", "8"], { preset }));
+      const r = solveAllStates(d.spec, d.matrix, d.project.electrical, "nominal");
+      if (!r.ok) throw new Error(r.error.message);
+      const t = d.project.electrical.segment.targetA;
+      r.value.forEach((s, k) => {
+        for (const [o, i] of segmentCurrents(s)) {
+          if (isLit(d.spec, k, o)) expect(i / t, `${preset} ${o} in S${k}`).toBeGreaterThan(1 / 3);
+          else expect(i, `${preset} ${o} in S${k}`).toBeLessThan(1e-6);
+        }
+      });
+    },
+  );
 
   it("names the solve and the state when a circuit fails", () => {
     // A 1e-300 ohm counter resistance (which the schema now refuses, but code may still hand the

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { circuitNetlist, spiceNetlist, stringDieNode } from "../../../../src/core/papers/netlist.ts";
+import { circuitNetlist, segmentLedNode, spiceNetlist } from "../../../../src/core/papers/netlist.ts";
 import { buildCircuit } from "../../../../src/core/circuit/circuit.ts";
-import { projectDesign, type EmitterDesign } from "../../../../src/core/budget/emitterDesign.ts";
+import { projectDesign, type SegmentDesign } from "../../../../src/core/budget/segmentDesign.ts";
 import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
 
 describe("spiceNetlist", () => {
@@ -23,11 +23,37 @@ describe("spiceNetlist", () => {
     expect(lines).toContain("VS0 s0_v 0 DC 0");
   });
 
-  it("writes each string die by die from the supply to the collector", () => {
+  it("writes each segment LED by LED from the supply to the collector", () => {
     const dies = lines.filter((l) => l.startsWith("DDS1_"));
     expect(dies).toHaveLength(19);
-    expect(dies[0]).toBe(`DDS1_1 vsup ${stringDieNode("c1tl", 1)} DLED`);
-    expect(dies[18]).toBe(`DDS1_19 ${stringDieNode("c1tl", 18)} c1tl DLED`);
+    expect(dies[0]).toBe(`DDS1_1 vsup ${segmentLedNode("c1tl", 1)} DLED`);
+    expect(dies[18]).toBe(`DDS1_19 ${segmentLedNode("c1tl", 18)} c1tl DLED`);
+  });
+
+  it("writes a follower's segment from its anode pin to ground, each LED's series resistance in its model card", () => {
+    const f = sharedDieRoller({
+      preset: "cathode-5v-follower",
+      counterOutput: { high: 9 },
+      supply: { volts: 9, minVolts: 9, maxVolts: 9 },
+      segment: { leds: 2 },
+    });
+    const deck = spiceNetlist(f.project, f.spec, f.matrix, 0, projectDesign(f.project.electrical, f.matrix)).split("\n");
+    expect(deck).toContain(".model DLED D (IS=2e-19 N=2 RS=2)");
+    expect(deck).toContain(`DDS1_1 a1tl ${segmentLedNode("a1tl", 1)} DLED`);
+    expect(deck).toContain(`DDS1_2 ${segmentLedNode("a1tl", 1)} 0 DLED`);
+    expect(deck).toContain("Q1 vsup o1tl e1tl QDRV");
+    expect(deck).toContain("R1 e1tl a1tl 110");
+  });
+
+  it("writes a switch: base resistor, base-emitter resistor, emitter at ground, series resistor in the collector", () => {
+    const f = sharedDieRoller({ preset: "bench-5v-switch" });
+    const deck = spiceNetlist(f.project, f.spec, f.matrix, 0, projectDesign(f.project.electrical, f.matrix)).split("\n");
+    expect(deck).toContain("Q1 c1tl b1tl 0 QDRV");
+    expect(deck).toContain("R1 k1tl c1tl 300");
+    expect(deck).toContain("R8 o1tl b1tl 3300");
+    expect(deck).toContain("R15 b1tl 0 47000");
+    expect(deck).toContain("DDS1_1 vsup k1tl DLED");
+    expect(deck).toContain("* Series resistors as in the project (the trim could not be worked out).");
   });
 
   it("has one element per matrix diode, unique names and no unit suffixes", () => {
@@ -40,8 +66,8 @@ describe("spiceNetlist", () => {
   it("writes the design's emitter resistors and says which they are", () => {
     expect(lines).toContain("* Emitter resistors as in the project (the trim is turned off).");
     expect(lines.filter((l) => /^R\d+ e\S+ 0 /.test(l)).every((l) => l.endsWith(" 10000"))).toBe(true);
-    const trim = new Map([...own.emitterOhms].map(([o], i) => [o, i % 2 === 0 ? 6200 : 9100]));
-    const design: EmitterDesign = { mode: "auto", series: "E24", trimmed: true, effect: "improves", emitterOhms: trim };
+    const trim = new Map([...own.ohms].map(([o], i) => [o, i % 2 === 0 ? 6200 : 9100]));
+    const design: SegmentDesign = { mode: "auto", series: "E24", role: "emitter", trimmed: true, effect: "improves", ohms: trim };
     const trimmed = spiceNetlist(d.project, d.spec, d.matrix, 2, design);
     expect(trimmed).toMatch(/^\* Emitter resistors: the E24 trim, applied because it /m);
     for (const [o, ohms] of trim) expect(trimmed).toMatch(new RegExp(`^R\\d+ e${o} 0 ${ohms}$`, "m"));

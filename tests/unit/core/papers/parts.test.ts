@@ -4,7 +4,7 @@ import { designators } from "../../../../src/core/matrix/designators.ts";
 import { countParts, refRanges } from "../../../../src/core/papers/parts.ts";
 import { synthesizeDirect } from "../../../../src/core/synth/direct.ts";
 import { buildCircuit } from "../../../../src/core/circuit/circuit.ts";
-import { showing } from "../../../support/projects.ts";
+import { showing, showingWith } from "../../../support/projects.ts";
 
 describe("parts", () => {
   it("compresses designators into ranges", () => {
@@ -55,21 +55,57 @@ describe("parts", () => {
 });
 
 describe("parts count against the circuit", () => {
-  it("names every resistor, driver and string the circuit builder places, with the same values, and no other", () => {
-    const p = showing([" 1", "12", "22"], 2);
+  const cases: [string, Record<string, unknown> | null][] = [
+    ["format 1's sink", null],
+    ["a switch", { preset: "bench-5v-switch" }],
+    ["a sink with a collector resistor", { preset: "panel-12v-sink", segment: { seriesResistor: 68 } }],
+    ["a follower with a base resistor", { preset: "cathode-5v-follower", driver: { baseResistor: 1000 } }],
+    ["direct drive", { preset: "line-direct" }],
+  ];
+  it.each(cases)(
+    "names every resistor, driver and segment the circuit builder places, with the same values, and no other: %s",
+    (_, electrical) => {
+      const texts = [" 1", "12", "22"];
+      const p = electrical === null ? showing(texts, 2) : showingWith(texts, electrical, 2);
+      const spec = compileSpec(p);
+      expect(spec.tiedOn.length).toBeGreaterThan(0);
+      const m = synthesizeDirect(spec, 1, "mixed");
+      const design = new Map(spec.outputs.map((o, i) => [o, 5100 + 100 * i]));
+      const circuit = buildCircuit(spec, m, p.electrical, 0, design);
+      const placed = circuit.elements
+        .filter((el) => el.kind === "npn" || el.kind === "segment" || (el.kind === "resistor" && el.role !== "counter"))
+        .map((el) => `${el.name}=${el.kind === "resistor" ? el.ohms : el.kind}`)
+        .sort();
+      const counted = countParts(designators(spec, m, p.electrical, design))
+        .filter((g) => g.kind !== "diode")
+        .flatMap((g) => g.refs.map((r) => `${r}=${g.ohms ?? (g.kind === "transistor" ? "npn" : "segment")}`))
+        .sort();
+      expect(placed).toEqual(counted);
+    },
+  );
+
+  it("counts a switch's parts: transistor, series, base and base-emitter resistors, pull-down and segment per output", () => {
+    const p = showingWith([" 1", "12"], { preset: "bench-5v-switch" }, 2);
     const spec = compileSpec(p);
-    expect(spec.tiedOn.length).toBeGreaterThan(0);
-    const m = synthesizeDirect(spec, 1, "mixed");
-    const trim = new Map(spec.outputs.map((o, i) => [o, 5100 + 100 * i]));
-    const circuit = buildCircuit(spec, m, p.electrical, 0, trim);
-    const placed = circuit.elements
-      .filter((el) => el.kind === "npn" || el.kind === "string" || (el.kind === "resistor" && el.role !== "counter"))
-      .map((el) => `${el.name}=${el.kind === "resistor" ? el.ohms : el.kind}`)
-      .sort();
-    const counted = countParts(designators(spec, m, p.electrical, trim))
-      .filter((g) => g.kind !== "diode")
-      .flatMap((g) => g.refs.map((r) => `${r}=${g.ohms ?? (g.kind === "transistor" ? "npn" : "string")}`))
-      .sort();
-    expect(placed).toEqual(counted);
+    const groups = countParts(designators(spec, synthesizeDirect(spec, 1, "mixed"), p.electrical));
+    const qty: Record<string, number> = {};
+    for (const g of groups) qty[g.kind] = (qty[g.kind] ?? 0) + g.refs.length;
+    expect(qty).toEqual({
+      diode: 7,
+      transistor: 8,
+      "series-resistor": 8,
+      "base-resistor": 8,
+      "base-emitter-resistor": 8,
+      "pull-down": 8,
+      "tie-on-resistor": 1,
+      display: 8,
+    });
+  });
+
+  it("counts no transistor for direct drive", () => {
+    const p = showingWith(["1", "7"], { preset: "line-direct" });
+    const spec = compileSpec(p);
+    const kinds = countParts(designators(spec, synthesizeDirect(spec, 1, "mixed"), p.electrical)).map((g) => g.kind);
+    expect(kinds).toEqual(["diode", "series-resistor", "pull-down", "tie-on-resistor", "display"]);
   });
 });

@@ -10,7 +10,7 @@ import { LIMITS } from "../../../../src/core/project/limits.ts";
 import { validateProject } from "../../../../src/core/project/projectSchema.ts";
 
 const DOC = readFileSync(new URL("../../../../docs/project-format.md", import.meta.url), "utf8");
-const base = { schema: "diodeloom/project@1", counter: { states: 2 }, display: {}, show: ["0", "1"] };
+const base = { schema: "diodeloom/project@2", counter: { states: 2 }, display: {}, show: ["0", "1"] };
 
 /** The cells of the table row whose first cell is `field` in backquotes, in the part of the file after `heading`. */
 function docRow(field: string, heading = ""): string[] {
@@ -24,6 +24,7 @@ function docRow(field: string, heading = ""): string[] {
 function withField(path: string, value: number): Record<string, unknown> {
   const [a, b] = path.split(".") as [string, string | undefined];
   if (path === "driver.emitterResistors") return { driver: { emitterResistors: { "1a": value } } };
+  if (path === "segment.seriesResistors") return { segment: { seriesResistors: { "1a": value } } };
   if (path === "tolerance.temperatureC") return { tolerance: { temperatureC: [value, value] } };
   return b === undefined ? { [a]: value } : { [a]: { [b]: value } };
 }
@@ -49,8 +50,8 @@ describe("ELECTRICAL_RANGES", () => {
   });
 
   it("refuses the extremes that used to crash the budget (5e-324 A and 1e-300 A targets)", () => {
-    expect(fieldProblems("string.targetA", 5e-324)).toEqual(["got 5e-324; must be a number from 1e-6 to 10 A"]);
-    expect(fieldProblems("string.targetA", 1e-300)).toEqual(["got 1e-300; must be a number from 1e-6 to 10 A"]);
+    expect(fieldProblems("segment.targetA", 5e-324)).toEqual(["got 5e-324; must be a number from 1e-6 to 10 A"]);
+    expect(fieldProblems("segment.targetA", 1e-300)).toEqual(["got 1e-300; must be a number from 1e-6 to 10 A"]);
   });
 
   it("is the table in docs/project-format.md", () => {

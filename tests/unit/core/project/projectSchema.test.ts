@@ -69,7 +69,7 @@ describe("parseProject rejects, naming the field", () => {
     expect(p?.message).toMatch(/not valid JSON/);
   });
   it("a wrong schema", () => expect(firstPath({ ...base, schema: "other/project@9" })).toBe("schema"));
-  it("a missing schema", () => expect(problems({ title: "x" })[0]?.message).toMatch(/diodeloom\/project@1/));
+  it("a missing schema", () => expect(problems({ title: "x" })[0]?.message).toMatch(/diodeloom\/project@2/));
   it("an unknown top-level key", () => {
     const [p] = problems({ ...base, colour: "red" });
     expect(p?.path).toBe("colour");

@@ -1,17 +1,19 @@
 /**
- * Emitter-resistor trim: per output, the preferred value that brings its
- * string current nearest the target.
+ * The trim: per output, the preferred value of the resistor that sets its
+ * current (the emitter resistor of a sink, the series resistor of a switch,
+ * a follower or direct drive) that brings its segment current nearest the
+ * target, and the figures the design rule (segmentDesign.ts) judges it by.
  *
- * An output reached through two diodes sits a diode drop lower at its base
- * than one reached through one, so at one emitter resistor its string runs
- * dimmer. The trim gives each output its own value: the ideal resistance is
- * found by scaling with the current (I ~ 1/Re at a fixed emitter voltage)
- * and re-solving once, then the two preferred values around it are tried
- * on the real circuit and the one whose current range is centred nearest
- * the target wins. "Centred" uses the middle of the output's range over the
+ * An output reached through two diodes sits a diode drop lower than one
+ * reached through one, so at one resistor value its segment runs dimmer.
+ * The trim gives each output its own value: the ideal resistance is found by
+ * scaling with the current (I ~ 1/R at a fixed voltage across it) and
+ * re-solving once, then the two preferred values around it are tried on
+ * the real circuit and the one whose current range is centred nearest the
+ * target wins. "Centred" uses the middle of the output's range over the
  * states that light it, so that the worst deviation is smallest.
  */
-import { emitterOhmsOf } from "../matrix/designators.ts";
+import { currentOhmsOf } from "../matrix/designators.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import { preferredNeighbours, type ESeriesName } from "./eSeries.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
@@ -19,11 +21,11 @@ import type { ElectricalModel } from "../project/project.ts";
 import { ok, type Result } from "../result/result.ts";
 import { isLit, solveAllStates, type BudgetFailure, type StateSolution } from "../circuit/stateSweep.ts";
 
-/** Range of one output's string current over the states that light it. */
+/** Range of one output's segment current over the states that light it. */
 export interface CurrentRange {
-  /** Lowest lit string current, amperes. */
+  /** Lowest lit segment current, amperes. */
   readonly minA: number;
-  /** Highest lit string current, amperes. */
+  /** Highest lit segment current, amperes. */
   readonly maxA: number;
   /** 100 (max - min) / max: how much dimmer the dimmest state is, percent. */
   readonly spreadPct: number;
@@ -36,12 +38,10 @@ export interface TrimmedOutput extends CurrentRange {
   readonly idealOhms: number;
 }
 
-export interface EmitterTrim {
+export interface SegmentTrim {
   readonly series: ESeriesName;
+  /** Per output the trim could size (an output whose segment does not light cannot be trimmed). */
   readonly outputs: Readonly<Record<string, TrimmedOutput>>;
-  /** Spread over every lit string of the display, before and after the trim, percent. */
-  readonly spreadPctBefore: number;
-  readonly spreadPct: number;
   /** The trimmed design's operating points (every state). */
   readonly solutions: readonly StateSolution[];
   /** The chosen values, ohms, keyed by output. */
@@ -73,7 +73,7 @@ export function spreadPct(minA: number, maxA: number): number {
   return maxA > 0 ? (100 * (maxA - minA)) / maxA : 0;
 }
 
-/** Spread over all lit strings of all outputs, percent. */
+/** Spread over all lit segments of all outputs (the display's spread), percent. */
 export function overallSpread(ranges: ReadonlyMap<string, CurrentRange>): number {
   const rs = [...ranges.values()];
   if (rs.length === 0) return 0;
@@ -81,7 +81,7 @@ export function overallSpread(ranges: ReadonlyMap<string, CurrentRange>): number
 }
 
 /**
- * Largest distance of any lit string from the target current, percent of
+ * Largest distance of any lit segment from the target current, percent of
  * the target: 100 max |I - target| / target. 0 when nothing is lit.
  */
 export function offTargetPct(ranges: ReadonlyMap<string, CurrentRange>, targetA: number): number {
@@ -90,36 +90,72 @@ export function offTargetPct(ranges: ReadonlyMap<string, CurrentRange>, targetA:
   return (100 * worst) / targetA;
 }
 
+/**
+ * Largest distance of any lit segment outside the target window
+ * target (1 ± windowPct/100), percent of the target; 0 when every lit
+ * segment is inside.
+ *
+ * @example
+ * windowDistancePct(new Map([["1a", { minA: 7e-3, maxA: 9e-3, spreadPct: 22 }]]), 10e-3, 20); // 10
+ */
+export function windowDistancePct(ranges: ReadonlyMap<string, CurrentRange>, targetA: number, windowPct: number): number {
+  const lo = targetA * (1 - windowPct / 100);
+  const hi = targetA * (1 + windowPct / 100);
+  let worst = 0;
+  for (const r of ranges.values()) worst = Math.max(worst, lo - r.minA, r.maxA - hi);
+  return (100 * worst) / targetA;
+}
+
 const mid = (r: CurrentRange): number => (r.minA + r.maxA) / 2;
+
+/** Resistances the trim may propose, ohms: a schema-valid resistor. */
+const OHMS_MIN = 1;
+const OHMS_MAX = 10e6;
 
 /** What the trim works from. */
 export interface TrimInput {
   readonly spec: DecodeSpec;
   readonly matrix: DiodeMatrix;
   readonly model: ElectricalModel;
-  /** Every state solved with the model's own emitter resistors. */
+  /** Every state solved with the model's own resistors. */
   readonly nominal: readonly StateSolution[];
   readonly series: ESeriesName;
+}
+
+/**
+ * Scales each output's resistor so that the middle of its range would sit
+ * on the target (I ~ 1/R); an output whose segment carries nothing keeps its
+ * value, since no resistor would light it.
+ */
+function scaled(before: ReadonlyMap<string, number>, ranges: ReadonlyMap<string, CurrentRange>, targetA: number): Map<string, number> {
+  const out = new Map<string, number>();
+  for (const [o, ohms] of before) {
+    const r = ranges.get(o);
+    const x = r && mid(r) > targetA * 1e-6 ? (ohms * mid(r)) / targetA : ohms;
+    out.set(o, Math.min(OHMS_MAX, Math.max(OHMS_MIN, x)));
+  }
+  return out;
 }
 
 /**
  * Works out the trim from the nominal solution.
  *
  * @example
- * const t = trimEmitters({ spec, matrix, model: project.electrical, nominal, series: "E24" });
- * if (t.ok) t.value.ohms.get("1a"); // 6200
+ * const t = trimSegments({ spec, matrix, model: project.electrical, nominal, series: "E24" });
+ * if (t.ok) t.value.ohms.get("1a"); // 300
  */
-export function trimEmitters(input: TrimInput): Result<EmitterTrim, BudgetFailure> {
+export function trimSegments(input: TrimInput): Result<SegmentTrim, BudgetFailure> {
   const { spec, matrix, model, nominal, series } = input;
-  const target = model.string.targetA;
+  const target = model.segment.targetA;
   const before = currentRanges(spec, nominal);
-  const outputs = [...before.keys()];
-  // Two rounds of I ~ 1/Re scaling, the second on a fresh solve.
-  const ideal0 = new Map(outputs.map((o) => [o, (emitterOhmsOf(model, o) * mid(before.get(o) as CurrentRange)) / target]));
+  // Outputs whose segment lights at all; one that stays dark has nothing to centre.
+  const outputs = [...before.keys()].filter((o) => mid(before.get(o) as CurrentRange) > target * 1e-6);
+  const own = new Map(outputs.map((o) => [o, currentOhmsOf(model, o)]));
+  // Two rounds of I ~ 1/R scaling, the second on a fresh solve.
+  const ideal0 = scaled(own, before, target);
   const round = solveAllStates(spec, matrix, model, "trim", ideal0);
   if (!round.ok) return round;
-  const r1 = currentRanges(spec, round.value);
-  const ideal = new Map(outputs.map((o) => [o, ((ideal0.get(o) as number) * mid(r1.get(o) as CurrentRange)) / target]));
+  const ideal = scaled(ideal0, currentRanges(spec, round.value), target);
 
   const lower = new Map(outputs.map((o) => [o, preferredNeighbours(ideal.get(o) as number, series)[0]]));
   const upper = new Map(outputs.map((o) => [o, preferredNeighbours(ideal.get(o) as number, series)[1]]));
@@ -142,13 +178,5 @@ export function trimEmitters(input: TrimInput): Result<EmitterTrim, BudgetFailur
   for (const o of outputs) {
     trimmed[o] = { ohms: chosen.get(o) as number, idealOhms: ideal.get(o) as number, ...(after.get(o) as CurrentRange) };
   }
-  if (outputs.length === 0) return ok({ series, outputs: {}, spreadPctBefore: 0, spreadPct: 0, solutions: final.value, ohms: chosen });
-  return ok({
-    series,
-    outputs: trimmed,
-    spreadPctBefore: overallSpread(before),
-    spreadPct: overallSpread(after),
-    solutions: final.value,
-    ohms: chosen,
-  });
+  return ok({ series, outputs: trimmed, solutions: final.value, ohms: chosen });
 }

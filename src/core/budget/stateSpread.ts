@@ -1,0 +1,82 @@
+/**
+ * Brightness that depends on the state: for each output whose current
+ * varies between the states that light it by more than 10 %, what makes it
+ * vary, from the solved states.
+ *
+ * The output line's voltage differs between the dimmest and the brightest
+ * state by the active line's sag (its source resistance shared by the
+ * segments lit together) plus the drop along the path (one diode more when
+ * the dimmest state reaches it through two); a switch that leaves
+ * saturation passes that difference on to its segment.
+ */
+import type { VerifiedMatrix } from "../matrix/matrix.ts";
+import type { DecodeSpec } from "../spec/decodeSpec.ts";
+import type { DriverKind } from "../project/project.ts";
+import { isLit, type StateSolution } from "../circuit/stateSweep.ts";
+import { depthsFrom, driverPoint } from "./budgetFigures.ts";
+import type { BudgetWarning, OutputBudget, SpreadCause } from "./budgetTypes.ts";
+import { OUTPUT_SPREAD_PCT } from "./segmentDesign.ts";
+
+export type StateSpreadWarning = Extract<BudgetWarning, { code: "state-spread" }>;
+
+/** A share of the input's change below which a cause is not named. */
+const NAMED_SHARE = 0.25;
+
+/**
+ * The state-spread findings of a design, one per output above 10 %.
+ *
+ * @example
+ * stateSpreads({ spec, matrix, kind: "current-sink", solutions, outputs: budget.outputs })[0];
+ * // { level: "warn", code: "state-spread", output: "1a", spreadPct: 14.2, causes: ["line-sag"], ... }
+ */
+export function stateSpreads(input: {
+  readonly spec: DecodeSpec;
+  readonly matrix: VerifiedMatrix;
+  readonly kind: DriverKind;
+  readonly solutions: readonly StateSolution[];
+  readonly outputs: Readonly<Record<string, OutputBudget>>;
+}): StateSpreadWarning[] {
+  const { spec, matrix, kind, solutions } = input;
+  const index = new Map(solutions.map((s, k) => [s.circuit.state, k]));
+  const litCount = (k: number): number => (solutions[k]?.circuit.drivers ?? []).filter((d) => isLit(spec, k, d.output)).length;
+  const out: StateSpreadWarning[] = [];
+  for (const [o, r] of Object.entries(input.outputs)) {
+    if (r.tiedOn || r.spreadPct <= OUTPUT_SPREAD_PCT || r.minState === null || r.maxState === null) continue;
+    const kMin = index.get(r.minState) as number;
+    const kMax = index.get(r.maxState) as number;
+    const sMin = solutions[kMin] as StateSolution;
+    const sMax = solutions[kMax] as StateSolution;
+    const stage = sMin.circuit.drivers.find((d) => d.output === o);
+    if (!stage) continue;
+    const lineV = (s: StateSolution): number => s.op.voltages[s.circuit.lineNodes[s.circuit.state] as string] as number;
+    const inputV = (s: StateSolution): number => s.op.voltages[stage.inputNode] as number;
+    const sagDeltaV = lineV(sMax) - lineV(sMin);
+    const inputDeltaV = inputV(sMax) - inputV(sMin);
+    const dropDeltaV = inputDeltaV - sagDeltaV;
+    const depthMin = depthsFrom(matrix, kMin).get(o) ?? 0;
+    const depthMax = depthsFrom(matrix, kMax).get(o) ?? 0;
+    const shares: [SpreadCause, number][] = [];
+    if (sagDeltaV > NAMED_SHARE * Math.abs(inputDeltaV)) shares.push(["line-sag", sagDeltaV]);
+    if (depthMin > depthMax && dropDeltaV > NAMED_SHARE * Math.abs(inputDeltaV)) shares.push(["diode-depth", dropDeltaV]);
+    shares.sort((a, b) => b[1] - a[1]);
+    const causes: SpreadCause[] = shares.map(([c]) => c);
+    const p = driverPoint(sMin, stage);
+    if (kind === "low-side-switch" && p !== null && p.vceV > p.vbeV) causes.unshift("switch-unsaturated");
+    if (causes.length === 0) causes.push(sagDeltaV >= dropDeltaV ? "line-sag" : "diode-depth");
+    out.push({
+      level: "warn",
+      code: "state-spread",
+      output: o,
+      spreadPct: r.spreadPct,
+      minState: r.minState,
+      maxState: r.maxState,
+      causes,
+      sagDeltaV,
+      litMin: litCount(kMin),
+      litMax: litCount(kMax),
+      depthMin,
+      depthMax,
+    });
+  }
+  return out;
+}
