@@ -1,17 +1,14 @@
 /** Entry of the web app: mounts the screen, wires the keyboard, loads the first project. */
 import { render } from "solid-js/web";
-import { parseProject } from "../core/project/projectSchema.ts";
 import type { Project } from "../core/project/project.ts";
 import { App } from "./components/App.tsx";
 import { app } from "./state/appState.ts";
+import { DEMO_EXAMPLE, loadExample } from "./state/examples.ts";
 import { historyAction, isTextEntry } from "./state/undoKeys.ts";
 import "./styles.css";
 
-const DEMO_URL = `${import.meta.env.BASE_URL}examples/relay-hex-monitor.json`;
-
 async function demoProject(): Promise<Project> {
-  const text = await (await fetch(DEMO_URL)).text();
-  const r = parseProject(text);
+  const r = await loadExample(import.meta.env.BASE_URL, DEMO_EXAMPLE);
   if (!r.ok) throw new Error(`bug: the demo project is invalid: ${JSON.stringify(r.error)}`);
   return r.value;
 }

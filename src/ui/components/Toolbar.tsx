@@ -1,5 +1,5 @@
 /**
- * The toolbar: open and save the project, the recent projects, share link,
+ * The toolbar: a new project or a shipped example, open and save the project, the recent projects, share link,
  * exports, print with paper size, undo and redo, and the exact optimizer
  * switch. A mark beside Save says when the browser refuses the autosave.
  */
@@ -10,6 +10,7 @@ import { draftToJson } from "../state/draft.ts";
 import { downloadText, fileStem } from "../files/download.ts";
 import { exportFiles, type ExportKind } from "../files/exportFiles.ts";
 import { encodeShareHash } from "../state/shareLink.ts";
+import { EXAMPLES, type ShippedExample } from "../state/examples.ts";
 
 import { PAPER_NAMES, type PaperName } from "../../render/drawingModel.ts";
 
@@ -36,6 +37,11 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
     app.openText(file.name, new Uint8Array(await file.arrayBuffer()));
   };
   let recentMenu: HTMLDetailsElement | undefined;
+  let newMenu: HTMLDetailsElement | undefined;
+  const pick = (ex: ShippedExample | null) => {
+    if (newMenu) newMenu.open = false;
+    void app.openExample(ex);
+  };
   const save = () => app.downloadProject();
   const share = async () => {
     const hash = await encodeShareHash(draftToJson(app.draft()));
@@ -72,6 +78,21 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
         diode<span>loom</span>
       </span>
       <div class="tool-group">
+        <details class="menu" ref={newMenu}>
+          <summary data-testid="new-menu">New ▾</summary>
+          <div class="menu-items wide" role="group" aria-label="New project or example">
+            <button type="button" data-testid="new-blank" onClick={() => pick(null)}>
+              New project (0-9 on one digit)
+            </button>
+            <For each={EXAMPLES}>
+              {(ex) => (
+                <button type="button" data-testid={`example-${ex.file.replace(/\.json$/, "")}`} onClick={() => pick(ex)}>
+                  Example: {ex.label}
+                </button>
+              )}
+            </For>
+          </div>
+        </details>
         <button type="button" onClick={() => fileInput?.click()} data-testid="open">
           Open…
         </button>

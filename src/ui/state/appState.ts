@@ -6,7 +6,7 @@
  * (src/ui/workers), so the page answers at any project size; the page itself
  * only validates drafts and verifies the matrices it is sent.
  */
-import { batch, createMemo, createRoot, createSignal } from "solid-js";
+import { batch, createEffect, createMemo, createRoot, createSignal, on } from "solid-js";
 import type { BudgetFailure } from "../../core/budget/budget.ts";
 import type { Budget } from "../../core/budget/budgetTypes.ts";
 import type { TrimMode } from "../../core/budget/segmentDesign.ts";
@@ -23,12 +23,14 @@ import { parseProject, validateProject } from "../../core/project/projectSchema.
 import { parseProjectBytes } from "../../core/project/projectBytes.ts";
 import type { Problem } from "../../core/result/result.ts";
 import { fileProblemLine } from "./problemWords.ts";
-import { readAutosave, writeAutosave, type KeyValueStore, type StoreFailure } from "./autosave.ts";
+import { projectKey, readAutosave, writeAutosave, type KeyValueStore, type StoreFailure } from "./autosave.ts";
 import { draftFromProject, draftToJson, type Draft } from "./draft.ts";
 import { downloadText, fileStem } from "../files/download.ts";
-import { pageStore } from "./pageStore.ts";
+import { pageStore, sessionPageStore } from "./pageStore.ts";
+import { readUndo, writeUndo } from "./undoStore.ts";
 import { keepCurrentProject, readRecent, type RecentProject } from "./recentProjects.ts";
 import { decodeShareHash, isShareHash } from "./shareLink.ts";
+import { loadExample, newProject, type ShippedExample } from "./examples.ts";
 import type { TwoRankFigures, WorkerFailure } from "../workers/analysisProtocol.ts";
 import type { SynthFailure } from "../../core/synth/synthesize.ts";
 import { LiveRunner } from "../workers/liveRun.ts";
@@ -53,6 +55,8 @@ export interface Notice {
 
 /** Wait after the last edit before the exact optimizer starts, milliseconds. */
 const EXACT_DELAY_MS = 500;
+/** Wait after a change of the undo history before it is written for a reload, milliseconds. */
+const UNDO_WRITE_DELAY_MS = 200;
 /** Wait after a result before the budget is asked for (typing settles first), milliseconds. */
 const BUDGET_DELAY_MS = 150;
 /**
@@ -99,6 +103,23 @@ function createAppState() {
   const [notice, setNotice] = createSignal<Notice | null>(null);
   const [ready, setReady] = createSignal(false);
   const store = pageStore();
+  /** The tab's session storage: the undo history over a reload (undoStore.ts). */
+  const sessionStore = sessionPageStore();
+  /** The project the autosave last wrote (its projectKey), which the stored undo history is tied to. */
+  let savedKey: string | null = null;
+  let undoTimer: ReturnType<typeof setTimeout> | undefined;
+  /** Writes the undo history for a reload; on every change, a moment later, and at once when the page goes. */
+  function keepHistory(): void {
+    clearTimeout(undoTimer);
+    if (persist && savedKey !== null && ready()) writeUndo(sessionStore, history(), savedKey);
+  }
+  createEffect(
+    on(history, () => {
+      clearTimeout(undoTimer);
+      undoTimer = setTimeout(keepHistory, UNDO_WRITE_DELAY_MS);
+    }),
+  );
+  if (typeof window !== "undefined") window.addEventListener("pagehide", keepHistory);
   const [paper, setPaperSignal] = createSignal<PaperName>(readPaper(store));
   /** Why the last autosave failed, or null while saving works. */
   const [saveProblem, setSaveProblem] = createSignal<StoreFailure | null>(null);
@@ -307,6 +328,7 @@ function createAppState() {
   /** Saves a valid project; says so at once when the browser refuses, with the project to download. */
   function save(project: Project): void {
     const w = writeAutosave(store, project);
+    if (w.ok) savedKey = projectKey(project);
     if (!w.ok) {
       const first = saveProblem() === null;
       setSaveProblem({ reason: w.reason, message: w.message });
@@ -508,6 +530,30 @@ function createAppState() {
   }
 
   /**
+   * Opens a shipped example, or a new project when `example` is null (the
+   * New menu): like an opened file, undoable, with the person's project kept
+   * under Recent.
+   */
+  async function openExample(example: ShippedExample | null): Promise<void> {
+    if (example === null) {
+      replaceProject(newProject());
+      setNotice({ level: "info", title: "Started a new project; the one you had is under Recent", lines: [] });
+      return;
+    }
+    const r = await loadExample(import.meta.env.BASE_URL, example);
+    if (!r.ok) {
+      setNotice({
+        level: "danger",
+        title: `The example ${example.file} was not opened; the project on screen is unchanged`,
+        lines: r.error.map((p) => `${example.file}: ${fileProblemLine(p)}`),
+      });
+      return;
+    }
+    replaceProject(r.value);
+    setNotice({ level: "info", title: `Opened the example "${r.value.title}"; the project you had is under Recent`, lines: [] });
+  }
+
+  /**
    * Opens project JSON, as text or as a file's bytes (read exactly as the
    * command line reads a file). A bad file leaves the open project as it
    * was and shows the same path-naming messages as the command line.
@@ -541,12 +587,15 @@ function createAppState() {
       start = shared.value;
       keepOutgoing(start);
     }
-    if (!start && saved.found) start = saved.project;
     if (saved.notes.length > 0 && !(shared && !shared.ok)) setNotice({ level: "warn", title: "Autosave", lines: saved.notes });
     setRecent(readRecent(store));
+    // The undo history comes back with the person's own project, when it belongs to the one the autosave holds.
+    const kept = !start && saved.found ? readUndo(sessionStore, projectKey(saved.project)) : null;
+    if (saved.found) savedKey = projectKey(saved.project);
+    if (!start && saved.found) start = saved.project;
     start ??= await demo();
     editStartedAt = performance.now();
-    setHistory(startHistory(draftFromProject(start)));
+    setHistory(kept ?? startHistory(draftFromProject(start)));
     await recompute();
     setReady(true);
   }
@@ -658,6 +707,7 @@ function createAppState() {
     redo: doRedo,
     replaceProject,
     openText,
+    openExample,
     boot,
     cancelExact: () => cancelExact(true),
     runExactNow: () => {

@@ -15,3 +15,13 @@ export function pageStore(): KeyValueStore {
     removeItem: (key) => storage().removeItem(key),
   };
 }
+
+/** The tab's sessionStorage as a KeyValueStore, with the same care: kept over a reload, not beyond the tab. */
+export function sessionPageStore(): KeyValueStore {
+  const storage = (): Storage => window.sessionStorage;
+  return {
+    getItem: (key) => storage().getItem(key),
+    setItem: (key, value) => storage().setItem(key, value),
+    removeItem: (key) => storage().removeItem(key),
+  };
+}

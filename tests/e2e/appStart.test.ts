@@ -1,0 +1,117 @@
+/**
+ * The web app for a newcomer: the New menu (a new project or any shipped
+ * example, the person's project kept under Recent), the undo history over a
+ * reload, the title block, and help in place for the words the app uses.
+ * Screenshots go to /tmp for a person to look at.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
+import { startApp, type AppHarness } from "./appBrowser.ts";
+
+let app: AppHarness;
+let context: BrowserContext;
+let page: Page;
+const consoleErrors: string[] = [];
+
+const title = (p: Page = page) => p.locator("#f-title").inputValue();
+
+async function waitReady(p: Page = page): Promise<void> {
+  await p.waitForSelector('[data-ready="yes"]', { timeout: 20_000 });
+}
+
+/** Runs an action that changes the project, and waits until the page shows the new result. */
+async function afterResult(action: () => Promise<void>, p: Page = page): Promise<void> {
+  const pass = () => p.getByTestId("live-ms").getAttribute("data-pass");
+  const before = await pass();
+  await action();
+  await expect.poll(pass, { timeout: 20_000 }).not.toBe(before);
+}
+
+beforeAll(async () => {
+  app = await startApp();
+  context = await app.browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+  page = await context.newPage();
+  page.on("console", (m) => {
+    if (m.type() === "error") consoleErrors.push(m.text());
+  });
+  page.on("pageerror", (e) => consoleErrors.push(`pageerror: ${e.message}`));
+  await page.goto(app.url);
+  await waitReady();
+  const box = page.getByTestId("exact-toggle");
+  if (await box.isChecked()) await box.uncheck();
+});
+
+afterAll(async () => {
+  await app?.close();
+});
+
+describe("getting started in the web app", () => {
+  it("opens every shipped example and a new project from the New menu, keeping the person's project under Recent", async () => {
+    await expect.poll(() => title()).toMatch(/hex monitor/);
+    await afterResult(() => page.locator("#f-title").fill("My bench clock"));
+    await page.locator("#f-title").blur();
+    await page.getByTestId("new-menu").click();
+    const items = await page.locator('[aria-label="New project or example"] button').allTextContents();
+    expect(items).toHaveLength(5);
+    await page.screenshot({ path: "/tmp/diodeloom-examples-menu.png" });
+    await afterResult(() => page.getByTestId("example-die-roller").click());
+    await expect.poll(() => title()).toMatch(/^Die roller/);
+    expect(await page.getByTestId("notice").textContent()).toMatch(/Die roller.*under Recent/);
+    // The person's own project is one click away.
+    await page.getByTestId("recent-menu").click();
+    expect(await page.getByTestId("recent-0").textContent()).toMatch(/^My bench clock/);
+    await page.getByTestId("recent-menu").click();
+    for (const [id, expected] of [
+      ["example-antenna-rotator", /^Antenna rotator/],
+      ["example-turntable-position", /^Turntable position/],
+      ["example-relay-hex-monitor", /hex monitor/],
+      ["new-blank", /^New project$/],
+    ] as const) {
+      await page.getByTestId("new-menu").click();
+      await afterResult(() => page.getByTestId(id).click());
+      await expect.poll(() => title()).toMatch(expected);
+    }
+    expect(await page.getByTestId("state-text-9").inputValue()).toBe("9");
+    // Undo steps back through what was opened, as it does after opening a file.
+    await afterResult(() => page.getByTestId("undo").click());
+    await expect.poll(() => title()).toMatch(/hex monitor/);
+    await afterResult(() => page.getByTestId("redo").click());
+    await expect.poll(() => title()).toBe("New project");
+    // And every project the person left is under Recent, newest first, with theirs among them.
+    await page.getByTestId("recent-menu").click();
+    const recent = await page.locator('[aria-label="Recent projects"] button').allTextContents();
+    expect(recent.some((r) => r.startsWith("My bench clock"))).toBe(true);
+    expect(recent[0]).toMatch(/hex monitor/);
+    await page.getByTestId("recent-menu").click();
+  });
+
+  it("keeps the undo history over a reload", async () => {
+    await afterResult(() => page.locator("#f-title").fill("Reload test"));
+    await page.locator("#f-title").blur();
+    await afterResult(() => page.getByTestId("state-text-3").fill("8"));
+    await page.getByTestId("state-text-3").blur();
+    // Give the history its moment to be written, as a person's pause would.
+    await page.waitForTimeout(400);
+    await page.reload();
+    await waitReady();
+    expect(await title()).toBe("Reload test");
+    expect(await page.getByTestId("state-text-3").inputValue()).toBe("8");
+    expect(await page.getByTestId("undo").isEnabled()).toBe(true);
+    await afterResult(() => page.getByTestId("undo").click());
+    expect(await page.getByTestId("state-text-3").inputValue()).toBe("3");
+    await afterResult(() => page.getByTestId("undo").click());
+    expect(await title()).toBe("New project");
+    // Redo is kept as well.
+    await afterResult(() => page.getByTestId("redo").click());
+    expect(await title()).toBe("Reload test");
+    await page.waitForTimeout(400);
+    await page.reload();
+    await waitReady();
+    expect(await page.getByTestId("redo").isEnabled()).toBe(true);
+    expect(await page.getByTestId("undo").isEnabled()).toBe(true);
+  });
+
+  it("logged no console errors", () => {
+    expect(consoleErrors).toEqual([]);
+  });
+});
