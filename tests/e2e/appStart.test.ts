@@ -111,6 +111,33 @@ describe("getting started in the web app", () => {
     expect(await page.getByTestId("undo").isEnabled()).toBe(true);
   });
 
+  it("takes the title block's drawing number, revision, date and drawn by, refusing a bad date as the command line does", async () => {
+    const markup = () => page.getByTestId("matrix-drawing").evaluate((svg) => svg.textContent ?? "");
+    await page.getByTestId("title-block").locator("summary").click();
+    expect(await page.getByTestId("title-drawingNumber").getAttribute("placeholder")).toMatch(/^DL-[0-9A-F]{8}$/);
+    await page.getByTestId("title-drawingNumber").fill("LT-7");
+    await page.getByTestId("title-revision").fill("C");
+    await page.getByTestId("title-drawnBy").fill("R. Ortiz");
+    await page.getByTestId("title-date").fill("2026-02-31");
+    // The same check as `diodeloom export --date`: no such day, and the drawing keeps its default meanwhile.
+    expect(await page.getByTestId("title-date-problem").textContent()).toMatch(/2026-02 has no day 31/);
+    expect(await page.getByTestId("title-date").getAttribute("aria-invalid")).toBe("true");
+    await expect.poll(markup, { timeout: 20_000 }).toMatch(/LT-7[^]*Rev\.C[^]*R\.\sOrtiz/);
+    expect(await markup()).not.toMatch(/2026-02-31/);
+    await page.getByTestId("title-date").fill("2026-03-01");
+    expect(await page.getByTestId("title-date-problem").count()).toBe(0);
+    await expect.poll(markup, { timeout: 20_000 }).toMatch(/Date\sof\sissue2026-03-01/);
+    // Kept in the browser: a reload keeps the fields and the drawing.
+    await page.reload();
+    await waitReady();
+    expect(await page.getByTestId("title-drawingNumber").inputValue()).toBe("LT-7");
+    await expect.poll(markup, { timeout: 20_000 }).toMatch(/LT-7/);
+    // An empty field gives the drawing its default back.
+    await page.getByTestId("title-block").locator("summary").click();
+    await page.getByTestId("title-drawingNumber").fill("");
+    await expect.poll(markup, { timeout: 20_000 }).toMatch(/DL-[0-9A-F]{8}/);
+  });
+
   it("logged no console errors", () => {
     expect(consoleErrors).toEqual([]);
   });

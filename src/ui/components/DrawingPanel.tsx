@@ -10,6 +10,7 @@ import type { DiodeSymbol, Sheet } from "../../render/drawingModel.ts";
 import { SVG, type Svg } from "@svgdotjs/svg.js";
 import { drawSheet } from "../../render/drawSheet.ts";
 import { app } from "../state/appState.ts";
+import { TitleBlockFields } from "./TitleBlockFields.tsx";
 
 /** Zoom steps, as a share of the panel width. */
 const ZOOMS = [0.5, 0.75, 1, 1.5, 2, 3, 4] as const;
@@ -75,6 +76,7 @@ export function DrawingPanel() {
           </Show>
         </span>
       </div>
+      <TitleBlockFields />
       <div
         class={`drawing-scroll ${app.stale() ? "is-stale" : ""}`}
         tabindex="0"
