@@ -116,7 +116,11 @@ function createAppState() {
   createEffect(
     on(history, () => {
       clearTimeout(undoTimer);
-      undoTimer = setTimeout(keepHistory, UNDO_WRITE_DELAY_MS);
+      // When the page is idle, so the write never holds up a result on its way to the screen.
+      undoTimer = setTimeout(
+        () => (typeof requestIdleCallback === "function" ? requestIdleCallback(keepHistory, { timeout: 2000 }) : keepHistory()),
+        UNDO_WRITE_DELAY_MS,
+      );
     }),
   );
   if (typeof window !== "undefined") window.addEventListener("pagehide", keepHistory);
