@@ -6,6 +6,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
+import { HELP, HELP_ORDER, type HelpTerm } from "../../src/ui/helpText.ts";
 import { startApp, type AppHarness } from "./appBrowser.ts";
 
 let app: AppHarness;
@@ -136,6 +137,44 @@ describe("getting started in the web app", () => {
     await page.getByTestId("title-block").locator("summary").click();
     await page.getByTestId("title-drawingNumber").fill("");
     await expect.poll(markup, { timeout: 20_000 }).toMatch(/DL-[0-9A-F]{8}/);
+  });
+
+  it("explains every new word in place and on a help page, in the words of helpText.ts", async () => {
+    await page.goto(app.url);
+    await waitReady();
+    await page.waitForSelector('[data-testid="spread-words"]', { timeout: 30_000 });
+    const required: HelpTerm[] = ["depthLimit", "depthPolicy", "busNode", "link", "boundGap", "seed", "trim", "spread", "corners"];
+    for (const term of required) expect(await page.getByTestId(`help-${term}`).count(), term).toBe(1);
+    // A tooltip on pointing, and a line on clicking, with the same words.
+    const depth = page.getByTestId("help-depthLimit");
+    expect(await depth.getAttribute("title")).toBe(HELP.depthLimit.text);
+    expect(await depth.getAttribute("aria-expanded")).toBe("false");
+    const before = await page.locator("#f-depth").inputValue();
+    await depth.click();
+    expect(await depth.getAttribute("aria-expanded")).toBe("true");
+    expect(await page.getByTestId("help-depthLimit-text").textContent()).toBe(`${HELP.depthLimit.term}: ${HELP.depthLimit.text}`);
+    expect(await page.locator("#f-depth").inputValue()).toBe(before);
+    await page.screenshot({ path: "/tmp/diodeloom-help-in-place.png" });
+    await depth.press("Escape");
+    expect(await page.getByTestId("help-depthLimit-text").count()).toBe(0);
+    // Inside the bus nodes label: the question mark explains, the box keeps its tick.
+    const buses = page.getByText("bus nodes").locator("input");
+    const ticked = await buses.isChecked();
+    await page.getByTestId("help-busNode").click();
+    expect(await page.getByTestId("help-busNode-text").isVisible()).toBe(true);
+    expect(await buses.isChecked()).toBe(ticked);
+    await page.getByTestId("help-busNode").click();
+    // The help page lists every word with the same sentence.
+    await page.getByTestId("help-open").click();
+    const dialog = page.getByTestId("help-page");
+    expect(await dialog.isVisible()).toBe(true);
+    for (const k of HELP_ORDER) {
+      expect(await dialog.locator(`#glossary-${k}`).textContent()).toBe(HELP[k].term);
+      expect(await dialog.locator(`#glossary-${k} + dd`).textContent()).toBe(HELP[k].text);
+    }
+    await page.screenshot({ path: "/tmp/diodeloom-help-page.png" });
+    await page.keyboard.press("Escape");
+    expect(await dialog.isVisible()).toBe(false);
   });
 
   it("logged no console errors", () => {

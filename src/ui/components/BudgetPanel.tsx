@@ -12,6 +12,7 @@ import { formatOhms, microampsShort, milliamps, milliwatts, percent } from "../.
 import { app } from "../state/appState.ts";
 import { budgetChart, CHART_ROW_H } from "./budgetChart.ts";
 import { spreadWords } from "./trimWords.ts";
+import { HelpTip } from "./HelpTip.tsx";
 
 const TRIM_LABEL: Readonly<Record<TrimMode, string>> = {
   auto: "where it improves the design",
@@ -43,7 +44,7 @@ export function BudgetPanel() {
       <div class="panel-head">
         <h2 id="budget-h">Budget</h2>
         <label class="label" for="f-trim">
-          Emitter trim
+          Emitter trim <HelpTip term="trim" />
         </label>
         <select
           id="f-trim"
@@ -83,9 +84,9 @@ export function BudgetPanel() {
                   series: b().trim.series,
                 })}
               </span>{" "}
-              · supply max {milliamps(b().supply.maxCurrentA)} mA, {milliwatts(b().supply.maxPowerW, 0)} mW · corners{" "}
-              {microampsShort(b().corners.low.minCurrentA)}–{microampsShort(b().corners.high.maxCurrentA)} µA{" "}
-              {b().corners.meetsTarget ? "✓ meet" : "⚠ miss"} the ±{b().corners.windowPct} % window
+              <HelpTip term="spread" /> · supply max {milliamps(b().supply.maxCurrentA)} mA, {milliwatts(b().supply.maxPowerW, 0)} mW ·
+              corners {microampsShort(b().corners.low.minCurrentA)}–{microampsShort(b().corners.high.maxCurrentA)} µA{" "}
+              {b().corners.meetsTarget ? "✓ meet" : "⚠ miss"} the ±{b().corners.windowPct} % window <HelpTip term="corners" />
             </p>
             <Show when={chart()}>
               {(c) => (

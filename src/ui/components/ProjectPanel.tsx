@@ -11,6 +11,7 @@ import { problemSentence } from "../state/problemWords.ts";
 import { fillPattern } from "../../core/project/textPatterns.ts";
 import { app } from "../state/appState.ts";
 import { CellFigure } from "./CellFigure.tsx";
+import { HelpTip } from "./HelpTip.tsx";
 import {
   draftFigure,
   draftSegments,
@@ -215,7 +216,9 @@ export function ProjectPanel() {
       <fieldset class="sub">
         <legend>Synthesis</legend>
         <div class="form-grid">
-          <label for="f-depth">Depth limit</label>
+          <label for="f-depth">
+            Depth limit <HelpTip term="depthLimit" />
+          </label>
           <select
             id="f-depth"
             value={String(d().synthesis.maxDepth)}
@@ -223,7 +226,9 @@ export function ProjectPanel() {
           >
             <For each={DEPTH_LIMITS}>{(k) => <option value={String(k)}>{k === 1 ? "1 diode" : `${k} diodes`}</option>}</For>
           </select>
-          <label for="f-policy">Depth policy</label>
+          <label for="f-policy">
+            Depth policy <HelpTip term="depthPolicy" />
+          </label>
           <select
             id="f-policy"
             value={d().synthesis.depth}
@@ -239,7 +244,7 @@ export function ProjectPanel() {
                 checked={d().synthesis.buses}
                 onChange={(e) => app.edit((x) => setSynthesis(x, { buses: e.currentTarget.checked }))}
               />{" "}
-              bus nodes
+              bus nodes <HelpTip term="busNode" />
             </label>
             <label>
               <input
@@ -247,7 +252,7 @@ export function ProjectPanel() {
                 checked={d().synthesis.links}
                 onChange={(e) => app.edit((x) => setSynthesis(x, { links: e.currentTarget.checked }))}
               />{" "}
-              links
+              links <HelpTip term="link" />
             </label>
           </div>
           <label for="f-limit">Exact limit (s)</label>
@@ -263,7 +268,9 @@ export function ProjectPanel() {
               if (seconds !== null) app.edit((x) => setSynthesis(x, { timeLimitMs: Math.round(seconds * 1000) }));
             }}
           />
-          <label for="f-seed">Seed</label>
+          <label for="f-seed">
+            Seed <HelpTip term="seed" />
+          </label>
           <input
             id="f-seed"
             type="number"

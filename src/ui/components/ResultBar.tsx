@@ -6,6 +6,7 @@ import { createSignal, Match, onCleanup, Show, Switch } from "solid-js";
 import { app } from "../state/appState.ts";
 import { gapPercent } from "../workers/exactProtocol.ts";
 import { doneText } from "../state/exactStatus.ts";
+import { HelpTip } from "./HelpTip.tsx";
 
 const METHOD_NAMES = { direct: "direct", heuristic: "heuristic", exact: "exact" } as const;
 
@@ -38,9 +39,10 @@ export function ResultBar() {
         <span class="chip ok" title="every state lights exactly its glyph (independent verifier)">
           ✓ verified
         </span>
+        <HelpTip term="verified" />
         <span class="muted">
-          {METHOD_NAMES[m()?.method ?? "direct"]} · {bound()} · direct {app.live()?.directCount} · {m()?.buses.length} bus · depth{" "}
-          {m()?.longestPath}/{m()?.depthLimit}
+          {METHOD_NAMES[m()?.method ?? "direct"]} · {bound()} <HelpTip term="boundGap" /> · direct {app.live()?.directCount}{" "}
+          <HelpTip term="direct" /> · {m()?.buses.length} bus · depth {m()?.longestPath}/{m()?.depthLimit}
         </span>
         <Show when={app.stale()}>
           <span class="chip stale" data-testid="stale">

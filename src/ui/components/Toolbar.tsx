@@ -11,6 +11,7 @@ import { downloadText, fileStem } from "../files/download.ts";
 import { exportFiles, type ExportKind } from "../files/exportFiles.ts";
 import { encodeShareHash } from "../state/shareLink.ts";
 import { EXAMPLES, type ShippedExample } from "../state/examples.ts";
+import { HelpPage } from "./HelpPage.tsx";
 
 import { PAPER_NAMES, type PaperName } from "../../render/drawingModel.ts";
 
@@ -38,6 +39,7 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
   };
   let recentMenu: HTMLDetailsElement | undefined;
   let newMenu: HTMLDetailsElement | undefined;
+  let helpPage: HTMLDialogElement | undefined;
   const pick = (ex: ShippedExample | null) => {
     if (newMenu) newMenu.open = false;
     void app.openExample(ex);
@@ -198,6 +200,10 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
         />{" "}
         exact optimizer
       </label>
+      <button type="button" onClick={() => helpPage?.showModal()} data-testid="help-open">
+        Help
+      </button>
+      <HelpPage ref={(el) => (helpPage = el)} />
     </header>
   );
 }
