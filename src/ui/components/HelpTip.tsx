@@ -2,7 +2,7 @@
  * Help in place: a small "?" beside a word the app uses. Pointing at it
  * shows the explanation as a tooltip; clicking it (or Enter or Space on it)
  * opens the explanation as a line below, for touch screens and screen
- * readers, and Escape closes it. The words come from helpText.ts.
+ * readers; Escape, or moving on, closes it. The words come from helpText.ts.
  */
 import { createSignal, createUniqueId, Show } from "solid-js";
 import { HELP, type HelpTerm } from "../helpText.ts";
@@ -26,6 +26,7 @@ export function HelpTip(props: { term: HelpTerm }) {
           e.preventDefault();
           setOpen(!open());
         }}
+        onBlur={() => setOpen(false)}
         onKeyDown={(e) => {
           if (e.key === "Escape" && open()) {
             e.stopPropagation();
