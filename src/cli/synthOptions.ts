@@ -109,13 +109,6 @@ export async function loadAndSynthesize(
     io.err(problem + "\n");
     return EXIT.input;
   }
-  if (project.counter.code !== "one-hot") {
-    io.err(
-      `counter.code is "${project.counter.code}": this command does not yet take a coded counter; ` +
-        "synth and compare decode it (the electrical model of its gates comes with a later version)\n",
-    );
-    return EXIT.input;
-  }
   return synthesizeProject(project, args, io);
 }
 

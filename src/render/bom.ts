@@ -66,6 +66,8 @@ export function partDescription(g: PartGroup, e: ElectricalModel, design: Segmen
       return "output line pull-down";
     case "tie-on-resistor":
       return `holds an always-lit segment on, from the logic supply (${e.logicSupply.volts} V)`;
+    case "gate-pull-up":
+      return `AND gate pull-up, from the logic supply (${e.logicSupply.volts} V) to the gate node, ${e.tolerance.resistorPct} %`;
     case "display":
       return `segment, ${e.segment.leds === 1 ? "one LED" : `${e.segment.leds} LEDs in series`}, ${milliampsExact(e.segment.targetA)} mA`;
   }

@@ -62,6 +62,8 @@ export function warningText(w: BudgetWarning): string {
       return `a segment carries up to ${milliampsText(w.currentA)}, over its ${milliampsText(w.ratedA)} rating`;
     case "line-current":
       return `counter line ${w.line} sources ${milliampsText(w.currentA)} in ${w.state}, more than the ${milliampsText(w.ratedA)} it may`;
+    case "line-sink":
+      return `counter line ${w.line} sinks ${milliampsText(w.currentA)} from the gate pull-ups it holds low in ${w.state}, more than the ${milliampsText(w.ratedA)} it may; a larger gatePullUp lowers it`;
     case "ghost-segment":
       return (
         `${w.output} is unlit in ${w.state} but carries ${microampsText(w.currentA)}, above ${microampsText(w.limitA)} (the ghost limit); ` +

@@ -6,7 +6,8 @@ import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import type { DiodeMatrix } from "../core/matrix/matrix.ts";
 import { refRanges } from "../core/papers/parts.ts";
 import type { Project } from "../core/project/project.ts";
-import { milliampsExact } from "./units.ts";
+import { designators } from "../core/matrix/designators.ts";
+import { formatOhms, milliampsExact } from "./units.ts";
 
 /**
  * The notes of a drawing.
@@ -31,7 +32,7 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
     notes.push(
       `Rows: the counter lines ${spec.states[0]}-${spec.states[spec.states.length - 1]}, each with the text it shows. Columns: output lines, grouped by display position; each ends at ${foot}.`,
     );
-  } else notes.push(...codedNotes(spec, matrix));
+  } else notes.push(...codedNotes(project, spec, matrix));
   if (matrix.buses.length > 0)
     notes.push(`Bus nodes ${matrix.buses.join(", ")}: the counter lines feed the bus column; the bus row feeds the outputs.`);
   const outputs = new Set(matrix.outputs);
@@ -53,9 +54,10 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
 }
 
 /** How to read a coded counter's decoder: the two planes, the gates, and the code of every state. */
-function codedNotes(spec: DecodeSpec, matrix: DiodeMatrix): string[] {
+function codedNotes(project: Project, spec: DecodeSpec, matrix: DiodeMatrix): string[] {
   const n = spec.counter.stages;
   const gates = matrix.gates.map((g) => g.ref);
+  const pullUps = designators(spec, matrix, project.electrical).gates.map((g) => g.pullUp.ref);
   const notes = [
     "Band = cathode = bar on the symbol. OR diodes: the anode takes the row (stage line, gate, bus or link line), the band the column it drives. AND-gate diodes (on a gate column): the anode takes the gate column, the band the stage line.",
     "Lines that cross without a dot are not joined; a dot marks a joint.",
@@ -63,7 +65,7 @@ function codedNotes(spec: DecodeSpec, matrix: DiodeMatrix): string[] {
   ];
   if (gates.length > 0) {
     notes.push(
-      `AND gates ${refRanges(gates)}: each gate's column is its node, pulled up from the top of the column and held low by a diode to each input line; the column turns into the gate's row, which feeds the outputs.`,
+      `AND gates ${refRanges(gates)}: each gate's column is its node, pulled up from the top of the column (${refRanges(pullUps)} in gate order, ${formatOhms(project.electrical.gatePullUp)} each, from the ${project.electrical.logicSupply.volts} V logic supply, net VLOGIC) and held low by a diode to each input line; the column turns into the gate's row, which feeds the outputs.`,
     );
   }
   const codes = spec.states.map((s, k) => `${s} ${spec.counter.codes[k]} "${spec.texts[k] ?? ""}"`);

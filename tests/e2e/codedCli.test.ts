@@ -77,14 +77,75 @@ describe("diodeloom synth on a coded counter", () => {
   });
 });
 
-describe("commands that need the electrical model of a coded decoder", () => {
-  it.each([["budget"], ["netlist", "--state", "3"], ["export", "--out", "never-written"]])(
-    "%s says it does not yet take a coded counter, exit 2",
-    async (command, ...rest) => {
-      const r = await run([command, BCD(), ...rest]);
-      expect(r.code).toBe(2);
-      expect(r.stderr).toMatch(/counter\.code is "binary": this command does not yet take a coded counter/);
-      expect(r.stdout).toBe("");
-    },
+/** The BCD decade as format 2 (the default preset: NPN low-side switches on 5 V). */
+const BCD2 = (): string => {
+  const dir = mkdtempSync(join(tmpdir(), "diodeloom-coded-"));
+  const file = join(dir, "decade.json");
+  writeFileSync(
+    file,
+    JSON.stringify({
+      schema: "diodeloom/project@2",
+      title: "Decade",
+      counter: { states: 10, code: "binary" },
+      display: {},
+      show: [..."0123456789"],
+    }),
   );
+  return file;
+};
+
+describe("the electrical papers of a coded decoder", () => {
+  it("budget --json: every stage line's source and sink, every gate's levels, no ghost and every lit segment on target", async () => {
+    const r = await run(["budget", BCD2(), "--json"]);
+    expect(r.stderr).toBe("");
+    expect(r.code).toBe(0);
+    const b = JSON.parse(r.stdout);
+    expect(Object.keys(b.counterLines)).toEqual(["Q0", "nQ0", "Q1", "nQ1", "Q2", "nQ2", "Q3", "nQ3"]);
+    expect(Object.keys(b.gates)).toHaveLength(7);
+    // Pull-ups R29-R35 follow the drivers' 28 resistors (7 series, 7 base, 7 base-emitter, 7 pull-downs).
+    expect(Object.values(b.gates).map((g) => (g as { pullUp: { ref: string } }).pullUp.ref)).toEqual([
+      "R29",
+      "R30",
+      "R31",
+      "R32",
+      "R33",
+      "R34",
+      "R35",
+    ]);
+    for (const g of Object.values(b.gates) as { lowMaxV: number; highMinV: number }[]) {
+      expect(g.lowMaxV).toBeLessThan(1);
+      expect(g.highMinV).toBeGreaterThan(1.5);
+    }
+    expect(Math.max(...Object.values(b.counterLines).map((c) => (c as { sinkCurrentA: number }).sinkCurrentA))).toBeGreaterThan(1e-3);
+    expect(b.warnings.filter((w: { level: string }) => w.level !== "info")).toEqual([]);
+    expect(b.corners.meetsTarget).toBe(true);
+  });
+
+  it("netlist: the stage lines as sources at the state's code, the gates' pull-ups from the logic supply", async () => {
+    const r = await run(["netlist", BCD2(), "--state", "3"]);
+    expect(r.stderr).toBe("");
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/^\* Code 0011 \(highest stage leftmost\): high stage lines Q0, Q1, nQ2, nQ3\.$/m);
+    expect(r.stdout).toMatch(/^VQ0 q0_v 0 DC 5$/m);
+    expect(r.stdout).toMatch(/^VnQ0 nq0_v 0 DC 0\.1$/m);
+    expect(r.stdout).toMatch(/^RnQ0 nq0_v nq0 20$/m);
+    expect(r.stdout).toMatch(/^R29 vlogic g1 4700$/m);
+    expect(r.stdout).toMatch(/^D1 g1 nq0 DMTX$/m);
+  });
+
+  it("export writes the BOM with the gates' pull-ups, the wiring list and one deck per state", async () => {
+    const out = join(mkdtempSync(join(tmpdir(), "diodeloom-coded-out-")), "papers");
+    const r = await run(["export", BCD2(), "--out", out]);
+    expect(r.code).toBe(0);
+    const { readFileSync, readdirSync } = await import("node:fs");
+    expect(readFileSync(join(out, "bom.csv"), "utf8")).toMatch(
+      /^7,R29-R35,4\.7k,"AND gate pull-up, from the logic supply \(5 V\) to the gate node, 5 %"$/m,
+    );
+    expect(readdirSync(join(out, "spice")).sort()).toEqual([..."0123456789"].map((k) => `S${k}.cir`).sort());
+    expect(
+      readFileSync(join(out, "wiring.csv"), "utf8")
+        .split("\n")
+        .filter((l) => /^\d+,D\d+,/.test(l)),
+    ).toHaveLength(40);
+  });
 });

@@ -26,6 +26,8 @@ import { budgetDesign, solveBudget } from "../../src/core/budget/budget.ts";
 import type { Budget } from "../../src/core/budget/budgetTypes.ts";
 import { clockProject, directDesign, sharedDieRoller, type Design } from "../support/budgetFixtures.ts";
 import { exampleFormat1, makeProject2, showing, showingWith } from "../support/projects.ts";
+import { exactSettings, specOf } from "../support/codedProjects.ts";
+import { synthesize } from "../../src/core/synth/synthesize.ts";
 
 const makeProjectOf = makeProject2;
 
@@ -233,5 +235,43 @@ describe("ngspice agrees with the DC solver", () => {
       );
       expect(worst.checks).toBeGreaterThan(d.spec.states.length * 10);
     });
+  }
+});
+
+/**
+ * A coded counter's decoder (issue 12): stage lines as Thevenin sources, AND
+ * gates with their pull-ups, OR diodes and a direct literal, then each driver
+ * kind. The BCD decade's minimum two-level decoder (40 diodes, 7 gates, one
+ * direct literal Q1 -> 1a) and a 5-stage Johnson decade, every state
+ * against ngspice within 0.5 %, as above (source: docs/sources.md "DC
+ * operating point").
+ */
+describe("ngspice agrees with the DC solver on coded counters' decoders", () => {
+  const coded = async (name: string, code: "binary" | "johnson", electrical: Record<string, unknown>): Promise<Design> => {
+    const project = makeProject2({ counter: { states: 10, code }, display: {}, show: [..."0123456789"], electrical });
+    const spec = specOf(project);
+    const m = await synthesize(spec, exactSettings());
+    if (!m.ok) throw new Error(`synthesis failed: ${JSON.stringify(m.error)}`);
+    return { name, project, spec, matrix: m.value };
+  };
+  const cases: [string, "binary" | "johnson", Record<string, unknown>][] = [
+    ["BCD decade, low-side switch", "binary", { preset: "bench-5v-switch" }],
+    ["BCD decade, 12 V sink", "binary", { preset: "panel-12v-sink" }],
+    ["BCD decade, emitter follower", "binary", { preset: "cathode-5v-follower" }],
+    ["BCD decade, direct drive", "binary", { preset: "line-direct" }],
+    ["Johnson-5 decade, low-side switch", "johnson", { preset: "bench-5v-switch" }],
+  ];
+  for (const [name, code, electrical] of cases) {
+    it(`every state of ${name} within 0.5 %`, async () => {
+      expect(ngspiceFound(), "ngspice not found: install the Debian package `ngspice`").toBe(true);
+      const d = await coded(name, code, electrical);
+      expect(d.matrix.gates.length).toBeGreaterThan(0);
+      const { worst } = checkDesign(d);
+      const kinds = [...worst.byKind].map(([k, r]) => `${k} ${(r * 100).toFixed(4)} %`).join(", ");
+      console.info(
+        `ngspice vs diodeloom, ${d.name}: ${worst.checks} values, worst ${(worst.rel * 100).toFixed(4)} % at ${worst.what}; by kind: ${kinds}`,
+      );
+      expect(worst.checks).toBeGreaterThan(d.spec.states.length * 10);
+    }, 60_000);
   }
 });

@@ -144,14 +144,44 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     L.push(`  largest reverse voltage ${volts(r.maxReverseV)} V across ${rRef} (${r.from} -> ${r.to}); rated ${volts(r.ratedReverseV)} V`);
     L.push("");
   }
-  L.push(`Counter lines (when active; each may source ${milliamps(e.counterOutput.maxCurrentA)} mA)`);
+  const coded = spec.counter.kind !== "one-hot";
+  L.push(
+    coded
+      ? `Stage lines (each may source or sink ${milliamps(e.counterOutput.maxCurrentA)} mA; sources = most while high, sinks = most while low)`
+      : `Counter lines (when active; each may source ${milliamps(e.counterOutput.maxCurrentA)} mA)`,
+  );
   L.push(
     ...table(
-      ["Line", "Sources mA", "Line V", "Sag V"],
-      Object.entries(b.counterLines).map(([l, c]) => [l, milliamps(c.sourceCurrentA, 3), volts(c.lineV), volts(c.sagV)]),
+      coded ? ["Line", "Sources mA", "Line V", "Sag V", "Sinks mA", "In"] : ["Line", "Sources mA", "Line V", "Sag V"],
+      Object.entries(b.counterLines).map(([l, c]) => [
+        l,
+        milliamps(c.sourceCurrentA, 3),
+        volts(c.lineV),
+        volts(c.sagV),
+        ...(coded ? [milliamps(c.sinkCurrentA, 3), c.sinkState ?? ""] : []),
+      ]),
     ),
   );
   L.push("");
+  const gates = Object.entries(b.gates);
+  if (gates.length > 0) {
+    L.push(`AND gates (low = highest node voltage while an input is low; high = lowest while every input is high)`);
+    L.push(
+      ...table(
+        ["Gate", "Inputs", "Pull-up", "Value", "Low max V", "High min V", "Pull-up max mA"],
+        gates.map(([g, x]) => [
+          g,
+          x.inputs.join("·"),
+          x.pullUp.ref,
+          formatOhms(x.pullUp.ohms),
+          x.lowMaxV === null ? "-" : volts(x.lowMaxV),
+          x.highMinV === null ? "-" : volts(x.highMinV),
+          milliamps(x.maxPullUpA, 3),
+        ]),
+      ),
+    );
+    L.push("");
+  }
   if (b.kind !== "direct") {
     const figure =
       b.kind === "low-side-switch"
@@ -182,7 +212,7 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
   if (b.kind !== "direct")
     L.push(`Segment supply: up to ${milliamps(b.supply.maxCurrentA)} mA, ${milliwatts(b.supply.maxPowerW)} mW at ${b.supply.volts} V`);
   L.push(
-    `Logic supply (counter lines and tie-on): up to ${milliamps(b.logic.maxCurrentA)} mA, ${milliwatts(b.logic.maxPowerW)} mW at ${b.logic.volts} V`,
+    `Logic supply (counter lines, tie-on${Object.keys(b.gates).length > 0 ? ", gate pull-ups" : ""}): up to ${milliamps(b.logic.maxCurrentA)} mA, ${milliwatts(b.logic.maxPowerW)} mW at ${b.logic.volts} V`,
   );
   L.push("");
   const which = b.trim.applied ? "trimmed design" : "design with the project's resistors";

@@ -10,12 +10,14 @@ import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
 import type { DriverStage } from "../circuit/circuit.ts";
 import { isLit, type StateSolution } from "../circuit/stateSweep.ts";
+import { highDrivers, highGates, highLines, orPlane } from "../circuit/counterLines.ts";
 import type {
   CornerBudget,
   CounterLineBudget,
   DiodeBudget,
   DriverBudget,
   DriverPoint,
+  GateBudget,
   OutputBudget,
   OutputInState,
   StageResistorBudget,
@@ -33,8 +35,15 @@ export function driverPoint(s: StateSolution, d: DriverStage): DriverPoint | nul
   return { vbeV: (v[d.baseNode] as number) - ve, vceV: (v[d.collectorNode] as number) - ve, icA: t.icA, ibA: t.ibA };
 }
 
-/** Per state: what the active line sources, what the supplies give, and every segment. */
-export function stateBudgets(spec: DecodeSpec, sols: readonly StateSolution[]): StateBudget[] {
+/** What the counter's high lines source together in one solved state (the active line of a one-hot counter), amperes. */
+function highLinesSourceA(matrix: VerifiedMatrix, s: StateSolution): number {
+  let sum = 0;
+  for (const l of highLines(matrix, s.circuit.stateIndex)) sum += s.op.currents[`V${l}`] as number;
+  return sum;
+}
+
+/** Per state: what the counter's high lines source, what the supplies give, and every segment. */
+export function stateBudgets(spec: DecodeSpec, matrix: VerifiedMatrix, sols: readonly StateSolution[]): StateBudget[] {
   return sols.map((s, k) => {
     const outputs: Record<string, OutputInState> = {};
     for (const d of s.circuit.drivers) {
@@ -48,7 +57,7 @@ export function stateBudgets(spec: DecodeSpec, sols: readonly StateSolution[]): 
     return {
       state: s.circuit.state,
       text: spec.texts[k] ?? "",
-      sourceCurrentA: s.op.currents[`V${s.circuit.state}`] as number,
+      sourceCurrentA: highLinesSourceA(matrix, s),
       supplyCurrentA: s.op.currents["VSUP"] ?? 0,
       logicCurrentA: s.op.currents["VLOGIC"] ?? 0,
       solver: { method: s.op.method, iterations: s.op.iterations },
@@ -57,10 +66,9 @@ export function stateBudgets(spec: DecodeSpec, sols: readonly StateSolution[]): 
   });
 }
 
-/** Every path length, in diodes, from a counter line to each line. */
+/** Every path length, in diodes, from a counter line or an AND gate to each line (a gate's input diodes are on no path). */
 function pathLengths(matrix: VerifiedMatrix): Map<string, Set<number>> {
-  const next = new Map<string, string[]>();
-  for (const d of matrix.diodes) next.set(d.from, [...(next.get(d.from) ?? []), d.to]);
+  const next = orPlane(matrix);
   const lengths = new Map<string, Set<number>>();
   const walk = (line: string, depth: number): void => {
     for (const t of next.get(line) ?? []) {
@@ -71,20 +79,20 @@ function pathLengths(matrix: VerifiedMatrix): Map<string, Set<number>> {
       walk(t, depth + 1);
     }
   };
-  for (const s of matrix.states) walk(s, 0);
+  for (const s of [...matrix.lines, ...matrix.gates.map((g) => g.ref)]) walk(s, 0);
   return lengths;
 }
 
 /**
- * The fewest diodes from the line of state `k` to each line it reaches:
- * the depth at which that state drives it.
+ * The fewest diodes from the nodes that drive the OR plane high in state
+ * `k` (the state's line, or a coded counter's high stage lines and gates)
+ * to each line they reach: the depth at which that state drives it.
  */
 export function depthsFrom(matrix: VerifiedMatrix, k: number): Map<string, number> {
-  const next = new Map<string, string[]>();
-  for (const d of matrix.diodes) next.set(d.from, [...(next.get(d.from) ?? []), d.to]);
-  const start = matrix.states[k] as string;
-  const depth = new Map<string, number>([[start, 0]]);
-  const queue = [start];
+  const next = orPlane(matrix);
+  const start = [...highDrivers(matrix, k)];
+  const depth = new Map<string, number>(start.map((s) => [s, 0]));
+  const queue = [...start];
   while (queue.length > 0) {
     const l = queue.shift() as string;
     for (const t of next.get(l) ?? []) {
@@ -155,14 +163,63 @@ export function diodeBudgets(project: Project, matrix: VerifiedMatrix, sols: rea
   return out;
 }
 
-/** Per counter line, when its state is active: what it sources and how far it sags. */
-export function counterBudgets(project: Project, sols: readonly StateSolution[]): Record<string, CounterLineBudget> {
+/**
+ * Per counter line (a one-hot counter's state line, a coded counter's stage
+ * line): the most it sources while high and how far it then sags, and the
+ * most it sinks while low (a coded counter's low line takes the pull-up
+ * current of every gate it holds low).
+ */
+export function counterBudgets(
+  project: Project,
+  matrix: VerifiedMatrix,
+  sols: readonly StateSolution[],
+): Record<string, CounterLineBudget> {
   const co = project.electrical.counterOutput;
   const out: Record<string, CounterLineBudget> = {};
-  for (const s of sols) {
-    const st = s.circuit.state;
-    const v = s.op.voltages[s.circuit.lineNodes[st] as string] as number;
-    out[st] = { sourceCurrentA: s.op.currents[`V${st}`] as number, lineV: v, sagV: co.high - v, ratedA: co.maxCurrentA };
+  for (const l of matrix.lines) {
+    let source: { a: number; v: number; state: string } | null = null;
+    let sink: { a: number; state: string } | null = null;
+    for (const s of sols) {
+      const a = s.op.currents[`V${l}`] as number;
+      const v = s.op.voltages[s.circuit.lineNodes[l] as string] as number;
+      if (highLines(matrix, s.circuit.stateIndex).has(l)) {
+        if (source === null || a > source.a) source = { a, v, state: s.circuit.state };
+      } else if (sink === null || -a > sink.a) sink = { a: -a, state: s.circuit.state };
+    }
+    out[l] = {
+      sourceCurrentA: source?.a ?? 0,
+      sourceState: source?.state ?? null,
+      lineV: source?.v ?? co.high,
+      sagV: source === null ? 0 : co.high - source.v,
+      sinkCurrentA: Math.max(0, sink?.a ?? 0),
+      sinkState: sink?.state ?? null,
+      ratedA: co.maxCurrentA,
+    };
+  }
+  return out;
+}
+
+/** Per AND gate of a coded counter's decoder: its node's levels over the used codes and its pull-up's largest current. */
+export function gateBudgets(matrix: VerifiedMatrix, sols: readonly StateSolution[]): Record<string, GateBudget> {
+  const out: Record<string, GateBudget> = {};
+  const pullUps = new Map<string, { ref: string; ohms: number }>();
+  for (const el of sols[0]?.circuit.elements ?? []) {
+    if (el.kind === "resistor" && el.role === "gate-pull-up") pullUps.set(el.b, { ref: el.name, ohms: el.ohms });
+  }
+  for (const g of matrix.gates) {
+    const node = sols[0]?.circuit.lineNodes[g.ref] as string;
+    const pullUp = pullUps.get(node);
+    if (pullUp === undefined) throw new Error(`bug: circuit lacks the pull-up of ${g.ref}`);
+    let lowMaxV: number | null = null;
+    let highMinV: number | null = null;
+    let maxPullUpA = 0;
+    for (const s of sols) {
+      const v = s.op.voltages[node] as number;
+      maxPullUpA = Math.max(maxPullUpA, s.op.currents[pullUp.ref] as number);
+      if (highGates(matrix, s.circuit.stateIndex).has(g.ref)) highMinV = highMinV === null ? v : Math.min(highMinV, v);
+      else lowMaxV = lowMaxV === null ? v : Math.max(lowMaxV, v);
+    }
+    out[g.ref] = { inputs: [...g.inputs], pullUp, lowMaxV, highMinV, maxPullUpA };
   }
   return out;
 }
@@ -182,15 +239,14 @@ export function segmentSupply(project: Project, sols: readonly StateSolution[]):
 }
 
 /**
- * The logic supply: the active counter line at its high level plus what the
- * tied-on outputs draw from the rail, in the worst state.
+ * The logic supply: the counter's high lines at their high level plus what
+ * the tied-on outputs and the gates' pull-ups draw from the rail, in the
+ * worst state.
  */
-export function logicSupply(project: Project, sols: readonly StateSolution[]): SupplyBudget {
+export function logicSupply(project: Project, matrix: VerifiedMatrix, sols: readonly StateSolution[]): SupplyBudget {
   const e = project.electrical;
-  const power = sols.map(
-    (s) => (s.op.currents[`V${s.circuit.state}`] as number) * e.counterOutput.high + (s.op.currents["VLOGIC"] ?? 0) * e.logicSupply.volts,
-  );
-  const current = sols.map((s) => (s.op.currents[`V${s.circuit.state}`] as number) + (s.op.currents["VLOGIC"] ?? 0));
+  const power = sols.map((s) => highLinesSourceA(matrix, s) * e.counterOutput.high + (s.op.currents["VLOGIC"] ?? 0) * e.logicSupply.volts);
+  const current = sols.map((s) => highLinesSourceA(matrix, s) + (s.op.currents["VLOGIC"] ?? 0));
   return { volts: e.logicSupply.volts, maxCurrentA: Math.max(0, ...current), maxPowerW: Math.max(0, ...power) };
 }
 

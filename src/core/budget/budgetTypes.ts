@@ -6,7 +6,9 @@
  * Format 3 (this one) follows the driver kinds: every output carries
  * `segmentA`, lit or not, and its driver's operating point; each kind adds
  * its own figures (a sink's and a follower's headroom, a switch's forced
- * beta at the weakest corner).
+ * beta at the weakest corner). A coded counter's decoder adds its stage
+ * lines (as `counterLines`, with what each sinks while low) and its AND
+ * gates (`gates`).
  */
 import type { CornerConditions } from "./corners.ts";
 import type { CurrentRange } from "./segmentTrim.ts";
@@ -53,10 +55,10 @@ export interface OutputInState {
 }
 
 export interface StateBudget {
-  /** The state's line, `S<k>`. */
+  /** The state, `S<k>`. */
   readonly state: string;
   readonly text: string;
-  /** Current the active counter line sources. */
+  /** Current the counter's high lines source together (the active line of a one-hot counter). */
   readonly sourceCurrentA: number;
   /** Current drawn from the segment supply (0 for direct drive). */
   readonly supplyCurrentA: number;
@@ -77,7 +79,7 @@ export interface OutputBudget extends CurrentRange {
   /** The states of `minA` and `maxA` (null when never lit). */
   readonly minState: string | null;
   readonly maxState: string | null;
-  /** Lengths, in diodes, of the paths from the counter lines to this output (empty when tied on). */
+  /** Lengths, in diodes, of the paths from the counter lines (and a coded counter's gates) to this output (empty when tied on). */
   readonly pathLengths: readonly number[];
   readonly tiedOn: boolean;
 }
@@ -93,15 +95,40 @@ export interface DiodeBudget {
   readonly ratedReverseV: number;
 }
 
+/**
+ * A counter line: a one-hot counter's state line (high in its own state),
+ * or a coded counter's stage line `Q<i>`/`nQ<i>` (high where the code sets
+ * it).
+ */
 export interface CounterLineBudget {
-  /** Current the line sources when its state is active. */
+  /** Largest current the line sources while high (0 when it is never high). */
   readonly sourceCurrentA: number;
-  /** Line voltage when active. */
+  /** The state of `sourceCurrentA`, or null when the line is never high. */
+  readonly sourceState: string | null;
+  /** Line voltage in that state. */
   readonly lineV: number;
-  /** How far the active line falls below its open-circuit `high`. */
+  /** How far the line then falls below its open-circuit `high`. */
   readonly sagV: number;
-  /** What the line may source (`counterOutput.maxCurrentA`). */
+  /** Largest current the line sinks while low: the gate pull-ups it holds low, leakage for a one-hot line. */
+  readonly sinkCurrentA: number;
+  /** The state of `sinkCurrentA`, or null when the line is never low. */
+  readonly sinkState: string | null;
+  /** What the line may source or sink (`counterOutput.maxCurrentA`). */
   readonly ratedA: number;
+}
+
+/** An AND gate of a coded counter's decoder over the used codes. */
+export interface GateBudget {
+  /** Its input lines. */
+  readonly inputs: readonly string[];
+  /** Its pull-up, as the design has it. */
+  readonly pullUp: { readonly ref: string; readonly ohms: number };
+  /** Highest gate-node voltage in a state that holds it low (one input low), or null when no used code does. */
+  readonly lowMaxV: number | null;
+  /** Lowest gate-node voltage in a state where every input is high, or null when no used code makes it high. */
+  readonly highMinV: number | null;
+  /** Largest current through its pull-up. */
+  readonly maxPullUpA: number;
 }
 
 /** One resistor of a stage as the design has it. */
@@ -261,6 +288,14 @@ export type BudgetWarning =
     }
   | {
       readonly level: "warn";
+      readonly code: "line-sink";
+      readonly line: string;
+      readonly state: string;
+      readonly currentA: number;
+      readonly ratedA: number;
+    }
+  | {
+      readonly level: "warn";
       readonly code: "ghost-segment";
       readonly output: string;
       readonly state: string;
@@ -351,11 +386,13 @@ export interface Budget {
   readonly spreadPct: number;
   readonly diodes: Readonly<Record<string, DiodeBudget>>;
   readonly counterLines: Readonly<Record<string, CounterLineBudget>>;
+  /** A coded counter's AND gates, keyed by gate (`G1`); empty for a one-hot counter. */
+  readonly gates: Readonly<Record<string, GateBudget>>;
   /** One per driven output, keyed by output. */
   readonly drivers: Readonly<Record<string, DriverBudget>>;
   /** The segment supply (unused by direct drive). */
   readonly supply: SupplyBudget;
-  /** The logic supply as the counter lines and the tied-on outputs draw on it (the lines at their high level). */
+  /** The logic supply as the counter lines, the tied-on outputs and the gates' pull-ups draw on it (the lines at their high level). */
   readonly logic: SupplyBudget;
   readonly trim: TrimBudget;
   readonly corners: {

@@ -96,7 +96,9 @@ export function budgetWarnings(
   if (maxA > e.segment.maxA) w.push({ level: "warn", code: "segment-current", currentA: maxA, ratedA: e.segment.maxA });
   for (const [line, c] of Object.entries(b.counterLines)) {
     if (c.sourceCurrentA > c.ratedA)
-      w.push({ level: "warn", code: "line-current", line, state: line, currentA: c.sourceCurrentA, ratedA: c.ratedA });
+      w.push({ level: "warn", code: "line-current", line, state: c.sourceState ?? line, currentA: c.sourceCurrentA, ratedA: c.ratedA });
+    if (c.sinkCurrentA > c.ratedA)
+      w.push({ level: "warn", code: "line-sink", line, state: c.sinkState ?? line, currentA: c.sinkCurrentA, ratedA: c.ratedA });
   }
   const targetA = e.segment.targetA;
   const limitA = e.ghostFraction * targetA;

@@ -84,7 +84,7 @@ export interface CornerConditions {
 /**
  * The two corners. `low` has everything that lowers a segment current: the
  * lowest supply, the emitter, series, base and counter resistances at
- * +tolerance, pull-downs and base-emitter resistors at -tolerance (more
+ * +tolerance (and a coded counter's gate pull-ups), pull-downs and base-emitter resistors at -tolerance (more
  * current away from the base, a bigger drop), the lowest beta (the weakest
  * switch) and the lowest temperature (higher junction drops). `high` is the
  * mirror image.
@@ -139,6 +139,8 @@ export function cornerModel(
     counterOutput: { ...e.counterOutput, resistance: e.counterOutput.resistance * c.counterFactor },
     diode: { ...e.diode, is: siliconSaturationCurrent({ isA: e.diode.is, n: e.diode.n, fromC: t0 }, c.temperatureC) },
     pullDown: e.pullDown * c.shuntFactor,
+    // A gate's pull-up drives its outputs like a counter line's source resistance.
+    gatePullUp: e.gatePullUp * c.counterFactor,
     driver: {
       ...e.driver,
       is: siliconSaturationCurrent({ isA: e.driver.is, n: 1, fromC: t0 }, c.temperatureC),

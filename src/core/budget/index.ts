@@ -8,6 +8,7 @@ export type {
   BudgetWarningCode,
   CornerBudget,
   CounterLineBudget,
+  GateBudget,
   DiodeBudget,
   DriverBudget,
   DriverPoint,

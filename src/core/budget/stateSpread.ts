@@ -4,7 +4,8 @@
  * vary, from the solved states.
  *
  * The output line's voltage differs between the dimmest and the brightest
- * state by the active line's sag (its source resistance shared by the
+ * state by the active line's sag (for a coded counter, the level of the
+ * high line or gate that drives it) (its source resistance shared by the
  * segments lit together) plus the drop along the path (one diode more when
  * the dimmest state reaches it through two); a switch that leaves
  * saturation passes that difference on to its segment.
@@ -14,6 +15,7 @@ import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DriverKind } from "../project/project.ts";
 import { isLit, type StateSolution } from "../circuit/stateSweep.ts";
 import { depthsFrom, driverPoint } from "./budgetFigures.ts";
+import { highDrivers, orPlane } from "../circuit/counterLines.ts";
 import type { BudgetWarning, OutputBudget, SpreadCause } from "./budgetTypes.ts";
 import { OUTPUT_SPREAD_PCT } from "./segmentDesign.ts";
 
@@ -48,7 +50,7 @@ export function stateSpreads(input: {
     const sMax = solutions[kMax] as StateSolution;
     const stage = sMin.circuit.drivers.find((d) => d.output === o);
     if (!stage) continue;
-    const lineV = (s: StateSolution): number => s.op.voltages[s.circuit.lineNodes[s.circuit.state] as string] as number;
+    const lineV = (s: StateSolution): number => drivingLineV(matrix, s, o);
     const inputV = (s: StateSolution): number => s.op.voltages[stage.inputNode] as number;
     const sagDeltaV = lineV(sMax) - lineV(sMin);
     const inputDeltaV = inputV(sMax) - inputV(sMin);
@@ -79,4 +81,32 @@ export function stateSpreads(input: {
     });
   }
   return out;
+}
+
+/**
+ * The voltage of the node that drives output `o` in a solved state: the
+ * active line of a one-hot counter; for a coded counter the highest of the
+ * high stage lines and gates with a path to `o`.
+ */
+function drivingLineV(matrix: VerifiedMatrix, s: StateSolution, o: string): number {
+  const next = orPlane(matrix);
+  const reaches = (from: string): boolean => {
+    const seen = new Set([from]);
+    const stack = [from];
+    while (stack.length > 0) {
+      for (const t of next.get(stack.pop() as string) ?? []) {
+        if (t === o) return true;
+        if (!seen.has(t)) {
+          seen.add(t);
+          stack.push(t);
+        }
+      }
+    }
+    return false;
+  };
+  let best = -Infinity;
+  for (const d of highDrivers(matrix, s.circuit.stateIndex)) {
+    if (reaches(d)) best = Math.max(best, s.op.voltages[s.circuit.lineNodes[d] as string] as number);
+  }
+  return best;
 }

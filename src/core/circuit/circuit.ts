@@ -3,9 +3,15 @@
  * netlist per active state, as plain data.
  *
  * The circuit (source drive), as docs/electrical-model.md describes it:
- * - counter line Sk: a Thevenin source, `counterOutput.high` volts when k is
- *   the active state and `counterOutput.low` otherwise, behind
- *   `counterOutput.resistance` ohms;
+ * - counter line Sk: a Thevenin source, `counterOutput.high` volts behind
+ *   `counterOutput.resistance` ohms when k is the active state, else
+ *   `counterOutput.low` volts behind `counterOutput.lowResistance` ohms;
+ * - a coded counter's stage lines `Q<i>` and `nQ<i>` instead: the same
+ *   sources, high where the state's code makes the line high
+ *   (counterLines.ts), and every AND gate node `G<j>` pulled up from the
+ *   logic supply through `gatePullUp` ohms, its input diodes (anode at the
+ *   gate, cathode at the stage line) and its OR diodes among the matrix
+ *   diodes;
  * - matrix diodes anode = `from`, cathode = `to`, Shockley with `diode.is`,
  *   `diode.n` and series `diode.rs`;
  * - every driven output line: `pullDown` ohms to ground, then the driver
@@ -16,8 +22,8 @@
  *   `counterOutput.resistance` ohms;
  * - never-lit outputs have no driver and are left out.
  *
- * Node names are SPICE-safe and lower case: counter line `s0`, its source
- * `s0_v`, bus `b1`, output line `o1a`; a stage's own nodes carry the output
+ * Node names are SPICE-safe and lower case: counter line `s0` (stage lines
+ * `q0`, `nq0`), its source `s0_v`, gate `g1`, bus `b1`, output line `o1a`; a stage's own nodes carry the output
  * (`b1a` base, `e1a` emitter, `c1a` collector, `k1a` and `a1a` the
  * segment's cathode and anode pins where a resistor sits between); the
  * segment supply `vsup`, the logic supply `vlogic`; ground is `0`. Element
@@ -31,6 +37,7 @@ import type { ElectricalModel } from "../project/project.ts";
 import { designators, type DriverParts, type PartResistorRole } from "../matrix/designators.ts";
 import { GROUND, LOGIC_NODE, SUPPLY_NODE } from "./circuitNodes.ts";
 import { driverStage, type StageNodes } from "./driverStage.ts";
+import { highDrivers, highLines, orPlane } from "./counterLines.ts";
 
 export { GROUND, LOGIC_NODE, SUPPLY_NODE } from "./circuitNodes.ts";
 
@@ -114,23 +121,24 @@ export interface Circuit {
   readonly temperatureC: number;
   /**
    * Every node except ground, in the order the solver eliminates them best:
-   * counter lines, sources, supplies, the stages' own nodes, buses, output lines.
+   * counter lines, sources, supplies, the stages' own nodes, gates, buses, output lines.
    */
   readonly nodes: readonly string[];
   readonly elements: readonly CircuitElement[];
   readonly drivers: readonly DriverStage[];
-  /** Circuit node of each matrix line (state, bus or output name). */
+  /** Circuit node of each matrix line (state or stage line, gate, bus or output name). */
   readonly lineNodes: Readonly<Record<string, string>>;
   /**
-   * A starting point for the solver, volts per node: lines the active state
-   * reaches sit half a volt lower per diode, each stage's nodes where a lit
+   * A starting point for the solver, volts per node: lines the state's high
+   * lines and gates reach sit half a volt lower per diode, a low gate a
+   * diode drop above the low level, each stage's nodes where a lit
    * (or dark) stage of its kind puts them at the target current. Only a
    * guess; the solver finds the real values.
    */
   readonly guess: Readonly<Record<string, number>>;
 }
 
-/** Node of a matrix line: `S3` -> `s3`, `B1` -> `b1`, output `1a` -> `o1a`. */
+/** Node of a matrix line: `S3` -> `s3`, `nQ2` -> `nq2`, `G1` -> `g1`, `B1` -> `b1`, output `1a` -> `o1a`. */
 export function lineNode(line: string, outputs: ReadonlySet<string>): string {
   return outputs.has(line) ? `o${line}` : line.toLowerCase();
 }
@@ -160,18 +168,22 @@ export function buildCircuit(
   const co = model.counterOutput;
   const elements: CircuitElement[] = [];
   const lineNodes: Record<string, string> = {};
-  for (const l of [...matrix.states, ...matrix.buses, ...matrix.outputs]) lineNodes[l] = lineNode(l, outputs);
+  for (const l of [...matrix.lines, ...matrix.buses, ...matrix.outputs]) lineNodes[l] = lineNode(l, outputs);
 
+  for (const g of matrix.gates) lineNodes[g.ref] = lineNode(g.ref, outputs);
+
+  const high = highLines(matrix, stateIndex);
   const lineOrder: string[] = [];
   const sourceOrder: string[] = [];
-  matrix.states.forEach((s, k) => {
-    const node = lineNode(s, outputs);
+  for (const l of matrix.lines) {
+    const node = lineNode(l, outputs);
     const src = `${node}_v`;
     lineOrder.push(node);
     sourceOrder.push(src);
-    elements.push({ kind: "vsource", name: `V${s}`, node: src, volts: k === stateIndex ? co.high : co.low });
-    elements.push({ kind: "resistor", name: `R${s}`, role: "counter", a: src, b: node, ohms: co.resistance });
-  });
+    elements.push({ kind: "vsource", name: `V${l}`, node: src, volts: high.has(l) ? co.high : co.low });
+    const ohms = high.has(l) ? co.resistance : co.lowResistance;
+    elements.push({ kind: "resistor", name: `R${l}`, role: "counter", a: src, b: node, ohms });
+  }
 
   for (const d of matrix.diodes) {
     elements.push({
@@ -188,7 +200,18 @@ export function buildCircuit(
   const stage = driverStage(model.driver.kind);
   const usesSupply = parts.drivers.length > 0 && stage.usesSupply;
   if (usesSupply) elements.push({ kind: "vsource", name: "VSUP", node: SUPPLY_NODE, volts: model.supply.volts });
-  if (tiedCount > 0) elements.push({ kind: "vsource", name: "VLOGIC", node: LOGIC_NODE, volts: model.logicSupply.volts });
+  const usesLogic = tiedCount > 0 || parts.gates.length > 0;
+  if (usesLogic) elements.push({ kind: "vsource", name: "VLOGIC", node: LOGIC_NODE, volts: model.logicSupply.volts });
+  for (const g of parts.gates) {
+    elements.push({
+      kind: "resistor",
+      name: g.pullUp.ref,
+      role: "gate-pull-up",
+      a: LOGIC_NODE,
+      b: lineNode(g.gate, outputs),
+      ohms: g.pullUp.ohms,
+    });
+  }
   const drivers: DriverStage[] = [];
   const stageNodes: string[] = [];
   for (const p of parts.drivers) {
@@ -204,9 +227,10 @@ export function buildCircuit(
 
   const nodes = [
     ...lineOrder,
+    ...matrix.gates.map((g) => lineNode(g.ref, outputs)),
     ...sourceOrder,
     ...(usesSupply ? [SUPPLY_NODE] : []),
-    ...(tiedCount > 0 ? [LOGIC_NODE] : []),
+    ...(usesLogic ? [LOGIC_NODE] : []),
     ...stageNodes,
     ...matrix.buses.map((b) => lineNode(b, outputs)),
     ...drivers.map((d) => d.inputNode),
@@ -232,16 +256,12 @@ function startingGuess(
 ): Record<string, number> {
   const co = model.counterOutput;
   const guess: Record<string, number> = { [GROUND]: 0, [SUPPLY_NODE]: model.supply.volts, [LOGIC_NODE]: model.logicSupply.volts };
+  const high = highLines(matrix, stateIndex);
+  const start = highDrivers(matrix, stateIndex);
   const depth = new Map<string, number>();
-  const active = matrix.states[stateIndex] as string;
-  depth.set(active, 0);
-  const next = new Map<string, string[]>();
-  for (const d of matrix.diodes) {
-    const list = next.get(d.from);
-    if (list) list.push(d.to);
-    else next.set(d.from, [d.to]);
-  }
-  const queue = [active];
+  for (const d of start) depth.set(d, 0);
+  const next = orPlane(matrix);
+  const queue = [...start];
   while (queue.length > 0) {
     const l = queue.shift() as string;
     for (const t of next.get(l) ?? []) {
@@ -251,10 +271,12 @@ function startingGuess(
       }
     }
   }
-  matrix.states.forEach((s, k) => (guess[`${lineNodes[s]}_v`] = k === stateIndex ? co.high : co.low));
+  for (const l of matrix.lines) guess[`${lineNodes[l]}_v`] = high.has(l) ? co.high : co.low;
+  // A gate held low sits a diode drop above its low input.
+  const gates = new Set(matrix.gates.map((g) => g.ref));
   for (const [line, node] of Object.entries(lineNodes)) {
     const d = depth.get(line);
-    guess[node] = d === undefined ? co.low : co.high - 0.5 * d;
+    guess[node] = d !== undefined ? co.high - 0.5 * d : gates.has(line) ? co.low + 0.6 : co.low;
   }
   const stage = driverStage(model.driver.kind);
   for (const dr of drivers) {

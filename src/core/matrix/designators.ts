@@ -16,11 +16,14 @@
  * - then, continuing the R numbers, block by block in output order: base
  *   resistors, base-emitter resistors, a sink's collector resistors, the
  *   pull-downs of the matrix-driven outputs, the tie-on resistors, and the
- *   pull-downs of the tied-on outputs.
+ *   pull-downs of the tied-on outputs;
+ * - last, continuing the R numbers, the pull-up of every AND gate of a coded
+ *   counter's decoder, in gate order (`G1` first).
  *
  * Values: the resistor that sets the current takes the design's value (a
  * trim, when one is applied), else the project's per-output override, else
- * its default; the others come from the electrical model. A tie-on resistor
+ * its default; the others come from the electrical model (a gate's pull-up
+ * is `gatePullUp`). A tie-on resistor
  * equals the counter's source resistance and hangs from the logic supply,
  * so a tied-on output's input sits where a lit one's sits.
  */
@@ -28,7 +31,7 @@ import type { Diode, DiodeMatrix } from "./matrix.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DriverKind, ElectricalModel } from "../project/project.ts";
 
-export type PartResistorRole = "emitter" | "series" | "base" | "base-emitter" | "pull-down" | "tie-on";
+export type PartResistorRole = "emitter" | "series" | "base" | "base-emitter" | "pull-down" | "tie-on" | "gate-pull-up";
 
 /** The resistor that sets a segment's current for each kind: its emitter resistor for a sink, its series resistor otherwise. */
 export type CurrentResistorRole = "emitter" | "series";
@@ -66,8 +69,16 @@ export interface DriverParts {
 }
 
 export interface ResistorPart extends StageResistor {
-  /** The output whose driver stage it belongs to. */
+  /** The output whose driver stage it belongs to, or the AND gate (`G1`) a gate pull-up pulls up. */
   readonly output: string;
+}
+
+/** An AND gate of a coded counter's decoder and the pull-up on its node. */
+export interface GateParts {
+  /** The gate, `G1`.. (its node). */
+  readonly gate: string;
+  /** From the logic supply to the gate node, `gatePullUp` ohms. */
+  readonly pullUp: StageResistor;
 }
 
 export interface Designators {
@@ -75,6 +86,8 @@ export interface Designators {
   readonly diodes: readonly Diode[];
   /** One entry per driven or tied-on output, in display order. */
   readonly drivers: readonly DriverParts[];
+  /** The AND gates of a coded counter's decoder with their pull-ups, in gate order; empty for a one-hot counter. */
+  readonly gates: readonly GateParts[];
   /** Every resistor of the build, in R-number order. */
   readonly resistors: readonly ResistorPart[];
 }
@@ -152,6 +165,10 @@ export function designators(
   const pullDowns = block(matrixDriven, () => model.pullDown, "pull-down");
   const tieOns = block(tiedOn, () => model.counterOutput.resistance, "tie-on");
   for (const [o, p] of block(tiedOn, () => model.pullDown, "pull-down")) pullDowns.set(o, p);
+  const gates = matrix.gates.map((g): GateParts => ({
+    gate: g.ref,
+    pullUp: { ref: `R${++r}`, role: "gate-pull-up", ohms: model.gatePullUp },
+  }));
 
   const drivers = driven.map((o, i): DriverParts => {
     const pullDown = pullDowns.get(o);
@@ -179,8 +196,9 @@ export function designators(
       if (x !== null) resistors.push({ ...x, output: d.output });
     }
   }
+  for (const g of gates) resistors.push({ ...g.pullUp, output: g.gate });
   resistors.sort((a, b) => refNumber(a.ref) - refNumber(b.ref));
-  return { diodes: matrix.diodes, drivers, resistors };
+  return { diodes: matrix.diodes, drivers, gates, resistors };
 }
 
 function refNumber(ref: string): number {

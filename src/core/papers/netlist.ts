@@ -5,6 +5,7 @@
  * each LED's series resistance in its model card.
  */
 import { buildCircuit, type Circuit } from "../circuit/circuit.ts";
+import { highLines } from "../circuit/counterLines.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
@@ -102,5 +103,8 @@ export function spiceNetlist(
   design: SegmentDesign,
 ): string {
   const circuit = buildCircuit(spec, matrix, project.electrical, stateIndex, design.ohms);
-  return circuitNetlist(circuit, project.title, [designNote(design)]);
+  const code = matrix.codes[stateIndex];
+  const codeNote =
+    code === undefined ? [] : [`Code ${code} (highest stage leftmost): high stage lines ${[...highLines(matrix, stateIndex)].join(", ")}.`];
+  return circuitNetlist(circuit, project.title, [...codeNote, designNote(design)]);
 }

@@ -15,13 +15,14 @@ export type PartKind =
   | "base-emitter-resistor"
   | "pull-down"
   | "tie-on-resistor"
+  | "gate-pull-up"
   | "display";
 
 export interface PartGroup {
   readonly kind: PartKind;
   /** Designators, in order (`D1`, `D2`, ...). */
   readonly refs: readonly string[];
-  /** The lines the parts serve, parallel to refs (the diode's driven line, else the output). */
+  /** The lines the parts serve, parallel to refs (the diode's driven line, a gate pull-up's gate, else the output). */
   readonly serves: readonly string[];
   /** Resistance of every part in the group, ohms; null for parts other than resistors. */
   readonly ohms: number | null;
@@ -30,7 +31,8 @@ export interface PartGroup {
 /**
  * Groups the parts: matrix diodes; drivers (none for direct drive); then
  * the resistors role by role, one group per value, lowest first: emitter,
- * series, base, base-emitter, pull-downs, tie-on; then the segments. Every
+ * series, base, base-emitter, pull-downs, tie-on, a coded counter's gate
+ * pull-ups; then the segments. Every
  * driven or tied-on output has the parts of its driver kind, a pull-down on
  * its line and a segment; a tied-on output also a tie-on resistor.
  *
@@ -69,6 +71,7 @@ export function countParts(parts: Designators): PartGroup[] {
   resistors("base-emitter", "base-emitter-resistor");
   resistors("pull-down", "pull-down");
   resistors("tie-on", "tie-on-resistor");
+  resistors("gate-pull-up", "gate-pull-up");
   if (drivers.length > 0) {
     groups.push({ kind: "display", refs: drivers.map((d: DriverParts) => d.display), serves: drivers.map((d) => d.output), ohms: null });
   }

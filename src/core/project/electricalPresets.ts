@@ -30,9 +30,18 @@ const RAIL_5V = { volts: 5, minVolts: 4.75, maxVolts: 5.25 } as const;
  * A counter stage built from discrete transistors on a 5 V rail: its active
  * line is the rail through the stage's 470 Ω collector load, an idle line
  * the saturated transistor's 0.1 V. It may source half its short-circuit
- * current (5 mA), so that it still reads high to the next stage.
+ * current (5 mA), so that it still reads high to the next stage. Its idle
+ * line sits behind the saturated transistor's few tens of ohms (20 Ω, a
+ * small-signal NPN's Vce(sat) over its collector current, common practice).
  */
-const DISCRETE_COUNTER = { high: 5, low: 0.1, resistance: 470, maxCurrentA: 0.005 } as const;
+const DISCRETE_COUNTER = { high: 5, low: 0.1, resistance: 470, lowResistance: 20, maxCurrentA: 0.005 } as const;
+/**
+ * Pull-up of every AND gate node of a coded counter's decoder, ohms (a value
+ * of diodeloom from common practice): high enough that a counter line held
+ * low by a few gates stays low, low enough that a gate whose inputs are all
+ * high still gives its drivers their base current.
+ */
+const GATE_PULL_UP = 4700;
 const TOLERANCE = { resistorPct: 5, betaMin: 100, betaMax: 300, temperatureC: [0, 50] as const } as const;
 
 const base = {
@@ -42,6 +51,7 @@ const base = {
   logicSupply: { volts: 5 },
   diode: MATRIX_DIODE,
   pullDown: 47_000,
+  gatePullUp: GATE_PULL_UP,
   tolerance: TOLERANCE,
 } as const;
 
@@ -98,7 +108,7 @@ export const ELECTRICAL_PRESETS: Readonly<Record<PresetName, ElectricalModel>> =
     preset: "line-direct",
     pullDown: 100_000,
     // A stage with an emitter-follower output, stiff enough to light segments itself.
-    counterOutput: { high: 5, low: 0.1, resistance: 22, maxCurrentA: 0.025 },
+    counterOutput: { high: 5, low: 0.1, resistance: 22, lowResistance: 20, maxCurrentA: 0.025 },
     driver: {
       ...SMALL_NPN,
       kind: "direct",
@@ -159,10 +169,11 @@ export const FORMAT1_ELECTRICAL: ElectricalModel = {
   preset: null,
   temperatureC: 27,
   ghostFraction: 0.01,
-  counterOutput: { high: 2.4, low: 0, resistance: 1000, maxCurrentA: 0.0004 },
+  counterOutput: { high: 2.4, low: 0, resistance: 1000, lowResistance: 1000, maxCurrentA: 0.0004 },
   logicSupply: { volts: 2.4 },
   diode: MATRIX_DIODE,
   pullDown: 100_000,
+  gatePullUp: GATE_PULL_UP,
   driver: {
     kind: "current-sink",
     is: 1e-14,

@@ -52,6 +52,7 @@ export const ELECTRICAL_RANGES = rangeTable({
   "counterOutput.high": { min: -100, max: 100, unit: "V" },
   "counterOutput.low": { min: -100, max: 100, unit: "V" },
   "counterOutput.resistance": resistor,
+  "counterOutput.lowResistance": resistor,
   "counterOutput.maxCurrentA": current,
   "logicSupply.volts": { min: 1, max: 100, unit: "V" },
   "diode.is": { min: 1e-18, max: 1e-3, unit: "A" },
@@ -60,6 +61,7 @@ export const ELECTRICAL_RANGES = rangeTable({
   "diode.maxForwardA": { min: 1e-6, max: 100, unit: "A" },
   "diode.maxReverseV": { min: 1, max: 10_000, unit: "V" },
   pullDown: { min: 10, max: 100e6, unit: "Ω" },
+  gatePullUp: { min: 100, max: 10e6, unit: "Ω" },
   "driver.is": { min: 1e-20, max: 1e-6, unit: "A" },
   "driver.betaF": beta,
   "driver.betaR": { min: 0.01, max: 1000 },
@@ -134,12 +136,14 @@ export const ElectricalSectionSchema = objectField({
       high: opt(n(R["counterOutput.high"])),
       low: opt(n(R["counterOutput.low"])),
       resistance: opt(n(R["counterOutput.resistance"])),
+      lowResistance: opt(n(R["counterOutput.lowResistance"])),
       maxCurrentA: opt(n(R["counterOutput.maxCurrentA"])),
     }),
   ),
   logicSupply: opt(objectField({ volts: opt(n(R["logicSupply.volts"])) })),
   diode: shared.diode,
   pullDown: shared.pullDown,
+  gatePullUp: opt(n(R.gatePullUp)),
   driver: opt(
     objectField({
       kind: opt(choiceField(DRIVER_KINDS)),
@@ -222,6 +226,7 @@ function merged(base: ElectricalModel, given: LooseElectrical, preset: PresetNam
     logicSupply: { ...base.logicSupply, ...g.logicSupply },
     diode: { ...base.diode, ...g.diode },
     pullDown: g.pullDown ?? base.pullDown,
+    gatePullUp: g.gatePullUp ?? base.gatePullUp,
     driver: { ...base.driver, ...g.driver } as ElectricalModel["driver"],
     segment: { ...base.segment, ...g.segment } as ElectricalModel["segment"],
     supply: { ...base.supply, ...g.supply },
@@ -285,7 +290,11 @@ export function electricalOfV1(given: LooseElectricalV1): ElectricalModel {
     {
       ...(given.temperatureC !== undefined ? { temperatureC: given.temperatureC } : {}),
       ...(given.pullDown !== undefined ? { pullDown: given.pullDown } : {}),
-      counterOutput: given.counterOutput ?? {},
+      // Format 1 had one source resistance for both levels.
+      counterOutput: {
+        ...given.counterOutput,
+        ...(given.counterOutput?.resistance !== undefined ? { lowResistance: given.counterOutput.resistance } : {}),
+      },
       diode: given.diode ?? {},
       driver: given.driver ?? {},
       segment,

@@ -100,9 +100,16 @@ export interface CounterOutputModel {
   readonly high: number;
   /** Open-circuit voltage of an idle line, volts. */
   readonly low: number;
-  /** Series resistance, ohms. */
+  /** Series resistance of a high (active) line, ohms. */
   readonly resistance: number;
-  /** Most current one line may source, amperes; more is a warning naming the line. */
+  /**
+   * Series resistance of a low (idle) line, ohms: a discrete stage pulls its
+   * line low through a saturated transistor, far stiffer than the collector
+   * load it pulls high through. It matters where a low line sinks current,
+   * as a coded counter's stage lines do from the gates they hold low.
+   */
+  readonly lowResistance: number;
+  /** Most current one line may source (or, low, sink), amperes; more is a warning naming the line. */
   readonly maxCurrentA: number;
 }
 
@@ -227,6 +234,12 @@ export interface ElectricalModel {
   readonly diode: DiodeModel;
   /** Pull-down from every output line to ground, ohms. */
   readonly pullDown: number;
+  /**
+   * Pull-up from the logic supply to every AND gate node of a coded
+   * counter's decoder, ohms: what a gate whose inputs are all high drives
+   * its outputs through, and what each low input line sinks from it.
+   */
+  readonly gatePullUp: number;
   readonly driver: DriverModel;
   readonly segment: SegmentModel;
   readonly supply: SupplyModel;

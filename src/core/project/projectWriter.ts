@@ -59,10 +59,11 @@ export function electricalFields(e: ElectricalModel): ElectricalModel {
     preset: e.preset,
     temperatureC: e.temperatureC,
     ghostFraction: e.ghostFraction,
-    counterOutput: { high: co.high, low: co.low, resistance: co.resistance, maxCurrentA: co.maxCurrentA },
+    counterOutput: { high: co.high, low: co.low, resistance: co.resistance, lowResistance: co.lowResistance, maxCurrentA: co.maxCurrentA },
     logicSupply: { volts: ls.volts },
     diode: { is: d.is, n: d.n, rs: d.rs, maxForwardA: d.maxForwardA, maxReverseV: d.maxReverseV },
     pullDown: e.pullDown,
+    gatePullUp: e.gatePullUp,
     driver: {
       kind: dr.kind,
       is: dr.is,

@@ -56,10 +56,5 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
       result: ok(layoutMatrix(project, spec, checked.value, drawingOptions(project, req.drawing))),
     });
   }
-  if (spec.counter.kind !== "one-hot") {
-    // The electrical model of a coded counter's gates comes with a later version.
-    const result = fail({ kind: "rejected" as const, message: "the budget does not yet take a coded counter's decoder" });
-    return post({ id: req.id, job: "budget", result } as AnalysisReply);
-  }
   post({ id: req.id, job: "budget", result: solveBudget(project, spec, checked.value, { trim: req.trim }) });
 };
