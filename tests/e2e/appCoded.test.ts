@@ -43,5 +43,8 @@ describe("the web app with a coded counter", () => {
     // The drawing has the AND gates.
     // (SVG text keeps its spaces as no-break spaces.)
     expect(await page.getByTestId("matrix-drawing").textContent()).toMatch(/AND\sgates/);
+    // The budget solves the decoder as built: a current-setting resistor per segment, the chart of every state.
+    await expect.poll(() => page.getByTestId("emitter-table").locator("tr[data-testid^='emitter-R']").count(), { timeout: 60_000 }).toBe(7);
+    expect(await page.getByTestId("budget-chart").count()).toBe(1);
   }, 120_000);
 });
