@@ -25,6 +25,8 @@ import type { Project } from "../../src/core/project/project.ts";
 import { verifyMatrix } from "../../src/core/matrix/verify.ts";
 import type { DriverKind } from "../../src/core/project/project.ts";
 import { makeProject2 } from "../support/projects.ts";
+import { codedDecoder } from "../support/codedProjects.ts";
+import { serializeProject } from "../../src/core/project/projectWriter.ts";
 
 const SEED = 4243;
 const KINDS: readonly DriverKind[] = ["current-sink", "low-side-switch", "emitter-follower", "direct"];
@@ -263,5 +265,63 @@ describe("Kirchhoff's current law", () => {
     expect(seen.tied).toBeGreaterThan(10);
     for (const k of KINDS) expect(seen.kinds[k], k).toBeGreaterThan(20);
     console.info(`KCL: ${JSON.stringify(seen)} of 160 runs`);
+  });
+});
+
+/**
+ * The same on coded counters' decoders (issue 12): random code tables of 3
+ * stages, their two-level decoder (AND gates with pull-ups, OR diodes,
+ * direct literals), random gate pull-ups and low-level resistances, every
+ * driver kind.
+ */
+const codedArb = fc
+  .record({
+    base: projectArb,
+    order: fc.shuffledSubarray([0, 1, 2, 3, 4, 5, 6, 7], { minLength: 8, maxLength: 8 }),
+    gatePullUp: logUniform(1000, 100_000),
+    lowResistance: logUniform(5, 2000),
+  })
+  .map(({ base, order, gatePullUp, lowResistance }) => {
+    const doc = JSON.parse(serializeProject(base.project));
+    const states = base.project.counter.states;
+    doc.counter = { states, code: "custom", codes: order.slice(0, states).map((c) => c.toString(2).padStart(3, "0")) };
+    doc.electrical.gatePullUp = gatePullUp;
+    doc.electrical.counterOutput.lowResistance = lowResistance;
+    return makeProject2(doc);
+  });
+
+describe("Kirchhoff's current law on coded decoders", () => {
+  it(`holds at every node of every solved state (seed ${SEED + 1})`, () => {
+    const seen = { gates: 0, literals: 0, kinds: {} as Record<string, number> };
+    fc.assert(
+      fc.property(codedArb, (project) => {
+        const { spec, matrix } = codedDecoder(project);
+        const v = verifyMatrix(spec, matrix, { depthLimit: 2, policy: "per-segment" });
+        expect(v.ok, v.ok ? "" : v.error.join("; ")).toBe(true);
+        if (!v.ok) return;
+        seen.gates += v.value.gates.length > 0 ? 1 : 0;
+        seen.literals += v.value.diodes.some((d) => v.value.lines.includes(d.from)) ? 1 : 0;
+        const kind = project.electrical.driver.kind;
+        seen.kinds[kind] = (seen.kinds[kind] ?? 0) + 1;
+        for (let k = 0; k < spec.states.length; k++) {
+          const c = buildCircuit(spec, v.value, project.electrical, k);
+          const op = solveDc(c, c.guess);
+          expect(op.ok, op.ok ? "" : op.error.message).toBe(true);
+          if (!op.ok) return;
+          const fixed = new Set(c.elements.flatMap((e) => (e.kind === "vsource" ? [e.node] : [])));
+          for (const [node, r] of kclResiduals(c, op.value)) {
+            if (node === "0" || fixed.has(node)) continue;
+            expect(Math.abs(r.sum), `state ${spec.states[k]} node ${node}: ${r.sum} A of ${r.scale} A`).toBeLessThanOrEqual(
+              1e-9 + 1e-6 * r.scale,
+            );
+          }
+        }
+      }),
+      { seed: SEED + 1, numRuns: 80 },
+    );
+    expect(seen.gates).toBeGreaterThan(40);
+    expect(seen.literals).toBeGreaterThan(10);
+    for (const k of KINDS) expect(seen.kinds[k], k).toBeGreaterThan(5);
+    console.info(`KCL on coded decoders: ${JSON.stringify(seen)} of 80 runs`);
   });
 });
