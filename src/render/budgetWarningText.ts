@@ -16,6 +16,7 @@ const NOT_APPLIED: Readonly<Record<UnappliedWhy, string>> = {
 
 const CAUSE: Readonly<Record<SpreadCause, string>> = {
   "line-sag": "the active line's source resistance, shared by the segments lit together",
+  "gate-sag": "the AND gate's pull-up, shared by the drivers of the outputs it feeds",
   "diode-depth": "the diode depth",
   "switch-unsaturated": "its switch leaving saturation",
 };
@@ -99,13 +100,17 @@ function stateSpreadText(w: Extract<BudgetWarning, { code: "state-spread" }>): s
   const why = w.causes.map((c) => {
     if (c === "line-sag")
       return `${CAUSE[c]} (${w.litMin} lit in ${w.minState} against ${w.litMax} in ${w.maxState}: the line sits ${voltsText(w.sagDeltaV)} lower)`;
+    if (c === "gate-sag")
+      return `${CAUSE[c]} (${w.gate ?? "the gate"} in ${w.minState} sits ${voltsText(w.sagDeltaV)} lower than the node that drives it in ${w.maxState})`;
     if (c === "diode-depth")
       return `${CAUSE[c]} (${w.depthMin} diode${w.depthMin === 1 ? "" : "s"} from the line in ${w.minState}, ${w.depthMax} in ${w.maxState})`;
     return CAUSE[c];
   });
   return (
     `${w.output} is ${percent(w.spreadPct)} % dimmer in ${w.minState} than in ${w.maxState}; the cause: ${why.join("; and ")}. ` +
-    "The trim cannot remove it; a stiffer counter line, fewer diodes on the path or a switch would"
+    (w.causes.includes("gate-sag")
+      ? "The trim cannot remove it; a smaller gatePullUp or drivers that take less base current would"
+      : "The trim cannot remove it; a stiffer counter line, fewer diodes on the path or a switch would")
   );
 }
 

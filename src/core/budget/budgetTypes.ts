@@ -69,7 +69,8 @@ export interface StateBudget {
 }
 
 /** Why an output's current varies between the states that light it. */
-export type SpreadCause = "line-sag" | "diode-depth" | "switch-unsaturated";
+/** `gate-sag`: a coded counter's AND gate, its pull-up shared by the drivers of the outputs it feeds. */
+export type SpreadCause = "line-sag" | "gate-sag" | "diode-depth" | "switch-unsaturated";
 
 export interface OutputBudget extends CurrentRange {
   /** Largest segment current in a state that does not light the output. */
@@ -330,8 +331,10 @@ export type BudgetWarning =
       readonly maxState: string;
       /** What makes it vary, largest share first. */
       readonly causes: readonly SpreadCause[];
-      /** How much lower the active line sits in `minState` than in `maxState`, volts. */
+      /** How much lower the active line (a coded counter: the high line or gate that drives the output) sits in `minState` than in `maxState`, volts. */
       readonly sagDeltaV: number;
+      /** The AND gate that drives the output in `minState`, for a coded counter's decoder; else null. */
+      readonly gate: string | null;
       /** Segments lit in `minState` and in `maxState`, sharing the active line. */
       readonly litMin: number;
       readonly litMax: number;

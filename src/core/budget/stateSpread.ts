@@ -50,7 +50,9 @@ export function stateSpreads(input: {
     const sMax = solutions[kMax] as StateSolution;
     const stage = sMin.circuit.drivers.find((d) => d.output === o);
     if (!stage) continue;
-    const lineV = (s: StateSolution): number => drivingLineV(matrix, s, o);
+    const lineV = (s: StateSolution): number => drivingNode(matrix, s, o).v;
+    const driving = drivingNode(matrix, sMin, o).node;
+    const gate = matrix.gates.some((g) => g.ref === driving) ? driving : null;
     const inputV = (s: StateSolution): number => s.op.voltages[stage.inputNode] as number;
     const sagDeltaV = lineV(sMax) - lineV(sMin);
     const inputDeltaV = inputV(sMax) - inputV(sMin);
@@ -58,13 +60,14 @@ export function stateSpreads(input: {
     const depthMin = depthsFrom(matrix, kMin).get(o) ?? 0;
     const depthMax = depthsFrom(matrix, kMax).get(o) ?? 0;
     const shares: [SpreadCause, number][] = [];
-    if (sagDeltaV > NAMED_SHARE * Math.abs(inputDeltaV)) shares.push(["line-sag", sagDeltaV]);
+    const sag: SpreadCause = gate === null ? "line-sag" : "gate-sag";
+    if (sagDeltaV > NAMED_SHARE * Math.abs(inputDeltaV)) shares.push([sag, sagDeltaV]);
     if (depthMin > depthMax && dropDeltaV > NAMED_SHARE * Math.abs(inputDeltaV)) shares.push(["diode-depth", dropDeltaV]);
     shares.sort((a, b) => b[1] - a[1]);
     const causes: SpreadCause[] = shares.map(([c]) => c);
     const p = driverPoint(sMin, stage);
     if (kind === "low-side-switch" && p !== null && p.vceV > p.vbeV) causes.unshift("switch-unsaturated");
-    if (causes.length === 0) causes.push(sagDeltaV >= dropDeltaV ? "line-sag" : "diode-depth");
+    if (causes.length === 0) causes.push(sagDeltaV >= dropDeltaV ? sag : "diode-depth");
     out.push({
       level: "warn",
       code: "state-spread",
@@ -74,6 +77,7 @@ export function stateSpreads(input: {
       maxState: r.maxState,
       causes,
       sagDeltaV,
+      gate,
       litMin: litCount(kMin),
       litMax: litCount(kMax),
       depthMin,
@@ -84,11 +88,11 @@ export function stateSpreads(input: {
 }
 
 /**
- * The voltage of the node that drives output `o` in a solved state: the
+ * The node that drives output `o` in a solved state, and its voltage: the
  * active line of a one-hot counter; for a coded counter the highest of the
  * high stage lines and gates with a path to `o`.
  */
-function drivingLineV(matrix: VerifiedMatrix, s: StateSolution, o: string): number {
+function drivingNode(matrix: VerifiedMatrix, s: StateSolution, o: string): { node: string | null; v: number } {
   const next = orPlane(matrix);
   const reaches = (from: string): boolean => {
     const seen = new Set([from]);
@@ -104,9 +108,11 @@ function drivingLineV(matrix: VerifiedMatrix, s: StateSolution, o: string): numb
     }
     return false;
   };
-  let best = -Infinity;
+  let best: { node: string | null; v: number } = { node: null, v: -Infinity };
   for (const d of highDrivers(matrix, s.circuit.stateIndex)) {
-    if (reaches(d)) best = Math.max(best, s.op.voltages[s.circuit.lineNodes[d] as string] as number);
+    if (!reaches(d)) continue;
+    const v = s.op.voltages[s.circuit.lineNodes[d] as string] as number;
+    if (v > best.v) best = { node: d, v };
   }
   return best;
 }

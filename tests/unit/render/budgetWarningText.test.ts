@@ -73,6 +73,7 @@ describe("budget findings in words", () => {
       maxState: "S1",
       causes: ["line-sag", "diode-depth"],
       sagDeltaV: 0.4123,
+      gate: null,
       litMin: 7,
       litMax: 2,
       depthMin: 2,
@@ -82,6 +83,12 @@ describe("budget findings in words", () => {
       "1b is 21.3 % dimmer in S8 than in S1; the cause: the active line's source resistance, shared by the segments lit together " +
         "(7 lit in S8 against 2 in S1: the line sits 0.41 V lower); and the diode depth (2 diodes from the line in S8, 1 in S1). " +
         "The trim cannot remove it; a stiffer counter line, fewer diodes on the path or a switch would",
+    );
+    const gated: BudgetWarning = { ...w, output: "1a", minState: "S5", maxState: "S3", causes: ["gate-sag"], gate: "G7", sagDeltaV: 1.76 };
+    expect(warningText(gated)).toBe(
+      "1a is 21.3 % dimmer in S5 than in S3; the cause: the AND gate's pull-up, shared by the drivers of the outputs it feeds " +
+        "(G7 in S5 sits 1.76 V lower than the node that drives it in S3). " +
+        "The trim cannot remove it; a smaller gatePullUp or drivers that take less base current would",
     );
   });
 });
