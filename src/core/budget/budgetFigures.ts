@@ -10,7 +10,7 @@ import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
 import type { DriverStage } from "../circuit/circuit.ts";
 import { isLit, type StateSolution } from "../circuit/stateSweep.ts";
-import { highDrivers, highGates, highLines, orPlane } from "../circuit/counterLines.ts";
+import { highDrivers, highGates, highLines, orPlane, sourceLines } from "../circuit/counterLines.ts";
 import type {
   CornerBudget,
   CounterLineBudget,
@@ -79,7 +79,7 @@ function pathLengths(matrix: VerifiedMatrix): Map<string, Set<number>> {
       walk(t, depth + 1);
     }
   };
-  for (const s of [...matrix.lines, ...matrix.gates.map((g) => g.ref)]) walk(s, 0);
+  for (const s of [...sourceLines(matrix), ...matrix.gates.map((g) => g.ref)]) walk(s, 0);
   return lengths;
 }
 
@@ -176,7 +176,7 @@ export function counterBudgets(
 ): Record<string, CounterLineBudget> {
   const co = project.electrical.counterOutput;
   const out: Record<string, CounterLineBudget> = {};
-  for (const l of matrix.lines) {
+  for (const l of sourceLines(matrix)) {
     let source: { a: number; v: number; state: string } | null = null;
     let sink: { a: number; state: string } | null = null;
     for (const s of sols) {

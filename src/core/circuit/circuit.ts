@@ -37,7 +37,7 @@ import type { ElectricalModel } from "../project/project.ts";
 import { designators, type DriverParts, type PartResistorRole } from "../matrix/designators.ts";
 import { GROUND, LOGIC_NODE, SUPPLY_NODE } from "./circuitNodes.ts";
 import { driverStage, type StageNodes } from "./driverStage.ts";
-import { highDrivers, highLines, orPlane } from "./counterLines.ts";
+import { highDrivers, highLines, orPlane, sourceLines } from "./counterLines.ts";
 
 export { GROUND, LOGIC_NODE, SUPPLY_NODE } from "./circuitNodes.ts";
 
@@ -168,14 +168,14 @@ export function buildCircuit(
   const co = model.counterOutput;
   const elements: CircuitElement[] = [];
   const lineNodes: Record<string, string> = {};
-  for (const l of [...matrix.lines, ...matrix.buses, ...matrix.outputs]) lineNodes[l] = lineNode(l, outputs);
+  for (const l of [...sourceLines(matrix), ...matrix.buses, ...matrix.outputs]) lineNodes[l] = lineNode(l, outputs);
 
   for (const g of matrix.gates) lineNodes[g.ref] = lineNode(g.ref, outputs);
 
   const high = highLines(matrix, stateIndex);
   const lineOrder: string[] = [];
   const sourceOrder: string[] = [];
-  for (const l of matrix.lines) {
+  for (const l of sourceLines(matrix)) {
     const node = lineNode(l, outputs);
     const src = `${node}_v`;
     lineOrder.push(node);
@@ -271,7 +271,7 @@ function startingGuess(
       }
     }
   }
-  for (const l of matrix.lines) guess[`${lineNodes[l]}_v`] = high.has(l) ? co.high : co.low;
+  for (const l of sourceLines(matrix)) guess[`${lineNodes[l]}_v`] = high.has(l) ? co.high : co.low;
   // A gate held low sits a diode drop above its low input.
   const gates = new Set(matrix.gates.map((g) => g.ref));
   for (const [line, node] of Object.entries(lineNodes)) {

@@ -18,6 +18,14 @@ export function isCoded(matrix: DiodeMatrix): boolean {
 }
 
 /**
+ * The counter's lines the circuit drives as sources: a one-hot counter's
+ * state lines `S<k>` (active high), a coded counter's stage lines.
+ */
+export function sourceLines(matrix: DiodeMatrix): readonly string[] {
+  return isCoded(matrix) ? matrix.lines : matrix.states;
+}
+
+/**
  * The counter's lines that are high in state `k` (0-based).
  *
  * @example
