@@ -59,7 +59,19 @@ export interface Circle {
 
 /** What a text is for; tests and the renderer may treat roles differently. */
 export type LabelRole =
-  "diode-ref" | "row" | "column" | "group" | "key" | "terminal" | "continuation" | "zone" | "title-field" | "title-value" | "note";
+  | "diode-ref"
+  | "row"
+  | "column"
+  | "group"
+  | "key"
+  | "terminal"
+  | "continuation"
+  | "zone"
+  | "title-field"
+  | "title-value"
+  | "note"
+  | "part"
+  | "table";
 
 export type TextAnchor = "start" | "middle" | "end";
 

@@ -1,6 +1,6 @@
 /**
  * The papers of one result, as files: the matrix drawing's sheets, the
- * wiring list (CSV and printable page), the budget, the BOM, one SPICE deck
+ * driver-stage sheets, the wiring list (CSV and printable page), the budget, the BOM, one SPICE deck
  * per state and the normalised project. The command line's `export` writes
  * them all; the web app's Export menu offers them kind by kind. Both call
  * this one builder, so both write the same files with the same names.
@@ -22,7 +22,9 @@ import { serializeProject } from "../core/project/projectWriter.ts";
 import type { Result } from "../core/result/result.ts";
 import { bomCsv, bomLines } from "./bom.ts";
 import { budgetJsonText } from "./budgetJson.ts";
+import type { Sheet } from "./drawingModel.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
+import { layoutDriverSheets } from "./driverSheet.ts";
 import type { MatrixDrawing } from "./layout.ts";
 import { sheetSvgText } from "./sheetSvg.ts";
 import { wiringPageHtml } from "./wiringPage.ts";
@@ -35,10 +37,10 @@ export interface PaperFile {
   readonly text: string;
 }
 
-export type PaperKind = "svg" | "wiring" | "wiring-page" | "bom" | "netlists" | "budget" | "project";
+export type PaperKind = "svg" | "driver" | "wiring" | "wiring-page" | "bom" | "netlists" | "budget" | "project";
 
 /** Every kind, in the order `export` writes them. */
-export const PAPER_KINDS: readonly PaperKind[] = ["svg", "wiring", "wiring-page", "budget", "bom", "netlists", "project"];
+export const PAPER_KINDS: readonly PaperKind[] = ["svg", "driver", "wiring", "wiring-page", "budget", "bom", "netlists", "project"];
 
 /** A budget, or why there is none. */
 export type BudgetOutcome = Result<Budget, { readonly kind: string; readonly message: string }>;
@@ -60,7 +62,17 @@ export function paperDesign(input: Pick<PaperInput, "project" | "matrix" | "budg
 }
 
 /**
- * The files of one kind. The BOM, the decks and the budget wait for the
+ * The driver-stage sheets of the design the papers show: the stage drawn
+ * once, the supplies, the hazard note above 60 V DC and every output's
+ * parts with the values the BOM and the decks carry.
+ */
+export function driverSheets(input: Pick<PaperInput, "project" | "spec" | "matrix" | "options" | "budget">): Sheet[] {
+  const { project, spec, matrix, options, budget } = input;
+  return layoutDriverSheets({ project, spec, matrix, options, design: paperDesign(input), budget: budget?.ok ? budget.value : null });
+}
+
+/**
+ * The files of one kind. The driver sheets, the BOM, the decks and the budget wait for the
  * budget (an empty list while `budget` is undefined), so that they never
  * show a design the budget then changes. A failed budget gives its error as
  * budget.json, and the BOM and decks with the project's values.
@@ -75,6 +87,15 @@ export function paperFiles(input: PaperInput, kind: PaperKind): PaperFile[] {
       const single = drawing.sheets.length === 1;
       return drawing.sheets.map((s) => ({
         name: single ? "matrix.svg" : `matrix-${s.number}.svg`,
+        mediaType: "image/svg+xml",
+        text: sheetSvgText(s),
+      }));
+    }
+    case "driver": {
+      if (!budget) return [];
+      const sheets = driverSheets(input);
+      return sheets.map((s) => ({
+        name: sheets.length === 1 ? "driver.svg" : `driver-${s.number}.svg`,
         mediaType: "image/svg+xml",
         text: sheetSvgText(s),
       }));

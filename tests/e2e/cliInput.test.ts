@@ -262,6 +262,7 @@ describe("export output folders: checked first, written all or nothing", () => {
     expect(readdirSync(target).sort()).toEqual([
       "bom.csv",
       "budget.json",
+      "driver.svg",
       "matrix.svg",
       "project.json",
       "spice",

@@ -2,7 +2,9 @@
  * `diodeloom export FILE --out DIR`: everything a builder takes to the bench,
  * the files the papers builder (render/papers.ts) makes, the same the web
  * app's Export menu offers: the matrix drawing (matrix.svg, or matrix-1.svg
- * ... when it needs several sheets), the wiring list (wiring.csv and the
+ * ... when it needs several sheets), the driver-stage sheet (driver.svg, or
+ * driver-1.svg ...: the stage of the chosen kind drawn once and every output's
+ * parts with their values after the trim), the wiring list (wiring.csv and the
  * printable wiring.html), the budget (budget.json, diodeloom/budget@3), the
  * BOM (bom.csv) and one SPICE netlist per state (spice/S0.cir ...), both
  * with the design's emitter resistors, and the normalised project
@@ -33,7 +35,7 @@ const USAGE = `export FILE --out DIR [--paper a4|a3|letter] [--date YYYY-MM-DD] 
  * export) may be written again; the new export replaces it whole.
  */
 export const EXPORT_NAMES: OwnNames = {
-  files: [/^matrix(-\d+)?\.svg$/, /^wiring\.(csv|html)$/, /^budget\.json$/, /^bom\.csv$/, /^project\.json$/, /^spice\/S\d+\.cir$/],
+  files: [/^(matrix|driver)(-\d+)?\.svg$/, /^wiring\.(csv|html)$/, /^budget\.json$/, /^bom\.csv$/, /^project\.json$/, /^spice\/S\d+\.cir$/],
   folders: [/^spice$/],
 };
 

@@ -20,6 +20,7 @@ const PAGE_SIZE: Readonly<Record<PaperName, string>> = { a4: "A4", a3: "A3", let
 
 const EXPORTS: readonly { kind: ExportKind; label: string }[] = [
   { kind: "svg", label: "SVG sheets" },
+  { kind: "driver", label: "Driver stage sheet (SVG)" },
   { kind: "wiring", label: "Wiring CSV" },
   { kind: "wiring-page", label: "Wiring page (HTML)" },
   { kind: "bom", label: "Parts CSV" },

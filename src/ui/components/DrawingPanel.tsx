@@ -9,6 +9,8 @@ import { createEffect, createMemo, createSignal, For, onCleanup, Show } from "so
 import type { DiodeSymbol, Sheet } from "../../render/drawingModel.ts";
 import { SVG, type Svg } from "@svgdotjs/svg.js";
 import { drawSheet } from "../../render/drawSheet.ts";
+import { drawingOptions } from "../../render/drawingOptions.ts";
+import { driverSheets } from "../../render/papers.ts";
 import { app } from "../state/appState.ts";
 import { TitleBlockFields } from "./TitleBlockFields.tsx";
 
@@ -25,6 +27,22 @@ export function DrawingPanel() {
   const [picked, setPicked] = createSignal<{ sheet: number; ref: string } | null>(null);
 
   const drawing = () => app.drawing();
+  /**
+   * The driver-stage sheets after the matrix sheets, so that the printed pack
+   * holds them: they wait for the budget, which settles the resistor values.
+   */
+  const driver = createMemo(() => {
+    const r = app.live();
+    const budget = app.currentBudget();
+    if (!r || !budget || !app.drawingCurrent()) return [];
+    return driverSheets({
+      project: r.project,
+      spec: r.spec,
+      matrix: r.matrix,
+      options: drawingOptions(r.project, app.drawingChoice()),
+      budget,
+    });
+  });
   const allDiodes = createMemo(() => drawing()?.sheets.flatMap((s) => s.diodes.map((d) => ({ sheet: s.number, d }))) ?? []);
   const pickedDiode = () => {
     const p = picked();
@@ -57,7 +75,10 @@ export function DrawingPanel() {
             Fit
           </button>
         </div>
-        <span class="muted small">{drawing()?.sheets.length ?? 0} sheet(s)</span>
+        <span class="muted small">
+          {drawing()?.sheets.length ?? 0} sheet(s)
+          <Show when={driver().length > 0}>, driver stages {driver().length}</Show>
+        </span>
         <Show when={app.stale()}>
           <span class="chip stale">↻ stale</span>
         </Show>
@@ -112,6 +133,11 @@ export function DrawingPanel() {
             />
           )}
         </For>
+        <For each={driver()}>
+          {(sheet) => (
+            <SheetView sheet={sheet} first={false} what="driver stages" zoom={zoom()} highlight={null} onPick={() => undefined} />
+          )}
+        </For>
       </div>
     </section>
   );
@@ -145,6 +171,8 @@ function mountSheet(into: HTMLElement, sheet: Sheet): Svg {
 function SheetView(props: {
   sheet: Sheet;
   first: boolean;
+  /** What the sheet belongs to, for its label; the matrix drawing unless given. */
+  what?: string;
   zoom: number;
   highlight: DiodeSymbol | null;
   onPick: (ref: string | null) => void;
@@ -171,9 +199,16 @@ function SheetView(props: {
     svgEl = root.node;
     svgEl.classList.add("sheet-svg");
     svgEl.setAttribute("role", "img");
-    svgEl.setAttribute("aria-label", `matrix drawing, sheet ${sheet.number} of ${sheet.count}, ${sheet.diodes.length} diodes`);
-    svgEl.dataset.sheet = String(sheet.number);
+    const what = props.what ?? "matrix drawing";
+    svgEl.setAttribute(
+      "aria-label",
+      props.what
+        ? `${what}, sheet ${sheet.number} of ${sheet.count}`
+        : `${what}, sheet ${sheet.number} of ${sheet.count}, ${sheet.diodes.length} diodes`,
+    );
+    svgEl.dataset.sheet = props.what ? `${what} ${sheet.number}` : String(sheet.number);
     if (props.first) svgEl.dataset.testid = "matrix-drawing";
+    if (props.what && sheet.number === 1) svgEl.dataset.testid = "driver-sheet";
     overlay = document.createElementNS(NS, "g");
     overlay.setAttribute("class", "hl-layer");
     overlay.setAttribute("pointer-events", "none");

@@ -20,6 +20,7 @@ export type ExportKind = PaperKind;
 
 const ARCHIVE_NAME: Readonly<Record<ExportKind, string>> = {
   svg: "matrix-sheets.zip",
+  driver: "driver-sheets.zip",
   wiring: "wiring.zip",
   "wiring-page": "wiring-page.zip",
   bom: "bom.zip",

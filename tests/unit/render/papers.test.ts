@@ -21,6 +21,7 @@ describe("the papers builder", () => {
     const files = allPaperFiles({ ...base, budget });
     expect(files.map((f) => f.name)).toEqual([
       "matrix.svg",
+      "driver.svg",
       "wiring.csv",
       "wiring.html",
       "budget.json",
@@ -30,6 +31,7 @@ describe("the papers builder", () => {
     ]);
     expect(Object.fromEntries(files.map((f) => [f.name.split("/")[0], f.mediaType]))).toMatchObject({
       "matrix.svg": "image/svg+xml",
+      "driver.svg": "image/svg+xml",
       "wiring.csv": "text/csv",
       "wiring.html": "text/html",
       "budget.json": "application/json",
@@ -38,11 +40,13 @@ describe("the papers builder", () => {
       "project.json": "application/json",
     });
     expect(xmlProblem(files[0]!.text)).toBeNull();
+    expect(xmlProblem(files[1]!.text)).toBeNull();
     expect(PAPER_KINDS.flatMap((k) => paperFiles({ ...base, budget }, k))).toEqual(files);
   });
 
-  it("holds back the BOM, the decks and the budget until the budget is there, so they never show a design it then changes", () => {
-    for (const kind of ["bom", "netlists", "budget"] as const) expect(paperFiles({ ...base, budget: undefined }, kind)).toEqual([]);
+  it("holds back the driver sheet, the BOM, the decks and the budget until the budget is there, so they never show a design it then changes", () => {
+    for (const kind of ["driver", "bom", "netlists", "budget"] as const)
+      expect(paperFiles({ ...base, budget: undefined }, kind)).toEqual([]);
     expect(paperFiles({ ...base, budget: undefined }, "wiring")).toHaveLength(1);
   });
 

@@ -7,7 +7,7 @@ import type { CliIo } from "../../../../src/cli/io.ts";
 import { nodeIo } from "../../../../src/cli/nodeIo.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
 import { currentOhmsOf } from "../../../../src/core/matrix/designators.ts";
-import { formatOhms } from "../../../../src/render/units.ts";
+import { formatOhms, ohmsText } from "../../../../src/render/units.ts";
 import { parseProject } from "../../../../src/core/project/projectSchema.ts";
 import { synthesize, synthSettings } from "../../../../src/core/synth/synthesize.ts";
 import { xmlProblem } from "../../../support/xmlCheck.ts";
@@ -36,7 +36,9 @@ describe("diodeloom export", () => {
     expect(err.join("")).toBe("");
     expect(code).toBe(0);
     const files = (await readdir(dir)).sort();
-    expect(files).toEqual(expect.arrayContaining(["bom.csv", "budget.json", "project.json", "spice", "wiring.csv", "wiring.html"]));
+    expect(files).toEqual(
+      expect.arrayContaining(["bom.csv", "budget.json", "driver.svg", "project.json", "spice", "wiring.csv", "wiring.html"]),
+    );
     const svgs = files.filter((f) => /^matrix(-\d+)?\.svg$/.test(f));
     expect(svgs.length).toBeGreaterThan(0);
     // One sheet is matrix.svg; several are matrix-1.svg, matrix-2.svg, ...
@@ -78,6 +80,11 @@ describe("diodeloom export", () => {
     const designOhms = Object.values(drivers).map((d) => d.currentResistor.ohms);
     if (trim.applied) expect(designOhms).toEqual(Object.keys(drivers).map((o) => trim.judgedOhms[o]));
     else expect(designOhms).toEqual(Object.keys(drivers).map((o) => currentOhmsOf(original.value.electrical, o)));
+    // The driver sheet shows the same design: every current-setting resistor with the budget's value.
+    const driverSvg = await readFile(join(dir, "driver.svg"), "utf8");
+    expect(xmlProblem(driverSvg)).toBeNull();
+    for (const d of Object.values(drivers))
+      expect(driverSvg).toContain(`${d.currentResistor.ref}\u00a0${ohmsText(d.currentResistor.ohms).replace(" ", "\u00a0")}`);
     const bom = parseCsv(await readFile(join(dir, "bom.csv"), "utf8"));
     expect(bom[1]?.[0]).toBe(String(m1.value.count));
     const setting = bom.filter((r) => r[3]?.includes("sets the segment current"));
@@ -128,7 +135,7 @@ describe("diodeloom export", () => {
     for (const paper of ["a4", "a3"]) {
       const dir = join(work, paper);
       expect(await main(["export", file, "--out", dir, "--fast", "--paper", paper], recordingIo().io)).toBe(0);
-      const names = (await readdir(dir)).filter((f) => f.endsWith(".svg")).sort();
+      const names = (await readdir(dir)).filter((f) => /^matrix(-\d+)?\.svg$/.test(f)).sort();
       sheets[paper] = await Promise.all(names.map((n) => readFile(join(dir, n), "utf8")));
     }
     // ISO 216 A3 is 297 x 420 mm (docs/sources.md), in either orientation.
