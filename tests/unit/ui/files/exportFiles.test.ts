@@ -15,7 +15,8 @@ describe("the web app's Export", () => {
       const quiet = { ...nodeIo, out: () => undefined, err: () => undefined };
       expect(await main(["export", file, "--out", dir, "--fast"], quiet)).toBe(0);
       const offered = await webExport("turntable-position");
-      expect(offered.size).toBe(6 + example("turntable-position").counter.states);
+      // matrix, driver, wiring (2), budget, BOM, project, and a deck per state.
+      expect(offered.size).toBe(7 + example("turntable-position").counter.states);
       for (const [name, text] of offered) expect(await readFile(join(dir, ...name.split("/")), "utf8"), name).toBe(text);
     } finally {
       await rm(dir, { recursive: true, force: true });
