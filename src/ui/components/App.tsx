@@ -5,6 +5,7 @@ import { BudgetPanel } from "./BudgetPanel.tsx";
 import { CautionBanner } from "./CautionBanner.tsx";
 import { ComparisonPanel } from "./ComparisonPanel.tsx";
 import { DecoderPanel } from "./DecoderPanel.tsx";
+import { ElectricalPanel } from "./ElectricalPanel.tsx";
 import { DrawingPanel } from "./DrawingPanel.tsx";
 import { GlyphEditor } from "./GlyphEditor.tsx";
 import { NoticeBox } from "./NoticeBox.tsx";
@@ -53,6 +54,7 @@ export function App() {
       <main class="workspace">
         <div class="col-left">
           <ProjectPanel />
+          <ElectricalPanel />
           <DecoderPanel />
           <GlyphEditor />
         </div>

@@ -40,7 +40,7 @@ export function BudgetPanel() {
   const warnings = () => [...(budget()?.warnings ?? [])].filter((w) => w.code !== "hazardous-voltage" && w.code !== "mains-supply");
 
   return (
-    <section class="panel" aria-labelledby="budget-h" data-testid="budget">
+    <section class="panel" aria-labelledby="budget-h" data-testid="budget" data-supply-v={budget()?.supply.volts}>
       <div class="panel-head">
         <h2 id="budget-h">Budget</h2>
         <label class="label" for="f-trim">
@@ -73,7 +73,7 @@ export function BudgetPanel() {
       <Show when={budget()}>
         {(b) => (
           <>
-            <p class="budget-summary">
+            <p class="budget-summary" data-testid="budget-summary" data-target-a={b().targetA}>
               target <strong>{microampsShort(b().targetA)} µA</strong> ·{" "}
               <span data-testid="spread-words">
                 {spreadWords({

@@ -21,7 +21,6 @@ import {
   setCounterCodes,
   setPositions,
   setStates,
-  setSupplyVolts,
   setSynthesis,
   setText,
   setTexts,
@@ -282,16 +281,6 @@ export function ProjectPanel() {
               const seed = numberOrNull(e.currentTarget.value);
               if (seed !== null) app.edit((x) => setSynthesis(x, { seed }));
             }}
-          />
-          <label for="f-supply">Supply (V)</label>
-          <input
-            id="f-supply"
-            type="number"
-            min="1"
-            max="1000"
-            step="any"
-            value={d().electrical.supply.volts}
-            onChange={(e) => app.edit((x) => setSupplyVolts(x, Number(e.currentTarget.value) || x.electrical.supply.volts))}
           />
         </div>
       </fieldset>

@@ -60,6 +60,7 @@ export function ResultBar() {
             {app.liveMs()?.toFixed(0)} ms
           </span>
           <span hidden data-testid="first-ms" data-ms={app.firstMs()?.toFixed(1)} data-pass={app.firstPass()} />
+          <span hidden data-testid="synth-runs" data-runs={app.synthRuns()} />
         </Show>
       </Show>
       <Show when={app.liveBusy() && app.live()}>

@@ -25,6 +25,7 @@ import type { Problem } from "../../core/result/result.ts";
 import { fileProblemLine } from "./problemWords.ts";
 import { projectKey, readAutosave, writeAutosave, type KeyValueStore, type StoreFailure } from "./autosave.ts";
 import { draftFromProject, draftToJson, type Draft } from "./draft.ts";
+import { onlyElectricalChanged, sameSynthesisInput } from "./electricalForm.ts";
 import { downloadText, fileStem } from "../files/download.ts";
 import { pageStore, sessionPageStore } from "./pageStore.ts";
 import { readUndo, writeUndo } from "./undoStore.ts";
@@ -94,6 +95,8 @@ function createAppState() {
   const [firstMs, setFirstMs] = createSignal<number | null>(null);
   /** Counts the first figures shown, one per edit, so a test can tell that a new one arrived. */
   const [firstPass, setFirstPass] = createSignal(0);
+  /** Counts the synthesis runs started (an electrical edit starts none), so a test can tell. */
+  const [synthRuns, setSynthRuns] = createSignal(0);
   const [exact, setExact] = createSignal<ExactState>({ status: "idle" });
   const [exactEnabled, setExactEnabled] = createSignal(true);
   /** A run of the live worker has not given its final answer yet. */
@@ -248,6 +251,12 @@ function createAppState() {
     const d = draft();
     const v = validation();
     const mine = ++pass;
+    const shown = live();
+    const before = liveDraft();
+    if (v.ok && shown && before && !liveBusy() && onlyElectricalChanged(before, d)) {
+      rebudget(v.value, d, shown);
+      return Promise.resolve();
+    }
     cancelExact(false);
     // The budget and comparison of the result now stale would only slow the next one down.
     clearTimeout(budgetTimer);
@@ -286,6 +295,7 @@ function createAppState() {
         });
         resolve();
       };
+      setSynthRuns((n) => n + 1);
       liveRunner.start(draftFromProject(project), sentChoice, project.synthesis.timeLimitMs, {
         drawing: (drawing) => {
           // The direct matrix's drawing, after its figure.
@@ -327,6 +337,26 @@ function createAppState() {
           }),
       });
     });
+  }
+
+  /**
+   * An edit of the electrical section alone: the matrix stays (the synthesis
+   * reads no electrical value), the budget is worked out again, and the
+   * drawing, whose notes name the diode ratings and the tie-on supply, is
+   * laid out again. The exact run, which looks for a smaller matrix of the
+   * same glyphs, goes on.
+   */
+  function rebudget(project: Project, d: Draft, shown: LiveResult): void {
+    if (persist) save(project);
+    clearTimeout(budgetTimer);
+    analysis.cancel("budget");
+    const r = withMatrix(project, shown.spec, shown.settings, shown.matrix);
+    batch(() => {
+      setLive(r);
+      setLiveDraft(d);
+    });
+    scheduleBudget(r);
+    void relayout(r);
   }
 
   /** Saves a valid project; says so at once when the browser refuses, with the project to download. */
@@ -386,7 +416,7 @@ function createAppState() {
   }
 
   function startExact(d: Draft, project: Project): void {
-    if (draft() !== d) return;
+    if (!sameSynthesisInput(draft(), d)) return;
     const base = live();
     if (!base) return;
     setExact({
@@ -405,7 +435,7 @@ function createAppState() {
         },
         done: (m) => {
           const current = live();
-          if (draft() !== d || !current) return;
+          if (!sameSynthesisInput(draft(), d) || !current) return;
           const checked = acceptMatrix(current.spec, current.settings, m);
           if (!checked.ok) {
             setExact({
@@ -438,7 +468,7 @@ function createAppState() {
     const checked = acceptMatrix(current.spec, current.settings, entry.matrix);
     if (!checked.ok || checked.value.method !== "exact") return false;
     void adoptIfBetter(d, current, checked.value, true).then(() => {
-      if (!checked.value.optimal && draft() === d) scheduleExact(d, project);
+      if (!checked.value.optimal && sameSynthesisInput(draft(), d)) scheduleExact(d, project);
     });
     return true;
   }
@@ -467,7 +497,7 @@ function createAppState() {
       matrix: r.matrix,
       drawing: choice,
     });
-    if (draft() !== d || live() !== current) return;
+    if (!sameSynthesisInput(draft(), d) || live() !== current) return;
     if (!reply.result.ok) setLiveNote(`the drawing could not be made: ${reply.result.error.message}`);
     show(r, reply.result.ok ? { drawing: reply.result.value, choice } : null);
     setExact(done);
@@ -697,6 +727,7 @@ function createAppState() {
     livePass,
     firstMs,
     firstPass,
+    synthRuns,
     stale,
     exact,
     exactEnabled,

@@ -230,12 +230,6 @@ export function setSynthesis(d: Draft, change: Partial<SynthesisFields>): Draft 
   return { ...d, synthesis: { ...d.synthesis, ...change } };
 }
 
-/** Sets the nominal supply and its range around it (±10 %, the defaults' proportion). */
-export function setSupplyVolts(d: Draft, volts: number): Draft {
-  const supply = { volts, minVolts: Math.round(volts * 0.9 * 100) / 100, maxVolts: Math.round(volts * 1.1 * 100) / 100 };
-  return { ...d, electrical: { ...d.electrical, supply } };
-}
-
 /**
  * The built-in shape of a character on the draft's cell, or undefined where
  * there is none: a character the built-in table lacks, or any character of a

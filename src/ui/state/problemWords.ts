@@ -12,6 +12,7 @@ import { hasUnsafeText } from "../../core/project/valueText.ts";
 import type { Problem } from "../../core/result/result.ts";
 import type { Draft } from "./draft.ts";
 import { draftSegments, effectiveGlyphs } from "./draftEdits.ts";
+import { ELECTRICAL_GROUPS } from "./electricalForm.ts";
 
 /** The app's name for a field, by its path in the file; null when the path is not one of the form's fields. */
 const LABELS: readonly (readonly [RegExp, (m: RegExpExecArray) => string])[] = [
@@ -39,10 +40,24 @@ const LABELS: readonly (readonly [RegExp, (m: RegExpExecArray) => string])[] = [
   [/^synthesis\.timeLimitMs$/, () => "Exact limit"],
   [/^synthesis\.seed$/, () => "Seed"],
   [/^synthesis/, () => "Synthesis"],
-  [/^electrical\.supply\.volts$/, () => "Supply (V)"],
-  [/^electrical\.(.+)$/, (m) => `Electrical setting ${humanPath(m[1] ?? "")}`],
+  [/^electrical\.(.+)$/, (m) => electricalLabel(m[1] ?? "") ?? `Electrical setting ${humanPath(m[1] ?? "")}`],
   [/^pattern$/, () => "Fill"],
 ];
+
+/**
+ * An electrical field as the Electrical panel names it, `Electrical › Segment
+ * › Target current (mA)`; null for a path the panel has no field for.
+ */
+function electricalLabel(path: string): string | null {
+  const dotted = path.replace(/\[(\d+)\]/g, ".$1");
+  for (const g of ELECTRICAL_GROUPS) {
+    const f = g.fields.find((x) => x.path === dotted);
+    if (f) return `Electrical › ${g.title} › ${f.label}${f.unit ? ` (${f.unit})` : ""}`;
+    const o = g.overrides?.find((x) => dotted.startsWith(`${x.path}.`));
+    if (o) return `Electrical › ${g.title} › ${o.label} › ${dotted.slice(o.path.length + 1)}`;
+  }
+  return null;
+}
 
 /** `driver.emitterResistors.1a` -> `driver › emitter resistors › 1a`. */
 function humanPath(path: string): string {

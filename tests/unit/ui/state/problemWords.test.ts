@@ -31,7 +31,11 @@ describe("problems in the user's words", () => {
     expect(said(setSynthesis(d, { maxDepth: 2, timeLimitMs: 0 }))).toEqual(["Exact limit: got 0 s; must be from 0.001 to 3600 seconds"]);
     expect(fieldLabel("synthesis.depth")).toBe("Depth policy");
     expect(fieldLabel("glyphs.7")).toBe('Glyph "7"');
-    expect(fieldLabel("electrical.driver.emitterResistors.1a")).toBe("Electrical setting driver › emitter resistors › 1a");
+    expect(fieldLabel("electrical.driver.emitterResistors.1a")).toBe("Electrical › Driver › Emitter resistor per output › 1a");
+    // The Electrical panel's names and units.
+    expect(fieldLabel("electrical.segment.targetA")).toBe("Electrical › Segment › Target current (mA)");
+    expect(fieldLabel("electrical.supply.volts")).toBe("Electrical › Segment supply › Nominal (V)");
+    expect(fieldLabel("electrical.tolerance.temperatureC[1]")).toBe("Electrical › Tolerances and temperature › Highest temperature (°C)");
   });
 
   it("keeps the file's path beside the words for a file that was opened, so it can be found there", () => {
