@@ -16,7 +16,7 @@ import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import { designators } from "../core/matrix/designators.ts";
 import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
 import { spiceNetlist } from "../core/papers/netlist.ts";
-import { wiringCsv, wiringRows } from "../core/papers/wiringList.ts";
+import { tieOnRows, wiringCsv, wiringRows, type TieOnRow } from "../core/papers/wiringList.ts";
 import type { Project } from "../core/project/project.ts";
 import { serializeProject } from "../core/project/projectWriter.ts";
 import type { Result } from "../core/result/result.ts";
@@ -61,6 +61,11 @@ export function paperDesign(input: Pick<PaperInput, "project" | "matrix" | "budg
   return input.budget?.ok ? budgetDesign(input.budget.value) : projectDesign(input.project.electrical, input.matrix);
 }
 
+/** The tie-on resistors of the tied-on outputs, for the wiring list (their values are not trimmed). */
+export function tieOnsOf(input: Pick<PaperInput, "project" | "spec" | "matrix">): TieOnRow[] {
+  return tieOnRows(designators(input.spec, input.matrix, input.project.electrical).drivers);
+}
+
 /**
  * The driver-stage sheets of the design the papers show: the stage drawn
  * once, the supplies, the hazard note above 60 V DC and every output's
@@ -101,14 +106,14 @@ export function paperFiles(input: PaperInput, kind: PaperKind): PaperFile[] {
       }));
     }
     case "wiring":
-      return [{ name: "wiring.csv", mediaType: "text/csv", text: wiringCsv(wiringRows(matrix, drawing.placements)) }];
+      return [{ name: "wiring.csv", mediaType: "text/csv", text: wiringCsv(wiringRows(matrix, drawing.placements), tieOnsOf(input)) }];
     case "wiring-page": {
       const rows = wiringRows(matrix, drawing.placements);
       return [
         {
           name: "wiring.html",
           mediaType: "text/html",
-          text: wiringPageHtml({ project, matrix, rows, options, sheetCount: drawing.sheets.length }),
+          text: wiringPageHtml({ project, matrix, rows, tieOns: tieOnsOf(input), options, sheetCount: drawing.sheets.length }),
         },
       ];
     }

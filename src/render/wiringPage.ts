@@ -5,7 +5,8 @@
  */
 import type { DiodeMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
-import { INSPECTION_CHECKLIST, WIRING_HEADER, type WiringRow } from "../core/papers/wiringList.ts";
+import { INSPECTION_CHECKLIST, TIE_ON_HEADING, WIRING_HEADER, type TieOnRow, type WiringRow } from "../core/papers/wiringList.ts";
+import { ohmsText } from "./units.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
 
 const PAGE_SIZE = { a4: "A4", a3: "A3", letter: "letter" } as const;
@@ -20,6 +21,8 @@ export interface WiringPageInput {
   readonly project: Project;
   readonly matrix: DiodeMatrix;
   readonly rows: readonly WiringRow[];
+  /** The tie-on resistors of the tied-on outputs (none when no output is tied on). */
+  readonly tieOns?: readonly TieOnRow[];
   readonly options: DrawingOptions;
   /** Number of matrix drawing sheets the rows refer to. */
   readonly sheetCount: number;
@@ -39,6 +42,18 @@ export function wiringPageHtml(input: WiringPageInput): string {
         `<tr><td>${r.step}</td><td><b>${esc(r.ref)}</b></td><td>${esc(r.from)}</td><td>${esc(r.to)}</td><td>${r.sheet ?? ""}</td><td>${esc(r.zone)}</td><td class="box"></td></tr>`,
     )
     .join("\n");
+  const tieOns = input.tieOns ?? [];
+  const tieOnTable =
+    tieOns.length === 0
+      ? ""
+      : `<h1>${esc(TIE_ON_HEADING)}</h1>
+<table>
+<thead><tr><th>Step</th><th>Ref</th><th>Value</th><th>From</th><th>To</th><th>Done</th></tr></thead>
+<tbody>
+${tieOns.map((t, i) => `<tr><td>T${i + 1}</td><td><b>${esc(t.ref)}</b></td><td>${esc(ohmsText(t.ohms))}</td><td>${esc(t.from)}</td><td>${esc(t.to)}</td><td class="box"></td></tr>`).join("\n")}
+</tbody>
+</table>
+`;
   const checks = INSPECTION_CHECKLIST.map(
     (c, i) => `<tr><td>C${i + 1}</td><td><b>${esc(c.item)}</b></td><td>${esc(c.check)}</td><td class="box"></td></tr>`,
   ).join("\n");
@@ -76,7 +91,7 @@ th { background: #fff; font-weight: bold; }
 ${body}
 </tbody>
 </table>
-<h1>Inspection checklist</h1>
+${tieOnTable}<h1>Inspection checklist</h1>
 <table>
 <thead><tr><th>#</th><th>Item</th><th>Check</th><th>Done</th></tr></thead>
 <tbody>

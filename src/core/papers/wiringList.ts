@@ -5,8 +5,13 @@
  *
  * Where each diode sits on the drawing (sheet and zone) comes from the
  * layout, passed in as plain data so that the core does not depend on it.
+ *
+ * A tied-on output (lit in every state) has no diode: its tie-on resistor
+ * joins the logic supply's net VLOGIC to the output line. The list names
+ * them after the diodes, so that the net and the part are wired too.
  */
 import { csvText } from "./csv.ts";
+import type { DriverParts } from "../matrix/designators.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
 
 export interface WiringRow {
@@ -50,17 +55,50 @@ export function wiringRows(matrix: DiodeMatrix, placements?: ReadonlyMap<string,
   });
 }
 
+/** The net tied-on outputs hang from: the logic supply, as the drawing and the SPICE decks name it. */
+export const LOGIC_SUPPLY_NET = "VLOGIC";
+
+/** A tied-on output's tie-on resistor, from the logic supply's net to the output line. */
+export interface TieOnRow {
+  readonly ref: string;
+  readonly from: typeof LOGIC_SUPPLY_NET;
+  /** The output line. */
+  readonly to: string;
+  /** Ohms. */
+  readonly ohms: number;
+}
+
+/**
+ * The tie-on resistors of a build, in output order.
+ *
+ * @example
+ * tieOnRows(designators(spec, matrix, e).drivers); // [{ ref: "R16", from: "VLOGIC", to: "2b", ohms: 470 }]
+ */
+export function tieOnRows(drivers: readonly DriverParts[]): TieOnRow[] {
+  return drivers.flatMap((d) => (d.tieOn ? [{ ref: d.tieOn.ref, from: LOGIC_SUPPLY_NET, to: d.output, ohms: d.tieOn.ohms }] : []));
+}
+
+/** The heading of the tie-on rows in the CSV and the printed lists. */
+export const TIE_ON_HEADING = "Tied-on outputs (no diodes): each tie-on resistor from the logic supply net VLOGIC to the output line";
+
 /** Column heads of the wiring CSV. */
 export const WIRING_HEADER = ["Step", "Ref", "From (anode)", "To (cathode, band)", "Sheet", "Zone", "Done"] as const;
 
 /**
  * The wiring list as CSV: the header, one record per diode with an empty
- * Done column to tick, a blank record, then the inspection checklist in the
- * same columns (Step `C1`.., Ref the item, From the check).
+ * Done column to tick; where outputs are tied on, a blank record, their
+ * heading and one record per tie-on resistor (Step `T1`.., its reference,
+ * VLOGIC, the output line); then a blank record and the inspection
+ * checklist in the same columns (Step `C1`.., Ref the item, From the check).
  */
-export function wiringCsv(rows: readonly WiringRow[]): string {
+export function wiringCsv(rows: readonly WiringRow[], tieOns: readonly TieOnRow[] = []): string {
   const records: (string | number)[][] = [[...WIRING_HEADER]];
   for (const r of rows) records.push([r.step, r.ref, r.from, r.to, r.sheet ?? "", r.zone, ""]);
+  if (tieOns.length > 0) {
+    records.push([]);
+    records.push([TIE_ON_HEADING, "", "", "", "", "", ""]);
+    tieOns.forEach((t, i) => records.push([`T${i + 1}`, t.ref, t.from, t.to, "", "", ""]));
+  }
   records.push([]);
   records.push(["Inspection checklist", "", "", "", "", "", ""]);
   INSPECTION_CHECKLIST.forEach((c, i) => records.push([`C${i + 1}`, c.item, c.check, "", "", "", ""]));

@@ -7,8 +7,9 @@
 import { createMemo, For, Show } from "solid-js";
 import { designNote } from "../../core/budget/segmentDesign.ts";
 import { designators } from "../../core/matrix/designators.ts";
-import { INSPECTION_CHECKLIST, WIRING_HEADER, wiringRows } from "../../core/papers/wiringList.ts";
+import { INSPECTION_CHECKLIST, TIE_ON_HEADING, tieOnRows, WIRING_HEADER, wiringRows } from "../../core/papers/wiringList.ts";
 import { bomLines } from "../../render/bom.ts";
+import { ohmsText } from "../../render/units.ts";
 import { paperDesign } from "../../render/papers.ts";
 import { app } from "../state/appState.ts";
 
@@ -25,6 +26,7 @@ export function PrintView() {
     return {
       r,
       rows: wiringRows(r.matrix, drawing?.placements),
+      tieOns: tieOnRows(parts.drivers),
       parts: budget ? bomLines(r.project.electrical, parts, design) : [],
       design,
     };
@@ -60,6 +62,27 @@ export function PrintView() {
               </For>
             </tbody>
           </table>
+          <Show when={l().tieOns.length > 0}>
+            <h2>{TIE_ON_HEADING}</h2>
+            <table class="print-table" data-testid="print-tie-ons">
+              <tbody>
+                <For each={l().tieOns}>
+                  {(t, i) => (
+                    <tr>
+                      <td>T{i() + 1}</td>
+                      <td>
+                        <b>{t.ref}</b>
+                      </td>
+                      <td>{ohmsText(t.ohms)}</td>
+                      <td>{t.from}</td>
+                      <td>{t.to}</td>
+                      <td class="box">☐</td>
+                    </tr>
+                  )}
+                </For>
+              </tbody>
+            </table>
+          </Show>
           <h2>Inspection</h2>
           <table class="print-table">
             <tbody>

@@ -1,5 +1,19 @@
 import { describe, expect, it } from "vitest";
-import { INSPECTION_CHECKLIST, WIRING_HEADER, wiringCsv, wiringRows } from "../../../../src/core/papers/wiringList.ts";
+import { projectDesign } from "../../../../src/core/budget/segmentDesign.ts";
+import { designators } from "../../../../src/core/matrix/designators.ts";
+import { spiceNetlist } from "../../../../src/core/papers/netlist.ts";
+import {
+  INSPECTION_CHECKLIST,
+  TIE_ON_HEADING,
+  WIRING_HEADER,
+  tieOnRows,
+  wiringCsv,
+  wiringRows,
+} from "../../../../src/core/papers/wiringList.ts";
+import { tieOnsOf } from "../../../../src/render/papers.ts";
+import { wiringPageHtml } from "../../../../src/render/wiringPage.ts";
+import { directDesign } from "../../../support/budgetFixtures.ts";
+import { showingWith } from "../../../support/projects.ts";
 import { drawingOptions } from "../../../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../../../src/render/layout.ts";
 import { dieRollerShared, directExample } from "../../../support/sharedMatrix.ts";
@@ -43,5 +57,38 @@ describe("wiring list", () => {
     const rows = wiringRows(matrix);
     expect(rows[0]).toEqual({ step: 1, ref: "D1", from: "S0", to: "1c", sheet: null, zone: "" });
     expect(parseCsv(wiringCsv(rows))[1]).toEqual(["1", "D1", "S0", "1c", "", "", ""]);
+  });
+});
+
+describe("wiring list of tied-on outputs", () => {
+  it("names each tie-on resistor from the logic supply net VLOGIC to its output line, as the SPICE deck wires it", () => {
+    // "1", "12", "7" on two positions: 2b is lit in every state, so it is tied on (no diodes).
+    const project = showingWith([" 1", "12", " 7"], { preset: "bench-5v-switch" }, 2);
+    const d = directDesign("tied-on", project);
+    expect(d.matrix.tiedOn).toEqual(["2b"]);
+    const parts = designators(d.spec, d.matrix, project.electrical);
+    const tieOns = tieOnRows(parts.drivers);
+    expect(tieOns).toEqual([
+      { ref: expect.stringMatching(/^R\d+$/), from: "VLOGIC", to: "2b", ohms: project.electrical.counterOutput.resistance },
+    ]);
+    const records = parseCsv(wiringCsv(wiringRows(d.matrix), tieOns));
+    const at = records.findIndex((r) => r[0] === TIE_ON_HEADING);
+    expect(records[at - 1]).toEqual([""]);
+    expect(records[at + 1]).toEqual(["T1", tieOns[0]!.ref, "VLOGIC", "2b", "", "", ""]);
+    // The deck has that resistor between the logic supply's node and the output line, and the supply as a source.
+    const deck = spiceNetlist(project, d.spec, d.matrix, 0, projectDesign(project.electrical, d.matrix));
+    expect(deck).toMatch(new RegExp(`^${tieOns[0]!.ref} vlogic o2b 470\\b`, "m"));
+    expect(deck).toMatch(/^VLOGIC vlogic 0 DC 5\b/m);
+    // The printable page and the papers builder carry the same rows.
+    const html = wiringPageHtml({
+      project,
+      matrix: d.matrix,
+      rows: wiringRows(d.matrix),
+      tieOns,
+      options: drawingOptions(project),
+      sheetCount: 1,
+    });
+    expect(html).toContain(`<td>T1</td><td><b>${tieOns[0]!.ref}</b></td><td>470 Ω</td><td>VLOGIC</td><td>2b</td>`);
+    expect(tieOnsOf(d)).toEqual(tieOns);
   });
 });
