@@ -129,7 +129,7 @@ export function driverNotes(e: ElectricalModel, tiedOn: readonly string[], desig
   notes.push(
     kind === "direct"
       ? "No segment supply: the counter lines (and the logic supply, for tied-on outputs) give all the current."
-      : `Segment supply +VSUP ${s.volts} V (${s.minVolts}-${s.maxVolts} V): the anode${e.driver.kind === "emitter-follower" ? " of every follower's collector" : " end of every segment"}.`,
+      : `Segment supply +VSUP ${s.volts} V (${s.minVolts}-${s.maxVolts} V): ${kind === "emitter-follower" ? "every follower's collector" : "the anode end of every segment"}.`,
   );
   if (tiedOn.length > 0) {
     notes.push(
@@ -294,11 +294,7 @@ export function layoutDriverSheets(input: DriverSheetInput): Sheet[] {
     const segments: Segment[] = [...frame.segments];
     const rects: Rect[] = [...frame.rects];
     const labels: Label[] = [...frame.labels];
-    const sheet = {
-      polygons: [] as Sheet["polygons"][number][],
-      circles: [] as Sheet["circles"][number][],
-      dots: [] as Sheet["dots"][number][],
-    };
+    const sheet: Pick<Ink, "polygons" | "circles" | "dots"> = { polygons: [], circles: [], dots: [] };
     if (i === 0) {
       labels.push(label("DRIVER STAGE, ONE PER OUTPUT", { x: content.x, y: content.y + 2.2 }, 2.5, "note", { bold: true }));
       segments.push(...placed.segments);

@@ -44,14 +44,14 @@ export function BudgetPanel() {
       <div class="panel-head">
         <h2 id="budget-h">Budget</h2>
         <label class="label" for="f-trim">
-          Emitter trim <HelpTip term="trim" />
+          Trim <HelpTip term="trim" />
         </label>
         <select
           id="f-trim"
           data-testid="trim-mode"
           value={app.trimMode()}
           onChange={(e) => app.setTrimMode(e.currentTarget.value as TrimMode)}
-          title="Whether the design (the BOM, the SPICE decks, the print view) takes the emitter-resistor trim"
+          title="Whether the design (the BOM, the SPICE decks, the driver sheet, the print view) takes the trim of the resistors that set the segment currents"
         >
           <For each={TRIM_MODES}>{(m) => <option value={m}>{TRIM_LABEL[m]}</option>}</For>
         </select>
@@ -145,7 +145,7 @@ export function BudgetPanel() {
               <span class="key key-tick" /> one lit state · <span class="key key-target" /> target · right: spread
             </p>
             <details class="trim" open>
-              <summary>Emitter resistors</summary>
+              <summary>Current-setting resistors</summary>
               <p class="design-note" data-testid="design-note">
                 {designNote(budgetDesign(b()))}
               </p>

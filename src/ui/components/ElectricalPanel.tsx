@@ -2,7 +2,7 @@
  * The Electrical panel: the preset picker, the driver kind, and every value
  * of the `electrical` section, grouped (supplies, segment, driver, counter
  * lines, matrix diodes, tolerances), each with its unit. Fields the chosen
- * kind does not use stay editable and say so. An edit here works out the
+ * kind does not use stay editable, greyed, and say so on hover. An edit here works out the
  * budget again, never the matrix (appState.ts).
  */
 import { For, Show } from "solid-js";
@@ -42,7 +42,11 @@ export function ElectricalPanel() {
     const f = props.field;
     return (
       <>
-        <label for={fieldId(f.path)} classList={{ unused: !usedBy(f, kind()) }}>
+        <label
+          for={fieldId(f.path)}
+          classList={{ unused: !usedBy(f, kind()) }}
+          title={[f.hint, usedBy(f, kind()) ? "" : "not used by the chosen driver"].filter(Boolean).join("; ") || undefined}
+        >
           {f.label}
         </label>
         <span class="with-unit">
@@ -64,9 +68,6 @@ export function ElectricalPanel() {
             }}
           />
           <span class="unit">{f.unit}</span>
-          <Show when={!usedBy(f, kind())}>
-            <span class="muted small">not used by this driver</span>
-          </Show>
         </span>
       </>
     );
@@ -77,7 +78,11 @@ export function ElectricalPanel() {
     const map = () => (f.path === "driver.emitterResistors" ? e().driver.emitterResistors : e().segment.seriesResistors);
     return (
       <>
-        <label for={fieldId(f.path)} classList={{ unused: !usedBy(f, kind()) }}>
+        <label
+          for={fieldId(f.path)}
+          classList={{ unused: !usedBy(f, kind()) }}
+          title={usedBy(f, kind()) ? "as 1a=330, 2b=300" : "not used by the chosen driver"}
+        >
           {f.label}
         </label>
         <span class="with-unit">

@@ -33,6 +33,8 @@ export interface NumberField {
   readonly kinds?: readonly DriverKind[];
   /** May be left empty for none (`driver.baseEmitterResistor`). */
   readonly optional?: boolean;
+  /** What the value means, beyond its label (the field's tooltip). */
+  readonly hint?: string;
 }
 
 export interface OverrideField {
@@ -67,7 +69,7 @@ export const ELECTRICAL_GROUPS: readonly FieldGroup[] = [
       f("supply.volts", "Nominal", "V", { kinds: TRANSISTOR }),
       f("supply.minVolts", "Lowest", "V", { kinds: TRANSISTOR }),
       f("supply.maxVolts", "Highest", "V", { kinds: TRANSISTOR }),
-      f("logicSupply.volts", "Logic supply (tie-on net)", "V"),
+      f("logicSupply.volts", "Logic supply", "V", { hint: "the net VLOGIC that tied-on outputs hang from" }),
     ],
   },
   {
@@ -76,7 +78,9 @@ export const ELECTRICAL_GROUPS: readonly FieldGroup[] = [
       f("segment.leds", "LEDs in series", ""),
       f("segment.targetA", "Target current", "mA"),
       f("segment.maxA", "Rated current", "mA"),
-      f("segment.seriesResistor", "Series resistor (a sink's collector resistor, 0 = none)", "Ω"),
+      f("segment.seriesResistor", "Series resistor", "Ω", {
+        hint: "in series with each segment; under a sink, its collector resistor (0 = none)",
+      }),
       f("segment.is", "LED saturation current", "A"),
       f("segment.n", "LED emission coefficient", ""),
       f("segment.rs", "LED series resistance", "Ω"),
@@ -87,8 +91,15 @@ export const ELECTRICAL_GROUPS: readonly FieldGroup[] = [
     title: "Driver",
     fields: [
       f("driver.emitterResistor", "Emitter resistor", "Ω", { kinds: SINK }),
-      f("driver.baseResistor", "Base resistor (0 = base on the line)", "Ω", { kinds: WITH_BASE_R }),
-      f("driver.baseEmitterResistor", "Base-emitter resistor (empty = none)", "Ω", { kinds: ["low-side-switch"], optional: true }),
+      f("driver.baseResistor", "Base resistor", "Ω", {
+        kinds: WITH_BASE_R,
+        hint: "from the output line to the base (0 = the base on the line)",
+      }),
+      f("driver.baseEmitterResistor", "Base-emitter resistor", "Ω", {
+        kinds: ["low-side-switch"],
+        optional: true,
+        hint: "holds the switch off (empty = none)",
+      }),
       f("driver.betaF", "Forward beta", "", { kinds: TRANSISTOR }),
       f("driver.betaR", "Reverse beta", "", { kinds: TRANSISTOR }),
       f("driver.is", "Saturation current", "A", { kinds: TRANSISTOR }),
@@ -104,8 +115,8 @@ export const ELECTRICAL_GROUPS: readonly FieldGroup[] = [
       f("counterOutput.high", "Active level", "V"),
       f("counterOutput.low", "Idle level", "V"),
       f("counterOutput.resistance", "Source resistance", "Ω"),
-      f("counterOutput.maxCurrentA", "Most a line may source", "mA"),
-      f("pullDown", "Pull-down on each output line", "Ω"),
+      f("counterOutput.maxCurrentA", "Line current limit", "mA", { hint: "the most one counter line may source" }),
+      f("pullDown", "Output pull-down", "Ω", { hint: "from each output line to ground" }),
     ],
   },
   {
@@ -127,7 +138,7 @@ export const ELECTRICAL_GROUPS: readonly FieldGroup[] = [
       f("tolerance.temperatureC.0", "Lowest temperature", "°C"),
       f("tolerance.temperatureC.1", "Highest temperature", "°C"),
       f("temperatureC", "Nominal temperature", "°C"),
-      f("ghostFraction", "Glow warning above (share of target)", ""),
+      f("ghostFraction", "Glow warning at", "", { hint: "share of the target current above which an unlit segment is said to glow" }),
     ],
   },
 ];
