@@ -115,8 +115,10 @@ export const ELECTRICAL_GROUPS: readonly FieldGroup[] = [
       f("counterOutput.high", "Active level", "V"),
       f("counterOutput.low", "Idle level", "V"),
       f("counterOutput.resistance", "Source resistance", "Ω"),
+      f("counterOutput.lowResistance", "Idle source resistance", "Ω", { hint: "an idle line behind its saturated transistor" }),
       f("counterOutput.maxCurrentA", "Line current limit", "mA", { hint: "the most one counter line may source" }),
       f("pullDown", "Output pull-down", "Ω", { hint: "from each output line to ground" }),
+      f("gatePullUp", "AND-gate pull-up", "Ω", { hint: "a coded counter's AND gates, each from the logic supply" }),
     ],
   },
   {
