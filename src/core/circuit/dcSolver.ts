@@ -13,7 +13,7 @@
 import type { Circuit } from "./circuit.ts";
 import { GROUND } from "./circuitNodes.ts";
 import { criticalVoltage, diodeConductance, diodeCurrent, diodeJunction, limitJunction, npnTransport } from "./deviceModels.ts";
-import { scratchLength, solveInPlace } from "./linearSolve.ts";
+import { SparsePattern, SparseSolver } from "./linearSolve.ts";
 import { thermalVoltage } from "./physics.ts";
 import { fail, ok, type Result } from "../result/result.ts";
 
@@ -125,6 +125,30 @@ interface Compiled {
   readonly junctions: readonly Junction[];
   readonly transistors: readonly Transistor[];
   readonly vtV: number;
+  /** Where the nodal matrix can be non-zero. */
+  readonly pattern: SparsePattern;
+  /** Its elimination, kept for every Newton iteration of this circuit. */
+  readonly solver: SparseSolver;
+}
+
+/** Every (row, column) of the nodal matrix that the stamps of `Stamper` write. */
+function* stampPositions(
+  conductances: readonly Conductance[],
+  junctions: readonly Junction[],
+  transistors: readonly Transistor[],
+): Generator<readonly [number, number]> {
+  function* pair(a: NodeRef, b: NodeRef): Generator<readonly [number, number]> {
+    if (a >= 0) yield [a, a];
+    if (b >= 0) yield [b, b];
+    if (a >= 0 && b >= 0) {
+      yield [a, b];
+      yield [b, a];
+    }
+  }
+  for (const c of conductances) yield* pair(c.a, c.b);
+  for (const d of junctions) yield* pair(d.a, d.k);
+  for (const t of transistors)
+    for (const row of [t.c, t.b, t.e]) for (const col of [t.b, t.e, t.c]) if (row >= 0 && col >= 0) yield [row, col];
 }
 
 function compile(circuit: Circuit, gminS: number): Compiled {
@@ -216,6 +240,7 @@ function compile(circuit: Circuit, gminS: number): Compiled {
         break;
     }
   }
+  const pattern = new SparsePattern(unknownNames.length, stampPositions(conductances, junctions, transistors));
   return {
     n: unknownNames.length,
     gminS,
@@ -227,6 +252,8 @@ function compile(circuit: Circuit, gminS: number): Compiled {
     junctions,
     transistors,
     vtV: vt,
+    pattern,
+    solver: new SparseSolver(pattern),
   };
 }
 
@@ -317,15 +344,16 @@ function newton(
   const rhs = ws.buffer("rhs", n);
   const scale = ws.buffer("scale", n);
   const b = ws.buffer("b", n);
-  const lu = ws.ints("lu", scratchLength(n));
+  const solver = cp.solver;
   const sp = new Stamper(G, rhs, scale, n, fixedV);
   const volt = (r: NodeRef): number => (r >= 0 ? (x[r] as number) : (fixedV[-r - 1] as number));
   let stepSmall = false;
   let stepWithinReltol = false;
   let useStored = first;
   const nJ = cp.junctions.length;
+  G.fill(0);
   for (let it = 1; it <= maxIterations; it++) {
-    G.fill(0);
+    cp.pattern.clear(G);
     rhs.fill(0);
     scale.fill(0);
     let limited = false;
@@ -373,16 +401,16 @@ function newton(
       sp.terminal(t.b, t, p.ibA, p.dIbVbe, p.dIbVbc, vbe, vbc);
       sp.terminal(t.e, t, -(p.icA + p.ibA), -(p.dIcVbe + p.dIbVbe), -(p.dIcVbc + p.dIbVbc), vbe, vbc);
     }
-    if (!useStored && !limited && stepSmall && kclHolds(G, rhs, x, scale, n)) return { converged: true, iterations: it };
+    if (!useStored && !limited && stepSmall && kclHolds(G, rhs, x, scale, cp.pattern)) return { converged: true, iterations: it };
     // The budget spent in a limit cycle within SPICE's own RELTOL (a node that
     // floats on picoamperes behind a small resistor, such as a dark
     // follower's emitter, moves by rounding): converged if KCL holds.
-    if (it === maxIterations && !useStored && !limited && stepWithinReltol && kclHolds(G, rhs, x, scale, n)) {
+    if (it === maxIterations && !useStored && !limited && stepWithinReltol && kclHolds(G, rhs, x, scale, cp.pattern)) {
       return { converged: true, iterations: it };
     }
     useStored = false;
     b.set(rhs);
-    if (!solveInPlace(G, b, n, lu)) return { converged: false, iterations: it };
+    if (!solver.solve(G, b)) return { converged: false, iterations: it };
     stepSmall = true;
     stepWithinReltol = true;
     for (let i = 0; i < n; i++) {
@@ -412,12 +440,15 @@ const KCL_ROUNDING = 1e-14;
 const ABSTOL_A = 1e-12;
 
 /** Kirchhoff's current law at x: (G x - rhs) is the sum of currents leaving each node. */
-function kclHolds(G: Float64Array, rhs: Float64Array, x: Float64Array, scale: Float64Array, n: number): boolean {
+function kclHolds(G: Float64Array, rhs: Float64Array, x: Float64Array, scale: Float64Array, pattern: SparsePattern): boolean {
+  const { n, rowStart, cols } = pattern;
   for (let i = 0; i < n; i++) {
     let r = -(rhs[i] as number);
     let size = Math.abs(rhs[i] as number);
     const row = i * n;
-    for (let j = 0; j < n; j++) {
+    const end = rowStart[i + 1] as number;
+    for (let c = rowStart[i] as number; c < end; c++) {
+      const j = cols[c] as number;
       const g = G[row + j] as number;
       if (g !== 0) {
         const t = g * (x[j] as number);
@@ -439,16 +470,6 @@ function kclHolds(G: Float64Array, rhs: Float64Array, x: Float64Array, scale: Fl
  */
 export class DcWorkspace {
   readonly #buffers = new Map<string, Float64Array>();
-  readonly #ints = new Map<string, Int32Array>();
-
-  /** A scratch array of `length` integers, like `buffer`. */
-  ints(name: string, length: number): Int32Array {
-    const have = this.#ints.get(name);
-    if (have && have.length >= length) return have.subarray(0, length);
-    const fresh = new Int32Array(length);
-    this.#ints.set(name, fresh);
-    return fresh;
-  }
 
   /** A scratch array of `length` doubles; its contents are whatever the last user left. */
   buffer(name: string, length: number): Float64Array {

@@ -21,7 +21,7 @@ export { DcWorkspace, DEFAULT_DC_SETTINGS, DEFAULT_GMIN_S, solveDc } from "./dcS
 export type { DcFailure, DcMethod, DcSettings, OperatingPoint, TransistorCurrents } from "./dcSolver.ts";
 export { criticalVoltage, diodeConductance, diodeCurrent, diodeJunction, limitJunction, npnTransport } from "./deviceModels.ts";
 export type { JunctionPoint, NpnParams, NpnPoint } from "./deviceModels.ts";
-export { scratchLength, solveInPlace } from "./linearSolve.ts";
+export { SparsePattern, SparseSolver } from "./linearSolve.ts";
 export { BOLTZMANN_J_PER_K, ELEMENTARY_CHARGE_C, shockleyVoltage, thermalVoltage, ZERO_CELSIUS_K } from "./physics.ts";
 export { highDrivers, highGates, highLines, isCoded, isGateInput, orPlane, sourceLines } from "./counterLines.ts";
 export { isLit, segmentCurrents, solveAllStates } from "./stateSweep.ts";

@@ -1,94 +1,224 @@
 /**
- * Dense Gaussian elimination with partial pivoting that skips zeros.
- *
- * A decoder's nodal matrix is mostly empty: a counter line touches only the
- * lines its diodes reach. Stored densely (small enough), but each pivot row
- * updates only the columns where it is non-zero, and only the rows that have
- * an entry under the pivot, so eliminating the counter lines first costs
- * little and fill-in stays in the block of buses and output lines.
+ * Sparse elimination for the nodal matrices of the DC solver.
  */
 
-/** Length of the integer scratch `solveInPlace` needs for an n by n system. */
-export function scratchLength(n: number): number {
-  return n * n + 2 * n + 1;
+/**
+ * The non-zero positions a circuit's nodal matrix can ever hold: one entry
+ * per stamp of a conductance, junction or transistor, and the diagonal.
+ * Fixed by the circuit's elements, so it is worked out once per circuit and
+ * every Newton iteration clears, checks and solves only these positions.
+ */
+export class SparsePattern {
+  /** Row r's columns are `cols[rowStart[r] .. rowStart[r + 1])`, ascending, each once. */
+  readonly rowStart: Int32Array;
+  readonly cols: Int32Array;
+
+  /** @param entries (row, column) pairs, repeats allowed; the diagonal is always included */
+  constructor(
+    readonly n: number,
+    entries: Iterable<readonly [number, number]>,
+  ) {
+    const rs: number[] = [];
+    const cs: number[] = [];
+    for (let i = 0; i < n; i++) {
+      rs.push(i);
+      cs.push(i);
+    }
+    for (const [r, c] of entries) {
+      if (r < 0 || c < 0 || r >= n || c >= n) throw new RangeError(`pattern entry (${r}, ${c}) outside ${n} by ${n}`);
+      rs.push(r);
+      cs.push(c);
+    }
+    // Bucket by row, then sort and drop repeats within each row.
+    const count = new Int32Array(n + 1);
+    for (const r of rs) count[r + 1] = (count[r + 1] as number) + 1;
+    for (let r = 0; r < n; r++) count[r + 1] = (count[r + 1] as number) + (count[r] as number);
+    const bucket = new Int32Array(rs.length);
+    const fillAt = count.slice(0, n);
+    for (let i = 0; i < rs.length; i++) {
+      const r = rs[i] as number;
+      bucket[fillAt[r] as number] = cs[i] as number;
+      fillAt[r] = (fillAt[r] as number) + 1;
+    }
+    this.rowStart = new Int32Array(n + 1);
+    let total = 0;
+    for (let r = 0; r < n; r++) {
+      const row = bucket.subarray(count[r] as number, count[r + 1] as number).sort();
+      this.rowStart[r] = total;
+      for (let i = 0; i < row.length; i++) if (i === 0 || row[i] !== row[i - 1]) bucket[total++] = row[i] as number;
+    }
+    this.rowStart[n] = total;
+    this.cols = bucket.slice(0, total);
+  }
+
+  /** Zeroes the pattern's positions of a dense row-major matrix. */
+  clear(a: Float64Array): void {
+    const { n, rowStart, cols } = this;
+    for (let r = 0; r < n; r++) {
+      const end = rowStart[r + 1] as number;
+      for (let c = rowStart[r] as number; c < end; c++) a[r * n + (cols[c] as number)] = 0;
+    }
+  }
 }
 
 /**
- * Solves `a x = b` in place: `a` (row-major n by n) and `b` are overwritten;
- * the solution is returned in `b`. Returns false for a singular matrix.
+ * Gaussian elimination with partial pivoting over a dense row-major matrix
+ * whose non-zeros lie in a known pattern. It keeps, per row and per column,
+ * a linked list of the positions that may be non-zero (the pattern, then the
+ * fill-in the elimination creates), so a pivot step visits only the rows
+ * under the pivot that hold an entry and only the columns the pivot row
+ * holds; nothing scans or clears a whole row or column. Columns are
+ * eliminated in order, each choosing the largest entry among the rows not
+ * yet used, as the textbook dense elimination does (the tests check the two
+ * agree to rounding).
  *
- * @param scratch optional integer work space of `scratchLength(n)`, so that a
- *   caller solving many systems allocates it once
+ * After a solve the matrix holds nothing outside the pattern, so a caller
+ * that clears the pattern (`SparsePattern.clear`) has a zero matrix again.
  */
-export function solveInPlace(a: Float64Array, b: Float64Array, n: number, scratch: Int32Array = new Int32Array(scratchLength(n))): boolean {
-  if (scratch.length < scratchLength(n))
-    throw new RangeError(`solveInPlace needs ${scratchLength(n)} scratch integers, got ${scratch.length}`);
-  const rows = scratch.subarray(0, n);
-  // Row k of U keeps its non-zero columns at cols[start[k] .. start[k + 1]).
-  const start = scratch.subarray(n, 2 * n + 1);
-  const cols = scratch.subarray(2 * n + 1);
-  let used = 0;
-  for (let k = 0; k < n; k++) {
-    // Partial pivoting: the largest entry of column k at or below the diagonal;
-    // the same pass lists the rows that need eliminating.
-    let p = k;
-    let best = Math.abs(a[k * n + k] as number);
-    let r = 0;
-    for (let i = k + 1; i < n; i++) {
-      const aik = a[i * n + k] as number;
-      if (aik === 0) continue;
-      rows[r++] = i;
-      const v = Math.abs(aik);
-      if (v > best) {
-        best = v;
-        p = i;
-      }
+export class SparseSolver {
+  readonly #n: number;
+  /** Per row, the first entry of its list; entries chain through `#nextInRow`. */
+  readonly #rowHead: Int32Array;
+  readonly #colHead: Int32Array;
+  readonly #patternRowHead: Int32Array;
+  readonly #patternColHead: Int32Array;
+  readonly #patternSize: number;
+  #row: Int32Array;
+  #col: Int32Array;
+  #nextInRow: Int32Array;
+  #nextInCol: Int32Array;
+  #size: number;
+  /** Whether (r, c) is listed, as a bit per position. */
+  readonly #listed: Uint8Array;
+  readonly #done: Uint8Array;
+  readonly #pivotRow: Int32Array;
+  readonly #x: Float64Array;
+
+  constructor(pattern: SparsePattern) {
+    const n = pattern.n;
+    this.#n = n;
+    const capacity = Math.max(16, 2 * pattern.cols.length);
+    this.#row = new Int32Array(capacity);
+    this.#col = new Int32Array(capacity);
+    this.#nextInRow = new Int32Array(capacity);
+    this.#nextInCol = new Int32Array(capacity);
+    this.#rowHead = new Int32Array(n).fill(-1);
+    this.#colHead = new Int32Array(n).fill(-1);
+    this.#listed = new Uint8Array(n * n);
+    this.#size = 0;
+    for (let r = 0; r < n; r++) {
+      const end = pattern.rowStart[r + 1] as number;
+      for (let c = pattern.rowStart[r] as number; c < end; c++) this.#add(r, pattern.cols[c] as number);
     }
-    if (!(best > 0) || !Number.isFinite(best)) return false;
-    if (p !== k) {
-      for (let j = k; j < n; j++) {
-        const t = a[k * n + j] as number;
-        a[k * n + j] = a[p * n + j] as number;
-        a[p * n + j] = t;
-      }
-      const t = b[k] as number;
-      b[k] = b[p] as number;
-      b[p] = t;
-      // Row p now holds the old row k, which may be zero in column k.
-      for (let c = 0; c < r; c++) if (rows[c] === p) rows[c] = a[p * n + k] !== 0 ? p : -1;
-    }
-    const rowK = k * n;
-    const pivot = a[rowK + k] as number;
-    start[k] = used;
-    for (let j = k + 1; j < n; j++) if (a[rowK + j] !== 0) cols[used++] = j;
-    const first = start[k] as number;
-    const bk = b[k] as number;
-    for (let c0 = 0; c0 < r; c0++) {
-      const i = rows[c0] as number;
-      if (i < 0) continue;
-      const rowI = i * n;
-      const aik = a[rowI + k] as number;
-      if (aik === 0) continue;
-      const f = aik / pivot;
-      a[rowI + k] = 0;
-      for (let c = first; c < used; c++) {
-        const j = cols[c] as number;
-        a[rowI + j] = (a[rowI + j] as number) - f * (a[rowK + j] as number);
-      }
-      b[i] = (b[i] as number) - f * bk;
-    }
+    this.#patternSize = this.#size;
+    this.#patternRowHead = this.#rowHead.slice();
+    this.#patternColHead = this.#colHead.slice();
+    this.#done = new Uint8Array(n);
+    this.#pivotRow = new Int32Array(n);
+    this.#x = new Float64Array(n);
   }
-  start[n] = used;
-  for (let k = n - 1; k >= 0; k--) {
-    const rowK = k * n;
-    let s = b[k] as number;
-    const end = start[k + 1] as number;
-    for (let c = start[k] as number; c < end; c++) {
-      const j = cols[c] as number;
-      s -= (a[rowK + j] as number) * (b[j] as number);
+
+  #add(r: number, c: number): void {
+    if (this.#size === this.#row.length) {
+      const grow = (a: Int32Array): Int32Array => {
+        const b = new Int32Array(2 * a.length);
+        b.set(a);
+        return b;
+      };
+      this.#row = grow(this.#row);
+      this.#col = grow(this.#col);
+      this.#nextInRow = grow(this.#nextInRow);
+      this.#nextInCol = grow(this.#nextInCol);
     }
-    b[k] = s / (a[rowK + k] as number);
+    const e = this.#size++;
+    this.#row[e] = r;
+    this.#col[e] = c;
+    this.#nextInRow[e] = this.#rowHead[r] as number;
+    this.#rowHead[r] = e;
+    this.#nextInCol[e] = this.#colHead[c] as number;
+    this.#colHead[c] = e;
+    this.#listed[r * this.#n + c] = 1;
   }
-  for (let k = 0; k < n; k++) if (!Number.isFinite(b[k] as number)) return false;
-  return true;
+
+  /**
+   * Solves `a x = b`: `a` (row-major n by n, zero outside the pattern) is
+   * overwritten inside the pattern and zeroed outside it; the solution is
+   * returned in `b`. Returns false for a singular matrix.
+   */
+  solve(a: Float64Array, b: Float64Array): boolean {
+    const ok = this.#eliminate(a, b);
+    this.#forgetFill(a);
+    return ok;
+  }
+
+  #eliminate(a: Float64Array, b: Float64Array): boolean {
+    const n = this.#n;
+    const done = this.#done;
+    done.fill(0);
+    for (let k = 0; k < n; k++) {
+      let p = -1;
+      let best = 0;
+      for (let e = this.#colHead[k] as number; e >= 0; e = this.#nextInCol[e] as number) {
+        const r = this.#row[e] as number;
+        if (done[r] === 1) continue;
+        const v = Math.abs(a[r * n + k] as number);
+        if (v > best) {
+          best = v;
+          p = r;
+        }
+      }
+      if (p < 0 || !Number.isFinite(best)) return false;
+      done[p] = 1;
+      this.#pivotRow[k] = p;
+      const rowP = p * n;
+      const pivot = a[rowP + k] as number;
+      const bp = b[p] as number;
+      for (let e = this.#colHead[k] as number; e >= 0; e = this.#nextInCol[e] as number) {
+        const r = this.#row[e] as number;
+        if (done[r] === 1) continue;
+        const rowR = r * n;
+        const ark = a[rowR + k] as number;
+        if (ark === 0) continue;
+        const f = ark / pivot;
+        a[rowR + k] = 0;
+        for (let q = this.#rowHead[p] as number; q >= 0; q = this.#nextInRow[q] as number) {
+          const j = this.#col[q] as number;
+          if (j <= k) continue;
+          const apj = a[rowP + j] as number;
+          if (apj === 0) continue;
+          const at = rowR + j;
+          if (this.#listed[at] === 0) this.#add(r, j);
+          a[at] = (a[at] as number) - f * apj;
+        }
+        b[r] = (b[r] as number) - f * bp;
+      }
+    }
+    const x = this.#x;
+    for (let k = n - 1; k >= 0; k--) {
+      const p = this.#pivotRow[k] as number;
+      const rowP = p * n;
+      let s = b[p] as number;
+      for (let q = this.#rowHead[p] as number; q >= 0; q = this.#nextInRow[q] as number) {
+        const j = this.#col[q] as number;
+        if (j > k) s -= (a[rowP + j] as number) * (x[j] as number);
+      }
+      x[k] = s / (a[rowP + k] as number);
+    }
+    for (let k = 0; k < n; k++) if (!Number.isFinite(x[k] as number)) return false;
+    b.set(x);
+    return true;
+  }
+
+  /** Zeroes and unlists the fill-in, so the lists hold the pattern again. */
+  #forgetFill(a: Float64Array): void {
+    const n = this.#n;
+    for (let e = this.#patternSize; e < this.#size; e++) {
+      const at = (this.#row[e] as number) * n + (this.#col[e] as number);
+      a[at] = 0;
+      this.#listed[at] = 0;
+    }
+    this.#size = this.#patternSize;
+    this.#rowHead.set(this.#patternRowHead);
+    this.#colHead.set(this.#patternColHead);
+  }
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { solveInPlace } from "../../../../src/core/circuit/linearSolve.ts";
+import { SparsePattern, SparseSolver } from "../../../../src/core/circuit/linearSolve.ts";
+import { solveInPlace } from "../../../support/denseSolve.ts";
 
 /** A small deterministic generator, so the matrices are the same every run. */
 function lcg(seed: number): () => number {
@@ -7,7 +8,7 @@ function lcg(seed: number): () => number {
   return () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32) * 2 - 1;
 }
 
-describe("solveInPlace", () => {
+describe("solveInPlace (the dense reference)", () => {
   it("solves sparse and dense systems to rounding", () => {
     const rnd = lcg(7);
     for (const [n, density] of [
@@ -37,5 +38,65 @@ describe("solveInPlace", () => {
   it("reports a singular matrix", () => {
     expect(solveInPlace(Float64Array.from([1, 2, 2, 4]), Float64Array.from([1, 1]), 2)).toBe(false);
     expect(solveInPlace(Float64Array.from([0, 0, 0, 1]), Float64Array.from([1, 1]), 2)).toBe(false);
+  });
+});
+
+describe("SparseSolver", () => {
+  /** A random system with its pattern, diagonally weighted like a nodal matrix. */
+  function system(n: number, density: number, seed: number): { a: Float64Array; entries: [number, number][] } {
+    const rnd = lcg(seed);
+    const a = new Float64Array(n * n);
+    const entries: [number, number][] = [];
+    for (let i = 0; i < n; i++)
+      for (let j = 0; j < n; j++)
+        if (i === j || Math.abs(rnd()) < density) {
+          a[i * n + j] = rnd();
+          entries.push([i, j]);
+        }
+    for (let i = 0; i < n; i++) a[i * n + i] = (a[i * n + i] as number) + 0.1;
+    return { a, entries };
+  }
+
+  it("agrees with the dense elimination, and leaves nothing outside the pattern, solve after solve", () => {
+    for (const [n, density, seed] of [
+      [1, 1, 3],
+      [8, 0.3, 4],
+      [40, 0.05, 5],
+      [90, 0.02, 6],
+    ] as const) {
+      const { a, entries } = system(n, density, seed);
+      const pattern = new SparsePattern(n, entries);
+      const solver = new SparseSolver(pattern);
+      const rnd = lcg(seed + 100);
+      const work = new Float64Array(n * n);
+      for (let round = 0; round < 3; round++) {
+        const b = Float64Array.from({ length: n }, () => rnd());
+        const dense = b.slice();
+        expect(solveInPlace(a.slice(), dense, n)).toBe(true);
+        pattern.clear(work);
+        for (const [i, j] of entries) work[i * n + j] = a[i * n + j] as number;
+        const sparse = b.slice();
+        expect(solver.solve(work, sparse)).toBe(true);
+        for (let i = 0; i < n; i++) expect(sparse[i]).toBeCloseTo(dense[i] as number, 9);
+        pattern.clear(work);
+        expect(work.every((v) => v === 0)).toBe(true);
+      }
+    }
+  });
+
+  it("pivots past a zero on the diagonal and reports a singular matrix", () => {
+    const pattern = new SparsePattern(2, [
+      [0, 1],
+      [1, 0],
+    ]);
+    const solver = new SparseSolver(pattern);
+    const b = Float64Array.from([2, 3]);
+    expect(solver.solve(Float64Array.from([0, 1, 1, 0]), b)).toBe(true);
+    expect([...b]).toEqual([3, 2]);
+    expect(solver.solve(Float64Array.from([1, 2, 2, 4]), Float64Array.from([1, 1]))).toBe(false);
+  });
+
+  it("refuses a pattern entry outside the matrix", () => {
+    expect(() => new SparsePattern(2, [[0, 2]])).toThrow(RangeError);
   });
 });
