@@ -151,7 +151,7 @@ function* stampPositions(
     for (const row of [t.c, t.b, t.e]) for (const col of [t.b, t.e, t.c]) if (row >= 0 && col >= 0) yield [row, col];
 }
 
-function compile(circuit: Circuit, gminS: number): Compiled {
+function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
   const vt = thermalVoltage(circuit.temperatureC);
   const fixedNames: string[] = [GROUND];
   const fixedVolts: number[] = [0];
@@ -253,7 +253,7 @@ function compile(circuit: Circuit, gminS: number): Compiled {
     transistors,
     vtV: vt,
     pattern,
-    solver: new SparseSolver(pattern),
+    solver: new SparseSolver(pattern, ws.listed(unknownNames.length * unknownNames.length)),
   };
 }
 
@@ -471,6 +471,14 @@ function kclHolds(G: Float64Array, rhs: Float64Array, x: Float64Array, scale: Fl
 export class DcWorkspace {
   readonly #buffers = new Map<string, Float64Array>();
 
+  #listed: Int32Array | undefined;
+
+  /** Integer work space of at least `length` for `SparseSolver`, shared by every solve. */
+  listed(length: number): Int32Array {
+    if (!this.#listed || this.#listed.length < length) this.#listed = new Int32Array(length);
+    return this.#listed;
+  }
+
   /** A scratch array of `length` doubles; its contents are whatever the last user left. */
   buffer(name: string, length: number): Float64Array {
     const have = this.#buffers.get(name);
@@ -498,7 +506,7 @@ export function solveDc(
   settings: DcSettings = DEFAULT_DC_SETTINGS,
   workspace: DcWorkspace = new DcWorkspace(),
 ): Result<OperatingPoint, DcFailure> {
-  const cp = compile(circuit, settings.gminS);
+  const cp = compile(circuit, settings.gminS, workspace);
   const jCount = cp.junctions.length + 2 * cp.transistors.length;
   const fresh = (): NewtonState => {
     const x = new Float64Array(cp.n);

@@ -75,6 +75,10 @@ export class SparsePattern {
  * After a solve the matrix holds nothing outside the pattern, so a caller
  * that clears the pattern (`SparsePattern.clear`) has a zero matrix again.
  */
+let stampCounter = 0;
+/** The last solver built on each work space: the only one that may use it. */
+const latestOn = new WeakMap<ArrayBufferLike, SparseSolver>();
+
 export class SparseSolver {
   readonly #n: number;
   /** Per row, the first entry of its list; entries chain through `#nextInRow`. */
@@ -83,20 +87,33 @@ export class SparseSolver {
   readonly #patternRowHead: Int32Array;
   readonly #patternColHead: Int32Array;
   readonly #patternSize: number;
+  readonly #patternNextInRow: Int32Array;
   #row: Int32Array;
   #col: Int32Array;
   #nextInRow: Int32Array;
   #nextInCol: Int32Array;
   #size: number;
-  /** Whether (r, c) is listed, as a bit per position. */
-  readonly #listed: Uint8Array;
+  /** `#listed[r * n + c] === #stamp` when (r, c) is listed; other values mean not listed. */
+  readonly #listed: Int32Array;
+  readonly #stamp: number;
   readonly #done: Uint8Array;
   readonly #pivotRow: Int32Array;
   readonly #x: Float64Array;
 
-  constructor(pattern: SparsePattern) {
+  /**
+   * @param listed optional n * n integers of work space, shared by the
+   *   solvers of one thread one after another (each stamps it with a number of
+   *   its own, so none needs clearing; building a solver retires the last one
+   *   built on the same space)
+   */
+  constructor(pattern: SparsePattern, listed: Int32Array = new Int32Array(pattern.n * pattern.n)) {
     const n = pattern.n;
+    if (listed.length < n * n) throw new RangeError(`SparseSolver needs ${n * n} integers of work space, got ${listed.length}`);
     this.#n = n;
+    this.#listed = listed;
+    stampCounter = stampCounter >= 0x7ffffffe ? 1 : stampCounter + 1;
+    this.#stamp = stampCounter;
+    latestOn.set(listed.buffer, this);
     const capacity = Math.max(16, 2 * pattern.cols.length);
     this.#row = new Int32Array(capacity);
     this.#col = new Int32Array(capacity);
@@ -104,13 +121,13 @@ export class SparseSolver {
     this.#nextInCol = new Int32Array(capacity);
     this.#rowHead = new Int32Array(n).fill(-1);
     this.#colHead = new Int32Array(n).fill(-1);
-    this.#listed = new Uint8Array(n * n);
     this.#size = 0;
     for (let r = 0; r < n; r++) {
       const end = pattern.rowStart[r + 1] as number;
       for (let c = pattern.rowStart[r] as number; c < end; c++) this.#add(r, pattern.cols[c] as number);
     }
     this.#patternSize = this.#size;
+    this.#patternNextInRow = this.#nextInRow.slice(0, this.#size);
     this.#patternRowHead = this.#rowHead.slice();
     this.#patternColHead = this.#colHead.slice();
     this.#done = new Uint8Array(n);
@@ -137,7 +154,7 @@ export class SparseSolver {
     this.#rowHead[r] = e;
     this.#nextInCol[e] = this.#colHead[c] as number;
     this.#colHead[c] = e;
-    this.#listed[r * this.#n + c] = 1;
+    this.#listed[r * this.#n + c] = this.#stamp;
   }
 
   /**
@@ -146,6 +163,7 @@ export class SparseSolver {
    * returned in `b`. Returns false for a singular matrix.
    */
   solve(a: Float64Array, b: Float64Array): boolean {
+    if (latestOn.get(this.#listed.buffer) !== this) throw new Error("bug: a newer SparseSolver took this work space");
     const ok = this.#eliminate(a, b);
     this.#forgetFill(a);
     return ok;
@@ -173,6 +191,13 @@ export class SparseSolver {
       const rowP = p * n;
       const pivot = a[rowP + k] as number;
       const bp = b[p] as number;
+      // The pivot row is final now and is walked once per row under it: unlink
+      // its entries in columns already eliminated (the reset relinks them).
+      for (let q = this.#rowHead[p] as number, prev = -1; q >= 0; q = this.#nextInRow[q] as number) {
+        if ((this.#col[q] as number) > k) prev = q;
+        else if (prev < 0) this.#rowHead[p] = this.#nextInRow[q] as number;
+        else this.#nextInRow[prev] = this.#nextInRow[q] as number;
+      }
       for (let e = this.#colHead[k] as number; e >= 0; e = this.#nextInCol[e] as number) {
         const r = this.#row[e] as number;
         if (done[r] === 1) continue;
@@ -187,7 +212,7 @@ export class SparseSolver {
           const apj = a[rowP + j] as number;
           if (apj === 0) continue;
           const at = rowR + j;
-          if (this.#listed[at] === 0) this.#add(r, j);
+          if (this.#listed[at] !== this.#stamp) this.#add(r, j);
           a[at] = (a[at] as number) - f * apj;
         }
         b[r] = (b[r] as number) - f * bp;
@@ -218,6 +243,7 @@ export class SparseSolver {
       this.#listed[at] = 0;
     }
     this.#size = this.#patternSize;
+    this.#nextInRow.set(this.#patternNextInRow);
     this.#rowHead.set(this.#patternRowHead);
     this.#colHead.set(this.#patternColHead);
   }
