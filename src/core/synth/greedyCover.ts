@@ -32,6 +32,8 @@ export interface ShapePool {
   readonly colBits: readonly Uint32Array[];
   /** Words per state bit set. */
   readonly words: number;
+  /** Shapes cut to the outputs a bus may feed, by those outputs and the banned shapes (filled by the greedy). */
+  readonly cut: Map<string, { readonly t: readonly Int32Array[]; readonly s: readonly Int32Array[] }>;
 }
 
 /**
@@ -59,13 +61,58 @@ export function busShapes(p: SharingProblem, meter: WorkMeter, maxShapes: number
     const ra = p.row[a] ?? [];
     add(ra);
     for (let b = a + 1; b < p.n && outputs.length < maxShapes; b++) {
-      if (meter.charge(ra.length)) return { outputs, colBits, words };
+      if (meter.charge(ra.length)) return { outputs, colBits, words, cut: new Map() };
       const lb = p.lit[b] ?? [];
       const t = ra.filter((o) => lb[o]);
       if (t.length >= 2) add(t);
     }
   }
-  return { outputs, colBits, words };
+  return { outputs, colBits, words, cut: new Map() };
+}
+
+/**
+ * The pool's shapes restricted to the outputs a bus may feed (`busOk`), each
+ * with the states lighting all of them; shapes that repeat or are banned are
+ * left out. Level assignments with the same bus outputs share the result
+ * (kept in `pool.cut`), which is charged to the meter once. Null when the
+ * meter ran out.
+ */
+function shapesFor(
+  pool: ShapePool,
+  busOk: readonly boolean[],
+  banned: ReadonlySet<string>,
+  meter: WorkMeter,
+): { readonly t: readonly Int32Array[]; readonly s: readonly Int32Array[] } | null {
+  const key = `${busOk.map((x) => (x ? 1 : 0)).join("")}|${[...banned].sort().join(";")}`;
+  const hit = pool.cut.get(key);
+  if (hit) return hit;
+  const shapeT: Int32Array[] = [];
+  const shapeS: Int32Array[] = [];
+  const seen = new Set<string>();
+  const acc = new Uint32Array(pool.words);
+  for (const c of pool.outputs) {
+    const t = c.filter((o) => busOk[o] === true);
+    if (meter.charge(c.length)) return null;
+    if (t.length === 0) continue;
+    const tk = t.join(",");
+    if (seen.has(tk) || banned.has(tk)) continue;
+    seen.add(tk);
+    acc.fill(0xffffffff);
+    for (const o of t) {
+      const cb = pool.colBits[o] as Uint32Array;
+      for (let w = 0; w < pool.words; w++) acc[w]! &= cb[w]!;
+    }
+    if (meter.charge(t.length * pool.words)) return null;
+    const s: number[] = [];
+    for (let w = 0; w < pool.words; w++) {
+      for (let x = acc[w]!; x !== 0; x &= x - 1) s.push(w * 32 + (31 - Math.clz32(x & -x)));
+    }
+    shapeT.push(t);
+    shapeS.push(Int32Array.from(s));
+  }
+  const out = { t: shapeT, s: shapeS };
+  pool.cut.set(key, out);
+  return out;
 }
 
 /**
@@ -96,32 +143,10 @@ export function greedyCover(
   // Links first, then bus shapes restricted to the outputs a bus may feed,
   // each with the states that light all of them.
   const links = linkPairs(p, rules).filter((l) => levelRules.link(rules, lvl(l.from), lvl(l.to)));
-  const shapeT: Int32Array[] = [];
-  const shapeS: Int32Array[] = [];
-  if (busOk.some(Boolean)) {
-    const seen = new Set<string>();
-    const acc = new Uint32Array(pool.words);
-    for (const c of pool.outputs) {
-      const t = c.filter((o) => busOk[o] === true);
-      if (meter.charge(c.length)) return null;
-      if (t.length === 0) continue;
-      const key = t.join(",");
-      if (seen.has(key) || banned.has(key)) continue;
-      seen.add(key);
-      acc.fill(0xffffffff);
-      for (const o of t) {
-        const cb = pool.colBits[o] as Uint32Array;
-        for (let w = 0; w < pool.words; w++) acc[w]! &= cb[w]!;
-      }
-      if (meter.charge(t.length * pool.words)) return null;
-      const s: number[] = [];
-      for (let w = 0; w < pool.words; w++) {
-        for (let x = acc[w]!; x !== 0; x &= x - 1) s.push(w * 32 + (31 - Math.clz32(x & -x)));
-      }
-      shapeT.push(t);
-      shapeS.push(Int32Array.from(s));
-    }
-  }
+  const shapes = busOk.some(Boolean) ? shapesFor(pool, busOk, banned, meter) : null;
+  if (shapes === null && busOk.some(Boolean)) return null;
+  const shapeT = shapes?.t ?? [];
+  const shapeS = shapes?.s ?? [];
 
   const nLinks = links.length;
   // A row that stands for several states saves (and costs) that many times over.

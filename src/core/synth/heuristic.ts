@@ -20,7 +20,8 @@
  */
 import { busShapes, greedyCover, GREEDY_ORDERS, type ShapePool } from "./greedyCover.ts";
 import { directPlan, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
-import { expandPlan, reduceRows, unionPlans } from "./reduce.ts";
+import { contractPlan, expandPlan, reduceRows, unionPlans } from "./reduce.ts";
+import { refinePlan } from "./refine.ts";
 import { comparePlans } from "./tieBreak.ts";
 import { WorkMeter } from "./workMeter.ts";
 
@@ -31,6 +32,13 @@ const EXHAUSTIVE_ASSIGNMENTS = 256;
 /** Ruin-and-recreate budget: rounds, and bus shapes tried per round. */
 const RECREATE_ROUNDS = 6;
 const RECREATE_BUSES = 12;
+/**
+ * Most work of the whole problem's greedy once the positions have a plan:
+ * on 00-23 it finds buses across positions (mixed 87 -> 85 with 2 million
+ * units, 87 with 1 million), on the bigger counters the positions' plans
+ * win, so it is kept short for the first answer's speed.
+ */
+const WHOLE_AFTER_POSITIONS_WORK = 1_000_000;
 /** Most candidate bus shapes (rows and row intersections). */
 const MAX_SHAPES = 20_000;
 
@@ -65,28 +73,50 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules, opts: Heur
 
   // Position by position. Under the uniform policy every path of the whole
   // matrix has one length, so each position must go through buses (the
-  // all-direct plan is the other choice, and is `best` already).
+  // all-direct plan is the other choice, and is `best` already). Each
+  // position's plan is refined with exact row covers (refine.ts), then their
+  // union is refined on the whole problem, where buses may span positions.
+  const whole = reduceRows(p);
   const groups = [...new Set(p.group)].sort((a, b) => a - b);
+  let positionsDone = false;
   if (groups.length > 1 && (rules.policy !== "uniform" || rules.buses)) {
     const parts: SharingPlan[] = [];
-    // Each position gets an even portion of what is left, the whole problem one more.
+    // Each position gets an even portion of half of what is left; the union's refinement and the whole problem share the rest.
+    const positions = meter.portion(2);
     for (const [i, g] of groups.entries()) {
       const r = reduceRows(
         p,
         p.group.flatMap((x, o) => (x === g ? [o] : [])),
       );
-      const portion = meter.portion(groups.length - i + 1);
+      const portion = positions.portion(groups.length - i);
       const part = coreHeuristic(r.problem, rules, portion, rules.policy === "uniform");
-      meter.settle(portion);
-      if (part === null) break;
-      parts.push(expandPlan(r, part));
+      const refined = part === null ? null : refinePlan(r.problem, rules, part, portion);
+      positions.settle(portion);
+      if (refined === null) break;
+      parts.push(expandPlan(r, refined));
     }
-    if (parts.length === groups.length) consider(unionPlans(parts));
+    meter.settle(positions);
+    if (parts.length === groups.length) {
+      positionsDone = true;
+      const union = unionPlans(parts);
+      consider(union);
+      const portion = meter.portion(2);
+      consider(expandPlan(whole, refinePlan(whole.problem, rules, contractPlan(whole, union), portion)));
+      meter.settle(portion);
+    }
   }
-  // The whole problem, identical states merged.
-  const whole = reduceRows(p);
-  const plan = coreHeuristic(whole.problem, rules, meter, false);
-  if (plan !== null) consider(expandPlan(whole, plan));
+  // The whole problem, identical states merged: after the positions only a
+  // short greedy (it finds buses across positions on small counters), alone
+  // the greedy and its refinement.
+  if (positionsDone) {
+    const portion = meter.portion(1, WHOLE_AFTER_POSITIONS_WORK);
+    const plan = coreHeuristic(whole.problem, rules, portion, false);
+    meter.settle(portion);
+    if (plan !== null) consider(expandPlan(whole, plan));
+  } else {
+    const plan = coreHeuristic(whole.problem, rules, meter, false);
+    if (plan !== null) consider(expandPlan(whole, refinePlan(whole.problem, rules, plan, meter)));
+  }
   return best;
 }
 

@@ -54,10 +54,12 @@ export class WorkMeter {
 
   /**
    * A meter for one of `parts` pieces of what is left of this budget, with
-   * the same deadline; `settle` charges its work back here.
+   * the same deadline, and at most `most` units; `settle` charges its work
+   * back here.
    */
-  portion(parts: number): WorkMeter {
-    return new WorkMeter(Math.max(0, Math.floor((this.maxWork - this.work) / Math.max(1, parts))), this.deadlineMs);
+  portion(parts: number, most = Infinity): WorkMeter {
+    const share = Math.max(0, Math.floor((this.maxWork - this.work) / Math.max(1, parts)));
+    return new WorkMeter(Math.min(most, share), this.deadlineMs);
   }
 
   /** Charges a portion's work (see `portion`) to this meter. */
