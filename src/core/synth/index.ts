@@ -8,6 +8,7 @@ export { synthesize, synthSettings, verified } from "./synthesize.ts";
 export type { SynthFailure, SynthHooks, SynthMode, SynthProgress, SynthSettings } from "./synthesize.ts";
 export { synthesizeDirect } from "./direct.ts";
 export { HEURISTIC_DEFAULT_WORK, heuristicPlan } from "./heuristic.ts";
+export { REFINE_MAX_ROW_OUTPUTS, refineApplies, refinePlan } from "./refine.ts";
 export type { HeuristicOptions } from "./heuristic.ts";
 export { busShapes, greedyCover, GREEDY_ORDERS } from "./greedyCover.ts";
 export type { GreedyOrder, ShapePool } from "./greedyCover.ts";
