@@ -19,6 +19,7 @@
  */
 import { candidateFamily, DEFAULT_FAMILY_LIMITS, type FamilyLimits } from "./candidates.ts";
 import { lpLowerBound, trivialLowerBound } from "./bounds.ts";
+import { lagrangeBound } from "./lagrangeBound.ts";
 import { buildSharingModel } from "./model.ts";
 import { searchApplies, searchPlan } from "./search.ts";
 import { litCount, planCost, planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
@@ -123,6 +124,38 @@ export interface ExactOutcome {
   readonly deadlineHit: boolean;
 }
 
+/**
+ * The bound of the relaxed problem without levels (valid at depth 2): the
+ * per-state Lagrangian bound (lagrangeBound.ts) where every row has at most
+ * 16 lit outputs, else the column-generation LP bound (bounds.ts). Under
+ * uniform the exact stage weighs the all-bus matrix against the direct one,
+ * so the bound is the smaller of the all-bus bound and the direct count.
+ */
+async function relaxedBound(
+  p: SharingProblem,
+  rules: SharingRules,
+  upper: number,
+  budget: WorkBudget,
+  deadlineMs: number,
+  loadHighs: HighsLoader,
+): Promise<{ bound: number; deadlineHit: boolean }> {
+  const uniform = (b: number): number => (rules.policy === "uniform" ? Math.min(litCount(p), b) : b);
+  const lag = lagrangeBound(p, rules, { maxWork: budget.lagrangeWork, deadlineMs, upper });
+  if (lag.bound !== null) return { bound: uniform(lag.bound), deadlineHit: lag.deadlineHit };
+  try {
+    const lpHighs = await loadHighs();
+    const lp = lpLowerBound(p, rules, {
+      solveLp: (text) => lpHighs.createModel({ format: "lp", data: text }),
+      deadlineMs,
+      maxWork: budget.lpWork,
+    });
+    return { bound: lp.bound ?? 0, deadlineHit: lag.deadlineHit || lp.deadlineHit };
+  } catch {
+    // A failed LP leaves the combinatorial bound.
+    return { bound: 0, deadlineHit: lag.deadlineHit };
+  }
+}
+
 /** HiGHS model status codes used here (`highs.constants.modelStatus`). */
 const STATUS_OPTIMAL = 7;
 /** HiGHS model status: its own time limit (the deadline) stopped it. */
@@ -182,20 +215,9 @@ async function exactReduced(
   // the heuristic's matrix by one diode at most on the bench.
   if (!family.complete && rules.depthLimit <= 2) {
     const plan = warm;
-    let lowerBound = floor;
-    try {
-      const lpHighs = await opts.loadHighs();
-      const lp = lpLowerBound(p, rules, {
-        solveLp: (text) => lpHighs.createModel({ format: "lp", data: text }),
-        deadlineMs,
-        maxWork: budget.lpWork,
-      });
-      if (lp.bound !== null) lowerBound = Math.max(lowerBound, lp.bound);
-      deadlineHit ||= lp.deadlineHit;
-    } catch {
-      // A failed LP leaves the combinatorial bound.
-    }
-    lowerBound = Math.min(lowerBound, warmCount);
+    const relaxed = await relaxedBound(p, rules, warmCount, budget, deadlineMs, opts.loadHighs);
+    deadlineHit ||= relaxed.deadlineHit;
+    const lowerBound = Math.min(Math.max(floor, relaxed.bound), warmCount);
     return { columns: 0, complete: false, plan, lowerBound, status: lowerBound === warmCount ? "optimal" : "time-limit", deadlineHit };
   }
 

@@ -38,7 +38,7 @@ const RECREATE_BUSES = 12;
  * units, 87 with 1 million), on the bigger counters the positions' plans
  * win, so it is kept short for the first answer's speed.
  */
-const WHOLE_AFTER_POSITIONS_WORK = 1_000_000;
+export const WHOLE_AFTER_POSITIONS_WORK = 1_000_000;
 /** Most candidate bus shapes (rows and row intersections). */
 const MAX_SHAPES = 20_000;
 
@@ -53,6 +53,12 @@ export const HEURISTIC_DEFAULT_WORK = 60_000_000;
 export interface HeuristicOptions {
   /** The meter to charge (its budget and deadline); by default `HEURISTIC_DEFAULT_WORK` and no deadline. */
   readonly meter?: WorkMeter;
+  /**
+   * Most work of the whole problem's greedy once the positions have a plan
+   * (default `WHOLE_AFTER_POSITIONS_WORK`, for a quick first answer); the
+   * exact mode passes more.
+   */
+  readonly wholeAfterPositions?: number;
 }
 
 /**
@@ -109,7 +115,7 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules, opts: Heur
   // short greedy (it finds buses across positions on small counters), alone
   // the greedy and its refinement.
   if (positionsDone) {
-    const portion = meter.portion(1, WHOLE_AFTER_POSITIONS_WORK);
+    const portion = meter.portion(1, opts.wholeAfterPositions ?? WHOLE_AFTER_POSITIONS_WORK);
     const plan = coreHeuristic(whole.problem, rules, portion, false);
     meter.settle(portion);
     if (plan !== null) consider(expandPlan(whole, plan));

@@ -20,6 +20,8 @@ export { WorkMeter } from "./workMeter.ts";
 export { SEARCH_MAX_OUTPUTS, searchApplies, searchPlan } from "./search.ts";
 export type { SearchOptions, SearchOutcome } from "./search.ts";
 export { lpLowerBound, trivialLowerBound } from "./bounds.ts";
+export { LAGRANGE_MAX_ROW_OUTPUTS, lagrangeBound } from "./lagrangeBound.ts";
+export type { LagrangeBound, LagrangeOptions } from "./lagrangeBound.ts";
 export type { LpBound, LpBoundOptions, LpModelLike } from "./bounds.ts";
 export { candidateFamily, DEFAULT_FAMILY_LIMITS } from "./candidates.ts";
 export type { BusCandidate, CandidateFamily, FamilyLimits } from "./candidates.ts";

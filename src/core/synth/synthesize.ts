@@ -95,7 +95,8 @@ export async function synthesize(
   const deadlineMs = started + settings.timeLimitMs - deadlineMarginMs(settings.timeLimitMs);
   const budget = workBudget(settings.timeLimitMs);
   const meter = new WorkMeter(Math.min(budget.heuristicWork, HEURISTIC_DEFAULT_WORK), deadlineMs);
-  const heuristic = heuristicPlan(p, rules, { meter });
+  // The quick answer (fast mode, the app's first figure) keeps the whole problem's greedy short after the positions; the exact mode gives it what the budget allows.
+  const heuristic = heuristicPlan(p, rules, { meter, wholeAfterPositions: settings.mode === "fast" ? undefined : Infinity });
   const fast = verified(spec, matrixOf(spec, heuristic, settings, null, "heuristic", meter.deadlineHit), settings);
   if (!fast.ok || settings.mode === "fast") return fast;
   hooks.onProgress?.({ stage: "heuristic", count: fast.value.count, lowerBound: null });

@@ -9,7 +9,8 @@
  * units per CPU millisecond, measured with `process.cpuUsage` (which other
  * processes' load leaves alone) at the slowest, cold rate seen on this
  * 2-core machine. The shares of the phases one run can go through add up to
- * 0.3 (heuristic, family, search, HiGHS; or heuristic, family, LP bound),
+ * 0.3 (heuristic, family, search, HiGHS; or heuristic, family, and the
+ * Lagrangian bound or, where that is out of reach, the LP bound),
  * so a run normally ends on its budgets at about a third of the limit, and
  * still does on a machine loaded three times over.
  */
@@ -24,6 +25,8 @@ export interface WorkBudget {
   readonly searchWork: number;
   /** LP-bound work: nonzeros solved and states priced (bounds.ts). */
   readonly lpWork: number;
+  /** Lagrangian-bound work: steps of the rows' cover DP (lagrangeBound.ts). */
+  readonly lagrangeWork: number;
   /** HiGHS `mip_max_nodes`. */
   readonly highsNodes: number;
   /**
@@ -35,7 +38,7 @@ export interface WorkBudget {
 }
 
 /** Share of the time limit each phase's budget is planned to take. */
-const SHARE = { heuristic: 0.05, family: 0.05, search: 0.1, lp: 0.2, highs: 0.1 } as const;
+const SHARE = { heuristic: 0.05, family: 0.05, search: 0.1, lp: 0.2, lagrange: 0.2, highs: 0.1 } as const;
 
 /**
  * Heuristic cells looked at per CPU millisecond: about 20 000 on the largest
@@ -57,6 +60,12 @@ const SEARCH_RATE = 60_000;
  * Loading HiGHS costs about 1 s more on a first run.
  */
 const LP_RATE = 140;
+/**
+ * Lagrangian-bound work (cover DP steps) per CPU millisecond: 145 000 to
+ * 260 000 measured over whole bounds on 00-23, 00-59 and 00-99 (warm), so
+ * a cold run is taken at the lower end.
+ */
+const LAGRANGE_RATE = 120_000;
 /**
  * HiGHS work (LP iterations times model columns) per millisecond: 5 200 to
  * 12 200 over whole solves on 0-F, 1-12 and 00-23, but only 3 200 in the
@@ -82,6 +91,7 @@ export function workBudget(timeLimitMs: number): WorkBudget {
     familyWork: of(SHARE.family, FAMILY_RATE, 1e5),
     searchWork: of(SHARE.search, SEARCH_RATE, 1e5),
     lpWork: of(SHARE.lp, LP_RATE, 1e4),
+    lagrangeWork: of(SHARE.lagrange, LAGRANGE_RATE, 1e6),
     highsNodes: of(SHARE.highs, HIGHS_NODE_RATE, 20),
     highsWork: of(SHARE.highs, HIGHS_RATE, 1e5),
   };

@@ -1,0 +1,75 @@
+import { describe, expect, it } from "vitest";
+import type { DepthPolicy } from "../../../../src/core/project/project.ts";
+import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
+import { candidateFamily } from "../../../../src/core/synth/candidates.ts";
+import { heuristicPlan } from "../../../../src/core/synth/heuristic.ts";
+import { lagrangeBound } from "../../../../src/core/synth/lagrangeBound.ts";
+import { litCount, planCost, planCount, problemFromLit, sharingProblem } from "../../../../src/core/synth/plan.ts";
+import { reduceRows } from "../../../../src/core/synth/reduce.ts";
+import { searchPlan } from "../../../../src/core/synth/search.ts";
+import { litRows } from "../../../support/litSpec.ts";
+import { showing } from "../../../support/projects.ts";
+
+const POLICIES: readonly DepthPolicy[] = ["mixed", "per-segment", "uniform"];
+const rulesOf = (policy: DepthPolicy) => ({ depthLimit: 2, policy, buses: true, links: true }) as const;
+const pad2 = (k: number): string => String(k).padStart(2, "0");
+
+describe("lagrangeBound", () => {
+  it("never exceeds the proven optimum of a digit counter (0-9 and 0-F, every policy; the branch-and-bound proves it)", () => {
+    for (const show of ["0123456789", "0123456789AbCdEF"]) {
+      const p = sharingProblem(compileSpec(showing([...show], 1)));
+      for (const policy of POLICIES) {
+        const rules = rulesOf(policy);
+        const start = heuristicPlan(p, rules);
+        const proof = searchPlan(p, rules, candidateFamily(p, policy === "mixed" ? 2 : 1), planCost(p, start), { maxWork: 1e10 });
+        expect(proof.proven).toBe(true);
+        const optimum = proof.plan === null ? planCost(p, start) : planCost(p, proof.plan);
+        const b = lagrangeBound(p, rules, { maxWork: 1e8, upper: optimum });
+        expect(b.bound).not.toBeNull();
+        const bound = policy === "uniform" ? Math.min(litCount(p), b.bound ?? 0) : (b.bound ?? 0);
+        expect(bound, `${show} ${policy}`).toBeLessThanOrEqual(optimum);
+        // Far above the trivial bound (every output, every state needs a diode).
+        expect(bound, `${show} ${policy}`).toBeGreaterThan(Math.max(p.m, p.n));
+      }
+    }
+  });
+
+  it("takes a merged row's weight: a digit standing for 10 states (0-9 merged, optimum 149 proven in refine.test.ts)", () => {
+    const digits = ["1111110", "0110000", "1101101", "1111001", "0110011", "1011011", "1011111", "1110000", "1111111", "1111011"];
+    const p = problemFromLit(litRows(...digits), { weight: Array(10).fill(10) });
+    for (const policy of POLICIES) {
+      const b = lagrangeBound(p, rulesOf(policy), { maxWork: 1e8, upper: 149 });
+      expect(b.bound, policy).toBeLessThanOrEqual(149);
+      // Each row must feed something at 10 a state: 100 before any output is paid for; links
+      // without levels keep mixed and per-segment below the optimum (135 measured), uniform meets it.
+      expect(b.bound, policy).toBeGreaterThanOrEqual(policy === "uniform" ? 149 : 130);
+    }
+  });
+
+  it("bounds 00-59 (14 outputs) well above the trivial bound, at most the heuristic's count, the same every run", () => {
+    const p = reduceRows(
+      sharingProblem(
+        compileSpec(
+          showing(
+            Array.from({ length: 60 }, (_, k) => pad2(k)),
+            2,
+          ),
+        ),
+      ),
+    ).problem;
+    const rules = rulesOf("per-segment");
+    const upper = planCount(heuristicPlan(p, rules));
+    const a = lagrangeBound(p, rules, { maxWork: 2e8, upper });
+    const b = lagrangeBound(p, rules, { maxWork: 2e8, upper });
+    expect(b).toEqual({ ...a });
+    expect(a.deadlineHit).toBe(false);
+    expect(a.bound ?? 0).toBeLessThanOrEqual(upper);
+    // The trivial bound is 60 (every state needs a diode); the covering LP reached 159 only when run to the end.
+    expect(a.bound ?? 0).toBeGreaterThanOrEqual(140);
+  });
+
+  it("is out of reach (null) for rows of more than 16 lit outputs", () => {
+    const p = problemFromLit([Array(17).fill(true) as boolean[], Array(17).fill(true) as boolean[]]);
+    expect(lagrangeBound(p, rulesOf("mixed"), { maxWork: 1e8, upper: 100 }).bound).toBeNull();
+  });
+});
