@@ -8,6 +8,7 @@ import { runBudgetBench } from "./budgetBench.ts";
 import { runStartupBench } from "./startupBench.ts";
 import { runSynthBench } from "./synthBench.ts";
 import { runCodedBench } from "./codedBench.ts";
+import { runMilpBench } from "./milpBench.ts";
 
 const log = (line: string): void => void process.stdout.write(line + "\n");
 
@@ -18,6 +19,8 @@ log("");
 await runStartupBench(log);
 log("");
 await runSynthBench(log);
+log("");
+await runMilpBench(log);
 log("");
 await runCodedBench(log);
 log("");

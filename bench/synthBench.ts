@@ -89,7 +89,9 @@ function timeMs(f: () => void, runs: number): number {
 export async function runSynthBench(log: (line: string) => void): Promise<void> {
   const widths = [6, 4, 12, 7, 6, 8, 6, 6, 5, 6, 9];
   log("Synthesis: depth limit 2; heuristic time is the median of 5 runs");
-  log("exact = heuristic, then the per-state branch-and-bound (up to 10 outputs) or HiGHS, each stopped by a work budget");
+  log(
+    "exact = heuristic, then the per-state branch-and-bound (up to 10 outputs), HiGHS, or the Lagrangian bound where the bus family is too big, each stopped by a work budget",
+  );
   log("Exact time limit: 20 s for 0-5, 0-9, 0-F and 1-12, 10 s for the others; times in ms on a shared machine");
   log(row(["case", "N", "policy", "direct", "heur", "heur ms", "exact", "bound", "gap", "proven", "exact ms"], widths));
   for (const c of BENCH_CASES) {
