@@ -75,6 +75,8 @@ interface Item {
   readonly users: readonly number[];
   /** True for a link (free per row), false for a bus (w per row). */
   readonly link: boolean;
+  /** A link's source output, -1 for a bus. */
+  readonly from: number;
 }
 
 /**
@@ -102,6 +104,7 @@ export function lagrangeBound(
   // Per row: its items, and for each the local mask and the slot of its share.
   const rowItems: number[][] = Array.from({ length: n }, () => []);
   const rowMasks: number[][] = Array.from({ length: n }, () => []);
+  const rowSrc: number[][] = Array.from({ length: n }, () => []);
   const local = p.row.map((r) => new Map(r.map((o, i) => [o, i])));
   items.forEach((it, i) => {
     it.users.forEach((k) => {
@@ -110,8 +113,16 @@ export function lagrangeBound(
       for (const o of it.outputs) mask |= 1 << (loc.get(o) ?? 0);
       rowItems[k]?.push(i);
       rowMasks[k]?.push(mask);
+      rowSrc[k]?.push(it.link ? (loc.get(it.from) ?? -1) : -1);
     });
   });
+  // Level multipliers, per row and its links (0 for a bus): a row that lights a link's source
+  // a and uses the link must light a by a direct diode (a link source sits at level 1, which
+  // only direct diodes feed, under mixed and per-segment alike). Relaxed with a multiplier
+  // that the link's use pays and a's direct diode earns back; kept non-negative and, per row
+  // and source, at most the row's weight, so a direct diode never costs less than nothing.
+  const nu = rowItems.map((l) => new Float64Array(l.length));
+  const directCost = new Float64Array(Math.max(1, ...p.row.map((r) => r.length)));
   // Shares, per item in `users` order; start from the even split.
   const share = items.map((it) => new Float64Array(it.users.length).fill(it.fixed / Math.max(1, it.users.length)));
   const userSlot = items.map((it) => new Map(it.users.map((k, u) => [k, u])));
@@ -123,31 +134,39 @@ export function lagrangeBound(
   const f = new Float64Array(size);
   const choice = new Int32Array(size);
 
-  /** Row k's cheapest cover under the shares: its cost and the items it uses. */
-  const cover = (k: number): { cost: number; used: number[] } => {
+  /** Row k's cheapest cover under the shares and multipliers: its cost, the places (in its list) of the items it uses, and its direct outputs (local bits). */
+  const cover = (k: number): { cost: number; used: number[]; direct: number } => {
     const r = (p.row[k] ?? []).length;
     const wk = w(k);
     const full = (1 << r) - 1;
     const list = rowItems[k] as number[];
     const masks = rowMasks[k] as number[];
+    const src = rowSrc[k] as number[];
+    const nk = nu[k] as Float64Array;
+    directCost.fill(wk, 0, r);
+    for (let j = 0; j < list.length; j++)
+      if ((src[j] as number) >= 0) directCost[src[j] as number] = (directCost[src[j] as number] as number) - (nk[j] as number);
     let best = Infinity;
     let bestUsed: number[] = [];
+    let bestDirect = 0;
     // Two passes: without the padding bus, and with it (outputs left over go on it at 1 each).
     const padOk = rules.buses && (uniform || wk >= 2);
     for (const pad of padOk ? [false, true] : [false]) {
       // Without the pad, outputs left over go direct (not under uniform, where they cannot).
-      const leftover = pad ? 1 : directOk ? wk : Infinity;
       single.fill(Infinity, 0, full + 1);
       singleItem.fill(-1, 0, full + 1);
-      for (let b = 0; b < r; b++) single[1 << b] = leftover;
+      for (let b = 0; b < r; b++) {
+        const d = directOk ? (directCost[b] as number) : Infinity;
+        single[1 << b] = pad ? Math.min(1, d) : d;
+      }
       for (let j = 0; j < list.length; j++) {
         const i = list[j] as number;
         const it = items[i] as Item;
-        const c = (it.link ? 0 : wk) + ((share[i] as Float64Array)[userSlot[i]?.get(k) ?? 0] ?? 0);
+        const c = (it.link ? (nk[j] as number) : wk) + ((share[i] as Float64Array)[userSlot[i]?.get(k) ?? 0] ?? 0);
         const mk = masks[j] as number;
         if (c < (single[mk] as number)) {
           single[mk] = c;
-          singleItem[mk] = i;
+          singleItem[mk] = j;
         }
       }
       // Superset closure: the cheapest single structure lighting at least each subset.
@@ -188,15 +207,17 @@ export function lagrangeBound(
       if (total < best) {
         best = total;
         bestUsed = [];
+        bestDirect = 0;
         for (let mask = full; mask !== 0;) {
           const sub = choice[mask] as number;
-          const i = singleItem[sub] as number;
-          if (i >= 0) bestUsed.push(i);
+          const j = singleItem[sub] as number;
+          if (j >= 0) bestUsed.push(j);
+          else if (!pad || (directCost[31 - Math.clz32(sub)] as number) < 1) bestDirect |= sub;
           mask ^= sub;
         }
       }
     }
-    return { cost: best, used: bestUsed };
+    return { cost: best, used: bestUsed, direct: bestDirect };
   };
 
   let bestBound = -Infinity;
@@ -208,11 +229,13 @@ export function lagrangeBound(
     if (meter.spent() || meter.checkClock()) break;
     let sum = 0;
     const used: number[][] = [];
+    const direct: number[] = [];
     let complete = true;
     for (let k = 0; k < n; k++) {
       const c = cover(k);
       sum += c.cost;
       used.push(c.used);
+      direct.push(c.direct);
       // A round cut short by the budget is not a bound.
       if (meter.spent() && k < n - 1) {
         complete = false;
@@ -231,16 +254,49 @@ export function lagrangeBound(
     // Subgradient on the shares: +1 for each (structure, row) in use, projected back onto the capped simplex.
     const g = new Map<number, number[]>();
     let norm = 0;
+    // And on the level multipliers: a link used without its source direct pushes up, a direct source without the link down.
+    const gNu: Float64Array[] = [];
     used.forEach((list, k) => {
-      for (const i of list) {
+      const row = rowItems[k] as number[];
+      for (const j of list) {
+        const i = row[j] as number;
         let gi = g.get(i);
         if (!gi) g.set(i, (gi = []));
         gi.push(userSlot[i]?.get(k) ?? 0);
         norm++;
       }
+      const src = rowSrc[k] as number[];
+      const gk = new Float64Array(row.length);
+      const inUse = new Set(list);
+      for (let j = 0; j < row.length; j++) {
+        const a = src[j] as number;
+        if (a < 0) continue;
+        gk[j] = (inUse.has(j) ? 1 : 0) - (((direct[k] as number) >> a) & 1);
+        norm += (gk[j] as number) * (gk[j] as number);
+      }
+      gNu.push(gk);
     });
     if (norm === 0) break;
     const step = (theta * Math.max(0.5, opts.upper - sum)) / norm;
+    for (let k = 0; k < n; k++) {
+      const nk = nu[k] as Float64Array;
+      const gk = gNu[k] as Float64Array;
+      const src = rowSrc[k] as number[];
+      const bySource = new Map<number, number[]>();
+      for (let j = 0; j < nk.length; j++) {
+        const a = src[j] as number;
+        if (a < 0) continue;
+        nk[j] = (nk[j] as number) + step * (gk[j] as number);
+        let l = bySource.get(a);
+        if (!l) bySource.set(a, (l = []));
+        l.push(j);
+      }
+      for (const js of bySource.values()) {
+        const v = Float64Array.from(js, (j) => nk[j] as number);
+        projectCapped(v, w(k));
+        js.forEach((j, x) => (nk[j] = v[x] as number));
+      }
+    }
     // Every structure's shares move: those in use up by the step, then all projected (which lowers the others).
     items.forEach((it, i) => {
       const sh = share[i] as Float64Array;
@@ -260,7 +316,8 @@ function structures(p: SharingProblem, rules: Pick<SharingRules, "policy" | "bus
   const items: Item[] = [];
   if (rules.links && rules.policy !== "uniform") {
     for (let a = 0; a < p.m; a++) {
-      for (let b = 0; b < p.m; b++) if (p.within[a]?.[b]) items.push({ outputs: [b], fixed: 1, users: p.col[a] ?? [], link: true });
+      for (let b = 0; b < p.m; b++)
+        if (p.within[a]?.[b]) items.push({ outputs: [b], fixed: 1, users: p.col[a] ?? [], link: true, from: a });
     }
   }
   if (!rules.buses) return items;
@@ -274,7 +331,7 @@ function structures(p: SharingProblem, rules: Pick<SharingRules, "policy" | "bus
       }
       if (s2.length < 2) continue;
       const t2 = [...t, o];
-      items.push({ outputs: t2, fixed: t2.length, users: s2, link: false });
+      items.push({ outputs: t2, fixed: t2.length, users: s2, link: false, from: -1 });
       if (items.length > MAX_ITEMS) {
         over = true;
         return;
