@@ -44,6 +44,8 @@ import { WorkMeter } from "./workMeter.ts";
 export const LAGRANGE_MAX_ROW_OUTPUTS = 16;
 /** Most structures (bus output sets) the bound enumerates; past it, no bound. */
 const MAX_ITEMS = 200_000;
+/** Most (structure, row) pairs, each holding a share (8 bytes): keeps the memory near 10 MB. On 00-99: 197 000. */
+const MAX_PAIRS = 1_200_000;
 
 export interface LagrangeOptions {
   /** The deterministic stop: DP steps over all rounds (one unit a step). */
@@ -322,6 +324,7 @@ function structures(p: SharingProblem, rules: Pick<SharingRules, "policy" | "bus
   }
   if (!rules.buses) return items;
   let over = false;
+  let pairs = 0;
   const visit = (t: number[], s: number[], next: number): void => {
     for (let o = next; o < p.m && !over; o++) {
       const s2 = s.filter((k) => p.lit[k]?.[o] === true);
@@ -332,7 +335,8 @@ function structures(p: SharingProblem, rules: Pick<SharingRules, "policy" | "bus
       if (s2.length < 2) continue;
       const t2 = [...t, o];
       items.push({ outputs: t2, fixed: t2.length, users: s2, link: false, from: -1 });
-      if (items.length > MAX_ITEMS) {
+      pairs += s2.length;
+      if (items.length > MAX_ITEMS || pairs > MAX_PAIRS) {
         over = true;
         return;
       }
