@@ -54,7 +54,7 @@ export interface LagrangeOptions {
   readonly deadlineMs?: number;
   /** The best known count (the heuristic's): the step size aims at it, and the rounds stop when the bound reaches it. */
   readonly upper: number;
-  /** Most subgradient rounds (default 200). */
+  /** Most subgradient rounds (default 2000: the work budget decides). */
   readonly maxRounds?: number;
 }
 
@@ -226,7 +226,7 @@ export function lagrangeBound(
   let rounds = 0;
   let theta = 2;
   let stall = 0;
-  const maxRounds = opts.maxRounds ?? 200;
+  const maxRounds = opts.maxRounds ?? 2000;
   for (; rounds < maxRounds; rounds++) {
     if (meter.spent() || meter.checkClock()) break;
     let sum = 0;
