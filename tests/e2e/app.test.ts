@@ -182,6 +182,8 @@ describe("the web app", () => {
   });
 
   it("refuses an invalid file with path-naming errors and leaves the project unchanged", async () => {
+    // The last edit's live pass ends first, so the count read here is the one that stays (on a busy machine the direct count shows first).
+    await expect.poll(() => page.getByTestId("live-busy").count(), { timeout: 30_000 }).toBe(0);
     const before = await savedProject();
     const count = await shownCount();
     const bad = JSON.stringify({ schema: "diodeloom/project@1", counter: { states: 1 }, display: { positions: 9 }, show: ["0"] });
