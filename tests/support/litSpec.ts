@@ -3,7 +3,7 @@
  * states, columns outputs. Columns lit in no state or in every state are
  * dropped, as compileSpec does (no driver, or tied on).
  */
-import type { DecodeSpec } from "../../src/core/spec/decodeSpec.ts";
+import { litPolarity, type DecodeSpec } from "../../src/core/spec/decodeSpec.ts";
 import { builtinCell } from "../../src/core/glyphs/glyphs.ts";
 
 export function specFromLit(lit: readonly (readonly boolean[])[]): DecodeSpec {
@@ -13,6 +13,7 @@ export function specFromLit(lit: readonly (readonly boolean[])[]): DecodeSpec {
   const count = (j: number): number => lit.filter((r) => r[j]).length;
   const keep = names.map((_, j) => j).filter((j) => count(j) > 0 && count(j) < n);
   const states = lit.map((_, k) => `S${k}`);
+  const kept = lit.map((r) => keep.map((j) => r[j] === true));
   return {
     states,
     counter: { kind: "one-hot", stages: 0, codes: [] },
@@ -20,11 +21,12 @@ export function specFromLit(lit: readonly (readonly boolean[])[]): DecodeSpec {
     texts: lit.map((_, k) => `t${k}`),
     allOutputs: names,
     outputs: keep.map((j) => names[j] as string),
-    lit: lit.map((r) => keep.map((j) => r[j] === true)),
+    lit: kept,
     neverLit: names.filter((_, j) => count(j) === 0),
     tiedOn: names.filter((_, j) => n > 0 && count(j) === n),
     positions: 1,
     cell: builtinCell("seg7"),
+    polarity: litPolarity(kept, states),
   };
 }
 

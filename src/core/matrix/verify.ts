@@ -36,7 +36,7 @@ export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLim
   };
 
   if (m.states.join() !== spec.states.join()) say("the matrix's state lines differ from the spec's");
-  if (m.lines.join() !== spec.states.join()) say("a one-hot counter's matrix is driven by its state lines alone");
+  if (m.lines.join() !== spec.lines.join()) say("the matrix's counter lines differ from the lines the counter offers");
   if (m.gates.length > 0) say(`a one-hot counter's matrix has no gates, but this one has ${m.gates.length}`);
   if (m.codes.length > 0) say("a one-hot counter's states have no codes");
   if (m.outputs.join() !== spec.outputs.join()) say("the matrix's output lines differ from the spec's");

@@ -6,7 +6,7 @@
  */
 import * as v from "valibot";
 import type { Problem } from "../result/result.ts";
-import type { CounterCodeKind, CounterSection } from "./project.ts";
+import type { CounterCodeKind, CounterDrive, CounterSection } from "./project.ts";
 import { choiceField, gotMessage, numberField, objectField } from "./fieldRules.ts";
 import { LIMITS } from "./limits.ts";
 import { describeValue, fieldPath, quoteText } from "./valueText.ts";
@@ -20,7 +20,7 @@ const BITS = /^[01]+$/;
 export const CounterSectionSchema = objectField(
   {
     states: numberField({ ...STATES, integer: true }),
-    drive: v.optional(v.literal("source", gotMessage('must be "source" (the active line is high)')), "source"),
+    drive: v.optional(choiceField(["source", "sink", "complementary"] as const), "source"),
     code: v.optional(choiceField(["one-hot", "johnson", "binary", "custom"] as const), "one-hot"),
     codes: v.optional(
       v.array(
@@ -35,7 +35,7 @@ export const CounterSectionSchema = objectField(
 /** The section as the schema reads it. */
 export interface LooseCounter {
   readonly states: number;
-  readonly drive: "source";
+  readonly drive: CounterDrive;
   readonly code: CounterCodeKind;
   readonly codes?: readonly string[] | undefined;
 }
@@ -64,8 +64,14 @@ export function checkCounter(c: LooseCounter, problems: Problem[]): CounterSecti
     });
   }
   if (c.code === "custom") checkCodes(c.codes, n, problems);
+  if (c.code !== "one-hot" && c.drive !== "source") {
+    problems.push({
+      path: "counter.drive",
+      message: `got "${c.drive}" with "code": "${c.code}"; a coded counter already offers every stage line and its complement (Q and nQ), so its drive stays "source"; remove counter.drive or use a one-hot code`,
+    });
+  }
   if (problems.length > before) return undefined;
-  return { states: n, drive: "source", code: c.code, codes: c.code === "custom" ? [...(c.codes ?? [])] : [] };
+  return { states: n, drive: c.drive, code: c.code, codes: c.code === "custom" ? [...(c.codes ?? [])] : [] };
 }
 
 function checkCodes(codes: readonly string[] | undefined, n: number, problems: Problem[]): void {

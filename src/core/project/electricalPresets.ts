@@ -42,12 +42,20 @@ const DISCRETE_COUNTER = { high: 5, low: 0.1, resistance: 470, lowResistance: 20
  * high still gives its drivers their base current.
  */
 const GATE_PULL_UP = 4700;
+/**
+ * The same stage's complementary output, an active-low line: the stage's
+ * saturated transistor (about 0.1 V behind some 20 Ω) when its state is on,
+ * the 5 V rail through the collector load otherwise. It may sink 5 mA on top
+ * of its own load current (common practice, no source).
+ */
+const DISCRETE_LOW_LINE = { low: 0.1, high: 5, resistance: 20, maxCurrentA: 0.005 } as const;
 const TOLERANCE = { resistorPct: 5, betaMin: 100, betaMax: 300, temperatureC: [0, 50] as const } as const;
 
 const base = {
   temperatureC: 27,
   ghostFraction: 0.01,
   counterOutput: DISCRETE_COUNTER,
+  lowLine: DISCRETE_LOW_LINE,
   logicSupply: { volts: 5 },
   diode: MATRIX_DIODE,
   pullDown: 47_000,
@@ -170,6 +178,8 @@ export const FORMAT1_ELECTRICAL: ElectricalModel = {
   temperatureC: 27,
   ghostFraction: 0.01,
   counterOutput: { high: 2.4, low: 0, resistance: 1000, lowResistance: 1000, maxCurrentA: 0.0004 },
+  // Format 1 knows only source drive; these are never used by its files.
+  lowLine: { low: 0, high: 2.4, resistance: 20, maxCurrentA: 0.0004 },
   logicSupply: { volts: 2.4 },
   diode: MATRIX_DIODE,
   pullDown: 100_000,

@@ -54,6 +54,10 @@ export const ELECTRICAL_RANGES = rangeTable({
   "counterOutput.resistance": resistor,
   "counterOutput.lowResistance": resistor,
   "counterOutput.maxCurrentA": current,
+  "lowLine.low": { min: -100, max: 100, unit: "V" },
+  "lowLine.high": { min: -100, max: 100, unit: "V" },
+  "lowLine.resistance": resistor,
+  "lowLine.maxCurrentA": current,
   "logicSupply.volts": { min: 1, max: 100, unit: "V" },
   "diode.is": { min: 1e-18, max: 1e-3, unit: "A" },
   "diode.n": emission,
@@ -140,6 +144,14 @@ export const ElectricalSectionSchema = objectField({
       maxCurrentA: opt(n(R["counterOutput.maxCurrentA"])),
     }),
   ),
+  lowLine: opt(
+    objectField({
+      low: opt(n(R["lowLine.low"])),
+      high: opt(n(R["lowLine.high"])),
+      resistance: opt(n(R["lowLine.resistance"])),
+      maxCurrentA: opt(n(R["lowLine.maxCurrentA"])),
+    }),
+  ),
   logicSupply: opt(objectField({ volts: opt(n(R["logicSupply.volts"])) })),
   diode: shared.diode,
   pullDown: shared.pullDown,
@@ -223,6 +235,7 @@ function merged(base: ElectricalModel, given: LooseElectrical, preset: PresetNam
     temperatureC: g.temperatureC ?? base.temperatureC,
     ghostFraction: g.ghostFraction ?? base.ghostFraction,
     counterOutput: { ...base.counterOutput, ...g.counterOutput },
+    lowLine: { ...base.lowLine, ...g.lowLine },
     logicSupply: { ...base.logicSupply, ...g.logicSupply },
     diode: { ...base.diode, ...g.diode },
     pullDown: g.pullDown ?? base.pullDown,
@@ -368,6 +381,12 @@ export function checkElectrical(e: ElectricalModel, cell: Cell, positions: numbe
     problems.push({
       path: at("counterOutput", "high"),
       message: `got ${co.high} V; must be above counterOutput.low (${co.low} V) for source drive`,
+    });
+  }
+  if (e.lowLine.high <= e.lowLine.low) {
+    problems.push({
+      path: at("lowLine", "high"),
+      message: `got ${e.lowLine.high} V; an idle active-low line must sit above the active one (lowLine.low, ${e.lowLine.low} V)`,
     });
   }
   if (e.tolerance.betaMin > e.tolerance.betaMax) {

@@ -23,10 +23,36 @@ export type DepthPolicy = "mixed" | "per-segment" | "uniform";
  */
 export type CounterCodeKind = "one-hot" | "johnson" | "binary" | "custom";
 
+/**
+ * Which level marks the active state line of a one-hot counter:
+ * - `source`: the active line is high (`S<k>`), the idle lines low;
+ * - `sink`: the active line is low (`nS<k>`), the idle lines high;
+ * - `complementary`: every stage offers both, `S<k>` and `nS<k>`.
+ */
+export type CounterDrive = "source" | "sink" | "complementary";
+
+/**
+ * How an output is decoded:
+ * - `lit`: diodes on its lit cells raise the output node in the states that light it;
+ * - `dark`: the node has a pull-up, and diodes on its dark cells pull it down
+ *   to an active-low line in the states where its segment is dark;
+ * - `either`: per output, whichever makes the whole design cheapest.
+ */
+export type DecodePolarity = "lit" | "dark" | "either";
+
+/**
+ * What keeps a dark-decoded output's driver off while its node is pulled
+ * down (the node sits some forward drops above the line's low level):
+ * - `level-shift`: diodes in series with the driver's input, as many as the
+ *   level-shift arithmetic asks for (each counted as a diode);
+ * - `divider`: two resistors that divide the node's voltage down.
+ */
+export type DarkInput = "level-shift" | "divider";
+
 /** The counter section. */
 export interface CounterSection {
   readonly states: number;
-  readonly drive: "source";
+  readonly drive: CounterDrive;
   readonly code: CounterCodeKind;
   /**
    * For a `custom` code, one bit string per state, the highest stage leftmost
@@ -82,6 +108,10 @@ export interface SynthesisOptions {
   readonly timeLimitMs: number;
   /** Seed for any randomised step, so a run can be repeated. */
   readonly seed: number;
+  /** Which cells the diodes decode: lit, dark or the cheaper per output. */
+  readonly decode: DecodePolarity;
+  /** The input network of a dark-decoded output. */
+  readonly darkInput: DarkInput;
 }
 
 /** The synthesis options as the project file spells them. */
@@ -92,6 +122,8 @@ export interface SynthesisFields {
   readonly links: boolean;
   readonly timeLimitMs: number;
   readonly seed: number;
+  readonly decode: DecodePolarity;
+  readonly darkInput: DarkInput;
 }
 
 /** Counter output stage as a Thevenin source. */
@@ -110,6 +142,21 @@ export interface CounterOutputModel {
    */
   readonly lowResistance: number;
   /** Most current one line may source (or, low, sink), amperes; more is a warning naming the line. */
+  readonly maxCurrentA: number;
+}
+
+/**
+ * A counter's active-low line (`nS<k>`, sink or complementary drive) as a
+ * Thevenin source: low in its own state, high in the others.
+ */
+export interface LowLineModel {
+  /** Open-circuit voltage of the active (low) line, volts. */
+  readonly low: number;
+  /** Open-circuit voltage of an idle (high) line, volts. */
+  readonly high: number;
+  /** Series resistance, ohms (a saturated transistor's, when low). */
+  readonly resistance: number;
+  /** Most current one active line may sink, amperes. */
   readonly maxCurrentA: number;
 }
 
@@ -230,6 +277,8 @@ export interface ElectricalModel {
    */
   readonly ghostFraction: number;
   readonly counterOutput: CounterOutputModel;
+  /** The active-low lines, where the counter offers them (sink or complementary drive). */
+  readonly lowLine: LowLineModel;
   readonly logicSupply: LogicSupplyModel;
   readonly diode: DiodeModel;
   /** Pull-down from every output line to ground, ohms. */

@@ -23,6 +23,7 @@ import {
   type LooseElectricalV1,
 } from "./electricalSchema.ts";
 import { checkCounter, CounterSectionSchema } from "./counterSchema.ts";
+import { checkPolarity } from "./polaritySchema.ts";
 import { choiceField, gotMessage, issuePath, mapField, numberField, objectField, textField } from "./fieldRules.ts";
 import { readJson } from "./jsonText.ts";
 import { figureOf, FigureSectionSchema } from "./figureSchema.ts";
@@ -209,6 +210,13 @@ function complete(p: LooseProject, e: ElectricalModel, format1: boolean): Result
   });
 
   const counter = checkCounter(p.counter, problems);
+  const synthesis = synthesisOf(p.synthesis as SynthesisFields);
+  if (format1 && p.counter.drive !== "source") {
+    problems.push({
+      path: "counter.drive",
+      message: `got "${p.counter.drive}"; format 1 knows only "source" drive; use "schema": "${PROJECT_SCHEMA}" for active-low lines`,
+    });
+  } else if (counter !== undefined) checkPolarity(counter, synthesis, e.driver.kind, problems);
   const electrical: Problem[] = [];
   checkElectrical(e, cell, p.display.positions, electrical);
   problems.push(...(format1 ? electrical.map(inFormat1) : electrical));
@@ -222,7 +230,7 @@ function complete(p: LooseProject, e: ElectricalModel, format1: boolean): Result
     glyphs,
     glyphOverrides,
     show: [...p.show],
-    synthesis: synthesisOf(p.synthesis as SynthesisFields),
+    synthesis,
     electrical: e,
   };
   return ok(deepFreeze(project));

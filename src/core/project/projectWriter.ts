@@ -13,7 +13,16 @@ import { figureFields } from "./figureSchema.ts";
 
 /** The synthesis options as the file spells them (`maxDepth` is the depth limit, `depth` the policy). */
 export function synthesisFields(s: SynthesisOptions): SynthesisFields {
-  return { maxDepth: s.depthLimit, depth: s.policy, buses: s.buses, links: s.links, timeLimitMs: s.timeLimitMs, seed: s.seed };
+  return {
+    maxDepth: s.depthLimit,
+    depth: s.policy,
+    buses: s.buses,
+    links: s.links,
+    timeLimitMs: s.timeLimitMs,
+    seed: s.seed,
+    decode: s.decode,
+    darkInput: s.darkInput,
+  };
 }
 
 /**
@@ -54,12 +63,13 @@ export function serializeProject(project: Project): string {
  * and two equal models give the same text.
  */
 export function electricalFields(e: ElectricalModel): ElectricalModel {
-  const { counterOutput: co, logicSupply: ls, diode: d, driver: dr, segment: sg, supply: su, tolerance: t } = e;
+  const { counterOutput: co, lowLine: ll, logicSupply: ls, diode: d, driver: dr, segment: sg, supply: su, tolerance: t } = e;
   return {
     preset: e.preset,
     temperatureC: e.temperatureC,
     ghostFraction: e.ghostFraction,
     counterOutput: { high: co.high, low: co.low, resistance: co.resistance, lowResistance: co.lowResistance, maxCurrentA: co.maxCurrentA },
+    lowLine: { low: ll.low, high: ll.high, resistance: ll.resistance, maxCurrentA: ll.maxCurrentA },
     logicSupply: { volts: ls.volts },
     diode: { is: d.is, n: d.n, rs: d.rs, maxForwardA: d.maxForwardA, maxReverseV: d.maxReverseV },
     pullDown: e.pullDown,

@@ -10,10 +10,12 @@
 import * as v from "valibot";
 import { booleanField, choiceField, gotMessage, issuePath, numberField, objectField } from "./fieldRules.ts";
 import { LIMITS } from "./limits.ts";
-import type { DepthPolicy, SynthesisFields, SynthesisOptions } from "./project.ts";
+import type { DarkInput, DecodePolarity, DepthPolicy, SynthesisFields, SynthesisOptions } from "./project.ts";
 import { fail, ok, type Problem, type Result } from "../result/result.ts";
 
 export const DEPTH_POLICIES: readonly DepthPolicy[] = ["mixed", "per-segment", "uniform"];
+export const DECODE_POLARITIES: readonly DecodePolarity[] = ["lit", "dark", "either"];
+export const DARK_INPUTS: readonly DarkInput[] = ["level-shift", "divider"];
 
 /** Defaults of the `synthesis` section (documented in docs/project-format.md). */
 export const SYNTHESIS_DEFAULTS: SynthesisOptions = {
@@ -23,6 +25,8 @@ export const SYNTHESIS_DEFAULTS: SynthesisOptions = {
   links: true,
   timeLimitMs: 20_000,
   seed: 1,
+  decode: "lit",
+  darkInput: "level-shift",
 };
 
 /** The rule of each option, by its name in code. */
@@ -33,6 +37,8 @@ const RULES = {
   links: booleanField(),
   timeLimitMs: numberField({ ...LIMITS.timeLimitMs, integer: true, unit: "ms" }),
   seed: numberField({ ...LIMITS.seed, integer: true }),
+  decode: choiceField(["lit", "dark", "either"] as const),
+  darkInput: choiceField(["level-shift", "divider"] as const),
 };
 
 const D = SYNTHESIS_DEFAULTS;
@@ -45,11 +51,22 @@ export const SynthesisSectionSchema = objectField({
   links: v.optional(RULES.links, D.links),
   timeLimitMs: v.optional(RULES.timeLimitMs, D.timeLimitMs),
   seed: v.optional(RULES.seed, D.seed),
+  decode: v.optional(RULES.decode, D.decode),
+  darkInput: v.optional(RULES.darkInput, D.darkInput),
 });
 
 /** The section as read from the file, turned into the names used in code. */
 export function synthesisOf(f: SynthesisFields): SynthesisOptions {
-  return { depthLimit: f.maxDepth, policy: f.depth, buses: f.buses, links: f.links, timeLimitMs: f.timeLimitMs, seed: f.seed };
+  return {
+    depthLimit: f.maxDepth,
+    policy: f.depth,
+    buses: f.buses,
+    links: f.links,
+    timeLimitMs: f.timeLimitMs,
+    seed: f.seed,
+    decode: f.decode,
+    darkInput: f.darkInput,
+  };
 }
 
 const OverridesSchema = v.strictObject(
@@ -60,8 +77,10 @@ const OverridesSchema = v.strictObject(
     links: v.optional(RULES.links),
     timeLimitMs: v.optional(RULES.timeLimitMs),
     seed: v.optional(RULES.seed),
+    decode: v.optional(RULES.decode),
+    darkInput: v.optional(RULES.darkInput),
   },
-  gotMessage("an override is one of depthLimit, policy, buses, links, timeLimitMs, seed"),
+  gotMessage("an override is one of depthLimit, policy, buses, links, timeLimitMs, seed, decode, darkInput"),
 );
 
 /** Overrides of the project's synthesis options, by their names in code; each may be missing. */

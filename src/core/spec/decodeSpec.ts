@@ -6,9 +6,42 @@
  * that are never lit need no driver; outputs lit in every state are tied on
  * and need no diodes.
  */
-import type { Cell, Project } from "../project/project.ts";
+import type { Cell, CounterDrive, DarkInput, DecodePolarity, Project } from "../project/project.ts";
 import { splitText } from "../project/projectSchema.ts";
 import { counterCode, stageLines, type CounterCode } from "./counterCode.ts";
+import { levelShift, type LevelShift } from "./levelShift.ts";
+
+/** The polarity one output is decoded in: its lit cells from active-high lines, or its dark cells onto active-low ones. */
+export type OutputPolarity = "lit" | "dark";
+
+/**
+ * What the decode polarity needs from the spec: the counter's active-low
+ * lines, the dark cells, which polarity each output may take, and what a
+ * dark-decoded output's input network costs.
+ */
+export interface SpecPolarity {
+  readonly drive: CounterDrive;
+  readonly decode: DecodePolarity;
+  /** The active-high state lines `S<k>` the counter offers; empty for sink drive. */
+  readonly activeHigh: readonly string[];
+  /** The active-low state lines `nS<k>` the counter offers; empty for source drive. */
+  readonly activeLow: readonly string[];
+  /** Per output (as `outputs`), the polarities it may be decoded in. */
+  readonly allowed: readonly (readonly OutputPolarity[])[];
+  /** `dark[k][j]`: state k leaves `outputs[j]` dark (the complement of `lit`). */
+  readonly dark: readonly (readonly boolean[])[];
+  readonly darkInput: DarkInput;
+  /**
+   * Diodes in each dark-decoded output's input network: the level-shift
+   * diodes (0 for a divider); null when no number of them keeps a pulled-down
+   * output dark (see levelShift.ts).
+   */
+  readonly inputDiodes: number | null;
+  /** Resistors in each dark-decoded output's input network besides its pull-up: 2 for a divider, else 0. */
+  readonly inputResistors: number;
+  /** The level-shift arithmetic behind `inputDiodes`. */
+  readonly levelShift: LevelShift;
+}
 
 export interface DecodeSpec {
   readonly states: readonly string[];
@@ -34,6 +67,7 @@ export interface DecodeSpec {
   readonly tiedOn: readonly string[];
   readonly positions: number;
   readonly cell: Cell;
+  readonly polarity: SpecPolarity;
 }
 
 /** The output line name of a segment at a position (1-based). */
@@ -44,6 +78,11 @@ export function outputName(position: number, segment: string): string {
 /** The state line name of state k (0-based). */
 export function stateName(k: number): string {
   return `S${k}`;
+}
+
+/** The active-low line of state k (0-based): low in state k, high in the others. */
+export function activeLowName(k: number): string {
+  return `nS${k}`;
 }
 
 /**
@@ -70,18 +109,65 @@ export function compileSpec(project: Project): DecodeSpec {
   });
   const states = project.show.map((_, k) => stateName(k));
   const counter = counterCode(project.counter);
+  const lit = full.map((row) => outputs.map((o) => row.has(o)));
+  const polarity = specPolarity(project, lit);
   return {
     states,
     counter,
-    lines: counter.kind === "one-hot" ? states : stageLines(counter.stages),
+    lines: counter.kind === "one-hot" ? [...polarity.activeHigh, ...polarity.activeLow] : stageLines(counter.stages),
     texts: [...project.show],
     allOutputs,
     outputs,
-    lit: full.map((row) => outputs.map((o) => row.has(o))),
+    lit,
     neverLit: allOutputs.filter((o) => (count.get(o) ?? 0) === 0),
     tiedOn: allOutputs.filter((o) => count.get(o) === n),
     positions,
     cell,
+    polarity,
+  };
+}
+
+function specPolarity(project: Project, lit: readonly (readonly boolean[])[]): SpecPolarity {
+  const { drive } = project.counter;
+  const { decode, darkInput, depthLimit } = project.synthesis;
+  const n = project.show.length;
+  const oneHot = project.counter.code === "one-hot";
+  const dark = lit.map((row) => row.map((x) => !x));
+  const m = lit[0]?.length ?? 0;
+  const pulledPerLine = Math.max(1, ...dark.map((row) => row.filter(Boolean).length));
+  const shift = levelShift(project.electrical, depthLimit, pulledPerLine);
+  const allowed: readonly OutputPolarity[] = decode === "either" ? ["lit", "dark"] : [decode];
+  return {
+    drive,
+    decode,
+    activeHigh: !oneHot || drive !== "sink" ? Array.from({ length: n }, (_, k) => stateName(k)) : [],
+    activeLow: oneHot && drive !== "source" ? Array.from({ length: n }, (_, k) => activeLowName(k)) : [],
+    allowed: Array.from({ length: m }, () => allowed),
+    dark,
+    darkInput,
+    inputDiodes: darkInput === "divider" ? 0 : shift.diodes,
+    inputResistors: darkInput === "divider" ? 2 : 0,
+    levelShift: shift,
+  };
+}
+
+/**
+ * The polarity part of a spec for a counter of source drive decoded lit, as
+ * every spec before dark decode was (tests and hand-made specs).
+ */
+export function litPolarity(lit: readonly (readonly boolean[])[], states: readonly string[]): SpecPolarity {
+  const m = lit[0]?.length ?? 0;
+  return {
+    drive: "source",
+    decode: "lit",
+    activeHigh: states,
+    activeLow: [],
+    allowed: Array.from({ length: m }, () => ["lit"] as const),
+    dark: lit.map((row) => row.map((x) => !x)),
+    darkInput: "level-shift",
+    inputDiodes: 0,
+    inputResistors: 0,
+    levelShift: { diodes: 0, pullUpA: 0, lineLowV: 0, nodeLowV: 0, steps: [], ghostA: 0 },
   };
 }
 

@@ -1,6 +1,8 @@
 /** Stage "spec": the decode spec a project asks for, and the counter's code table. */
-export { compileSpec, litCellCount, outputName, stateName } from "./decodeSpec.ts";
-export type { DecodeSpec } from "./decodeSpec.ts";
+export { activeLowName, compileSpec, litCellCount, litPolarity, outputName, stateName } from "./decodeSpec.ts";
+export type { DecodeSpec, OutputPolarity, SpecPolarity } from "./decodeSpec.ts";
+export { levelShift, MAX_LEVEL_SHIFT_DIODES } from "./levelShift.ts";
+export type { LevelShift } from "./levelShift.ts";
 export {
   binaryCodes,
   binaryStages,

@@ -22,8 +22,12 @@ import { synthesizeCoded } from "../logic/synthesizeCoded.ts";
 /** `direct`: one diode per lit cell; `fast`: the heuristic; `exact`: the proven optimum (branch-and-bound, then HiGHS). */
 export type SynthMode = "direct" | "fast" | "exact";
 
-/** The project's synthesis options plus the mode to run. */
-export interface SynthSettings extends SynthesisOptions {
+/**
+ * The project's synthesis options plus the mode to run. The decode polarity
+ * and the dark outputs' input network are not among them: the decode spec
+ * carries them (which outputs may be decoded dark, and what each costs).
+ */
+export interface SynthSettings extends Omit<SynthesisOptions, "decode" | "darkInput"> {
   readonly mode: SynthMode;
 }
 
@@ -76,6 +80,12 @@ export async function synthesize(
   }
   const limits = checkLimits(settings);
   if (limits) return fail(limits);
+  if (spec.polarity.decode !== "lit") {
+    return fail({
+      kind: "infeasible",
+      message: `this build decodes lit cells only; "decode": "${spec.polarity.decode}" needs the dark-cell synthesizer`,
+    });
+  }
   const p = sharingProblem(spec);
   const lit = litCount(p);
   const rules: SharingRules = { depthLimit: settings.depthLimit, policy: settings.policy, buses: settings.buses, links: settings.links };

@@ -6,7 +6,7 @@
  * path-naming problems. A draft may be invalid while someone is typing; the
  * last valid project keeps its (stale) results on screen meanwhile.
  */
-import type { CellKind, CounterCodeKind, ElectricalModel, Project, SynthesisFields } from "../../core/project/project.ts";
+import type { CellKind, CounterCodeKind, CounterDrive, ElectricalModel, Project, SynthesisFields } from "../../core/project/project.ts";
 import { electricalFields, serializeProject, synthesisFields } from "../../core/project/projectWriter.ts";
 import { figureFields } from "../../core/project/figureSchema.ts";
 
@@ -21,7 +21,7 @@ export interface Draft {
   readonly title: string;
   readonly counter: {
     readonly states: number;
-    readonly drive: "source";
+    readonly drive: CounterDrive;
     readonly code: CounterCodeKind;
     readonly codes?: readonly string[];
   };
@@ -47,8 +47,8 @@ export function draftFromProject(p: Project): Draft {
     title: p.title,
     counter:
       p.counter.code === "custom"
-        ? { states: p.counter.states, drive: "source", code: "custom", codes: [...p.counter.codes] }
-        : { states: p.counter.states, drive: "source", code: p.counter.code },
+        ? { states: p.counter.states, drive: p.counter.drive, code: "custom", codes: [...p.counter.codes] }
+        : { states: p.counter.states, drive: p.counter.drive, code: p.counter.code },
     display:
       cell.kind === "custom"
         ? {

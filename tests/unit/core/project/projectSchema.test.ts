@@ -40,7 +40,16 @@ describe("parseProject accepts", () => {
     );
     expect(r.ok).toBe(true);
     if (!r.ok) return;
-    expect(r.value.synthesis).toEqual({ depthLimit: 2, policy: "per-segment", buses: true, links: true, timeLimitMs: 20000, seed: 1 });
+    expect(r.value.synthesis).toEqual({
+      depthLimit: 2,
+      policy: "per-segment",
+      buses: true,
+      links: true,
+      timeLimitMs: 20000,
+      seed: 1,
+      decode: "lit",
+      darkInput: "level-shift",
+    });
     expect(r.value.electrical.supply.volts).toBe(100);
     expect(r.value.electrical.driver.emitterResistors).toEqual({});
     expect(r.value.glyphs["b"]).toEqual(["c", "d", "e", "f", "g"]);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { compileSpec, litCellCount } from "../../../../src/core/spec/decodeSpec.ts";
-import { example, makeProject, showing } from "../../../support/projects.ts";
+import { example, makeProject, makeProject2, showing } from "../../../support/projects.ts";
 
 describe("compileSpec", () => {
   it("names states S0.. and outputs <position><segment>", () => {
@@ -31,5 +31,43 @@ describe("compileSpec", () => {
     const spec = compileSpec(example("die-roller"));
     expect(spec.outputs).toEqual(["1tl", "1tr", "1ml", "1c", "1mr", "1bl", "1br"]);
     expect(litCellCount(spec)).toBe(1 + 2 + 3 + 4 + 5 + 6);
+  });
+});
+
+describe("compileSpec: the decode polarity", () => {
+  const texts = ["0", "1", "7"];
+  const project = (drive: string, decode: string) =>
+    makeProject2({ counter: { states: 3, drive }, display: {}, show: texts, synthesis: { decode } });
+
+  it("offers S<k> for source drive, nS<k> for sink, both for complementary", () => {
+    expect(compileSpec(project("source", "lit")).lines).toEqual(["S0", "S1", "S2"]);
+    expect(compileSpec(project("sink", "dark")).lines).toEqual(["nS0", "nS1", "nS2"]);
+    expect(compileSpec(project("complementary", "either")).lines).toEqual(["S0", "S1", "S2", "nS0", "nS1", "nS2"]);
+  });
+
+  it("carries the dark cells, the complement of the lit ones, and each output's allowed polarity", () => {
+    const spec = compileSpec(project("complementary", "either"));
+    // 0: abcdef, 1: bc, 7: abc; b and c are tied on.
+    expect(spec.outputs).toEqual(["1a", "1d", "1e", "1f"]);
+    expect(spec.polarity.dark).toEqual([
+      [false, false, false, false],
+      [true, true, true, true],
+      [false, true, true, true],
+    ]);
+    expect(spec.polarity.allowed).toEqual(spec.outputs.map(() => ["lit", "dark"]));
+    expect(compileSpec(project("sink", "dark")).polarity.allowed).toEqual(spec.outputs.map(() => ["dark"]));
+  });
+
+  it("counts the level-shift diodes of a dark-decoded output, none for a divider", () => {
+    const spec = compileSpec(project("sink", "dark"));
+    expect(spec.polarity.inputDiodes).toBe(spec.polarity.levelShift.diodes);
+    expect(spec.polarity.inputDiodes).toBeGreaterThan(0);
+    const divider = makeProject2({
+      counter: { states: 3, drive: "sink" },
+      display: {},
+      show: texts,
+      synthesis: { decode: "dark", darkInput: "divider" },
+    });
+    expect(compileSpec(divider).polarity).toMatchObject({ inputDiodes: 0, inputResistors: 2 });
   });
 });
