@@ -6,14 +6,23 @@ import { compileSpec, type DecodeSpec } from "../core/spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
 import { LIMITS } from "../core/project/limits.ts";
-import { checkSynthesisOverrides, DEPTH_POLICIES, numberFromText } from "../core/project/synthesisSchema.ts";
+import {
+  checkSynthesisOverrides,
+  DARK_INPUTS,
+  DECODE_POLARITIES,
+  DEPTH_POLICIES,
+  numberFromText,
+} from "../core/project/synthesisSchema.ts";
+import { checkPolarity } from "../core/project/polaritySchema.ts";
+import { electricalRefusal } from "../core/matrix/matrix.ts";
 import { synthesize, synthSettings, type SynthFailure, type SynthSettings } from "../core/synth/synthesize.ts";
 import { synthesizeCoded, type CodedSynthesis } from "../core/logic/synthesizeCoded.ts";
 import type { OptionSpec, ParsedArgs } from "./args.ts";
 import { EXIT, type CliIo } from "./io.ts";
 import { loadProject } from "./loadProject.ts";
 
-export const SYNTH_USAGE = "[--direct | --fast] [--depth-limit K] [--policy NAME] [--time-limit MS] [--seed N]";
+export const SYNTH_USAGE =
+  "[--direct | --fast] [--depth-limit K] [--policy NAME] [--decode NAME] [--dark-input NAME] [--time-limit MS] [--seed N]";
 
 const { depthLimit, timeLimitMs, seed } = LIMITS;
 
@@ -26,6 +35,12 @@ export const SYNTH_OPTIONS: Readonly<Record<string, OptionSpec>> = {
     help: `most diodes on any path, ${depthLimit.min}-${depthLimit.max} (overrides synthesis.maxDepth)`,
   },
   policy: { value: true, meta: "NAME", help: `depth policy: ${DEPTH_POLICIES.join(" | ")} (overrides synthesis.depth)` },
+  decode: { value: true, meta: "NAME", help: `decode polarity: ${DECODE_POLARITIES.join(" | ")} (overrides synthesis.decode)` },
+  "dark-input": {
+    value: true,
+    meta: "NAME",
+    help: `input network of a dark-decoded output: ${DARK_INPUTS.join(" | ")} (overrides synthesis.darkInput)`,
+  },
   "time-limit": {
     value: true,
     meta: "MS",
@@ -40,6 +55,8 @@ export const SYNTH_OPTIONS: Readonly<Record<string, OptionSpec>> = {
 const OVERRIDES: readonly { readonly option: string; readonly field: string; readonly numeric: boolean }[] = [
   { option: "depth-limit", field: "depthLimit", numeric: true },
   { option: "policy", field: "policy", numeric: false },
+  { option: "decode", field: "decode", numeric: false },
+  { option: "dark-input", field: "darkInput", numeric: false },
   { option: "time-limit", field: "timeLimitMs", numeric: true },
   { option: "seed", field: "seed", numeric: true },
 ];
@@ -109,7 +126,14 @@ export async function loadAndSynthesize(
     io.err(problem + "\n");
     return EXIT.input;
   }
-  return synthesizeProject(project, args, io);
+  const done = await synthesizeProject(project, args, io);
+  if (typeof done === "number") return done;
+  const refusal = electricalRefusal(done.matrix);
+  if (refusal !== null) {
+    io.err(`${refusal}\n`);
+    return EXIT.input;
+  }
+  return done;
 }
 
 /**
@@ -119,10 +143,31 @@ export async function loadAndSynthesize(
 export async function synthesizeProject(project: Project, args: ParsedArgs, io: CliIo): Promise<Synthesized | number> {
   const settings = settingsFromArgs(project, args, io);
   if (!settings) return EXIT.input;
-  const spec = compileSpec(project);
+  const effective = withPolarity(project, settings, io);
+  if (!effective) return EXIT.input;
+  const spec = compileSpec(effective);
   const result = await synthesize(spec, settings);
   if (!result.ok) return reportFailure(result.error, io);
-  return { project, spec, matrix: result.value };
+  return { project: effective, spec, matrix: result.value };
+}
+
+/**
+ * The project with `--decode` and `--dark-input` applied (they change the
+ * decode spec, not only the optimizer's settings), checked against the
+ * counter's lines and the driver as the project file is.
+ */
+export function withPolarity(project: Project, settings: Partial<Project["synthesis"]>, io: CliIo): Project | undefined {
+  const decode = settings.decode ?? project.synthesis.decode;
+  const darkInput = settings.darkInput ?? project.synthesis.darkInput;
+  if (decode === project.synthesis.decode && darkInput === project.synthesis.darkInput) return project;
+  const synthesis = { ...project.synthesis, decode, darkInput };
+  const problems: { path: string; message: string }[] = [];
+  checkPolarity(project.counter, synthesis, project.electrical.driver.kind, problems);
+  if (problems.length > 0) {
+    io.err(problems.map((p) => `--decode: ${p.message}\n`).join(""));
+    return undefined;
+  }
+  return { ...project, synthesis };
 }
 
 /** A validated coded-counter project with its spec and decoders. */

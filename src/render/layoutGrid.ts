@@ -20,7 +20,7 @@
  */
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import { designators } from "../core/matrix/designators.ts";
-import type { DiodeMatrix } from "../core/matrix/matrix.ts";
+import { darkSideDiodes, type DiodeMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
 import { boundingBox, textWidth, type DiodeSymbol, type Dot, type Point } from "./drawingModel.ts";
 import { glyphKeyHeight } from "./glyphKey.ts";
@@ -80,9 +80,13 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
   // An AND gate's input diode: drawn where the stage line's row crosses the gate's column.
   const isGateInput = (d: { from: string; to: string }): boolean => gates.has(d.from) && lines.has(d.to);
   const usedLines = spec.lines.filter((l) => matrix.diodes.some((d) => d.from === l || d.to === l));
+  // A one-hot counter: a row per state line it decodes from, the active-high S<k> and the active-low nS<k>.
+  const decode = spec.polarity.decode;
+  const stateRows = (names: readonly string[]): GridRow[] =>
+    names.map((s, k) => ({ net: s, kind: "state" as const, text: `${s} "${spec.texts[k] ?? ""}"` }));
   const rows: GridRow[] = [
     ...(spec.counter.kind === "one-hot"
-      ? spec.states.map((s, k) => ({ net: s, kind: "state" as const, text: `${s} "${spec.texts[k] ?? ""}"` }))
+      ? [...stateRows(decode === "dark" ? [] : spec.states), ...stateRows(decode === "lit" ? [] : spec.polarity.activeLow)]
       : usedLines.map((l) => ({ net: l, kind: "line" as const, text: l }))),
     ...[...matrix.gates].reverse().map((g) => ({ net: g.ref, kind: "gate" as const, text: `${g.ref} (gate)` })),
     ...[...matrix.buses].reverse().map((b) => ({ net: b, kind: "bus" as const, text: `${b} (bus)` })),
@@ -108,12 +112,17 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
   const top = Y(0, m) - m.topPad;
   const bottom = Y(R - 1, m) + m.pitchY - m.topPad;
 
+  // A dark-side diode sits where its driving row crosses its column like any other, drawn the other way
+  // round: its anode on the column (the output or bus it pulls down), its band on the row.
+  const darkSide = darkSideDiodes(matrix);
   const diodes: DiodeSymbol[] = matrix.diodes.map((d) => {
-    const reversed = isGateInput(d);
-    const r = rowOf.get(reversed ? d.to : d.from);
-    const c = colOf.get(reversed ? d.from : d.to);
+    const gateInput = isGateInput(d);
+    const r = rowOf.get(gateInput ? d.to : d.from);
+    const c = colOf.get(gateInput ? d.from : d.to);
     if (r === undefined || c === undefined) throw new Error(`bug: diode ${d.ref} from ${d.from} to ${d.to} has no row or column`);
-    return diodeSymbol(reversed ? { ...d, reversed } : d, { x: X(c, pitchX), y: Y(r, m) }, m);
+    const at = { x: X(c, pitchX), y: Y(r, m) };
+    if (darkSide.has(d.ref)) return diodeSymbol({ ref: d.ref, from: d.to, to: d.from, reversed: true }, at, m);
+    return diodeSymbol(gateInput ? { ...d, reversed: true } : d, at, m);
   });
 
   const wires: Wire[] = [];
@@ -127,8 +136,8 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
     const ownX = own === undefined ? [] : [X(own, pitchX)];
     // From the leftmost anode tap to just past the rightmost crossing, so the
     // row really crosses every column it feeds.
-    const fed = diodes.filter((d) => d.from === row.net && !d.reversed);
-    const x0 = Math.min(...ownX, ...fed.map((d) => d.anode.x - m.overshoot));
+    const fed = diodes.filter((d) => (d.reversed ? d.to : d.from) === row.net);
+    const x0 = Math.min(...ownX, ...fed.map((d) => (d.reversed ? d.cathode.x : d.anode.x) - m.overshoot));
     const x1 = Math.max(...ownX, ...fed.map((d) => d.crossing.x + m.overshoot));
     wires.push({ net: row.net, a: { x: x0, y }, b: { x: x1, y }, horizontal: true });
   }

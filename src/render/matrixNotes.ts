@@ -3,7 +3,7 @@
  * the diodes, how to read the symbol and the grid, and what to fit first.
  */
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
-import type { DiodeMatrix } from "../core/matrix/matrix.ts";
+import { darkOutputs, type DiodeMatrix } from "../core/matrix/matrix.ts";
 import { refRanges } from "../core/papers/parts.ts";
 import type { Project } from "../core/project/project.ts";
 import { designators } from "../core/matrix/designators.ts";
@@ -23,7 +23,22 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
       `Diodes ${refRanges(refs)} (${refs.length}): small-signal silicon, at least ${e.diode.maxReverseV} V reverse and ${milliampsExact(e.diode.maxForwardA)} mA forward.`,
     );
   }
-  if (spec.counter.kind === "one-hot") {
+  const dark = darkOutputs(matrix);
+  if (spec.counter.kind === "one-hot" && dark.length > 0) {
+    notes.push(
+      "Band = cathode = bar on the symbol. Lit-decoded outputs: the anode takes the row (S line, bus or link line), the cathode the column it drives. Dark-decoded outputs: the diode is turned round, its band on the row (nS line, bus or link line) and its anode on the column it pulls down.",
+    );
+    notes.push("Lines that cross without a dot are not joined; a dot marks a joint.");
+    notes.push(
+      "Rows: the counter lines S<k> (high in state k) and nS<k> (low in state k), each with the text its state shows. Columns: output lines, grouped by display position; each ends at its driver stage (Q).",
+    );
+    const per = (matrix.inputNetwork?.diodes ?? 0) / dark.length;
+    notes.push(
+      `Dark-decoded outputs ${dark.join(", ")}: each has a pull-up to the logic supply and is pulled down through its diodes in the states where its segment is dark, so it is high exactly when the segment is lit; ${
+        matrix.inputNetwork?.kind === "divider" ? "a two-resistor divider" : `${per} level-shift diode(s) in series with the driver's input`
+      } keeps the driver off while the node is pulled down.`,
+    );
+  } else if (spec.counter.kind === "one-hot") {
     notes.push(
       "Band = cathode = bar on the symbol. The anode takes the row (counter, bus or link line); the cathode goes to the column it drives.",
     );

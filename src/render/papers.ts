@@ -14,7 +14,7 @@ import type { Budget } from "../core/budget/budgetTypes.ts";
 import { projectDesign, type SegmentDesign } from "../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import { designators } from "../core/matrix/designators.ts";
-import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
+import { electricalRefusal, type VerifiedMatrix } from "../core/matrix/matrix.ts";
 import { spiceNetlist } from "../core/papers/netlist.ts";
 import { tieOnRows, wiringCsv, wiringRows, type TieOnRow } from "../core/papers/wiringList.ts";
 import type { Project } from "../core/project/project.ts";
@@ -127,13 +127,13 @@ export function paperFiles(input: PaperInput, kind: PaperKind): PaperFile[] {
         },
       ];
     case "bom": {
-      if (!budget) return [];
+      if (!budget || electricalRefusal(matrix) !== null) return [];
       const design = paperDesign(input);
       const parts = designators(spec, matrix, project.electrical, design.ohms);
       return [{ name: "bom.csv", mediaType: "text/csv", text: bomCsv(bomLines(project.electrical, parts, design)) }];
     }
     case "netlists": {
-      if (!budget) return [];
+      if (!budget || electricalRefusal(matrix) !== null) return [];
       const design = paperDesign(input);
       return spec.states.map((s, k) => ({
         name: `spice/${s}.cir`,

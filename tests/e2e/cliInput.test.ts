@@ -51,7 +51,7 @@ describe("wrong input that used to pass: now exit 2, naming the field", () => {
     [
       "synthesis as an array",
       { ...BASE, synthesis: [] },
-      "synthesis: got an array of 0 items; must be an object with the keys maxDepth, depth, buses, links, timeLimitMs, seed",
+      "synthesis: got an array of 0 items; must be an object with the keys maxDepth, depth, buses, links, timeLimitMs, seed, decode, darkInput",
     ],
     [
       "display as an array",

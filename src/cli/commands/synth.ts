@@ -1,7 +1,7 @@
 import { designNote, type SegmentDesign } from "../../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
 import { designators } from "../../core/matrix/designators.ts";
-import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
+import { darkOutputs, electricalRefusal, matrixObjective, outputDecode, type VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import { countParts, refRanges } from "../../core/papers/parts.ts";
 import type { Project } from "../../core/project/project.ts";
 import { partValue } from "../../render/bom.ts";
@@ -38,7 +38,16 @@ export const synthCommand: Command = {
     if (typeof done === "number") return done;
     const { spec, matrix } = done;
     if (args.flags.has("json")) io.out(JSON.stringify(matrix, null, 2) + "\n");
-    else io.out(describeMatrix(project, spec, matrix, designFor(project, spec, matrix, design)));
+    // Dark-decoded outputs are not in the circuit model yet: no design to settle.
+    else
+      io.out(
+        describeMatrix(
+          done.project,
+          spec,
+          matrix,
+          electricalRefusal(matrix) === null ? designFor(done.project, spec, matrix, design) : null,
+        ),
+      );
     return EXIT.ok;
   },
 };
@@ -54,7 +63,7 @@ const METHOD_TEXT = {
  *
  * @param design the current-setting resistors the parts list shows (as the budget, the BOM and the decks do)
  */
-export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMatrix, design: SegmentDesign): string {
+export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMatrix, design: SegmentDesign | null): string {
   const lines: string[] = [];
   const lit = spec.lit.reduce((a, row) => a + row.filter(Boolean).length, 0);
   lines.push(project.title);
@@ -62,10 +71,11 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
     `${spec.states.length} states, ${spec.positions} position(s) of ${spec.cell.kind}, ` +
       `${spec.outputs.length} outputs driven, ${spec.tiedOn.length} tied on, ${spec.neverLit.length} never lit`,
   );
+  const objective = matrixObjective(m);
   const bound = m.optimal
     ? "proven minimum"
     : m.lowerBound !== null
-      ? `lower bound ${m.lowerBound}, gap ${m.count - m.lowerBound}`
+      ? `lower bound ${m.lowerBound}, gap ${objective - m.lowerBound}`
       : "no lower bound";
   lines.push(
     `Method: ${METHOD_TEXT[m.method]}; verified; depth limit ${m.depthLimit} (${m.policy}), longest path ${m.longestPath}; ${bound}`,
@@ -80,8 +90,11 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
   const fromOf = new Map<string, string[]>();
   for (const d of m.diodes) fromOf.set(d.from, [...(fromOf.get(d.from) ?? []), `${d.ref}>${d.to}`]);
   const textW = Math.max(4, ...spec.texts.map((t) => t.length + 2));
-  lines.push(`${"State".padEnd(6)} ${"Text".padEnd(textW)} Diodes`);
-  spec.states.forEach((s, k) => {
+  lines.push(`${"Line".padEnd(6)} ${"Text".padEnd(textW)} Diodes`);
+  // Every line the counter offers that the decode uses: S<k> raises lit-decoded outputs, nS<k> pulls dark-decoded ones down.
+  const rowLines = spec.polarity.decode === "lit" ? spec.states : spec.polarity.decode === "dark" ? spec.polarity.activeLow : spec.lines;
+  rowLines.forEach((s) => {
+    const k = Number(s.replace(/^n?S/, ""));
     const ds = fromOf.get(s) ?? [];
     lines.push(`${s.padEnd(6)} ${`"${spec.texts[k]}"`.padEnd(textW)} ${ds.length === 0 ? "-" : ds.join(" ")}`);
   });
@@ -105,19 +118,43 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
     for (const d of links) lines.push(`  ${d.ref.padEnd(5)} ${d.from} -> ${d.to}`);
   }
 
-  lines.push("", `${"Output".padEnd(7)} Lit in states`);
+  const dark = darkOutputs(m);
+  lines.push("", dark.length > 0 ? `${"Output".padEnd(7)} ${"Decode".padEnd(7)} Lit in states` : `${"Output".padEnd(7)} Lit in states`);
   spec.outputs.forEach((o, j) => {
     const ks = spec.states.filter((_, k) => spec.lit[k]?.[j]);
-    lines.push(`${o.padEnd(7)} ${ks.join(" ")}`);
+    lines.push(dark.length > 0 ? `${o.padEnd(7)} ${outputDecode(m, o).padEnd(7)} ${ks.join(" ")}` : `${o.padEnd(7)} ${ks.join(" ")}`);
   });
   if (spec.tiedOn.length > 0) lines.push(`Tied on (lit in every state, no diodes): ${spec.tiedOn.join(" ")}`);
   if (spec.neverLit.length > 0) lines.push(`Never lit (no driver): ${spec.neverLit.join(" ")}`);
 
-  lines.push("", "Parts");
-  for (const g of countParts(designators(spec, m, project.electrical, design.ohms))) {
-    lines.push(`  ${String(g.refs.length).padStart(4)}  ${partValue(g, project.electrical).padEnd(22)} ${refRanges(g.refs)}`);
+  const net = m.inputNetwork;
+  if (design === null || (net !== undefined && dark.length > 0)) {
+    const what =
+      net === undefined
+        ? "no input network"
+        : net.kind === "divider"
+          ? `${net.resistors} divider resistors`
+          : `${net.diodes} level-shift diodes (${net.diodes / dark.length} per output)`;
+    lines.push(
+      "",
+      `Input network of the ${dark.length} dark-decoded outputs: ${dark.length} pull-ups to the logic supply and ${what}.`,
+      "The parts list, the budget and the netlists do not yet take dark-decoded outputs.",
+    );
+  } else {
+    lines.push("", "Parts");
+    for (const g of countParts(designators(spec, m, project.electrical, design.ohms))) {
+      lines.push(`  ${String(g.refs.length).padStart(4)}  ${partValue(g, project.electrical).padEnd(22)} ${refRanges(g.refs)}`);
+    }
+    lines.push(`  ${designNote(design)}`);
   }
-  lines.push(`  ${designNote(design)}`);
-  lines.push("", `Totals: ${m.count} diodes (direct ${lit}, saved ${lit - m.count}), ${m.buses.length} bus nodes, ${links.length} links`);
+  if (dark.length === 0) {
+    lines.push("", `Totals: ${m.count} diodes (direct ${lit}, saved ${lit - m.count}), ${m.buses.length} bus nodes, ${links.length} links`);
+  } else {
+    const shift = net !== undefined && net.diodes > 0 ? ` + ${net.diodes} level-shift = ${objective}` : "";
+    lines.push(
+      "",
+      `Totals: ${m.count} matrix diodes${shift} (one per lit cell: ${lit}), ${m.buses.length} bus nodes, ${links.length} links`,
+    );
+  }
   return lines.join("\n") + "\n";
 }

@@ -9,7 +9,8 @@
  * plane like a line. For a one-hot counter `gates` is empty.
  */
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
-import type { DepthPolicy } from "../project/project.ts";
+import type { DarkInput, DepthPolicy } from "../project/project.ts";
+import type { OutputPolarity } from "../spec/decodeSpec.ts";
 import { diodeRef } from "./designators.ts";
 
 export const MATRIX_SCHEMA = "diodeloom/matrix@3";
@@ -33,6 +34,22 @@ export interface Diode {
 
 export type SynthesisMethod = "direct" | "heuristic" | "exact";
 
+/**
+ * The parts between the dark-decoded output nodes and their drivers, counted
+ * apart from the matrix: each such output has a pull-up to the logic supply
+ * and either level-shift diodes in series with its driver's input or a
+ * two-resistor divider.
+ */
+export interface InputNetwork {
+  readonly kind: DarkInput;
+  /** Dark-decoded outputs it serves (each with one pull-up resistor). */
+  readonly outputs: number;
+  /** Level-shift diodes in all. */
+  readonly diodes: number;
+  /** Divider resistors in all (the pull-ups besides). */
+  readonly resistors: number;
+}
+
 export interface DiodeMatrix {
   readonly schema: typeof MATRIX_SCHEMA;
   /** The counter's states, `S0`.., in counting order. */
@@ -50,10 +67,22 @@ export interface DiodeMatrix {
   readonly buses: readonly string[];
   readonly diodes: readonly Diode[];
   readonly tiedOn: readonly string[];
+  /** Diodes among the lines, buses and output nodes (the input network's are counted apart). */
   readonly count: number;
-  /** Proven lower bound on the diode count, or null when none was proven. */
+  /**
+   * Per output, the polarity it is decoded in; absent when every output is
+   * decoded lit (a dark-decoded output's diodes have their cathode at the
+   * driving end, `from`).
+   */
+  readonly decode?: Readonly<Record<string, OutputPolarity>>;
+  /** The dark-decoded outputs' input network; absent when no output is decoded dark. */
+  readonly inputNetwork?: InputNetwork;
+  /**
+   * Proven lower bound on the diodes the optimizer counts (`matrixObjective`:
+   * the matrix's, plus the input network's), or null when none was proven.
+   */
   readonly lowerBound: number | null;
-  /** True when `count` is proven minimal under the limit and policy. */
+  /** True when `matrixObjective` is proven minimal under the limit and policy. */
   readonly optimal: boolean;
   /**
    * Longest path in this matrix, in diodes, from a driving node to an
@@ -91,6 +120,50 @@ export interface MatrixMeta {
   readonly method: SynthesisMethod;
   /** See `DiodeMatrix.deadlineHit`; false when left out. */
   readonly deadlineHit?: boolean;
+}
+
+/**
+ * The diodes the optimizer minimises: the matrix's `count` plus the
+ * input network's level-shift diodes (the count alone when every output is
+ * decoded lit).
+ */
+export function matrixObjective(m: Pick<DiodeMatrix, "count" | "inputNetwork">): number {
+  return m.count + (m.inputNetwork?.diodes ?? 0);
+}
+
+/** The polarity of an output of a matrix (lit unless its `decode` says dark). */
+export function outputDecode(m: Pick<DiodeMatrix, "decode">, output: string): OutputPolarity {
+  return m.decode?.[output] ?? "lit";
+}
+
+/** The dark-decoded outputs of a matrix, in output order. */
+export function darkOutputs(m: Pick<DiodeMatrix, "decode" | "outputs">): string[] {
+  return m.outputs.filter((o) => m.decode?.[o] === "dark");
+}
+
+/**
+ * The diodes on the dark side of a matrix: those from an active-low line
+ * (`nS<k>`), from a bus such a line feeds, or into a dark-decoded output.
+ * Their driving end (`from`) is the cathode; every other diode's is the anode.
+ */
+export function darkSideDiodes(m: Pick<DiodeMatrix, "decode" | "outputs" | "diodes" | "buses">): ReadonlySet<string> {
+  const dark = new Set(darkOutputs(m));
+  if (dark.size === 0) return new Set();
+  const lowLine = (n: string): boolean => /^nS\d+$/.test(n);
+  const buses = new Set(m.buses);
+  const darkBus = new Set(m.diodes.filter((d) => buses.has(d.to) && lowLine(d.from)).map((d) => d.to));
+  return new Set(m.diodes.filter((d) => lowLine(d.from) || darkBus.has(d.from) || dark.has(d.to)).map((d) => d.ref));
+}
+
+/**
+ * Why the circuit stages (budget, netlists, parts list) do not take a
+ * matrix yet, or null when they do: its dark-decoded outputs' pull-ups and
+ * input networks are not in the circuit model.
+ */
+export function electricalRefusal(m: Pick<DiodeMatrix, "decode" | "outputs">): string | null {
+  const dark = darkOutputs(m);
+  if (dark.length === 0) return null;
+  return `the budget, the netlists and the parts list do not yet take dark-decoded outputs (${dark.length} here: ${dark.slice(0, 4).join(", ")}${dark.length > 4 ? ", …" : ""}); synth, compare and the drawing's matrix do`;
 }
 
 /** Bus node name (1-based). */

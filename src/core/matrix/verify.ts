@@ -13,6 +13,7 @@ import type { DiodeMatrix, VerifiedMatrix } from "./matrix.ts";
 import type { DepthPolicy } from "../project/project.ts";
 import { fail, ok, type Result } from "../result/result.ts";
 import { verifyLogic } from "../logic/verifyLogic.ts";
+import { verifyPolarity } from "./verifyPolarity.ts";
 
 export interface VerifyLimits {
   readonly depthLimit: number;
@@ -27,6 +28,8 @@ export interface VerifyLimits {
  */
 export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLimits): Result<VerifiedMatrix, string[]> {
   if (spec.counter.kind !== "one-hot") return verifyLogic(spec, m, limits);
+  // Dark-decoded outputs, or a counter with active-low lines: both directions are walked.
+  if (spec.polarity.decode !== "lit" || m.decode !== undefined || m.inputNetwork !== undefined) return verifyPolarity(spec, m, limits);
   const errors: string[] = [];
   const states = new Set(spec.states);
   const outputs = new Set(spec.outputs);

@@ -12,7 +12,7 @@
  */
 import { csvText } from "./csv.ts";
 import type { DriverParts } from "../matrix/designators.ts";
-import type { DiodeMatrix } from "../matrix/matrix.ts";
+import { darkSideDiodes, type DiodeMatrix } from "../matrix/matrix.ts";
 
 export interface WiringRow {
   /** Assembly step, 1-based. */
@@ -35,7 +35,7 @@ export interface DrawingPosition {
 
 /** The checks after assembly, in the order a builder does them. */
 export const INSPECTION_CHECKLIST: readonly { readonly item: string; readonly check: string }[] = [
-  { item: "Polarity", check: "every diode's band (cathode) faces the driven line, as the bar on the symbol" },
+  { item: "Polarity", check: "every diode's band (cathode) is on the line the list names second, as the bar on the symbol" },
   { item: "Count", check: "the number of diodes fitted equals the number of rows above" },
   { item: "Joints", check: "every joint is soldered and bright; every dot on the drawing is a joint" },
   { item: "No bridges", check: "no solder bridge or stray lead joins two lines; crossings without a dot stay apart" },
@@ -49,9 +49,12 @@ export const INSPECTION_CHECKLIST: readonly { readonly item: string; readonly ch
  * wiringRows(matrix, drawing.placements)[0]; // { step: 1, ref: "D1", from: "S0", to: "1a", sheet: 1, zone: "B2" }
  */
 export function wiringRows(matrix: DiodeMatrix, placements?: ReadonlyMap<string, DrawingPosition>): WiringRow[] {
+  const dark = darkSideDiodes(matrix);
   return matrix.diodes.map((d, i) => {
     const at = placements?.get(d.ref);
-    return { step: i + 1, ref: d.ref, from: d.from, to: d.to, sheet: at?.sheet ?? null, zone: at?.zone ?? "" };
+    // A dark-side diode is driven from its cathode: the list names each diode's anode first all the same.
+    const [anode, cathode] = dark.has(d.ref) ? [d.to, d.from] : [d.from, d.to];
+    return { step: i + 1, ref: d.ref, from: anode, to: cathode, sheet: at?.sheet ?? null, zone: at?.zone ?? "" };
   });
 }
 

@@ -43,8 +43,24 @@ export interface SharingModel {
   warmStart(plan: SharingPlan): Map<string, number> | null;
 }
 
+/**
+ * A choice between columns, for the decode polarity (see polarityProblem.ts):
+ * of each pair exactly one column is covered, a binary `z_j` (1: the second)
+ * choosing which, at `secondCost` when it takes the second. No structure may
+ * touch the column not chosen.
+ */
+export interface ModelChoice {
+  readonly pairs: readonly (readonly [number, number])[];
+  readonly secondCost: number;
+}
+
+/** The name of pair j's choice variable (1: its second column is covered). */
+export function choiceName(j: number): string {
+  return `z_${j}`;
+}
+
 /** Builds the model; `rules.depthLimit` must be 2 or 3 (depth 1 needs no model). */
-export function buildSharingModel(p: SharingProblem, rules: SharingRules, family: CandidateFamily): SharingModel {
+export function buildSharingModel(p: SharingProblem, rules: SharingRules, family: CandidateFamily, choice?: ModelChoice): SharingModel {
   const L = Math.min(3, rules.depthLimit);
   const mixed = rules.policy === "mixed";
   const uniform = rules.policy === "uniform";
@@ -108,7 +124,35 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
     const name = bin(`l_${l.from}_${l.to}`, 1);
     for (const k of p.col[l.from] ?? []) cell(k, l.to).push(name);
   }
-  for (const [, terms] of [...cover.entries()].sort((a, b) => a[0] - b[0])) row(terms, ">=", 1);
+  // Without a choice every cell is covered; with one, a cell of column c only when c is chosen.
+  const chooser = new Map<number, { z: string; second: boolean }>();
+  choice?.pairs.forEach(([a, b], j) => {
+    const z = bin(choiceName(j), choice.secondCost);
+    chooser.set(a, { z, second: false });
+    chooser.set(b, { z, second: true });
+  });
+  for (const [key, terms] of [...cover.entries()].sort((a, b) => a[0] - b[0])) {
+    const c = chooser.get(key % p.m);
+    if (c === undefined) row(terms, ">=", 1);
+    else if (c.second) row([...terms, `- ${c.z}`], ">=", 0);
+    else row([...terms, c.z], ">=", 1);
+  }
+  // A structure touching a column only while that column is chosen.
+  const only = (name: string, col: number): void => {
+    const c = chooser.get(col);
+    if (c === undefined) return;
+    if (c.second) row([name, `- ${c.z}`], "<=", 0);
+    else row([name, c.z], "<=", 1);
+  };
+  if (chooser.size > 0) {
+    if (!uniform) for (let k = 0; k < p.n; k++) for (const o of p.row[k] ?? []) only(dName(k, o), o);
+    buses.forEach((b, i) => b.outputs.forEach((o) => only(`y_${i}`, o)));
+    if (pads) for (let k = 0; k < p.n; k++) if (padRow(k)) for (const o of p.row[k] ?? []) only(`p_${k}_${o}`, o);
+    for (const l of linkPairs) {
+      only(`l_${l.from}_${l.to}`, l.from);
+      only(`l_${l.from}_${l.to}`, l.to);
+    }
+  }
 
   // Depth policy.
   if (uniform) {
@@ -199,6 +243,15 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
         } else return null;
       }
       for (const l of plan.links) vals.set(`l_${l.from}_${l.to}`, 1);
+      // The choice follows from the columns the plan reaches.
+      if (choice) {
+        const reached = new Set<number>([
+          ...plan.direct.map(([, o]) => o),
+          ...plan.buses.flatMap((b) => b.outputs),
+          ...plan.links.flatMap((l) => [l.from, l.to]),
+        ]);
+        choice.pairs.forEach(([, b], j) => vals.set(choiceName(j), reached.has(b) ? 1 : 0));
+      }
       // Levels follow from the structures.
       const level = levelsOf(p, plan);
       if (uniform) {

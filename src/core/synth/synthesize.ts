@@ -18,6 +18,7 @@ import { HEURISTIC_DEFAULT_WORK, heuristicPlan } from "./heuristic.ts";
 import { litCount, planCount, planEdges, sharingProblem, type SharingPlan, type SharingRules } from "./plan.ts";
 import { verifyMatrix } from "../matrix/verify.ts";
 import { synthesizeCoded } from "../logic/synthesizeCoded.ts";
+import { synthesizePolarity } from "./polarity.ts";
 
 /** `direct`: one diode per lit cell; `fast`: the heuristic; `exact`: the proven optimum (branch-and-bound, then HiGHS). */
 export type SynthMode = "direct" | "fast" | "exact";
@@ -80,12 +81,8 @@ export async function synthesize(
   }
   const limits = checkLimits(settings);
   if (limits) return fail(limits);
-  if (spec.polarity.decode !== "lit") {
-    return fail({
-      kind: "infeasible",
-      message: `this build decodes lit cells only; "decode": "${spec.polarity.decode}" needs the dark-cell synthesizer`,
-    });
-  }
+  // Dark-decoded outputs: the same engines on the dark cells, with the input network counted (polarity.ts).
+  if (spec.polarity.decode !== "lit") return synthesizePolarity(spec, settings, hooks);
   const p = sharingProblem(spec);
   const lit = litCount(p);
   const rules: SharingRules = { depthLimit: settings.depthLimit, policy: settings.policy, buses: settings.buses, links: settings.links };
