@@ -4,11 +4,12 @@ import { EXIT } from "../io.ts";
 import { loadProject } from "../loadProject.ts";
 import { reportFailure, settingsFromArgs } from "../synthOptions.ts";
 import { decoderRows, type DecoderRow } from "../../core/compare/decoderRows.ts";
+import { comparePolarities, type PolarityRow } from "../../core/compare/polarityRows.ts";
 import { synthesizeCoded } from "../../core/logic/synthesizeCoded.ts";
 import { compileSpec } from "../../core/spec/decodeSpec.ts";
 import { synthesize } from "../../core/synth/synthesize.ts";
 
-const USAGE = "compare FILE [--json] [--fast] [--time-limit MS]";
+const USAGE = "compare FILE [--json] [--fast] [--polarity] [--time-limit MS]";
 
 export const compareCommand: Command = {
   name: "compare",
@@ -16,6 +17,7 @@ export const compareCommand: Command = {
   options: {
     json: { help: "print diodeloom/compare@1 JSON" },
     fast: { help: "the heuristic only (no exact optimizer, no bounds)" },
+    polarity: { help: "also decode every glyph style lit, dark and either, on complementary counter lines (one-hot counters)" },
     "time-limit": { value: true, meta: "MS", help: "time limit for all combinations together, milliseconds" },
   },
   async run(args, io) {
@@ -33,12 +35,23 @@ export const compareCommand: Command = {
       if (!coded.ok) return reportFailure(coded.error, io);
       decoders = decoderRows(coded.value);
     }
+    // Lit, dark and either for each glyph style, on complementary lines.
+    let polarity: PolarityRow[] | undefined;
+    if (args.flags.has("polarity") && project.counter.code === "one-hot") {
+      const p = await comparePolarities(project, { settings });
+      if (!p.ok) return reportFailure(p.error, io);
+      polarity = p.value;
+    }
     if (args.flags.has("json")) {
-      io.out(JSON.stringify({ schema: COMPARE_SCHEMA, rows, ...(decoders ? { decoders } : {}) }, null, 2) + "\n");
+      io.out(
+        JSON.stringify({ schema: COMPARE_SCHEMA, rows, ...(decoders ? { decoders } : {}), ...(polarity ? { polarity } : {}) }, null, 2) +
+          "\n",
+      );
       return EXIT.ok;
     }
     io.out(describeRows(project.title, rows, settings.policy, settings.depthLimit));
     if (decoders) io.out(describeDecoders(decoders));
+    if (polarity) io.out(describePolarity(polarity, project.synthesis.darkInput));
     return EXIT.ok;
   },
 };
@@ -59,6 +72,37 @@ export function describeRows(title: string, rows: readonly GlyphStyleRow[], poli
     }
     lines.push("");
   });
+  return lines.join("\n");
+}
+
+/** The decode-polarity rows: per glyph style, lit, dark and either with their diodes, bound and resistors. */
+export function describePolarity(rows: readonly PolarityRow[], darkInput: string): string {
+  const lines = [
+    `\nDecode polarity on complementary counter lines (S<k> and nS<k>); dark-decoded outputs with ${darkInput === "divider" ? "a divider each" : "level-shift diodes"}`,
+    `  ${"glyphs".padEnd(24)} ${"decode".padEnd(7)} ${"diodes".padStart(6)} ${"matrix".padStart(6)} ${"shift".padStart(5)} ${"resistors".padStart(9)} ${"dark".padStart(4)}  bound`,
+  ];
+  for (const r of rows) {
+    const glyphs = Object.entries(r.glyphs)
+      .map(([c, g]) => `${c}=${g}`)
+      .join(" ");
+    const label = `  ${(glyphs || "(as shown)").padEnd(24)} ${r.decode.padEnd(7)}`;
+    if (r.refused !== null) {
+      lines.push(`${label} no circuit: ${r.refused}`);
+      continue;
+    }
+    const bound = r.optimal
+      ? "proven minimum"
+      : r.lowerBound !== null
+        ? `${r.status}; lower bound ${r.lowerBound}`
+        : `${r.status}; no bound`;
+    lines.push(
+      `${label} ${String(r.diodes).padStart(6)} ${String(r.matrixDiodes).padStart(6)} ${String(r.inputDiodes).padStart(5)} ${String(r.resistors).padStart(9)} ${String(r.darkOutputs).padStart(4)}  ${bound}`,
+    );
+  }
+  lines.push(
+    "  (diodes = matrix + level-shift; resistors: a pull-down per lit-decoded output, a pull-up and a bleed or divider per dark-decoded one; the drivers' own are the same in every row)",
+    "",
+  );
   return lines.join("\n");
 }
 

@@ -12,7 +12,7 @@
  */
 import { compileSpec } from "../spec/decodeSpec.ts";
 import { SEG7_VARIANTS, segmentsOfString } from "../glyphs/glyphs.ts";
-import type { VerifiedMatrix } from "../matrix/matrix.ts";
+import { matrixObjective, type VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
 import { splitText } from "../project/projectSchema.ts";
 import { ok, type Result } from "../result/result.ts";
@@ -107,7 +107,7 @@ export function withGlyphs(project: Project, combo: Readonly<Record<string, stri
  */
 export function rowKey(project: Project, combo: Readonly<Record<string, string>> = {}): string {
   const spec = compileSpec(withGlyphs(project, combo));
-  const { depthLimit, policy, buses, links } = project.synthesis;
+  const { depthLimit, policy, buses, links, decode, darkInput } = project.synthesis;
   return JSON.stringify({
     outputs: spec.outputs,
     lit: spec.lit.map((r) => r.map((x) => (x ? 1 : 0)).join("")),
@@ -115,6 +115,8 @@ export function rowKey(project: Project, combo: Readonly<Record<string, string>>
     policy,
     buses,
     links,
+    // A dark decode's figures depend on the polarity and on what each dark output's input network costs.
+    ...(decode !== "lit" ? { decode, darkInput, inputDiodes: spec.polarity.inputDiodes } : {}),
   });
 }
 
@@ -164,7 +166,8 @@ export async function compareGlyphStyles(project: Project, options: CompareOptio
     const m = r.value;
     const row: GlyphStyleRow = {
       glyphs: combo,
-      count: m.count,
+      // With dark-decoded outputs the optimizer counts their level-shift diodes too, and so does the bound.
+      count: matrixObjective(m),
       lowerBound: m.lowerBound,
       optimal: m.optimal,
       status: figureStatus(m, settings.mode),

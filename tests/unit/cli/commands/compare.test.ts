@@ -49,3 +49,19 @@ describe("diodeloom compare (in-process)", () => {
     expect(await main(["compare", "bad.json"], io)).toBe(2);
   });
 });
+
+describe("diodeloom compare --polarity", () => {
+  it("adds lit, dark and either rows per glyph style, with diodes, level shift, resistors and bound", async () => {
+    const file = { schema: "diodeloom/project@2", counter: { states: 4 }, display: {}, show: ["1", "7", "4", "0"] };
+    const io = recordingIo({ "p.json": JSON.stringify(file) });
+    expect(await main(["compare", "p.json", "--polarity", "--fast"], io)).toBe(0);
+    const text = io.stdout.join("");
+    expect(text).toContain("Decode polarity on complementary counter lines (S<k> and nS<k>)");
+    // 7 in two styles, three polarities each.
+    expect(text.match(/^ {2}7=\S+ +(lit|dark|either) +\d+ +\d+ +\d+ +\d+ +\d+ {2}heuristic; no bound$/gm)).toHaveLength(6);
+    const json = recordingIo({ "p.json": JSON.stringify(file) });
+    expect(await main(["compare", "p.json", "--polarity", "--json", "--fast"], json)).toBe(0);
+    const doc = JSON.parse(json.stdout.join(""));
+    expect(doc.polarity.map((r: { decode: string }) => r.decode)).toEqual(["lit", "dark", "either", "lit", "dark", "either"]);
+  });
+});
