@@ -11,6 +11,8 @@ import { EXIT } from "../io.ts";
 import { loadProject } from "../loadProject.ts";
 import { SYNTH_OPTIONS, SYNTH_USAGE, synthesizeCodedProject, synthesizeProject } from "../synthOptions.ts";
 import { describeDecoder } from "../decoderReport.ts";
+import { ghostCheck } from "../../core/budget/ghostCheck.ts";
+import { microamps, milliamps } from "../../render/units.ts";
 
 const USAGE = `synth FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
@@ -51,6 +53,23 @@ export const synthCommand: Command = {
     return EXIT.ok;
   },
 };
+
+/** The ghost check of the dark-decoded outputs, in words. */
+function ghostLines(project: Project, spec: DecodeSpec, m: VerifiedMatrix): string[] {
+  const g = ghostCheck(project, spec, m);
+  if (!g.ok) return ["", `Ghost check: ${g.error.message}`];
+  const v = g.value;
+  const at = (f: { output: string; state: string; corner: string }): string => `${f.output} in ${f.state}, ${f.corner}`;
+  return [
+    "",
+    `Ghost check (every state, at the nominal values and both tolerance corners), pull-ups ${v.values.pullUpOhms / 1000} kΩ (E24)${
+      v.values.dividerOhms !== null ? `, dividers ${v.values.dividerOhms / 1000} kΩ over the pull-down` : ""
+    }:`,
+    `  worst unlit segment ${microamps(v.worstUnlit.currentA)} µA (${at(v.worstUnlit)}) against the ${microamps(v.ghostLimitA)} µA ghost limit`,
+    `  weakest lit segment ${milliamps(v.weakestLit.currentA)} mA (${at(v.weakestLit)}); most sunk by an active-low line ${milliamps(v.mostSunk.currentA)} mA (${at(v.mostSunk)}) of ${milliamps(project.electrical.lowLine.maxCurrentA)} mA`,
+    `  ${v.passes ? "passes" : "FAILS"}; the limit that binds: ${v.binding}`,
+  ];
+}
 
 const METHOD_TEXT = {
   direct: "direct (one diode per lit cell)",
@@ -140,6 +159,7 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
       `Input network of the ${dark.length} dark-decoded outputs: ${dark.length} pull-ups to the logic supply and ${what}.`,
       "The parts list, the budget and the netlists do not yet take dark-decoded outputs.",
     );
+    if (dark.length > 0) lines.push(...ghostLines(project, spec, m));
   } else {
     lines.push("", "Parts");
     for (const g of countParts(designators(spec, m, project.electrical, design.ohms))) {

@@ -53,3 +53,42 @@ describe("diodeloom synth (in-process)", () => {
     expect(io.stderr.join("")).toMatch(/unknown command "synthesise"/);
   });
 });
+
+describe("diodeloom synth with dark-decoded outputs", () => {
+  const file = {
+    schema: "diodeloom/project@2",
+    title: "Dark",
+    counter: { states: 6, drive: "complementary" },
+    display: {},
+    show: ["0", "1", "2", "3", "4", "5"],
+    synthesis: { depth: "mixed" },
+  };
+  it("takes --decode and --dark-input, lists the lines both ways, each output's decode, the input network and the ghost check", async () => {
+    const io = recordingIo({ "p.json": JSON.stringify(file) });
+    expect(await main(["synth", "p.json", "--decode", "dark"], io)).toBe(0);
+    const text = io.stdout.join("");
+    expect(text).toMatch(/^nS1 +"1" +D\d+>1[a-g]/m);
+    expect(text).toMatch(/^1a +dark +S0 S2 S3 S5$/m);
+    expect(text).toContain(
+      "Input network of the 7 dark-decoded outputs: 7 pull-ups to the logic supply and 14 level-shift diodes (2 per output).",
+    );
+    expect(text).toMatch(/Ghost check .* pull-ups [\d.]+ kΩ \(E24\)/);
+    expect(text).toMatch(/worst unlit segment [\d.]+ µA \(1[a-g] in S\d, (nominal|low|high)\) against the 100\.0 µA ghost limit/);
+    expect(text).toContain("Totals: 13 matrix diodes + 14 level-shift = 27");
+    const json = recordingIo({ "p.json": JSON.stringify(file) });
+    expect(await main(["synth", "p.json", "--decode", "either", "--dark-input", "divider", "--json"], json)).toBe(0);
+    const m = JSON.parse(json.stdout.join(""));
+    expect(m.count).toBe(12);
+    expect(m.inputNetwork.diodes).toBe(0);
+    // A dark-side diode is named from its driving end, the active-low line or its bus.
+    expect(m.diodes.some((d: { from: string }) => /^nS\d+$/.test(d.from))).toBe(true);
+  });
+  it("refuses --decode dark on a source-drive counter, and budget on a dark-decoded project", async () => {
+    const source = recordingIo({ "p.json": JSON.stringify({ ...file, counter: { states: 6 } }) });
+    expect(await main(["synth", "p.json", "--decode", "dark"], source)).toBe(2);
+    expect(source.stderr.join("")).toContain('set counter.drive to "complementary"');
+    const budget = recordingIo({ "p.json": JSON.stringify({ ...file, synthesis: { decode: "dark" } }) });
+    expect(await main(["budget", "p.json", "--fast"], budget)).toBe(2);
+    expect(budget.stderr.join("")).toContain("do not yet take dark-decoded outputs");
+  });
+});
