@@ -3,7 +3,7 @@
  * list, or filled from a counting pattern) and the synthesis options.
  */
 import { createMemo, createSignal, For, Index, Show } from "solid-js";
-import type { CellKind, CounterCodeKind, DepthPolicy } from "../../core/project/project.ts";
+import type { CellKind, CounterCodeKind, CounterDrive, DarkInput, DecodePolarity, DepthPolicy } from "../../core/project/project.ts";
 import { LIMITS } from "../../core/project/limits.ts";
 import { numberFromText } from "../../core/project/synthesisSchema.ts";
 import { splitText } from "../../core/project/projectSchema.ts";
@@ -18,6 +18,7 @@ import {
   effectiveGlyphs,
   setCell,
   setCounterCode,
+  setCounterDrive,
   setCounterCodes,
   setPositions,
   setStates,
@@ -34,6 +35,13 @@ const CODE_NAMES: Record<CounterCodeKind, string> = {
   binary: "binary (BCD at 10 states)",
   custom: "custom codes",
 };
+const DRIVE_NAMES: Record<CounterDrive, string> = {
+  source: "active high (S)",
+  sink: "active low (nS)",
+  complementary: "both (S and nS)",
+};
+const DECODE_NAMES: Record<DecodePolarity, string> = { lit: "lit cells", dark: "dark cells", either: "cheaper per output" };
+const DARK_INPUT_NAMES: Record<DarkInput, string> = { "level-shift": "level-shift diodes", divider: "divider" };
 const POLICY_NAMES: Record<DepthPolicy, string> = { "per-segment": "per segment", mixed: "mixed", uniform: "uniform" };
 const DEPTH_LIMITS = Array.from({ length: LIMITS.depthLimit.max - LIMITS.depthLimit.min + 1 }, (_, i) => LIMITS.depthLimit.min + i);
 
@@ -104,6 +112,19 @@ export function ProjectPanel() {
         >
           <For each={Object.keys(CODE_NAMES) as CounterCodeKind[]}>{(k) => <option value={k}>{CODE_NAMES[k]}</option>}</For>
         </select>
+
+        <Show when={d().counter.code === "one-hot"}>
+          <label for="f-drive">Counter lines</label>
+          <select
+            id="f-drive"
+            value={d().counter.drive}
+            data-testid="counter-drive"
+            title="which level marks the active state: the dark cells are decoded onto active-low lines"
+            onChange={(e) => app.edit((x) => setCounterDrive(x, e.currentTarget.value as CounterDrive))}
+          >
+            <For each={Object.keys(DRIVE_NAMES) as CounterDrive[]}>{(k) => <option value={k}>{DRIVE_NAMES[k]}</option>}</For>
+          </select>
+        </Show>
 
         <Show when={d().counter.code === "custom"}>
           <label for="f-codes">Codes</label>
@@ -235,6 +256,26 @@ export function ProjectPanel() {
           >
             <For each={Object.keys(POLICY_NAMES) as DepthPolicy[]}>{(p) => <option value={p}>{POLICY_NAMES[p]}</option>}</For>
           </select>
+          <label for="f-decode">Decode</label>
+          <select
+            id="f-decode"
+            value={d().synthesis.decode}
+            data-testid="decode-polarity"
+            title="lit cells from active-high lines, dark cells onto active-low lines (a pull-up on each output), or the cheaper per output"
+            onChange={(e) => app.edit((x) => setSynthesis(x, { decode: e.currentTarget.value as DecodePolarity }))}
+          >
+            <For each={Object.keys(DECODE_NAMES) as DecodePolarity[]}>{(k) => <option value={k}>{DECODE_NAMES[k]}</option>}</For>
+          </select>
+          <Show when={d().synthesis.decode !== "lit"}>
+            <label for="f-dark-input">Dark input</label>
+            <select
+              id="f-dark-input"
+              value={d().synthesis.darkInput}
+              onChange={(e) => app.edit((x) => setSynthesis(x, { darkInput: e.currentTarget.value as DarkInput }))}
+            >
+              <For each={Object.keys(DARK_INPUT_NAMES) as DarkInput[]}>{(k) => <option value={k}>{DARK_INPUT_NAMES[k]}</option>}</For>
+            </select>
+          </Show>
           <span class="label">Sharing</span>
           <div class="checks">
             <label>

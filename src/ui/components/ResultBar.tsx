@@ -4,6 +4,7 @@
  */
 import { createSignal, Match, onCleanup, Show, Switch } from "solid-js";
 import { app } from "../state/appState.ts";
+import { darkOutputs, matrixObjective, type DiodeMatrix } from "../../core/matrix/matrix.ts";
 import { gapPercent } from "../workers/exactProtocol.ts";
 import { doneText } from "../state/exactStatus.ts";
 import { HelpTip } from "./HelpTip.tsx";
@@ -30,8 +31,18 @@ export function ResultBar() {
   return (
     <div class="result-bar" role="status" aria-live="polite">
       <Show when={m()} fallback={<span class="muted">No result yet</span>}>
-        <span class="count" data-testid="diode-count" data-count={m()?.count}>
-          <strong>{m()?.count}</strong> diodes
+        <span class="count" data-testid="diode-count" data-count={m() ? matrixObjective(m() as DiodeMatrix) : undefined}>
+          <strong>{m() ? matrixObjective(m() as DiodeMatrix) : ""}</strong> diodes
+          <Show when={darkOutputs(m() as DiodeMatrix).length > 0}>
+            {" "}
+            <span
+              data-testid="dark-decode"
+              title="each of these outputs has a pull-up and is pulled down in the states where its segment is dark"
+            >
+              ({m()?.count} in the matrix, {m()?.inputNetwork?.diodes ?? 0} level-shift; decoded dark:{" "}
+              {darkOutputs(m() as DiodeMatrix).join(" ")})
+            </span>
+          </Show>
           <Show when={(m()?.gates.length ?? 0) > 0}>
             , <strong data-testid="gate-count">{m()?.gates.length}</strong> AND gates
           </Show>

@@ -6,7 +6,7 @@
  * single change in the form rarely leaves the project unusable.
  */
 import { builtinCell, builtinGlyphs } from "../../core/glyphs/glyphs.ts";
-import type { CellFigure, CellKind, CounterCodeKind, SynthesisFields } from "../../core/project/project.ts";
+import type { CellFigure, CellKind, CounterCodeKind, CounterDrive, SynthesisFields } from "../../core/project/project.ts";
 import { figureOf } from "../../core/project/figureSchema.ts";
 import type { Problem } from "../../core/result/result.ts";
 import { binaryCodes } from "../../core/spec/counterCode.ts";
@@ -126,6 +126,11 @@ export function setCounterCode(d: Draft, code: CounterCodeKind): Draft {
   const { codes: _, ...rest } = d.counter;
   if (code !== "custom") return { ...d, counter: { ...rest, code } };
   return { ...d, counter: { ...rest, code, codes: d.counter.codes ?? binaryCodes(d.counter.states) } };
+}
+
+/** Sets which level marks the active state line (`counter.drive`). */
+export function setCounterDrive(d: Draft, drive: CounterDrive): Draft {
+  return { ...d, counter: { ...d.counter, drive } };
 }
 
 /** Sets a custom code table from text: one bit string per state, separated by spaces, commas or new lines. */
