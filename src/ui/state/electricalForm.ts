@@ -119,6 +119,10 @@ export const ELECTRICAL_GROUPS: readonly FieldGroup[] = [
       f("counterOutput.maxCurrentA", "Line current limit", "mA", { hint: "the most one counter line may source" }),
       f("pullDown", "Output pull-down", "Ω", { hint: "from each output line to ground" }),
       f("gatePullUp", "AND-gate pull-up", "Ω", { hint: "a coded counter's AND gates, each from the logic supply" }),
+      f("lowLine.low", "Active-low line, active", "V", { hint: "an nS line in its own state (sink or complementary drive)" }),
+      f("lowLine.high", "Active-low line, idle", "V"),
+      f("lowLine.resistance", "Active-low source resistance", "Ω"),
+      f("lowLine.maxCurrentA", "Active-low sink limit", "mA", { hint: "the most one active nS line may sink" }),
     ],
   },
   {
