@@ -17,17 +17,12 @@
 import type { LogicProblem } from "./logicProblem.ts";
 import { termCost, type Term } from "./implicants.ts";
 import type { Cover } from "./cover.ts";
+import type { MilpModel } from "../synth/highsRun.ts";
 import { hasState, setKey, statesOf } from "./stateSet.ts";
+import { lpNameLines, lpSum } from "../synth/lpText.ts";
 
-export interface CoverModel {
-  readonly text: string;
-  /** Column names, for the warm start and decoding. */
-  readonly columns: readonly string[];
-  readonly rows: number;
-  decode(value: (name: string) => number): Cover;
-  /** Column values of a cover, or null when it uses a term outside the model. */
-  warmStart(cover: Cover): Map<string, number> | null;
-}
+/** The covering MILP: its columns decode to a cover. */
+export type CoverModel = MilpModel<Cover>;
 
 export interface CoverModelOptions {
   /**
@@ -69,7 +64,7 @@ export function coverModel(p: LogicProblem, terms: readonly Term[], opts: CoverM
     for (const k of statesOf(p.on[j]!)) {
       const feeders = terms.flatMap((term, t) => (term.outputs.includes(j) && hasState(term.states, k) ? [y(t, j)] : []));
       if (feeders.length === 0) throw new Error(`bug: no term feeds output ${j} in state ${k}`);
-      const text = `${wrap(feeders)} >= 1`;
+      const text = `${lpSum(feeders)} >= 1`;
       if (seenRows.has(text)) continue;
       seenRows.add(text);
       rows.push(text);
@@ -79,15 +74,15 @@ export function coverModel(p: LogicProblem, terms: readonly Term[], opts: CoverM
     if (termCost(term) > 0) for (const j of term.outputs) rows.push(`${y(t, j)} - ${x(t)} <= 0`);
   });
   const objective = opts.gatesWithin === undefined ? diodeTerms : gateTerms;
-  if (opts.gatesWithin !== undefined) rows.push(`${wrap(diodeTerms)} <= ${opts.gatesWithin}`);
+  if (opts.gatesWithin !== undefined) rows.push(`${lpSum(diodeTerms)} <= ${opts.gatesWithin}`);
 
   const text = [
     "Minimize",
-    ` obj: ${objective.length > 0 ? wrap(objective) : `0 ${columns[0] ?? "x0"}`}`,
+    ` obj: ${objective.length > 0 ? lpSum(objective) : `0 ${columns[0] ?? "x0"}`}`,
     "Subject To",
     ...rows.map((r, i) => ` c${i}: ${r}`),
     "Binary",
-    ...chunk(columns, 12).map((c) => ` ${c.join(" ")}`),
+    ...lpNameLines(columns),
     "End",
     "",
   ].join("\n");
@@ -118,20 +113,4 @@ export function coverModel(p: LogicProblem, terms: readonly Term[], opts: CoverM
       return vals;
     },
   };
-}
-
-/** Joins terms with +, breaking long lines. */
-function wrap(terms: readonly string[]): string {
-  return chunk(
-    terms.map((t, i) => (i === 0 ? t : `+ ${t}`)),
-    10,
-  )
-    .map((c) => c.join(" "))
-    .join("\n   ");
-}
-
-function chunk<T>(xs: readonly T[], size: number): T[][] {
-  const out: T[][] = [];
-  for (let i = 0; i < xs.length; i += size) out.push(xs.slice(i, i + size));
-  return out;
 }

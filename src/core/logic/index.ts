@@ -26,8 +26,6 @@ export type { Cover, CoverTerm } from "./cover.ts";
 export { heuristicCover, stateGateCover } from "./coverHeuristic.ts";
 export { coverModel } from "./coverModel.ts";
 export type { CoverModel, CoverModelOptions } from "./coverModel.ts";
-export { runHighs } from "./highsRun.ts";
-export type { HighsRunOptions, HighsRunOutcome } from "./highsRun.ts";
 export { twoLevelExact } from "./twoLevelExact.ts";
 export type { TwoLevelExactOptions, TwoLevelOutcome, TwoLevelStatus } from "./twoLevelExact.ts";
 export { twoLevelFloor } from "./twoLevelBound.ts";

@@ -16,7 +16,7 @@ import type { TermFamily, Term } from "./implicants.ts";
 import { feedableOutputs } from "./implicants.ts";
 import { compareCovers, coverDiodes, coverExact, type Cover } from "./cover.ts";
 import { coverModel } from "./coverModel.ts";
-import { runHighs } from "./highsRun.ts";
+import { runHighs } from "../synth/highsRun.ts";
 import { setKey } from "./stateSet.ts";
 
 export interface TwoLevelExactOptions {

@@ -27,6 +27,7 @@ import { contractPlan, expandPlan, reduceRows } from "./reduce.ts";
 import { WorkMeter } from "./workMeter.ts";
 import { deadlineMarginMs, workBudget, type WorkBudget } from "./workBudget.ts";
 import { betterPlan, breakTies } from "./tieBreak.ts";
+import { runHighs } from "./highsRun.ts";
 
 /** The part of a HiGHS model the driver uses (the npm `highs` persistent API). */
 export interface HighsModelLike {
@@ -48,9 +49,6 @@ export interface HighsInterruptEvent {
   readonly data: { readonly mip_total_lp_iterations?: bigint | number };
   interrupt(): void;
 }
-
-/** HiGHS callback channel of the MIP interrupt checkpoint (`highs.constants.callbackType.mipInterrupt`). */
-const MIP_INTERRUPT = 6;
 
 /** The part of the loaded HiGHS runtime the driver uses. */
 export interface HighsLike {
@@ -156,13 +154,6 @@ async function relaxedBound(
   }
 }
 
-/** HiGHS model status codes used here (`highs.constants.modelStatus`). */
-const STATUS_OPTIMAL = 7;
-/** HiGHS model status: its own time limit (the deadline) stopped it. */
-const STATUS_TIME_LIMIT = 13;
-/** HiGHS info `primal_solution_status`: 2 = feasible. */
-const PRIMAL_FEASIBLE = 2;
-
 /**
  * Solves for the minimum plan. `warm` must be a valid plan (the heuristic's);
  * the outcome is never worse than it.
@@ -252,76 +243,36 @@ async function exactReduced(
     return { ...base, plan: incumbent, lowerBound, status: "time-limit", deadlineHit };
   }
 
-  let highsModel: HighsModelLike | undefined;
-  try {
-    const highs = await opts.loadHighs();
-    highsModel = highs.createModel({ format: "lp", data: model.text });
-    highsModel.options.set({
-      output_flag: false,
-      time_limit: Math.max(0.01, (deadlineMs - Date.now()) / 1000),
-      random_seed: opts.seed,
-      mip_rel_gap: 0,
-      mip_abs_gap: 1e-6,
-      // Measured on 0-9 (bench cases): restarts after root presolve cost about 40 % more time.
-      mip_allow_restart: false,
-      // The deterministic stop; the time limit above is the safety net.
-      mip_max_nodes: budget.highsNodes,
-    });
-    const numCols = highsModel.getDimensions().numCols;
-    const index = new Map<string, number>();
-    for (const name of model.columns) index.set(name, highsModel.getColByName(name));
-    const start = model.warmStart(incumbent);
-    if (start) {
-      const colValue = new Float64Array(numCols);
-      for (const [name, v] of start) {
-        const i = index.get(name);
-        if (i !== undefined && i >= 0) colValue[i] = v;
-      }
-      highsModel.setSolution({ colValue });
-    }
-    const cols = Math.max(1, numCols);
-    highsModel.run({
-      [MIP_INTERRUPT]: (event) => {
-        if (Number(event.data.mip_total_lp_iterations ?? 0) * cols > budget.highsWork) event.interrupt();
-      },
-    });
-    const status = highsModel.getModelStatus();
-    deadlineHit ||= status === STATUS_TIME_LIMIT;
-    const dual = Number(highsModel.info.get("mip_dual_bound"));
-    let plan = incumbent;
-    if (Number(highsModel.info.get("primal_solution_status")) === PRIMAL_FEASIBLE) {
-      const x = highsModel.getSolution().colValue;
-      const found = breakTies(
-        p,
-        rules,
-        model.decode((name) => x[index.get(name) ?? -1] ?? 0),
-      );
-      plan = betterPlan(incumbent, found, p);
-    }
-    const count = planCost(p, plan);
-    let lowerBound = floor;
-    if (boundIsGlobal && Number.isFinite(dual)) {
-      const milpBound = Math.ceil(dual - 1e-6);
-      // Uniform: the model is the all-bus matrix; the all-direct one is the other choice.
-      lowerBound = Math.max(floor, rules.policy === "uniform" ? Math.min(litCount(p), milpBound) : milpBound);
-    }
-    if (searchBound !== null) lowerBound = Math.max(lowerBound, searchBound);
-    lowerBound = Math.min(lowerBound, count);
-    return { ...base, plan, lowerBound, status: status === STATUS_OPTIMAL ? "optimal" : "time-limit", deadlineHit };
-  } catch (e) {
+  const run = await runHighs(model.text, model.columns, model.warmStart(incumbent), {
+    loadHighs: opts.loadHighs,
+    seed: opts.seed,
+    deadlineMs,
+    // The deterministic stops; the time limit is the safety net.
+    maxNodes: budget.highsNodes,
+    maxWork: budget.highsWork,
+    // Measured on 0-9 (bench cases): restarts after root presolve cost about 40 % more time.
+    allowRestart: false,
+  });
+  deadlineHit ||= run.deadlineHit;
+  if (run.status === "failed") {
     return {
       ...base,
       plan: incumbent,
       lowerBound: Math.min(Math.max(floor, searchBound ?? 0), planCost(p, incumbent)),
       status: "solver-failed",
-      message: String((e as Error)?.message ?? e),
+      message: run.message ?? "HiGHS failed",
       deadlineHit,
     };
-  } finally {
-    try {
-      highsModel?.dispose();
-    } catch {
-      // A module that aborted cannot free its memory; it is dropped with the instance.
-    }
   }
+  const plan = run.values ? betterPlan(incumbent, breakTies(p, rules, model.decode(run.values)), p) : incumbent;
+  const count = planCost(p, plan);
+  let lowerBound = floor;
+  if (boundIsGlobal && run.dualBound !== null) {
+    const milpBound = Math.ceil(run.dualBound - 1e-6);
+    // Uniform: the model is the all-bus matrix; the all-direct one is the other choice.
+    lowerBound = Math.max(floor, rules.policy === "uniform" ? Math.min(litCount(p), milpBound) : milpBound);
+  }
+  if (searchBound !== null) lowerBound = Math.max(lowerBound, searchBound);
+  lowerBound = Math.min(lowerBound, count);
+  return { ...base, plan, lowerBound, status: run.status === "optimal" ? "optimal" : "time-limit", deadlineHit };
 }

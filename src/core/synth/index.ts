@@ -14,6 +14,8 @@ export { busShapes, greedyCover, GREEDY_ORDERS } from "./greedyCover.ts";
 export type { GreedyOrder, ShapePool } from "./greedyCover.ts";
 export { defaultHighsLoader, exactPlan } from "./exact.ts";
 export type { ExactOptions, ExactOutcome, ExactStatus, HighsInterruptEvent, HighsLike, HighsLoader, HighsModelLike } from "./exact.ts";
+export { runHighs } from "./highsRun.ts";
+export type { HighsRunOptions, HighsRunOutcome, MilpModel } from "./highsRun.ts";
 export { deadlineMarginMs, workBudget } from "./workBudget.ts";
 export type { WorkBudget } from "./workBudget.ts";
 export { WorkMeter } from "./workMeter.ts";

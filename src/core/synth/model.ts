@@ -30,18 +30,11 @@
 import type { CandidateFamily } from "./candidates.ts";
 import type { PlanBus, SharingPlan, SharingProblem, SharingRules } from "./plan.ts";
 import { linkPairs as allowedLinks, statesToPay } from "./rules.ts";
+import type { MilpModel } from "./highsRun.ts";
+import { lpNameLines, lpSum } from "./lpText.ts";
 
-export interface SharingModel {
-  /** The LP-format text. */
-  readonly text: string;
-  /** Column names in the order `warmStart` and `decode` use. */
-  readonly columns: readonly string[];
-  /** Number of constraint rows. */
-  readonly rows: number;
-  decode(values: (name: string) => number): SharingPlan;
-  /** Column values of a plan, for the warm start; null if the plan uses a shape outside the family. */
-  warmStart(plan: SharingPlan): Map<string, number> | null;
-}
+/** The sharing MILP: its columns decode to a plan. */
+export type SharingModel = MilpModel<SharingPlan>;
 
 /**
  * A choice between columns, for the decode polarity (see polarityProblem.ts):
@@ -81,7 +74,7 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
     return name;
   };
   const row = (terms: string[], sense: string, rhs: number): void => {
-    rows.push(`${wrap(terms)} ${sense} ${rhs}`);
+    rows.push(`${lpSum(terms)} ${sense} ${rhs}`);
   };
 
   // Cover terms per lit cell.
@@ -194,11 +187,11 @@ export function buildSharingModel(p: SharingProblem, rules: SharingRules, family
 
   const text = [
     "Minimize",
-    ` obj: ${wrap(obj)}`,
+    ` obj: ${lpSum(obj)}`,
     "Subject To",
     ...rows.map((r, i) => ` c${i}: ${r}`),
     "Binary",
-    ...chunk(binaries, 12).map((c) => ` ${c.join(" ")}`),
+    ...lpNameLines(binaries),
     "End",
     "",
   ].join("\n");
@@ -289,19 +282,4 @@ function levelsOf(p: SharingProblem, plan: SharingPlan): number[] {
 
 function fmt(x: number): string {
   return Number.isInteger(x) ? String(x) : x.toPrecision(12);
-}
-
-/** Joins terms with + (a term may carry its own "- "), breaking long lines. */
-function wrap(terms: readonly string[]): string {
-  if (terms.length === 0) return "0";
-  const parts = terms.map((t, i) => (i === 0 ? t : t.startsWith("- ") || t.startsWith("+ ") ? t : `+ ${t}`));
-  return chunk(parts, 10)
-    .map((c) => c.join(" "))
-    .join("\n   ");
-}
-
-function chunk<T>(xs: readonly T[], size: number): T[][] {
-  const out: T[][] = [];
-  for (let i = 0; i < xs.length; i += size) out.push(xs.slice(i, i + size));
-  return out;
 }

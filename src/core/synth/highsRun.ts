@@ -1,12 +1,25 @@
 /**
  * One HiGHS solve of an LP-format MILP, stopped deterministically: by the
  * node limit and by LP iterations times columns at its interrupt checkpoint
- * (the same work units as the matrix optimizer's, see synth/workBudget.ts),
+ * (the work units of workBudget.ts),
  * with the clock only as the safety net. A solver that throws or aborts is
  * an outcome, not an exception; a fresh instance is loaded every time
- * (see synth/exact.ts on why).
+ * (see exact.ts on why).
  */
-import type { HighsLoader, HighsModelLike } from "../synth/exact.ts";
+import type { HighsLoader, HighsModelLike } from "./exact.ts";
+
+/** A MILP in LP format whose named columns decode to a `T` and take a `T` as a warm start. */
+export interface MilpModel<T> {
+  /** The LP-format text. */
+  readonly text: string;
+  /** Column names, in the order `warmStart` and `decode` use. */
+  readonly columns: readonly string[];
+  /** Number of constraint rows. */
+  readonly rows: number;
+  decode(values: (name: string) => number): T;
+  /** Column values of a `T`, for the warm start; null when it uses a column outside the model. */
+  warmStart(start: T): Map<string, number> | null;
+}
 
 /** HiGHS callback channel of the MIP interrupt checkpoint. */
 const MIP_INTERRUPT = 6;
@@ -25,6 +38,8 @@ export interface HighsRunOptions {
   readonly maxNodes: number;
   /** LP iterations times columns after which the solve stops at its next checkpoint. */
   readonly maxWork: number;
+  /** HiGHS's `mip_allow_restart`; left at HiGHS's default when absent. */
+  readonly allowRestart?: boolean;
 }
 
 export interface HighsRunOutcome {
@@ -61,6 +76,7 @@ export async function runHighs(
       mip_rel_gap: 0,
       mip_abs_gap: 1e-6,
       mip_max_nodes: opts.maxNodes,
+      ...(opts.allowRestart === undefined ? {} : { mip_allow_restart: opts.allowRestart }),
     });
     const numCols = model.getDimensions().numCols;
     const index = new Map<string, number>();
