@@ -46,9 +46,15 @@ export function designArgs(args: ParsedArgs, io: CliIo): DesignArgs | undefined 
  * as the budget settles them. When the circuit cannot be solved they stay
  * the project's, and the design says the trim could not be worked out.
  */
-export function designFor(project: Project, spec: DecodeSpec, matrix: VerifiedMatrix, given: DesignArgs): SegmentDesign {
+export function designFor(
+  project: Project,
+  spec: DecodeSpec,
+  matrix: VerifiedMatrix,
+  given: DesignArgs,
+  timeLimitMs: number,
+): SegmentDesign {
   if (given.mode === "off") return projectDesign(project.electrical, matrix, given);
-  const settled = settleDesign(project, spec, matrix, given);
+  const settled = settleDesign(project, spec, matrix, { ...given, deadlineMs: budgetDeadline(timeLimitMs) });
   return settled.ok ? settled.value.design : projectDesign(project.electrical, matrix, given);
 }
 
@@ -67,4 +73,13 @@ export async function loadForDesign(
   if (!design) return EXIT.input;
   const done = await loadAndSynthesize(args, io, usage, check);
   return typeof done === "number" ? done : { ...done, design };
+}
+
+/**
+ * When the budget's solves must stop: the run's time limit (the project's,
+ * or `--time-limit`) again, counted from now, so a command on the largest
+ * projects ends instead of solving every state's circuit for minutes.
+ */
+export function budgetDeadline(timeLimitMs: number): number {
+  return Date.now() + timeLimitMs;
 }

@@ -104,6 +104,8 @@ export interface Synthesized {
   readonly project: Project;
   readonly spec: DecodeSpec;
   readonly matrix: VerifiedMatrix;
+  /** The time limit the run had, milliseconds (the project's, or `--time-limit`): the budget gets it too. */
+  readonly timeLimitMs: number;
 }
 
 /**
@@ -148,7 +150,7 @@ export async function synthesizeProject(project: Project, args: ParsedArgs, io: 
   const spec = compileSpec(effective);
   const result = await synthesize(spec, settings);
   if (!result.ok) return reportFailure(result.error, io);
-  return { project: effective, spec, matrix: result.value };
+  return { project: effective, spec, matrix: result.value, timeLimitMs: settings.timeLimitMs };
 }
 
 /**

@@ -8,7 +8,7 @@ import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
 import { formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
-import { DESIGN_OPTIONS, DESIGN_USAGE, loadForDesign } from "../designOptions.ts";
+import { budgetDeadline, DESIGN_OPTIONS, DESIGN_USAGE, loadForDesign } from "../designOptions.ts";
 import { EXIT } from "../io.ts";
 import { SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
@@ -26,7 +26,11 @@ export const budgetCommand: Command = {
     const done = await loadForDesign(args, io, USAGE);
     if (typeof done === "number") return done;
     const { project, spec, matrix, design } = done;
-    const budget = solveBudget(project, spec, matrix, { series: design.series, trim: design.mode });
+    const budget = solveBudget(project, spec, matrix, {
+      series: design.series,
+      trim: design.mode,
+      deadlineMs: budgetDeadline(done.timeLimitMs),
+    });
     if (!budget.ok) {
       io.err(`${budget.error.message}\n`);
       return EXIT.input;

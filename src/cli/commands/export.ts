@@ -23,7 +23,7 @@ import { allPaperFiles, paperDesign } from "../../render/papers.ts";
 import { quoteText } from "../../core/project/valueText.ts";
 import { shownArg, type ParsedArgs } from "../args.ts";
 import type { Command } from "../command.ts";
-import { designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
+import { budgetDeadline, designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT, type CliIo } from "../io.ts";
 import type { OwnNames } from "../outputFolder.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
@@ -78,7 +78,11 @@ export const exportCommand: Command = {
 
     const options = drawingOptions(project, given);
     const drawing = layoutMatrix(project, spec, matrix, options);
-    const budget = solveBudget(project, spec, matrix, { series: design.series, trim: design.mode });
+    const budget = solveBudget(project, spec, matrix, {
+      series: design.series,
+      trim: design.mode,
+      deadlineMs: budgetDeadline(done.timeLimitMs),
+    });
     if (!budget.ok)
       io.err(`budget: ${budget.error.message}; budget.json left out, the BOM and decks keep the project's emitter resistors\n`);
     registerNodeWindow();

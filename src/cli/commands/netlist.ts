@@ -30,7 +30,7 @@ export const netlistCommand: Command = {
     });
     if (typeof done === "number") return done;
     const { project, spec, matrix, design } = done;
-    io.out(spiceNetlist(project, spec, matrix, k, designFor(project, spec, matrix, design)));
+    io.out(spiceNetlist(project, spec, matrix, k, designFor(project, spec, matrix, design, done.timeLimitMs)));
     return EXIT.ok;
   },
 };

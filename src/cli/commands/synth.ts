@@ -47,7 +47,7 @@ export const synthCommand: Command = {
           done.project,
           spec,
           matrix,
-          electricalRefusal(matrix) === null ? designFor(done.project, spec, matrix, design) : null,
+          electricalRefusal(matrix) === null ? designFor(done.project, spec, matrix, design, done.timeLimitMs) : null,
         ),
       );
     return EXIT.ok;

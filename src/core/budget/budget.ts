@@ -55,18 +55,25 @@ export function solveBudget(
   const windowPct = options.windowPct ?? 20;
   if (!(windowPct > 0 && windowPct < 100)) throw new RangeError(`windowPct must be between 0 and 100, got ${windowPct}`);
 
-  const settled = settleDesign(project, spec, matrix, { series, mode, windowPct });
+  const settled = settleDesign(project, spec, matrix, { series, mode, windowPct, deadlineMs: options.deadlineMs });
   if (!settled.ok) return settled;
   const { design, solutions, trim } = settled.value;
   const chosen = design.trimmed ? design.ohms : undefined;
-  const lowSupply = solveAllStates(spec, matrix, { ...e, supply: { ...e.supply, volts: e.supply.minVolts } }, "lowest supply", chosen);
+  const lowSupply = solveAllStates(
+    spec,
+    matrix,
+    { ...e, supply: { ...e.supply, volts: e.supply.minVolts } },
+    "lowest supply",
+    chosen,
+    options.deadlineMs,
+  );
   if (!lowSupply.ok) return lowSupply;
 
   const driven = solutions[0]?.circuit.drivers.map((d) => d.output) ?? [];
   const corners: CornerBudget[] = [];
   const cornerSolutions: (readonly StateSolution[])[] = [];
   for (const c of cornerConditions(e)) {
-    const sol = solveAllStates(spec, matrix, cornerModel(e, c, driven, chosen), `${c.name} corner`);
+    const sol = solveAllStates(spec, matrix, cornerModel(e, c, driven, chosen), `${c.name} corner`, undefined, options.deadlineMs);
     if (!sol.ok) return sol;
     corners.push(cornerBudget(project, spec, c, sol.value));
     cornerSolutions.push(sol.value);

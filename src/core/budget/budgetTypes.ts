@@ -32,6 +32,12 @@ export interface BudgetOptions {
    * diodeloom: a difference the eye accepts between neighbouring segments).
    */
   readonly windowPct?: number;
+  /**
+   * `Date.now()` value after which the budget starts no further state's
+   * solve and fails with `time-limit` (default: none). The command line
+   * gives the budget the project's time limit again, counted from its start.
+   */
+  readonly deadlineMs?: number;
 }
 
 /** A transistor's operating point. */

@@ -165,6 +165,8 @@ export interface DesignOptions {
   readonly mode: TrimMode;
   /** The target window, percent (the corners'; default 20). */
   readonly windowPct?: number;
+  /** `Date.now()` value after which no further state is solved (see `BudgetOptions.deadlineMs`). */
+  readonly deadlineMs?: number;
 }
 
 /** Most steps towards the middle the rule tries before it calls a trim spread-widening. */
@@ -200,9 +202,9 @@ export function settleDesign(
   const windowPct = options.windowPct ?? 20;
   const target = e.segment.targetA;
   const role = currentRole(e.driver.kind);
-  const nominal = solveAllStates(spec, matrix, e, "nominal");
+  const nominal = solveAllStates(spec, matrix, e, "nominal", undefined, options.deadlineMs);
   if (!nominal.ok) return nominal;
-  const trim = trimSegments({ spec, matrix, model: e, nominal: nominal.value, series: options.series });
+  const trim = trimSegments({ spec, matrix, model: e, nominal: nominal.value, series: options.series, deadlineMs: options.deadlineMs });
   if (!trim.ok) return trim;
   const own = projectDesign(e, matrix, options).ohms;
   const driven = [...own.keys()];
@@ -214,7 +216,14 @@ export function settleDesign(
   const nominalPeak = (sols: readonly StateSolution[]): number =>
     Math.max(0, ...[...currentRanges(spec, sols).values()].map((r) => r.maxA));
   const highPeak = (values: ReadonlyMap<string, number> | undefined): Result<number, BudgetFailure> => {
-    const sol = solveAllStates(spec, matrix, cornerModel(e, cornerConditions(e)[1], driven, values), "high corner");
+    const sol = solveAllStates(
+      spec,
+      matrix,
+      cornerModel(e, cornerConditions(e)[1], driven, values),
+      "high corner",
+      undefined,
+      options.deadlineMs,
+    );
     return sol.ok ? ok(nominalPeak(sol.value)) : sol;
   };
   let beforePeak: number | null = null;
@@ -258,7 +267,7 @@ export function settleDesign(
   for (let step = 0; step < MAX_STEPS && c.effect === "widens-spread"; step++) {
     const moved = stepTowardsMiddle(currentRanges(spec, c.solutions), c.values, trim.value, options.series);
     if (moved === null) break;
-    const sol = solveAllStates(spec, matrix, e, "trim", moved);
+    const sol = solveAllStates(spec, matrix, e, "trim", moved, options.deadlineMs);
     if (!sol.ok) return sol;
     const next = judge(moved, sol.value);
     if (!next.ok) return next;
@@ -269,7 +278,7 @@ export function settleDesign(
   const values = new Set(own.values());
   if (values.size === 1 && c.effect !== "improves") {
     const uniform = uniformCandidate(
-      { spec, matrix, model: e, nominal: nominal.value, series: options.series },
+      { spec, matrix, model: e, nominal: nominal.value, series: options.series, deadlineMs: options.deadlineMs },
       [...values][0] as number,
       driven,
     );
@@ -304,6 +313,7 @@ function uniformCandidate(
     readonly model: ElectricalModel;
     readonly nominal: readonly StateSolution[];
     readonly series: ESeriesName;
+    readonly deadlineMs?: number;
   },
   common: number,
   outputs: readonly string[],
@@ -318,7 +328,7 @@ function uniformCandidate(
   const m0 = middle(input.nominal);
   if (!(m0 > target * 1e-6)) return ok(null);
   const r1 = Math.min(10e6, Math.max(1, (common * m0) / target));
-  const s1 = solveAllStates(spec, matrix, model, "trim", all(r1));
+  const s1 = solveAllStates(spec, matrix, model, "trim", all(r1), input.deadlineMs);
   if (!s1.ok) return s1;
   const m1 = middle(s1.value);
   const ideal = m1 > target * 1e-6 ? Math.min(10e6, Math.max(1, (r1 * m1) / target)) : r1;
@@ -326,7 +336,7 @@ function uniformCandidate(
   let best: { values: Map<string, number>; solutions: readonly StateSolution[]; distance: number } | null = null;
   for (const ohms of lo === hi ? [lo] : [lo, hi]) {
     if (ohms === common) continue;
-    const sol = solveAllStates(spec, matrix, model, "trim", all(ohms));
+    const sol = solveAllStates(spec, matrix, model, "trim", all(ohms), input.deadlineMs);
     if (!sol.ok) return sol;
     const distance = Math.abs(middle(sol.value) - target);
     if (best === null || distance < best.distance) best = { values: all(ohms), solutions: sol.value, distance };

@@ -120,6 +120,8 @@ export interface TrimInput {
   /** Every state solved with the model's own resistors. */
   readonly nominal: readonly StateSolution[];
   readonly series: ESeriesName;
+  /** `Date.now()` value after which no further state is solved. */
+  readonly deadlineMs?: number;
 }
 
 /**
@@ -153,15 +155,15 @@ export function trimSegments(input: TrimInput): Result<SegmentTrim, BudgetFailur
   const own = new Map(outputs.map((o) => [o, currentOhmsOf(model, o)]));
   // Two rounds of I ~ 1/R scaling, the second on a fresh solve.
   const ideal0 = scaled(own, before, target);
-  const round = solveAllStates(spec, matrix, model, "trim", ideal0);
+  const round = solveAllStates(spec, matrix, model, "trim", ideal0, input.deadlineMs);
   if (!round.ok) return round;
   const ideal = scaled(ideal0, currentRanges(spec, round.value), target);
 
   const lower = new Map(outputs.map((o) => [o, preferredNeighbours(ideal.get(o) as number, series)[0]]));
   const upper = new Map(outputs.map((o) => [o, preferredNeighbours(ideal.get(o) as number, series)[1]]));
-  const atLower = solveAllStates(spec, matrix, model, "trim", lower);
+  const atLower = solveAllStates(spec, matrix, model, "trim", lower, input.deadlineMs);
   if (!atLower.ok) return atLower;
-  const atUpper = solveAllStates(spec, matrix, model, "trim", upper);
+  const atUpper = solveAllStates(spec, matrix, model, "trim", upper, input.deadlineMs);
   if (!atUpper.ok) return atUpper;
   const rl = currentRanges(spec, atLower.value);
   const ru = currentRanges(spec, atUpper.value);
@@ -171,7 +173,7 @@ export function trimSegments(input: TrimInput): Result<SegmentTrim, BudgetFailur
     const du = Math.abs(mid(ru.get(o) as CurrentRange) - target);
     chosen.set(o, dl <= du ? (lower.get(o) as number) : (upper.get(o) as number));
   }
-  const final = solveAllStates(spec, matrix, model, "trim", chosen);
+  const final = solveAllStates(spec, matrix, model, "trim", chosen, input.deadlineMs);
   if (!final.ok) return final;
   const after = currentRanges(spec, final.value);
   const trimmed: Record<string, TrimmedOutput> = {};

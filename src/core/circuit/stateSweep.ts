@@ -15,9 +15,12 @@ export interface StateSolution {
   readonly op: OperatingPoint;
 }
 
-/** The budget could not be worked out: a state's circuit did not converge. */
+/**
+ * The budget could not be worked out: a state's circuit did not converge,
+ * or the budget's time ran out before every state was solved.
+ */
 export interface BudgetFailure {
-  readonly kind: "no-convergence";
+  readonly kind: "no-convergence" | "time-limit";
   /** The state whose circuit failed, e.g. `S7`. */
   readonly state: string;
   /** Which solve: `nominal`, `lowest supply`, `trim`, `low corner`, `high corner`. */
@@ -30,6 +33,7 @@ export interface BudgetFailure {
  *
  * @param during names the solve in a failure message
  * @param design optional values of the current-setting resistors, ohms, keyed by output
+ * @param deadlineMs optional `Date.now()` value after which no further state is started
  */
 export function solveAllStates(
   spec: DecodeSpec,
@@ -37,10 +41,22 @@ export function solveAllStates(
   model: ElectricalModel,
   during: string,
   design?: ReadonlyMap<string, number>,
+  deadlineMs: number = Infinity,
 ): Result<readonly StateSolution[], BudgetFailure> {
   const out: StateSolution[] = [];
   const workspace = new DcWorkspace();
   for (let k = 0; k < matrix.states.length; k++) {
+    if (Date.now() > deadlineMs) {
+      const state = matrix.states[k] as string;
+      return fail({
+        kind: "time-limit",
+        state,
+        during,
+        message:
+          `the budget's time limit ran out during the ${during} solve, at state ${state} of ${matrix.states.length} ` +
+          `(every state's circuit is solved several times); give a longer time limit to work it out`,
+      });
+    }
     const circuit = buildCircuit(spec, matrix, model, k, design);
     const op = solveDc(circuit, circuit.guess, DEFAULT_DC_SETTINGS, workspace);
     if (!op.ok) return fail({ kind: "no-convergence", state: op.error.state, during, message: `${during}: ${op.error.message}` });

@@ -19,6 +19,23 @@ describe("budget command", () => {
     expect(b.trim.mode).toBe("auto");
   });
 
+  it("gives the budget the project's time limit again: a run out of time says so instead of solving on", async () => {
+    // --time-limit 1 leaves the budget one millisecond: far less than the
+    // hundreds of circuit solves of a 100-state counter take on any machine.
+    const hundred = JSON.stringify({
+      schema: "diodeloom/project@2",
+      title: "Quiz scoreboard 00-99",
+      counter: { states: 100 },
+      display: { positions: 2 },
+      show: Array.from({ length: 100 }, (_, k) => String(k).padStart(2, "0")),
+    });
+    const io = recordingIo({ "p.json": hundred });
+    const started = Date.now();
+    expect(await main(["budget", "p.json", "--direct", "--time-limit", "1"], io)).toBe(2);
+    expect(io.stderr.join("")).toMatch(/the budget's time limit ran out during the nominal solve, at state S\d+ of \d+/);
+    expect(Date.now() - started).toBeLessThan(60_000);
+  });
+
   it("uses the E96 series when asked", async () => {
     const io = recordingIo({ "p.json": PROJECT });
     expect(await main(["budget", "p.json", "--json", "--direct", "--series", "E96"], io)).toBe(0);

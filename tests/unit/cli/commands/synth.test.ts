@@ -24,7 +24,7 @@ describe("diodeloom synth (in-process)", () => {
     const r = await synthesize(spec, synthSettings(project, { mode: "fast" }));
     if (!r.ok) throw new Error(r.error.message);
     expect(r.value.deadlineHit).toBe(false);
-    const design = designFor(project, spec, r.value, { mode: "off", series: "E24" });
+    const design = designFor(project, spec, r.value, { mode: "off", series: "E24" }, project.synthesis.timeLimitMs);
     expect(describeMatrix(project, spec, r.value, design)).not.toMatch(/time limit ran out/);
     expect(describeMatrix(project, spec, { ...r.value, deadlineHit: true }, design)).toMatch(
       /time limit ran out .*another run may give a different matrix/,

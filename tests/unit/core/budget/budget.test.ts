@@ -81,6 +81,19 @@ describe("solveBudget", () => {
     }
   });
 
+  it("stops at its deadline with a time-limit failure naming the solve and the state, and is unchanged by one far away", () => {
+    const past = solveBudget(shared.project, shared.spec, shared.matrix, { deadlineMs: Date.now() - 1 });
+    expect(past.ok).toBe(false);
+    if (past.ok) return;
+    expect(past.error.kind).toBe("time-limit");
+    expect(past.error.during).toBe("nominal");
+    expect(past.error.state).toBe("S0");
+    expect(past.error.message).toMatch(/time limit ran out during the nominal solve, at state S0 of 6/);
+    const far = solveBudget(shared.project, shared.spec, shared.matrix, { deadlineMs: Date.now() + 3_600_000 });
+    const none = solveBudget(shared.project, shared.spec, shared.matrix);
+    expect(far).toEqual(none);
+  });
+
   it("per output: min, max and spread over the states that light it", () => {
     for (const [o, r] of Object.entries(b.outputs)) {
       const lit = b.states.map((s) => s.outputs[o]).filter((x) => x?.lit);
