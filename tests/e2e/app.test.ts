@@ -267,6 +267,8 @@ describe("the web app", () => {
 
   it("downloads every export", async () => {
     const saved = await savedProject();
+    // The BOM, decks and driver sheets take their values from the budget: export once it is on screen.
+    await page.getByTestId("budget-summary").waitFor({ timeout: 60_000 });
     const buttons = page.locator('[data-testid^="export-"]');
     const n = await buttons.count();
     expect(n).toBeGreaterThan(0);
