@@ -12,6 +12,7 @@ import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DiodeMatrix, VerifiedMatrix } from "./matrix.ts";
 import type { DepthPolicy } from "../project/project.ts";
 import { fail, ok, type Result } from "../result/result.ts";
+import { depthFindings, diodeOrder } from "./diodePaths.ts";
 import { verifyLogic } from "../logic/verifyLogic.ts";
 import { verifyPolarity } from "./verifyPolarity.ts";
 
@@ -72,43 +73,14 @@ export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLim
   for (const t of spec.tiedOn) if (indeg.get(t) || out.get(t)?.length) say(`tied-on output ${t} has diodes`);
   if (errors.length > 0) return fail(errors);
 
-  // Topological order (Kahn); a leftover node means a cycle.
+  // An order in which every diode runs forward; a leftover node means a loop.
   const nodes = [...spec.states, ...m.buses, ...spec.outputs];
-  const remaining = new Map(nodes.map((n) => [n, indeg.get(n) ?? 0]));
-  const order: string[] = [];
-  const queue = nodes.filter((n) => remaining.get(n) === 0);
-  while (queue.length > 0) {
-    const n = queue.shift() as string;
-    order.push(n);
-    for (const t of out.get(n) ?? []) {
-      const r = (remaining.get(t) ?? 0) - 1;
-      remaining.set(t, r);
-      if (r === 0) queue.push(t);
-    }
-  }
-  if (order.length !== nodes.length) {
-    return fail([`the diodes form a loop through ${nodes.filter((n) => (remaining.get(n) ?? 0) > 0).join(", ")}`]);
-  }
+  const ordered = diodeOrder(nodes, out, indeg);
+  if (!ordered.ok) return fail([ordered.error]);
+  const order = ordered.value;
 
-  // Every path length into every node, as a bit set (bit L = a path of L diodes).
-  const lengths = new Map<string, number>();
-  for (const s of spec.states) lengths.set(s, 1);
-  for (const n of order) {
-    const here = lengths.get(n) ?? 0;
-    for (const t of out.get(n) ?? []) lengths.set(t, (lengths.get(t) ?? 0) | ((here << 1) & 0x7fffffff));
-  }
-  const all = new Set<number>();
-  for (const o of spec.outputs) {
-    const bits = lengths.get(o) ?? 0;
-    const ls = [...Array(31).keys()].filter((l) => bits & (1 << l));
-    ls.forEach((l) => all.add(l));
-    const longest = Math.max(0, ...ls);
-    if (longest > limits.depthLimit) say(`output ${o} is reached through ${longest} diodes, over the limit of ${limits.depthLimit}`);
-    if (limits.policy === "per-segment" && ls.length > 1)
-      say(`output ${o} is reached through paths of ${ls.join(" and ")} diodes; the per-segment policy wants one length`);
-  }
-  if (limits.policy === "uniform" && all.size > 1)
-    say(`paths have ${[...all].sort().join(", ")} diodes; the uniform policy wants one length`);
+  const depth = depthFindings(spec.states, order, out, spec.outputs, limits);
+  depth.findings.forEach(say);
 
   // Exactness: per state, the reachable outputs equal the lit ones.
   spec.states.forEach((s, k) => {
@@ -130,7 +102,7 @@ export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLim
     if (extra.length > 0) say(`state ${s} ("${spec.texts[k]}") also lights ${extra.join(", ")} through a sneak path`);
   });
 
-  if (m.longestPath !== Math.max(0, ...[...all])) say(`longestPath ${m.longestPath} differs from the longest path ${Math.max(0, ...all)}`);
+  if (m.longestPath !== depth.longest) say(`longestPath ${m.longestPath} differs from the longest path ${depth.longest}`);
   if (m.lowerBound !== null && m.lowerBound > m.count) say(`lower bound ${m.lowerBound} exceeds the count ${m.count}`);
   if (m.optimal && m.lowerBound !== m.count) say("marked optimal but the lower bound does not equal the count");
   return errors.length > 0 ? fail(errors) : ok({ ...m, verified: true as const });

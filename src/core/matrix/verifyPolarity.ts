@@ -17,6 +17,7 @@ import type { DecodeSpec, OutputPolarity } from "../spec/decodeSpec.ts";
 import type { DiodeMatrix, VerifiedMatrix } from "./matrix.ts";
 import { matrixObjective } from "./matrix.ts";
 import { fail, ok, type Result } from "../result/result.ts";
+import { depthFindings, diodeOrder } from "./diodePaths.ts";
 import type { VerifyLimits } from "./verify.ts";
 
 /**
@@ -100,43 +101,14 @@ export function verifyPolarity(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyL
       say(`${d.ref} joins the ${a} side (${d.from}) to the ${b} side (${d.to}); the two sides share no diode, bus or link`);
   }
 
-  // Topological order (Kahn); a leftover node means a loop.
+  // An order in which every diode runs forward; a leftover node means a loop.
   const nodes = [...spec.lines, ...m.buses, ...spec.outputs];
-  const remaining = new Map(nodes.map((x) => [x, indeg.get(x) ?? 0]));
-  const order: string[] = [];
-  const queue = nodes.filter((x) => remaining.get(x) === 0);
-  while (queue.length > 0) {
-    const x = queue.shift() as string;
-    order.push(x);
-    for (const t of out.get(x) ?? []) {
-      const r = (remaining.get(t) ?? 0) - 1;
-      remaining.set(t, r);
-      if (r === 0) queue.push(t);
-    }
-  }
-  if (order.length !== nodes.length) {
-    return fail([`the diodes form a loop through ${nodes.filter((x) => (remaining.get(x) ?? 0) > 0).join(", ")}`]);
-  }
+  const ordered = diodeOrder(nodes, out, indeg);
+  if (!ordered.ok) return fail([ordered.error]);
+  const order = ordered.value;
 
-  // Every path length into every node, from every line (bit L = a path of L diodes).
-  const lengths = new Map<string, number>();
-  for (const l of spec.lines) lengths.set(l, 1);
-  for (const x of order) {
-    const here = lengths.get(x) ?? 0;
-    for (const t of out.get(x) ?? []) lengths.set(t, (lengths.get(t) ?? 0) | ((here << 1) & 0x7fffffff));
-  }
-  const all = new Set<number>();
-  for (const o of spec.outputs) {
-    const bits = lengths.get(o) ?? 0;
-    const ls = [...Array(31).keys()].filter((l) => bits & (1 << l));
-    ls.forEach((l) => all.add(l));
-    const longest = Math.max(0, ...ls);
-    if (longest > limits.depthLimit) say(`output ${o} is reached through ${longest} diodes, over the limit of ${limits.depthLimit}`);
-    if (limits.policy === "per-segment" && ls.length > 1)
-      say(`output ${o} is reached through paths of ${ls.join(" and ")} diodes; the per-segment policy wants one length`);
-  }
-  if (limits.policy === "uniform" && all.size > 1)
-    say(`paths have ${[...all].sort().join(", ")} diodes; the uniform policy wants one length`);
+  const depth = depthFindings(spec.lines, order, out, spec.outputs, limits);
+  depth.findings.forEach(say);
 
   // Exactness, both directions.
   const reach = (from: string): Set<string> => {
@@ -198,7 +170,7 @@ export function verifyPolarity(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyL
   } else if (net !== undefined && (net.diodes > 0 || net.resistors > 0 || net.outputs > 0))
     say("no output is decoded dark, yet the matrix lists an input network");
 
-  if (m.longestPath !== Math.max(0, ...[...all])) say(`longestPath ${m.longestPath} differs from the longest path ${Math.max(0, ...all)}`);
+  if (m.longestPath !== depth.longest) say(`longestPath ${m.longestPath} differs from the longest path ${depth.longest}`);
   const objective = matrixObjective(m);
   if (m.lowerBound !== null && m.lowerBound > objective) say(`lower bound ${m.lowerBound} exceeds the diodes counted, ${objective}`);
   if (m.optimal && m.lowerBound !== objective) say("marked optimal but the lower bound does not equal the diodes counted");
