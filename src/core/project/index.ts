@@ -47,3 +47,14 @@ export { electricalFields, serializeProject, synthesisFields } from "./projectWr
 export { fillPattern } from "./textPatterns.ts";
 export { FIGURE_BOX, FIGURE_DEFAULTS, POLYLINE_POINTS, figureFields, figureOf } from "./figureSchema.ts";
 export type { LooseFigure } from "./figureSchema.ts";
+export {
+  DECODER_KEYS,
+  INSTRUMENT_KEYS,
+  SINGLE_DECODER_NAME,
+  mergeLoose,
+  parseInstrument,
+  parseInstrumentBytes,
+  serializeInstrument,
+  validateInstrument,
+} from "./instrument.ts";
+export type { Instrument, InstrumentDecoder } from "./instrument.ts";

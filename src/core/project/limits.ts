@@ -39,6 +39,10 @@ export const LIMITS = {
   titleChars: 200,
   /** Most segments of a custom cell. */
   customSegments: 32,
+  /** Decoders of an instrument (a file with `decoders`); each is synthesized, solved and drawn in turn. */
+  decoders: { min: 1, max: 16 } as WholeRange,
+  /** Longest decoder name, characters: it titles the decoder's sheets and sections. */
+  decoderNameChars: 40,
 } as const;
 
 /**

@@ -114,6 +114,15 @@ export function validateProject(data: unknown): Result<Project> {
         : `got ${describeValue(schemaField)}; must be "${PROJECT_SCHEMA}" (or "${PROJECT_SCHEMA_V1}", the first format)`;
     return fail([{ path: "schema", message }]);
   }
+  if ("decoders" in data) {
+    return fail([
+      {
+        path: "decoders",
+        message:
+          "this file holds an instrument of several decoders; read it as an instrument (parseInstrument; the command line and the app do), or take one decoder out into a file of its own",
+      },
+    ]);
+  }
   const issues = (i: readonly v.BaseIssue<unknown>[]) =>
     fail(i.slice(0, MAX_PROBLEMS).map((x) => ({ path: issuePath(x), message: x.message })));
   if (schemaField === PROJECT_SCHEMA_V1) {
