@@ -10,7 +10,7 @@
  * is of that one design, the one the BOM, the decks and the drawing show.
  * All values are SI.
  */
-import { cornerConditions, cornerModel } from "./corners.ts";
+import { cornerConditions, cornerModel, type CornerConditions } from "./corners.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import { currentRanges, overallSpread } from "./segmentTrim.ts";
 import { settleDesign, type SegmentDesign } from "./segmentDesign.ts";
@@ -18,7 +18,9 @@ import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import { currentRole } from "../matrix/designators.ts";
 import type { Project } from "../project/project.ts";
 import { ok, type Result } from "../result/result.ts";
-import { solveAllStates, type BudgetFailure, type StateSolution } from "../circuit/stateSweep.ts";
+import type { BudgetFailure } from "../circuit/stateSweep.ts";
+import { DcWorkspace } from "../circuit/dcSolver.ts";
+import { readSweep } from "./sweepReading.ts";
 import {
   cornerBudget,
   counterBudgets,
@@ -32,7 +34,7 @@ import {
 } from "./budgetFigures.ts";
 import { budgetWarnings } from "./budgetWarnings.ts";
 import { stateSpreads } from "./stateSpread.ts";
-import { BUDGET_SCHEMA, type Budget, type BudgetOptions, type CornerBudget } from "./budgetTypes.ts";
+import { BUDGET_SCHEMA, type Budget, type BudgetOptions } from "./budgetTypes.ts";
 
 export type { BudgetFailure } from "../circuit/stateSweep.ts";
 
@@ -55,34 +57,33 @@ export function solveBudget(
   const windowPct = options.windowPct ?? 20;
   if (!(windowPct > 0 && windowPct < 100)) throw new RangeError(`windowPct must be between 0 and 100, got ${windowPct}`);
 
-  const settled = settleDesign(project, spec, matrix, { series, mode, windowPct, deadlineMs: options.deadlineMs });
+  // One scratch space for every sweep: the nodal matrix of a big matrix is allocated once.
+  const workspace = new DcWorkspace();
+  const settled = settleDesign(project, spec, matrix, { series, mode, windowPct, deadlineMs: options.deadlineMs, workspace });
   if (!settled.ok) return settled;
   const { design, solutions, trim } = settled.value;
   const chosen = design.trimmed ? design.ohms : undefined;
-  const lowSupply = solveAllStates(
-    spec,
-    matrix,
-    { ...e, supply: { ...e.supply, volts: e.supply.minVolts } },
-    "lowest supply",
-    chosen,
-    options.deadlineMs,
-  );
+  const lowSupply = readSweep(spec, matrix, { ...e, supply: { ...e.supply, volts: e.supply.minVolts } }, "lowest supply", {
+    design: chosen,
+    deadlineMs: options.deadlineMs,
+    workspace,
+  });
   if (!lowSupply.ok) return lowSupply;
 
-  const driven = solutions[0]?.circuit.drivers.map((d) => d.output) ?? [];
-  const corners: CornerBudget[] = [];
-  const cornerSolutions: (readonly StateSolution[])[] = [];
-  for (const c of cornerConditions(e)) {
-    const sol = solveAllStates(spec, matrix, cornerModel(e, c, driven, chosen), `${c.name} corner`, undefined, options.deadlineMs);
-    if (!sol.ok) return sol;
-    corners.push(cornerBudget(project, spec, c, sol.value));
-    cornerSolutions.push(sol.value);
-  }
-  const [low, high] = corners as [CornerBudget, CornerBudget];
+  const driven = solutions.drivers.map((d) => d.output);
+  const [lowConditions, highConditions] = cornerConditions(e);
+  const corner = (c: CornerConditions) =>
+    readSweep(spec, matrix, cornerModel(e, c, driven, chosen), `${c.name} corner`, { deadlineMs: options.deadlineMs, workspace });
+  const lowSweep = corner(lowConditions);
+  if (!lowSweep.ok) return lowSweep;
+  const low = cornerBudget(project, spec, lowConditions, lowSweep.value);
+  const highSweep = corner(highConditions);
+  if (!highSweep.ok) return highSweep;
+  const high = cornerBudget(project, spec, highConditions, highSweep.value);
 
   const targetA = e.segment.targetA;
   const w = windowPct / 100;
-  const drivers = driverBudgets(project, spec, solutions, lowSupply.value, cornerSolutions[0] ?? []);
+  const drivers = driverBudgets(project, spec, solutions, lowSupply.value, lowSweep.value);
   const meetsTarget =
     driven.length === 0 ||
     (low.minCurrentA >= targetA * (1 - w) &&
@@ -100,7 +101,7 @@ export function solveBudget(
     targetA,
     maxA: e.segment.maxA,
     design: design.trimmed ? "trimmed" : "project",
-    states: stateBudgets(spec, matrix, solutions),
+    states: stateBudgets(spec, solutions),
     outputs,
     spreadPct: overallSpread(currentRanges(spec, solutions)),
     diodes: diodeBudgets(project, matrix, solutions),
@@ -108,7 +109,7 @@ export function solveBudget(
     gates: gateBudgets(matrix, solutions),
     drivers,
     supply: segmentSupply(project, solutions),
-    logic: logicSupply(project, matrix, solutions),
+    logic: logicSupply(project, solutions),
     trim: {
       series,
       mode,

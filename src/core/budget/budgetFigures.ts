@@ -1,7 +1,7 @@
 /**
- * The budget's figures, part by part: each function reads the solved states
- * of one design and gives the worst cases a builder checks against the
- * ratings. SI throughout.
+ * The budget's figures, part by part: each function reads one sweep of a
+ * design over the states (sweepReading.ts) and gives the worst cases a
+ * builder checks against the ratings. SI throughout.
  */
 import type { CornerConditions } from "./corners.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
@@ -9,14 +9,14 @@ import { currentRanges } from "./segmentTrim.ts";
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
 import type { DriverStage } from "../circuit/circuit.ts";
-import { isLit, type StateSolution } from "../circuit/stateSweep.ts";
-import { highDrivers, highGates, highLines, orPlane, sourceLines } from "../circuit/counterLines.ts";
+import { isLit } from "../circuit/stateSweep.ts";
+import { highDrivers, orPlane, sourceLines } from "../circuit/counterLines.ts";
+import type { SweepReading } from "./sweepReading.ts";
 import type {
   CornerBudget,
   CounterLineBudget,
   DiodeBudget,
   DriverBudget,
-  DriverPoint,
   GateBudget,
   OutputBudget,
   OutputInState,
@@ -25,42 +25,25 @@ import type {
   SupplyBudget,
 } from "./budgetTypes.ts";
 
-/** The operating point of a stage's transistor in one solved state; null for direct drive. */
-export function driverPoint(s: StateSolution, d: DriverStage): DriverPoint | null {
-  if (d.transistor === null || d.baseNode === null || d.collectorNode === null) return null;
-  const t = s.op.transistors[d.transistor];
-  if (!t) throw new Error(`bug: no currents for ${d.transistor}`);
-  const v = s.op.voltages;
-  const ve = d.emitterNode === null ? 0 : (v[d.emitterNode] as number);
-  return { vbeV: (v[d.baseNode] as number) - ve, vceV: (v[d.collectorNode] as number) - ve, icA: t.icA, ibA: t.ibA };
-}
-
-/** What the counter's high lines source together in one solved state (the active line of a one-hot counter), amperes. */
-function highLinesSourceA(matrix: VerifiedMatrix, s: StateSolution): number {
-  let sum = 0;
-  for (const l of highLines(matrix, s.circuit.stateIndex)) sum += s.op.currents[`V${l}`] as number;
-  return sum;
-}
-
 /** Per state: what the counter's high lines source, what the supplies give, and every segment. */
-export function stateBudgets(spec: DecodeSpec, matrix: VerifiedMatrix, sols: readonly StateSolution[]): StateBudget[] {
-  return sols.map((s, k) => {
+export function stateBudgets(spec: DecodeSpec, sweep: SweepReading): StateBudget[] {
+  return sweep.states.map((s, k) => {
     const outputs: Record<string, OutputInState> = {};
-    for (const d of s.circuit.drivers) {
+    sweep.drivers.forEach((d, j) => {
       outputs[d.output] = {
         lit: isLit(spec, k, d.output),
-        segmentA: s.op.currents[d.display] as number,
-        inputV: s.op.voltages[d.inputNode] as number,
-        driver: driverPoint(s, d),
+        segmentA: s.segmentA[j] as number,
+        inputV: s.inputV[j] as number,
+        driver: s.points[j] ?? null,
       };
-    }
+    });
     return {
-      state: s.circuit.state,
+      state: s.state,
       text: spec.texts[k] ?? "",
-      sourceCurrentA: highLinesSourceA(matrix, s),
-      supplyCurrentA: s.op.currents["VSUP"] ?? 0,
-      logicCurrentA: s.op.currents["VLOGIC"] ?? 0,
-      solver: { method: s.op.method, iterations: s.op.iterations },
+      sourceCurrentA: s.highSourceA,
+      supplyCurrentA: s.supplyA,
+      logicCurrentA: s.logicA,
+      solver: { method: s.method, iterations: s.iterations },
       outputs,
     };
   });
@@ -105,24 +88,24 @@ export function depthsFrom(matrix: VerifiedMatrix, k: number): Map<string, numbe
 }
 
 /** Per output: its current range when lit (and in which states), its largest current when unlit, and its path lengths. */
-export function outputBudgets(spec: DecodeSpec, matrix: VerifiedMatrix, sols: readonly StateSolution[]): Record<string, OutputBudget> {
-  const ranges = currentRanges(spec, sols);
+export function outputBudgets(spec: DecodeSpec, matrix: VerifiedMatrix, sweep: SweepReading): Record<string, OutputBudget> {
+  const ranges = currentRanges(spec, sweep);
   const lengths = pathLengths(matrix);
   const out: Record<string, OutputBudget> = {};
-  for (const d of sols[0]?.circuit.drivers ?? []) {
+  sweep.drivers.forEach((d, j) => {
     let offMaxA = 0;
     let offMaxState: string | null = null;
     let minState: string | null = null;
     let maxState: string | null = null;
     const r = ranges.get(d.output) ?? { minA: 0, maxA: 0, spreadPct: 0 };
-    sols.forEach((s, k) => {
-      const i = s.op.currents[d.display] as number;
+    sweep.states.forEach((s, k) => {
+      const i = s.segmentA[j] as number;
       if (!isLit(spec, k, d.output)) {
-        if (offMaxState === null || i > offMaxA) [offMaxA, offMaxState] = [i, s.circuit.state];
+        if (offMaxState === null || i > offMaxA) [offMaxA, offMaxState] = [i, s.state];
         return;
       }
-      if (minState === null && i === r.minA) minState = s.circuit.state;
-      if (maxState === null && i === r.maxA) maxState = s.circuit.state;
+      if (minState === null && i === r.minA) minState = s.state;
+      if (maxState === null && i === r.maxA) maxState = s.state;
     });
     out[d.output] = {
       ...r,
@@ -133,29 +116,21 @@ export function outputBudgets(spec: DecodeSpec, matrix: VerifiedMatrix, sols: re
       pathLengths: [...(lengths.get(d.output) ?? [])].sort((a, b) => a - b),
       tiedOn: d.tiedOn,
     };
-  }
+  });
   return out;
 }
 
 /** Per matrix diode: its largest forward current and reverse voltage, with its ratings. */
-export function diodeBudgets(project: Project, matrix: VerifiedMatrix, sols: readonly StateSolution[]): Record<string, DiodeBudget> {
+export function diodeBudgets(project: Project, matrix: VerifiedMatrix, sweep: SweepReading): Record<string, DiodeBudget> {
   const out: Record<string, DiodeBudget> = {};
-  // Every state's circuit has the same diodes between the same nodes.
-  const byName = new Map((sols[0]?.circuit.elements ?? []).map((x) => [x.name, x]));
   for (const d of matrix.diodes) {
-    let maxCurrentA = 0;
-    let maxReverseV = 0;
-    const el = byName.get(d.ref);
-    if (!el || el.kind !== "diode") throw new Error(`bug: circuit lacks diode ${d.ref}`);
-    for (const s of sols) {
-      maxCurrentA = Math.max(maxCurrentA, s.op.currents[d.ref] as number);
-      maxReverseV = Math.max(maxReverseV, (s.op.voltages[el.cathode] as number) - (s.op.voltages[el.anode] as number));
-    }
+    const w = sweep.diodes.get(d.ref);
+    if (!w) throw new Error(`bug: the sweep did not read diode ${d.ref}`);
     out[d.ref] = {
       from: d.from,
       to: d.to,
-      maxCurrentA,
-      maxReverseV,
+      maxCurrentA: w.maxCurrentA,
+      maxReverseV: w.maxReverseV,
       ratedCurrentA: project.electrical.diode.maxForwardA,
       ratedReverseV: project.electrical.diode.maxReverseV,
     };
@@ -169,23 +144,11 @@ export function diodeBudgets(project: Project, matrix: VerifiedMatrix, sols: rea
  * most it sinks while low (a coded counter's low line takes the pull-up
  * current of every gate it holds low).
  */
-export function counterBudgets(
-  project: Project,
-  matrix: VerifiedMatrix,
-  sols: readonly StateSolution[],
-): Record<string, CounterLineBudget> {
+export function counterBudgets(project: Project, matrix: VerifiedMatrix, sweep: SweepReading): Record<string, CounterLineBudget> {
   const co = project.electrical.counterOutput;
   const out: Record<string, CounterLineBudget> = {};
   for (const l of sourceLines(matrix)) {
-    let source: { a: number; v: number; state: string } | null = null;
-    let sink: { a: number; state: string } | null = null;
-    for (const s of sols) {
-      const a = s.op.currents[`V${l}`] as number;
-      const v = s.op.voltages[s.circuit.lineNodes[l] as string] as number;
-      if (highLines(matrix, s.circuit.stateIndex).has(l)) {
-        if (source === null || a > source.a) source = { a, v, state: s.circuit.state };
-      } else if (sink === null || -a > sink.a) sink = { a: -a, state: s.circuit.state };
-    }
+    const { source, sink } = sweep.counterLines.get(l) ?? { source: null, sink: null };
     out[l] = {
       sourceCurrentA: source?.a ?? 0,
       sourceState: source?.state ?? null,
@@ -200,26 +163,12 @@ export function counterBudgets(
 }
 
 /** Per AND gate of a coded counter's decoder: its node's levels over the used codes and its pull-up's largest current. */
-export function gateBudgets(matrix: VerifiedMatrix, sols: readonly StateSolution[]): Record<string, GateBudget> {
+export function gateBudgets(matrix: VerifiedMatrix, sweep: SweepReading): Record<string, GateBudget> {
   const out: Record<string, GateBudget> = {};
-  const pullUps = new Map<string, { ref: string; ohms: number }>();
-  for (const el of sols[0]?.circuit.elements ?? []) {
-    if (el.kind === "resistor" && el.role === "gate-pull-up") pullUps.set(el.b, { ref: el.name, ohms: el.ohms });
-  }
   for (const g of matrix.gates) {
-    const node = sols[0]?.circuit.lineNodes[g.ref] as string;
-    const pullUp = pullUps.get(node);
-    if (pullUp === undefined) throw new Error(`bug: circuit lacks the pull-up of ${g.ref}`);
-    let lowMaxV: number | null = null;
-    let highMinV: number | null = null;
-    let maxPullUpA = 0;
-    for (const s of sols) {
-      const v = s.op.voltages[node] as number;
-      maxPullUpA = Math.max(maxPullUpA, s.op.currents[pullUp.ref] as number);
-      if (highGates(matrix, s.circuit.stateIndex).has(g.ref)) highMinV = highMinV === null ? v : Math.min(highMinV, v);
-      else lowMaxV = lowMaxV === null ? v : Math.max(lowMaxV, v);
-    }
-    out[g.ref] = { inputs: [...g.inputs], pullUp, lowMaxV, highMinV, maxPullUpA };
+    const w = sweep.gates.get(g.ref);
+    if (!w) throw new Error(`bug: the sweep did not read gate ${g.ref}`);
+    out[g.ref] = { inputs: [...g.inputs], pullUp: w.pullUp, lowMaxV: w.lowMaxV, highMinV: w.highMinV, maxPullUpA: w.maxPullUpA };
   }
   return out;
 }
@@ -231,10 +180,10 @@ function supplyFigures(volts: number, currents: readonly number[]): SupplyBudget
 }
 
 /** The segment supply: what `VSUP` gives over the states. */
-export function segmentSupply(project: Project, sols: readonly StateSolution[]): SupplyBudget {
+export function segmentSupply(project: Project, sweep: SweepReading): SupplyBudget {
   return supplyFigures(
     project.electrical.supply.volts,
-    sols.map((s) => s.op.currents["VSUP"] ?? 0),
+    sweep.states.map((s) => s.supplyA),
   );
 }
 
@@ -243,10 +192,10 @@ export function segmentSupply(project: Project, sols: readonly StateSolution[]):
  * the tied-on outputs and the gates' pull-ups draw from the rail, in the
  * worst state.
  */
-export function logicSupply(project: Project, matrix: VerifiedMatrix, sols: readonly StateSolution[]): SupplyBudget {
+export function logicSupply(project: Project, sweep: SweepReading): SupplyBudget {
   const e = project.electrical;
-  const power = sols.map((s) => highLinesSourceA(matrix, s) * e.counterOutput.high + (s.op.currents["VLOGIC"] ?? 0) * e.logicSupply.volts);
-  const current = sols.map((s) => highLinesSourceA(matrix, s) + (s.op.currents["VLOGIC"] ?? 0));
+  const power = sweep.states.map((s) => s.highSourceA * e.counterOutput.high + s.logicA * e.logicSupply.volts);
+  const current = sweep.states.map((s) => s.highSourceA + s.logicA);
   return { volts: e.logicSupply.volts, maxCurrentA: Math.max(0, ...current), maxPowerW: Math.max(0, ...power) };
 }
 
@@ -264,11 +213,11 @@ interface DriverFigures {
 const NO_BASE_A = 1e-9;
 
 /** Vce, dissipation, collector current and, over the lit states, collector-base headroom and forced beta of each driver. */
-function driverFigures(spec: DecodeSpec, sols: readonly StateSolution[]): Map<string, DriverFigures> {
+function driverFigures(spec: DecodeSpec, sweep: SweepReading): Map<string, DriverFigures> {
   const out = new Map<string, DriverFigures>();
-  sols.forEach((s, k) => {
-    for (const d of s.circuit.drivers) {
-      const p = driverPoint(s, d);
+  sweep.states.forEach((s, k) => {
+    sweep.drivers.forEach((d, j) => {
+      const p = s.points[j] ?? null;
       const f = out.get(d.output) ?? { maxVceV: 0, maxPowerW: 0, maxCollectorA: 0, headroomV: Infinity, forcedBeta: 0, off: false };
       if (p !== null) {
         f.maxVceV = Math.max(f.maxVceV, p.vceV);
@@ -281,7 +230,7 @@ function driverFigures(spec: DecodeSpec, sols: readonly StateSolution[]): Map<st
         }
       }
       out.set(d.output, f);
-    }
+    });
   });
   return out;
 }
@@ -296,9 +245,9 @@ function stageResistors(d: DriverStage): StageResistorBudget[] {
 export function driverBudgets(
   project: Project,
   spec: DecodeSpec,
-  nominal: readonly StateSolution[],
-  lowSupply: readonly StateSolution[],
-  lowCorner: readonly StateSolution[],
+  nominal: SweepReading,
+  lowSupply: SweepReading,
+  lowCorner: SweepReading,
 ): Record<string, DriverBudget> {
   const e = project.electrical;
   const kind = e.driver.kind;
@@ -306,7 +255,7 @@ export function driverBudgets(
   const low = driverFigures(spec, lowSupply);
   const weak = driverFigures(spec, lowCorner);
   const out: Record<string, DriverBudget> = {};
-  for (const d of nominal[0]?.circuit.drivers ?? []) {
+  for (const d of nominal.drivers) {
     const n = nom.get(d.output) as DriverFigures;
     const w = weak.get(d.output) as DriverFigures;
     const isSwitch = kind === "low-side-switch";
@@ -330,15 +279,10 @@ export function driverBudgets(
 }
 
 /** The segment currents and driver figures of one tolerance corner. */
-export function cornerBudget(
-  project: Project,
-  spec: DecodeSpec,
-  conditions: CornerConditions,
-  sols: readonly StateSolution[],
-): CornerBudget {
+export function cornerBudget(project: Project, spec: DecodeSpec, conditions: CornerConditions, sweep: SweepReading): CornerBudget {
   const kind = project.electrical.driver.kind;
-  const ranges = currentRanges(spec, sols);
-  const figures = [...driverFigures(spec, sols).values()];
+  const ranges = currentRanges(spec, sweep);
+  const figures = [...driverFigures(spec, sweep).values()];
   const rs = [...ranges.values()];
   const lit = figures.filter((f) => Number.isFinite(f.headroomV));
   return {

@@ -28,13 +28,14 @@ export {
   depthsFrom,
   diodeBudgets,
   driverBudgets,
-  driverPoint,
   logicSupply,
   outputBudgets,
   segmentSupply,
   stateBudgets,
 } from "./budgetFigures.ts";
 export { budgetWarnings, SPREAD_NOTE_PCT, unappliedWhy } from "./budgetWarnings.ts";
+export { driverPoint, readSweep } from "./sweepReading.ts";
+export type { DiodeReading, GateReading, LineReading, StateReading, SweepReading } from "./sweepReading.ts";
 export { stateSpreads } from "./stateSpread.ts";
 export type { StateSpreadWarning } from "./stateSpread.ts";
 export {

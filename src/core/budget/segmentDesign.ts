@@ -35,7 +35,9 @@ import type { DiodeMatrix } from "../matrix/matrix.ts";
 import { currentOhmsOf, currentRole, type CurrentResistorRole } from "../matrix/designators.ts";
 import type { ElectricalModel, Project } from "../project/project.ts";
 import { ok, type Result } from "../result/result.ts";
-import { solveAllStates, type BudgetFailure, type StateSolution } from "../circuit/stateSweep.ts";
+import type { BudgetFailure } from "../circuit/stateSweep.ts";
+import { DcWorkspace } from "../circuit/dcSolver.ts";
+import { readSweep, type SweepReading } from "./sweepReading.ts";
 import { cornerConditions, cornerModel } from "./corners.ts";
 import {
   currentRanges,
@@ -148,9 +150,9 @@ export function appliesTrim(mode: TrimMode, effect: TrimEffect): boolean {
 export interface SettledDesign {
   readonly design: SegmentDesign;
   /** The project's values, every state solved at nominal. */
-  readonly nominal: readonly StateSolution[];
+  readonly nominal: SweepReading;
   /** The design's values, every state solved at nominal (the same as `nominal` when untrimmed). */
-  readonly solutions: readonly StateSolution[];
+  readonly solutions: SweepReading;
   /** The trim as worked out (centred on the target), shown beside the design. */
   readonly trim: SegmentTrim;
   /** The values the rule judged last: the applied ones, else the candidate that came nearest. */
@@ -167,6 +169,8 @@ export interface DesignOptions {
   readonly windowPct?: number;
   /** `Date.now()` value after which no further state is solved (see `BudgetOptions.deadlineMs`). */
   readonly deadlineMs?: number;
+  /** Scratch space of the solves, shared with the caller's other sweeps. */
+  readonly workspace?: DcWorkspace;
 }
 
 /** Most steps towards the middle the rule tries before it calls a trim spread-widening. */
@@ -175,7 +179,7 @@ const MAX_STEPS = 6;
 /** One set of values the rule judges, solved at nominal. */
 interface Candidate {
   readonly values: ReadonlyMap<string, number>;
-  readonly solutions: readonly StateSolution[];
+  readonly solutions: SweepReading;
   readonly figures: DesignFigures;
   readonly effect: TrimEffect;
 }
@@ -202,33 +206,36 @@ export function settleDesign(
   const windowPct = options.windowPct ?? 20;
   const target = e.segment.targetA;
   const role = currentRole(e.driver.kind);
-  const nominal = solveAllStates(spec, matrix, e, "nominal", undefined, options.deadlineMs);
+  const workspace = options.workspace ?? new DcWorkspace();
+  const sweep = (model: ElectricalModel, during: string, design?: ReadonlyMap<string, number>): Result<SweepReading, BudgetFailure> =>
+    readSweep(spec, matrix, model, during, { design, deadlineMs: options.deadlineMs, workspace });
+  const nominal = sweep(e, "nominal");
   if (!nominal.ok) return nominal;
-  const trim = trimSegments({ spec, matrix, model: e, nominal: nominal.value, series: options.series, deadlineMs: options.deadlineMs });
+  const trim = trimSegments({
+    spec,
+    matrix,
+    model: e,
+    nominal: nominal.value,
+    series: options.series,
+    deadlineMs: options.deadlineMs,
+    workspace,
+  });
   if (!trim.ok) return trim;
   const own = projectDesign(e, matrix, options).ohms;
   const driven = [...own.keys()];
-  const figures = (sols: readonly StateSolution[]): DesignFigures => designFigures(currentRanges(spec, sols), target, windowPct);
+  const figures = (sols: SweepReading): DesignFigures => designFigures(currentRanges(spec, sols), target, windowPct);
   const before = figures(nominal.value);
   const same = (values: ReadonlyMap<string, number>): boolean => [...own].every(([o, ohms]) => values.get(o) === ohms);
   const full = (values: ReadonlyMap<string, number>): Map<string, number> =>
     new Map([...own].map(([o, ohms]) => [o, values.get(o) ?? ohms]));
-  const nominalPeak = (sols: readonly StateSolution[]): number =>
-    Math.max(0, ...[...currentRanges(spec, sols).values()].map((r) => r.maxA));
+  const nominalPeak = (sols: SweepReading): number => Math.max(0, ...[...currentRanges(spec, sols).values()].map((r) => r.maxA));
   const highPeak = (values: ReadonlyMap<string, number> | undefined): Result<number, BudgetFailure> => {
-    const sol = solveAllStates(
-      spec,
-      matrix,
-      cornerModel(e, cornerConditions(e)[1], driven, values),
-      "high corner",
-      undefined,
-      options.deadlineMs,
-    );
+    const sol = sweep(cornerModel(e, cornerConditions(e)[1], driven, values), "high corner");
     return sol.ok ? ok(nominalPeak(sol.value)) : sol;
   };
   let beforePeak: number | null = null;
   /** Rule 1: the candidate's peak, at nominal and the high corner, over the rating and over the project's own peak. */
-  const overRating = (values: ReadonlyMap<string, number>, sols: readonly StateSolution[]): Result<boolean, BudgetFailure> => {
+  const overRating = (values: ReadonlyMap<string, number>, sols: SweepReading): Result<boolean, BudgetFailure> => {
     const peak = highPeak(values);
     if (!peak.ok) return peak;
     const after = Math.max(peak.value, nominalPeak(sols));
@@ -240,7 +247,7 @@ export function settleDesign(
     }
     return ok(after > beforePeak);
   };
-  const judge = (values: ReadonlyMap<string, number>, sols: readonly StateSolution[]): Result<Candidate, BudgetFailure> => {
+  const judge = (values: ReadonlyMap<string, number>, sols: SweepReading): Result<Candidate, BudgetFailure> => {
     const f = figures(sols);
     if (same(values)) return ok({ values, solutions: sols, figures: f, effect: "no-change" });
     const over = overRating(values, sols);
@@ -267,7 +274,7 @@ export function settleDesign(
   for (let step = 0; step < MAX_STEPS && c.effect === "widens-spread"; step++) {
     const moved = stepTowardsMiddle(currentRanges(spec, c.solutions), c.values, trim.value, options.series);
     if (moved === null) break;
-    const sol = solveAllStates(spec, matrix, e, "trim", moved, options.deadlineMs);
+    const sol = sweep(e, "trim", moved);
     if (!sol.ok) return sol;
     const next = judge(moved, sol.value);
     if (!next.ok) return next;
@@ -278,7 +285,7 @@ export function settleDesign(
   const values = new Set(own.values());
   if (values.size === 1 && c.effect !== "improves") {
     const uniform = uniformCandidate(
-      { spec, matrix, model: e, nominal: nominal.value, series: options.series, deadlineMs: options.deadlineMs },
+      { spec, matrix, model: e, nominal: nominal.value, series: options.series, deadlineMs: options.deadlineMs, workspace },
       [...values][0] as number,
       driven,
     );
@@ -311,16 +318,19 @@ function uniformCandidate(
     readonly spec: DecodeSpec;
     readonly matrix: DiodeMatrix;
     readonly model: ElectricalModel;
-    readonly nominal: readonly StateSolution[];
+    readonly nominal: SweepReading;
     readonly series: ESeriesName;
     readonly deadlineMs?: number;
+    readonly workspace: DcWorkspace;
   },
   common: number,
   outputs: readonly string[],
-): Result<{ readonly values: Map<string, number>; readonly solutions: readonly StateSolution[] } | null, BudgetFailure> {
+): Result<{ readonly values: Map<string, number>; readonly solutions: SweepReading } | null, BudgetFailure> {
   const { spec, matrix, model, series } = input;
   const target = model.segment.targetA;
-  const middle = (sols: readonly StateSolution[]): number => {
+  const sweep = (design: ReadonlyMap<string, number>): Result<SweepReading, BudgetFailure> =>
+    readSweep(spec, matrix, model, "trim", { design, deadlineMs: input.deadlineMs, workspace: input.workspace });
+  const middle = (sols: SweepReading): number => {
     const rs = [...currentRanges(spec, sols).values()];
     return rs.length === 0 ? 0 : (Math.min(...rs.map((r) => r.minA)) + Math.max(...rs.map((r) => r.maxA))) / 2;
   };
@@ -328,15 +338,15 @@ function uniformCandidate(
   const m0 = middle(input.nominal);
   if (!(m0 > target * 1e-6)) return ok(null);
   const r1 = Math.min(10e6, Math.max(1, (common * m0) / target));
-  const s1 = solveAllStates(spec, matrix, model, "trim", all(r1), input.deadlineMs);
+  const s1 = sweep(all(r1));
   if (!s1.ok) return s1;
   const m1 = middle(s1.value);
   const ideal = m1 > target * 1e-6 ? Math.min(10e6, Math.max(1, (r1 * m1) / target)) : r1;
   const [lo, hi] = preferredNeighbours(ideal, series);
-  let best: { values: Map<string, number>; solutions: readonly StateSolution[]; distance: number } | null = null;
+  let best: { values: Map<string, number>; solutions: SweepReading; distance: number } | null = null;
   for (const ohms of lo === hi ? [lo] : [lo, hi]) {
     if (ohms === common) continue;
-    const sol = solveAllStates(spec, matrix, model, "trim", all(ohms), input.deadlineMs);
+    const sol = sweep(all(ohms));
     if (!sol.ok) return sol;
     const distance = Math.abs(middle(sol.value) - target);
     if (best === null || distance < best.distance) best = { values: all(ohms), solutions: sol.value, distance };

@@ -19,7 +19,9 @@ import { preferredNeighbours, type ESeriesName } from "./eSeries.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
 import type { ElectricalModel } from "../project/project.ts";
 import { ok, type Result } from "../result/result.ts";
-import { isLit, solveAllStates, type BudgetFailure, type StateSolution } from "../circuit/stateSweep.ts";
+import { isLit, type BudgetFailure } from "../circuit/stateSweep.ts";
+import type { DcWorkspace } from "../circuit/dcSolver.ts";
+import { readSweep, type SweepReading } from "./sweepReading.ts";
 
 /** Range of one output's segment current over the states that light it. */
 export interface CurrentRange {
@@ -42,23 +44,23 @@ export interface SegmentTrim {
   readonly series: ESeriesName;
   /** Per output the trim could size (an output whose segment does not light cannot be trimmed). */
   readonly outputs: Readonly<Record<string, TrimmedOutput>>;
-  /** The trimmed design's operating points (every state). */
-  readonly solutions: readonly StateSolution[];
+  /** The trimmed design's reading (every state at nominal). */
+  readonly solutions: SweepReading;
   /** The chosen values, ohms, keyed by output. */
   readonly ohms: ReadonlyMap<string, number>;
 }
 
 /** Current ranges per driven output over the states that light it. */
-export function currentRanges(spec: DecodeSpec, solutions: readonly StateSolution[]): Map<string, CurrentRange> {
+export function currentRanges(spec: DecodeSpec, sweep: SweepReading): Map<string, CurrentRange> {
   const lo = new Map<string, number>();
   const hi = new Map<string, number>();
-  solutions.forEach((s, k) => {
-    for (const d of s.circuit.drivers) {
-      if (!isLit(spec, k, d.output)) continue;
-      const i = s.op.currents[d.display] as number;
+  sweep.states.forEach((s, k) => {
+    sweep.drivers.forEach((d, j) => {
+      if (!isLit(spec, k, d.output)) return;
+      const i = s.segmentA[j] as number;
       lo.set(d.output, Math.min(lo.get(d.output) ?? Infinity, i));
       hi.set(d.output, Math.max(hi.get(d.output) ?? -Infinity, i));
-    }
+    });
   });
   const out = new Map<string, CurrentRange>();
   for (const [o, minA] of lo) {
@@ -118,10 +120,12 @@ export interface TrimInput {
   readonly matrix: DiodeMatrix;
   readonly model: ElectricalModel;
   /** Every state solved with the model's own resistors. */
-  readonly nominal: readonly StateSolution[];
+  readonly nominal: SweepReading;
   readonly series: ESeriesName;
   /** `Date.now()` value after which no further state is solved. */
   readonly deadlineMs?: number;
+  /** Scratch space of the solves, shared with the caller's other sweeps. */
+  readonly workspace?: DcWorkspace;
 }
 
 /**
@@ -155,25 +159,29 @@ export function trimSegments(input: TrimInput): Result<SegmentTrim, BudgetFailur
   const own = new Map(outputs.map((o) => [o, currentOhmsOf(model, o)]));
   // Two rounds of I ~ 1/R scaling, the second on a fresh solve.
   const ideal0 = scaled(own, before, target);
-  const round = solveAllStates(spec, matrix, model, "trim", ideal0, input.deadlineMs);
+  const sweep = (design: ReadonlyMap<string, number>): Result<Map<string, CurrentRange>, BudgetFailure> => {
+    const r = readSweep(spec, matrix, model, "trim", { design, deadlineMs: input.deadlineMs, workspace: input.workspace });
+    return r.ok ? ok(currentRanges(spec, r.value)) : r;
+  };
+  const round = sweep(ideal0);
   if (!round.ok) return round;
-  const ideal = scaled(ideal0, currentRanges(spec, round.value), target);
+  const ideal = scaled(ideal0, round.value, target);
 
   const lower = new Map(outputs.map((o) => [o, preferredNeighbours(ideal.get(o) as number, series)[0]]));
   const upper = new Map(outputs.map((o) => [o, preferredNeighbours(ideal.get(o) as number, series)[1]]));
-  const atLower = solveAllStates(spec, matrix, model, "trim", lower, input.deadlineMs);
+  const atLower = sweep(lower);
   if (!atLower.ok) return atLower;
-  const atUpper = solveAllStates(spec, matrix, model, "trim", upper, input.deadlineMs);
+  const atUpper = sweep(upper);
   if (!atUpper.ok) return atUpper;
-  const rl = currentRanges(spec, atLower.value);
-  const ru = currentRanges(spec, atUpper.value);
+  const rl = atLower.value;
+  const ru = atUpper.value;
   const chosen = new Map<string, number>();
   for (const o of outputs) {
     const dl = Math.abs(mid(rl.get(o) as CurrentRange) - target);
     const du = Math.abs(mid(ru.get(o) as CurrentRange) - target);
     chosen.set(o, dl <= du ? (lower.get(o) as number) : (upper.get(o) as number));
   }
-  const final = solveAllStates(spec, matrix, model, "trim", chosen, input.deadlineMs);
+  const final = readSweep(spec, matrix, model, "trim", { design: chosen, deadlineMs: input.deadlineMs, workspace: input.workspace });
   if (!final.ok) return final;
   const after = currentRanges(spec, final.value);
   const trimmed: Record<string, TrimmedOutput> = {};

@@ -13,9 +13,10 @@
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DriverKind } from "../project/project.ts";
-import { isLit, type StateSolution } from "../circuit/stateSweep.ts";
-import { depthsFrom, driverPoint } from "./budgetFigures.ts";
-import { highDrivers, orPlane } from "../circuit/counterLines.ts";
+import { isLit } from "../circuit/stateSweep.ts";
+import { depthsFrom } from "./budgetFigures.ts";
+import { orPlane } from "../circuit/counterLines.ts";
+import type { StateReading, SweepReading } from "./sweepReading.ts";
 import type { BudgetWarning, OutputBudget, SpreadCause } from "./budgetTypes.ts";
 import { OUTPUT_SPREAD_PCT } from "./segmentDesign.ts";
 
@@ -35,25 +36,26 @@ export function stateSpreads(input: {
   readonly spec: DecodeSpec;
   readonly matrix: VerifiedMatrix;
   readonly kind: DriverKind;
-  readonly solutions: readonly StateSolution[];
+  readonly solutions: SweepReading;
   readonly outputs: Readonly<Record<string, OutputBudget>>;
 }): StateSpreadWarning[] {
   const { spec, matrix, kind, solutions } = input;
-  const index = new Map(solutions.map((s, k) => [s.circuit.state, k]));
-  const litCount = (k: number): number => (solutions[k]?.circuit.drivers ?? []).filter((d) => isLit(spec, k, d.output)).length;
+  const states = solutions.states;
+  const index = new Map(states.map((s, k) => [s.state, k]));
+  const litCount = (k: number): number => solutions.drivers.filter((d) => isLit(spec, k, d.output)).length;
   const out: StateSpreadWarning[] = [];
   for (const [o, r] of Object.entries(input.outputs)) {
     if (r.tiedOn || r.spreadPct <= OUTPUT_SPREAD_PCT || r.minState === null || r.maxState === null) continue;
     const kMin = index.get(r.minState) as number;
     const kMax = index.get(r.maxState) as number;
-    const sMin = solutions[kMin] as StateSolution;
-    const sMax = solutions[kMax] as StateSolution;
-    const stage = sMin.circuit.drivers.find((d) => d.output === o);
-    if (!stage) continue;
-    const lineV = (s: StateSolution): number => drivingNode(matrix, s, o).v;
+    const sMin = states[kMin] as StateReading;
+    const sMax = states[kMax] as StateReading;
+    const j = solutions.drivers.findIndex((d) => d.output === o);
+    if (j < 0) continue;
+    const lineV = (s: StateReading): number => drivingNode(matrix, s, o).v;
     const driving = drivingNode(matrix, sMin, o).node;
     const gate = matrix.gates.some((g) => g.ref === driving) ? driving : null;
-    const inputV = (s: StateSolution): number => s.op.voltages[stage.inputNode] as number;
+    const inputV = (s: StateReading): number => s.inputV[j] as number;
     const sagDeltaV = lineV(sMax) - lineV(sMin);
     const inputDeltaV = inputV(sMax) - inputV(sMin);
     const dropDeltaV = inputDeltaV - sagDeltaV;
@@ -65,7 +67,7 @@ export function stateSpreads(input: {
     if (depthMin > depthMax && dropDeltaV > NAMED_SHARE * Math.abs(inputDeltaV)) shares.push(["diode-depth", dropDeltaV]);
     shares.sort((a, b) => b[1] - a[1]);
     const causes: SpreadCause[] = shares.map(([c]) => c);
-    const p = driverPoint(sMin, stage);
+    const p = sMin.points[j] ?? null;
     if (kind === "low-side-switch" && p !== null && p.vceV > p.vbeV) causes.unshift("switch-unsaturated");
     if (causes.length === 0) causes.push(sagDeltaV >= dropDeltaV ? sag : "diode-depth");
     out.push({
@@ -92,7 +94,7 @@ export function stateSpreads(input: {
  * active line of a one-hot counter; for a coded counter the highest of the
  * high stage lines and gates with a path to `o`.
  */
-function drivingNode(matrix: VerifiedMatrix, s: StateSolution, o: string): { node: string | null; v: number } {
+function drivingNode(matrix: VerifiedMatrix, s: StateReading, o: string): { node: string | null; v: number } {
   const next = orPlane(matrix);
   const reaches = (from: string): boolean => {
     const seen = new Set([from]);
@@ -109,9 +111,8 @@ function drivingNode(matrix: VerifiedMatrix, s: StateSolution, o: string): { nod
     return false;
   };
   let best: { node: string | null; v: number } = { node: null, v: -Infinity };
-  for (const d of highDrivers(matrix, s.circuit.stateIndex)) {
+  for (const [d, v] of s.highDriverV) {
     if (!reaches(d)) continue;
-    const v = s.op.voltages[s.circuit.lineNodes[d] as string] as number;
     if (v > best.v) best = { node: d, v };
   }
   return best;

@@ -144,7 +144,136 @@ export function lineNode(line: string, outputs: ReadonlySet<string>): string {
 }
 
 /**
- * Builds the circuit of the state `stateIndex` (0-based) of a matrix.
+ * The parts of a matrix's circuit that every state shares: the matrix
+ * diodes, the supplies, the gates' pull-ups and the driver stages, with
+ * their nodes. Only the counter lines' sources (high or low) and the
+ * starting guess differ from state to state, so a sweep over the states
+ * builds this once and `stateCircuit` adds the rest per state.
+ */
+export interface CircuitFrame {
+  readonly matrix: DiodeMatrix;
+  readonly model: ElectricalModel;
+  /** Every element after the counter lines' sources and resistors, in the order a state's circuit lists them. */
+  readonly shared: readonly CircuitElement[];
+  readonly nodes: readonly string[];
+  readonly drivers: readonly DriverStage[];
+  readonly lineNodes: Readonly<Record<string, string>>;
+}
+
+/**
+ * The parts every state of a matrix shares (see `CircuitFrame`).
+ *
+ * @param model the electrical model (a tolerance corner passes a changed copy)
+ * @param design optional values of the resistors that set each output's current, ohms, keyed by output (see `designators`)
+ * @example
+ * const frame = circuitFrame(spec, matrix, project.electrical);
+ * const circuits = matrix.states.map((_, k) => stateCircuit(frame, k));
+ */
+export function circuitFrame(
+  spec: DecodeSpec,
+  matrix: DiodeMatrix,
+  model: ElectricalModel,
+  design?: ReadonlyMap<string, number>,
+): CircuitFrame {
+  const outputs = new Set(matrix.outputs);
+  const parts = designators(spec, matrix, model, design);
+  const tiedCount = parts.drivers.filter((d) => d.tiedOn).length;
+  const shared: CircuitElement[] = [];
+  const lineNodes: Record<string, string> = {};
+  for (const l of [...sourceLines(matrix), ...matrix.buses, ...matrix.outputs]) lineNodes[l] = lineNode(l, outputs);
+
+  for (const g of matrix.gates) lineNodes[g.ref] = lineNode(g.ref, outputs);
+
+  for (const d of matrix.diodes) {
+    shared.push({
+      kind: "diode",
+      name: d.ref,
+      anode: lineNode(d.from, outputs),
+      cathode: lineNode(d.to, outputs),
+      isA: model.diode.is,
+      n: model.diode.n,
+      rsOhms: model.diode.rs,
+    });
+  }
+
+  const stage = driverStage(model.driver.kind);
+  const usesSupply = parts.drivers.length > 0 && stage.usesSupply;
+  if (usesSupply) shared.push({ kind: "vsource", name: "VSUP", node: SUPPLY_NODE, volts: model.supply.volts });
+  const usesLogic = tiedCount > 0 || parts.gates.length > 0;
+  if (usesLogic) shared.push({ kind: "vsource", name: "VLOGIC", node: LOGIC_NODE, volts: model.logicSupply.volts });
+  for (const g of parts.gates) {
+    shared.push({
+      kind: "resistor",
+      name: g.pullUp.ref,
+      role: "gate-pull-up",
+      a: LOGIC_NODE,
+      b: lineNode(g.gate, outputs),
+      ohms: g.pullUp.ohms,
+    });
+  }
+  const drivers: DriverStage[] = [];
+  const stageNodes: string[] = [];
+  for (const p of parts.drivers) {
+    const input = `o${p.output}`;
+    if (p.tieOn !== null) shared.push({ kind: "resistor", name: p.tieOn.ref, role: "tie-on", a: LOGIC_NODE, b: input, ohms: p.tieOn.ohms });
+    shared.push({ kind: "resistor", name: p.pullDown.ref, role: "pull-down", a: input, b: GROUND, ohms: p.pullDown.ohms });
+    const built = stage.build({ parts: p, model, input });
+    shared.push(...built.elements);
+    stageNodes.push(...built.ownNodes);
+    drivers.push({ ...p, ...built.nodes, inputNode: input });
+  }
+
+  const lines = sourceLines(matrix).map((l) => lineNode(l, outputs));
+  const nodes = [
+    ...lines,
+    ...matrix.gates.map((g) => lineNode(g.ref, outputs)),
+    ...lines.map((node) => `${node}_v`),
+    ...(usesSupply ? [SUPPLY_NODE] : []),
+    ...(usesLogic ? [LOGIC_NODE] : []),
+    ...stageNodes,
+    ...matrix.buses.map((b) => lineNode(b, outputs)),
+    ...drivers.map((d) => d.inputNode),
+  ];
+  return { matrix, model, shared, nodes, drivers, lineNodes };
+}
+
+/**
+ * The circuit of the state `stateIndex` (0-based) on a frame: the counter
+ * lines' sources, high or low as the state sets them, then the frame's
+ * shared parts.
+ */
+export function stateCircuit(frame: CircuitFrame, stateIndex: number): Circuit {
+  const { matrix, model, lineNodes } = frame;
+  if (!Number.isInteger(stateIndex) || stateIndex < 0 || stateIndex >= matrix.states.length) {
+    throw new RangeError(`state index ${stateIndex} is outside 0..${matrix.states.length - 1}`);
+  }
+  const co = model.counterOutput;
+  const high = highLines(matrix, stateIndex);
+  const elements: CircuitElement[] = [];
+  for (const l of sourceLines(matrix)) {
+    const node = lineNodes[l] as string;
+    const src = `${node}_v`;
+    elements.push({ kind: "vsource", name: `V${l}`, node: src, volts: high.has(l) ? co.high : co.low });
+    const ohms = high.has(l) ? co.resistance : co.lowResistance;
+    elements.push({ kind: "resistor", name: `R${l}`, role: "counter", a: src, b: node, ohms });
+  }
+  for (const el of frame.shared) elements.push(el);
+  return {
+    guess: startingGuess(matrix, model, stateIndex, frame.drivers, lineNodes),
+    state: matrix.states[stateIndex] as string,
+    stateIndex,
+    temperatureC: model.temperatureC,
+    nodes: frame.nodes,
+    elements,
+    drivers: frame.drivers,
+    lineNodes,
+  };
+}
+
+/**
+ * Builds the circuit of the state `stateIndex` (0-based) of a matrix. A
+ * sweep over every state builds the frame once instead (`circuitFrame`,
+ * `stateCircuit`); the circuits are the same.
  *
  * @param model the electrical model (a tolerance corner passes a changed copy)
  * @param design optional values of the resistors that set each output's current, ohms, keyed by output (see `designators`)
@@ -162,89 +291,7 @@ export function buildCircuit(
   if (!Number.isInteger(stateIndex) || stateIndex < 0 || stateIndex >= matrix.states.length) {
     throw new RangeError(`state index ${stateIndex} is outside 0..${matrix.states.length - 1}`);
   }
-  const outputs = new Set(matrix.outputs);
-  const parts = designators(spec, matrix, model, design);
-  const tiedCount = parts.drivers.filter((d) => d.tiedOn).length;
-  const co = model.counterOutput;
-  const elements: CircuitElement[] = [];
-  const lineNodes: Record<string, string> = {};
-  for (const l of [...sourceLines(matrix), ...matrix.buses, ...matrix.outputs]) lineNodes[l] = lineNode(l, outputs);
-
-  for (const g of matrix.gates) lineNodes[g.ref] = lineNode(g.ref, outputs);
-
-  const high = highLines(matrix, stateIndex);
-  const lineOrder: string[] = [];
-  const sourceOrder: string[] = [];
-  for (const l of sourceLines(matrix)) {
-    const node = lineNode(l, outputs);
-    const src = `${node}_v`;
-    lineOrder.push(node);
-    sourceOrder.push(src);
-    elements.push({ kind: "vsource", name: `V${l}`, node: src, volts: high.has(l) ? co.high : co.low });
-    const ohms = high.has(l) ? co.resistance : co.lowResistance;
-    elements.push({ kind: "resistor", name: `R${l}`, role: "counter", a: src, b: node, ohms });
-  }
-
-  for (const d of matrix.diodes) {
-    elements.push({
-      kind: "diode",
-      name: d.ref,
-      anode: lineNode(d.from, outputs),
-      cathode: lineNode(d.to, outputs),
-      isA: model.diode.is,
-      n: model.diode.n,
-      rsOhms: model.diode.rs,
-    });
-  }
-
-  const stage = driverStage(model.driver.kind);
-  const usesSupply = parts.drivers.length > 0 && stage.usesSupply;
-  if (usesSupply) elements.push({ kind: "vsource", name: "VSUP", node: SUPPLY_NODE, volts: model.supply.volts });
-  const usesLogic = tiedCount > 0 || parts.gates.length > 0;
-  if (usesLogic) elements.push({ kind: "vsource", name: "VLOGIC", node: LOGIC_NODE, volts: model.logicSupply.volts });
-  for (const g of parts.gates) {
-    elements.push({
-      kind: "resistor",
-      name: g.pullUp.ref,
-      role: "gate-pull-up",
-      a: LOGIC_NODE,
-      b: lineNode(g.gate, outputs),
-      ohms: g.pullUp.ohms,
-    });
-  }
-  const drivers: DriverStage[] = [];
-  const stageNodes: string[] = [];
-  for (const p of parts.drivers) {
-    const input = `o${p.output}`;
-    if (p.tieOn !== null)
-      elements.push({ kind: "resistor", name: p.tieOn.ref, role: "tie-on", a: LOGIC_NODE, b: input, ohms: p.tieOn.ohms });
-    elements.push({ kind: "resistor", name: p.pullDown.ref, role: "pull-down", a: input, b: GROUND, ohms: p.pullDown.ohms });
-    const built = stage.build({ parts: p, model, input });
-    elements.push(...built.elements);
-    stageNodes.push(...built.ownNodes);
-    drivers.push({ ...p, ...built.nodes, inputNode: input });
-  }
-
-  const nodes = [
-    ...lineOrder,
-    ...matrix.gates.map((g) => lineNode(g.ref, outputs)),
-    ...sourceOrder,
-    ...(usesSupply ? [SUPPLY_NODE] : []),
-    ...(usesLogic ? [LOGIC_NODE] : []),
-    ...stageNodes,
-    ...matrix.buses.map((b) => lineNode(b, outputs)),
-    ...drivers.map((d) => d.inputNode),
-  ];
-  return {
-    guess: startingGuess(matrix, model, stateIndex, drivers, lineNodes),
-    state: matrix.states[stateIndex] as string,
-    stateIndex,
-    temperatureC: model.temperatureC,
-    nodes,
-    elements,
-    drivers,
-    lineNodes,
-  };
+  return stateCircuit(circuitFrame(spec, matrix, model, design), stateIndex);
 }
 
 function startingGuess(

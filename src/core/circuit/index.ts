@@ -1,7 +1,8 @@
 /** Stage "circuit": the netlist of every counter state as data, the device models, and the DC solve. */
-export { buildCircuit, GROUND, LOGIC_NODE, lineNode, SUPPLY_NODE } from "./circuit.ts";
+export { buildCircuit, circuitFrame, GROUND, LOGIC_NODE, lineNode, stateCircuit, SUPPLY_NODE } from "./circuit.ts";
 export type {
   Circuit,
+  CircuitFrame,
   CircuitDiode,
   CircuitElement,
   DriverStage,
@@ -24,5 +25,5 @@ export type { JunctionPoint, NpnParams, NpnPoint } from "./deviceModels.ts";
 export { SparsePattern, SparseSolver } from "./linearSolve.ts";
 export { BOLTZMANN_J_PER_K, ELEMENTARY_CHARGE_C, shockleyVoltage, thermalVoltage, ZERO_CELSIUS_K } from "./physics.ts";
 export { highDrivers, highGates, highLines, isCoded, isGateInput, orPlane, sourceLines } from "./counterLines.ts";
-export { isLit, segmentCurrents, solveAllStates } from "./stateSweep.ts";
-export type { BudgetFailure, StateSolution } from "./stateSweep.ts";
+export { isLit, segmentCurrents, solveAllStates, sweepStates } from "./stateSweep.ts";
+export type { BudgetFailure, StateSolution, SweepOptions } from "./stateSweep.ts";

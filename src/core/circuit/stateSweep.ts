@@ -2,7 +2,7 @@
  * Solves the circuit of every counter state of a matrix: the unit of work
  * the budget, the trim and the tolerance corners repeat.
  */
-import { buildCircuit, type Circuit } from "./circuit.ts";
+import { circuitFrame, stateCircuit, type Circuit } from "./circuit.ts";
 import { DcWorkspace, DEFAULT_DC_SETTINGS, solveDc, type OperatingPoint } from "./dcSolver.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
@@ -28,8 +28,61 @@ export interface BudgetFailure {
   readonly message: string;
 }
 
+/** Options of a sweep over the states. */
+export interface SweepOptions {
+  /** Values of the current-setting resistors, ohms, keyed by output (the model's own where absent). */
+  readonly design?: ReadonlyMap<string, number>;
+  /** `Date.now()` value after which no further state is started. */
+  readonly deadlineMs?: number;
+  /** Scratch space for the solves, shared by a caller's sweeps one after another. */
+  readonly workspace?: DcWorkspace;
+}
+
 /**
- * Solves every state in order.
+ * Solves every state in order and hands each solution to `visit`, keeping
+ * none: a caller keeps the figures it needs, so a sweep's memory stays that
+ * of one state's circuit. The parts every state shares are built once.
+ *
+ * @param during names the solve in a failure message
+ * @example
+ * let most = 0;
+ * sweepStates(spec, matrix, project.electrical, "nominal", (s) => (most = Math.max(most, s.op.iterations)));
+ */
+export function sweepStates(
+  spec: DecodeSpec,
+  matrix: DiodeMatrix,
+  model: ElectricalModel,
+  during: string,
+  visit: (s: StateSolution, k: number) => void,
+  options: SweepOptions = {},
+): Result<void, BudgetFailure> {
+  const deadlineMs = options.deadlineMs ?? Infinity;
+  const workspace = options.workspace ?? new DcWorkspace();
+  const frame = circuitFrame(spec, matrix, model, options.design);
+  for (let k = 0; k < matrix.states.length; k++) {
+    if (Date.now() > deadlineMs) {
+      const state = matrix.states[k] as string;
+      return fail({
+        kind: "time-limit",
+        state,
+        during,
+        message:
+          `the budget's time limit ran out during the ${during} solve, at state ${state} of ${matrix.states.length} ` +
+          `(every state's circuit is solved several times); give a longer time limit to work it out`,
+      });
+    }
+    const circuit = stateCircuit(frame, k);
+    const op = solveDc(circuit, circuit.guess, DEFAULT_DC_SETTINGS, workspace);
+    if (!op.ok) return fail({ kind: "no-convergence", state: op.error.state, during, message: `${during}: ${op.error.message}` });
+    visit({ circuit, op: op.value }, k);
+  }
+  return ok(undefined);
+}
+
+/**
+ * Solves every state in order and keeps every circuit and operating point
+ * (for tests and small projects; the budget keeps figures instead, see
+ * `sweepStates`).
  *
  * @param during names the solve in a failure message
  * @param design optional values of the current-setting resistors, ohms, keyed by output
@@ -44,25 +97,8 @@ export function solveAllStates(
   deadlineMs: number = Infinity,
 ): Result<readonly StateSolution[], BudgetFailure> {
   const out: StateSolution[] = [];
-  const workspace = new DcWorkspace();
-  for (let k = 0; k < matrix.states.length; k++) {
-    if (Date.now() > deadlineMs) {
-      const state = matrix.states[k] as string;
-      return fail({
-        kind: "time-limit",
-        state,
-        during,
-        message:
-          `the budget's time limit ran out during the ${during} solve, at state ${state} of ${matrix.states.length} ` +
-          `(every state's circuit is solved several times); give a longer time limit to work it out`,
-      });
-    }
-    const circuit = buildCircuit(spec, matrix, model, k, design);
-    const op = solveDc(circuit, circuit.guess, DEFAULT_DC_SETTINGS, workspace);
-    if (!op.ok) return fail({ kind: "no-convergence", state: op.error.state, during, message: `${during}: ${op.error.message}` });
-    out.push({ circuit, op: op.value });
-  }
-  return ok(out);
+  const r = sweepStates(spec, matrix, model, during, (s) => out.push(s), { design, deadlineMs });
+  return r.ok ? ok(out) : r;
 }
 
 /** Segment current of each driven output in one solved state, amperes. */

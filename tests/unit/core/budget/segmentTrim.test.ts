@@ -8,7 +8,7 @@ import {
   windowDistancePct,
 } from "../../../../src/core/budget/segmentTrim.ts";
 import { preferredNeighbours } from "../../../../src/core/budget/eSeries.ts";
-import { solveAllStates } from "../../../../src/core/circuit/stateSweep.ts";
+import { readSweep } from "../../../../src/core/budget/sweepReading.ts";
 import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
 
 describe("the trim", () => {
@@ -48,7 +48,7 @@ describe("the trim", () => {
   it("picks one of the two preferred values around the ideal, the one centred nearer the target", () => {
     const d = sharedDieRoller();
     const e = d.project.electrical;
-    const nominal = solveAllStates(d.spec, d.matrix, e, "nominal");
+    const nominal = readSweep(d.spec, d.matrix, e, "nominal");
     if (!nominal.ok) throw new Error(nominal.error.message);
     const t = trimSegments({ spec: d.spec, matrix: d.matrix, model: e, nominal: nominal.value, series: "E24" });
     if (!t.ok) throw new Error(t.error.message);
@@ -57,20 +57,20 @@ describe("the trim", () => {
       // Either neighbour, tried alone on this output, would not be centred better.
       const [lo, hi] = preferredNeighbours(x.idealOhms, "E24");
       const other = x.ohms === lo ? hi : lo;
-      const alt = solveAllStates(d.spec, d.matrix, e, "check", new Map([...t.value.ohms, [o, other]]));
+      const alt = readSweep(d.spec, d.matrix, e, "check", { design: new Map([...t.value.ohms, [o, other]]) });
       if (!alt.ok) throw new Error(alt.error.message);
       const r = currentRanges(d.spec, alt.value).get(o);
       const mid = (a: { minA: number; maxA: number }): number => (a.minA + a.maxA) / 2;
       expect(Math.abs(mid(x) - e.segment.targetA)).toBeLessThanOrEqual(Math.abs(mid(r ?? x) - e.segment.targetA) + 1e-9);
     }
-    expect(t.value.solutions).toHaveLength(d.spec.states.length);
+    expect(t.value.solutions.states).toHaveLength(d.spec.states.length);
   });
 
   it("trims the series resistor of a switch, a follower and direct drive the same way", () => {
     for (const preset of ["bench-5v-switch", "cathode-5v-follower", "line-direct"]) {
       const d = sharedDieRoller({ preset });
       const e = d.project.electrical;
-      const nominal = solveAllStates(d.spec, d.matrix, e, "nominal");
+      const nominal = readSweep(d.spec, d.matrix, e, "nominal");
       if (!nominal.ok) throw new Error(nominal.error.message);
       const t = trimSegments({ spec: d.spec, matrix: d.matrix, model: e, nominal: nominal.value, series: "E96" });
       if (!t.ok) throw new Error(t.error.message);
@@ -85,7 +85,7 @@ describe("the trim", () => {
     // 19 LEDs behind a follower on a 5 V line stay dark whatever the series resistor: nothing to centre.
     const d = sharedDieRoller({ preset: "cathode-5v-follower" });
     const dark = { ...d.project.electrical, segment: { ...d.project.electrical.segment, leds: 19 } };
-    const nominal = solveAllStates(d.spec, d.matrix, dark, "nominal");
+    const nominal = readSweep(d.spec, d.matrix, dark, "nominal");
     if (!nominal.ok) throw new Error(nominal.error.message);
     const t = trimSegments({ spec: d.spec, matrix: d.matrix, model: dark, nominal: nominal.value, series: "E24" });
     if (!t.ok) throw new Error(t.error.message);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { buildCircuit, lineNode } from "../../../../src/core/circuit/circuit.ts";
+import { buildCircuit, circuitFrame, lineNode, stateCircuit } from "../../../../src/core/circuit/circuit.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
 import { designators } from "../../../../src/core/matrix/designators.ts";
 import { countParts } from "../../../../src/core/papers/parts.ts";
@@ -7,6 +7,23 @@ import { directDesign, sharedDieRoller } from "../../../support/budgetFixtures.t
 import { showing, showingWith } from "../../../support/projects.ts";
 
 describe("buildCircuit", () => {
+  it("builds the parts every state shares once: a frame's states differ only in the counter lines' sources", () => {
+    const d = sharedDieRoller();
+    const e = d.project.electrical;
+    const frame = circuitFrame(d.spec, d.matrix, e);
+    const lines = d.matrix.states.length;
+    const circuits = d.matrix.states.map((_, k) => stateCircuit(frame, k));
+    circuits.forEach((c, k) => {
+      expect(c).toEqual(buildCircuit(d.spec, d.matrix, e, k));
+      // Two elements per counter line (its source and its resistor), then the shared parts, the same objects.
+      expect(c.elements.slice(0, 2 * lines).map((x) => x.name)).toEqual(d.matrix.states.flatMap((s) => [`V${s}`, `R${s}`]));
+      c.elements.slice(2 * lines).forEach((x, i) => expect(x).toBe(circuits[0]?.elements[2 * lines + i]));
+      expect(c.drivers).toBe(frame.drivers);
+      expect(c.nodes).toBe(frame.nodes);
+    });
+    expect(() => stateCircuit(frame, lines)).toThrow(RangeError);
+  });
+
   it("drives the active counter line high and the others low, each behind its source resistance", () => {
     const d = sharedDieRoller();
     const c = buildCircuit(d.spec, d.matrix, d.project.electrical, 3);
