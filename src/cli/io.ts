@@ -11,8 +11,8 @@ export interface CliIo {
   readFile(path: string): Promise<{ ok: true; bytes: Uint8Array } | { ok: false; message: string }>;
   /** Checks that a folder can take an export, before the work (see outputFolder.ts). */
   checkOutputFolder(dir: string, ours: OwnNames): Promise<FolderOutcome>;
-  /** Writes files as the folder `dir`, all or nothing (see outputFolder.ts). */
-  writeOutputFolder(dir: string, files: readonly OutputFile[], ours: OwnNames): Promise<FolderOutcome>;
+  /** Writes files as the folder `dir`, all or nothing, each as it is made (see outputFolder.ts). */
+  writeOutputFolder(dir: string, files: Iterable<OutputFile>, ours: OwnNames): Promise<FolderOutcome>;
 }
 
 /** Exit codes of the `diodeloom` command. */

@@ -180,10 +180,32 @@ export async function checkOutputFolder(dir: string, ours: OwnNames): Promise<Fo
   return "message" in r ? failed(r.message) : { ok: true };
 }
 
-async function writeAll(root: string, files: readonly OutputFile[]): Promise<void> {
-  const folders = new Set(files.map((f) => f.name.split("/").slice(0, -1).join("/")).filter((d) => d !== ""));
-  for (const d of [...folders].sort()) await mkdir(join(root, ...d.split("/")), { recursive: true });
-  for (const f of files) await writeFile(join(root, ...f.name.split("/")), f.data);
+/** A file's maker failed while the files were written: a bug, passed on as it is (not a write failure). */
+class MakerFailure {
+  constructor(readonly cause: unknown) {}
+}
+
+/** Writes each file as it is made, so that only one is held at a time. */
+async function writeAll(root: string, files: Iterable<OutputFile>): Promise<void> {
+  const made = new Set<string>();
+  const next = files[Symbol.iterator]();
+  for (;;) {
+    let step: IteratorResult<OutputFile>;
+    try {
+      step = next.next();
+    } catch (e) {
+      throw new MakerFailure(e);
+    }
+    if (step.done === true) return;
+    const f = step.value;
+    const parts = f.name.split("/");
+    const folder = parts.slice(0, -1).join("/");
+    if (folder !== "" && !made.has(folder)) {
+      await mkdir(join(root, ...parts.slice(0, -1)), { recursive: true });
+      made.add(folder);
+    }
+    await writeFile(join(root, ...parts), f.data);
+  }
 }
 
 /** Creates the missing folders above `path`, one at a time (a recursive mkdir can spin on /proc). */
@@ -196,12 +218,15 @@ async function makeParents(path: string): Promise<void> {
 /**
  * Writes `files` as the folder `dir`, all or nothing (see the module note).
  * `ours` says which names an earlier export may hold there; they are
- * replaced, and anything else makes the write refuse.
+ * replaced, and anything else makes the write refuse. `files` may be a
+ * generator: each file is written as it comes and then let go, so a big
+ * export never holds all its files at once. An error thrown while a file
+ * is made (a bug) removes the temporary folder and is thrown on.
  *
  * @example
  * await writeOutputFolder("out", [{ name: "bom.csv", data: text }], EXPORT_NAMES);
  */
-export async function writeOutputFolder(dir: string, files: readonly OutputFile[], ours: OwnNames): Promise<FolderOutcome> {
+export async function writeOutputFolder(dir: string, files: Iterable<OutputFile>, ours: OwnNames): Promise<FolderOutcome> {
   const inspected = await inspect(dir, ours);
   if ("message" in inspected) return failed(inspected.message);
   const { path, exists } = inspected.target;
@@ -218,6 +243,7 @@ export async function writeOutputFolder(dir: string, files: readonly OutputFile[
     await swapEntries(path, temp);
     return { ok: true };
   } catch (e) {
+    if (e instanceof MakerFailure) throw e.cause;
     return failed(`could not write the files (${reasonOf(e)}); nothing was changed there`);
   } finally {
     if (temp !== undefined) await rm(temp, { recursive: true, force: true }).catch(() => undefined);

@@ -86,70 +86,84 @@ export function driverSheets(input: Pick<PaperInput, "project" | "spec" | "matri
  * paperFiles(input, "bom"); // [{ name: "bom.csv", mediaType: "text/csv", text: "Quantity,References,..." }]
  */
 export function paperFiles(input: PaperInput, kind: PaperKind): PaperFile[] {
+  return [...filesOfKind(input, kind)];
+}
+
+/** The files of one kind (see `paperFiles`), each made when it is asked for. */
+function* filesOfKind(input: PaperInput, kind: PaperKind): Generator<PaperFile> {
   const { project, spec, matrix, options, drawing, budget } = input;
   switch (kind) {
     case "svg": {
       const single = drawing.sheets.length === 1;
-      return drawing.sheets.map((s) => ({
-        name: single ? "matrix.svg" : `matrix-${s.number}.svg`,
-        mediaType: "image/svg+xml",
-        text: sheetSvgText(s),
-      }));
+      for (const s of drawing.sheets) {
+        yield { name: single ? "matrix.svg" : `matrix-${s.number}.svg`, mediaType: "image/svg+xml", text: sheetSvgText(s) };
+      }
+      return;
     }
     case "driver": {
-      if (!budget) return [];
+      if (!budget) return;
       const sheets = driverSheets(input);
-      return sheets.map((s) => ({
-        name: sheets.length === 1 ? "driver.svg" : `driver-${s.number}.svg`,
-        mediaType: "image/svg+xml",
-        text: sheetSvgText(s),
-      }));
+      for (const s of sheets) {
+        yield { name: sheets.length === 1 ? "driver.svg" : `driver-${s.number}.svg`, mediaType: "image/svg+xml", text: sheetSvgText(s) };
+      }
+      return;
     }
     case "wiring":
-      return [{ name: "wiring.csv", mediaType: "text/csv", text: wiringCsv(wiringRows(matrix, drawing.placements), tieOnsOf(input)) }];
+      yield { name: "wiring.csv", mediaType: "text/csv", text: wiringCsv(wiringRows(matrix, drawing.placements), tieOnsOf(input)) };
+      return;
     case "wiring-page": {
       const rows = wiringRows(matrix, drawing.placements);
-      return [
-        {
-          name: "wiring.html",
-          mediaType: "text/html",
-          text: wiringPageHtml({ project, matrix, rows, tieOns: tieOnsOf(input), options, sheetCount: drawing.sheets.length }),
-        },
-      ];
+      yield {
+        name: "wiring.html",
+        mediaType: "text/html",
+        text: wiringPageHtml({ project, matrix, rows, tieOns: tieOnsOf(input), options, sheetCount: drawing.sheets.length }),
+      };
+      return;
     }
     case "budget":
-      if (!budget) return [];
-      return [
-        {
-          name: "budget.json",
-          mediaType: "application/json",
-          text: budget.ok ? budgetJsonText(budget.value) : JSON.stringify({ error: budget.error }, null, 2) + "\n",
-        },
-      ];
+      if (!budget) return;
+      yield {
+        name: "budget.json",
+        mediaType: "application/json",
+        text: budget.ok ? budgetJsonText(budget.value) : JSON.stringify({ error: budget.error }, null, 2) + "\n",
+      };
+      return;
     case "bom": {
-      if (!budget || electricalRefusal(matrix) !== null) return [];
+      if (!budget || electricalRefusal(matrix) !== null) return;
       const design = paperDesign(input);
       const parts = designators(spec, matrix, project.electrical, design.ohms);
-      return [{ name: "bom.csv", mediaType: "text/csv", text: bomCsv(bomLines(project.electrical, parts, design)) }];
+      yield { name: "bom.csv", mediaType: "text/csv", text: bomCsv(bomLines(project.electrical, parts, design)) };
+      return;
     }
     case "netlists": {
-      if (!budget || electricalRefusal(matrix) !== null) return [];
+      if (!budget || electricalRefusal(matrix) !== null) return;
       const design = paperDesign(input);
-      return spec.states.map((s, k) => ({
-        name: `spice/${s}.cir`,
-        mediaType: "text/plain",
-        text: spiceNetlist(project, spec, matrix, k, design),
-      }));
+      for (const [k, s] of spec.states.entries()) {
+        yield { name: `spice/${s}.cir`, mediaType: "text/plain", text: spiceNetlist(project, spec, matrix, k, design) };
+      }
+      return;
     }
     case "project":
-      return [{ name: "project.json", mediaType: "application/json", text: serializeProject(project) }];
+      yield { name: "project.json", mediaType: "application/json", text: serializeProject(project) };
+      return;
   }
 }
 
 /**
- * Every paper, in the order `export` writes them. A failed budget leaves
+ * Every paper, in the order `export` writes them, each made only when the
+ * one before it has been taken: a caller that writes each file and lets it
+ * go holds one paper at a time, not the whole export (several hundred
+ * decks and sheets for the largest projects). A failed budget leaves
  * budget.json out (the caller reports the failure).
+ *
+ * @example
+ * for (const f of eachPaperFile(input)) await writeFile(join(dir, f.name), f.text);
  */
+export function* eachPaperFile(input: PaperInput): Generator<PaperFile> {
+  for (const k of PAPER_KINDS) if (k !== "budget" || input.budget?.ok === true) yield* filesOfKind(input, k);
+}
+
+/** Every paper at once, in the order `export` writes them (see `eachPaperFile`). */
 export function allPaperFiles(input: PaperInput): PaperFile[] {
-  return PAPER_KINDS.filter((k) => k !== "budget" || input.budget?.ok === true).flatMap((k) => paperFiles(input, k));
+  return [...eachPaperFile(input)];
 }

@@ -1,7 +1,7 @@
 import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import type { CliIo } from "../../src/cli/io.ts";
-import { checkOutputFolder, writeOutputFolder } from "../../src/cli/outputFolder.ts";
+import { checkOutputFolder, writeOutputFolder, type OutputFile } from "../../src/cli/outputFolder.ts";
 
 /** A CliIo that records what a command prints; files come from a map first, then the disk. */
 export interface RecordingIo extends CliIo {
@@ -32,8 +32,17 @@ export function recordingIo(files: Record<string, string> = {}, opts: { writeToD
       return opts.writeToDisk ? checkOutputFolder(dir, ours) : { ok: true };
     },
     async writeOutputFolder(dir, files, ours) {
-      const r = opts.writeToDisk ? await writeOutputFolder(dir, files, ours) : { ok: true as const };
-      if (r.ok) for (const f of files) written.set(join(dir, f.name), f.data);
+      // The files may come one at a time from a generator: record each as it passes.
+      const passed: OutputFile[] = [];
+      const recorded = (function* () {
+        for (const f of files) {
+          passed.push(f);
+          yield f;
+        }
+      })();
+      if (!opts.writeToDisk) Array.from(recorded);
+      const r = opts.writeToDisk ? await writeOutputFolder(dir, recorded, ours) : { ok: true as const };
+      if (r.ok) for (const f of passed) written.set(join(dir, f.name), f.data);
       return r;
     },
   };

@@ -19,13 +19,13 @@ import { dateProblem, drawingOptions, isPaper, titleTextProblem, type DrawingOpt
 import { PAPER_NAMES } from "../../render/drawingModel.ts";
 import { layoutMatrix } from "../../render/layout.ts";
 import { registerNodeWindow } from "../../render/nodeWindow.ts";
-import { allPaperFiles, paperDesign } from "../../render/papers.ts";
+import { eachPaperFile, paperDesign } from "../../render/papers.ts";
 import { quoteText } from "../../core/project/valueText.ts";
 import { shownArg, type ParsedArgs } from "../args.ts";
 import type { Command } from "../command.ts";
 import { budgetDeadline, designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { EXIT, type CliIo } from "../io.ts";
-import type { OwnNames } from "../outputFolder.ts";
+import type { OutputFile, OwnNames } from "../outputFolder.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
 const USAGE = `export FILE --out DIR [--paper a4|a3|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
@@ -86,19 +86,22 @@ export const exportCommand: Command = {
     if (!budget.ok)
       io.err(`budget: ${budget.error.message}; budget.json left out, the BOM and decks keep the project's emitter resistors\n`);
     registerNodeWindow();
-    const files = allPaperFiles({ project, spec, matrix, options, drawing, budget });
+    // Each paper is made as the one before it is written, and let go: the export never holds every sheet and deck at once.
+    const names: string[] = [];
+    const files = function* (): Generator<OutputFile> {
+      for (const f of eachPaperFile({ project, spec, matrix, options, drawing, budget })) {
+        names.push(f.name);
+        yield { name: f.name, data: f.text };
+      }
+    };
 
     // All or nothing: written beside or inside the target first, then moved into place.
-    const wrote = await io.writeOutputFolder(
-      out,
-      files.map((f) => ({ name: f.name, data: f.text })),
-      EXPORT_NAMES,
-    );
+    const wrote = await io.writeOutputFolder(out, files(), EXPORT_NAMES);
     if (!wrote.ok) {
       io.err(`--out ${shownArg(out, 200)}: ${wrote.message}\n`);
       return EXIT.input;
     }
-    io.out(`${project.title}\nWrote ${files.length} files to ${out}:\n${files.map((f) => `  ${f.name}`).join("\n")}\n`);
+    io.out(`${project.title}\nWrote ${names.length} files to ${out}:\n${names.map((n) => `  ${n}`).join("\n")}\n`);
     io.out(`${designNote(paperDesign({ project, matrix, budget }))}\n`);
     if (budget.ok && budget.value.warnings.length > 0)
       io.out(`The budget has ${budget.value.warnings.length} warning(s); see budget.json or run diodeloom budget.\n`);

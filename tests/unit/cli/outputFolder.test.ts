@@ -3,7 +3,7 @@
  * temporary folder: the target is checked first, the files go into a hidden
  * temporary folder and move into place only when all are written.
  */
-import { existsSync } from "node:fs";
+import { existsSync, readdirSync } from "node:fs";
 import { mkdir, mkdtemp, readdir, readFile, rm, stat, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -48,6 +48,42 @@ describe("writeOutputFolder", () => {
     expect(await tree(out)).toEqual(["bom.csv", "matrix.svg", "spice/", "spice/S0.cir", "spice/S1.cir"]);
     expect(await readFile(join(out, "spice", "S1.cir"), "utf8")).toBe("* S1\n.end\n");
     expect(await readdir(join(root, "a", "b"))).toEqual(["export"]);
+  });
+
+  it("writes a generator's files one at a time: each is made only when the one before it is on disk", async () => {
+    const root = await scratch();
+    const out = join(root, "export");
+    /** Every file in the hidden temporary folder beside the target so far. */
+    const onDisk = (): string[] => {
+      const temp = readdirSync(root).find((n) => n.startsWith(".export.diodeloom-"));
+      if (temp === undefined) return [];
+      return readdirSync(join(root, temp), { recursive: true, withFileTypes: true })
+        .filter((d) => d.isFile())
+        .map((d) => join(d.parentPath, d.name).slice(join(root, temp).length + 1))
+        .sort();
+    };
+    const seen: string[][] = [];
+    const made = function* (): Generator<OutputFile> {
+      for (const f of FILES) {
+        seen.push(onDisk());
+        yield f;
+      }
+    };
+    expect(await writeOutputFolder(out, made(), EXPORT_NAMES)).toEqual({ ok: true });
+    expect(seen).toEqual([[], ["matrix.svg"], ["bom.csv", "matrix.svg"], ["bom.csv", "matrix.svg", "spice/S0.cir"]]);
+    expect(await tree(out)).toEqual(["bom.csv", "matrix.svg", "spice/", "spice/S0.cir", "spice/S1.cir"]);
+  });
+
+  it("passes on an error thrown while a file is made (a bug, not a write failure), leaving nothing behind", async () => {
+    const root = await scratch();
+    const out = join(root, "export");
+    const bug = new Error("bug: no sheet 3");
+    const made = function* (): Generator<OutputFile> {
+      yield* FILES.slice(0, 2);
+      throw bug;
+    };
+    await expect(writeOutputFolder(out, made(), EXPORT_NAMES)).rejects.toBe(bug);
+    expect(await readdir(root)).toEqual([]);
   });
 
   it("fills an existing empty folder, keeping the folder itself", async () => {
