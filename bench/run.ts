@@ -1,5 +1,5 @@
 /**
- * `npm run bench`: speed figures of this machine, printed as tables. Not a
+ * `npm run bench`: speed and memory figures of this machine, printed as tables. Not a
  * test: nothing here passes or fails; the targets are printed beside the
  * figures so a reader can compare.
  */
@@ -9,6 +9,7 @@ import { runStartupBench } from "./startupBench.ts";
 import { runSynthBench } from "./synthBench.ts";
 import { runCodedBench } from "./codedBench.ts";
 import { runMilpBench } from "./milpBench.ts";
+import { runMemoryBench } from "./memoryBench.ts";
 
 const log = (line: string): void => void process.stdout.write(line + "\n");
 
@@ -25,3 +26,5 @@ log("");
 await runCodedBench(log);
 log("");
 await runBudgetBench(log);
+log("");
+await runMemoryBench(log);
