@@ -53,6 +53,14 @@ export const HELP = {
     term: "Direct matrix",
     text: "One diode for every lit cell of every state, nothing shared: the starting point the optimizer improves on, and the count it is compared with.",
   },
+  decoders: {
+    term: "Decoders",
+    text: "An instrument (a clock, a timer, a scoreboard) has several counters, each with its own decoder: its own states, display, glyphs and optimizer settings. Click one to open it in the panels. They share one set of electrical values; a value a decoder overrides in the file stays its own, and editing it changes that decoder alone.",
+  },
+  instrumentTotals: {
+    term: "Instrument totals",
+    text: "The parts of every decoder added up, and the supply current and power of the whole instrument: each decoder's worst state, summed. The counters run independently, so all of them can be in their worst state at once, and no other combination draws more.",
+  },
   verified: {
     term: "Verified",
     text: "An independent check walked every path of the matrix from every state and found that exactly the intended segments light and no path is longer than the depth limit. Nothing unverified is shown.",

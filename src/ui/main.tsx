@@ -1,13 +1,13 @@
 /** Entry of the web app: mounts the screen, wires the keyboard, loads the first project. */
 import { render } from "solid-js/web";
-import type { Project } from "../core/project/project.ts";
+import type { Instrument } from "../core/project/instrument.ts";
 import { App } from "./components/App.tsx";
 import { app } from "./state/appState.ts";
 import { DEMO_EXAMPLE, loadExample } from "./state/examples.ts";
 import { historyAction, isTextEntry } from "./state/undoKeys.ts";
 import "./styles.css";
 
-async function demoProject(): Promise<Project> {
+async function demoProject(): Promise<Instrument> {
   const r = await loadExample(import.meta.env.BASE_URL, DEMO_EXAMPLE);
   if (!r.ok) throw new Error(`bug: the demo project is invalid: ${JSON.stringify(r.error)}`);
   return r.value;

@@ -1,4 +1,4 @@
-/** The one screen: toolbar, result line, Project and Glyphs on the left, Drawing, Budget and Comparison on the right. */
+/** The one screen: toolbar, result line, Decoders, Project and Glyphs on the left, Drawing, Budget and Comparison on the right. */
 import { createEffect } from "solid-js";
 import { app } from "../state/appState.ts";
 import { BudgetPanel } from "./BudgetPanel.tsx";
@@ -8,6 +8,7 @@ import { DecoderPanel } from "./DecoderPanel.tsx";
 import { ElectricalPanel } from "./ElectricalPanel.tsx";
 import { DrawingPanel } from "./DrawingPanel.tsx";
 import { GlyphEditor } from "./GlyphEditor.tsx";
+import { InstrumentPanel } from "./InstrumentPanel.tsx";
 import { NoticeBox } from "./NoticeBox.tsx";
 import { PrintView } from "./PrintView.tsx";
 import { ProjectPanel } from "./ProjectPanel.tsx";
@@ -53,6 +54,7 @@ export function App() {
       <CautionBanner />
       <main class="workspace">
         <div class="col-left">
+          <InstrumentPanel />
           <ProjectPanel />
           <ElectricalPanel />
           <DecoderPanel />

@@ -10,6 +10,7 @@ import { PRESET_INFO } from "../../core/project/electricalPresets.ts";
 import { DRIVER_KINDS } from "../../core/project/electricalSchema.ts";
 import type { DriverKind, PresetName } from "../../core/project/project.ts";
 import { app } from "../state/appState.ts";
+import { overriddenPaths } from "../state/instrumentDraft.ts";
 import {
   ELECTRICAL_GROUPS,
   fieldText,
@@ -31,6 +32,8 @@ const fieldId = (path: string) => `e-${path.replace(/\./g, "-")}`;
 
 export function ElectricalPanel() {
   const e = () => app.draft().electrical;
+  const overridden = () => overriddenPaths(app.instrument(), app.selected());
+  const decoderName = () => app.instrument().decoders[app.selected()]?.name ?? "";
   const kind = () => e().driver.kind;
   const presetLabel = () => PRESET_INFO.find((p) => p.name === e().preset)?.label ?? "No preset: every value as given.";
   const invalid = (path: string) =>
@@ -113,6 +116,16 @@ export function ElectricalPanel() {
   return (
     <section class="panel electrical-panel" aria-labelledby="electrical-h" data-testid="electrical-panel">
       <h2 id="electrical-h">Electrical</h2>
+      <Show when={app.instrument().decoders.length > 1}>
+        <p class="muted small shared-note" data-testid="electrical-shared">
+          Shared by all {app.instrument().decoders.length} decoders: an edit here changes every decoder that takes the value.
+          <Show when={overridden().length > 0}>
+            {" "}
+            <strong>{decoderName()}</strong> has its own <span data-testid="electrical-overrides">{overridden().join(", ")}</span> (from the
+            file); edits of those change {decoderName()} alone.
+          </Show>
+        </p>
+      </Show>
       <div class="form-grid">
         <label for="e-preset">Preset</label>
         <select

@@ -10,6 +10,7 @@ import { splitText } from "../../core/project/projectSchema.ts";
 import { problemSentence } from "../state/problemWords.ts";
 import { fillPattern } from "../../core/project/textPatterns.ts";
 import { app } from "../state/appState.ts";
+import { setInstrumentTitle } from "../state/instrumentDraft.ts";
 import { CellFigure } from "./CellFigure.tsx";
 import { HelpTip } from "./HelpTip.tsx";
 import {
@@ -83,13 +84,17 @@ export function ProjectPanel() {
     <section class="panel" aria-labelledby="project-h">
       <h2 id="project-h">Project</h2>
       <div class="form-grid">
-        <label for="f-title">Title</label>
+        <label for="f-title">{app.instrument().decoders.length > 1 ? "Instrument title" : "Title"}</label>
         <input
           id="f-title"
           type="text"
-          value={d().title}
+          value={app.instrument().title}
           maxLength={200}
-          onInput={(e) => app.edit((x) => setTitle(x, e.currentTarget.value), "title")}
+          onInput={(e) => {
+            const title = e.currentTarget.value;
+            if (app.instrument().decoders.length > 1) app.editInstrument((i) => setInstrumentTitle(i, title), "title");
+            else app.edit((x) => setTitle(x, title), "title");
+          }}
           onChange={() => app.sealEdit()}
         />
 

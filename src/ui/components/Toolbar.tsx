@@ -6,7 +6,8 @@
 import { createSignal, For, Show } from "solid-js";
 import { fileSizeProblem } from "../../core/project/limits.ts";
 import { app } from "../state/appState.ts";
-import { draftToJson } from "../state/draft.ts";
+import { instrumentToJson } from "../state/instrumentDraft.ts";
+import type { Instrument } from "../../core/project/instrument.ts";
 import { downloadText, fileStem } from "../files/download.ts";
 import { exportFiles, type ExportKind } from "../files/exportFiles.ts";
 import { encodeShareHash } from "../state/shareLink.ts";
@@ -46,7 +47,7 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
   };
   const save = () => app.downloadProject();
   const share = async () => {
-    const hash = await encodeShareHash(draftToJson(app.draft()));
+    const hash = await encodeShareHash(instrumentToJson(app.instrument()));
     const url = `${location.origin}${location.pathname}${hash}`;
     history.replaceState(null, "", hash);
     try {
@@ -135,7 +136,7 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
                       app.openRecent(i());
                     }}
                   >
-                    {r.title} ({r.project.counter.states} states)
+                    {r.title} ({recentSize(r.project)})
                   </button>
                 )}
               </For>
@@ -206,4 +207,10 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
       <HelpPage ref={(el) => (helpPage = el)} />
     </header>
   );
+}
+
+/** What the Recent menu says of a project's size: its states, or its decoders. */
+function recentSize(p: Instrument): string {
+  const only = p.decoders[0];
+  return p.decoders.length === 1 && only ? `${only.project.counter.states} states` : `${p.decoders.length} decoders`;
 }

@@ -19,12 +19,22 @@ import { compileSpec } from "../../core/spec/decodeSpec.ts";
 import { isPaper, type DrawingOptions } from "../../render/drawingOptions.ts";
 import { readTitleFields, titleOptions, writeTitleFields, type TitleFields } from "./titleBlock.ts";
 import { synthSettings } from "../../core/synth/synthesize.ts";
-import { parseProject, validateProject } from "../../core/project/projectSchema.ts";
-import { parseProjectBytes } from "../../core/project/projectBytes.ts";
+import { validateProject } from "../../core/project/projectSchema.ts";
+import { decodeProjectBytes } from "../../core/project/projectBytes.ts";
+import { parseInstrument, validateInstrument, type Instrument } from "../../core/project/instrument.ts";
 import type { Problem } from "../../core/result/result.ts";
 import { fileProblemLine } from "./problemWords.ts";
 import { projectKey, readAutosave, writeAutosave, type KeyValueStore, type StoreFailure } from "./autosave.ts";
-import { draftFromProject, draftToJson, type Draft } from "./draft.ts";
+import { draftFromProject, type Draft } from "./draft.ts";
+import {
+  instrumentData,
+  instrumentDraftOf,
+  instrumentToJson,
+  plainInstrument,
+  projectInstrumentDraft,
+  putDecoderDraft,
+  type InstrumentDraft,
+} from "./instrumentDraft.ts";
 import { onlyElectricalChanged, sameSynthesisInput } from "./electricalForm.ts";
 import { downloadText, fileStem } from "../files/download.ts";
 import { pageStore, sessionPageStore } from "./pageStore.ts";
@@ -43,6 +53,7 @@ import { rowKey } from "../../core/compare/glyphStyles.ts";
 import type { ExactState } from "./exactStatus.ts";
 import { matrixFigure, shownFigure, type Figure } from "./figures.ts";
 import { KnownResults, type KnownResult } from "./knownResults.ts";
+import { SummaryRunner, type DecoderSummary, type SummaryJob } from "../workers/summaryRun.ts";
 
 export type { ExactState } from "./exactStatus.ts";
 
@@ -54,6 +65,10 @@ export interface Notice {
   readonly action?: { readonly label: string; run(): void };
 }
 
+/** Wait after the last edit of an instrument before its summary is worked out again, milliseconds. */
+const SUMMARY_DELAY_MS = 600;
+/** Time a decoder's summary may take beyond its own time limit, milliseconds. */
+const SUMMARY_GRACE_MS = 30_000;
 /** Wait after the last edit before the exact optimizer starts, milliseconds. */
 const EXACT_DELAY_MS = 500;
 /** Wait after a change of the undo history before it is written for a reload, milliseconds. */
@@ -75,9 +90,17 @@ export interface BudgetView {
 }
 
 function createAppState() {
-  const [history, setHistory] = createSignal<UndoHistory<Draft>>(startHistory(placeholderDraft()));
-  const draft = createMemo(() => history().present);
+  const [history, setHistory] = createSignal<UndoHistory<InstrumentDraft>>(startHistory(placeholderDraft()));
+  /** The whole project: every decoder and the shared electrical section. */
+  const instrument = createMemo(() => history().present);
+  const [selectedSignal, setSelected] = createSignal(0);
+  /** The decoder open in the panels (0-based), within the decoders there are. */
+  const selected = createMemo(() => Math.max(0, Math.min(instrument().decoders.length - 1, selectedSignal())));
+  /** The selected decoder as a single-decoder draft: what every panel shows and edits. */
+  const draft = createMemo(() => (instrument().decoders[selected()] ?? instrument().decoders[0])!.draft);
   const validation = createMemo(() => validateProject(draft()));
+  /** The whole instrument checked by the core (names, every decoder); it is saved only when this validates. */
+  const instrumentValidation = createMemo(() => validateInstrument(instrumentData(instrument())));
   /** Problems of the current draft, empty when it validates. */
   const problems = createMemo<readonly Problem[]>(() => {
     const v = validation();
@@ -134,6 +157,37 @@ function createAppState() {
   const [budget, setBudget] = createSignal<BudgetView | null>(null);
   /** Whether the design takes the emitter-resistor trim (the Budget panel's control); every paper follows it. */
   const [trimMode, setTrimMode] = createSignal<TrimMode>("auto");
+
+  /**
+   * The instrument summary: every decoder's matrix, budget and parts in a
+   * worker of its own, kept by decoder (summaryRun.ts). A plain project has
+   * none: its figures are the result line's and the Budget panel's.
+   */
+  const [summaryVersion, setSummaryVersion] = createSignal(0);
+  const summaryRunner = new SummaryRunner(() => setSummaryVersion((n) => n + 1));
+  const summaryJobs = createMemo<readonly SummaryJob[]>(() => {
+    const trim = trimMode();
+    return instrument().decoders.map((d) => ({
+      // The title is the instrument's and changes no figure.
+      key: JSON.stringify([{ ...d.draft, title: "" }, trim]),
+      request: { project: d.draft, trim },
+      deadlineMs: d.draft.synthesis.timeLimitMs + SUMMARY_GRACE_MS,
+    }));
+  });
+  let summaryTimer: ReturnType<typeof setTimeout> | undefined;
+  createEffect(
+    on(summaryJobs, (jobs) => {
+      clearTimeout(summaryTimer);
+      if (jobs.length < 2) return summaryRunner.want([]);
+      summaryTimer = setTimeout(() => summaryRunner.want(jobs), SUMMARY_DELAY_MS);
+    }),
+  );
+  /** What is known of each decoder, in the list's order; empty for a plain project. */
+  const summary = createMemo<readonly DecoderSummary[]>(() => {
+    summaryVersion();
+    const jobs = summaryJobs();
+    return jobs.length < 2 ? [] : jobs.map((j) => summaryRunner.get(j.key));
+  });
   /** The title-block fields the person filled in (titleBlock.ts). */
   const [titleFields, setTitleFieldsSignal] = createSignal<TitleFields>(readTitleFields(store));
   /** Paper and title block, as every drawing is laid out; compared by value. */
@@ -268,7 +322,7 @@ function createAppState() {
       return Promise.resolve();
     }
     const project = v.value;
-    if (persist) save(project);
+    if (persist) saveInstrument();
     const spec = compileSpec(project);
     const settings = synthSettings(project, { mode: "fast" });
     const startedAt = performance.now();
@@ -347,7 +401,7 @@ function createAppState() {
    * same glyphs, goes on.
    */
   function rebudget(project: Project, d: Draft, shown: LiveResult): void {
-    if (persist) save(project);
+    if (persist) saveInstrument();
     clearTimeout(budgetTimer);
     analysis.cancel("budget");
     const r = withMatrix(project, shown.spec, shown.settings, shown.matrix);
@@ -359,8 +413,14 @@ function createAppState() {
     void relayout(r);
   }
 
+  /** Saves the instrument when every decoder validates (else the last good copy stays). */
+  function saveInstrument(): void {
+    const v = instrumentValidation();
+    if (v.ok) save(v.value);
+  }
+
   /** Saves a valid project; says so at once when the browser refuses, with the project to download. */
-  function save(project: Project): void {
+  function save(project: Instrument): void {
     const w = writeAutosave(store, project);
     if (w.ok) savedKey = projectKey(project);
     if (!w.ok) {
@@ -381,7 +441,7 @@ function createAppState() {
       level: "danger",
       title: SAVE_FAILED_TITLE,
       lines: [`${message}.`, "Your edits stay on screen until you close or reload the page: download the project to keep them."],
-      action: { label: "Download project", run: () => downloadDraft(draft()) },
+      action: { label: "Download project", run: () => downloadDraft(instrument()) },
     };
   }
 
@@ -389,7 +449,7 @@ function createAppState() {
    * Before another project replaces the one on screen (a share link, a file,
    * a recent project): keeps the person's saved project in the recent list.
    */
-  function keepOutgoing(incoming: Project): void {
+  function keepOutgoing(incoming: Instrument): void {
     if (!persist) return;
     const r = keepCurrentProject(store, incoming);
     if (!r.ok) {
@@ -398,7 +458,7 @@ function createAppState() {
         level: "danger",
         title: `"${kept.title}" could not be kept in Recent projects`,
         lines: [`${r.message}.`, "Download it now to keep a copy."],
-        action: { label: "Download it", run: () => downloadDraft(draftFromProject(kept)) },
+        action: { label: "Download it", run: () => downloadDraft(instrumentDraftOf(kept)) },
       });
     }
     setRecent(readRecent(store));
@@ -511,13 +571,34 @@ function createAppState() {
     else if (!show) setExact({ status: exactEnabled() ? "idle" : "off" });
   }
 
-  /** Applies an edit. Edits with the same key in a row make one undo step (typing). */
+  /** Applies an edit of the selected decoder. Edits with the same key in a row make one undo step (typing). */
   function edit(change: (d: Draft) => Draft, key: string | null = null): void {
     const next = change(draft());
     if (next === draft()) return;
+    editInstrument((inst) => putDecoderDraft(inst, selected(), next), key);
+  }
+
+  /**
+   * Applies an edit of the instrument (the decoder list), one undo step, and
+   * opens decoder `select` in the panels when given.
+   */
+  function editInstrument(change: (i: InstrumentDraft) => InstrumentDraft, key: string | null = null, select?: number): void {
+    const next = change(instrument());
+    if (next === instrument() && (select === undefined || select === selected())) return;
     forgetShareHash();
     editStartedAt = performance.now();
-    setHistory((h) => record(h, next, key));
+    batch(() => {
+      if (next !== instrument()) setHistory((h) => record(h, next, key));
+      if (select !== undefined) setSelected(select);
+    });
+    void recompute();
+  }
+
+  /** Opens decoder `index` in the panels (not an edit: nothing to undo). */
+  function selectDecoder(index: number): void {
+    if (index === selected() || !instrument().decoders[index]) return;
+    editStartedAt = performance.now();
+    setSelected(index);
     void recompute();
   }
 
@@ -541,9 +622,9 @@ function createAppState() {
   }
 
   /** Replaces the project (opened file, share link, recent project); undoable, and the outgoing one stays in Recent. */
-  function replaceProject(p: Project): void {
+  function replaceProject(p: Instrument): void {
     keepOutgoing(p);
-    edit(() => draftFromProject(p));
+    editInstrument(() => instrumentDraftOf(p), null, 0);
     sealEdit();
   }
 
@@ -570,7 +651,7 @@ function createAppState() {
    */
   async function openExample(example: ShippedExample | null): Promise<void> {
     if (example === null) {
-      replaceProject(newProject());
+      replaceProject(plainInstrument(newProject()));
       setNotice({ level: "info", title: "Started a new project; the one you had is under Recent", lines: [] });
       return;
     }
@@ -593,7 +674,8 @@ function createAppState() {
    * was and shows the same path-naming messages as the command line.
    */
   function openText(name: string, content: string | Uint8Array): boolean {
-    const r = typeof content === "string" ? parseProject(content) : parseProjectBytes(content);
+    const text = typeof content === "string" ? { ok: true as const, value: content } : decodeProjectBytes(content);
+    const r = text.ok ? parseInstrument(text.value) : text;
     if (!r.ok) {
       setNotice({
         level: "danger",
@@ -612,10 +694,10 @@ function createAppState() {
    * A shared project never takes the place of the person's own: that one is
    * kept in the recent list first.
    */
-  async function boot(hash: string, demo: () => Promise<Project>): Promise<void> {
+  async function boot(hash: string, demo: () => Promise<Instrument>): Promise<void> {
     const shared = isShareHash(hash) ? await decodeShareHash(hash) : null;
     const saved = readAutosave(store);
-    let start: Project | null = null;
+    let start: Instrument | null = null;
     if (shared && !shared.ok) setNotice(shareLinkNotice(shared.error));
     else if (shared) {
       start = shared.value;
@@ -629,7 +711,7 @@ function createAppState() {
     if (!start && saved.found) start = saved.project;
     start ??= await demo();
     editStartedAt = performance.now();
-    setHistory(kept ?? startHistory(draftFromProject(start)));
+    setHistory(kept ?? startHistory(instrumentDraftOf(start)));
     await recompute();
     setReady(true);
   }
@@ -645,6 +727,19 @@ function createAppState() {
 
   return {
     history,
+    /** The whole project: every decoder and the shared electrical section. */
+    instrument,
+    /** The decoder open in the panels, 0-based. */
+    selected,
+    selectDecoder,
+    editInstrument,
+    /** Problems of the whole instrument (a decoder's name, any decoder's fields), empty when it validates. */
+    /** Each decoder's figures for the instrument summary, in the list's order; empty for a plain project. */
+    summary,
+    instrumentProblems: () => {
+      const v = instrumentValidation();
+      return v.ok ? [] : v.error;
+    },
     draft,
     validation,
     problems,
@@ -721,7 +816,7 @@ function createAppState() {
     openRecent,
     openShareLink,
     /** Downloads the project on screen as a file (the Save button). */
-    downloadProject: () => downloadDraft(draft()),
+    downloadProject: () => downloadDraft(instrument()),
     liveError,
     liveMs,
     livePass,
@@ -785,16 +880,16 @@ function shareLinkNotice(problems: readonly Problem[]): Notice {
   };
 }
 
-/** Saves a draft as a project file through the browser's download. */
-function downloadDraft(d: Draft): void {
-  downloadText(`${fileStem(d.title)}.json`, draftToJson(d), "application/json");
+/** Saves the project (every decoder) as a file through the browser's download. */
+function downloadDraft(d: InstrumentDraft): void {
+  downloadText(`${fileStem(d.title)}.json`, instrumentToJson(d), "application/json");
 }
 
 /** A minimal valid draft to hold the place until the first project loads. */
-function placeholderDraft(): Draft {
+function placeholderDraft(): InstrumentDraft {
   const r = validateProject({ schema: "diodeloom/project@2", title: "Loading", counter: { states: 2 }, display: {}, show: ["0", "1"] });
   if (!r.ok) throw new Error("bug: the placeholder project is invalid");
-  return draftFromProject(r.value);
+  return projectInstrumentDraft(r.value);
 }
 
 /** A drawing as laid out, with the paper and title block it was laid out for. */

@@ -13,14 +13,16 @@
  * falls back from `current` to `previous`, so one bad entry never loses the
  * last good copy.
  *
+ * The project may be an instrument of several decoders; a plain project is
+ * written in the single-decoder form, as before instruments, so an autosave
+ * of either kind opens in this version and a plain one in older ones.
+ *
  * Projects replaced by another one from outside (a share link, a file, a
  * recent project) live on in the recent list (recentProjects.ts).
  */
 import { LIMITS } from "../../core/project/limits.ts";
-import { validateProject } from "../../core/project/projectSchema.ts";
-import type { Project } from "../../core/project/project.ts";
-import type { Draft } from "./draft.ts";
-import { draftFromProject } from "./draft.ts";
+import { validateInstrument, type Instrument } from "../../core/project/instrument.ts";
+import { instrumentDraftOf, instrumentToJson, type InstrumentDraft } from "./instrumentDraft.ts";
 
 export const AUTOSAVE_FORMAT = "diodeloom/autosave@1";
 
@@ -55,8 +57,8 @@ interface AutosaveEntry {
 export type AutosaveRead =
   | {
       readonly found: true;
-      readonly project: Project;
-      readonly draft: Draft;
+      readonly project: Instrument;
+      readonly draft: InstrumentDraft;
       readonly slot: "current" | "previous";
       readonly sequence: number;
       readonly notes: readonly string[];
@@ -76,7 +78,7 @@ export type AutosaveWrite =
   | ({ readonly ok: false } & StoreFailure);
 
 type Decoded =
-  { readonly ok: true; readonly entry: AutosaveEntry; readonly project: Project } | { readonly ok: false; readonly why: string };
+  { readonly ok: true; readonly entry: AutosaveEntry; readonly project: Instrument } | { readonly ok: false; readonly why: string };
 
 function decode(text: string | null): Decoded {
   if (text === null) return { ok: false, why: "empty" };
@@ -89,14 +91,14 @@ function decode(text: string | null): Decoded {
   if (typeof data !== "object" || data === null) return { ok: false, why: "not an autosave entry" };
   const e = data as Partial<AutosaveEntry>;
   if (e.format !== AUTOSAVE_FORMAT) return { ok: false, why: `format ${JSON.stringify(e.format)} is not ${AUTOSAVE_FORMAT}` };
-  const p = validateProject(e.project);
+  const p = validateInstrument(e.project);
   if (!p.ok) return { ok: false, why: "the saved project does not validate" };
   return { ok: true, entry: { format: AUTOSAVE_FORMAT, sequence: Number(e.sequence) || 0, project: e.project }, project: p.value };
 }
 
-/** The project as the text autosave compares and stores: equal texts, same project. */
-export function projectKey(project: Project): string {
-  return JSON.stringify(draftFromProject(project));
+/** The project (a plain one or an instrument) as the text autosave compares and stores: equal texts, same project. */
+export function projectKey(project: Instrument): string {
+  return instrumentToJson(instrumentDraftOf(project));
 }
 
 /**
@@ -124,7 +126,7 @@ export function readAutosave(store: KeyValueStore): AutosaveRead {
       continue;
     }
     const d = decode(text);
-    if (d.ok) return { found: true, project: d.project, draft: draftFromProject(d.project), slot, sequence: d.entry.sequence, notes };
+    if (d.ok) return { found: true, project: d.project, draft: instrumentDraftOf(d.project), slot, sequence: d.entry.sequence, notes };
     if (d.why !== "empty") notes.push(`the ${slot} autosave was skipped: ${d.why}`);
   }
   return { found: false, notes };
@@ -139,7 +141,7 @@ export function readAutosave(store: KeyValueStore): AutosaveRead {
  * const w = writeAutosave(localStorage, project);
  * if (!w.ok) showNotice(`not saved: ${w.message}`);
  */
-export function writeAutosave(store: KeyValueStore, project: Project): AutosaveWrite {
+export function writeAutosave(store: KeyValueStore, project: Instrument): AutosaveWrite {
   const notes: string[] = [];
   try {
     const oldText = store.getItem(AUTOSAVE_KEYS.current);

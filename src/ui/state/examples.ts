@@ -4,7 +4,8 @@
  * opened file does (undoable, and the person's own project stays under
  * Recent), so the demo is always one click away.
  */
-import { parseProject, validateProject } from "../../core/project/projectSchema.ts";
+import { validateProject } from "../../core/project/projectSchema.ts";
+import { parseInstrument, type Instrument } from "../../core/project/instrument.ts";
 import type { Project } from "../../core/project/project.ts";
 import type { Problem, Result } from "../../core/result/result.ts";
 
@@ -52,7 +53,7 @@ export function exampleUrl(base: string, example: ShippedExample): string {
 }
 
 /** Fetches and checks a shipped example; a failure says which file and why. */
-export async function loadExample(base: string, example: ShippedExample): Promise<Result<Project, readonly Problem[]>> {
+export async function loadExample(base: string, example: ShippedExample): Promise<Result<Instrument, readonly Problem[]>> {
   let text: string;
   try {
     const response = await fetch(exampleUrl(base, example));
@@ -64,5 +65,5 @@ export async function loadExample(base: string, example: ShippedExample): Promis
       error: [{ path: "", message: `${example.file} could not be fetched: ${e instanceof Error ? e.message : String(e)}` }],
     };
   }
-  return parseProject(text);
+  return parseInstrument(text);
 }

@@ -7,8 +7,7 @@
  * The list is short and bounded in size as well as in count, so it can
  * never take the room the autosave needs.
  */
-import { validateProject } from "../../core/project/projectSchema.ts";
-import type { Project } from "../../core/project/project.ts";
+import { validateInstrument, type Instrument } from "../../core/project/instrument.ts";
 import { projectKey, readAutosave, storeFailure, type KeyValueStore, type StoreFailure } from "./autosave.ts";
 
 export const RECENT_FORMAT = "diodeloom/recent@1";
@@ -20,7 +19,8 @@ export const RECENT_MAX_CHARS = 1024 * 1024;
 
 export interface RecentProject {
   readonly title: string;
-  readonly project: Project;
+  /** A plain project or an instrument of several decoders. */
+  readonly project: Instrument;
 }
 
 /** The stored list, newest first; entries that no longer validate are left out. */
@@ -36,13 +36,13 @@ export function readRecent(store: KeyValueStore): RecentProject[] {
   if (!Array.isArray(entries)) return [];
   const out: RecentProject[] = [];
   for (const e of entries) {
-    const p = validateProject(e);
+    const p = validateInstrument(e);
     if (p.ok) out.push({ title: p.value.title, project: p.value });
   }
   return out;
 }
 
-function writeList(store: KeyValueStore, projects: readonly Project[]): void {
+function writeList(store: KeyValueStore, projects: readonly Instrument[]): void {
   store.setItem(RECENT_KEY, JSON.stringify({ format: RECENT_FORMAT, projects: projects.map((p) => JSON.parse(projectKey(p))) }));
 }
 
@@ -58,8 +58,8 @@ function writeList(store: KeyValueStore, projects: readonly Project[]): void {
  */
 export function rememberProject(
   store: KeyValueStore,
-  project: Project,
-  without: readonly Project[] = [],
+  project: Instrument,
+  without: readonly Instrument[] = [],
 ): { readonly ok: true } | ({ readonly ok: false } & StoreFailure) {
   const key = projectKey(project);
   const drop = new Set([key, ...without.map(projectKey)]);
@@ -89,8 +89,8 @@ export function rememberProject(
  */
 export function keepCurrentProject(
   store: KeyValueStore,
-  incoming: Project,
-): { readonly ok: true; readonly kept: Project | null } | ({ readonly ok: false; readonly kept: Project } & StoreFailure) {
+  incoming: Instrument,
+): { readonly ok: true; readonly kept: Instrument | null } | ({ readonly ok: false; readonly kept: Instrument } & StoreFailure) {
   const saved = readAutosave(store);
   const current = saved.found ? saved.project : null;
   if (!current || projectKey(current) === projectKey(incoming)) return { ok: true, kept: null };

@@ -1,15 +1,15 @@
 /**
  * The share link: the project, deflated ("deflate-raw") and base64url
  * encoded, in the URL hash as `#p=...`. Nothing leaves the browser; the link
- * carries the whole project.
+ * carries the whole project: a plain one in the single-decoder form, as
+ * links made before instruments, or an instrument with all its decoders.
  *
  * A link is capped as a file is: it may unpack to at most 1 MiB, and
  * unpacking stops there, so a small link that would inflate to hundreds of
  * megabytes costs no more than a 1 MiB one.
  */
 import { LIMITS } from "../../core/project/limits.ts";
-import { parseProject } from "../../core/project/projectSchema.ts";
-import type { Project } from "../../core/project/project.ts";
+import { parseInstrument, type Instrument } from "../../core/project/instrument.ts";
 import { fail, type Result } from "../../core/result/result.ts";
 
 const PREFIX = "#p=";
@@ -84,7 +84,7 @@ export function isShareHash(hash: string): boolean {
 const TOO_BIG = "the link holds more than 1 MiB when unpacked; a project needs far less";
 
 /** Reads a project from a share hash, with the same validation and the same 1 MiB limit as a file. */
-export async function decodeShareHash(hash: string): Promise<Result<Project>> {
+export async function decodeShareHash(hash: string): Promise<Result<Instrument>> {
   if (!isShareHash(hash)) return fail([{ path: "", message: "the link carries no project (#p=...)" }]);
   const payload = hash.slice(PREFIX.length);
   if (payload.length > MAX_PAYLOAD_CHARS) return fail([{ path: "", message: TOO_BIG }]);
@@ -98,5 +98,5 @@ export async function decodeShareHash(hash: string): Promise<Result<Project>> {
   } catch {
     return fail([{ path: "", message: "the link is damaged (it does not unpack); copy it again in full" }]);
   }
-  return parseProject(text);
+  return parseInstrument(text);
 }

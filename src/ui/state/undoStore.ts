@@ -15,9 +15,12 @@
  */
 import type { KeyValueStore } from "./autosave.ts";
 import type { Draft } from "./draft.ts";
+import { singleDraft, type InstrumentDraft } from "./instrumentDraft.ts";
 import type { UndoHistory } from "./undoHistory.ts";
 
-export const UNDO_STORE_FORMAT = "diodeloom/undo@1";
+/** Format 2 keeps instrument drafts (instrumentDraft.ts); a format-1 history of plain drafts still comes back. */
+export const UNDO_STORE_FORMAT = "diodeloom/undo@2";
+const UNDO_STORE_FORMAT_V1 = "diodeloom/undo@1";
 export const UNDO_STORE_KEY = "diodeloom.undo";
 /** Most UTF-16 code units the stored history may take. */
 export const UNDO_STORE_MAX_CHARS = 2 * 1024 * 1024;
@@ -27,8 +30,8 @@ export const UNDO_STORE_MAX_CHARS = 2 * 1024 * 1024;
  * `projectKey`). Returns false when the store refused it or the present
  * draft alone is too big; the history on screen is unchanged either way.
  */
-export function writeUndo(store: KeyValueStore, h: UndoHistory<Draft>, savedKey: string): boolean {
-  const text = (d: Draft) => JSON.stringify(d);
+export function writeUndo(store: KeyValueStore, h: UndoHistory<InstrumentDraft>, savedKey: string): boolean {
+  const text = (d: InstrumentDraft) => JSON.stringify(d);
   const present = text(h.present);
   let past = h.past.map(text);
   let future = h.future.map(text);
@@ -55,7 +58,7 @@ export function writeUndo(store: KeyValueStore, h: UndoHistory<Draft>, savedKey:
  * (`savedKey`, its `projectKey`); otherwise null (none, another project's,
  * unreadable or of another format).
  */
-export function readUndo(store: KeyValueStore, savedKey: string): UndoHistory<Draft> | null {
+export function readUndo(store: KeyValueStore, savedKey: string): UndoHistory<InstrumentDraft> | null {
   let data: unknown;
   try {
     data = JSON.parse(store.getItem(UNDO_STORE_KEY) ?? "null");
@@ -64,11 +67,29 @@ export function readUndo(store: KeyValueStore, savedKey: string): UndoHistory<Dr
   }
   if (typeof data !== "object" || data === null) return null;
   const o = data as Record<string, unknown>;
-  if (o.format !== UNDO_STORE_FORMAT || o.savedKey !== savedKey) return null;
+  if ((o.format !== UNDO_STORE_FORMAT && o.format !== UNDO_STORE_FORMAT_V1) || o.savedKey !== savedKey) return null;
   const { past, present, future } = o;
-  if (!Array.isArray(past) || !Array.isArray(future) || !isDraftShape(present)) return null;
-  if (!past.every(isDraftShape) || !future.every(isDraftShape)) return null;
+  if (!Array.isArray(past) || !Array.isArray(future)) return null;
+  if (o.format === UNDO_STORE_FORMAT_V1) {
+    if (!isDraftShape(present) || !past.every(isDraftShape) || !future.every(isDraftShape)) return null;
+    return { past: past.map(singleDraft), present: singleDraft(present), future: future.map(singleDraft), lastKey: null };
+  }
+  if (!isInstrumentDraftShape(present) || !past.every(isInstrumentDraftShape) || !future.every(isInstrumentDraftShape)) return null;
   return { past, present, future, lastKey: null };
+}
+
+/** True when a stored value has the instrument draft's shape: a title, the shared electrical section and decoders of draft shape. */
+export function isInstrumentDraftShape(x: unknown): x is InstrumentDraft {
+  if (!isRecord(x)) return false;
+  const { title, electrical, decoders, single } = x;
+  return (
+    typeof title === "string" &&
+    isRecord(electrical) &&
+    typeof single === "boolean" &&
+    Array.isArray(decoders) &&
+    decoders.length > 0 &&
+    decoders.every((d) => isRecord(d) && typeof d.name === "string" && isDraftShape(d.draft))
+  );
 }
 
 const isRecord = (x: unknown): x is Record<string, unknown> => typeof x === "object" && x !== null && !Array.isArray(x);

@@ -8,6 +8,7 @@ import {
   type KeyValueStore,
 } from "../../../../src/ui/state/autosave.ts";
 import { example, showing } from "../../../support/projects.ts";
+import { plainInstrument } from "../../../../src/ui/state/instrumentDraft.ts";
 import { memoryStore, quotaError } from "../../../support/memoryStore.ts";
 
 /** The project in a slot, as its show list (enough to tell the fixtures apart). */
@@ -19,34 +20,34 @@ function slotShow(store: ReturnType<typeof memoryStore>, slot: keyof typeof AUTO
 describe("autosave", () => {
   it("reads back what it wrote", () => {
     const store = memoryStore();
-    const w = writeAutosave(store, example("relay-hex-monitor"));
+    const w = writeAutosave(store, plainInstrument(example("relay-hex-monitor")));
     expect(w).toEqual({ ok: true, wrote: true, notes: [] });
     const r = readAutosave(store);
     expect(r.found).toBe(true);
     if (r.found) {
       expect(r.slot).toBe("current");
-      expect(r.project).toEqual(example("relay-hex-monitor"));
+      expect(r.project).toEqual(plainInstrument(example("relay-hex-monitor")));
     }
     const entry = JSON.parse(store.data.get(AUTOSAVE_KEYS.current) ?? "");
     expect(entry.format).toBe(AUTOSAVE_FORMAT);
   });
   it("keeps the previous good copy and falls back to it when the newest is corrupt", () => {
     const store = memoryStore();
-    writeAutosave(store, showing(["0", "1"]));
-    writeAutosave(store, showing(["0", "1", "2"]));
+    writeAutosave(store, plainInstrument(showing(["0", "1"])));
+    writeAutosave(store, plainInstrument(showing(["0", "1", "2"])));
     store.data.set(AUTOSAVE_KEYS.current, '{"format":"diodeloom/autosave@1","proj');
     const r = readAutosave(store);
     expect(r.found).toBe(true);
     if (r.found) {
       expect(r.slot).toBe("previous");
-      expect(r.project.show).toEqual(["0", "1"]);
+      expect(r.project.decoders[0]?.project.show).toEqual(["0", "1"]);
       expect(r.notes.join()).toMatch(/current autosave was skipped/);
     }
   });
   it("keeps the last good copy distinct from the current one over any number of reloads", () => {
     const store = memoryStore();
-    writeAutosave(store, showing(["0", "1"]));
-    writeAutosave(store, showing(["0", "1", "2"]));
+    writeAutosave(store, plainInstrument(showing(["0", "1"])));
+    writeAutosave(store, plainInstrument(showing(["0", "1", "2"])));
     // A reload reads the newest copy and saves the same project again, as the page does on start.
     for (let reload = 0; reload < 5; reload++) {
       const r = readAutosave(store);
@@ -56,23 +57,23 @@ describe("autosave", () => {
     expect(slotShow(store, "current")).toEqual(["0", "1", "2"]);
     expect(slotShow(store, "previous")).toEqual(["0", "1"]);
     // The next real change moves the current copy down, as before.
-    writeAutosave(store, showing(["0", "1", "2", "3"]));
+    writeAutosave(store, plainInstrument(showing(["0", "1", "2", "3"])));
     expect(slotShow(store, "previous")).toEqual(["0", "1", "2"]);
   });
   it("never overwrites the last good copy with a corrupt one, and keeps the unreadable entry aside", () => {
     const store = memoryStore();
-    writeAutosave(store, showing(["0", "1"]));
+    writeAutosave(store, plainInstrument(showing(["0", "1"])));
     store.data.set(AUTOSAVE_KEYS.current, "garbage");
-    writeAutosave(store, showing(["7", "8"]));
+    writeAutosave(store, plainInstrument(showing(["7", "8"])));
     expect(store.data.get(AUTOSAVE_KEYS.rescued)).toBe("garbage");
     const r = readAutosave(store);
-    expect(r.found && r.project.show).toEqual(["7", "8"]);
+    expect(r.found && r.project.decoders[0]?.project.show).toEqual(["7", "8"]);
   });
   it("never lets a rescue copy fill the quota: too large to be a project, it is not kept", () => {
     // 3 M code units of junk in `current` on a 5 M quota: a copy would leave no room for the save.
     const store = memoryStore({ capacityChars: 5_000_000 });
     store.data.set(AUTOSAVE_KEYS.current, "x".repeat(3_000_000));
-    const w = writeAutosave(store, showing(["7", "8"]));
+    const w = writeAutosave(store, plainInstrument(showing(["7", "8"])));
     expect(w.ok).toBe(true);
     expect(w.ok && w.notes.join()).toMatch(/too large to be a project/);
     expect(store.data.has(AUTOSAVE_KEYS.rescued)).toBe(false);
@@ -84,7 +85,7 @@ describe("autosave", () => {
     const junk = "y".repeat(RESCUE_MAX_CHARS - 100);
     const store = memoryStore({ capacityChars: 2 * junk.length + 200 });
     store.data.set(AUTOSAVE_KEYS.current, junk);
-    const w = writeAutosave(store, showing(["7", "8"]));
+    const w = writeAutosave(store, plainInstrument(showing(["7", "8"])));
     expect(w.ok).toBe(true);
     expect(slotShow(store, "current")).toEqual(["7", "8"]);
     expect(store.used()).toBeLessThanOrEqual(2 * junk.length + 200);
@@ -102,7 +103,7 @@ describe("autosave", () => {
   });
   it("says whether the store is full or refuses, without throwing", () => {
     const full = memoryStore({ capacityChars: 100 });
-    expect(writeAutosave(full, showing(["0", "1"]))).toEqual({
+    expect(writeAutosave(full, plainInstrument(showing(["0", "1"])))).toEqual({
       ok: false,
       reason: "full",
       message: "the browser's storage for this page is full",
@@ -114,7 +115,7 @@ describe("autosave", () => {
       },
       removeItem: () => {},
     };
-    const r = writeAutosave(refusing, showing(["0", "1"]));
+    const r = writeAutosave(refusing, plainInstrument(showing(["0", "1"])));
     expect(r.ok).toBe(false);
     expect(!r.ok && r.reason).toBe("refused");
     expect(!r.ok && r.message).toMatch(/does not let this page store data/);

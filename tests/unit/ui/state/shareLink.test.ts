@@ -2,6 +2,7 @@ import { deflateRawSync } from "node:zlib";
 import { afterEach, describe, expect, it } from "vitest";
 import { decodeShareHash, encodeShareHash, fromBase64Url, toBase64Url } from "../../../../src/ui/state/shareLink.ts";
 import { draftFromProject, draftToJson } from "../../../../src/ui/state/draft.ts";
+import { addDecoder, instrumentToJson, plainInstrument, projectInstrumentDraft } from "../../../../src/ui/state/instrumentDraft.ts";
 import { example, exampleText } from "../../../support/projects.ts";
 
 describe("share link", () => {
@@ -10,7 +11,18 @@ describe("share link", () => {
     expect(hash.startsWith("#p=")).toBe(true);
     expect(hash).toMatch(/^#p=[A-Za-z0-9_-]+$/);
     const r = await decodeShareHash(hash);
-    expect(r.ok && r.value).toEqual(example("turntable-position"));
+    expect(r.ok && r.value).toEqual(plainInstrument(example("turntable-position")));
+  });
+  it("round-trips an instrument of two decoders, and a plain project's link keeps the form made before instruments", async () => {
+    const plain = projectInstrumentDraft(example("turntable-position"));
+    const two = addDecoder(plain, draftFromProject(example("die-roller")));
+    const r = await decodeShareHash(await encodeShareHash(instrumentToJson(two)));
+    expect(r.ok && r.value.decoders.map((d) => [d.name, d.project.counter.states])).toEqual([
+      ["main", 12],
+      ["decoder 2", 6],
+    ]);
+    expect(r.ok && r.value.single).toBe(false);
+    expect(instrumentToJson(plain)).toBe(draftToJson(draftFromProject(example("turntable-position"))));
   });
   it("compresses: the hash is shorter than the JSON", async () => {
     const json = draftToJson(draftFromProject(example("relay-hex-monitor")));

@@ -1,16 +1,35 @@
 import { describe, expect, it } from "vitest";
-import { validateProject } from "../../../../src/core/project/projectSchema.ts";
+import { validateInstrument } from "../../../../src/core/project/instrument.ts";
 import { projectKey } from "../../../../src/ui/state/autosave.ts";
 import { draftFromProject, type Draft } from "../../../../src/ui/state/draft.ts";
-import { setText, setTitle } from "../../../../src/ui/state/draftEdits.ts";
+import * as edits from "../../../../src/ui/state/draftEdits.ts";
+import {
+  addDecoder,
+  instrumentData,
+  projectInstrumentDraft,
+  putDecoderDraft,
+  singleDraft,
+  type InstrumentDraft,
+} from "../../../../src/ui/state/instrumentDraft.ts";
 import { record, startHistory, undo } from "../../../../src/ui/state/undoHistory.ts";
-import { isDraftShape, readUndo, UNDO_STORE_KEY, UNDO_STORE_MAX_CHARS, writeUndo } from "../../../../src/ui/state/undoStore.ts";
+import {
+  isDraftShape,
+  isInstrumentDraftShape,
+  readUndo,
+  UNDO_STORE_KEY,
+  UNDO_STORE_MAX_CHARS,
+  writeUndo,
+} from "../../../../src/ui/state/undoStore.ts";
 import { newProject } from "../../../../src/ui/state/examples.ts";
 import { memoryStore } from "../../../support/memoryStore.ts";
 
-const base = draftFromProject(newProject());
-const keyOf = (d: Draft) => {
-  const v = validateProject(d);
+const base = projectInstrumentDraft(newProject());
+/** An edit of the first decoder, as the panels make it. */
+const first = (i: InstrumentDraft, change: (d: Draft) => Draft) => putDecoderDraft(i, 0, change(i.decoders[0]!.draft));
+const setTitle = (i: InstrumentDraft, title: string) => first(i, (d) => edits.setTitle(d, title));
+const setText = (i: InstrumentDraft, state: number, text: string) => first(i, (d) => edits.setText(d, state, text));
+const keyOf = (i: InstrumentDraft) => {
+  const v = validateInstrument(instrumentData(i));
   if (!v.ok) throw new Error("bad fixture");
   return projectKey(v.value);
 };
@@ -33,10 +52,10 @@ describe("the undo history over a reload", () => {
   it("keeps a present draft that does not validate, tied to the last project that did", () => {
     const store = memoryStore();
     const bad = setText(base, 0, "000");
-    expect(validateProject(bad).ok).toBe(false);
+    expect(validateInstrument(instrumentData(bad)).ok).toBe(false);
     const h = record(startHistory(base), bad);
     writeUndo(store, h, keyOf(base));
-    expect(readUndo(store, keyOf(base))?.present.show[0]).toBe("000");
+    expect(readUndo(store, keyOf(base))?.present.decoders[0]?.draft.show[0]).toBe("000");
   });
 
   it("gives nothing back when the autosave holds another project (another tab, a newer edit)", () => {
@@ -57,8 +76,26 @@ describe("the undo history over a reload", () => {
       store.setItem(UNDO_STORE_KEY, text);
       expect(readUndo(store, "k")).toBeNull();
     }
-    expect(isDraftShape(base)).toBe(true);
-    expect(isDraftShape({ ...base, show: [1] })).toBe(false);
+    const plain = draftFromProject(newProject());
+    expect(isDraftShape(plain)).toBe(true);
+    expect(isDraftShape({ ...plain, show: [1] })).toBe(false);
+    expect(isInstrumentDraftShape(base)).toBe(true);
+    expect(isInstrumentDraftShape({ ...base, decoders: [] })).toBe(false);
+    expect(isInstrumentDraftShape({ ...base, decoders: [{ name: "a", draft: { ...plain, show: [1] } }] })).toBe(false);
+  });
+
+  it("keeps an instrument's decoders, and gives back a history of plain drafts written before instruments (format 1)", () => {
+    const store = memoryStore();
+    const two = addDecoder(base, draftFromProject(newProject()));
+    const h = record(startHistory(base), two);
+    writeUndo(store, h, keyOf(two));
+    expect(readUndo(store, keyOf(two))?.present.decoders.map((d) => d.name)).toEqual(["main", "decoder 2"]);
+    const plain = draftFromProject(newProject());
+    const old = { ...plain, title: "Kept over the update" };
+    store.setItem(UNDO_STORE_KEY, JSON.stringify({ format: "diodeloom/undo@1", savedKey: "k", past: [plain], present: old, future: [] }));
+    const back = readUndo(store, "k");
+    expect(back?.present).toEqual(singleDraft(old));
+    expect(back?.past).toEqual([singleDraft(plain)]);
   });
 
   it("leaves out the oldest steps to stay within its size, and keeps the newest", () => {
