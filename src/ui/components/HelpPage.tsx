@@ -36,6 +36,11 @@ export function HelpPage(props: { ref: (el: HTMLDialogElement) => void }) {
           <strong>Recent</strong>, and Undo steps back, also after a reload.
         </li>
         <li>
+          A clock or a timer has several counters: <strong>Add decoder</strong> in the Decoders panel adds one, and clicking a decoder opens
+          it in the other panels. They share the Electrical panel's values; the summary adds up every decoder's parts and supply, and Save,
+          the autosave, Undo and Share link take all of them.
+        </li>
+        <li>
           Click a segment in the Glyphs panel to change a character's shape; the Comparison panel tries the usual variants of 6, 7 and 9 and
           adopts the one you pick.
         </li>

@@ -15,6 +15,7 @@ import {
   decoderNameProblem,
   duplicateDecoder,
   moveDecoder,
+  overriddenPaths,
   removeDecoder,
   renameDecoder,
 } from "../state/instrumentDraft.ts";
@@ -102,6 +103,15 @@ export function InstrumentPanel() {
                     {d().draft.counter.states} states · {d().draft.display.positions}{" "}
                     {d().draft.display.positions === 1 ? "digit" : "digits"}
                   </span>
+                  <Show when={overriddenPaths(inst(), k).length > 0}>
+                    <span
+                      class="chip small"
+                      data-testid={`decoder-own-${k}`}
+                      title={`Electrical values of its own: ${overriddenPaths(inst(), k).join(", ")}`}
+                    >
+                      own electrical
+                    </span>
+                  </Show>
                 </button>
                 <span class="decoder-tools" role="group" aria-label={`${d().name}: order and copies`}>
                   <button
