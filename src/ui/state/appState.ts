@@ -20,8 +20,7 @@ import { isPaper, type DrawingOptions } from "../../render/drawingOptions.ts";
 import { readTitleFields, titleOptions, writeTitleFields, type TitleFields } from "./titleBlock.ts";
 import { synthSettings } from "../../core/synth/synthesize.ts";
 import { validateProject } from "../../core/project/projectSchema.ts";
-import { decodeProjectBytes } from "../../core/project/projectBytes.ts";
-import { parseInstrument, validateInstrument, type Instrument } from "../../core/project/instrument.ts";
+import { parseInstrument, parseInstrumentBytes, validateInstrument, type Instrument } from "../../core/project/instrument.ts";
 import type { Problem } from "../../core/result/result.ts";
 import { fileProblemLine } from "./problemWords.ts";
 import { projectKey, readAutosave, writeAutosave, type KeyValueStore, type StoreFailure } from "./autosave.ts";
@@ -674,8 +673,7 @@ function createAppState() {
    * was and shows the same path-naming messages as the command line.
    */
   function openText(name: string, content: string | Uint8Array): boolean {
-    const text = typeof content === "string" ? { ok: true as const, value: content } : decodeProjectBytes(content);
-    const r = text.ok ? parseInstrument(text.value) : text;
+    const r = typeof content === "string" ? parseInstrument(content) : parseInstrumentBytes(content);
     if (!r.ok) {
       setNotice({
         level: "danger",
