@@ -22,7 +22,7 @@
  */
 import { LIMITS } from "../../core/project/limits.ts";
 import { validateInstrument, type Instrument } from "../../core/project/instrument.ts";
-import { instrumentDraftOf, instrumentToJson, type InstrumentDraft } from "./instrumentDraft.ts";
+import { instrumentData, instrumentDraftOf, type InstrumentDraft } from "./instrumentDraft.ts";
 
 export const AUTOSAVE_FORMAT = "diodeloom/autosave@1";
 
@@ -96,9 +96,13 @@ function decode(text: string | null): Decoded {
   return { ok: true, entry: { format: AUTOSAVE_FORMAT, sequence: Number(e.sequence) || 0, project: e.project }, project: p.value };
 }
 
-/** The project (a plain one or an instrument) as the text autosave compares and stores: equal texts, same project. */
+/**
+ * The project (a plain one or an instrument) as the text autosave compares
+ * and stores: equal texts, same project. A plain project's is its draft's,
+ * as before instruments, so an undo history tied to it still comes back.
+ */
 export function projectKey(project: Instrument): string {
-  return instrumentToJson(instrumentDraftOf(project));
+  return JSON.stringify(instrumentData(instrumentDraftOf(project)));
 }
 
 /**
