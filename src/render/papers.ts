@@ -15,7 +15,7 @@ import { projectDesign, type SegmentDesign } from "../core/budget/segmentDesign.
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import { designators } from "../core/matrix/designators.ts";
 import { electricalRefusal, type VerifiedMatrix } from "../core/matrix/matrix.ts";
-import { spiceNetlist } from "../core/papers/netlist.ts";
+import { spiceNetlists } from "../core/papers/netlist.ts";
 import { tieOnRows, wiringCsv, wiringRows, type TieOnRow } from "../core/papers/wiringList.ts";
 import type { Project } from "../core/project/project.ts";
 import { serializeProject } from "../core/project/projectWriter.ts";
@@ -138,8 +138,9 @@ function* filesOfKind(input: PaperInput, kind: PaperKind): Generator<PaperFile> 
     case "netlists": {
       if (!budget || electricalRefusal(matrix) !== null) return;
       const design = paperDesign(input);
-      for (const [k, s] of spec.states.entries()) {
-        yield { name: `spice/${s}.cir`, mediaType: "text/plain", text: spiceNetlist(project, spec, matrix, k, design) };
+      let k = 0;
+      for (const text of spiceNetlists(project, spec, matrix, design)) {
+        yield { name: `spice/${spec.states[k++] as string}.cir`, mediaType: "text/plain", text };
       }
       return;
     }

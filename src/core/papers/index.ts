@@ -3,5 +3,5 @@ export { countParts, refRanges } from "./parts.ts";
 export type { PartGroup, PartKind } from "./parts.ts";
 export { INSPECTION_CHECKLIST, LOGIC_SUPPLY_NET, TIE_ON_HEADING, WIRING_HEADER, tieOnRows, wiringCsv, wiringRows } from "./wiringList.ts";
 export type { DrawingPosition, TieOnRow, WiringRow } from "./wiringList.ts";
-export { circuitNetlist, spiceNetlist, segmentLedNode } from "./netlist.ts";
+export { circuitNetlist, spiceNetlist, spiceNetlists, segmentLedNode } from "./netlist.ts";
 export { csvField, csvText } from "./csv.ts";

@@ -4,7 +4,7 @@
  * unchanged, for every driver kind. Each segment is written out LED by LED,
  * each LED's series resistance in its model card.
  */
-import { buildCircuit, type Circuit } from "../circuit/circuit.ts";
+import { buildCircuit, circuitFrame, stateCircuit, type Circuit } from "../circuit/circuit.ts";
 import { highLines } from "../circuit/counterLines.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
@@ -102,9 +102,26 @@ export function spiceNetlist(
   stateIndex: number,
   design: SegmentDesign,
 ): string {
-  const circuit = buildCircuit(spec, matrix, project.electrical, stateIndex, design.ohms);
-  const code = matrix.codes[stateIndex];
+  return stateNetlist(project, matrix, buildCircuit(spec, matrix, project.electrical, stateIndex, design.ohms), design);
+}
+
+/**
+ * The SPICE netlist of every state in turn (as `spiceNetlist` writes each),
+ * the parts every state shares built once; each deck is made when it is
+ * asked for.
+ *
+ * @example
+ * for (const deck of spiceNetlists(project, spec, matrix, design)) write(deck);
+ */
+export function* spiceNetlists(project: Project, spec: DecodeSpec, matrix: VerifiedMatrix, design: SegmentDesign): Generator<string> {
+  const frame = circuitFrame(spec, matrix, project.electrical, design.ohms);
+  for (let k = 0; k < matrix.states.length; k++) yield stateNetlist(project, matrix, stateCircuit(frame, k), design);
+}
+
+function stateNetlist(project: Project, matrix: VerifiedMatrix, circuit: Circuit, design: SegmentDesign): string {
+  const k = circuit.stateIndex;
+  const code = matrix.codes[k];
   const codeNote =
-    code === undefined ? [] : [`Code ${code} (highest stage leftmost): high stage lines ${[...highLines(matrix, stateIndex)].join(", ")}.`];
+    code === undefined ? [] : [`Code ${code} (highest stage leftmost): high stage lines ${[...highLines(matrix, k)].join(", ")}.`];
   return circuitNetlist(circuit, project.title, [...codeNote, designNote(design)]);
 }

@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { circuitNetlist, segmentLedNode, spiceNetlist } from "../../../../src/core/papers/netlist.ts";
+import { circuitNetlist, segmentLedNode, spiceNetlist, spiceNetlists } from "../../../../src/core/papers/netlist.ts";
+import { codedDecoder } from "../../../support/codedProjects.ts";
+import { makeProject2 } from "../../../support/projects.ts";
 import { buildCircuit } from "../../../../src/core/circuit/circuit.ts";
 import { projectDesign, type SegmentDesign } from "../../../../src/core/budget/segmentDesign.ts";
 import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
@@ -9,6 +11,19 @@ describe("spiceNetlist", () => {
   const own = projectDesign(d.project.electrical, d.matrix, { mode: "off", series: "E24" });
   const deck = spiceNetlist(d.project, d.spec, d.matrix, 2, own);
   const lines = deck.trimEnd().split("\n");
+
+  it("writes every state's deck in turn from one frame exactly as it writes each alone, with a coded counter's code note", () => {
+    const trimmed: SegmentDesign = { ...own, trimmed: true, ohms: new Map([...own.ohms].map(([o, r]) => [o, r * 1.5])) };
+    expect([...spiceNetlists(d.project, d.spec, d.matrix, trimmed)]).toEqual(
+      d.matrix.states.map((_, k) => spiceNetlist(d.project, d.spec, d.matrix, k, trimmed)),
+    );
+    const c = codedDecoder(makeProject2({ counter: { states: 10, code: "binary" }, display: {}, show: [..."0123456789"] }));
+    const m = { ...c.matrix, verified: true as const };
+    const design = projectDesign(c.project.electrical, m);
+    const decks = [...spiceNetlists(c.project, c.spec, m, design)];
+    expect(decks).toEqual(m.states.map((_, k) => spiceNetlist(c.project, c.spec, m, k, design)));
+    expect(decks[3]).toMatch(/^\* Code \S+ \(highest stage leftmost\): high stage lines /m);
+  });
 
   it("is a standard deck: title comment, .model cards, elements, .op, .end", () => {
     expect(lines[0]).toMatch(/^\* Die roller.*state S2 active$/);
