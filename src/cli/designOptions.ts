@@ -68,10 +68,11 @@ export async function loadForDesign(
   io: CliIo,
   usage: string,
   check?: (project: Project) => string | undefined,
+  what?: string,
 ): Promise<(Synthesized & { readonly design: DesignArgs }) | number> {
   const design = designArgs(args, io);
   if (!design) return EXIT.input;
-  const done = await loadAndSynthesize(args, io, usage, check);
+  const done = await loadAndSynthesize(args, io, usage, check, what);
   return typeof done === "number" ? done : { ...done, design };
 }
 

@@ -19,7 +19,8 @@ import { synthesize, synthSettings, type SynthFailure, type SynthSettings } from
 import { synthesizeCoded, type CodedSynthesis } from "../core/logic/synthesizeCoded.ts";
 import type { OptionSpec, ParsedArgs } from "./args.ts";
 import { EXIT, type CliIo } from "./io.ts";
-import { loadProject } from "./loadProject.ts";
+import { loadDecoder } from "./loadProject.ts";
+import { withRefPrefix } from "../core/matrix/designators.ts";
 
 export const SYNTH_USAGE =
   "[--direct | --fast] [--depth-limit K] [--policy NAME] [--decode NAME] [--dark-input NAME] [--time-limit MS] [--seed N]";
@@ -120,15 +121,17 @@ export async function loadAndSynthesize(
   io: CliIo,
   usage: string,
   check?: (project: Project) => string | undefined,
+  what?: string,
 ): Promise<Synthesized | number> {
-  const project = await loadProject(args, io, usage);
-  if (!project) return EXIT.input;
+  const loaded = await loadDecoder(args, io, usage, what);
+  if (!loaded) return EXIT.input;
+  const { project, refPrefix } = loaded;
   const problem = check?.(project);
   if (problem !== undefined) {
     io.err(problem + "\n");
     return EXIT.input;
   }
-  const done = await synthesizeProject(project, args, io);
+  const done = await synthesizeProject(project, args, io, refPrefix);
   if (typeof done === "number") return done;
   const refusal = electricalRefusal(done.matrix);
   if (refusal !== null) {
@@ -141,8 +144,10 @@ export async function loadAndSynthesize(
 /**
  * The second half of `loadAndSynthesize`, for a project already read and
  * checked: apply the synthesis options, synthesize and verify.
+ *
+ * @param refPrefix the decoder's designator prefix in an instrument of several ("" for none; designators.ts)
  */
-export async function synthesizeProject(project: Project, args: ParsedArgs, io: CliIo): Promise<Synthesized | number> {
+export async function synthesizeProject(project: Project, args: ParsedArgs, io: CliIo, refPrefix = ""): Promise<Synthesized | number> {
   const settings = settingsFromArgs(project, args, io);
   if (!settings) return EXIT.input;
   const effective = withPolarity(project, settings, io);
@@ -150,7 +155,7 @@ export async function synthesizeProject(project: Project, args: ParsedArgs, io: 
   const spec = compileSpec(effective);
   const result = await synthesize(spec, settings);
   if (!result.ok) return reportFailure(result.error, io);
-  return { project: effective, spec, matrix: result.value, timeLimitMs: settings.timeLimitMs };
+  return { project: effective, spec, matrix: withRefPrefix(result.value, refPrefix), timeLimitMs: settings.timeLimitMs };
 }
 
 /**
@@ -182,13 +187,19 @@ export interface CodedSynthesized {
 /**
  * Synthesizes a coded counter's project (already read and validated) with
  * the synthesis options: its two-level decoder, the two-rank one, and the
- * chosen one. On any problem it prints the message and returns the exit code.
+ * chosen one (its designators with `refPrefix` in front). On any problem it
+ * prints the message and returns the exit code.
  */
-export async function synthesizeCodedProject(project: Project, args: ParsedArgs, io: CliIo): Promise<CodedSynthesized | number> {
+export async function synthesizeCodedProject(
+  project: Project,
+  args: ParsedArgs,
+  io: CliIo,
+  refPrefix = "",
+): Promise<CodedSynthesized | number> {
   const settings = settingsFromArgs(project, args, io);
   if (!settings) return EXIT.input;
   const spec = compileSpec(project);
   const result = await synthesizeCoded(spec, settings, { oneHot: synthesize });
   if (!result.ok) return reportFailure(result.error, io);
-  return { project, spec, coded: result.value };
+  return { project, spec, coded: { ...result.value, matrix: withRefPrefix(result.value.matrix, refPrefix) } };
 }

@@ -9,16 +9,18 @@ import { warningText } from "../../render/budgetWarningText.ts";
 import { formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
 import { budgetDeadline, DESIGN_OPTIONS, DESIGN_USAGE, loadForDesign } from "../designOptions.ts";
+import { DECODER_OPTION, DECODER_USAGE } from "../loadProject.ts";
 import { EXIT } from "../io.ts";
 import { SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `budget FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+const USAGE = `budget FILE [--json] ${DECODER_USAGE} ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
 export const budgetCommand: Command = {
   name: "budget",
   usage: USAGE,
   options: {
     json: { help: "print the budget as diodeloom/budget@3 JSON (SI units)" },
+    ...DECODER_OPTION,
     ...SYNTH_OPTIONS,
     ...DESIGN_OPTIONS,
   },

@@ -1,7 +1,7 @@
 import { compareGlyphStyles, COMPARE_SCHEMA, type GlyphStyleRow } from "../../core/compare/glyphStyles.ts";
 import type { Command } from "../command.ts";
 import { EXIT } from "../io.ts";
-import { loadProject } from "../loadProject.ts";
+import { DECODER_OPTION, DECODER_USAGE, loadProject } from "../loadProject.ts";
 import { reportFailure, settingsFromArgs } from "../synthOptions.ts";
 import { decoderRows, type DecoderRow } from "../../core/compare/decoderRows.ts";
 import { comparePolarities, type PolarityRow } from "../../core/compare/polarityRows.ts";
@@ -9,19 +9,20 @@ import { synthesizeCoded } from "../../core/logic/synthesizeCoded.ts";
 import { compileSpec } from "../../core/spec/decodeSpec.ts";
 import { synthesize } from "../../core/synth/synthesize.ts";
 
-const USAGE = "compare FILE [--json] [--fast] [--polarity] [--time-limit MS]";
+const USAGE = `compare FILE [--json] ${DECODER_USAGE} [--fast] [--polarity] [--time-limit MS]`;
 
 export const compareCommand: Command = {
   name: "compare",
   usage: USAGE,
   options: {
     json: { help: "print diodeloom/compare@1 JSON" },
+    ...DECODER_OPTION,
     fast: { help: "the heuristic only (no exact optimizer, no bounds)" },
     polarity: { help: "also decode every glyph style lit, dark and either, on complementary counter lines (one-hot counters)" },
     "time-limit": { value: true, meta: "MS", help: "time limit for all combinations together, milliseconds" },
   },
   async run(args, io) {
-    const project = await loadProject(args, io, USAGE);
+    const project = await loadProject(args, io, USAGE, "compares the glyph styles of one decoder");
     if (!project) return EXIT.input;
     const settings = settingsFromArgs(project, args, io);
     if (!settings) return EXIT.input;

@@ -24,11 +24,12 @@ import { quoteText } from "../../core/project/valueText.ts";
 import { shownArg, type ParsedArgs } from "../args.ts";
 import type { Command } from "../command.ts";
 import { budgetDeadline, designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
+import { DECODER_OPTION, DECODER_USAGE } from "../loadProject.ts";
 import { EXIT, type CliIo } from "../io.ts";
 import type { OutputFile, OwnNames } from "../outputFolder.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `export FILE --out DIR [--paper a4|a3|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+const USAGE = `export FILE --out DIR [--paper a4|a3|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${DECODER_USAGE} ${SYNTH_USAGE} ${DESIGN_USAGE}`;
 
 /**
  * The names an export writes. A folder holding only these (an earlier
@@ -53,6 +54,7 @@ export const exportCommand: Command = {
     "drawing-number": { value: true, meta: "TEXT", help: "drawing number (default: DL- and a hash of the project)" },
     revision: { value: true, meta: "TEXT", help: "revision (default A)" },
     "drawn-by": { value: true, meta: "TEXT", help: "creator for the title block (default diodeloom)" },
+    ...DECODER_OPTION,
     ...SYNTH_OPTIONS,
     ...DESIGN_OPTIONS,
   },

@@ -6,53 +6,102 @@ import { countParts, refRanges } from "../../core/papers/parts.ts";
 import type { Project } from "../../core/project/project.ts";
 import { partValue } from "../../render/bom.ts";
 import type { Command } from "../command.ts";
-import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
-import { EXIT } from "../io.ts";
-import { loadProject } from "../loadProject.ts";
+import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE, type DesignArgs } from "../designOptions.ts";
+import { EXIT, type CliIo } from "../io.ts";
+import { DECODER_OPTION, DECODER_USAGE, loadInstrument } from "../loadProject.ts";
+import type { ParsedArgs } from "../args.ts";
+import { quoteText } from "../../core/project/valueText.ts";
 import { SYNTH_OPTIONS, SYNTH_USAGE, synthesizeCodedProject, synthesizeProject } from "../synthOptions.ts";
 import { describeDecoder } from "../decoderReport.ts";
 import { ghostCheck } from "../../core/budget/ghostCheck.ts";
 import { microamps, milliamps } from "../../render/units.ts";
 
-const USAGE = `synth FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+const USAGE = `synth FILE [--json] ${DECODER_USAGE} ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+
+/** The schema of `synth --json` for an instrument of several decoders: one matrix per decoder, keyed by name. */
+export const INSTRUMENT_MATRICES_SCHEMA = "diodeloom/instrument-matrices@1";
 
 export const synthCommand: Command = {
   name: "synth",
   usage: USAGE,
   options: {
-    json: { help: "print the matrix as diodeloom/matrix@3 JSON" },
+    json: { help: "print the matrix as diodeloom/matrix@3 JSON (an instrument: diodeloom/instrument-matrices@1, one per decoder)" },
+    ...DECODER_OPTION,
     ...SYNTH_OPTIONS,
     ...DESIGN_OPTIONS,
   },
   async run(args, io) {
     const design = designArgs(args, io);
     if (!design) return EXIT.input;
-    const project = await loadProject(args, io, USAGE);
-    if (!project) return EXIT.input;
-    if (project.counter.code !== "one-hot") {
-      const coded = await synthesizeCodedProject(project, args, io);
-      if (typeof coded === "number") return coded;
-      if (args.flags.has("json")) io.out(JSON.stringify(coded.coded.matrix, null, 2) + "\n");
-      else io.out(describeDecoder(coded.project, coded.spec, coded.coded));
+    const loaded = await loadInstrument(args, io, USAGE);
+    if (!loaded) return EXIT.input;
+    const { instrument, refPrefixes } = loaded;
+    const json = args.flags.has("json");
+    const [only] = instrument.decoders;
+    if (instrument.single && only) {
+      const done = await synthDecoder(only.project, refPrefixes[0] ?? "", args, io, json ? null : design);
+      if (typeof done === "number") return done;
+      io.out(json ? JSON.stringify(done.matrix, null, 2) + "\n" : done.report);
       return EXIT.ok;
     }
-    const done = await synthesizeProject(project, args, io);
-    if (typeof done === "number") return done;
-    const { spec, matrix } = done;
-    if (args.flags.has("json")) io.out(JSON.stringify(matrix, null, 2) + "\n");
-    // Dark-decoded outputs are not in the circuit model yet: no design to settle.
-    else
+    // An instrument: each decoder in turn, with its own counter, code, polarity, depth policy and time limit.
+    const matrices: [string, unknown][] = [];
+    const reports: string[] = [];
+    const count = instrument.decoders.length;
+    for (const [i, d] of instrument.decoders.entries()) {
+      const done = await synthDecoder(d.project, refPrefixes[i] ?? "", args, decoderIo(io, d.name), json ? null : design);
+      if (typeof done === "number") return done;
+      matrices.push([d.name, done.matrix]);
+      reports.push(`== Decoder ${i + 1} of ${count}: ${d.name} ==\n${done.report}`);
+    }
+    if (json) {
+      const doc = {
+        schema: INSTRUMENT_MATRICES_SCHEMA,
+        title: instrument.title,
+        order: matrices.map(([n]) => n),
+        decoders: Object.fromEntries(matrices),
+      };
+      io.out(JSON.stringify(doc, null, 2) + "\n");
+    } else {
+      const names = instrument.decoders.map((d) => d.name).join(", ");
       io.out(
-        describeMatrix(
-          done.project,
-          spec,
-          matrix,
-          electricalRefusal(matrix) === null ? designFor(done.project, spec, matrix, design, done.timeLimitMs) : null,
-        ),
+        `${instrument.title}\nAn instrument of ${count} decoders (${names}); designators carry the decoder's number in front (2D1 is decoder 2's D1).\n\n${reports.join("\n")}`,
       );
+    }
     return EXIT.ok;
   },
 };
+
+/** The io of one decoder of an instrument: its messages name the decoder. */
+function decoderIo(io: CliIo, name: string): CliIo {
+  return { ...io, err: (text) => io.err(text.replace(/^(?=.)/gm, `decoder ${quoteText(name)}: `)) };
+}
+
+/**
+ * One decoder synthesized: its matrix (for --json) and its report (none
+ * when `design` is null: --json settles no design), or the exit code of a
+ * failure (already printed).
+ */
+async function synthDecoder(
+  project: Project,
+  refPrefix: string,
+  args: ParsedArgs,
+  io: CliIo,
+  design: DesignArgs | null,
+): Promise<{ readonly matrix: unknown; readonly report: string } | number> {
+  if (project.counter.code !== "one-hot") {
+    const coded = await synthesizeCodedProject(project, args, io, refPrefix);
+    if (typeof coded === "number") return coded;
+    return { matrix: coded.coded.matrix, report: design === null ? "" : describeDecoder(coded.project, coded.spec, coded.coded) };
+  }
+  const done = await synthesizeProject(project, args, io, refPrefix);
+  if (typeof done === "number") return done;
+  const { spec, matrix } = done;
+  if (design === null) return { matrix, report: "" };
+  // Dark-decoded outputs are not in the circuit model yet: no design to settle.
+  const settled = electricalRefusal(matrix) === null ? designFor(done.project, spec, matrix, design, done.timeLimitMs) : null;
+  return { matrix, report: describeMatrix(done.project, spec, matrix, settled) };
+}
 
 /** The ghost check of the dark-decoded outputs, in words. */
 function ghostLines(project: Project, spec: DecodeSpec, m: VerifiedMatrix): string[] {

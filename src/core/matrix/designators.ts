@@ -20,6 +20,12 @@
  * - last, continuing the R numbers, the pull-up of every AND gate of a coded
  *   counter's decoder, in gate order (`G1` first).
  *
+ * An instrument of several decoders numbers each decoder's parts as above
+ * and puts the decoder's number (1-based, in file order) in front of every
+ * designator: `1D1`.., `2R3`, `3DS7`, so that they are unique across the
+ * instrument whatever the number of parts (`withRefPrefix`). A single
+ * decoder, and an instrument of one, has no prefix.
+ *
  * Values: the resistor that sets the current takes the design's value (a
  * trim, when one is applied), else the project's per-output override, else
  * its default; the others come from the electrical model (a gate's pull-up
@@ -97,6 +103,36 @@ export function diodeRef(index: number): string {
   return `D${index + 1}`;
 }
 
+/**
+ * The designator prefix of decoder `index` (0-based) of an instrument of
+ * `count` decoders: its number, 1-based; none when there is one decoder.
+ *
+ * @example
+ * decoderRefPrefix(1, 3); // "2"
+ * decoderRefPrefix(0, 1); // ""
+ */
+export function decoderRefPrefix(index: number, count: number): string {
+  if (!Number.isInteger(index) || index < 0 || index >= count) throw new RangeError(`decoder index ${index} of ${count}`);
+  return count > 1 ? String(index + 1) : "";
+}
+
+/**
+ * The matrix as one decoder of an instrument numbers it: every diode's
+ * designator with the prefix in front (`D12` becomes `2D12`), and the prefix
+ * kept, so that `designators` puts it in front of the transistors',
+ * resistors' and segments' too. The structure is the verified one, unchanged.
+ * An empty prefix gives the matrix itself.
+ *
+ * @example
+ * withRefPrefix(matrix, "2").diodes[0].ref; // "2D1"
+ */
+export function withRefPrefix<M extends DiodeMatrix>(matrix: M, prefix: string): M {
+  if (prefix === "") return matrix;
+  if (!/^\d+$/.test(prefix)) throw new RangeError(`a designator prefix is a decoder number, got ${JSON.stringify(prefix)}`);
+  if (matrix.refPrefix !== undefined) throw new RangeError(`the matrix already has the prefix ${matrix.refPrefix}`);
+  return { ...matrix, refPrefix: prefix, diodes: matrix.diodes.map((d) => ({ ...d, ref: `${prefix}${d.ref}` })) };
+}
+
 /** Which resistor sets the segment current of a kind. */
 export function currentRole(kind: DriverKind): CurrentResistorRole {
   return kind === "current-sink" ? "emitter" : "series";
@@ -136,6 +172,7 @@ export function designators(
 ): Designators {
   const kind = model.driver.kind;
   const role = currentRole(kind);
+  const p = matrix.refPrefix ?? "";
   const tied = new Set(matrix.tiedOn);
   const drivenSet = new Set([...matrix.outputs, ...matrix.tiedOn]);
   const driven = spec.allOutputs.filter((o) => drivenSet.has(o));
@@ -144,7 +181,7 @@ export function designators(
     const out = new Map<string, StageResistor>();
     for (const o of outputs) {
       const ohms = ohmsOf(o);
-      if (ohms !== null) out.set(o, { ref: `R${++r}`, role: as, ohms });
+      if (ohms !== null) out.set(o, { ref: `${p}R${++r}`, role: as, ohms });
     }
     return out;
   };
@@ -167,19 +204,19 @@ export function designators(
   for (const [o, p] of block(tiedOn, () => model.pullDown, "pull-down")) pullDowns.set(o, p);
   const gates = matrix.gates.map((g): GateParts => ({
     gate: g.ref,
-    pullUp: { ref: `R${++r}`, role: "gate-pull-up", ohms: model.gatePullUp },
+    pullUp: { ref: `${p}R${++r}`, role: "gate-pull-up", ohms: model.gatePullUp },
   }));
 
   const drivers = driven.map((o, i): DriverParts => {
     const pullDown = pullDowns.get(o);
     if (pullDown === undefined) throw new Error(`bug: no pull-down designator for ${o}`);
-    const current: StageResistor = { ref: `R${i + 1}`, role, ohms: currentOhmsOf(model, o, currentOhms) };
+    const current: StageResistor = { ref: `${p}R${i + 1}`, role, ohms: currentOhmsOf(model, o, currentOhms) };
     return {
       output: o,
       tiedOn: tied.has(o),
       kind,
-      transistor: kind === "direct" ? null : `Q${i + 1}`,
-      display: `DS${i + 1}`,
+      transistor: kind === "direct" ? null : `${p}Q${i + 1}`,
+      display: `${p}DS${i + 1}`,
       current,
       emitter: role === "emitter" ? current : null,
       series: role === "series" ? current : (collector.get(o) ?? null),
@@ -201,6 +238,7 @@ export function designators(
   return { diodes: matrix.diodes, drivers, gates, resistors };
 }
 
+/** The part number of a designator, after any decoder prefix and the class letters (`2R14` is 14). */
 function refNumber(ref: string): number {
-  return Number(ref.replace(/^[A-Z]+/, ""));
+  return Number(ref.replace(/^\d*[A-Z]+/, ""));
 }

@@ -63,6 +63,12 @@ export interface DiodeMatrix {
   readonly lines: readonly string[];
   /** The AND gates of a coded counter's decoder, `G1`..; empty for a one-hot counter. */
   readonly gates: readonly Gate[];
+  /**
+   * The designator prefix of one decoder of an instrument of several
+   * (`2`: its parts are `2D1`, `2R3`, `2Q1`, `2DS1`; see `withRefPrefix` in
+   * designators.ts); absent for a single decoder.
+   */
+  readonly refPrefix?: string;
   readonly outputs: readonly string[];
   readonly buses: readonly string[];
   readonly diodes: readonly Diode[];

@@ -27,6 +27,17 @@ export function segmentLedNode(end: string, i: number): string {
 }
 
 /**
+ * An element's name as SPICE reads it: the name itself when it starts with
+ * the element's letter, else the letter in front. SPICE takes an element's
+ * kind from the first letter of its name, and a decoder of an instrument
+ * numbers its parts with the decoder's number in front (`2R14`,
+ * designators.ts), so that part is written `R2R14`.
+ */
+export function spiceName(letter: "R" | "D" | "Q", name: string): string {
+  return name.toUpperCase().startsWith(letter) ? name : `${letter}${name}`;
+}
+
+/**
  * Writes a circuit as a SPICE deck.
  *
  * @param title the deck's title line (SPICE ignores the first line)
@@ -56,11 +67,11 @@ export function circuitNetlist(circuit: Circuit, title: string, notes: readonly 
         body.push(`${el.name} ${el.node} 0 DC ${num(el.volts)}`);
         break;
       case "resistor":
-        body.push(`${el.name} ${el.a} ${el.b} ${num(el.ohms)}`);
+        body.push(`${spiceName("R", el.name)} ${el.a} ${el.b} ${num(el.ohms)}`);
         break;
       case "diode": {
         const m = modelOf("DMTX", `D (IS=${num(el.isA)} N=${num(el.n)} RS=${num(el.rsOhms)})`);
-        body.push(`${el.name} ${el.anode} ${el.cathode} ${m}`);
+        body.push(`${spiceName("D", el.name)} ${el.anode} ${el.cathode} ${m}`);
         break;
       }
       case "segment": {
@@ -77,7 +88,7 @@ export function circuitNetlist(circuit: Circuit, title: string, notes: readonly 
       }
       case "npn": {
         const m = modelOf("QDRV", `NPN (IS=${num(el.isA)} BF=${num(el.betaF)} BR=${num(el.betaR)})`);
-        body.push(`${el.name} ${el.collector} ${el.base} ${el.emitter} ${m}`);
+        body.push(`${spiceName("Q", el.name)} ${el.collector} ${el.base} ${el.emitter} ${m}`);
         break;
       }
     }

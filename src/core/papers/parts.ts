@@ -83,11 +83,11 @@ export function refRanges(refs: readonly string[]): string {
   const parts: string[] = [];
   let i = 0;
   while (i < refs.length) {
-    const m = /^([A-Z]+)(\d+)$/.exec(refs[i] as string);
+    const m = /^(\d*[A-Z]+)(\d+)$/.exec(refs[i] as string);
     let j = i;
     if (m) {
       while (j + 1 < refs.length) {
-        const n = /^([A-Z]+)(\d+)$/.exec(refs[j + 1] as string);
+        const n = /^(\d*[A-Z]+)(\d+)$/.exec(refs[j + 1] as string);
         if (!n || n[1] !== m[1] || Number(n[2]) !== Number(m[2]) + (j + 1 - i)) break;
         j++;
       }
