@@ -105,3 +105,8 @@ export function decoderList(decoders: readonly InstrumentDecoder[]): string {
 export async function loadProject(args: ParsedArgs, io: CliIo, usage: string, what?: string): Promise<Project | undefined> {
   return (await loadDecoder(args, io, usage, what))?.project;
 }
+
+/** The io of one decoder of an instrument: its messages name the decoder. */
+export function decoderIo(io: CliIo, name: string): CliIo {
+  return { ...io, err: (text) => io.err(text.replace(/^(?=.)/gm, `decoder ${quoteText(name)}: `)) };
+}

@@ -131,6 +131,15 @@ export async function loadAndSynthesize(
     io.err(problem + "\n");
     return EXIT.input;
   }
+  return synthesizeForCircuit(project, args, io, refPrefix);
+}
+
+/**
+ * `synthesizeProject`, refusing a matrix the circuit model does not take
+ * yet (dark-decoded outputs): the first half of every command that solves
+ * or prints the circuit.
+ */
+export async function synthesizeForCircuit(project: Project, args: ParsedArgs, io: CliIo, refPrefix = ""): Promise<Synthesized | number> {
   const done = await synthesizeProject(project, args, io, refPrefix);
   if (typeof done === "number") return done;
   const refusal = electricalRefusal(done.matrix);

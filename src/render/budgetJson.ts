@@ -12,10 +12,15 @@ import { warningText } from "./budgetWarningText.ts";
  * JSON.parse(budgetJsonText(budget)).warnings[0]; // { level: "danger", code: "hazardous-voltage", message: "Hazardous voltage: ...", supplyV: 110 }
  */
 export function budgetJsonText(b: Budget): string {
+  return JSON.stringify(budgetJsonValue(b), null, 2) + "\n";
+}
+
+/** The budget JSON as a value (an instrument's budget holds one per decoder). */
+export function budgetJsonValue(b: Budget): Omit<Budget, "warnings"> & { readonly warnings: readonly object[] } {
   // level and code first, then the words, then the figures.
   const warnings = b.warnings.map((w) => {
     const { level, code, ...figures } = w;
     return { level, code, message: warningText(w), ...figures };
   });
-  return JSON.stringify({ ...b, warnings }, null, 2) + "\n";
+  return { ...b, warnings };
 }

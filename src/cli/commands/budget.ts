@@ -8,37 +8,82 @@ import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
 import { formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
-import { budgetDeadline, DESIGN_OPTIONS, DESIGN_USAGE, loadForDesign } from "../designOptions.ts";
-import { DECODER_OPTION, DECODER_USAGE } from "../loadProject.ts";
+import { budgetDeadline, designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
+import { DECODER_OPTION, DECODER_USAGE, decoderIo, loadInstrument } from "../loadProject.ts";
+import { instrumentBudget, type BudgetedDecoder } from "../../core/budget/instrumentBudget.ts";
+import { describeInstrumentTotals, instrumentBudgetJsonText } from "../../render/instrumentBudgetReport.ts";
+import { quoteText } from "../../core/project/valueText.ts";
 import { EXIT } from "../io.ts";
-import { SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { SYNTH_OPTIONS, SYNTH_USAGE, synthesizeForCircuit } from "../synthOptions.ts";
 
-const USAGE = `budget FILE [--json] ${DECODER_USAGE} ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+const USAGE = `budget FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE} ${DECODER_USAGE}`;
 
 export const budgetCommand: Command = {
   name: "budget",
   usage: USAGE,
   options: {
-    json: { help: "print the budget as diodeloom/budget@3 JSON (SI units)" },
+    json: {
+      help: "print the budget as diodeloom/budget@3 JSON (SI units; an instrument: diodeloom/instrument-budget@1, its totals and each decoder's)",
+    },
     ...DECODER_OPTION,
     ...SYNTH_OPTIONS,
     ...DESIGN_OPTIONS,
   },
   async run(args, io) {
-    const done = await loadForDesign(args, io, USAGE);
-    if (typeof done === "number") return done;
-    const { project, spec, matrix, design } = done;
-    const budget = solveBudget(project, spec, matrix, {
-      series: design.series,
-      trim: design.mode,
-      deadlineMs: budgetDeadline(done.timeLimitMs),
-    });
-    if (!budget.ok) {
-      io.err(`${budget.error.message}\n`);
+    const design = designArgs(args, io);
+    if (!design) return EXIT.input;
+    const loaded = await loadInstrument(args, io, USAGE);
+    if (!loaded) return EXIT.input;
+    const { instrument, refPrefixes } = loaded;
+    const json = args.flags.has("json");
+    const budgeted: BudgetedDecoder[] = [];
+    let longestMs = 0;
+    for (const [i, d] of instrument.decoders.entries()) {
+      const dio = instrument.single ? io : decoderIo(io, d.name);
+      const done = await synthesizeForCircuit(d.project, args, dio, refPrefixes[i] ?? "");
+      if (typeof done === "number") return done;
+      longestMs = Math.max(longestMs, done.timeLimitMs);
+      const budget = solveBudget(done.project, done.spec, done.matrix, {
+        series: design.series,
+        trim: design.mode,
+        deadlineMs: budgetDeadline(done.timeLimitMs),
+      });
+      if (!budget.ok) {
+        dio.err(`${budget.error.message}\n`);
+        return EXIT.input;
+      }
+      budgeted.push({ name: d.name, project: done.project, spec: done.spec, matrix: done.matrix, budget: budget.value });
+    }
+    const [only] = budgeted;
+    if (instrument.single && only) {
+      io.out(json ? budgetJsonText(only.budget) : describeBudget(only.project, only.spec, only.matrix, only.budget));
+      return EXIT.ok;
+    }
+    const totals = instrumentBudget(instrument.title, budgeted, budgetDeadline(longestMs));
+    if (!totals.ok) {
+      io.err(`decoder ${quoteText(totals.error.decoder ?? "")}: ${totals.error.message}\n`);
       return EXIT.input;
     }
-    if (args.flags.has("json")) io.out(budgetJsonText(budget.value));
-    else io.out(describeBudget(project, spec, matrix, budget.value));
+    if (json) {
+      io.out(
+        instrumentBudgetJsonText(
+          totals.value,
+          budgeted.map((b) => b.budget),
+        ),
+      );
+      return EXIT.ok;
+    }
+    const count = budgeted.length;
+    io.out(`${instrument.title}\nAn instrument of ${count} decoders; each decoder's budget, then the instrument's totals.\n\n`);
+    for (const [i, b] of budgeted.entries()) {
+      io.out(`== Decoder ${i + 1} of ${count}: ${b.name} ==\n${describeBudget(b.project, b.spec, b.matrix, b.budget)}\n`);
+    }
+    io.out(
+      describeInstrumentTotals(
+        totals.value,
+        budgeted.map((b) => b.project.counter.states),
+      ),
+    );
     return EXIT.ok;
   },
 };

@@ -9,7 +9,7 @@ import { synthesizeCoded } from "../../core/logic/synthesizeCoded.ts";
 import { compileSpec } from "../../core/spec/decodeSpec.ts";
 import { synthesize } from "../../core/synth/synthesize.ts";
 
-const USAGE = `compare FILE [--json] ${DECODER_USAGE} [--fast] [--polarity] [--time-limit MS]`;
+const USAGE = `compare FILE [--json] [--fast] [--polarity] [--time-limit MS] ${DECODER_USAGE}`;
 
 export const compareCommand: Command = {
   name: "compare",

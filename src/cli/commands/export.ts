@@ -29,7 +29,7 @@ import { EXIT, type CliIo } from "../io.ts";
 import type { OutputFile, OwnNames } from "../outputFolder.ts";
 import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `export FILE --out DIR [--paper a4|a3|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${DECODER_USAGE} ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+const USAGE = `export FILE --out DIR [--paper a4|a3|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE} ${DESIGN_USAGE} ${DECODER_USAGE}`;
 
 /**
  * The names an export writes. A folder holding only these (an earlier

@@ -6,7 +6,7 @@ import { EXIT } from "../io.ts";
 import { quoteText } from "../../core/project/valueText.ts";
 import { SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
 
-const USAGE = `netlist FILE --state K ${DECODER_USAGE} ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+const USAGE = `netlist FILE --state K ${SYNTH_USAGE} ${DESIGN_USAGE} ${DECODER_USAGE}`;
 
 export const netlistCommand: Command = {
   name: "netlist",

@@ -8,15 +8,15 @@ import { partValue } from "../../render/bom.ts";
 import type { Command } from "../command.ts";
 import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE, type DesignArgs } from "../designOptions.ts";
 import { EXIT, type CliIo } from "../io.ts";
-import { DECODER_OPTION, DECODER_USAGE, loadInstrument } from "../loadProject.ts";
+import { DECODER_OPTION, DECODER_USAGE, decoderIo, loadInstrument } from "../loadProject.ts";
 import type { ParsedArgs } from "../args.ts";
-import { quoteText } from "../../core/project/valueText.ts";
+
 import { SYNTH_OPTIONS, SYNTH_USAGE, synthesizeCodedProject, synthesizeProject } from "../synthOptions.ts";
 import { describeDecoder } from "../decoderReport.ts";
 import { ghostCheck } from "../../core/budget/ghostCheck.ts";
 import { microamps, milliamps } from "../../render/units.ts";
 
-const USAGE = `synth FILE [--json] ${DECODER_USAGE} ${SYNTH_USAGE} ${DESIGN_USAGE}`;
+const USAGE = `synth FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE} ${DECODER_USAGE}`;
 
 /** The schema of `synth --json` for an instrument of several decoders: one matrix per decoder, keyed by name. */
 export const INSTRUMENT_MATRICES_SCHEMA = "diodeloom/instrument-matrices@1";
@@ -71,11 +71,6 @@ export const synthCommand: Command = {
     return EXIT.ok;
   },
 };
-
-/** The io of one decoder of an instrument: its messages name the decoder. */
-function decoderIo(io: CliIo, name: string): CliIo {
-  return { ...io, err: (text) => io.err(text.replace(/^(?=.)/gm, `decoder ${quoteText(name)}: `)) };
-}
 
 /**
  * One decoder synthesized: its matrix (for --json) and its report (none

@@ -116,6 +116,47 @@ describe("synth on an instrument", () => {
   });
 });
 
+describe("budget on an instrument", () => {
+  it("prints each decoder's budget as its own file has it, and the totals with how they are bounded", async () => {
+    const r = await run(["budget", "lap.json", "--json"]);
+    expect(r.code, r.err).toBe(0);
+    const doc = JSON.parse(r.out);
+    expect(doc.schema).toBe("diodeloom/instrument-budget@1");
+    expect(doc.order).toEqual(["units", "tens"]);
+    expect(doc.bound).toBe("per-case-sum");
+    expect(doc.boundText).toMatch(/without trying every combination/);
+    const units = JSON.parse((await run(["budget", "units.json", "--json"])).out);
+    const tens = JSON.parse((await run(["budget", "tens.json", "--json"])).out);
+    expect(doc.decoders.units.supply).toEqual(units.supply);
+    expect(doc.decoders.tens.supply).toEqual(tens.supply);
+    expect(doc.decoders.tens.states).toEqual(tens.states);
+    expect(Object.keys(doc.decoders.tens.drivers["1a"])).toEqual(Object.keys(tens.drivers["1a"]));
+    expect(doc.decoders.tens.drivers["1a"].transistor).toBe("2Q1");
+    // The nominal case: the sum of the two decoders' worst supply currents.
+    expect(doc.totals.cases.nominal.segmentA).toBeCloseTo(units.supply.maxCurrentA + tens.supply.maxCurrentA, 12);
+    expect(doc.totals.segment.currentA.value).toBeGreaterThanOrEqual(doc.totals.cases.nominal.segmentA);
+    expect(doc.totals.warningCount).toBe(units.warnings.length + tens.warnings.length);
+  }, 60_000);
+
+  it("prints a section per decoder, then the totals", async () => {
+    const r = await run(["budget", "lap.json"]);
+    expect(r.code, r.err).toBe(0);
+    expect(r.out).toContain("== Decoder 1 of 2: units ==\nLap counter - units\n");
+    expect(r.out).toContain("== Decoder 2 of 2: tens ==\nLap counter - tens\n");
+    expect(r.out).toMatch(/^Instrument totals: 2 decoders \(units, tens\), 5 x 4 = 20 combinations of states$/m);
+    expect(r.out).toMatch(
+      /^ {2}Segment supply current +\d+\.\d+ mA {2}\((nominal values|low corner|high corner); units S\d+, tens S\d+\)$/m,
+    );
+    expect(r.out).toMatch(/^ {2}Both supplies, power +\d+\.\d mW/m);
+  }, 60_000);
+
+  it("with --decoder budgets that decoder as a single file", async () => {
+    const r = await run(["budget", "lap.json", "--json", "--decoder", "units"]);
+    expect(r.code, r.err).toBe(0);
+    expect(JSON.parse(r.out).schema).toBe("diodeloom/budget@3");
+  }, 60_000);
+});
+
 describe("the commands that work on one decoder", () => {
   it.each([
     [["netlist", "lap.json", "--state", "0"], /prints the circuit of one decoder's state: give --decoder NAME/],
