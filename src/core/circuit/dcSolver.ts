@@ -471,11 +471,11 @@ function kclHolds(G: Float64Array, rhs: Float64Array, x: Float64Array, scale: Fl
 export class DcWorkspace {
   readonly #buffers = new Map<string, Float64Array>();
 
-  #listed: Int32Array | undefined;
+  #listed: Uint8Array | undefined;
 
-  /** Integer work space of at least `length` for `SparseSolver`, shared by every solve. */
-  listed(length: number): Int32Array {
-    if (!this.#listed || this.#listed.length < length) this.#listed = new Int32Array(length);
+  /** Work space of at least `length` bytes for `SparseSolver`, shared by every solve. */
+  listed(length: number): Uint8Array {
+    if (!this.#listed || this.#listed.length < length) this.#listed = new Uint8Array(length);
     return this.#listed;
   }
 

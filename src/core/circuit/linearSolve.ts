@@ -75,7 +75,6 @@ export class SparsePattern {
  * After a solve the matrix holds nothing outside the pattern, so a caller
  * that clears the pattern (`SparsePattern.clear`) has a zero matrix again.
  */
-let stampCounter = 0;
 /** The last solver built on each work space: the only one that may use it. */
 const latestOn = new WeakMap<ArrayBufferLike, SparseSolver>();
 
@@ -93,26 +92,25 @@ export class SparseSolver {
   #nextInRow: Int32Array;
   #nextInCol: Int32Array;
   #size: number;
-  /** `#listed[r * n + c] === #stamp` when (r, c) is listed; other values mean not listed. */
-  readonly #listed: Int32Array;
-  readonly #stamp: number;
+  /** `#listed[r * n + c] === 1` when (r, c) is listed (one byte per position of the n by n matrix). */
+  readonly #listed: Uint8Array;
   readonly #done: Uint8Array;
   readonly #pivotRow: Int32Array;
   readonly #x: Float64Array;
 
   /**
-   * @param listed optional n * n integers of work space, shared by the
-   *   solvers of one thread one after another (each stamps it with a number of
-   *   its own, so none needs clearing; building a solver retires the last one
-   *   built on the same space)
+   * @param listed optional n * n bytes of work space, shared by the solvers
+   *   of one thread one after another: building a solver retires the last
+   *   one built on the same space and clears the marks of its pattern (a
+   *   solve clears those of its fill-in), so the space is clear again
    */
-  constructor(pattern: SparsePattern, listed: Int32Array = new Int32Array(pattern.n * pattern.n)) {
+  constructor(pattern: SparsePattern, listed: Uint8Array = new Uint8Array(pattern.n * pattern.n)) {
     const n = pattern.n;
-    if (listed.length < n * n) throw new RangeError(`SparseSolver needs ${n * n} integers of work space, got ${listed.length}`);
+    if (listed.length < n * n) throw new RangeError(`SparseSolver needs ${n * n} bytes of work space, got ${listed.length}`);
     this.#n = n;
     this.#listed = listed;
-    stampCounter = stampCounter >= 0x7ffffffe ? 1 : stampCounter + 1;
-    this.#stamp = stampCounter;
+    const retired = latestOn.get(listed.buffer);
+    if (retired !== undefined) retired.#unlist();
     latestOn.set(listed.buffer, this);
     const capacity = Math.max(16, 2 * pattern.cols.length);
     this.#row = new Int32Array(capacity);
@@ -154,7 +152,12 @@ export class SparseSolver {
     this.#rowHead[r] = e;
     this.#nextInCol[e] = this.#colHead[c] as number;
     this.#colHead[c] = e;
-    this.#listed[r * this.#n + c] = this.#stamp;
+    this.#listed[r * this.#n + c] = 1;
+  }
+
+  /** Clears the marks of the pattern in the work space (the fill-in's are cleared after every solve). */
+  #unlist(): void {
+    for (let e = 0; e < this.#patternSize; e++) this.#listed[(this.#row[e] as number) * this.#n + (this.#col[e] as number)] = 0;
   }
 
   /**
@@ -212,7 +215,7 @@ export class SparseSolver {
           const apj = a[rowP + j] as number;
           if (apj === 0) continue;
           const at = rowR + j;
-          if (this.#listed[at] !== this.#stamp) this.#add(r, j);
+          if (this.#listed[at] !== 1) this.#add(r, j);
           a[at] = (a[at] as number) - f * apj;
         }
         b[r] = (b[r] as number) - f * bp;

@@ -84,6 +84,35 @@ describe("SparseSolver", () => {
     }
   });
 
+  it("shares one work space among solvers one after another: the same numbers as with a space of its own, the retired one refused", () => {
+    const space = new Uint8Array(90 * 90);
+    let retired: SparseSolver | null = null;
+    // Different sizes and patterns in turn, so a solver would see the last one's marks if they were left behind.
+    for (const [n, density, seed] of [
+      [90, 0.02, 6],
+      [40, 0.05, 5],
+      [90, 0.03, 7],
+      [8, 0.3, 4],
+      [90, 0.02, 6],
+    ] as const) {
+      const { a, entries } = system(n, density, seed);
+      const pattern = new SparsePattern(n, entries);
+      const own = new SparseSolver(pattern);
+      const shared = new SparseSolver(pattern, space);
+      if (retired !== null) expect(() => retired?.solve(new Float64Array(1), new Float64Array(1))).toThrow(/newer SparseSolver/);
+      const rnd = lcg(seed + 200);
+      for (let round = 0; round < 2; round++) {
+        const b = Float64Array.from({ length: n }, () => rnd());
+        const x1 = b.slice();
+        const x2 = b.slice();
+        expect(own.solve(a.slice(), x1)).toBe(true);
+        expect(shared.solve(a.slice(), x2)).toBe(true);
+        expect([...x2]).toEqual([...x1]);
+      }
+      retired = shared;
+    }
+  });
+
   it("pivots past a zero on the diagonal and reports a singular matrix", () => {
     const pattern = new SparsePattern(2, [
       [0, 1],
