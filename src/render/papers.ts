@@ -168,3 +168,14 @@ export function* eachPaperFile(input: PaperInput): Generator<PaperFile> {
 export function allPaperFiles(input: PaperInput): PaperFile[] {
   return [...eachPaperFile(input)];
 }
+
+// An instrument of several decoders: one set of papers (the index, every decoder's sheets and decks, one BOM, wiring list and budget).
+export {
+  decoderFolder,
+  eachInstrumentPaperFile,
+  instrumentBomLines,
+  instrumentPaperFiles,
+  sheetIndex,
+  sheetIndexText,
+} from "./instrumentPapers.ts";
+export type { DecoderPaperInput, InstrumentPaperInput, SheetIndexEntry } from "./instrumentPapers.ts";

@@ -23,11 +23,15 @@ import { eachPaperFile, paperDesign } from "../../render/papers.ts";
 import { quoteText } from "../../core/project/valueText.ts";
 import { shownArg, type ParsedArgs } from "../args.ts";
 import type { Command } from "../command.ts";
-import { budgetDeadline, designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
+import { budgetDeadline, designArgs, DESIGN_OPTIONS, DESIGN_USAGE, type DesignArgs } from "../designOptions.ts";
 import { DECODER_OPTION, DECODER_USAGE } from "../loadProject.ts";
 import { EXIT, type CliIo } from "../io.ts";
 import type { OutputFile, OwnNames } from "../outputFolder.ts";
-import { loadAndSynthesize, SYNTH_OPTIONS, SYNTH_USAGE } from "../synthOptions.ts";
+import { SYNTH_OPTIONS, SYNTH_USAGE, synthesizeForCircuit, type Synthesized } from "../synthOptions.ts";
+import { decoderIo, loadInstrument } from "../loadProject.ts";
+import type { Instrument } from "../../core/project/instrument.ts";
+import { instrumentBudget, type BudgetedDecoder, type InstrumentBudget } from "../../core/budget/instrumentBudget.ts";
+import { eachInstrumentPaperFile, sheetIndex, sheetIndexText, type DecoderPaperInput } from "../../render/instrumentPapers.ts";
 
 const USAGE = `export FILE --out DIR [--paper a4|a3|letter] [--date YYYY-MM-DD] [--drawing-number TEXT] [--revision TEXT] [--drawn-by TEXT] ${SYNTH_USAGE} ${DESIGN_USAGE} ${DECODER_USAGE}`;
 
@@ -36,8 +40,19 @@ const USAGE = `export FILE --out DIR [--paper a4|a3|letter] [--date YYYY-MM-DD] 
  * export) may be written again; the new export replaces it whole.
  */
 export const EXPORT_NAMES: OwnNames = {
-  files: [/^(matrix|driver)(-\d+)?\.svg$/, /^wiring\.(csv|html)$/, /^budget\.json$/, /^bom\.csv$/, /^project\.json$/, /^spice\/S\d+\.cir$/],
-  folders: [/^spice$/],
+  files: [
+    /^(matrix|driver)(-\d+)?\.svg$/,
+    /^wiring\.(csv|html)$/,
+    /^budget\.json$/,
+    /^bom\.csv$/,
+    /^project\.json$/,
+    /^spice\/S\d+\.cir$/,
+    // An instrument's set (render/instrumentPapers.ts): the index, and each decoder's folder.
+    /^index\.svg$/,
+    /^\d+-[a-z0-9-]+\/(matrix|driver)(-\d+)?\.svg$/,
+    /^\d+-[a-z0-9-]+\/spice\/S\d+\.cir$/,
+  ],
+  folders: [/^spice$/, /^\d+-[a-z0-9-]+$/, /^\d+-[a-z0-9-]+\/spice$/],
 };
 
 export const exportCommand: Command = {
@@ -74,10 +89,83 @@ export const exportCommand: Command = {
       io.err(`--out ${shownArg(out, 200)}: ${where.message}\n`);
       return EXIT.input;
     }
-    const done = await loadAndSynthesize(args, io, USAGE);
+    const loaded = await loadInstrument(args, io, USAGE);
+    if (!loaded) return EXIT.input;
+    const { instrument, refPrefixes } = loaded;
+    const [only] = instrument.decoders;
+    if (instrument.single && only) {
+      const done = await synthesizeForCircuit(only.project, args, io, refPrefixes[0] ?? "");
+      if (typeof done === "number") return done;
+      return exportSingle(done, out, given, design, io);
+    }
+    return exportInstrument(instrument, refPrefixes, out, given, design, args, io);
+  },
+};
+
+/** `export` of a single-decoder file (or one decoder, `--decoder`): the papers of one project. */
+async function exportSingle(
+  done: Synthesized,
+  out: string,
+  given: Partial<DrawingOptions>,
+  design: DesignArgs,
+  io: CliIo,
+): Promise<number> {
+  const { project, spec, matrix } = done;
+  const options = drawingOptions(project, given);
+  const drawing = layoutMatrix(project, spec, matrix, options);
+  const budget = solveBudget(project, spec, matrix, {
+    series: design.series,
+    trim: design.mode,
+    deadlineMs: budgetDeadline(done.timeLimitMs),
+  });
+  if (!budget.ok) io.err(`budget: ${budget.error.message}; budget.json left out, the BOM and decks keep the project's emitter resistors\n`);
+  registerNodeWindow();
+  // Each paper is made as the one before it is written, and let go: the export never holds every sheet and deck at once.
+  const names: string[] = [];
+  const files = function* (): Generator<OutputFile> {
+    for (const f of eachPaperFile({ project, spec, matrix, options, drawing, budget })) {
+      names.push(f.name);
+      yield { name: f.name, data: f.text };
+    }
+  };
+
+  // All or nothing: written beside or inside the target first, then moved into place.
+  const wrote = await io.writeOutputFolder(out, files(), EXPORT_NAMES);
+  if (!wrote.ok) {
+    io.err(`--out ${shownArg(out, 200)}: ${wrote.message}\n`);
+    return EXIT.input;
+  }
+  io.out(`${project.title}\nWrote ${names.length} files to ${out}:\n${names.map((n) => `  ${n}`).join("\n")}\n`);
+  io.out(`${designNote(paperDesign({ project, matrix, budget }))}\n`);
+  if (budget.ok && budget.value.warnings.length > 0)
+    io.out(`The budget has ${budget.value.warnings.length} warning(s); see budget.json or run diodeloom budget.\n`);
+  return budget.ok ? EXIT.ok : EXIT.findings;
+}
+
+/**
+ * `export` of an instrument of several decoders: each decoder synthesized,
+ * drawn and budgeted in turn, then one set of papers (render/instrumentPapers.ts).
+ * The set's title block (the index sheet) takes the first decoder's drawing
+ * number unless --drawing-number gives one; every decoder's sheets keep their own.
+ */
+async function exportInstrument(
+  instrument: Instrument,
+  refPrefixes: readonly string[],
+  out: string,
+  given: Partial<DrawingOptions>,
+  design: DesignArgs,
+  args: ParsedArgs,
+  io: CliIo,
+): Promise<number> {
+  const decoders: DecoderPaperInput[] = [];
+  const budgeted: BudgetedDecoder[] = [];
+  let longestMs = 0;
+  for (const [i, d] of instrument.decoders.entries()) {
+    const dio = decoderIo(io, d.name);
+    const done = await synthesizeForCircuit(d.project, args, dio, refPrefixes[i] ?? "");
     if (typeof done === "number") return done;
     const { project, spec, matrix } = done;
-
+    longestMs = Math.max(longestMs, done.timeLimitMs);
     const options = drawingOptions(project, given);
     const drawing = layoutMatrix(project, spec, matrix, options);
     const budget = solveBudget(project, spec, matrix, {
@@ -86,30 +174,41 @@ export const exportCommand: Command = {
       deadlineMs: budgetDeadline(done.timeLimitMs),
     });
     if (!budget.ok)
-      io.err(`budget: ${budget.error.message}; budget.json left out, the BOM and decks keep the project's emitter resistors\n`);
-    registerNodeWindow();
-    // Each paper is made as the one before it is written, and let go: the export never holds every sheet and deck at once.
-    const names: string[] = [];
-    const files = function* (): Generator<OutputFile> {
-      for (const f of eachPaperFile({ project, spec, matrix, options, drawing, budget })) {
-        names.push(f.name);
-        yield { name: f.name, data: f.text };
-      }
-    };
-
-    // All or nothing: written beside or inside the target first, then moved into place.
-    const wrote = await io.writeOutputFolder(out, files(), EXPORT_NAMES);
-    if (!wrote.ok) {
-      io.err(`--out ${shownArg(out, 200)}: ${wrote.message}\n`);
-      return EXIT.input;
+      dio.err(
+        `budget: ${budget.error.message}; its budget and the instrument's totals left out, its BOM lines and decks keep the project's values\n`,
+      );
+    else budgeted.push({ name: d.name, project, spec, matrix, budget: budget.value });
+    decoders.push({ name: d.name, project, spec, matrix, options, drawing, budget });
+  }
+  let totals: InstrumentBudget | null = null;
+  if (budgeted.length === decoders.length) {
+    const r = instrumentBudget(instrument.title, budgeted, budgetDeadline(longestMs));
+    if (r.ok) totals = r.value;
+    else io.err(`budget: decoder ${quoteText(r.error.decoder ?? "")}: ${r.error.message}; budget.json left out\n`);
+  }
+  const first = decoders[0];
+  if (!first) return EXIT.internal;
+  registerNodeWindow();
+  const input = { instrument, decoders, options: first.options, budget: totals };
+  const names: string[] = [];
+  const files = function* (): Generator<OutputFile> {
+    for (const f of eachInstrumentPaperFile(input)) {
+      names.push(f.name);
+      yield { name: f.name, data: f.text };
     }
-    io.out(`${project.title}\nWrote ${names.length} files to ${out}:\n${names.map((n) => `  ${n}`).join("\n")}\n`);
-    io.out(`${designNote(paperDesign({ project, matrix, budget }))}\n`);
-    if (budget.ok && budget.value.warnings.length > 0)
-      io.out(`The budget has ${budget.value.warnings.length} warning(s); see budget.json or run diodeloom budget.\n`);
-    return budget.ok ? EXIT.ok : EXIT.findings;
-  },
-};
+  };
+  const wrote = await io.writeOutputFolder(out, files(), EXPORT_NAMES);
+  if (!wrote.ok) {
+    io.err(`--out ${shownArg(out, 200)}: ${wrote.message}\n`);
+    return EXIT.input;
+  }
+  io.out(`${instrument.title}\nWrote ${names.length} files to ${out}:\n${names.map((n) => `  ${n}`).join("\n")}\n`);
+  io.out(`\nSheet index\n${sheetIndexText(sheetIndex(input))}`);
+  for (const d of decoders) io.out(`${d.name}: ${designNote(paperDesign(d))}\n`);
+  const warnings = budgeted.reduce((a, b) => a + b.budget.warnings.length, 0);
+  if (warnings > 0) io.out(`The budgets have ${warnings} warning(s); see budget.json or run diodeloom budget.\n`);
+  return totals !== null ? EXIT.ok : EXIT.findings;
+}
 
 /** Reads the drawing options, or prints what is wrong and returns undefined. */
 function drawingArgs(args: ParsedArgs, io: CliIo): Partial<DrawingOptions> | undefined {

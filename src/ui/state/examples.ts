@@ -22,6 +22,7 @@ export const EXAMPLES: readonly ShippedExample[] = [
   { file: "turntable-position.json", label: "Turntable position: stations 1-12 on two digits" },
   { file: "die-roller.json", label: "Die roller: a seven-pip die face" },
   { file: "antenna-rotator.json", label: "Antenna rotator: eight compass arrows" },
+  { file: "wall-clock.json", label: "Wall clock (an instrument): hours, minute tens and minute units" },
 ];
 
 /** The demo the app starts with when the browser holds no project. */

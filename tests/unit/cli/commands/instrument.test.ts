@@ -3,6 +3,9 @@
  * runs each decoder in turn, the commands that work on one decoder take
  * `--decoder NAME` and say so without it.
  */
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { main } from "../../../../src/cli/main.ts";
 import { recordingIo } from "../../../support/recordingIo.ts";
@@ -155,6 +158,45 @@ describe("budget on an instrument", () => {
     expect(r.code, r.err).toBe(0);
     expect(JSON.parse(r.out).schema).toBe("diodeloom/budget@3");
   }, 60_000);
+});
+
+describe("export on an instrument", () => {
+  it("writes one set of papers and prints the sheet index; an earlier set's folder may be written again", async () => {
+    const dir = mkdtempSync(join(tmpdir(), "diodeloom-instrument-"));
+    const out = join(dir, "papers");
+    try {
+      for (let round = 0; round < 2; round++) {
+        const io = recordingIo(FILES, { writeToDisk: true });
+        expect(await main(["export", "lap.json", "--out", out, "--fast"], io), io.stderr.join("")).toBe(0);
+        const text = io.stdout.join("");
+        expect(text).toMatch(/^Sheet index\nNo\. {2}Decoder +Sheet +File\n {2}1 {2}- +Sheet index +index\.svg$/m);
+        expect(text).toMatch(/^ {2}2 {2}units +Diode matrix, sheet 1 of 1 +1-units\/matrix\.svg$/m);
+        const names = [...io.written.keys()].map((k) => k.slice(out.length + 1)).sort();
+        expect(names).toEqual(
+          [
+            "index.svg",
+            "1-units/matrix.svg",
+            "1-units/driver.svg",
+            ...["S0", "S1", "S2", "S3", "S4"].map((s) => `1-units/spice/${s}.cir`),
+            "2-tens/matrix.svg",
+            "2-tens/driver.svg",
+            ...["S0", "S1", "S2", "S3"].map((s) => `2-tens/spice/${s}.cir`),
+            "bom.csv",
+            "wiring.csv",
+            "wiring.html",
+            "budget.json",
+            "project.json",
+          ].sort(),
+        );
+      }
+      // The set reads back as the same instrument.
+      const again = await run(["synth", join(out, "project.json"), "--json", "--fast"]);
+      const first = await run(["synth", "lap.json", "--json", "--fast"]);
+      expect(again.out).toBe(first.out);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  }, 120_000);
 });
 
 describe("the commands that work on one decoder", () => {
