@@ -12,6 +12,7 @@ import { designators } from "../../src/core/matrix/designators.ts";
 import { countParts } from "../../src/core/papers/parts.ts";
 import { parseInstrument } from "../../src/core/project/instrument.ts";
 import { budgetDesign, solveBudget } from "../../src/core/budget/budget.ts";
+import { instrumentBudget, type BudgetedDecoder } from "../../src/core/budget/instrumentBudget.ts";
 import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
 import { startApp, type AppHarness } from "./appBrowser.ts";
@@ -39,28 +40,42 @@ async function savedProject(p: Page = page): Promise<string> {
   return readFileSync(await download.path(), "utf8");
 }
 
+interface Totals {
+  readonly diodes: number;
+  readonly transistors: number;
+  readonly resistors: number;
+  readonly segmentMa: number;
+  readonly mw: number;
+}
+
 const decoderNames = (p: Page = page) => p.locator(".decoder-list .decoder-name").allTextContents();
 
 /** The summary's totals once every decoder is worked out (no caveat left). */
-async function shownTotals(p: Page = page): Promise<{ diodes: number; transistors: number; resistors: number; mw: number }> {
+async function shownTotals(p: Page = page): Promise<Totals> {
   await expect
     .poll(() => p.locator('[data-testid="instrument-summary"] tbody tr[data-status="done"]').count(), { timeout: 90_000 })
     .toBe(await p.locator('[data-testid="instrument-summary"] tbody tr').count());
-  expect(await p.getByTestId("summary-caveat").count()).toBe(0);
+  await expect.poll(() => p.getByTestId("summary-caveat").count(), { timeout: 60_000 }).toBe(0);
   const n = async (id: string) => Number((await p.getByTestId(id).textContent())?.replace(/,/g, ""));
   return {
     diodes: await n("total-diodes"),
     transistors: await n("total-transistors"),
     resistors: await n("total-resistors"),
+    segmentMa: await n("total-segment-ma"),
     mw: await n("total-supply-mw"),
   };
 }
 
-/** The same totals from the core in Node: each decoder's exact matrix, budget and parts, summed. */
-async function coreTotals(text: string): Promise<{ diodes: number; transistors: number; resistors: number; mw: number }> {
+/**
+ * The same totals from the core in Node: each decoder's exact matrix,
+ * budget and parts, summed, and the instrument budget's worst supply
+ * current and power (as `diodeloom budget` gives them).
+ */
+async function coreTotals(text: string): Promise<Totals> {
   const r = parseInstrument(text);
   if (!r.ok) throw new Error(`the saved instrument does not parse: ${JSON.stringify(r.error)}`);
-  const t = { diodes: 0, transistors: 0, resistors: 0, mw: 0 };
+  const t = { diodes: 0, transistors: 0, resistors: 0 };
+  const budgeted: BudgetedDecoder[] = [];
   for (const d of r.value.decoders) {
     const spec = compileSpec(d.project);
     const m = await synthesize(spec, synthSettings(d.project));
@@ -73,9 +88,11 @@ async function coreTotals(text: string): Promise<{ diodes: number; transistors: 
       else if (g.kind === "transistor") t.transistors += g.refs.length;
       else if (g.kind !== "display") t.resistors += g.refs.length;
     }
-    t.mw += (b.value.supply.maxPowerW + b.value.logic.maxPowerW) * 1000;
+    budgeted.push({ name: d.name, project: d.project, spec, matrix: m.value, budget: b.value });
   }
-  return t;
+  const ib = instrumentBudget(r.value.title, budgeted);
+  if (!ib.ok) throw new Error(ib.error.message);
+  return { ...t, segmentMa: ib.value.segment.currentA.value * 1000, mw: ib.value.totalPowerW.value * 1000 };
 }
 
 beforeAll(async () => {
@@ -126,12 +143,14 @@ describe("an instrument in the web app", () => {
     expect(await page.locator("#f-states").inputValue()).toBe(String(plain.counter.states));
   });
 
-  it("sums every decoder in the summary, as the core does in Node", async () => {
+  it("sums every decoder's parts and gives the instrument budget's worst supply, as the core does in Node", async () => {
     const shown = await shownTotals();
     const core = await coreTotals(await savedProject());
     expect(shown.diodes).toBe(core.diodes);
     expect(shown.transistors).toBe(core.transistors);
     expect(shown.resistors).toBe(core.resistors);
+    // Shown to 0.01 mA and 1 mW.
+    expect(Math.abs(shown.segmentMa - core.segmentMa)).toBeLessThanOrEqual(0.005);
     expect(Math.abs(shown.mw - core.mw)).toBeLessThanOrEqual(0.5);
     await page.getByTestId("instrument").screenshot({ path: "/tmp/diodeloom-instrument-e2e.png" });
   });

@@ -26,7 +26,7 @@ import { HelpTip } from "./HelpTip.tsx";
 export function InstrumentPanel() {
   const inst = () => app.instrument();
   const count = () => inst().decoders.length;
-  const totals = createMemo(() => instrumentTotals(app.summary()));
+  const totals = createMemo(() => instrumentTotals(app.summary(), app.instrumentSummary()));
   const [nameText, setNameText] = createSignal<string | null>(null);
   const selectedName = () => inst().decoders[app.selected()]?.name ?? "";
   const nameProblem = () => {
@@ -195,16 +195,21 @@ export function InstrumentPanel() {
                 <abbr title="Resistors">Res.</abbr>
               </th>
               <th class="num">
-                <abbr title="Supply current in the decoder's worst state, both supplies">mA</abbr>
+                <abbr title="Segment supply current, milliamperes: the decoder's share of the instrument's worst case">Seg. mA</abbr>
               </th>
               <th class="num">
-                <abbr title="Supply power in the decoder's worst state, both supplies">mW</abbr>
+                <abbr title="Logic supply current, milliamperes: the decoder's share of the instrument's worst case">Logic mA</abbr>
+              </th>
+              <th class="num">
+                <abbr title="Power from both supplies, milliwatts: the decoder's share of the instrument's worst case">mW</abbr>
               </th>
             </tr>
           </thead>
           <tbody>
             <For each={inst().decoders}>
-              {(d, k) => <SummaryRow name={d.name} row={app.summary()[k()]} current={app.selected() === k()} />}
+              {(d, k) => (
+                <SummaryRow name={d.name} row={app.summary()[k()]} share={totals().supply?.shares[k()]} current={app.selected() === k()} />
+              )}
             </For>
           </tbody>
           <tfoot>
@@ -219,21 +224,20 @@ export function InstrumentPanel() {
               <td class="num" data-testid="total-resistors">
                 {totals().resistors}
               </td>
-              <td class="num" data-testid="total-supply-ma">
-                {milliamps(totals().supply.maxCurrentA + totals().logic.maxCurrentA)}
-              </td>
-              <td class="num" data-testid="total-supply-mw">
-                {milliwatts(totals().supply.maxPowerW + totals().logic.maxPowerW, 0)}
-              </td>
+              <SupplyCells supply={totals().supply} total />
             </tr>
           </tfoot>
         </table>
-        <p class="muted small" data-testid="summary-note">
-          Supply: the segment supply and the logic supply together, in each decoder's worst state; the total is their sum, which every
-          decoder's counter can reach at once. Segment supply {milliamps(totals().supply.maxCurrentA)} mA,{" "}
-          {milliwatts(totals().supply.maxPowerW, 0)} mW; logic supply {milliamps(totals().logic.maxCurrentA)} mA,{" "}
-          {milliwatts(totals().logic.maxPowerW, 0)} mW.
-        </p>
+        <Show when={totals().supply}>
+          {(s) => (
+            <p class="muted small" data-testid="summary-note">
+              Supplies: the instrument's worst case over every combination of the counters' states, at nominal and both tolerance corners
+              {s().bound === "per-case-sum"
+                ? ": each decoder's worst state, summed (the decoders share supplies and temperature)."
+                : ": each decoder's worst over nominal and both corners, summed, a bound (the decoders' supplies or temperatures differ)."}
+            </p>
+          )}
+        </Show>
         <Show when={totalsCaveat(totals())}>
           {(c) => (
             <p class="chip stale" data-testid="summary-caveat">
@@ -246,13 +250,43 @@ export function InstrumentPanel() {
   );
 }
 
-function SummaryRow(props: { name: string; row: DecoderSummary | undefined; current: boolean }) {
+/** The supply cells of a row: a decoder's share of the worst case, or the totals; dots while unknown. */
+function SupplyCells(props: { supply: { segmentA: number; logicA: number; powerW: number } | null | undefined; total?: boolean }) {
+  const id = (name: string) => (props.total ? `total-${name}` : undefined);
+  return (
+    <Show
+      when={props.supply}
+      fallback={
+        <td colSpan={3} class="muted num">
+          …
+        </td>
+      }
+    >
+      {(s) => (
+        <>
+          <td class="num" data-testid={id("segment-ma")}>
+            {milliamps(s().segmentA)}
+          </td>
+          <td class="num" data-testid={id("logic-ma")}>
+            {milliamps(s().logicA)}
+          </td>
+          <td class="num" data-testid={id("supply-mw")}>
+            {milliwatts(s().powerW, 0)}
+          </td>
+        </>
+      )}
+    </Show>
+  );
+}
+
+function SummaryRow(props: {
+  name: string;
+  row: DecoderSummary | undefined;
+  share: { segmentA: number; logicA: number; powerW: number } | undefined;
+  current: boolean;
+}) {
   const status = () => props.row?.status ?? "computing";
   const figures = () => (props.row?.status === "done" ? props.row.figures : null);
-  const budget = () => {
-    const b = figures()?.budget;
-    return b?.ok ? b.value : null;
-  };
   const failure = () => (props.row?.status === "failed" ? props.row.message : null);
   return (
     <tr classList={{ "is-current": props.current }} data-status={status()}>
@@ -260,7 +294,7 @@ function SummaryRow(props: { name: string; row: DecoderSummary | undefined; curr
       <Show
         when={figures()}
         fallback={
-          <td colSpan={5} class="muted" title={failure() ?? undefined}>
+          <td colSpan={6} class="muted" title={failure() ?? undefined}>
             {failure() !== null ? `✖ no figures: ${failure()}` : "↻ working out…"}
           </td>
         }
@@ -271,19 +305,14 @@ function SummaryRow(props: { name: string; row: DecoderSummary | undefined; curr
             <td class="num">{f().transistors}</td>
             <td class="num">{f().resistors}</td>
             <Show
-              when={budget()}
+              when={f().budget.ok}
               fallback={
-                <td colSpan={2} class="muted">
+                <td colSpan={3} class="muted">
                   ✖ no budget
                 </td>
               }
             >
-              {(b) => (
-                <>
-                  <td class="num">{milliamps(b().supply.maxCurrentA + b().logic.maxCurrentA)}</td>
-                  <td class="num">{milliwatts(b().supply.maxPowerW + b().logic.maxPowerW, 0)}</td>
-                </>
-              )}
+              <SupplyCells supply={props.share} />
             </Show>
           </>
         )}

@@ -52,7 +52,7 @@ import { rowKey } from "../../core/compare/glyphStyles.ts";
 import type { ExactState } from "./exactStatus.ts";
 import { matrixFigure, shownFigure, type Figure } from "./figures.ts";
 import { KnownResults, type KnownResult } from "./knownResults.ts";
-import { SummaryRunner, type DecoderSummary, type SummaryJob } from "../workers/summaryRun.ts";
+import { SummaryRunner, type DecoderSummary, type InstrumentSummary, type SummaryWant } from "../workers/summaryRun.ts";
 
 export type { ExactState } from "./exactStatus.ts";
 
@@ -164,28 +164,39 @@ function createAppState() {
    */
   const [summaryVersion, setSummaryVersion] = createSignal(0);
   const summaryRunner = new SummaryRunner(() => setSummaryVersion((n) => n + 1));
-  const summaryJobs = createMemo<readonly SummaryJob[]>(() => {
+  const summaryWant = createMemo<SummaryWant>(() => {
     const trim = trimMode();
-    return instrument().decoders.map((d) => ({
-      // The title is the instrument's and changes no figure.
-      key: JSON.stringify([{ ...d.draft, title: "" }, trim]),
-      request: { project: d.draft, trim },
-      deadlineMs: d.draft.synthesis.timeLimitMs + SUMMARY_GRACE_MS,
-    }));
+    const inst = instrument();
+    return {
+      title: inst.title,
+      decoders: inst.decoders.map((d) => ({
+        // The title comes from the instrument's and changes no figure.
+        key: JSON.stringify([{ ...d.draft, title: "" }, trim]),
+        name: d.name,
+        project: d.draft,
+        trim,
+        deadlineMs: d.draft.synthesis.timeLimitMs + SUMMARY_GRACE_MS,
+      })),
+    };
   });
   let summaryTimer: ReturnType<typeof setTimeout> | undefined;
   createEffect(
-    on(summaryJobs, (jobs) => {
+    on(summaryWant, (w) => {
       clearTimeout(summaryTimer);
-      if (jobs.length < 2) return summaryRunner.want([]);
-      summaryTimer = setTimeout(() => summaryRunner.want(jobs), SUMMARY_DELAY_MS);
+      if (w.decoders.length < 2) return summaryRunner.want({ title: w.title, decoders: [] });
+      summaryTimer = setTimeout(() => summaryRunner.want(w), SUMMARY_DELAY_MS);
     }),
   );
   /** What is known of each decoder, in the list's order; empty for a plain project. */
   const summary = createMemo<readonly DecoderSummary[]>(() => {
     summaryVersion();
-    const jobs = summaryJobs();
-    return jobs.length < 2 ? [] : jobs.map((j) => summaryRunner.get(j.key));
+    const w = summaryWant();
+    return w.decoders.length < 2 ? [] : w.decoders.map((d) => summaryRunner.get(d.key));
+  });
+  /** The instrument's budget (every decoder's worst state, summed, at nominal and both corners), as far as it is known. */
+  const instrumentSummary = createMemo<InstrumentSummary>(() => {
+    summaryVersion();
+    return summaryRunner.instrument(summaryWant());
   });
   /** The title-block fields the person filled in (titleBlock.ts). */
   const [titleFields, setTitleFieldsSignal] = createSignal<TitleFields>(readTitleFields(store));
@@ -734,6 +745,7 @@ function createAppState() {
     /** Problems of the whole instrument (a decoder's name, any decoder's fields), empty when it validates. */
     /** Each decoder's figures for the instrument summary, in the list's order; empty for a plain project. */
     summary,
+    instrumentSummary,
     instrumentProblems: () => {
       const v = instrumentValidation();
       return v.ok ? [] : v.error;

@@ -1,20 +1,22 @@
 /**
- * The instrument summary's totals, from what is known of each decoder
- * (summaryRun.ts): the parts summed over the decoders, and the supplies'
- * worst case as the sum of each decoder's worst state. The decoders' counters
- * run independently, so every decoder can sit in its own worst state at
- * once, and no combination of states draws more than that sum (each
- * decoder's draw is at most its worst state's, whatever the others show):
- * the sum bounds the worst case without trying every combination, and is
- * reached.
+ * The instrument summary's totals: the parts summed over the decoders
+ * (summaryRun.ts gives each decoder's), and the supplies' worst case from
+ * the core's instrument budget (core/budget/instrumentBudget.ts): the sum
+ * of each decoder's worst state, which every combination of the
+ * independent counters' states stays within, at nominal and both
+ * tolerance corners, as `diodeloom budget` gives it.
  */
-import type { DecoderSummary } from "../workers/summaryRun.ts";
+import type { TotalBound } from "../../core/budget/instrumentBudget.ts";
+import type { DecoderSummary, InstrumentSummary } from "../workers/summaryRun.ts";
 
-export interface SupplyTotal {
-  /** Sum of each decoder's largest current over its states, amperes. */
-  readonly maxCurrentA: number;
-  /** Sum of each decoder's largest power over its states, watts. */
-  readonly maxPowerW: number;
+/** The supplies' worst totals, SI, with each decoder's share in the list's order. */
+export interface SupplyTotals {
+  readonly segmentA: number;
+  readonly logicA: number;
+  /** Both supplies together. */
+  readonly powerW: number;
+  readonly bound: TotalBound;
+  readonly shares: readonly { readonly segmentA: number; readonly logicA: number; readonly powerW: number }[];
 }
 
 export interface InstrumentTotals {
@@ -22,36 +24,26 @@ export interface InstrumentTotals {
   readonly diodes: number;
   readonly transistors: number;
   readonly resistors: number;
-  /** The segment supply. */
-  readonly supply: SupplyTotal;
-  /** The logic supply (counter lines, tied-on outputs, gate pull-ups). */
-  readonly logic: SupplyTotal;
-  /** Decoders still being worked out: the totals leave them out. */
+  /** Decoders still being worked out: the part totals leave them out. */
   readonly computing: number;
-  /** Decoders with no figures (invalid, no matrix): the totals leave them out. */
+  /** Decoders with no figures (invalid, no matrix): the part totals leave them out. */
   readonly failed: number;
-  /** Decoders counted in the parts whose budget failed: the supply totals leave them out. */
-  readonly noBudget: number;
-}
-
-/** True when every decoder is in the totals, supplies included. */
-export function totalsComplete(t: InstrumentTotals): boolean {
-  return t.computing === 0 && t.failed === 0 && t.noBudget === 0;
+  /** The supplies' totals, or null while the instrument's budget is not known. */
+  readonly supply: SupplyTotals | null;
+  /** Why there are no supply totals (a decoder without a budget, a failed solve), or null. */
+  readonly supplyProblem: string | null;
 }
 
 /**
  * @example
- * instrumentTotals([{ status: "done", figures }, { status: "computing" }]).computing; // 1
+ * instrumentTotals([{ status: "done", figures }, { status: "computing" }], { status: "computing" }).computing; // 1
  */
-export function instrumentTotals(rows: readonly DecoderSummary[]): InstrumentTotals {
+export function instrumentTotals(rows: readonly DecoderSummary[], ib: InstrumentSummary): InstrumentTotals {
   let diodes = 0;
   let transistors = 0;
   let resistors = 0;
   let computing = 0;
   let failed = 0;
-  let noBudget = 0;
-  const supply = { maxCurrentA: 0, maxPowerW: 0 };
-  const logic = { maxCurrentA: 0, maxPowerW: 0 };
   for (const r of rows) {
     if (r.status === "computing") computing++;
     else if (r.status === "failed") failed++;
@@ -59,24 +51,37 @@ export function instrumentTotals(rows: readonly DecoderSummary[]): InstrumentTot
       diodes += r.figures.diodes;
       transistors += r.figures.transistors;
       resistors += r.figures.resistors;
-      const b = r.figures.budget;
-      if (!b.ok) noBudget++;
-      else {
-        supply.maxCurrentA += b.value.supply.maxCurrentA;
-        supply.maxPowerW += b.value.supply.maxPowerW;
-        logic.maxCurrentA += b.value.logic.maxCurrentA;
-        logic.maxPowerW += b.value.logic.maxPowerW;
-      }
     }
   }
-  return { decoders: rows.length, diodes, transistors, resistors, supply, logic, computing, failed, noBudget };
+  let supply: SupplyTotals | null = null;
+  let supplyProblem: string | null = null;
+  if (ib.status === "failed") supplyProblem = ib.message;
+  else if (ib.status === "done" && !ib.result.ok) {
+    const e = ib.result.error;
+    supplyProblem = `${e.decoder ? `${e.decoder}: ` : ""}${e.message}`;
+  } else if (ib.status === "done" && ib.result.ok) {
+    const b = ib.result.value;
+    supply = {
+      segmentA: b.segment.currentA.value,
+      logicA: b.logic.currentA.value,
+      powerW: b.totalPowerW.value,
+      bound: b.bound,
+      shares: b.decoders.map((_, i) => ({
+        segmentA: b.segment.currentA.shares[i] ?? 0,
+        logicA: b.logic.currentA.shares[i] ?? 0,
+        powerW: b.totalPowerW.shares[i] ?? 0,
+      })),
+    };
+  }
+  return { decoders: rows.length, diodes, transistors, resistors, computing, failed, supply, supplyProblem };
 }
 
-/** What the summary says of totals that leave decoders out, or null when they are complete. */
+/** What the summary says of totals that leave something out, or null when they are complete. */
 export function totalsCaveat(t: InstrumentTotals): string | null {
   const parts: string[] = [];
   if (t.computing > 0) parts.push(`${t.computing} of ${t.decoders} decoders still being worked out`);
-  if (t.failed > 0) parts.push(`${t.failed} with no figures`);
-  if (t.noBudget > 0) parts.push(`${t.noBudget} without a budget (left out of the supply totals)`);
-  return parts.length === 0 ? null : `Partial totals: ${parts.join(", ")}.`;
+  if (t.failed > 0) parts.push(`${t.failed} with no figures (left out)`);
+  if (t.computing === 0 && t.supply === null && t.supplyProblem === null) parts.push("the supplies' totals still being worked out");
+  if (t.supplyProblem !== null) parts.push(`no supply totals: ${t.supplyProblem}`);
+  return parts.length === 0 ? null : `Partial totals: ${parts.join("; ")}.`;
 }

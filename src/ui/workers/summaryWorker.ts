@@ -1,10 +1,12 @@
 /// <reference lib="webworker" />
-/** The summary worker: one decoder's matrix, budget and parts count (see summaryProtocol.ts). */
+/** The summary worker: one decoder's matrix, budget and parts count, or the instrument's budget (see summaryProtocol.ts). */
 import highsLoader from "highs";
 import wasmUrl from "highs/runtime?url";
 import { solveBudget } from "../../core/budget/budget.ts";
+import { instrumentBudget, type BudgetedDecoder } from "../../core/budget/instrumentBudget.ts";
 import { designators } from "../../core/matrix/designators.ts";
-import { electricalRefusal } from "../../core/matrix/matrix.ts";
+import { electricalRefusal, type DiodeMatrix } from "../../core/matrix/matrix.ts";
+import { verifyMatrix } from "../../core/matrix/verify.ts";
 import { countParts } from "../../core/papers/parts.ts";
 import { validateProject } from "../../core/project/projectSchema.ts";
 import { fail, formatProblems } from "../../core/result/result.ts";
@@ -33,31 +35,54 @@ function post(reply: SummaryReply): void {
   scope.postMessage(reply);
 }
 
-scope.onmessage = async (event: MessageEvent<SummaryRequest>) => {
-  const { id, project: data, trim } = event.data;
+async function decoderJob(id: number, data: unknown, trim: Extract<SummaryRequest, { job: "decoder" }>["trim"]): Promise<void> {
   const parsed = validateProject(data);
   if (!parsed.ok) return post({ id, type: "failed", message: formatProblems(parsed.error) });
   const project = parsed.value;
   const spec = compileSpec(project);
-  try {
-    const m = await synthesize(spec, synthSettings(project), { loadHighs });
-    if (!m.ok) return post({ id, type: "failed", message: m.error.message });
-    const matrix = m.value;
-    const refusal = electricalRefusal(matrix);
-    const budget: DecoderFigures["budget"] =
-      refusal !== null ? fail({ kind: "rejected" as const, message: refusal }) : solveBudget(project, spec, matrix, { trim });
-    const design = paperDesign({ project, matrix, budget });
-    const groups = countParts(designators(spec, matrix, project.electrical, design.ohms));
-    const count = (test: (kind: string) => boolean) => groups.filter((g) => test(g.kind)).reduce((n, g) => n + g.refs.length, 0);
-    const figures: DecoderFigures = {
+  const m = await synthesize(spec, synthSettings(project), { loadHighs });
+  if (!m.ok) return post({ id, type: "failed", message: m.error.message });
+  const matrix = m.value;
+  const refusal = electricalRefusal(matrix);
+  const budget: DecoderFigures["budget"] =
+    refusal !== null ? fail({ kind: "rejected" as const, message: refusal }) : solveBudget(project, spec, matrix, { trim });
+  const design = paperDesign({ project, matrix, budget });
+  const groups = countParts(designators(spec, matrix, project.electrical, design.ohms));
+  const count = (test: (kind: string) => boolean) => groups.filter((g) => test(g.kind)).reduce((n, g) => n + g.refs.length, 0);
+  post({
+    id,
+    type: "figures",
+    figures: {
       diodes: count((k) => k === "diode") + (matrix.inputNetwork?.diodes ?? 0),
       transistors: count((k) => k === "transistor"),
       resistors: count((k) => RESISTOR_KINDS.has(k)),
       optimal: matrix.optimal,
+      matrix,
       budget,
-    };
-    post({ id, type: "figures", figures });
+    },
+  });
+}
+
+function instrumentJob(req: Extract<SummaryRequest, { job: "instrument" }>): void {
+  const decoders: BudgetedDecoder[] = [];
+  for (const d of req.decoders) {
+    const parsed = validateProject(d.project);
+    if (!parsed.ok) return post({ id: req.id, type: "failed", message: `${d.name}: ${formatProblems(parsed.error)}` });
+    const spec = compileSpec(parsed.value);
+    const checked = verifyMatrix(spec, d.matrix as DiodeMatrix, synthSettings(parsed.value));
+    if (!checked.ok)
+      return post({ id: req.id, type: "failed", message: `${d.name}: the matrix failed verification: ${checked.error.join("; ")}` });
+    decoders.push({ name: d.name, project: parsed.value, spec, matrix: checked.value, budget: d.budget });
+  }
+  post({ id: req.id, type: "instrument", result: instrumentBudget(req.title, decoders, Date.now() + req.timeLimitMs) });
+}
+
+scope.onmessage = async (event: MessageEvent<SummaryRequest>) => {
+  const req = event.data;
+  try {
+    if (req.job === "decoder") await decoderJob(req.id, req.project, req.trim);
+    else instrumentJob(req);
   } catch (e) {
-    post({ id, type: "failed", message: `the summary stopped: ${(e as Error).message}` });
+    post({ id: req.id, type: "failed", message: `the summary stopped: ${(e as Error).message}` });
   }
 };
