@@ -164,6 +164,11 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
       >
         <summary data-testid="exports-menu">Export ▾</summary>
         <div class="menu-items" role="group" aria-label="Export">
+          <Show when={app.instrument().decoders.length > 1}>
+            <p class="muted small menu-note" data-testid="export-decoder-note">
+              The papers of the open decoder, {app.instrument().decoders[app.selected()]?.name}
+            </p>
+          </Show>
           <For each={props.exportKinds}>
             {(k) => (
               <button type="button" onClick={() => doExport(k.kind)} disabled={!app.live()} data-testid={`export-${k.kind}`}>
