@@ -7,6 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { BrowserContext, Page } from "playwright-core";
 import { HELP, HELP_ORDER, type HelpTerm } from "../../src/ui/helpText.ts";
+import { EXAMPLES } from "../../src/ui/state/examples.ts";
 import { startApp, type AppHarness } from "./appBrowser.ts";
 
 let app: AppHarness;
@@ -53,7 +54,8 @@ describe("getting started in the web app", () => {
     await page.locator("#f-title").blur();
     await page.getByTestId("new-menu").click();
     const items = await page.locator('[aria-label="New project or example"] button').allTextContents();
-    expect(items).toHaveLength(5);
+    // A new project and every shipped example.
+    expect(items).toHaveLength(EXAMPLES.length + 1);
     await page.screenshot({ path: "/tmp/diodeloom-examples-menu.png" });
     await afterResult(() => page.getByTestId("example-die-roller").click());
     await expect.poll(() => title()).toMatch(/^Die roller/);
