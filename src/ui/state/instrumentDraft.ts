@@ -69,17 +69,30 @@ export function singleDraft(d: Draft): InstrumentDraft {
 }
 
 /**
- * The draft of a validated instrument. The shared section is taken as the
- * first decoder's values where the decoders differ, and as their common
- * value elsewhere: the file written back gives every decoder the same
- * values it had, though a value the file shared may come back as the
- * others' override.
+ * The draft of a validated instrument. The shared section takes, value by
+ * value, what most decoders use (the first decoder's among equals), so a
+ * value one decoder of three overrides shows as that decoder's own, however
+ * the file split them: every decoder keeps the values it had.
  */
 export function instrumentDraftOf(inst: Instrument): InstrumentDraft {
   const decoders = inst.decoders.map((d) => ({ name: d.name, draft: draftFromProject(d.project) }));
   const first = decoders[0];
   if (!first) throw new RangeError("an instrument has at least one decoder");
-  return retitled({ title: inst.title, electrical: first.draft.electrical, decoders, single: inst.single });
+  let shared = first.draft.electrical;
+  const paths = new Set(decoders.flatMap((d) => changedPaths(first.draft.electrical, d.draft.electrical)));
+  for (const path of paths) {
+    const counts = new Map<string, { value: unknown; n: number }>();
+    for (const d of decoders) {
+      const value = valueAt(d.draft.electrical, path);
+      const key = JSON.stringify(value) ?? "undefined";
+      const c = counts.get(key) ?? { value, n: 0 };
+      counts.set(key, { value, n: c.n + 1 });
+    }
+    // Map keeps the first decoder's value first, so among equals it wins.
+    const best = [...counts.values()].reduce((a, b) => (b.n > a.n ? b : a));
+    shared = withValue(shared, path, best.value);
+  }
+  return retitled({ title: inst.title, electrical: shared, decoders, single: inst.single });
 }
 
 /** A plain project as an instrument draft. */

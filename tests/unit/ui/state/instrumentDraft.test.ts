@@ -153,6 +153,20 @@ describe("the shared electrical section", () => {
     expect(instrumentToJson(instrumentDraftOf(read))).toBe(instrumentToJson(own));
   });
 
+  it("shares what most decoders use: one decoder of three overriding a value shows as its own, however the file split them", () => {
+    const three = addDecoder(two, zeroToNine);
+    const data = instrumentData(three) as { decoders: Record<string, unknown>[]; electrical: { supply: object } };
+    // The file shares decoder 1's supply, and the other two override it alike (as serializeInstrument writes it).
+    const other = { supply: { ...data.electrical.supply, volts: v0 + 0.2 } };
+    const decoders = [data.decoders[0], { ...data.decoders[1], electrical: other }, { ...data.decoders[2], electrical: other }];
+    const r = validateInstrument({ ...data, decoders });
+    if (!r.ok) throw new Error(JSON.stringify(r.error));
+    const back = instrumentDraftOf(r.value);
+    expect(back.electrical.supply.volts).toBe(v0 + 0.2);
+    expect([0, 1, 2].map((k) => overriddenPaths(back, k))).toEqual([["supply.volts"], [], []]);
+    expect([0, 1, 2].map((k) => supply(back, k))).toEqual([v0, v0 + 0.2, v0 + 0.2]);
+  });
+
   it("names the changed values by path", () => {
     expect(changedPaths({ a: { b: 1, c: [1, 2] }, d: 3 }, { a: { b: 1, c: [1, 3] }, d: 4 })).toEqual(["a.c", "d"]);
   });
