@@ -15,6 +15,7 @@ import { budgetDesign, solveBudget } from "../../src/core/budget/budget.ts";
 import { instrumentBudget, type BudgetedDecoder } from "../../src/core/budget/instrumentBudget.ts";
 import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
+import { storedZipEntries } from "../support/zipRead.ts";
 import { startApp, type AppHarness } from "./appBrowser.ts";
 
 let app: AppHarness;
@@ -153,6 +154,28 @@ describe("an instrument in the web app", () => {
     expect(Math.abs(shown.segmentMa - core.segmentMa)).toBeLessThanOrEqual(0.005);
     expect(Math.abs(shown.mw - core.mw)).toBeLessThanOrEqual(0.5);
     await page.getByTestId("instrument").screenshot({ path: "/tmp/diodeloom-instrument-e2e.png" });
+  });
+
+  it("exports one set of papers: one BOM of every decoder, designators numbered by decoder, and the sheet index", async () => {
+    const shown = await shownTotals();
+    const download = async (kind: string): Promise<{ name: string; bytes: Buffer }> => {
+      await page.getByTestId("exports-menu").click();
+      const [d] = await Promise.all([page.waitForEvent("download", { timeout: 120_000 }), page.getByTestId(`export-${kind}`).click()]);
+      return { name: d.suggestedFilename(), bytes: readFileSync(await d.path()) };
+    };
+    const bom = await download("bom");
+    expect(bom.name).toMatch(/-bom\.csv$/);
+    const rows = bom.bytes.toString("utf8").trim().split("\n").slice(1);
+    const quantity = (test: RegExp) => rows.filter((r) => test.test(r)).reduce((n, r) => n + Number(r.split(",")[0]), 0);
+    expect(quantity(/matrix diode/)).toBe(shown.diodes);
+    expect(quantity(/NPN/)).toBe(shown.transistors);
+    expect(rows.find((r) => /matrix diode/.test(r))).toMatch(/1D1-1D\d+, 2D1-2D\d+/);
+    const sheets = await download("svg");
+    expect(sheets.name).toMatch(/-matrix-sheets\.zip$/);
+    const names = storedZipEntries(sheets.bytes).map((e) => e.name);
+    expect(names[0]).toBe("index.svg");
+    expect(names).toContain("1-main/matrix.svg");
+    expect(names).toContain("2-seconds/matrix.svg");
   });
 
   it("finds both decoders after a reload, with the undo history", async () => {

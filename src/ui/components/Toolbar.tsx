@@ -6,7 +6,8 @@
 import { createSignal, For, Show } from "solid-js";
 import { fileSizeProblem } from "../../core/project/limits.ts";
 import { app } from "../state/appState.ts";
-import { instrumentToJson } from "../state/instrumentDraft.ts";
+import { instrumentData, instrumentToJson } from "../state/instrumentDraft.ts";
+import { exportInstrument } from "../files/instrumentExport.ts";
 import type { Instrument } from "../../core/project/instrument.ts";
 import { downloadText, fileStem } from "../files/download.ts";
 import { exportFiles, type ExportKind } from "../files/exportFiles.ts";
@@ -59,6 +60,7 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
     setTimeout(() => setShareState(null), 4000);
   };
   const doExport = (kind: ExportKind) => {
+    if (app.instrument().decoders.length > 1) return void doInstrumentExport(kind);
     const r = app.live();
     if (!r) return;
     const stem = fileStem(r.project.title);
@@ -74,6 +76,30 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
     files.forEach((f) => downloadText(`${stem}-${f.name}`, f.content, f.mediaType));
     if (menu) menu.open = false;
   };
+
+  /** An instrument's export: its one set of papers, as the command line writes it. */
+  const doInstrumentExport = async (kind: ExportKind) => {
+    const v = app.instrumentValidation();
+    if (!v.ok) {
+      app.setNotice({ level: "warn", title: "Nothing to export yet", lines: ["a decoder has problems to fix first"] });
+      return;
+    }
+    setExporting(true);
+    const r = await exportInstrument(v.value, instrumentData(app.instrument()), app.summary(), app.trimMode(), app.drawingChoice(), kind);
+    setExporting(false);
+    if (!r.ok || r.files.length === 0) {
+      app.setNotice({
+        level: "warn",
+        title: "Nothing to export yet",
+        lines: [r.ok ? "no file of this kind (a budget failed?)" : r.message],
+      });
+      return;
+    }
+    const stem = fileStem(v.value.title);
+    r.files.forEach((f) => downloadText(`${stem}-${f.name}`, f.content, f.mediaType));
+    if (menu) menu.open = false;
+  };
+  const [exporting, setExporting] = createSignal(false);
 
   return (
     <header class="toolbar" role="toolbar" aria-label="Project actions">
@@ -166,7 +192,7 @@ export function Toolbar(props: { paper: Paper; onPaper: (p: Paper) => void; expo
         <div class="menu-items" role="group" aria-label="Export">
           <Show when={app.instrument().decoders.length > 1}>
             <p class="muted small menu-note" data-testid="export-decoder-note">
-              The papers of the open decoder, {app.instrument().decoders[app.selected()]?.name}
+              One set of papers for every decoder{exporting() ? ": preparing…" : ""}
             </p>
           </Show>
           <For each={props.exportKinds}>

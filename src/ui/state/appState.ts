@@ -746,6 +746,8 @@ function createAppState() {
     /** Each decoder's figures for the instrument summary, in the list's order; empty for a plain project. */
     summary,
     instrumentSummary,
+    /** The whole instrument as the core reads it, or its problems. */
+    instrumentValidation,
     instrumentProblems: () => {
       const v = instrumentValidation();
       return v.ok ? [] : v.error;
