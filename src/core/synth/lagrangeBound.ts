@@ -81,6 +81,144 @@ interface Item {
   readonly from: number;
 }
 
+/** One row's structures in flat arrays, built once. */
+interface RowData {
+  /** Lit outputs. */
+  readonly r: number;
+  /** The row's weight (states it stands for). */
+  readonly w: number;
+  /** Per structure the row may use: its item, its mask over the row's own outputs, its share's place in the flat share array, and a link's source (local bit) or -1. */
+  readonly item: Int32Array;
+  readonly mask: Int32Array;
+  readonly slot: Int32Array;
+  readonly src: Int32Array;
+  /** The row's links grouped by source: `linkStart[g]..linkStart[g+1]` index `linkPos`, positions in the arrays above. */
+  readonly linkPos: Int32Array;
+  readonly linkStart: Int32Array;
+}
+
+/** Scratch arrays of the cover DP, sized for the widest row. */
+interface Workspace {
+  readonly single: Float64Array;
+  readonly singleItem: Int32Array;
+  readonly f: Float64Array;
+  readonly directCost: Float64Array;
+}
+
+/** A row's cheapest cover: its cost, the positions (in its `RowData`) of the structures it uses, its direct outputs and its padding-bus outputs (local bits; -1: no padding bus). */
+interface RowCover {
+  readonly cost: number;
+  readonly used: number[];
+  readonly direct: number;
+  readonly pad: number;
+  /** DP steps done, for the meter. */
+  readonly steps: number;
+}
+
+/** Placeholder in `singleItem`: a direct diode. */
+const DIRECT = -1;
+/** Placeholder in `singleItem`: the row's own padding bus. */
+const PAD = -2;
+
+function popcount(x: number): number {
+  let t = 0;
+  for (let v = x; v !== 0; v &= v - 1) t++;
+  return t;
+}
+
+/**
+ * Row `d`'s cheapest cover under the shares and the level multipliers `nu`:
+ * direct diodes at its weight less the multipliers of the links it is the
+ * source of (never under uniform), any of its structures at its own charge
+ * (weight for a bus, the multiplier for a link) plus its share, and its own
+ * padding bus at its weight plus one per output (several padding buses are
+ * allowed, but one always does at least as well, since each costs the weight
+ * again). A top-level function over typed arrays: about three times faster
+ * than the same loops in a closure.
+ */
+function coverRow(d: RowData, share: Float64Array, nu: Float64Array, directOk: boolean, padOk: boolean, ws: Workspace): RowCover {
+  const { r, w: wk, item, mask: masks, slot, src } = d;
+  const { single, singleItem, f, directCost } = ws;
+  const full = (1 << r) - 1;
+  const count = item.length;
+  directCost.fill(wk, 0, r);
+  for (let j = 0; j < count; j++) {
+    const a = src[j] as number;
+    if (a >= 0) directCost[a] = (directCost[a] as number) - (nu[j] as number);
+  }
+  single.fill(Infinity, 0, full + 1);
+  singleItem.fill(DIRECT, 0, full + 1);
+  if (directOk) for (let b = 0; b < r; b++) single[1 << b] = directCost[b] as number;
+  if (padOk) {
+    for (let m = 1; m <= full; m++) {
+      const c = wk + popcount(m);
+      if (c < (single[m] as number)) {
+        single[m] = c;
+        singleItem[m] = PAD;
+      }
+    }
+  }
+  for (let j = 0; j < count; j++) {
+    const c = ((src[j] as number) >= 0 ? (nu[j] as number) : wk) + (share[slot[j] as number] as number);
+    const m = masks[j] as number;
+    if (c < (single[m] as number)) {
+      single[m] = c;
+      singleItem[m] = j;
+    }
+  }
+  // Superset closure: the cheapest single structure lighting at least each subset.
+  for (let b = 0; b < r; b++) {
+    const bit = 1 << b;
+    for (let m = full; m >= 0; m--) {
+      if (m & bit) continue;
+      const up = m | bit;
+      if ((single[up] as number) < (single[m] as number)) {
+        single[m] = single[up] as number;
+        singleItem[m] = singleItem[up] as number;
+      }
+    }
+  }
+  // Cover DP: one structure holding the lowest output, plus the cheapest cover of the rest (values only; the choices are found again below, along one path).
+  f[0] = 0;
+  let steps = r * (full + 1) + count;
+  for (let m = 1; m <= full; m++) {
+    const low = m & -m;
+    const rest = m ^ low;
+    let bv = single[m] as number;
+    for (let s = rest & (rest - 1); ; s = (s - 1) & rest) {
+      const c = (single[s | low] as number) + (f[rest ^ s] as number);
+      if (c < bv) bv = c;
+      if (s === 0) break;
+    }
+    f[m] = bv;
+    steps += 1 << popcount(rest);
+  }
+  const used: number[] = [];
+  let direct = 0;
+  let pad = -1;
+  for (let m = full; m !== 0;) {
+    const low = m & -m;
+    const rest = m ^ low;
+    let bv = Infinity;
+    let bs = m;
+    for (let s = rest; ; s = (s - 1) & rest) {
+      const c = (single[s | low] as number) + (f[rest ^ s] as number);
+      if (c < bv) {
+        bv = c;
+        bs = s | low;
+      }
+      if (s === 0) break;
+    }
+    steps += 1 << popcount(rest);
+    const j = singleItem[bs] as number;
+    if (j >= 0) used.push(j);
+    else if (j === PAD) pad = Math.max(0, pad) | bs;
+    else direct |= bs;
+    m ^= bs;
+  }
+  return { cost: f[full] as number, used, direct, pad, steps };
+}
+
 /**
  * The bound of the relaxation above, for a problem (possibly reduced, see
  * reduce.ts) at depth limit 2.
@@ -103,141 +241,87 @@ export function lagrangeBound(
   const n = p.n;
   const w = (k: number): number => p.weight[k] ?? 1;
 
-  // Per row: its items, and for each the local mask and the slot of its share.
-  const rowItems: number[][] = Array.from({ length: n }, () => []);
-  const rowMasks: number[][] = Array.from({ length: n }, () => []);
-  const rowSrc: number[][] = Array.from({ length: n }, () => []);
+  // Shares in one flat array, item by item in `users` order; start from the even split.
+  const shareStart = new Int32Array(items.length + 1);
+  items.forEach((it, i) => (shareStart[i + 1] = (shareStart[i] as number) + it.users.length));
+  const share = new Float64Array(shareStart[items.length] as number);
+  items.forEach((it, i) => share.fill(it.fixed / Math.max(1, it.users.length), shareStart[i], shareStart[i + 1]));
+
+  // Per row: its structures, with local masks, share slots and link sources.
+  const lists: { item: number[]; mask: number[]; slot: number[]; src: number[] }[] = Array.from({ length: n }, () => ({
+    item: [],
+    mask: [],
+    slot: [],
+    src: [],
+  }));
   const local = p.row.map((r) => new Map(r.map((o, i) => [o, i])));
   items.forEach((it, i) => {
-    it.users.forEach((k) => {
+    it.users.forEach((k, u) => {
       const loc = local[k] as Map<number, number>;
+      const l = lists[k];
+      if (!l) return;
       let mask = 0;
       for (const o of it.outputs) mask |= 1 << (loc.get(o) ?? 0);
-      rowItems[k]?.push(i);
-      rowMasks[k]?.push(mask);
-      rowSrc[k]?.push(it.link ? (loc.get(it.from) ?? -1) : -1);
+      l.item.push(i);
+      l.mask.push(mask);
+      l.slot.push((shareStart[i] as number) + u);
+      l.src.push(it.link ? (loc.get(it.from) ?? -1) : -1);
     });
+  });
+  const rows: RowData[] = lists.map((l, k) => {
+    const bySource = new Map<number, number[]>();
+    l.src.forEach((a, j) => {
+      if (a < 0) return;
+      let g = bySource.get(a);
+      if (!g) bySource.set(a, (g = []));
+      g.push(j);
+    });
+    const groups = [...bySource.values()];
+    const linkStart = new Int32Array(groups.length + 1);
+    groups.forEach((g, x) => (linkStart[x + 1] = (linkStart[x] as number) + g.length));
+    return {
+      r: (p.row[k] ?? []).length,
+      w: w(k),
+      item: Int32Array.from(l.item),
+      mask: Int32Array.from(l.mask),
+      slot: Int32Array.from(l.slot),
+      src: Int32Array.from(l.src),
+      linkPos: Int32Array.from(groups.flat()),
+      linkStart,
+    };
   });
   // Level multipliers, per row and its links (0 for a bus): a row that lights a link's source
   // a and uses the link must light a by a direct diode (a link source sits at level 1, which
   // only direct diodes feed, under mixed and per-segment alike). Relaxed with a multiplier
   // that the link's use pays and a's direct diode earns back; kept non-negative and, per row
   // and source, at most the row's weight, so a direct diode never costs less than nothing.
-  const nu = rowItems.map((l) => new Float64Array(l.length));
-  const directCost = new Float64Array(Math.max(1, ...p.row.map((r) => r.length)));
-  // Shares, per item in `users` order; start from the even split.
-  const share = items.map((it) => new Float64Array(it.users.length).fill(it.fixed / Math.max(1, it.users.length)));
-  const userSlot = items.map((it) => new Map(it.users.map((k, u) => [k, u])));
-
-  const maxR = Math.max(0, ...p.row.map((r) => r.length));
-  const size = 1 << maxR;
-  const single = new Float64Array(size);
-  const singleItem = new Int32Array(size);
-  const f = new Float64Array(size);
-  const choice = new Int32Array(size);
-
-  /** Row k's cheapest cover under the shares and multipliers: its cost, the places (in its list) of the items it uses, and its direct outputs (local bits). */
-  const cover = (k: number): { cost: number; used: number[]; direct: number } => {
-    const r = (p.row[k] ?? []).length;
-    const wk = w(k);
-    const full = (1 << r) - 1;
-    const list = rowItems[k] as number[];
-    const masks = rowMasks[k] as number[];
-    const src = rowSrc[k] as number[];
-    const nk = nu[k] as Float64Array;
-    directCost.fill(wk, 0, r);
-    for (let j = 0; j < list.length; j++)
-      if ((src[j] as number) >= 0) directCost[src[j] as number] = (directCost[src[j] as number] as number) - (nk[j] as number);
-    let best = Infinity;
-    let bestUsed: number[] = [];
-    let bestDirect = 0;
-    // Two passes: without the padding bus, and with it (outputs left over go on it at 1 each).
-    const padOk = rules.buses && (uniform || wk >= 2);
-    for (const pad of padOk ? [false, true] : [false]) {
-      // Without the pad, outputs left over go direct (not under uniform, where they cannot).
-      single.fill(Infinity, 0, full + 1);
-      singleItem.fill(-1, 0, full + 1);
-      for (let b = 0; b < r; b++) {
-        const d = directOk ? (directCost[b] as number) : Infinity;
-        single[1 << b] = pad ? Math.min(1, d) : d;
-      }
-      for (let j = 0; j < list.length; j++) {
-        const i = list[j] as number;
-        const it = items[i] as Item;
-        const c = (it.link ? (nk[j] as number) : wk) + ((share[i] as Float64Array)[userSlot[i]?.get(k) ?? 0] ?? 0);
-        const mk = masks[j] as number;
-        if (c < (single[mk] as number)) {
-          single[mk] = c;
-          singleItem[mk] = j;
-        }
-      }
-      // Superset closure: the cheapest single structure lighting at least each subset.
-      for (let b = 0; b < r; b++) {
-        const bit = 1 << b;
-        for (let mask = full; mask >= 0; mask--) {
-          if (mask & bit) continue;
-          const up = mask | bit;
-          if ((single[up] as number) < (single[mask] as number)) {
-            single[mask] = single[up] as number;
-            singleItem[mask] = singleItem[up] as number;
-          }
-        }
-      }
-      f[0] = 0;
-      let steps = 0;
-      for (let mask = 1; mask <= full; mask++) {
-        const low = mask & -mask;
-        const rest = mask ^ low;
-        let bv = Infinity;
-        let bc = 0;
-        // Every subset of the rest, with the lowest output added.
-        for (let s = rest; ; s = (s - 1) & rest) {
-          const sub = s | low;
-          const c = (single[sub] as number) + (f[mask ^ sub] as number);
-          if (c < bv) {
-            bv = c;
-            bc = sub;
-          }
-          steps++;
-          if (s === 0) break;
-        }
-        f[mask] = bv;
-        choice[mask] = bc;
-      }
-      meter.charge(steps + r * (full + 1) + list.length);
-      const total = (f[full] as number) + (pad ? wk : 0);
-      if (total < best) {
-        best = total;
-        bestUsed = [];
-        bestDirect = 0;
-        for (let mask = full; mask !== 0;) {
-          const sub = choice[mask] as number;
-          const j = singleItem[sub] as number;
-          if (j >= 0) bestUsed.push(j);
-          else if (!pad || (directCost[31 - Math.clz32(sub)] as number) < 1) bestDirect |= sub;
-          mask ^= sub;
-        }
-      }
-    }
-    return { cost: best, used: bestUsed, direct: bestDirect };
+  const nu = rows.map((d) => new Float64Array(d.item.length));
+  const maxR = Math.max(0, ...rows.map((d) => d.r));
+  const ws: Workspace = {
+    single: new Float64Array(1 << maxR),
+    singleItem: new Int32Array(1 << maxR),
+    f: new Float64Array(1 << maxR),
+    directCost: new Float64Array(Math.max(1, maxR)),
   };
+  const padOkOf = (d: RowData): boolean => rules.buses && (uniform || d.w >= 2);
 
   let bestBound = -Infinity;
   let rounds = 0;
   let theta = 2;
   let stall = 0;
   const maxRounds = opts.maxRounds ?? 2000;
+  const covers: RowCover[] = [];
   for (; rounds < maxRounds; rounds++) {
     if (meter.spent() || meter.checkClock()) break;
     let sum = 0;
-    const used: number[][] = [];
-    const direct: number[] = [];
+    covers.length = 0;
     let complete = true;
     for (let k = 0; k < n; k++) {
-      const c = cover(k);
+      const d = rows[k] as RowData;
+      const c = coverRow(d, share, nu[k] as Float64Array, directOk, padOkOf(d), ws);
+      meter.charge(c.steps);
       sum += c.cost;
-      used.push(c.used);
-      direct.push(c.direct);
+      covers.push(c);
       // A round cut short by the budget is not a bound.
       if (meter.spent() && k < n - 1) {
         complete = false;
@@ -248,66 +332,61 @@ export function lagrangeBound(
     if (sum > bestBound + 1e-9) {
       bestBound = sum;
       stall = 0;
-    } else if (++stall >= 4) {
+    } else if (++stall >= 8) {
       theta /= 2;
       stall = 0;
     }
     if (Math.ceil(bestBound - 1e-7) >= opts.upper || theta < 1e-4) break;
-    // Subgradient on the shares: +1 for each (structure, row) in use, projected back onto the capped simplex.
-    const g = new Map<number, number[]>();
+    // Subgradient: +1 on the share of each (structure, row) in use; on a level multiplier, +1
+    // for a link used without its source direct, -1 for a direct source without the link.
     let norm = 0;
-    // And on the level multipliers: a link used without its source direct pushes up, a direct source without the link down.
-    const gNu: Float64Array[] = [];
-    used.forEach((list, k) => {
-      const row = rowItems[k] as number[];
-      for (const j of list) {
-        const i = row[j] as number;
-        let gi = g.get(i);
-        if (!gi) g.set(i, (gi = []));
-        gi.push(userSlot[i]?.get(k) ?? 0);
-        norm++;
+    const gNu: Int8Array[] = [];
+    for (let k = 0; k < n; k++) {
+      const d = rows[k] as RowData;
+      const c = covers[k] as RowCover;
+      norm += c.used.length;
+      const g = new Int8Array(d.item.length);
+      for (const j of c.used) if ((d.src[j] as number) >= 0) g[j] = 1;
+      for (let x = 0; x < d.linkPos.length; x++) {
+        const j = d.linkPos[x] as number;
+        const v = (g[j] as number) - ((c.direct >> (d.src[j] as number)) & 1);
+        g[j] = v;
+        norm += v * v;
       }
-      const src = rowSrc[k] as number[];
-      const gk = new Float64Array(row.length);
-      const inUse = new Set(list);
-      for (let j = 0; j < row.length; j++) {
-        const a = src[j] as number;
-        if (a < 0) continue;
-        gk[j] = (inUse.has(j) ? 1 : 0) - (((direct[k] as number) >> a) & 1);
-        norm += (gk[j] as number) * (gk[j] as number);
-      }
-      gNu.push(gk);
-    });
+      gNu.push(g);
+    }
     if (norm === 0) break;
     const step = (theta * Math.max(0.5, opts.upper - sum)) / norm;
     for (let k = 0; k < n; k++) {
+      const d = rows[k] as RowData;
       const nk = nu[k] as Float64Array;
-      const gk = gNu[k] as Float64Array;
-      const src = rowSrc[k] as number[];
-      const bySource = new Map<number, number[]>();
-      for (let j = 0; j < nk.length; j++) {
-        const a = src[j] as number;
-        if (a < 0) continue;
-        nk[j] = (nk[j] as number) + step * (gk[j] as number);
-        let l = bySource.get(a);
-        if (!l) bySource.set(a, (l = []));
-        l.push(j);
-      }
-      for (const js of bySource.values()) {
-        const v = Float64Array.from(js, (j) => nk[j] as number);
-        projectCapped(v, w(k));
-        js.forEach((j, x) => (nk[j] = v[x] as number));
+      const g = gNu[k] as Int8Array;
+      for (let x = 0; x + 1 < d.linkStart.length; x++) {
+        const from = d.linkStart[x] as number;
+        const to = d.linkStart[x + 1] as number;
+        const v = new Float64Array(to - from);
+        for (let y = from; y < to; y++) {
+          const j = d.linkPos[y] as number;
+          v[y - from] = (nk[j] as number) + step * (g[j] as number);
+        }
+        projectCapped(v, d.w);
+        for (let y = from; y < to; y++) nk[d.linkPos[y] as number] = v[y - from] as number;
       }
     }
-    // Every structure's shares move: those in use up by the step, then all projected (which lowers the others).
-    items.forEach((it, i) => {
-      const sh = share[i] as Float64Array;
-      const gi = g.get(i);
-      if (gi) for (const u of gi) sh[u] = (sh[u] ?? 0) + step;
-      else if (it.users.length === 0) return;
-      projectCapped(sh, it.fixed);
-    });
-    meter.charge(items.length);
+    // The shares in use move up by the step; each structure touched is projected back onto
+    // its capped simplex (which lowers its other shares). The others keep their sums, so
+    // they stay feasible untouched.
+    const touched = new Set<number>();
+    for (let k = 0; k < n; k++) {
+      const d = rows[k] as RowData;
+      for (const j of (covers[k] as RowCover).used) {
+        const at = d.slot[j] as number;
+        share[at] = (share[at] as number) + step;
+        touched.add(d.item[j] as number);
+      }
+    }
+    for (const i of touched) projectCapped(share.subarray(shareStart[i], shareStart[i + 1]), (items[i] as Item).fixed);
+    meter.charge(touched.size);
   }
   const bound = bestBound === -Infinity ? null : Math.ceil(bestBound - 1e-7);
   return { bound, rounds, work: meter.work, deadlineHit: meter.deadlineHit };

@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { DepthPolicy } from "../../../../src/core/project/project.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
@@ -7,12 +8,31 @@ import { lagrangeBound } from "../../../../src/core/synth/lagrangeBound.ts";
 import { litCount, planCost, planCount, problemFromLit, sharingProblem } from "../../../../src/core/synth/plan.ts";
 import { reduceRows } from "../../../../src/core/synth/reduce.ts";
 import { searchPlan } from "../../../../src/core/synth/search.ts";
-import { litRows } from "../../../support/litSpec.ts";
+import { litRows, specFromLit } from "../../../support/litSpec.ts";
+import { bruteMinimum } from "../../../support/bruteMinimum.ts";
 import { showing } from "../../../support/projects.ts";
 
 const POLICIES: readonly DepthPolicy[] = ["mixed", "per-segment", "uniform"];
 const rulesOf = (policy: DepthPolicy) => ({ depthLimit: 2, policy, buses: true, links: true }) as const;
 const pad2 = (k: number): string => String(k).padStart(2, "0");
+const SEED = 20261203;
+
+/** A random lit matrix of up to `n` rows and `m` outputs, about `k` cells lit in every `of`. */
+const litMatrix = (n: number, m: number, k: number, of: number) =>
+  fc.array(
+    fc.array(
+      fc.integer({ min: 0, max: of - 1 }).map((x) => x < k),
+      { minLength: m, maxLength: m },
+    ),
+    { minLength: 2, maxLength: n },
+  );
+
+/** The bound as the exact stage claims it (uniform: the all-bus bound or the direct count). */
+function claimed(p: ReturnType<typeof problemFromLit>, policy: DepthPolicy, upper: number, maxWork = 1e7): number {
+  const b = lagrangeBound(reduceRows(p).problem, rulesOf(policy), { maxWork, upper });
+  expect(b.bound).not.toBeNull();
+  return policy === "uniform" ? Math.min(litCount(p), b.bound ?? 0) : (b.bound ?? 0);
+}
 
 describe("lagrangeBound", () => {
   it("never exceeds the proven optimum of a digit counter (0-9 and 0-F, every policy; the branch-and-bound proves it)", () => {
@@ -32,6 +52,47 @@ describe("lagrangeBound", () => {
         expect(bound, `${show} ${policy}`).toBeGreaterThan(Math.max(p.m, p.n));
       }
     }
+  });
+
+  it(`never exceeds the brute-force minimum on random 4 x 4 and 5 x 4 matrices, every policy, whatever the step target (seed ${SEED})`, () => {
+    fc.assert(
+      fc.property(fc.oneof(litMatrix(4, 4, 3, 4), litMatrix(5, 4, 1, 2)), fc.constantFrom(...POLICIES), (lit, policy) => {
+        const spec = specFromLit(lit);
+        const p = sharingProblem(spec);
+        if (litCount(p) === 0) return;
+        const min = bruteMinimum(spec.lit, policy);
+        // The target at the minimum (rounds stop there) and far above it (bigger steps, more rounds).
+        expect(claimed(p, policy, min), policy).toBeLessThanOrEqual(min);
+        expect(claimed(p, policy, litCount(p) + p.n + 5), policy).toBeLessThanOrEqual(min);
+      }),
+      { seed: SEED, numRuns: 200 },
+    );
+  });
+
+  it(`never exceeds the proven minimum of random merged rows: 4 x 6 rows repeated 1 to 4 times, every policy (seed ${SEED})`, () => {
+    fc.assert(
+      fc.property(
+        litMatrix(4, 6, 1, 2),
+        fc.array(fc.integer({ min: 1, max: 4 }), { minLength: 4, maxLength: 4 }),
+        fc.constantFrom(...POLICIES),
+        (rows, times, policy) => {
+          const spec = specFromLit(rows.flatMap((r, i) => Array.from({ length: times[i] ?? 1 }, () => r)));
+          const p = problemFromLit(spec.lit);
+          if (litCount(p) === 0) return;
+          const rules = rulesOf(policy);
+          // The branch-and-bound on the states as they are (checked against brute force in search.test.ts).
+          const proof = searchPlan(p, rules, candidateFamily(p, policy === "mixed" ? 2 : 1), litCount(p) + p.n + 1, { maxWork: 1e12 });
+          expect(proof.proven).toBe(true);
+          if (!proof.plan) throw new Error("the all-padding-bus bound leaves a plan to find");
+          const min = policy === "uniform" ? Math.min(litCount(p), planCount(proof.plan)) : planCount(proof.plan);
+          expect(
+            claimed(p, policy, min),
+            `${rows.map((r) => r.map(Number).join("")).join(" ")} x ${times.join(",")} ${policy}`,
+          ).toBeLessThanOrEqual(min);
+        },
+      ),
+      { seed: SEED, numRuns: 150 },
+    );
   });
 
   it("takes a merged row's weight: a digit standing for 10 states (0-9 merged, optimum 149 proven in refine.test.ts)", () => {
