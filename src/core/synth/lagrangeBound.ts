@@ -133,8 +133,8 @@ function popcount(x: number): number {
  * (weight for a bus, the multiplier for a link) plus its share, and its own
  * padding bus at its weight plus one per output (several padding buses are
  * allowed, but one always does at least as well, since each costs the weight
- * again). A top-level function over typed arrays: about three times faster
- * than the same loops in a closure.
+ * again). A top-level function over typed arrays, the share places found
+ * once: about three times faster than the closure it replaced.
  */
 function coverRow(d: RowData, share: Float64Array, nu: Float64Array, directOk: boolean, padOk: boolean, ws: Workspace): RowCover {
   const { r, w: wk, item, mask: masks, slot, src } = d;
