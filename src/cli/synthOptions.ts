@@ -14,7 +14,6 @@ import {
   numberFromText,
 } from "../core/project/synthesisSchema.ts";
 import { checkPolarity } from "../core/project/polaritySchema.ts";
-import { electricalRefusal } from "../core/matrix/matrix.ts";
 import { synthesize, synthSettings, type SynthFailure, type SynthSettings } from "../core/synth/synthesize.ts";
 import { synthesizeCoded, type CodedSynthesis } from "../core/logic/synthesizeCoded.ts";
 import type { OptionSpec, ParsedArgs } from "./args.ts";
@@ -142,11 +141,6 @@ export async function loadAndSynthesize(
 export async function synthesizeForCircuit(project: Project, args: ParsedArgs, io: CliIo, refPrefix = ""): Promise<Synthesized | number> {
   const done = await synthesizeProject(project, args, io, refPrefix);
   if (typeof done === "number") return done;
-  const refusal = electricalRefusal(done.matrix);
-  if (refusal !== null) {
-    io.err(`${refusal}\n`);
-    return EXIT.input;
-  }
   return done;
 }
 

@@ -28,6 +28,7 @@ export function partValue(g: PartGroup, e: ElectricalModel): string {
   if (g.ohms !== null) return formatOhms(g.ohms);
   switch (g.kind) {
     case "diode":
+    case "level-shift-diode":
       return "small-signal silicon";
     case "transistor":
       return "NPN";
@@ -66,6 +67,12 @@ export function partDescription(g: PartGroup, e: ElectricalModel, design: Segmen
       return "output line pull-down";
     case "tie-on-resistor":
       return `holds an always-lit segment on, from the logic supply (${e.logicSupply.volts} V)`;
+    case "level-shift-diode":
+      return `level-shift diode in series with a dark-decoded output's driver input (keeps it off while the node is pulled down), the matrix diode's type`;
+    case "dark-pull-up":
+      return `pull-up of a dark-decoded output node, from the logic supply (${e.logicSupply.volts} V), ${e.tolerance.resistorPct} %, sized by the budget's ghost check`;
+    case "divider-resistor":
+      return `divider from a dark-decoded output node to its driver's input (over the pull-down), ${e.tolerance.resistorPct} %, sized by the budget's ghost check`;
     case "gate-pull-up":
       return `AND gate pull-up, from the logic supply (${e.logicSupply.volts} V) to the gate node, ${e.tolerance.resistorPct} %`;
     case "display":

@@ -65,6 +65,8 @@ export function warningText(w: BudgetWarning): string {
       return `counter line ${w.line} sources ${milliampsText(w.currentA)} in ${w.state}, more than the ${milliampsText(w.ratedA)} it may`;
     case "line-sink":
       return `counter line ${w.line} sinks ${milliampsText(w.currentA)} from the gate pull-ups it holds low in ${w.state}, more than the ${milliampsText(w.ratedA)} it may; a larger gatePullUp lowers it`;
+    case "dark-network":
+      return `the dark-decoded outputs' pull-ups and input network break ${w.where}; see the dark decode section of the budget`;
     case "ghost-segment":
       return (
         `${w.output} is unlit in ${w.state} but carries ${microampsText(w.currentA)}, above ${microampsText(w.limitA)} (the ghost limit); ` +

@@ -12,7 +12,7 @@
  */
 import type { Budget } from "../core/budget/budgetTypes.ts";
 import { carriedVoltages, safetyCautions } from "../core/budget/safety.ts";
-import { designNote, type SegmentDesign } from "../core/budget/segmentDesign.ts";
+import { designModel, designNote, type SegmentDesign } from "../core/budget/segmentDesign.ts";
 import { designators, type DriverParts, type StageResistor } from "../core/matrix/designators.ts";
 import type { DiodeMatrix } from "../core/matrix/matrix.ts";
 import type { DriverKind, ElectricalModel, Project } from "../core/project/project.ts";
@@ -233,7 +233,7 @@ function placeInk(ink: Ink, dx: number, dy: number, s: number): Ink {
 export function layoutDriverSheets(input: DriverSheetInput): Sheet[] {
   const { project, spec, matrix, design, options, budget } = input;
   const e = project.electrical;
-  const parts = designators(spec, matrix, e, design.ohms);
+  const parts = designators(spec, matrix, designModel(e, design), design.ohms);
   const table = driverTable(parts.drivers, budget);
   const tiedOn = parts.drivers.filter((d) => d.tiedOn).map((d) => d.output);
   const frame = sheetFrame(options.paper, "landscape");

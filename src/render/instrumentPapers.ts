@@ -18,7 +18,6 @@
  */
 import type { InstrumentBudget } from "../core/budget/instrumentBudget.ts";
 import { designators } from "../core/matrix/designators.ts";
-import { electricalRefusal } from "../core/matrix/matrix.ts";
 import { csvText } from "../core/papers/csv.ts";
 import { refRanges } from "../core/papers/parts.ts";
 import { spiceNetlist } from "../core/papers/netlist.ts";
@@ -28,6 +27,7 @@ import { BOM_HEADER, bomLines, type BomLine } from "./bom.ts";
 import { label, STROKE, type Label, type Rect, type Segment, type Sheet } from "./drawingModel.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
 import { instrumentBudgetJsonText } from "./instrumentBudgetReport.ts";
+import { designModel } from "../core/budget/segmentDesign.ts";
 import { driverSheets, paperDesign, tieOnsOf, type PaperFile, type PaperInput } from "./papers.ts";
 import { sheetFrame, titleBlock } from "./sheetFrame.ts";
 import { sheetSvgText } from "./sheetSvg.ts";
@@ -177,9 +177,9 @@ export function indexSheet(entries: readonly SheetIndexEntry[], instrument: Inst
 
 /** Each decoder's BOM lines, as its own BOM has them (none while its budget is pending or it has no circuit). */
 export function decoderBomLines(d: PaperInput): BomLine[] {
-  if (!d.budget || electricalRefusal(d.matrix) !== null) return [];
+  if (!d.budget) return [];
   const design = paperDesign(d);
-  return bomLines(d.project.electrical, designators(d.spec, d.matrix, d.project.electrical, design.ohms), design);
+  return bomLines(d.project.electrical, designators(d.spec, d.matrix, designModel(d.project.electrical, design), design.ohms), design);
 }
 
 /**
@@ -276,7 +276,7 @@ export function* eachInstrumentPaperFile(input: InstrumentPaperInput): Generator
       const files = sheetFiles(folder, "driver", sheets.length);
       for (const [k, s] of sheets.entries()) yield { name: files[k] as string, mediaType: "image/svg+xml", text: sheetSvgText(s) };
     }
-    if (d.budget && electricalRefusal(d.matrix) === null) {
+    if (d.budget) {
       const design = paperDesign(d);
       for (const [k, s] of d.spec.states.entries()) {
         yield { name: `${folder}/spice/${s}.cir`, mediaType: "text/plain", text: spiceNetlist(d.project, d.spec, d.matrix, k, design) };

@@ -11,12 +11,12 @@
  */
 import { budgetDesign } from "../core/budget/budget.ts";
 import type { Budget } from "../core/budget/budgetTypes.ts";
-import { projectDesign, type SegmentDesign } from "../core/budget/segmentDesign.ts";
+import { designModel, projectDesign, type SegmentDesign } from "../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import { designators } from "../core/matrix/designators.ts";
-import { electricalRefusal, type VerifiedMatrix } from "../core/matrix/matrix.ts";
+import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
 import { spiceNetlists } from "../core/papers/netlist.ts";
-import { tieOnRows, wiringCsv, wiringRows, type TieOnRow } from "../core/papers/wiringList.ts";
+import { networkRows, tieOnRows, wiringCsv, wiringRows, type NetworkRow, type TieOnRow } from "../core/papers/wiringList.ts";
 import type { Project } from "../core/project/project.ts";
 import { serializeProject } from "../core/project/projectWriter.ts";
 import type { Result } from "../core/result/result.ts";
@@ -66,6 +66,12 @@ export function tieOnsOf(input: Pick<PaperInput, "project" | "spec" | "matrix">)
   return tieOnRows(designators(input.spec, input.matrix, input.project.electrical).drivers);
 }
 
+/** The dark-decoded outputs' input network for the wiring list, with the values of the design the papers show. */
+export function networkOf(input: Pick<PaperInput, "project" | "spec" | "matrix" | "budget">): NetworkRow[] {
+  const design = paperDesign(input);
+  return networkRows(designators(input.spec, input.matrix, designModel(input.project.electrical, design), design.ohms).darkInputs);
+}
+
 /**
  * The driver-stage sheets of the design the papers show: the stage drawn
  * once, the supplies, the hazard note above 60 V DC and every output's
@@ -109,14 +115,26 @@ function* filesOfKind(input: PaperInput, kind: PaperKind): Generator<PaperFile> 
       return;
     }
     case "wiring":
-      yield { name: "wiring.csv", mediaType: "text/csv", text: wiringCsv(wiringRows(matrix, drawing.placements), tieOnsOf(input)) };
+      yield {
+        name: "wiring.csv",
+        mediaType: "text/csv",
+        text: wiringCsv(wiringRows(matrix, drawing.placements), tieOnsOf(input), networkOf(input)),
+      };
       return;
     case "wiring-page": {
       const rows = wiringRows(matrix, drawing.placements);
       yield {
         name: "wiring.html",
         mediaType: "text/html",
-        text: wiringPageHtml({ project, matrix, rows, tieOns: tieOnsOf(input), options, sheetCount: drawing.sheets.length }),
+        text: wiringPageHtml({
+          project,
+          matrix,
+          rows,
+          tieOns: tieOnsOf(input),
+          network: networkOf(input),
+          options,
+          sheetCount: drawing.sheets.length,
+        }),
       };
       return;
     }
@@ -129,14 +147,14 @@ function* filesOfKind(input: PaperInput, kind: PaperKind): Generator<PaperFile> 
       };
       return;
     case "bom": {
-      if (!budget || electricalRefusal(matrix) !== null) return;
+      if (!budget) return;
       const design = paperDesign(input);
-      const parts = designators(spec, matrix, project.electrical, design.ohms);
+      const parts = designators(spec, matrix, designModel(project.electrical, design), design.ohms);
       yield { name: "bom.csv", mediaType: "text/csv", text: bomCsv(bomLines(project.electrical, parts, design)) };
       return;
     }
     case "netlists": {
-      if (!budget || electricalRefusal(matrix) !== null) return;
+      if (!budget) return;
       const design = paperDesign(input);
       let k = 0;
       for (const text of spiceNetlists(project, spec, matrix, design)) {

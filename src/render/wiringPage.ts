@@ -5,7 +5,15 @@
  */
 import type { DiodeMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
-import { INSPECTION_CHECKLIST, TIE_ON_HEADING, WIRING_HEADER, type TieOnRow, type WiringRow } from "../core/papers/wiringList.ts";
+import {
+  INSPECTION_CHECKLIST,
+  NETWORK_HEADING,
+  TIE_ON_HEADING,
+  WIRING_HEADER,
+  type NetworkRow,
+  type TieOnRow,
+  type WiringRow,
+} from "../core/papers/wiringList.ts";
 import { ohmsText } from "./units.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
 
@@ -23,6 +31,8 @@ export interface WiringPageInput {
   readonly rows: readonly WiringRow[];
   /** The tie-on resistors of the tied-on outputs (none when no output is tied on). */
   readonly tieOns?: readonly TieOnRow[];
+  /** The dark-decoded outputs' input network (none when no output is decoded dark). */
+  readonly network?: readonly NetworkRow[];
   readonly options: DrawingOptions;
   /** Number of matrix drawing sheets the rows refer to. */
   readonly sheetCount: number;
@@ -51,6 +61,18 @@ export function wiringPageHtml(input: WiringPageInput): string {
 <thead><tr><th>Step</th><th>Ref</th><th>Value</th><th>From</th><th>To</th><th>Done</th></tr></thead>
 <tbody>
 ${tieOns.map((t, i) => `<tr><td>T${i + 1}</td><td><b>${esc(t.ref)}</b></td><td>${esc(ohmsText(t.ohms))}</td><td>${esc(t.from)}</td><td>${esc(t.to)}</td><td class="box"></td></tr>`).join("\n")}
+</tbody>
+</table>
+`;
+  const network = input.network ?? [];
+  const networkTable =
+    network.length === 0
+      ? ""
+      : `<h1>${esc(NETWORK_HEADING)}</h1>
+<table>
+<thead><tr><th>Step</th><th>Ref</th><th>Value</th><th>From</th><th>To</th><th>Done</th></tr></thead>
+<tbody>
+${network.map((n, i) => `<tr><td>N${i + 1}</td><td><b>${esc(n.ref)}</b></td><td>${esc(n.ohms === null ? "diode" : ohmsText(n.ohms))}</td><td>${esc(n.from)}</td><td>${esc(n.to)}</td><td class="box"></td></tr>`).join("\n")}
 </tbody>
 </table>
 `;
@@ -91,7 +113,7 @@ th { background: #fff; font-weight: bold; }
 ${body}
 </tbody>
 </table>
-${tieOnTable}<h1>Inspection checklist</h1>
+${tieOnTable}${networkTable}<h1>Inspection checklist</h1>
 <table>
 <thead><tr><th>#</th><th>Item</th><th>Check</th><th>Done</th></tr></thead>
 <tbody>

@@ -1,11 +1,12 @@
 import { budgetDesign, solveBudget } from "../../core/budget/budget.ts";
-import type { Budget } from "../../core/budget/budgetTypes.ts";
+import type { Budget, DarkBudget } from "../../core/budget/budgetTypes.ts";
 import { designNote } from "../../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import type { Project } from "../../core/project/project.ts";
 import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
+import { darkFigureLines, darkNetworkText } from "../../render/darkBudgetText.ts";
 import { formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
 import { budgetDeadline, designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
@@ -105,6 +106,39 @@ const KIND_WORDS: Readonly<Record<Budget["kind"], string>> = {
 /** A current for a table, in mA (three decimals) at or above 0.1 mA, else in µA. */
 function amps(a: number, unit: "mA" | "µA"): string {
   return unit === "mA" ? milliamps(a, 3) : microamps(a);
+}
+
+/** The dark-decoded outputs' network and ghost check, every state at every corner. */
+function darkLines(d: DarkBudget, unit: "mA" | "µA"): string[] {
+  const L: string[] = [];
+  L.push(`Dark-decoded outputs (${d.outputs.length}): ${darkNetworkText(d)}`);
+  L.push(`  sizing: ${d.sizing}`);
+  L.push(
+    ...table(
+      ["Output", "Pull-up", d.input === "divider" ? "Divider" : "Level shift", d.input === "divider" ? "Lower" : "Bleed"],
+      d.outputs.map((o) => [o.output, o.pullUp, d.input === "divider" ? (o.divider ?? "") : o.shiftDiodes.join(" "), o.bleed]),
+    ),
+  );
+  L.push(
+    `Ghost check (every state at the nominal values and both corners; unlit = the largest unlit segment current of a dark-decoded output, ` +
+      `lit = the smallest lit one, sink = what the state's active-low line sinks)`,
+  );
+  const byState = new Map<string, Map<string, DarkBudget["states"][number]>>();
+  for (const s of d.states) byState.set(s.state, (byState.get(s.state) ?? new Map()).set(s.corner, s));
+  const cell = (s: DarkBudget["states"][number] | undefined): string[] => [
+    s?.worstUnlit ? `${microamps(s.worstUnlit.currentA)} ${s.worstUnlit.output}` : "-",
+    s?.weakestLit ? `${amps(s.weakestLit.currentA, unit)} ${s.weakestLit.output}` : "-",
+    s ? milliamps(s.lineSinkA, 3) : "-",
+  ];
+  const corners = ["nominal", "low", "high"];
+  L.push(
+    ...table(
+      ["State", ...corners.flatMap((c) => [`${c} unlit µA`, `lit ${unit}`, "sink mA"])],
+      [...byState].map(([state, m]) => [state, ...corners.flatMap((c) => cell(m.get(c)))]),
+    ),
+  );
+  L.push(...darkFigureLines(d, unit).map((l) => `  ${l}`));
+  return L;
 }
 
 /** The report of `budget`. */
@@ -233,6 +267,7 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     );
     L.push("");
   }
+  if (b.dark !== null) L.push(...darkLines(b.dark, unit), "");
   if (b.kind !== "direct") {
     const figure =
       b.kind === "low-side-switch"

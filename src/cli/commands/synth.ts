@@ -1,7 +1,7 @@
-import { designNote, type SegmentDesign } from "../../core/budget/segmentDesign.ts";
+import { designModel, designNote, type SegmentDesign } from "../../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
 import { designators } from "../../core/matrix/designators.ts";
-import { darkOutputs, electricalRefusal, matrixObjective, outputDecode, type VerifiedMatrix } from "../../core/matrix/matrix.ts";
+import { darkOutputs, matrixObjective, outputDecode, type VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import { countParts, refRanges } from "../../core/papers/parts.ts";
 import type { Project } from "../../core/project/project.ts";
 import { partValue } from "../../render/bom.ts";
@@ -13,8 +13,8 @@ import type { ParsedArgs } from "../args.ts";
 
 import { SYNTH_OPTIONS, SYNTH_USAGE, synthesizeCodedProject, synthesizeProject } from "../synthOptions.ts";
 import { describeDecoder } from "../decoderReport.ts";
-import { ghostCheck } from "../../core/budget/ghostCheck.ts";
-import { microamps, milliamps } from "../../render/units.ts";
+import { checkWith } from "../../core/budget/ghostCheck.ts";
+import { formatOhms, microamps, milliamps } from "../../render/units.ts";
 
 const USAGE = `synth FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE} ${DECODER_USAGE}`;
 
@@ -93,25 +93,28 @@ async function synthDecoder(
   if (typeof done === "number") return done;
   const { spec, matrix } = done;
   if (design === null) return { matrix, report: "" };
-  // Dark-decoded outputs are not in the circuit model yet: no design to settle.
-  const settled = electricalRefusal(matrix) === null ? designFor(done.project, spec, matrix, design, done.timeLimitMs) : null;
+  const settled = designFor(done.project, spec, matrix, design, done.timeLimitMs);
   return { matrix, report: describeMatrix(done.project, spec, matrix, settled) };
 }
 
-/** The ghost check of the dark-decoded outputs, in words. */
-function ghostLines(project: Project, spec: DecodeSpec, m: VerifiedMatrix): string[] {
-  const g = ghostCheck(project, spec, m);
+/** The ghost check of the dark-decoded outputs with the design's network, in words. */
+function ghostLines(project: Project, spec: DecodeSpec, m: VerifiedMatrix, design: SegmentDesign): string[] {
+  const net = design.network;
+  if (net === null || net === undefined) return ["", "Ghost check: the pull-ups could not be sized (the budget says why)"];
+  const g = checkWith(project, spec, m, net, { design: design.ohms });
   if (!g.ok) return ["", `Ghost check: ${g.error.message}`];
   const v = g.value;
   const at = (f: { output: string; state: string; corner: string }): string => `${f.output} in ${f.state}, ${f.corner}`;
   return [
     "",
-    `Ghost check (every state, at the nominal values and both tolerance corners), pull-ups ${v.values.pullUpOhms / 1000} kΩ (E24)${
-      v.values.dividerOhms !== null ? `, dividers ${v.values.dividerOhms / 1000} kΩ over the pull-down` : ""
+    `Ghost check (every state, at the nominal values and both tolerance corners), pull-ups ${formatOhms(net.pullUpOhms)} (E24)${
+      net.dividerOhms !== null
+        ? `, dividers ${formatOhms(net.dividerOhms)} over ${formatOhms(net.dividerLowerOhms ?? project.electrical.pullDown)}`
+        : ""
     }:`,
     `  worst unlit segment ${microamps(v.worstUnlit.currentA)} µA (${at(v.worstUnlit)}) against the ${microamps(v.ghostLimitA)} µA ghost limit`,
-    `  weakest lit segment ${milliamps(v.weakestLit.currentA)} mA (${at(v.weakestLit)}); most sunk by an active-low line ${milliamps(v.mostSunk.currentA)} mA (${at(v.mostSunk)}) of ${milliamps(project.electrical.lowLine.maxCurrentA)} mA`,
-    `  ${v.passes ? "passes" : "FAILS"}; the limit that binds: ${v.binding}`,
+    `  weakest lit segment ${milliamps(v.weakestLit.currentA)} mA (${at(v.weakestLit)}), window ${milliamps(v.litWindowA[0])}-${milliamps(v.litWindowA[1])} mA; most sunk by an active-low line ${milliamps(v.mostSunk.currentA)} mA (${at(v.mostSunk)}) of ${milliamps(project.electrical.lowLine.maxCurrentA)} mA`,
+    `  ${v.passes ? "passes" : `FAILS: ${v.binding}`}`,
   ];
 }
 
@@ -191,22 +194,17 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
   if (spec.neverLit.length > 0) lines.push(`Never lit (no driver): ${spec.neverLit.join(" ")}`);
 
   const net = m.inputNetwork;
-  if (design === null || (net !== undefined && dark.length > 0)) {
+  if (net !== undefined && dark.length > 0) {
     const what =
-      net === undefined
-        ? "no input network"
-        : net.kind === "divider"
-          ? `${net.resistors} divider resistors`
-          : `${net.diodes} level-shift diodes (${net.diodes / dark.length} per output)`;
-    lines.push(
-      "",
-      `Input network of the ${dark.length} dark-decoded outputs: ${dark.length} pull-ups to the logic supply and ${what}.`,
-      "The parts list, the budget and the netlists do not yet take dark-decoded outputs.",
-    );
-    if (dark.length > 0) lines.push(...ghostLines(project, spec, m));
-  } else {
+      net.kind === "divider"
+        ? `${net.resistors} divider resistors`
+        : `${net.diodes} level-shift diodes (${net.diodes / dark.length} per output)`;
+    lines.push("", `Input network of the ${dark.length} dark-decoded outputs: ${dark.length} pull-ups to the logic supply and ${what}.`);
+    if (design !== null) lines.push(...ghostLines(project, spec, m, design));
+  }
+  if (design !== null) {
     lines.push("", "Parts");
-    for (const g of countParts(designators(spec, m, project.electrical, design.ohms))) {
+    for (const g of countParts(designators(spec, m, designModel(project.electrical, design), design.ohms))) {
       lines.push(`  ${String(g.refs.length).padStart(4)}  ${partValue(g, project.electrical).padEnd(22)} ${refRanges(g.refs)}`);
     }
     lines.push(`  ${designNote(design)}`);

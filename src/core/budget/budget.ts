@@ -13,9 +13,10 @@
 import { cornerConditions, cornerModel, type CornerConditions } from "./corners.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import { currentRanges, overallSpread } from "./segmentTrim.ts";
-import { settleDesign, type SegmentDesign } from "./segmentDesign.ts";
+import { designModel, settleDesign, type SegmentDesign } from "./segmentDesign.ts";
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
-import { currentRole } from "../matrix/designators.ts";
+import { currentRole, designators, type CircuitModel, type DarkNetworkValues } from "../matrix/designators.ts";
+import { darkFigures, type GhostCheck } from "./ghostCheck.ts";
 import type { Project } from "../project/project.ts";
 import { ok, type Result } from "../result/result.ts";
 import type { BudgetFailure } from "../circuit/stateSweep.ts";
@@ -34,7 +35,7 @@ import {
 } from "./budgetFigures.ts";
 import { budgetWarnings } from "./budgetWarnings.ts";
 import { stateSpreads } from "./stateSpread.ts";
-import { BUDGET_SCHEMA, type Budget, type BudgetOptions } from "./budgetTypes.ts";
+import { BUDGET_SCHEMA, type Budget, type BudgetOptions, type DarkBudget } from "./budgetTypes.ts";
 
 export type { BudgetFailure } from "../circuit/stateSweep.ts";
 
@@ -51,7 +52,6 @@ export function solveBudget(
   matrix: VerifiedMatrix,
   options: BudgetOptions = {},
 ): Result<Budget, BudgetFailure> {
-  const e = project.electrical;
   const series = options.series ?? "E24";
   const mode = options.trim ?? "auto";
   const windowPct = options.windowPct ?? 20;
@@ -62,6 +62,8 @@ export function solveBudget(
   const settled = settleDesign(project, spec, matrix, { series, mode, windowPct, deadlineMs: options.deadlineMs, workspace });
   if (!settled.ok) return settled;
   const { design, solutions, trim } = settled.value;
+  // Every solve below is of the design: its input network too, where outputs are decoded dark.
+  const e: CircuitModel = designModel(project.electrical, design);
   const chosen = design.trimmed ? design.ohms : undefined;
   const lowSupply = readSweep(spec, matrix, { ...e, supply: { ...e.supply, volts: e.supply.minVolts } }, "lowest supply", {
     design: chosen,
@@ -126,9 +128,64 @@ export function solveBudget(
       windowDistancePct: settled.value.after.windowDistancePct,
     },
     corners: { windowPct, meetsTarget, low, high },
+    dark:
+      design.network === null || design.network === undefined
+        ? null
+        : darkBudget(
+            project,
+            spec,
+            matrix,
+            e,
+            design.network,
+            darkFigures(
+              project,
+              spec,
+              matrix,
+              design.network,
+              [
+                { name: "nominal", reading: solutions },
+                { name: "low", reading: lowSweep.value },
+                { name: "high", reading: highSweep.value },
+              ],
+              windowPct,
+            ),
+            settled.value.darkSizing?.binding ?? "",
+          ),
   };
   const spreads = stateSpreads({ spec, matrix, kind: e.driver.kind, solutions, outputs });
   return ok({ ...budget, warnings: budgetWarnings(project, budget, spreads) });
+}
+
+/** The dark-decoded outputs' part of the budget: the network's parts and values, and the check of the design. */
+function darkBudget(
+  project: Project,
+  spec: DecodeSpec,
+  matrix: VerifiedMatrix,
+  model: CircuitModel,
+  network: DarkNetworkValues,
+  check: GhostCheck,
+  sizing: string,
+): DarkBudget {
+  const parts = designators(spec, matrix, model);
+  const bleed = new Map(parts.drivers.map((d) => [d.output, d.pullDown.ref]));
+  const { values: _values, windowPct: _windowPct, why: _why, binding, ...figures } = check;
+  return {
+    input: network.dividerOhms === null ? "level-shift" : "divider",
+    pullUpOhms: network.pullUpOhms,
+    shiftDiodes: network.dividerOhms === null ? network.shiftDiodes : 0,
+    dividerOhms: network.dividerOhms,
+    bleedOhms: network.dividerLowerOhms ?? project.electrical.pullDown,
+    outputs: parts.darkInputs.map((p) => ({
+      output: p.output,
+      pullUp: p.pullUp.ref,
+      divider: p.divider?.ref ?? null,
+      shiftDiodes: p.shiftDiodes,
+      bleed: bleed.get(p.output) ?? "",
+    })),
+    ...figures,
+    verdict: binding,
+    sizing,
+  };
 }
 
 /**
@@ -136,7 +193,8 @@ export function solveBudget(
  * and the parts list must show for it.
  *
  * @example
- * designators(spec, matrix, project.electrical, budgetDesign(budget).ohms);
+ * const d = budgetDesign(budget);
+ * designators(spec, matrix, designModel(project.electrical, d), d.ohms);
  */
 export function budgetDesign(b: Budget): SegmentDesign {
   return {
@@ -146,5 +204,14 @@ export function budgetDesign(b: Budget): SegmentDesign {
     trimmed: b.trim.applied,
     effect: b.trim.effect,
     ohms: new Map(Object.entries(b.drivers).map(([o, d]) => [o, d.currentResistor.ohms])),
+    network:
+      b.dark === null
+        ? null
+        : {
+            pullUpOhms: b.dark.pullUpOhms,
+            shiftDiodes: b.dark.shiftDiodes,
+            dividerOhms: b.dark.dividerOhms,
+            dividerLowerOhms: b.dark.dividerOhms === null ? null : b.dark.bleedOhms,
+          },
   };
 }

@@ -62,7 +62,8 @@ function pathLengths(matrix: VerifiedMatrix): Map<string, Set<number>> {
       walk(t, depth + 1);
     }
   };
-  for (const s of [...sourceLines(matrix), ...matrix.gates.map((g) => g.ref)]) walk(s, 0);
+  // matrix.lines adds a one-hot counter's active-low lines, from which dark-decoded outputs are reached.
+  for (const s of new Set([...sourceLines(matrix), ...matrix.lines, ...matrix.gates.map((g) => g.ref)])) walk(s, 0);
   return lengths;
 }
 

@@ -8,7 +8,9 @@
  * its own figures (a sink's and a follower's headroom, a switch's forced
  * beta at the weakest corner). A coded counter's decoder adds its stage
  * lines (as `counterLines`, with what each sinks while low) and its AND
- * gates (`gates`).
+ * gates (`gates`). Dark-decoded outputs add `dark`: their pull-ups and
+ * input network as sized, and the ghost check of every state at every
+ * corner.
  */
 import type { CornerConditions } from "./corners.ts";
 import type { CurrentRange } from "./segmentTrim.ts";
@@ -18,6 +20,7 @@ import type { DcMethod } from "../circuit/dcSolver.ts";
 import type { CurrentResistorRole, PartResistorRole } from "../matrix/designators.ts";
 import type { DriverKind } from "../project/project.ts";
 import type { WarningLevel } from "./safety.ts";
+import type { DarkLimit, DarkStateFigures, GhostFigure } from "./ghostCheck.ts";
 
 export const BUDGET_SCHEMA = "diodeloom/budget@3";
 
@@ -349,6 +352,14 @@ export type BudgetWarning =
       readonly depthMax: number;
     }
   | {
+      readonly level: "warn";
+      readonly code: "dark-network";
+      /** The limits the dark-decoded outputs' network breaks. */
+      readonly broken: readonly DarkLimit[];
+      /** Where, in words (ghostCheck.ts). */
+      readonly where: string;
+    }
+  | {
       readonly level: "info";
       readonly code: "brightness-spread";
       /** The design's spread. */
@@ -368,6 +379,55 @@ export type BudgetWarning =
     };
 
 export type BudgetWarningCode = BudgetWarning["code"];
+
+/** One dark-decoded output's parts between its node and its driver. */
+export interface DarkInputBudget {
+  readonly output: string;
+  /** Its pull-up's designator. */
+  readonly pullUp: string;
+  /** Its divider's upper resistor, or null with level-shift diodes. */
+  readonly divider: string | null;
+  /** Its level-shift diodes, from the node. */
+  readonly shiftDiodes: readonly string[];
+  /** Its pull-down at the driver's input (the shift diodes' bleed, the divider's lower resistor). */
+  readonly bleed: string;
+}
+
+/**
+ * The dark-decoded outputs: their input network as the budget sized it and
+ * the ghost check of the design, every state at the nominal values and
+ * both corners (ghostCheck.ts).
+ */
+export interface DarkBudget {
+  /** `level-shift` or `divider`. */
+  readonly input: "level-shift" | "divider";
+  readonly pullUpOhms: number;
+  /** Per output. */
+  readonly shiftDiodes: number;
+  /** The divider's upper resistor, or null. */
+  readonly dividerOhms: number | null;
+  /** What bleeds the driver's input: the pull-down, or the divider's lower resistor in its place. */
+  readonly bleedOhms: number;
+  readonly outputs: readonly DarkInputBudget[];
+  readonly ghostLimitA: number;
+  /** Target ± the window, as the corners judge every segment. */
+  readonly litWindowA: readonly [number, number];
+  /** What an active-low line may sink. */
+  readonly lineRatedA: number;
+  readonly worstUnlit: GhostFigure;
+  readonly weakestLit: GhostFigure;
+  readonly strongestLit: GhostFigure;
+  /** The most an active-low line sinks (`output` names the line). */
+  readonly mostSunk: GhostFigure;
+  /** Every state at every corner. */
+  readonly states: readonly DarkStateFigures[];
+  readonly broken: readonly DarkLimit[];
+  readonly passes: boolean;
+  /** The limits broken and where, in words, or "every limit holds". */
+  readonly verdict: string;
+  /** How the sizing chose the values: the limit that stops a smaller one, or the one no value keeps. */
+  readonly sizing: string;
+}
 export type { WarningLevel };
 
 export interface SupplyBudget {
@@ -410,5 +470,7 @@ export interface Budget {
     readonly low: CornerBudget;
     readonly high: CornerBudget;
   };
+  /** The dark-decoded outputs' network and ghost check; null when every output is decoded lit. */
+  readonly dark: DarkBudget | null;
   readonly warnings: readonly BudgetWarning[];
 }

@@ -101,6 +101,7 @@ export function budgetWarnings(
       w.push({ level: "warn", code: "line-sink", line, state: c.sinkState ?? line, currentA: c.sinkCurrentA, ratedA: c.ratedA });
   }
   const targetA = e.segment.targetA;
+  if (b.dark !== null && !b.dark.passes) w.push({ level: "warn", code: "dark-network", broken: b.dark.broken, where: b.dark.verdict });
   const limitA = e.ghostFraction * targetA;
   const ghosts: Extract<BudgetWarning, { code: "ghost-segment" }>[] = [];
   for (const s of b.states) {

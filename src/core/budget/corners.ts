@@ -17,7 +17,7 @@
  * - beta: not scaled with temperature (SPICE's XTB = 0); the beta range
  *   `tolerance.betaMin`..`betaMax` stands for spread and temperature alike.
  */
-import { currentOhmsOf, currentRole } from "../matrix/designators.ts";
+import { currentOhmsOf, currentRole, type CircuitModel } from "../matrix/designators.ts";
 import { shockleyVoltage, thermalVoltage, ZERO_CELSIUS_K } from "../circuit/physics.ts";
 import type { ElectricalModel } from "../project/project.ts";
 
@@ -74,7 +74,8 @@ export interface CornerConditions {
    * Factors applied to the resistors' nominal values: `currentFactor` to
    * the resistors in the segment's path (emitter, series and base
    * resistors), `shuntFactor` to those that take current away from it
-   * (pull-downs, base-emitter resistors).
+   * (pull-downs, base-emitter resistors). A dark-decoded output's pull-up
+   * and divider are in the lit segment's path (`currentFactor`).
    */
   readonly currentFactor: number;
   readonly shuntFactor: number;
@@ -84,7 +85,8 @@ export interface CornerConditions {
 /**
  * The two corners. `low` has everything that lowers a segment current: the
  * lowest supply, the emitter, series, base and counter resistances at
- * +tolerance (and a coded counter's gate pull-ups), pull-downs and base-emitter resistors at -tolerance (more
+ * +tolerance (and a coded counter's gate pull-ups, the active-low lines'
+ * resistance and a dark-decoded output's pull-up and divider), pull-downs and base-emitter resistors at -tolerance (more
  * current away from the base, a bigger drop), the lowest beta (the weakest
  * switch) and the lowest temperature (higher junction drops). `high` is the
  * mirror image.
@@ -122,19 +124,31 @@ export function cornerConditions(e: ElectricalModel): readonly [CornerConditions
  * @param outputs the driven outputs, to write their resistors out
  */
 export function cornerModel(
-  e: ElectricalModel,
+  e: CircuitModel,
   c: CornerConditions,
   outputs: readonly string[],
   design?: ReadonlyMap<string, number>,
-): ElectricalModel {
+): CircuitModel {
   const t0 = e.temperatureC;
   const perOutput: Record<string, number> = {};
   for (const o of outputs) perOutput[o] = currentOhmsOf(e, o, design) * c.currentFactor;
   const sink = currentRole(e.driver.kind) === "emitter";
   const sinkSeries: Record<string, number> = {};
   if (sink) for (const [o, ohms] of Object.entries(e.segment.seriesResistors)) sinkSeries[o] = ohms * c.currentFactor;
+  const net = e.darkNetwork;
   return {
     ...e,
+    ...(net === undefined
+      ? {}
+      : {
+          darkNetwork: {
+            ...net,
+            pullUpOhms: net.pullUpOhms * c.currentFactor,
+            dividerOhms: net.dividerOhms === null ? null : net.dividerOhms * c.currentFactor,
+            dividerLowerOhms: net.dividerLowerOhms === null ? null : net.dividerLowerOhms * c.shuntFactor,
+          },
+        }),
+    lowLine: { ...e.lowLine, resistance: e.lowLine.resistance * c.counterFactor },
     temperatureC: c.temperatureC,
     counterOutput: { ...e.counterOutput, resistance: e.counterOutput.resistance * c.counterFactor },
     diode: { ...e.diode, is: siliconSaturationCurrent({ isA: e.diode.is, n: e.diode.n, fromC: t0 }, c.temperatureC) },

@@ -32,7 +32,9 @@
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import { preferredNeighbours, type ESeriesName } from "./eSeries.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
-import { currentOhmsOf, currentRole, type CurrentResistorRole } from "../matrix/designators.ts";
+import { currentOhmsOf, currentRole, type CircuitModel, type CurrentResistorRole, type DarkNetworkValues } from "../matrix/designators.ts";
+import { darkOutputs } from "../matrix/matrix.ts";
+import { sizeDarkNetwork, type GhostCheck } from "./ghostCheck.ts";
 import type { ElectricalModel, Project } from "../project/project.ts";
 import { ok, type Result } from "../result/result.ts";
 import type { BudgetFailure } from "../circuit/stateSweep.ts";
@@ -86,6 +88,13 @@ export interface SegmentDesign {
   readonly effect: TrimEffect | null;
   /** The current-setting resistor of every driven output as the design uses it, ohms. */
   readonly ohms: ReadonlyMap<string, number>;
+  /** The dark-decoded outputs' input network as sized (ghostCheck.ts); null or absent when none is decoded dark or it was not sized. */
+  readonly network?: DarkNetworkValues | null;
+}
+
+/** The model a design's circuits are built from: the project's, with the design's input network. */
+export function designModel(e: ElectricalModel, d: Pick<SegmentDesign, "network">): CircuitModel {
+  return d.network === null || d.network === undefined ? e : { ...e, darkNetwork: d.network };
 }
 
 /**
@@ -99,7 +108,15 @@ export function projectDesign(
 ): SegmentDesign {
   const outputs = [...matrix.outputs, ...matrix.tiedOn];
   const ohms = new Map(outputs.map((o) => [o, currentOhmsOf(model, o)]));
-  return { mode: options.mode, series: options.series, role: currentRole(model.driver.kind), trimmed: false, effect: null, ohms };
+  return {
+    mode: options.mode,
+    series: options.series,
+    role: currentRole(model.driver.kind),
+    trimmed: false,
+    effect: null,
+    ohms,
+    network: null,
+  };
 }
 
 /** The figures of a solved design. */
@@ -159,6 +176,8 @@ export interface SettledDesign {
   readonly judged: ReadonlyMap<string, number>;
   readonly before: DesignFigures;
   readonly after: DesignFigures;
+  /** The sizing of the dark-decoded outputs' network, at the project's values; null when none is decoded dark. */
+  readonly darkSizing: GhostCheck | null;
 }
 
 /** Options of `settleDesign`. */
@@ -202,8 +221,18 @@ export function settleDesign(
   matrix: DiodeMatrix,
   options: DesignOptions,
 ): Result<SettledDesign, BudgetFailure> {
-  const e = project.electrical;
   const windowPct = options.windowPct ?? 20;
+  let darkSizing: GhostCheck | null = null;
+  if (darkOutputs(matrix).length > 0) {
+    const g = sizeDarkNetwork(project, spec, matrix, { windowPct, deadlineMs: options.deadlineMs });
+    if (!g.ok) {
+      const kind = g.error.kind === "time-limit" ? "time-limit" : "no-convergence";
+      return { ok: false, error: { kind, state: "", during: "ghost check", message: g.error.message } };
+    }
+    darkSizing = g.value;
+  }
+  const network = darkSizing?.values ?? null;
+  const e: CircuitModel = designModel(project.electrical, { network });
   const target = e.segment.targetA;
   const role = currentRole(e.driver.kind);
   const workspace = options.workspace ?? new DcWorkspace();
@@ -258,13 +287,14 @@ export function settleDesign(
   const centred = judge(full(trim.value.ohms), trim.value.solutions);
   if (!centred.ok) return centred;
   const settled = (c: Candidate, trimmed: boolean): SettledDesign => ({
-    design: { mode: options.mode, series: options.series, role, trimmed, effect: c.effect, ohms: trimmed ? c.values : own },
+    design: { mode: options.mode, series: options.series, role, trimmed, effect: c.effect, ohms: trimmed ? c.values : own, network },
     nominal: nominal.value,
     solutions: trimmed ? c.solutions : nominal.value,
     trim: trim.value,
     judged: c.values,
     before,
     after: c.figures,
+    darkSizing,
   });
   if (options.mode !== "auto") return ok(settled(centred.value, appliesTrim(options.mode, centred.value.effect)));
 

@@ -15,7 +15,7 @@
 import type { DcMethod } from "../circuit/dcSolver.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
 import type { DriverStage } from "../circuit/circuit.ts";
-import type { ElectricalModel } from "../project/project.ts";
+import type { CircuitModel } from "../matrix/designators.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import { ok, type Result } from "../result/result.ts";
 import { highDrivers, highGates, highLines, sourceLines } from "../circuit/counterLines.ts";
@@ -43,6 +43,8 @@ export interface StateReading {
   readonly logicA: number;
   /** The voltage of each node that drives the OR plane high in this state (`highDrivers` order), volts. */
   readonly highDriverV: ReadonlyMap<string, number>;
+  /** What the state's active-low line `nS<k>` sinks, amperes; 0 where the circuit has none (no output decoded dark from it). */
+  readonly lowLineSinkA: number;
 }
 
 /** A matrix diode's worst case over the states. */
@@ -93,7 +95,7 @@ export function driverPoint(s: StateSolution, d: DriverStage): DriverPoint | nul
 }
 
 /** Reads one solved state. */
-function readState(matrix: DiodeMatrix, s: StateSolution): StateReading {
+export function readState(matrix: DiodeMatrix, s: StateSolution): StateReading {
   const { circuit, op } = s;
   const drivers = circuit.drivers;
   const segmentA = new Float64Array(drivers.length);
@@ -120,6 +122,8 @@ function readState(matrix: DiodeMatrix, s: StateSolution): StateReading {
     supplyA: op.currents["VSUP"] ?? 0,
     logicA: op.currents["VLOGIC"] ?? 0,
     highDriverV,
+    // The state S<k>'s active-low line is nS<k>; its resistor's current runs from the source to the line, so the line sinks its negative.
+    lowLineSinkA: Math.max(0, -(op.currents[`Rn${circuit.state}`] ?? 0)),
   };
 }
 
@@ -202,7 +206,7 @@ class WorstCases {
 export function readSweep(
   spec: DecodeSpec,
   matrix: DiodeMatrix,
-  model: ElectricalModel,
+  model: CircuitModel,
   during: string,
   options: SweepOptions = {},
 ): Result<SweepReading, BudgetFailure> {

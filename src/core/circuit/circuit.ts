@@ -20,7 +20,10 @@
  * - every tied-on output: the same, its line held up from the logic supply
  *   (`logicSupply.volts`, a real rail) through a resistor of
  *   `counterOutput.resistance` ohms;
- * - never-lit outputs have no driver and are left out.
+ * - never-lit outputs have no driver and are left out;
+ * - where outputs are decoded dark, the active-low lines, the pull-ups and
+ *   the input networks (polarityCircuit.ts), with the values of
+ *   `model.darkNetwork`.
  *
  * Node names are SPICE-safe and lower case: counter line `s0` (stage lines
  * `q0`, `nq0`), its source `s0_v`, gate `g1`, bus `b1`, output line `o1a`; a stage's own nodes carry the output
@@ -34,7 +37,8 @@
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
 import type { ElectricalModel } from "../project/project.ts";
-import { designators, type DriverParts, type PartResistorRole } from "../matrix/designators.ts";
+import { designators, type CircuitModel, type DriverParts, type PartResistorRole } from "../matrix/designators.ts";
+import { addDarkSide, darkStateGuess, lowLineSources, type LowLine } from "./polarityCircuit.ts";
 import { GROUND, LOGIC_NODE, SUPPLY_NODE } from "./circuitNodes.ts";
 import { driverStage, type StageNodes } from "./driverStage.ts";
 import { highDrivers, highLines, orPlane, sourceLines } from "./counterLines.ts";
@@ -152,12 +156,16 @@ export function lineNode(line: string, outputs: ReadonlySet<string>): string {
  */
 export interface CircuitFrame {
   readonly matrix: DiodeMatrix;
-  readonly model: ElectricalModel;
+  readonly model: CircuitModel;
   /** Every element after the counter lines' sources and resistors, in the order a state's circuit lists them. */
   readonly shared: readonly CircuitElement[];
   readonly nodes: readonly string[];
   readonly drivers: readonly DriverStage[];
   readonly lineNodes: Readonly<Record<string, string>>;
+  /** The active-low lines a dark decode uses, whose sources differ from state to state; empty when no output is decoded dark. */
+  readonly lowLines: readonly LowLine[];
+  /** The starting guess of the dark side's own nodes, volts. */
+  readonly darkGuess: Readonly<Record<string, number>>;
 }
 
 /**
@@ -172,7 +180,7 @@ export interface CircuitFrame {
 export function circuitFrame(
   spec: DecodeSpec,
   matrix: DiodeMatrix,
-  model: ElectricalModel,
+  model: CircuitModel,
   design?: ReadonlyMap<string, number>,
 ): CircuitFrame {
   const outputs = new Set(matrix.outputs);
@@ -216,7 +224,7 @@ export function circuitFrame(
   for (const p of parts.drivers) {
     const input = `o${p.output}`;
     if (p.tieOn !== null) shared.push({ kind: "resistor", name: p.tieOn.ref, role: "tie-on", a: LOGIC_NODE, b: input, ohms: p.tieOn.ohms });
-    shared.push({ kind: "resistor", name: p.pullDown.ref, role: "pull-down", a: input, b: GROUND, ohms: p.pullDown.ohms });
+    shared.push({ kind: "resistor", name: p.pullDown.ref, role: p.pullDown.role, a: input, b: GROUND, ohms: p.pullDown.ohms });
     const built = stage.build({ parts: p, model, input });
     shared.push(...built.elements);
     stageNodes.push(...built.ownNodes);
@@ -234,7 +242,7 @@ export function circuitFrame(
     ...matrix.buses.map((b) => lineNode(b, outputs)),
     ...drivers.map((d) => d.inputNode),
   ];
-  return { matrix, model, shared, nodes, drivers, lineNodes };
+  return { matrix, model, ...addDarkSide({ shared, nodes, drivers, lineNodes }, spec, matrix, model, parts) };
 }
 
 /**
@@ -257,9 +265,10 @@ export function stateCircuit(frame: CircuitFrame, stateIndex: number): Circuit {
     const ohms = high.has(l) ? co.resistance : co.lowResistance;
     elements.push({ kind: "resistor", name: `R${l}`, role: "counter", a: src, b: node, ohms });
   }
+  for (const el of lowLineSources(frame.lowLines, model, stateIndex)) elements.push(el);
   for (const el of frame.shared) elements.push(el);
   return {
-    guess: startingGuess(matrix, model, stateIndex, frame.drivers, lineNodes),
+    guess: darkStateGuess(frame, model, stateIndex, startingGuess(matrix, model, stateIndex, frame.drivers, lineNodes)),
     state: matrix.states[stateIndex] as string,
     stateIndex,
     temperatureC: model.temperatureC,
@@ -284,7 +293,7 @@ export function stateCircuit(frame: CircuitFrame, stateIndex: number): Circuit {
 export function buildCircuit(
   spec: DecodeSpec,
   matrix: DiodeMatrix,
-  model: ElectricalModel,
+  model: CircuitModel,
   stateIndex: number,
   design?: ReadonlyMap<string, number>,
 ): Circuit {
@@ -327,7 +336,8 @@ function startingGuess(
   }
   const stage = driverStage(model.driver.kind);
   for (const dr of drivers) {
-    const inputV = dr.tiedOn ? model.logicSupply.volts : (guess[dr.inputNode] ?? co.low);
+    // A dark-decoded output's driver input (behind its network) starts from its node's guess.
+    const inputV = dr.tiedOn ? model.logicSupply.volts : (guess[dr.inputNode] ?? guess[`o${dr.output}`] ?? co.low);
     guess[dr.inputNode] = inputV;
     const lit = inputV - co.low > 0.8;
     Object.assign(guess, stage.guess({ stage: dr, model, inputV, lit }));

@@ -1,57 +1,72 @@
 /**
- * The circuit of a decoder with dark-decoded outputs, for one state: the
- * lit decoder's circuit (circuit.ts) with what dark decode adds, as
- * docs/electrical-model.md "Dark-decoded outputs" describes it:
+ * What dark decode adds to a matrix's circuit (circuit.ts calls it once the
+ * lit decoder's parts are in), as docs/electrical-model.md "Dark-decoded
+ * outputs" describes it:
  * - every active-low line `nS<k>` the matrix uses: a Thevenin source,
  *   `lowLine.low` volts in its own state and `lowLine.high` otherwise,
- *   behind `lowLine.resistance` (node `ns<k>`, source `ns<k>_v`);
+ *   behind `lowLine.resistance` (node `ns<k>`, source `ns<k>_v`); these
+ *   differ from state to state (`lowLineSources`);
  * - every dark-side diode turned round: anode on the node it pulls down;
- * - every dark-decoded output node `o<out>`: a pull-up to the logic supply
- *   (`RU<out>`), then its input network to the driver's input `i<out>`:
- *   the level-shift diodes (`DL<out>_<j>`, the matrix diode's model) or a
- *   divider's upper resistor (`RV<out>`); the output's pull-down moves to
- *   `i<out>`, where it is the shift diodes' bleed (or the divider's lower
- *   resistor), and the driver stage takes `i<out>` as its input.
+ * - every dark-decoded output node `o<out>`: its pull-up from the logic
+ *   supply, then its input network to the driver's input `i<out>`: the
+ *   level-shift diodes (the matrix diode's model) or a divider's upper
+ *   resistor; the output's pull-down moves to `i<out>`, where it is the
+ *   shift diodes' bleed (or, with the divider's value, its lower resistor),
+ *   and the driver stage takes `i<out>` as its input. Without diodes or
+ *   divider the node is the driver's input.
+ * Every part takes its designator and value from designators.ts.
  */
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
-import { darkOutputs, darkSideDiodes, type DiodeMatrix } from "../matrix/matrix.ts";
-import type { ElectricalModel } from "../project/project.ts";
-import { buildCircuit, LOGIC_NODE, type Circuit, type CircuitElement } from "./circuit.ts";
+import { darkSideDiodes, type DiodeMatrix } from "../matrix/matrix.ts";
+import type { CircuitModel, DarkInputParts, Designators } from "../matrix/designators.ts";
+import { LOGIC_NODE } from "./circuitNodes.ts";
+import type { CircuitElement, DriverStage } from "./circuit.ts";
 
-/** The values of the dark outputs' input network. */
-export interface DarkNetworkValues {
-  /** Pull-up from the logic supply to each dark-decoded output node, ohms. */
-  readonly pullUpOhms: number;
-  /** Level-shift diodes per output (0 with a divider). */
-  readonly shiftDiodes: number;
-  /** A divider's upper resistor, ohms; null for level-shift diodes. */
-  readonly dividerOhms: number | null;
-}
+export type { DarkNetworkValues } from "../matrix/designators.ts";
 
 /** The driver input node of a dark-decoded output. */
 export function darkInputNode(output: string): string {
   return `i${output}`;
 }
 
+/** True when a dark-decoded output has parts between its node and its driver. */
+function hasNetwork(p: DarkInputParts): boolean {
+  return p.divider !== null || p.shiftDiodes.length > 0;
+}
+
+/** An active-low line the matrix uses, and the state it is low in. */
+export interface LowLine {
+  readonly line: string;
+  readonly stateIndex: number;
+  /** Its node, `ns<k>` (its source's node is `ns<k>_v`). */
+  readonly node: string;
+}
+
+/** The parts every state shares, before or after the dark side is added. */
+export interface SharedParts {
+  readonly shared: readonly CircuitElement[];
+  readonly nodes: readonly string[];
+  readonly drivers: readonly DriverStage[];
+  readonly lineNodes: Readonly<Record<string, string>>;
+}
+
+/** The shared parts with the dark side, the active-low lines and the dark side's own nodes' starting guess. */
+export interface DarkShared extends SharedParts {
+  readonly lowLines: readonly LowLine[];
+  /** Volts per node of the dark side that every state starts from. */
+  readonly darkGuess: Readonly<Record<string, number>>;
+}
+
 /**
- * Builds the circuit of state `stateIndex` of a matrix with dark-decoded
- * outputs. A matrix without any is built exactly as `buildCircuit` builds it.
+ * Adds the dark side to the parts every state shares. A matrix with no
+ * dark-decoded output comes back as it was, with no active-low line.
  */
-export function buildPolarityCircuit(
-  spec: DecodeSpec,
-  matrix: DiodeMatrix,
-  model: ElectricalModel,
-  stateIndex: number,
-  values: DarkNetworkValues,
-  design?: ReadonlyMap<string, number>,
-): Circuit {
-  const base = buildCircuit(spec, matrix, model, stateIndex, design);
-  const dark = darkOutputs(matrix);
-  if (dark.length === 0) return base;
+export function addDarkSide(lit: SharedParts, spec: DecodeSpec, matrix: DiodeMatrix, model: CircuitModel, parts: Designators): DarkShared {
+  if (parts.darkInputs.length === 0) return { ...lit, lowLines: [], darkGuess: {} };
   const darkSide = darkSideDiodes(matrix);
   const matrixDiodes = new Set(matrix.diodes.map((d) => d.ref));
-  const moved = new Map(dark.map((o) => [`o${o}`, darkInputNode(o)]));
-  const elements: CircuitElement[] = base.elements.map((el) => {
+  const moved = new Map(parts.darkInputs.filter(hasNetwork).map((p) => [`o${p.output}`, darkInputNode(p.output)]));
+  const shared: CircuitElement[] = lit.shared.map((el) => {
     if (el.kind === "diode" && darkSide.has(el.name)) return { ...el, anode: el.cathode, cathode: el.anode };
     if (el.kind === "diode" && matrixDiodes.has(el.name)) return el;
     // The output's pull-down and its driver stage move behind the input network.
@@ -59,59 +74,79 @@ export function buildPolarityCircuit(
     for (const [k, v] of Object.entries(el)) out[k] = k !== "name" && typeof v === "string" ? (moved.get(v) ?? v) : v;
     return out as unknown as CircuitElement;
   });
-  const nodes = [...base.nodes];
-  const guess: Record<string, number> = { ...base.guess };
-  const lineNodes: Record<string, string> = { ...base.lineNodes };
-  const ll = model.lowLine;
+  const lowNodes: string[] = [];
+  const darkNodes: string[] = [];
+  const darkGuess: Record<string, number> = {};
+  const lineNodes: Record<string, string> = { ...lit.lineNodes };
   const used = new Set(matrix.diodes.map((d) => d.from));
+  const lowLines: LowLine[] = [];
   spec.polarity.activeLow.forEach((line, k) => {
     if (!used.has(line)) return;
     const node = line.toLowerCase();
-    const src = `${node}_v`;
-    const volts = k === stateIndex ? ll.low : ll.high;
-    elements.push({ kind: "vsource", name: `V${line}`, node: src, volts });
-    elements.push({ kind: "resistor", name: `R${line}`, role: "counter", a: src, b: node, ohms: ll.resistance });
-    nodes.unshift(node, src);
-    guess[node] = volts;
-    guess[src] = volts;
+    lowNodes.push(node, `${node}_v`);
     lineNodes[line] = node;
+    lowLines.push({ line, stateIndex: k, node });
   });
-  if (!elements.some((el) => el.kind === "vsource" && el.node === LOGIC_NODE)) {
-    elements.push({ kind: "vsource", name: "VLOGIC", node: LOGIC_NODE, volts: model.logicSupply.volts });
-    nodes.push(LOGIC_NODE);
-    guess[LOGIC_NODE] = model.logicSupply.volts;
+  if (!shared.some((el) => el.kind === "vsource" && el.node === LOGIC_NODE)) {
+    shared.push({ kind: "vsource", name: "VLOGIC", node: LOGIC_NODE, volts: model.logicSupply.volts });
+    darkNodes.push(LOGIC_NODE);
   }
-  for (const o of dark) {
-    const node = `o${o}`;
-    const input = darkInputNode(o);
-    elements.push({ kind: "resistor", name: `RU${o}`, role: "tie-on", a: LOGIC_NODE, b: node, ohms: values.pullUpOhms });
-    if (values.dividerOhms !== null) {
-      elements.push({ kind: "resistor", name: `RV${o}`, role: "base", a: node, b: input, ohms: values.dividerOhms });
-    } else if (values.shiftDiodes === 0) {
-      elements.push({ kind: "resistor", name: `RV${o}`, role: "base", a: node, b: input, ohms: 1e-3 });
+  darkGuess[LOGIC_NODE] = model.logicSupply.volts;
+  for (const p of parts.darkInputs) {
+    const node = `o${p.output}`;
+    const input = moved.get(node) ?? node;
+    shared.push({ kind: "resistor", name: p.pullUp.ref, role: "pull-up", a: LOGIC_NODE, b: node, ohms: p.pullUp.ohms });
+    if (p.divider !== null) {
+      shared.push({ kind: "resistor", name: p.divider.ref, role: "divider", a: node, b: input, ohms: p.divider.ohms });
     } else {
       let from = node;
-      for (let j = 1; j <= values.shiftDiodes; j++) {
-        const to = j === values.shiftDiodes ? input : `l${o}_${j}`;
+      p.shiftDiodes.forEach((ref, j) => {
+        const to = j === p.shiftDiodes.length - 1 ? input : `l${p.output}_${j + 1}`;
         if (to !== input) {
-          nodes.push(to);
-          guess[to] = 0.5;
+          darkNodes.push(to);
+          darkGuess[to] = 0.5;
         }
-        elements.push({
-          kind: "diode",
-          name: `DL${o}_${j}`,
-          anode: from,
-          cathode: to,
-          isA: model.diode.is,
-          n: model.diode.n,
-          rsOhms: model.diode.rs,
-        });
+        shared.push({ kind: "diode", name: ref, anode: from, cathode: to, isA: model.diode.is, n: model.diode.n, rsOhms: model.diode.rs });
         from = to;
-      }
+      });
     }
-    nodes.push(input);
-    guess[input] = guess[node] ?? 0.5;
+    if (input !== node) darkNodes.push(input);
   }
-  const drivers = base.drivers.map((d) => (moved.has(d.inputNode) ? { ...d, inputNode: moved.get(d.inputNode) as string } : d));
-  return { ...base, nodes, elements, drivers, guess, lineNodes };
+  const drivers = lit.drivers.map((d) => (moved.has(d.inputNode) ? { ...d, inputNode: moved.get(d.inputNode) as string } : d));
+  return { shared, nodes: [...lowNodes, ...lit.nodes, ...darkNodes], drivers, lineNodes, lowLines, darkGuess };
+}
+
+/** The active-low lines' sources and resistors in state `stateIndex`: low in their own state, high otherwise. */
+export function lowLineSources(lowLines: readonly LowLine[], model: CircuitModel, stateIndex: number): CircuitElement[] {
+  const ll = model.lowLine;
+  return lowLines.flatMap(({ line, stateIndex: k, node }): CircuitElement[] => [
+    { kind: "vsource", name: `V${line}`, node: `${node}_v`, volts: k === stateIndex ? ll.low : ll.high },
+    { kind: "resistor", name: `R${line}`, role: "counter", a: `${node}_v`, b: node, ohms: ll.resistance },
+  ]);
+}
+
+/**
+ * The starting guess of the dark side in state `stateIndex`, over the lit
+ * side's: each active-low line at its open-circuit level, each dark-decoded
+ * node pulled down a diode drop above the low level or up to the logic
+ * supply, each driver input a little below its node.
+ */
+export function darkStateGuess(
+  shared: DarkShared,
+  model: CircuitModel,
+  stateIndex: number,
+  guess: Record<string, number>,
+): Record<string, number> {
+  if (shared.lowLines.length === 0) return guess;
+  const ll = model.lowLine;
+  for (const { node, stateIndex: k } of shared.lowLines) {
+    guess[node] = k === stateIndex ? ll.low : ll.high;
+    guess[`${node}_v`] = guess[node] as number;
+  }
+  Object.assign(guess, shared.darkGuess);
+  for (const d of shared.drivers) {
+    const node = `o${d.output}`;
+    if (d.inputNode !== node) guess[d.inputNode] = guess[node] ?? 0.5;
+  }
+  return guess;
 }

@@ -6,7 +6,7 @@ import { circuitFrame, stateCircuit, type Circuit } from "./circuit.ts";
 import { DcWorkspace, DEFAULT_DC_SETTINGS, solveDc, type OperatingPoint } from "./dcSolver.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DiodeMatrix } from "../matrix/matrix.ts";
-import type { ElectricalModel } from "../project/project.ts";
+import type { CircuitModel } from "../matrix/designators.ts";
 import { fail, ok, type Result } from "../result/result.ts";
 
 /** One state's circuit and its operating point. */
@@ -51,7 +51,7 @@ export interface SweepOptions {
 export function sweepStates(
   spec: DecodeSpec,
   matrix: DiodeMatrix,
-  model: ElectricalModel,
+  model: CircuitModel,
   during: string,
   visit: (s: StateSolution, k: number) => void,
   options: SweepOptions = {},
@@ -91,7 +91,7 @@ export function sweepStates(
 export function solveAllStates(
   spec: DecodeSpec,
   matrix: DiodeMatrix,
-  model: ElectricalModel,
+  model: CircuitModel,
   during: string,
   design?: ReadonlyMap<string, number>,
   deadlineMs: number = Infinity,

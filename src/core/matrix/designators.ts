@@ -17,8 +17,12 @@
  *   resistors, base-emitter resistors, a sink's collector resistors, the
  *   pull-downs of the matrix-driven outputs, the tie-on resistors, and the
  *   pull-downs of the tied-on outputs;
- * - last, continuing the R numbers, the pull-up of every AND gate of a coded
- *   counter's decoder, in gate order (`G1` first).
+ * - then, continuing the R numbers, the pull-up of every AND gate of a coded
+ *   counter's decoder, in gate order (`G1` first);
+ * - last, for the dark-decoded outputs (in output order): their pull-ups
+ *   from the logic supply, continuing the R numbers, then their dividers'
+ *   upper resistors; their level-shift diodes continue the D numbers after
+ *   the matrix's, output by output from the node towards the driver.
  *
  * An instrument of several decoders numbers each decoder's parts as above
  * and puts the decoder's number (1-based, in file order) in front of every
@@ -29,15 +33,60 @@
  * Values: the resistor that sets the current takes the design's value (a
  * trim, when one is applied), else the project's per-output override, else
  * its default; the others come from the electrical model (a gate's pull-up
- * is `gatePullUp`). A tie-on resistor
+ * is `gatePullUp`), and a dark-decoded output's input network from the
+ * values the budget sizes (`CircuitModel.darkNetwork`), or, before it has,
+ * the estimate of `estimatedDarkNetwork`. A tie-on resistor
  * equals the counter's source resistance and hangs from the logic supply,
  * so a tied-on output's input sits where a lit one's sits.
  */
-import type { Diode, DiodeMatrix } from "./matrix.ts";
+import { darkOutputs, type Diode, type DiodeMatrix } from "./matrix.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { DriverKind, ElectricalModel } from "../project/project.ts";
+import { preferredNeighbours } from "../budget/eSeries.ts";
 
-export type PartResistorRole = "emitter" | "series" | "base" | "base-emitter" | "pull-down" | "tie-on" | "gate-pull-up";
+/**
+ * `pull-up`: from the logic supply to a dark-decoded output's node;
+ * `divider`: a dark-decoded output's divider, from the node to the driver's input.
+ */
+export type PartResistorRole =
+  "emitter" | "series" | "base" | "base-emitter" | "pull-down" | "tie-on" | "gate-pull-up" | "pull-up" | "divider";
+
+/** The values of the dark-decoded outputs' input network (one set for every such output). */
+export interface DarkNetworkValues {
+  /** Pull-up from the logic supply to each dark-decoded output node, ohms. */
+  readonly pullUpOhms: number;
+  /** Level-shift diodes per output (0 with a divider). */
+  readonly shiftDiodes: number;
+  /** A divider's upper resistor, from the node to the driver's input, ohms; null for level-shift diodes. */
+  readonly dividerOhms: number | null;
+  /**
+   * A divider's lower resistor, from the driver's input to ground, ohms: it
+   * takes the place of the output's pull-down; null for level-shift diodes
+   * (whose bleed is the pull-down).
+   */
+  readonly dividerLowerOhms: number | null;
+}
+
+/**
+ * The electrical model a circuit is built from: the project's, and, where
+ * outputs are decoded dark, the values of their input network as the
+ * budget sizes them (absent: `estimatedDarkNetwork`). A tolerance corner
+ * scales them with the rest (corners.ts).
+ */
+export type CircuitModel = ElectricalModel & { readonly darkNetwork?: DarkNetworkValues };
+
+/** The parts between a dark-decoded output's node and its driver. */
+export interface DarkInputParts {
+  readonly output: string;
+  /** From the logic supply to the output node. */
+  readonly pullUp: StageResistor;
+  /** A divider's upper resistor, from the node to the driver's input; null with level-shift diodes. */
+  readonly divider: StageResistor | null;
+  /** A divider's lower resistor: the output's pull-down designator, with the divider's value (role `divider`); null with level-shift diodes. */
+  readonly dividerLower: StageResistor | null;
+  /** The level-shift diodes from the node to the driver's input, in that order (`D31`, `D32`); empty with a divider. */
+  readonly shiftDiodes: readonly string[];
+}
 
 /** The resistor that sets a segment's current for each kind: its emitter resistor for a sink, its series resistor otherwise. */
 export type CurrentResistorRole = "emitter" | "series";
@@ -94,6 +143,8 @@ export interface Designators {
   readonly drivers: readonly DriverParts[];
   /** The AND gates of a coded counter's decoder with their pull-ups, in gate order; empty for a one-hot counter. */
   readonly gates: readonly GateParts[];
+  /** The input network of every dark-decoded output, in output order; empty when none is decoded dark. */
+  readonly darkInputs: readonly DarkInputParts[];
   /** Every resistor of the build, in R-number order. */
   readonly resistors: readonly ResistorPart[];
 }
@@ -167,7 +218,7 @@ function sinkSeriesOhms(model: ElectricalModel, output: string): number {
 export function designators(
   spec: DecodeSpec,
   matrix: DiodeMatrix,
-  model: ElectricalModel,
+  model: CircuitModel,
   currentOhms?: ReadonlyMap<string, number>,
 ): Designators {
   const kind = model.driver.kind;
@@ -207,6 +258,27 @@ export function designators(
     pullUp: { ref: `${p}R${++r}`, role: "gate-pull-up", ohms: model.gatePullUp },
   }));
 
+  const dark = darkOutputs(matrix);
+  const net = dark.length === 0 ? null : (model.darkNetwork ?? estimatedDarkNetwork(spec, model));
+  // A divider's lower resistor is the output's pull-down, with the divider's value.
+  if (net !== null && net.dividerLowerOhms !== null) {
+    for (const o of dark) {
+      const p = pullDowns.get(o);
+      if (p !== undefined) pullDowns.set(o, { ref: p.ref, role: "divider", ohms: net.dividerLowerOhms });
+    }
+  }
+  const pullUps = block(dark, () => net?.pullUpOhms ?? null, "pull-up");
+  const dividers = block(dark, () => net?.dividerOhms ?? null, "divider");
+  let nextDiode = matrix.diodes.length;
+  const shiftCount = net !== null && net.dividerOhms === null ? net.shiftDiodes : 0;
+  const darkInputs = dark.map((o): DarkInputParts => {
+    const pullUp = pullUps.get(o);
+    if (pullUp === undefined) throw new Error(`bug: no pull-up designator for ${o}`);
+    const shift = Array.from({ length: shiftCount }, () => diodeRef(nextDiode++));
+    const lower = net === null || net.dividerLowerOhms === null ? null : (pullDowns.get(o) ?? null);
+    return { output: o, pullUp, divider: dividers.get(o) ?? null, dividerLower: lower, shiftDiodes: shift };
+  });
+
   const drivers = driven.map((o, i): DriverParts => {
     const pullDown = pullDowns.get(o);
     if (pullDown === undefined) throw new Error(`bug: no pull-down designator for ${o}`);
@@ -234,8 +306,32 @@ export function designators(
     }
   }
   for (const g of gates) resistors.push({ ...g.pullUp, output: g.gate });
+  for (const x of darkInputs) for (const y of [x.pullUp, x.divider]) if (y !== null) resistors.push({ ...y, output: x.output });
   resistors.sort((a, b) => refNumber(a.ref) - refNumber(b.ref));
-  return { diodes: matrix.diodes, drivers, gates, resistors };
+  return { diodes: matrix.diodes, drivers, gates, darkInputs, resistors };
+}
+
+/**
+ * The input network of the dark-decoded outputs before the budget sizes
+ * it: the pull-up that draws each output's share of the active-low line's
+ * rating (the design value of the level-shift arithmetic, levelShift.ts),
+ * rounded up to E24; the spec's level-shift diodes, or a divider whose
+ * resistors both equal the pull-up.
+ *
+ * @example
+ * estimatedDarkNetwork(spec, project.electrical); // { pullUpOhms: 5100, shiftDiodes: 2, dividerOhms: null }
+ */
+export function estimatedDarkNetwork(spec: DecodeSpec, model: ElectricalModel): DarkNetworkValues {
+  const share = spec.polarity.levelShift.pullUpA;
+  const exact = share > 0 ? model.logicSupply.volts / share : 10_000;
+  const pullUpOhms = preferredNeighbours(Math.min(1e6, Math.max(1000, exact)), "E24")[1];
+  const divider = spec.polarity.darkInput === "divider";
+  return {
+    pullUpOhms,
+    shiftDiodes: divider ? 0 : (spec.polarity.inputDiodes ?? 0),
+    dividerOhms: divider ? pullUpOhms : null,
+    dividerLowerOhms: divider ? pullUpOhms : null,
+  };
 }
 
 /** The part number of a designator, after any decoder prefix and the class letters (`2R14` is 14). */

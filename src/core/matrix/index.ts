@@ -1,14 +1,5 @@
 /** Stage "matrix": the diode matrix, its independent verifier, and the designators of every part of the build. */
-export {
-  buildMatrix,
-  busName,
-  darkOutputs,
-  darkSideDiodes,
-  electricalRefusal,
-  MATRIX_SCHEMA,
-  matrixObjective,
-  outputDecode,
-} from "./matrix.ts";
+export { buildMatrix, busName, darkOutputs, darkSideDiodes, MATRIX_SCHEMA, matrixObjective, outputDecode } from "./matrix.ts";
 export type { Diode, DiodeMatrix, Edge, Gate, InputNetwork, MatrixMeta, SynthesisMethod, VerifiedMatrix } from "./matrix.ts";
 export { verifyMatrix } from "./verify.ts";
 export { verifyPolarity } from "./verifyPolarity.ts";

@@ -161,17 +161,6 @@ export function darkSideDiodes(m: Pick<DiodeMatrix, "decode" | "outputs" | "diod
   return new Set(m.diodes.filter((d) => lowLine(d.from) || darkBus.has(d.from) || dark.has(d.to)).map((d) => d.ref));
 }
 
-/**
- * Why the circuit stages (budget, netlists, parts list) do not take a
- * matrix yet, or null when they do: its dark-decoded outputs' pull-ups and
- * input networks are not in the circuit model.
- */
-export function electricalRefusal(m: Pick<DiodeMatrix, "decode" | "outputs">): string | null {
-  const dark = darkOutputs(m);
-  if (dark.length === 0) return null;
-  return `the budget, the netlists and the parts list do not yet take dark-decoded outputs (${dark.length} here: ${dark.slice(0, 4).join(", ")}${dark.length > 4 ? ", …" : ""}); synth, compare and the drawing's matrix do`;
-}
-
 /** Bus node name (1-based). */
 export function busName(i: number): string {
   return `B${i}`;

@@ -9,7 +9,7 @@ import { highLines } from "../circuit/counterLines.ts";
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
-import { designNote, type SegmentDesign } from "../budget/segmentDesign.ts";
+import { designModel, designNote, type SegmentDesign } from "../budget/segmentDesign.ts";
 
 /** Formats a number the way every SPICE reads it (no unit suffixes). */
 function num(x: number): string {
@@ -113,7 +113,12 @@ export function spiceNetlist(
   stateIndex: number,
   design: SegmentDesign,
 ): string {
-  return stateNetlist(project, matrix, buildCircuit(spec, matrix, project.electrical, stateIndex, design.ohms), design);
+  return stateNetlist(
+    project,
+    matrix,
+    buildCircuit(spec, matrix, designModel(project.electrical, design), stateIndex, design.ohms),
+    design,
+  );
 }
 
 /**
@@ -125,7 +130,7 @@ export function spiceNetlist(
  * for (const deck of spiceNetlists(project, spec, matrix, design)) write(deck);
  */
 export function* spiceNetlists(project: Project, spec: DecodeSpec, matrix: VerifiedMatrix, design: SegmentDesign): Generator<string> {
-  const frame = circuitFrame(spec, matrix, project.electrical, design.ohms);
+  const frame = circuitFrame(spec, matrix, designModel(project.electrical, design), design.ohms);
   for (let k = 0; k < matrix.states.length; k++) yield stateNetlist(project, matrix, stateCircuit(frame, k), design);
 }
 

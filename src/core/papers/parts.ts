@@ -8,6 +8,7 @@ import type { Designators, DriverParts, PartResistorRole } from "../matrix/desig
 
 export type PartKind =
   | "diode"
+  | "level-shift-diode"
   | "transistor"
   | "emitter-resistor"
   | "series-resistor"
@@ -16,6 +17,8 @@ export type PartKind =
   | "pull-down"
   | "tie-on-resistor"
   | "gate-pull-up"
+  | "dark-pull-up"
+  | "divider-resistor"
   | "display";
 
 export interface PartGroup {
@@ -29,10 +32,11 @@ export interface PartGroup {
 }
 
 /**
- * Groups the parts: matrix diodes; drivers (none for direct drive); then
- * the resistors role by role, one group per value, lowest first: emitter,
- * series, base, base-emitter, pull-downs, tie-on, a coded counter's gate
- * pull-ups; then the segments. Every
+ * Groups the parts: matrix diodes; the dark-decoded outputs' level-shift
+ * diodes; drivers (none for direct drive); then the resistors role by
+ * role, one group per value, lowest first: emitter, series, base,
+ * base-emitter, pull-downs, tie-on, a coded counter's gate pull-ups, the
+ * dark-decoded outputs' pull-ups and dividers; then the segments. Every
  * driven or tied-on output has the parts of its driver kind, a pull-down on
  * its line and a segment; a tied-on output also a tie-on resistor.
  *
@@ -45,6 +49,10 @@ export function countParts(parts: Designators): PartGroup[] {
   const drivers = parts.drivers;
   if (parts.diodes.length > 0) {
     groups.push({ kind: "diode", refs: parts.diodes.map((d) => d.ref), serves: parts.diodes.map((d) => d.to), ohms: null });
+  }
+  const shift = parts.darkInputs.flatMap((p) => p.shiftDiodes.map((ref) => ({ ref, output: p.output })));
+  if (shift.length > 0) {
+    groups.push({ kind: "level-shift-diode", refs: shift.map((x) => x.ref), serves: shift.map((x) => x.output), ohms: null });
   }
   const switched = drivers.filter((d) => d.transistor !== null);
   if (switched.length > 0) {
@@ -72,6 +80,8 @@ export function countParts(parts: Designators): PartGroup[] {
   resistors("pull-down", "pull-down");
   resistors("tie-on", "tie-on-resistor");
   resistors("gate-pull-up", "gate-pull-up");
+  resistors("pull-up", "dark-pull-up");
+  resistors("divider", "divider-resistor");
   if (drivers.length > 0) {
     groups.push({ kind: "display", refs: drivers.map((d: DriverParts) => d.display), serves: drivers.map((d) => d.output), ohms: null });
   }

@@ -11,7 +11,7 @@
  * them after the diodes, so that the net and the part are wired too.
  */
 import { csvText } from "./csv.ts";
-import type { DriverParts } from "../matrix/designators.ts";
+import type { DarkInputParts, DriverParts } from "../matrix/designators.ts";
 import { darkSideDiodes, type DiodeMatrix } from "../matrix/matrix.ts";
 
 export interface WiringRow {
@@ -84,6 +84,50 @@ export function tieOnRows(drivers: readonly DriverParts[]): TieOnRow[] {
 /** The heading of the tie-on rows in the CSV and the printed lists. */
 export const TIE_ON_HEADING = "Tied-on outputs (no diodes): each tie-on resistor from the logic supply net VLOGIC to the output line";
 
+/**
+ * A part between a dark-decoded output's node and its driver: its pull-up
+ * from the logic supply's net, its level-shift diodes (anode first) or its
+ * divider's upper resistor, to the driver's input (`1a in`; the diodes'
+ * joints between are `1a/1`, ...).
+ */
+export interface NetworkRow {
+  readonly ref: string;
+  readonly part: "pull-up" | "level-shift diode" | "divider";
+  readonly from: string;
+  readonly to: string;
+  /** Ohms; null for a diode. */
+  readonly ohms: number | null;
+}
+
+/** The net at a dark-decoded output's driver input, as the wiring list names it. */
+export function driverInputNet(output: string): string {
+  return `${output} in`;
+}
+
+/**
+ * The input network of the dark-decoded outputs, output by output.
+ *
+ * @example
+ * networkRows(designators(spec, matrix, e).darkInputs)[0]; // { ref: "R29", part: "pull-up", from: "VLOGIC", to: "1a", ohms: 4300 }
+ */
+export function networkRows(inputs: readonly DarkInputParts[]): NetworkRow[] {
+  return inputs.flatMap((p) => {
+    const rows: NetworkRow[] = [{ ref: p.pullUp.ref, part: "pull-up", from: LOGIC_SUPPLY_NET, to: p.output, ohms: p.pullUp.ohms }];
+    if (p.divider !== null)
+      rows.push({ ref: p.divider.ref, part: "divider", from: p.output, to: driverInputNet(p.output), ohms: p.divider.ohms });
+    p.shiftDiodes.forEach((ref, j) => {
+      const from = j === 0 ? p.output : `${p.output}/${j}`;
+      const to = j === p.shiftDiodes.length - 1 ? driverInputNet(p.output) : `${p.output}/${j + 1}`;
+      rows.push({ ref, part: "level-shift diode", from, to, ohms: null });
+    });
+    return rows;
+  });
+}
+
+/** The heading of the input-network rows. */
+export const NETWORK_HEADING =
+  "Dark-decoded outputs' input network: each pull-up from VLOGIC to the output line, then its level-shift diodes (anode first, band towards the driver) or divider to the driver's input";
+
 /** Column heads of the wiring CSV. */
 export const WIRING_HEADER = ["Step", "Ref", "From (anode)", "To (cathode, band)", "Sheet", "Zone", "Done"] as const;
 
@@ -91,16 +135,23 @@ export const WIRING_HEADER = ["Step", "Ref", "From (anode)", "To (cathode, band)
  * The wiring list as CSV: the header, one record per diode with an empty
  * Done column to tick; where outputs are tied on, a blank record, their
  * heading and one record per tie-on resistor (Step `T1`.., its reference,
- * VLOGIC, the output line); then a blank record and the inspection
+ * VLOGIC, the output line); where outputs are decoded dark, a blank record,
+ * their heading and one record per part of their input network (Step
+ * `N1`..); then a blank record and the inspection
  * checklist in the same columns (Step `C1`.., Ref the item, From the check).
  */
-export function wiringCsv(rows: readonly WiringRow[], tieOns: readonly TieOnRow[] = []): string {
+export function wiringCsv(rows: readonly WiringRow[], tieOns: readonly TieOnRow[] = [], network: readonly NetworkRow[] = []): string {
   const records: (string | number)[][] = [[...WIRING_HEADER]];
   for (const r of rows) records.push([r.step, r.ref, r.from, r.to, r.sheet ?? "", r.zone, ""]);
   if (tieOns.length > 0) {
     records.push([]);
     records.push([TIE_ON_HEADING, "", "", "", "", "", ""]);
     tieOns.forEach((t, i) => records.push([`T${i + 1}`, t.ref, t.from, t.to, "", "", ""]));
+  }
+  if (network.length > 0) {
+    records.push([]);
+    records.push([NETWORK_HEADING, "", "", "", "", "", ""]);
+    network.forEach((n, i) => records.push([`N${i + 1}`, n.ref, n.from, n.to, "", "", ""]));
   }
   records.push([]);
   records.push(["Inspection checklist", "", "", "", "", "", ""]);

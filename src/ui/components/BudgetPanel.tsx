@@ -1,13 +1,15 @@
 /**
  * The Budget panel: string current per output across the states (an SVG
  * chart), the spread, the design's emitter resistors with the trim and the
- * control that says whether the design takes it, supply figures, and the
- * warnings with their severity (a word and a mark, never colour alone).
+ * control that says whether the design takes it, supply figures, the
+ * dark-decoded outputs' pull-ups and ghost check, and the warnings with
+ * their severity (a word and a mark, never colour alone).
  */
 import { createMemo, For, Show } from "solid-js";
 import { budgetDesign } from "../../core/budget/budget.ts";
 import { designNote, TRIM_MODES, type TrimMode } from "../../core/budget/segmentDesign.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
+import { darkFigureLines, darkNetworkText } from "../../render/darkBudgetText.ts";
 import { formatOhms, microampsShort, milliamps, milliwatts, percent } from "../../render/units.ts";
 import { app } from "../state/appState.ts";
 import { budgetChart, CHART_ROW_H } from "./budgetChart.ts";
@@ -177,6 +179,42 @@ export function BudgetPanel() {
                 </tbody>
               </table>
             </details>
+            <Show when={b().dark}>
+              {(d) => (
+                <details class="trim" open data-testid="dark-budget" data-passes={d().passes ? "yes" : "no"}>
+                  <summary>Dark-decoded outputs ({d().outputs.length})</summary>
+                  <p class="design-note" data-testid="dark-network">
+                    {darkNetworkText(d())}. {d().sizing}.
+                  </p>
+                  <table class="mini-table" data-testid="dark-parts">
+                    <thead>
+                      <tr>
+                        <th>Output</th>
+                        <th>Pull-up</th>
+                        <th>{d().input === "divider" ? "Divider" : "Level shift"}</th>
+                        <th>{d().input === "divider" ? "Lower" : "Bleed"}</th>
+                      </tr>
+                    </thead>
+                    <tbody>
+                      <For each={d().outputs}>
+                        {(o) => (
+                          <tr>
+                            <td>{o.output}</td>
+                            <td>{o.pullUp}</td>
+                            <td>{d().input === "divider" ? (o.divider ?? "") : o.shiftDiodes.join(" ")}</td>
+                            <td>{o.bleed}</td>
+                          </tr>
+                        )}
+                      </For>
+                    </tbody>
+                  </table>
+                  <p class="muted small">Ghost check, every state at the nominal values and both tolerance corners:</p>
+                  <ul class="dark-figures" data-testid="dark-figures">
+                    <For each={darkFigureLines(d(), b().targetA >= 1e-4 ? "mA" : "µA")}>{(line) => <li>{line}</li>}</For>
+                  </ul>
+                </details>
+              )}
+            </Show>
             <ul class="warnings" aria-label="Budget warnings">
               <For each={warnings()}>
                 {(w) => (

@@ -5,9 +5,17 @@
  * budget's design (the values the BOM and the decks carry).
  */
 import { createMemo, For, Show } from "solid-js";
-import { designNote } from "../../core/budget/segmentDesign.ts";
+import { designModel, designNote } from "../../core/budget/segmentDesign.ts";
 import { designators } from "../../core/matrix/designators.ts";
-import { INSPECTION_CHECKLIST, TIE_ON_HEADING, tieOnRows, WIRING_HEADER, wiringRows } from "../../core/papers/wiringList.ts";
+import {
+  INSPECTION_CHECKLIST,
+  NETWORK_HEADING,
+  networkRows,
+  TIE_ON_HEADING,
+  tieOnRows,
+  WIRING_HEADER,
+  wiringRows,
+} from "../../core/papers/wiringList.ts";
 import { bomLines } from "../../render/bom.ts";
 import { ohmsText } from "../../render/units.ts";
 import { paperDesign } from "../../render/papers.ts";
@@ -21,12 +29,13 @@ export function PrintView() {
     const drawing = app.drawingCurrent() ? app.drawing() : null;
     const budget = app.currentBudget();
     const design = paperDesign({ project: r.project, matrix: r.matrix, budget });
-    const parts = designators(r.spec, r.matrix, r.project.electrical, design.ohms);
+    const parts = designators(r.spec, r.matrix, designModel(r.project.electrical, design), design.ohms);
     // Until the budget settles the emitter resistors, the print view shows no values it may then change.
     return {
       r,
       rows: wiringRows(r.matrix, drawing?.placements),
       tieOns: tieOnRows(parts.drivers),
+      network: networkRows(parts.darkInputs),
       parts: budget ? bomLines(r.project.electrical, parts, design) : [],
       design,
     };
@@ -76,6 +85,27 @@ export function PrintView() {
                       <td>{ohmsText(t.ohms)}</td>
                       <td>{t.from}</td>
                       <td>{t.to}</td>
+                      <td class="box">☐</td>
+                    </tr>
+                  )}
+                </For>
+              </tbody>
+            </table>
+          </Show>
+          <Show when={l().network.length > 0}>
+            <h2>{NETWORK_HEADING}</h2>
+            <table class="print-table" data-testid="print-network">
+              <tbody>
+                <For each={l().network}>
+                  {(n, i) => (
+                    <tr>
+                      <td>N{i() + 1}</td>
+                      <td>
+                        <b>{n.ref}</b>
+                      </td>
+                      <td>{n.ohms === null ? "diode" : ohmsText(n.ohms)}</td>
+                      <td>{n.from}</td>
+                      <td>{n.to}</td>
                       <td class="box">☐</td>
                     </tr>
                   )}

@@ -3,7 +3,7 @@
 import { solveBudget } from "../../core/budget/budget.ts";
 import { compileSpec } from "../../core/spec/decodeSpec.ts";
 import { compareGlyphStyles } from "../../core/compare/glyphStyles.ts";
-import { electricalRefusal, type DiodeMatrix } from "../../core/matrix/matrix.ts";
+import type { DiodeMatrix } from "../../core/matrix/matrix.ts";
 import { validateProject } from "../../core/project/projectSchema.ts";
 import { fail, formatProblems, ok } from "../../core/result/result.ts";
 import { synthesize, synthSettings } from "../../core/synth/synthesize.ts";
@@ -55,10 +55,6 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
       job: "layout",
       result: ok(layoutMatrix(project, spec, checked.value, drawingOptions(project, req.drawing))),
     });
-  }
-  const refusal = electricalRefusal(checked.value);
-  if (refusal !== null) {
-    return post({ id: req.id, job: "budget", result: fail({ kind: "rejected" as const, message: refusal }) } as AnalysisReply);
   }
   post({ id: req.id, job: "budget", result: solveBudget(project, spec, checked.value, { trim: req.trim }) });
 };

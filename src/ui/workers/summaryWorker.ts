@@ -5,15 +5,16 @@ import wasmUrl from "highs/runtime?url";
 import { solveBudget } from "../../core/budget/budget.ts";
 import { instrumentBudget, type BudgetedDecoder } from "../../core/budget/instrumentBudget.ts";
 import { designators } from "../../core/matrix/designators.ts";
-import { electricalRefusal, type DiodeMatrix } from "../../core/matrix/matrix.ts";
+import type { DiodeMatrix } from "../../core/matrix/matrix.ts";
 import { verifyMatrix } from "../../core/matrix/verify.ts";
 import { countParts } from "../../core/papers/parts.ts";
 import { validateProject } from "../../core/project/projectSchema.ts";
-import { fail, formatProblems } from "../../core/result/result.ts";
+import { formatProblems } from "../../core/result/result.ts";
 import { compileSpec } from "../../core/spec/decodeSpec.ts";
 import type { HighsLike, HighsLoader } from "../../core/synth/exact.ts";
 import { synthesize, synthSettings } from "../../core/synth/synthesize.ts";
 import { paperDesign } from "../../render/papers.ts";
+import { designModel } from "../../core/budget/segmentDesign.ts";
 import type { DecoderFigures, SummaryReply, SummaryRequest } from "./summaryProtocol.ts";
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -29,6 +30,8 @@ const RESISTOR_KINDS = new Set([
   "pull-down",
   "tie-on-resistor",
   "gate-pull-up",
+  "dark-pull-up",
+  "divider-resistor",
 ]);
 
 function post(reply: SummaryReply): void {
@@ -43,17 +46,16 @@ async function decoderJob(id: number, data: unknown, trim: Extract<SummaryReques
   const m = await synthesize(spec, synthSettings(project), { loadHighs });
   if (!m.ok) return post({ id, type: "failed", message: m.error.message });
   const matrix = m.value;
-  const refusal = electricalRefusal(matrix);
-  const budget: DecoderFigures["budget"] =
-    refusal !== null ? fail({ kind: "rejected" as const, message: refusal }) : solveBudget(project, spec, matrix, { trim });
+  const budget: DecoderFigures["budget"] = solveBudget(project, spec, matrix, { trim });
   const design = paperDesign({ project, matrix, budget });
-  const groups = countParts(designators(spec, matrix, project.electrical, design.ohms));
+  const groups = countParts(designators(spec, matrix, designModel(project.electrical, design), design.ohms));
   const count = (test: (kind: string) => boolean) => groups.filter((g) => test(g.kind)).reduce((n, g) => n + g.refs.length, 0);
   post({
     id,
     type: "figures",
     figures: {
-      diodes: count((k) => k === "diode") + (matrix.inputNetwork?.diodes ?? 0),
+      // The matrix's diodes and the dark-decoded outputs' level-shift diodes.
+      diodes: count((k) => k === "diode" || k === "level-shift-diode"),
       transistors: count((k) => k === "transistor"),
       resistors: count((k) => RESISTOR_KINDS.has(k)),
       optimal: matrix.optimal,

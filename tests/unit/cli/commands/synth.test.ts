@@ -72,7 +72,9 @@ describe("diodeloom synth with dark-decoded outputs", () => {
     expect(text).toContain(
       "Input network of the 7 dark-decoded outputs: 7 pull-ups to the logic supply and 14 level-shift diodes (2 per output).",
     );
-    expect(text).toMatch(/Ghost check .* pull-ups [\d.]+ kΩ \(E24\)/);
+    expect(text).toMatch(/Ghost check .* pull-ups [\d.]+k \(E24\)/);
+    // The parts list counts the pull-ups and the level-shift diodes after the matrix diodes.
+    expect(text).toMatch(/^ +14 +small-signal silicon +D14-D27$/m);
     expect(text).toMatch(/worst unlit segment [\d.]+ µA \(1[a-g] in S\d, (nominal|low|high)\) against the 100\.0 µA ghost limit/);
     expect(text).toContain("Totals: 13 matrix diodes + 14 level-shift = 27");
     const json = recordingIo({ "p.json": JSON.stringify(file) });
@@ -83,12 +85,14 @@ describe("diodeloom synth with dark-decoded outputs", () => {
     // A dark-side diode is named from its driving end, the active-low line or its bus.
     expect(m.diodes.some((d: { from: string }) => /^nS\d+$/.test(d.from))).toBe(true);
   });
-  it("refuses --decode dark on a source-drive counter, and budget on a dark-decoded project", async () => {
+  it("refuses --decode dark on a source-drive counter; budget takes a dark-decoded project", async () => {
     const source = recordingIo({ "p.json": JSON.stringify({ ...file, counter: { states: 6 } }) });
     expect(await main(["synth", "p.json", "--decode", "dark"], source)).toBe(2);
     expect(source.stderr.join("")).toContain('set counter.drive to "complementary"');
     const budget = recordingIo({ "p.json": JSON.stringify({ ...file, synthesis: { decode: "dark" } }) });
-    expect(await main(["budget", "p.json", "--fast"], budget)).toBe(2);
-    expect(budget.stderr.join("")).toContain("do not yet take dark-decoded outputs");
+    expect(await main(["budget", "p.json", "--fast"], budget)).toBe(0);
+    const text = budget.stdout.join("");
+    expect(text).toMatch(/^Dark-decoded outputs \(7\): pull-ups [\d.]+k from the logic supply, 2 level-shift diodes each/m);
+    expect(text).toMatch(/^ +worst unlit [\d.]+ µA \(1[a-g] in S\d, (nominal|low|high corner)\) against the 100\.0 µA ghost limit$/m);
   });
 });

@@ -1,5 +1,11 @@
 import { describe, expect, it } from "vitest";
-import { checkWith, ghostCheck, pullUpCandidates } from "../../../../src/core/budget/ghostCheck.ts";
+import {
+  checkWith,
+  dividerCandidates,
+  dividerLowerCandidates,
+  pullUpCandidates,
+  sizeDarkNetwork,
+} from "../../../../src/core/budget/ghostCheck.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../../../src/core/synth/synthesize.ts";
 import { makeProject2 } from "../../../support/projects.ts";
@@ -18,16 +24,20 @@ async function design(decode: string, darkInput = "level-shift") {
 }
 
 describe("ghostCheck", () => {
-  it("tries E24 pull-ups from 1 kΩ to 100 kΩ", () => {
+  it("tries E24 pull-ups from 1 kΩ to 100 kΩ, E24 upper and E6 lower divider resistors", () => {
     const c = pullUpCandidates();
     expect(c[0]).toBe(1000);
     expect(c[c.length - 1]).toBe(100_000);
     expect(c).toContain(4300);
+    expect(c).toHaveLength(49);
+    const u = dividerCandidates();
+    expect([u[0], u[u.length - 1], u.length]).toEqual([1000, 1_000_000, 73]);
+    expect(dividerLowerCandidates()).toEqual([1000, 1500, 2200, 3300, 4700, 6800, 10_000, 15_000, 22_000, 33_000, 47_000, 68_000, 100_000]);
   });
 
   it("sizes the pull-up on the 5 V preset and names the limit that stops a smaller one", async () => {
     const { project, spec, matrix } = await design("dark");
-    const g = ghostCheck(project, spec, matrix);
+    const g = sizeDarkNetwork(project, spec, matrix);
     expect(g.ok).toBe(true);
     if (!g.ok) return;
     const v = g.value;
@@ -35,18 +45,44 @@ describe("ghostCheck", () => {
     expect(v.values.shiftDiodes).toBe(2);
     expect(v.worstUnlit.currentA).toBeLessThanOrEqual(v.ghostLimitA);
     expect(v.mostSunk.currentA).toBeLessThanOrEqual(project.electrical.lowLine.maxCurrentA);
-    expect(v.weakestLit.currentA).toBeGreaterThanOrEqual(0.5 * project.electrical.segment.targetA);
-    expect(v.binding).toMatch(/^a smaller pull-up fails: /);
-    // The next smaller E24 value breaks the limit the check names.
+    // The budget's window: target ±20 %.
+    expect(v.litWindowA).toEqual([0.008, 0.012]);
+    expect(v.weakestLit.currentA).toBeGreaterThanOrEqual(0.008);
+    expect(v.strongestLit.currentA).toBeLessThanOrEqual(0.012);
+    // Every state at the nominal values and both corners.
+    expect(v.states).toHaveLength(3 * 6);
+    expect(v.binding).toMatch(/^a smaller pull-up breaks /);
+    // The next smaller E24 value breaks the limit the sizing names, in the full check.
     const candidates = pullUpCandidates();
     const smaller = candidates[candidates.indexOf(v.values.pullUpOhms) - 1] as number;
     const worse = checkWith(project, spec, matrix, { ...v.values, pullUpOhms: smaller });
     expect(worse.ok && worse.value.passes).toBe(false);
+    if (worse.ok) expect(v.binding).toContain(worse.value.binding.split(" (")[0]);
+  });
+
+  it("sizes a divider whose lit segments are within the budget's window, and names what binds", async () => {
+    const { project, spec, matrix } = await design("dark", "divider");
+    const g = sizeDarkNetwork(project, spec, matrix);
+    if (!g.ok) throw new Error(g.error.message);
+    const v = g.value;
+    expect(v.passes, v.binding).toBe(true);
+    expect(v.values.dividerOhms).not.toBeNull();
+    expect(v.values.dividerLowerOhms).not.toBeNull();
+    expect(v.weakestLit.currentA).toBeGreaterThanOrEqual(v.litWindowA[0]);
+    expect(v.binding).toMatch(/^pull-up: .*; divider: a smaller upper resistor breaks the ghost limit/);
+    // The next smaller upper resistor breaks the ghost limit in the full check.
+    const uppers = dividerCandidates();
+    const smaller = uppers[uppers.indexOf(v.values.dividerOhms as number) - 1] as number;
+    const worse = checkWith(project, spec, matrix, { ...v.values, dividerOhms: smaller });
+    expect(worse.ok && worse.value.broken.includes("ghost")).toBe(true);
+    // The divider of old (its upper resistor the 22 kΩ pull-up's value, its lower one the 47 kΩ pull-down) leaves the lit segments dim.
+    const old = checkWith(project, spec, matrix, { ...v.values, pullUpOhms: 22_000, dividerOhms: 22_000, dividerLowerOhms: 47_000 });
+    expect(old.ok && old.value.broken.includes("lit-low")).toBe(true);
   });
 
   it("finds the ghost without level-shift diodes: a node two drops above the line's low turns the driver on", async () => {
     const { project, spec, matrix } = await design("dark");
-    const r = checkWith(project, spec, matrix, { pullUpOhms: 4300, shiftDiodes: 0, dividerOhms: null });
+    const r = checkWith(project, spec, matrix, { pullUpOhms: 4300, shiftDiodes: 0, dividerOhms: null, dividerLowerOhms: null });
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.value.passes).toBe(false);
@@ -56,6 +92,6 @@ describe("ghostCheck", () => {
 
   it("refuses a matrix with no dark-decoded output", async () => {
     const { project, spec, matrix } = await design("lit");
-    expect(ghostCheck(project, spec, matrix).ok).toBe(false);
+    expect(sizeDarkNetwork(project, spec, matrix).ok).toBe(false);
   });
 });

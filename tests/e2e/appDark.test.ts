@@ -1,0 +1,67 @@
+/**
+ * The web app with dark-decoded outputs: a counter with both line
+ * polarities decoded in the cheaper polarity per output; the Budget panel
+ * solves it and shows the pull-ups, the level-shift diodes and the ghost
+ * check, which agree with the command line's budget of the same project.
+ */
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { fileURLToPath } from "node:url";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
+import { startApp, type AppHarness } from "./appBrowser.ts";
+
+const ROOT = fileURLToPath(new URL("../..", import.meta.url));
+const BIN = join(ROOT, "bin", "diodeloom.mjs");
+const dir = mkdtempSync(join(tmpdir(), "diodeloom-app-dark-"));
+
+let app: AppHarness;
+let context: BrowserContext;
+let page: Page;
+
+beforeAll(async () => {
+  app = await startApp();
+  context = await app.browser.newContext({ viewport: { width: 1280, height: 1400 } });
+  page = await context.newPage();
+});
+
+afterAll(async () => {
+  await app?.close();
+  rmSync(dir, { recursive: true, force: true });
+});
+
+describe("the web app with dark-decoded outputs", () => {
+  it("shows the dark decode's pull-ups and ghost check in the Budget panel, as the command line's budget has them", async () => {
+    await page.goto(app.url);
+    await page.waitForSelector('[data-ready="yes"]', { timeout: 20_000 });
+    await page.locator("#f-states").fill("10");
+    await page.locator("#f-states").dispatchEvent("change");
+    await page.getByTestId("counter-drive").selectOption("complementary");
+    await page.getByTestId("decode-polarity").selectOption("either");
+    await expect.poll(() => page.getByTestId("exact-status").textContent(), { timeout: 90_000 }).toMatch(/proven minimum/);
+    const panel = page.getByTestId("dark-budget");
+    await panel.waitFor({ timeout: 90_000 });
+    await expect.poll(() => page.getByTestId("budget").locator(".chip.stale").count(), { timeout: 60_000 }).toBe(0);
+    expect(await panel.getAttribute("data-passes")).toBe("yes");
+    const network = (await page.getByTestId("dark-network").textContent()) ?? "";
+    expect(network).toMatch(/^pull-ups [\d.]+k from the logic supply, 2 level-shift diodes each/);
+    const figures = await page.getByTestId("dark-figures").locator("li").allTextContents();
+    expect(figures[0]).toMatch(
+      /^worst unlit [\d.]+ µA \(1[a-g] in S\d, (nominal|low corner|high corner)\) against the 100\.0 µA ghost limit$/,
+    );
+    expect(figures[figures.length - 1]).toBe("every limit holds");
+    await page.screenshot({ path: "/work/shots/issue11-dark-budget.png", fullPage: true }).catch(() => undefined);
+
+    // The same project through the command line: the same pull-up and the same worst unlit segment.
+    const saved = () => page.evaluate(() => localStorage.getItem("diodeloom.autosave.current") ?? "");
+    await expect.poll(saved, { timeout: 20_000 }).toMatch(/"decode": ?"either"/);
+    const file = join(dir, "p.json");
+    writeFileSync(file, JSON.stringify((JSON.parse(await saved()) as { project: unknown }).project));
+    const cli = JSON.parse(execFileSync(process.execPath, [BIN, "budget", file, "--json"], { cwd: ROOT, encoding: "utf8" })) as {
+      dark: { pullUpOhms: number };
+    };
+    expect(network).toContain(`pull-ups ${cli.dark.pullUpOhms / 1000}k`);
+  }, 240_000);
+});
