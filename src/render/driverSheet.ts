@@ -13,7 +13,7 @@
 import type { Budget } from "../core/budget/budgetTypes.ts";
 import { carriedVoltages, safetyCautions } from "../core/budget/safety.ts";
 import { designModel, designNote, type SegmentDesign } from "../core/budget/segmentDesign.ts";
-import { designators, type DriverParts, type StageResistor } from "../core/matrix/designators.ts";
+import { designators, type DarkInputParts, type DriverParts, type StageResistor } from "../core/matrix/designators.ts";
 import type { DiodeMatrix } from "../core/matrix/matrix.ts";
 import type { DriverKind, ElectricalModel, Project } from "../core/project/project.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
@@ -95,17 +95,33 @@ const RESISTOR_PARTS: readonly StagePart[] = ["Re", "Rs", "Rc", "Rb", "Rbe", "Rp
 /**
  * The table of every driven output: output, driver, each resistor (reference
  * and value) that some output has, the segment, and with a budget the lit
- * current over the states at nominal values.
+ * current over the states at nominal values. Where outputs are decoded
+ * dark, their pull-up (Ru) and level-shift diodes (Dl) or divider (Rv; its
+ * lower resistor is the output's Rpd) come after the output.
  *
  * @example
  * driverTable(parts.drivers, budget).head; // ["Output", "Q", "Rs", "Rb", "Rbe", "Rpd", "DS", "Lit mA"]
  */
-export function driverTable(drivers: readonly DriverParts[], budget: Budget | null): DriverTable {
+export function driverTable(
+  drivers: readonly DriverParts[],
+  budget: Budget | null,
+  darkInputs: readonly DarkInputParts[] = [],
+): DriverTable {
   const parts = RESISTOR_PARTS.filter((p) => drivers.some((d) => resistorOf(p, d) !== null));
   const withQ = drivers.some((d) => d.transistor !== null);
-  const head = ["Output", ...(withQ ? ["Q"] : []), ...parts, "DS", ...(budget ? ["Lit mA"] : [])];
+  const dark = new Map(darkInputs.map((p) => [p.output, p]));
+  const withShift = darkInputs.some((p) => p.shiftDiodes.length > 0);
+  const withDivider = darkInputs.some((p) => p.divider !== null);
+  const darkHead = dark.size === 0 ? [] : ["Ru", ...(withShift ? ["Dl"] : []), ...(withDivider ? ["Rv"] : [])];
+  const head = ["Output", ...darkHead, ...(withQ ? ["Q"] : []), ...parts, "DS", ...(budget ? ["Lit mA"] : [])];
   const rows = drivers.map((d) => {
     const cells = [d.tiedOn ? `${d.output} (on)` : d.output];
+    if (dark.size > 0) {
+      const p = dark.get(d.output);
+      cells.push(p ? `${p.pullUp.ref} ${ohmsText(p.pullUp.ohms)}` : "-");
+      if (withShift) cells.push(p && p.shiftDiodes.length > 0 ? p.shiftDiodes.join(" ") : "-");
+      if (withDivider) cells.push(p?.divider ? `${p.divider.ref} ${ohmsText(p.divider.ohms)}` : "-");
+    }
     if (withQ) cells.push(d.transistor ?? "-");
     for (const p of parts) {
       const r = resistorOf(p, d);
@@ -122,7 +138,13 @@ export function driverTable(drivers: readonly DriverParts[], budget: Budget | nu
 }
 
 /** The notes of the driver sheet, in order. */
-export function driverNotes(e: ElectricalModel, tiedOn: readonly string[], design: SegmentDesign, withBudget: boolean): string[] {
+export function driverNotes(
+  e: ElectricalModel,
+  tiedOn: readonly string[],
+  design: SegmentDesign,
+  withBudget: boolean,
+  darkInputs: readonly DarkInputParts[] = [],
+): string[] {
   const s = e.supply;
   const kind = e.driver.kind;
   const notes = [KIND_WORDS[kind]];
@@ -134,6 +156,15 @@ export function driverNotes(e: ElectricalModel, tiedOn: readonly string[], desig
   if (tiedOn.length > 0) {
     notes.push(
       `Tied-on outputs (${tiedOn.join(", ")}, lit in every state, no diodes): X hangs from the logic supply VLOGIC ${e.logicSupply.volts} V through Rt instead of a matrix column.`,
+    );
+  }
+  if (darkInputs.length > 0) {
+    const divider = darkInputs.some((p) => p.divider !== null);
+    notes.push(
+      `Dark-decoded outputs (${darkInputs.map((p) => p.output).join(", ")}): the matrix column is pulled up from VLOGIC ${e.logicSupply.volts} V through Ru and down through the matrix diodes to the active-low lines; ` +
+        (divider
+          ? "X reaches the stage through the divider Rv over Rpd."
+          : "X reaches the stage through the level-shift diodes Dl (anode at the column), which Rpd keeps conducting."),
     );
   }
   const seg = e.segment;
@@ -234,14 +265,14 @@ export function layoutDriverSheets(input: DriverSheetInput): Sheet[] {
   const { project, spec, matrix, design, options, budget } = input;
   const e = project.electrical;
   const parts = designators(spec, matrix, designModel(e, design), design.ohms);
-  const table = driverTable(parts.drivers, budget);
+  const table = driverTable(parts.drivers, budget, parts.darkInputs);
   const tiedOn = parts.drivers.filter((d) => d.tiedOn).map((d) => d.output);
   const frame = sheetFrame(options.paper, "landscape");
   const content = frame.content;
   const tbTop = content.y + content.h - TITLE_BLOCK_MM.h;
 
   // The left column: the stage, then the notes.
-  const notes = driverNotes(e, tiedOn, design, budget !== null);
+  const notes = driverNotes(e, tiedOn, design, budget !== null, parts.darkInputs);
   const notesH = notesHeight(notes, LEFT_MM);
   const schematic = stageSchematic({
     kind: e.driver.kind,

@@ -16,6 +16,7 @@ import { drawingOptions } from "../../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../../src/render/layout.ts";
 import { registerNodeWindow } from "../../../src/render/nodeWindow.ts";
 import { allPaperFiles } from "../../../src/render/papers.ts";
+import { driverNotes, driverTable } from "../../../src/render/driverSheet.ts";
 import { makeProject2 } from "../../support/projects.ts";
 
 registerNodeWindow();
@@ -45,7 +46,7 @@ const text = (files: { name: string; text: string }[], name: string): string => 
 
 describe("papers of a dark-decoded project", () => {
   it("level-shift: every paper; the shift diodes after the matrix diodes, the pull-ups after every other resistor", async () => {
-    const { matrix, budget, files, parts, spec } = await papers("level-shift");
+    const { matrix, budget, files, parts, spec, project } = await papers("level-shift");
     expect(files.map((f) => f.name)).toContain("bom.csv");
     expect(files.filter((f) => f.name.startsWith("spice/"))).toHaveLength(spec.states.length);
     const dark = darkOutputs(matrix);
@@ -73,6 +74,13 @@ describe("papers of a dark-decoded project", () => {
     expect(csv).toContain(`N2,${p0.shiftDiodes[0]},${p0.output},${p0.output}/1,,,`);
     expect(csv).toContain(`N3,${p0.shiftDiodes[1]},${p0.output}/1,${p0.output} in,,,`);
     expect(text(files, "wiring.html")).toContain("Dark-decoded outputs&#39; input network");
+    // The driver sheet's table gives each dark-decoded output its pull-up and shift diodes, after the output.
+    const table = driverTable(parts.drivers, budget, parts.darkInputs);
+    expect(table.head.slice(0, 3)).toEqual(["Output", "Ru", "Dl"]);
+    const row = table.rows.find((x) => x.output === p0.output);
+    expect(row?.cells.slice(1, 3)).toEqual([`${p0.pullUp.ref} ${p0.pullUp.ohms / 1000} kΩ`, p0.shiftDiodes.join(" ")]);
+    expect(text(files, "driver.svg")).toContain(p0.pullUp.ref);
+    expect(driverNotes(project.electrical, [], budgetDesign(budget), true, parts.darkInputs).join(" ")).toMatch(/level-shift diodes Dl/);
     // The budget's JSON has the dark section, every state at each of the three corners.
     const json = JSON.parse(text(files, "budget.json")) as { dark: { states: unknown[]; passes: boolean } };
     expect(json.dark.states).toHaveLength(3 * spec.states.length);
