@@ -3,10 +3,10 @@
 import { solveBudget } from "../../core/budget/budget.ts";
 import { instrumentBudget, type BudgetedDecoder } from "../../core/budget/instrumentBudget.ts";
 import { decoderRefPrefix, withRefPrefix } from "../../core/matrix/designators.ts";
-import { electricalRefusal, type DiodeMatrix } from "../../core/matrix/matrix.ts";
+import type { DiodeMatrix } from "../../core/matrix/matrix.ts";
 import { verifyMatrix } from "../../core/matrix/verify.ts";
 import { validateInstrument } from "../../core/project/instrument.ts";
-import { fail, formatProblems } from "../../core/result/result.ts";
+import { formatProblems } from "../../core/result/result.ts";
 import { compileSpec } from "../../core/spec/decodeSpec.ts";
 import { synthSettings } from "../../core/synth/synthesize.ts";
 import { drawingOptions } from "../../render/drawingOptions.ts";
@@ -26,9 +26,7 @@ function papers(req: PapersRequest): PapersReply {
     const checked = verifyMatrix(spec, req.matrices[i] as DiodeMatrix, synthSettings(d.project));
     if (!checked.ok) return { ok: false, message: `${d.name}: the matrix failed verification: ${checked.error.join("; ")}` };
     const matrix = withRefPrefix(checked.value, decoderRefPrefix(i, n));
-    const refusal = electricalRefusal(matrix);
-    const budget: DecoderPapers["budget"] =
-      refusal !== null ? fail({ kind: "rejected" as const, message: refusal }) : solveBudget(d.project, spec, matrix, { trim: req.trim });
+    const budget: DecoderPapers["budget"] = solveBudget(d.project, spec, matrix, { trim: req.trim });
     const drawing = layoutMatrix(d.project, spec, matrix, drawingOptions(d.project, req.drawing));
     if (budget.ok) budgeted.push({ name: d.name, project: d.project, spec, matrix, budget: budget.value });
     out.push({ matrix, drawing, budget });
