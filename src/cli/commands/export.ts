@@ -120,21 +120,8 @@ async function exportSingle(
   });
   if (!budget.ok) io.err(`budget: ${budget.error.message}; budget.json left out, the BOM and decks keep the project's emitter resistors\n`);
   registerNodeWindow();
-  // Each paper is made as the one before it is written, and let go: the export never holds every sheet and deck at once.
-  const names: string[] = [];
-  const files = function* (): Generator<OutputFile> {
-    for (const f of eachPaperFile({ project, spec, matrix, options, drawing, budget })) {
-      names.push(f.name);
-      yield { name: f.name, data: f.text };
-    }
-  };
-
-  // All or nothing: written beside or inside the target first, then moved into place.
-  const wrote = await io.writeOutputFolder(out, files(), EXPORT_NAMES);
-  if (!wrote.ok) {
-    io.err(`--out ${shownArg(out, 200)}: ${wrote.message}\n`);
-    return EXIT.input;
-  }
+  const names = await writePapers(io, out, eachPaperFile({ project, spec, matrix, options, drawing, budget }));
+  if (!names) return EXIT.input;
   io.out(`${project.title}\nWrote ${names.length} files to ${out}:\n${names.map((n) => `  ${n}`).join("\n")}\n`);
   io.out(`${designNote(paperDesign({ project, matrix, budget }))}\n`);
   if (budget.ok && budget.value.warnings.length > 0)
@@ -190,18 +177,8 @@ async function exportInstrument(
   if (!first) return EXIT.internal;
   registerNodeWindow();
   const input = { instrument, decoders, options: first.options, budget: totals };
-  const names: string[] = [];
-  const files = function* (): Generator<OutputFile> {
-    for (const f of eachInstrumentPaperFile(input)) {
-      names.push(f.name);
-      yield { name: f.name, data: f.text };
-    }
-  };
-  const wrote = await io.writeOutputFolder(out, files(), EXPORT_NAMES);
-  if (!wrote.ok) {
-    io.err(`--out ${shownArg(out, 200)}: ${wrote.message}\n`);
-    return EXIT.input;
-  }
+  const names = await writePapers(io, out, eachInstrumentPaperFile(input));
+  if (!names) return EXIT.input;
   io.out(`${instrument.title}\nWrote ${names.length} files to ${out}:\n${names.map((n) => `  ${n}`).join("\n")}\n`);
   io.out(`\nSheet index\n${sheetIndexText(sheetIndex(input))}`);
   for (const d of decoders) io.out(`${d.name}: ${designNote(paperDesign(d))}\n`);
@@ -211,6 +188,31 @@ async function exportInstrument(
 }
 
 /** Reads the drawing options, or prints what is wrong and returns undefined. */
+/**
+ * Writes the papers into `out`, all or nothing (beside or inside the target first, then moved into place).
+ * Each paper is made as the one before it is written, and let go: the export never holds every sheet and
+ * deck at once. Gives the names written, or undefined once it has said why the folder was refused.
+ */
+async function writePapers(
+  io: CliIo,
+  out: string,
+  papers: Iterable<{ readonly name: string; readonly text: string }>,
+): Promise<string[] | undefined> {
+  const names: string[] = [];
+  const files = function* (): Generator<OutputFile> {
+    for (const f of papers) {
+      names.push(f.name);
+      yield { name: f.name, data: f.text };
+    }
+  };
+  const wrote = await io.writeOutputFolder(out, files(), EXPORT_NAMES);
+  if (!wrote.ok) {
+    io.err(`--out ${shownArg(out, 200)}: ${wrote.message}\n`);
+    return undefined;
+  }
+  return names;
+}
+
 function drawingArgs(args: ParsedArgs, io: CliIo): Partial<DrawingOptions> | undefined {
   const given: { -readonly [K in keyof DrawingOptions]?: DrawingOptions[K] } = {};
   const paper = args.values.get("paper");
