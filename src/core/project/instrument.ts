@@ -23,11 +23,10 @@
  * docs/project-format.md documents the format.
  */
 import { fail, ok, type Problem, type Result } from "../result/result.ts";
-import { readJson } from "./jsonText.ts";
-import { fileSizeProblem, LIMITS } from "./limits.ts";
+import { LIMITS } from "./limits.ts";
 import { PROJECT_SCHEMA, PROJECT_SCHEMA_V1, type Project } from "./project.ts";
 import { decodeProjectBytes } from "./projectBytes.ts";
-import { MAX_PROJECT_BYTES, validateProject } from "./projectSchema.ts";
+import { readProjectJson, validateProject } from "./projectSchema.ts";
 import { electricalFields, serializeProject } from "./projectWriter.ts";
 import { describeValue, fieldPath, hasUnsafeText, quoteText } from "./valueText.ts";
 
@@ -60,7 +59,6 @@ export const DECODER_KEYS = ["name", "counter", "display", "glyphs", "show", "sy
 
 /** Most problems reported at once, as for a single project. */
 const MAX_PROBLEMS = 20;
-const FORBIDDEN_KEYS: ReadonlySet<string> = new Set(["__proto__", "constructor", "prototype"]);
 /** Loose maps that a value given replaces whole instead of merging into (keyed by one decoder's output names). */
 const REPLACED_WHOLE: ReadonlySet<string> = new Set(["driver.emitterResistors", "segment.seriesResistors"]);
 
@@ -73,13 +71,8 @@ const REPLACED_WHOLE: ReadonlySet<string> = new Set(["driver.emitterResistors", 
  * if (r.ok) for (const d of r.value.decoders) console.log(d.name, d.project.counter.states);
  */
 export function parseInstrument(text: string): Result<Instrument> {
-  const body = text.startsWith("\uFEFF") ? text.slice(1) : text;
-  const size = body.length > MAX_PROJECT_BYTES ? body.length * 3 : new TextEncoder().encode(body).length;
-  const tooLarge = fileSizeProblem(size);
-  if (tooLarge) return fail([tooLarge]);
-  const read = readJson(body, { maxNesting: LIMITS.nesting, forbiddenKeys: FORBIDDEN_KEYS });
-  if (!read.ok) return fail([read.error]);
-  return validateInstrument(read.value.value);
+  const read = readProjectJson(text);
+  return read.ok ? validateInstrument(read.value) : read;
 }
 
 /** Reads a project file's bytes as an instrument: `decodeProjectBytes`, then `parseInstrument`. */

@@ -88,6 +88,15 @@ type LooseProject = Omit<v.InferOutput<typeof ProjectSchema>, "schema" | "electr
  * if (r.ok) console.log(r.value.display.cell.segments); // ["a", ..., "g"]
  */
 export function parseProject(text: string): Result<Project> {
+  const read = readProjectJson(text);
+  return read.ok ? validateProject(read.value) : read;
+}
+
+/**
+ * Reads a project file's JSON text within the file limits (size, nesting, no prototype keys), before any
+ * field is checked; the one reader of single projects and instruments.
+ */
+export function readProjectJson(text: string): Result<unknown> {
   // A leading byte-order mark is accepted, as in a file (see projectBytes.ts).
   const body = text.startsWith("\uFEFF") ? text.slice(1) : text;
   const size = body.length > MAX_PROJECT_BYTES ? body.length * 3 : new TextEncoder().encode(body).length;
@@ -95,7 +104,7 @@ export function parseProject(text: string): Result<Project> {
   if (tooLarge) return fail([tooLarge]);
   const read = readJson(body, { maxNesting: LIMITS.nesting, forbiddenKeys: FORBIDDEN_KEYS });
   if (!read.ok) return fail([read.error]);
-  return validateProject(read.value.value);
+  return ok(read.value.value);
 }
 
 /** Most problems reported at once; the rest usually follow from the first ones. */
