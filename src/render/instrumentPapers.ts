@@ -21,14 +21,14 @@ import { designators } from "../core/matrix/designators.ts";
 import { csvText } from "../core/papers/csv.ts";
 import { refRanges } from "../core/papers/parts.ts";
 import { spiceNetlist } from "../core/papers/netlist.ts";
-import { INSPECTION_CHECKLIST, TIE_ON_HEADING, WIRING_HEADER, wiringRows } from "../core/papers/wiringList.ts";
+import { checklistRecords, WIRING_HEADER, wiringRecords, wiringRows } from "../core/papers/wiringList.ts";
 import { serializeInstrument, type Instrument } from "../core/project/instrument.ts";
 import { BOM_HEADER, bomLines, type BomLine } from "./bom.ts";
 import { label, STROKE, type Label, type Rect, type Segment, type Sheet } from "./drawingModel.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
 import { instrumentBudgetJsonText } from "./instrumentBudgetReport.ts";
 import { designModel } from "../core/budget/segmentDesign.ts";
-import { driverSheets, paperDesign, tieOnsOf, type PaperFile, type PaperInput } from "./papers.ts";
+import { driverSheets, networkOf, paperDesign, tieOnsOf, type PaperFile, type PaperInput } from "./papers.ts";
 import { sheetFrame, titleBlock } from "./sheetFrame.ts";
 import { sheetSvgText } from "./sheetSvg.ts";
 import { wiringPageHtml } from "./wiringPage.ts";
@@ -210,22 +210,15 @@ function bomText(lines: readonly BomLine[]): string {
   return csvText([[...BOM_HEADER], ...lines.map((l) => [l.quantity, l.references, l.value, l.description])]);
 }
 
-/** The wiring list of the set as CSV: a heading record and the rows of each decoder, then the inspection checklist once. */
+/** The wiring list of the set as CSV: a heading record and each decoder's section (its diodes, tie-ons and input network), then the inspection checklist once. */
 export function instrumentWiringCsv(decoders: readonly DecoderPaperInput[]): string {
   const records: (string | number)[][] = [[...WIRING_HEADER]];
-  const blank = ["", "", "", "", "", ""];
   decoders.forEach((d, i) => {
-    records.push([`Decoder ${i + 1}: ${d.name}`, ...blank]);
-    for (const r of wiringRows(d.matrix, d.drawing.placements)) records.push([r.step, r.ref, r.from, r.to, r.sheet ?? "", r.zone, ""]);
-    const tieOns = tieOnsOf(d);
-    if (tieOns.length > 0) {
-      records.push([TIE_ON_HEADING, ...blank]);
-      tieOns.forEach((t, k) => records.push([`T${k + 1}`, t.ref, t.from, t.to, "", "", ""]));
-    }
+    records.push([`Decoder ${i + 1}: ${d.name}`, "", "", "", "", "", ""]);
+    records.push(...wiringRecords(wiringRows(d.matrix, d.drawing.placements), tieOnsOf(d), networkOf(d)));
     records.push([]);
   });
-  records.push(["Inspection checklist", ...blank]);
-  INSPECTION_CHECKLIST.forEach((c, k) => records.push([`C${k + 1}`, c.item, c.check, "", "", "", ""]));
+  records.push(...checklistRecords());
   return csvText(records);
 }
 
@@ -237,6 +230,7 @@ export function instrumentWiringHtml(input: Pick<InstrumentPaperInput, "instrume
       matrix: d.matrix,
       rows: wiringRows(d.matrix, d.drawing.placements),
       tieOns: tieOnsOf(d),
+      network: networkOf(d),
       options: d.options,
       sheetCount: d.drawing.sheets.length,
     });

@@ -274,7 +274,7 @@ export function designators(
   const darkInputs = dark.map((o): DarkInputParts => {
     const pullUp = pullUps.get(o);
     if (pullUp === undefined) throw new Error(`bug: no pull-up designator for ${o}`);
-    const shift = Array.from({ length: shiftCount }, () => diodeRef(nextDiode++));
+    const shift = Array.from({ length: shiftCount }, () => `${p}${diodeRef(nextDiode++)}`);
     const lower = net === null || net.dividerLowerOhms === null ? null : (pullDowns.get(o) ?? null);
     return { output: o, pullUp, divider: dividers.get(o) ?? null, dividerLower: lower, shiftDiodes: shift };
   });

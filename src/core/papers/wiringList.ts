@@ -141,8 +141,16 @@ export const WIRING_HEADER = ["Step", "Ref", "From (anode)", "To (cathode, band)
  * checklist in the same columns (Step `C1`.., Ref the item, From the check).
  */
 export function wiringCsv(rows: readonly WiringRow[], tieOns: readonly TieOnRow[] = [], network: readonly NetworkRow[] = []): string {
-  const records: (string | number)[][] = [[...WIRING_HEADER]];
-  for (const r of rows) records.push([r.step, r.ref, r.from, r.to, r.sheet ?? "", r.zone, ""]);
+  return csvText([[...WIRING_HEADER], ...wiringRecords(rows, tieOns, network), [], ...checklistRecords()]);
+}
+
+/** The CSV records of one decoder's wiring: its diodes, then its tie-ons and its input network, each after a blank record and a heading. */
+export function wiringRecords(
+  rows: readonly WiringRow[],
+  tieOns: readonly TieOnRow[] = [],
+  network: readonly NetworkRow[] = [],
+): (string | number)[][] {
+  const records: (string | number)[][] = rows.map((r) => [r.step, r.ref, r.from, r.to, r.sheet ?? "", r.zone, ""]);
   if (tieOns.length > 0) {
     records.push([]);
     records.push([TIE_ON_HEADING, "", "", "", "", "", ""]);
@@ -153,8 +161,13 @@ export function wiringCsv(rows: readonly WiringRow[], tieOns: readonly TieOnRow[
     records.push([NETWORK_HEADING, "", "", "", "", "", ""]);
     network.forEach((n, i) => records.push([`N${i + 1}`, n.ref, n.from, n.to, "", "", ""]));
   }
-  records.push([]);
-  records.push(["Inspection checklist", "", "", "", "", "", ""]);
-  INSPECTION_CHECKLIST.forEach((c, i) => records.push([`C${i + 1}`, c.item, c.check, "", "", "", ""]));
-  return csvText(records);
+  return records;
+}
+
+/** The inspection checklist's CSV records, under their heading. */
+export function checklistRecords(): (string | number)[][] {
+  return [
+    ["Inspection checklist", "", "", "", "", "", ""],
+    ...INSPECTION_CHECKLIST.map((c, i) => [`C${i + 1}`, c.item, c.check, "", "", "", ""]),
+  ];
 }

@@ -29,6 +29,7 @@ import { layoutMatrix } from "../../../src/render/layout.ts";
 import { registerNodeWindow } from "../../../src/render/nodeWindow.ts";
 import type { PaperFile } from "../../../src/render/papers.ts";
 import { parseCsv } from "../../support/csvRead.ts";
+import { NETWORK_HEADING } from "../../../src/core/papers/wiringList.ts";
 
 const CLOCK = readFileSync(new URL("../../../public/examples/wall-clock.json", import.meta.url), "utf8");
 
@@ -36,10 +37,11 @@ let instrument: Instrument;
 let input: InstrumentPaperInput;
 let files: PaperFile[];
 
-beforeAll(async () => {
-  const r = parseInstrument(CLOCK);
+/** An instrument's papers as `export` makes them: each decoder synthesized (fast), prefixed, laid out and budgeted. */
+async function instrumentPapersOf(text: string): Promise<{ instrument: Instrument; input: InstrumentPaperInput; files: PaperFile[] }> {
+  const r = parseInstrument(text);
   if (!r.ok) throw new Error(JSON.stringify(r.error));
-  instrument = r.value;
+  const instrument = r.value;
   const decoders: DecoderPaperInput[] = [];
   for (const [i, d] of instrument.decoders.entries()) {
     const spec = compileSpec(d.project);
@@ -64,9 +66,13 @@ beforeAll(async () => {
   });
   const totals = instrumentBudget(instrument.title, budgeted);
   if (!totals.ok) throw new Error(totals.error.message);
-  input = { instrument, decoders, options: decoders[0]!.options, budget: totals.value };
+  const input = { instrument, decoders, options: decoders[0]!.options, budget: totals.value };
   registerNodeWindow();
-  files = instrumentPaperFiles(input);
+  return { instrument, input, files: instrumentPaperFiles(input) };
+}
+
+beforeAll(async () => {
+  ({ instrument, input, files } = await instrumentPapersOf(CLOCK));
 }, 120_000);
 
 const file = (name: string): string => {
@@ -176,4 +182,44 @@ describe("instrument papers", () => {
     expect(decoderFolder(15, "*** ")).toBe("16-decoder");
     expect(decoderFolder(2, "é".repeat(40))).toBe("3-eeeeeeeeeeeeeeeeeeeeeeee");
   });
+
+  it("lists a dark-decoded decoder's input network in its section, each part under the decoder's number", async () => {
+    const decoder = (name: string, drive: string, decode: string): object => ({
+      name,
+      counter: { states: 6, drive },
+      display: {},
+      show: [..."012345"],
+      synthesis: { depth: "mixed", decode, darkInput: "level-shift", timeLimitMs: 5000 },
+    });
+    const text = JSON.stringify({
+      schema: "diodeloom/project@2",
+      title: "Die roller pair",
+      decoders: [decoder("lit die", "source", "lit"), decoder("dark die", "complementary", "dark")],
+    });
+    const { input: pair, files: pairFiles } = await instrumentPapersOf(text);
+    const csv = parseCsv(pairFiles.find((f) => f.name === "wiring.csv")!.text);
+    const sections = csv.map((r, i) => (/^Decoder \d+: /.test(r[0] ?? "") ? i : -1)).filter((i) => i >= 0);
+    expect(sections).toHaveLength(2);
+    const networkAt = csv.findIndex((r) => r[0] === NETWORK_HEADING);
+    // Only the dark decoder has an input network, and it sits in that decoder's section.
+    expect(csv.filter((r) => r[0] === NETWORK_HEADING)).toHaveLength(1);
+    expect(networkAt).toBeGreaterThan(sections[1]!);
+    const rows = csv.slice(networkAt + 1).filter((r) => /^N\d+$/.test(r[0] ?? ""));
+    // The same rows as the decoder exported on its own (the single project's wiring list), each part with the prefix 2.
+    const dark = pair.decoders[1]!;
+    const own = await instrumentPapersOf(
+      JSON.stringify({ schema: "diodeloom/project@2", ...decoder("x", "complementary", "dark"), name: undefined }),
+    );
+    const ownCsv = parseCsv(own.files.find((f) => f.name === "wiring.csv")!.text);
+    const ownRows = ownCsv.filter((r) => /^N\d+$/.test(r[0] ?? ""));
+    expect(ownRows.length).toBeGreaterThan(0);
+    expect(rows.map((r) => r[1])).toEqual(ownRows.map((r) => `2${r[1]}`));
+    expect(rows.every((r) => /^2(R|D)\d+$/.test(r[1] ?? ""))).toBe(true);
+    // Each of those parts is on the BOM, and in the printable list.
+    const bom = pairFiles.find((f) => f.name === "bom.csv")!.text;
+    const html = pairFiles.find((f) => f.name === "wiring.html")!.text;
+    for (const r of rows) expect(html, r[1]).toContain(r[1]!);
+    expect(dark.spec.states).toHaveLength(6);
+    expect(bom).toMatch(/2D\d+/);
+  }, 120_000);
 });
