@@ -53,9 +53,25 @@ export function designFor(
   given: DesignArgs,
   timeLimitMs: number,
 ): SegmentDesign {
-  if (given.mode === "off") return projectDesign(project.electrical, matrix, given);
+  return designAndSizing(project, spec, matrix, given, timeLimitMs).design;
+}
+
+/**
+ * `designFor`, with the words of the dark-decoded outputs' sizing (which
+ * limit stops a smaller value), or null where nothing was sized.
+ */
+export function designAndSizing(
+  project: Project,
+  spec: DecodeSpec,
+  matrix: VerifiedMatrix,
+  given: DesignArgs,
+  timeLimitMs: number,
+): { readonly design: SegmentDesign; readonly sizing: string | null } {
+  if (given.mode === "off") return { design: projectDesign(project.electrical, matrix, given), sizing: null };
   const settled = settleDesign(project, spec, matrix, { ...given, deadlineMs: budgetDeadline(timeLimitMs) });
-  return settled.ok ? settled.value.design : projectDesign(project.electrical, matrix, given);
+  return settled.ok
+    ? { design: settled.value.design, sizing: settled.value.darkSizing?.binding ?? null }
+    : { design: projectDesign(project.electrical, matrix, given), sizing: null };
 }
 
 /**

@@ -13,6 +13,7 @@
  */
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
 import type { DiodeMatrix } from "../core/matrix/matrix.ts";
+import type { DarkNetworkValues } from "../core/matrix/designators.ts";
 import type { Project } from "../core/project/project.ts";
 import type { Orientation, Sheet } from "./drawingModel.ts";
 import type { DrawingOptions } from "./drawingOptions.ts";
@@ -45,16 +46,25 @@ const ORIENTATIONS: readonly Orientation[] = ["landscape", "portrait"];
  * either orientation, then the largest scale that achieves them. A block of
  * rows and columns with nothing on it (no diode, no driver) gets no sheet;
  * the lines that pass through it are marked with the sheet they continue on.
+ * A dark-decoded output's column carries its pull-up above the matrix and
+ * its level-shift diodes or divider below it (darkColumns.ts); their values
+ * are printed once `darkValues`, the budget's sized network, is given.
  *
  * @example
  * const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project));
  * drawing.sheets.length;           // 1 for a small matrix
  * drawing.placements.get("D1");    // { sheet: 1, zone: "B2" }
  */
-export function layoutMatrix(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, options: DrawingOptions): MatrixDrawing {
+export function layoutMatrix(
+  project: Project,
+  spec: DecodeSpec,
+  matrix: DiodeMatrix,
+  options: DrawingOptions,
+  darkValues?: DarkNetworkValues,
+): MatrixDrawing {
   // Sized with the continuation note, in case the drawing needs more than one sheet.
   const sizingNotes = matrixNotes(project, spec, matrix, true);
-  const grids = SCALES.map((scale) => buildGrid(project, spec, matrix, metrics(scale)));
+  const grids = SCALES.map((scale) => buildGrid(project, spec, matrix, metrics(scale), darkValues));
   const tries = ORIENTATIONS.flatMap((orientation) => {
     const frame = sheetFrame(options.paper, orientation);
     return grids.flatMap((grid) =>

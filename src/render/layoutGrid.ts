@@ -26,6 +26,8 @@ import { boundingBox, textWidth, type DiodeSymbol, type Dot, type Point } from "
 import { glyphKeyHeight } from "./glyphKey.ts";
 import { findDots } from "./junctions.ts";
 import type { Metrics } from "./layoutMetrics.ts";
+import { darkBands, darkColumnTexts, darkColumns, type DarkBands, type DarkColumn } from "./darkColumns.ts";
+import type { DarkNetworkValues } from "../core/matrix/designators.ts";
 
 export type RowKind = "state" | "line" | "gate" | "bus" | "link";
 
@@ -63,6 +65,10 @@ export interface Grid {
   readonly dots: readonly Dot[];
   readonly rotateHeads: boolean;
   readonly keyH: number;
+  /** The dark-decoded columns with their pull-ups and input networks (empty when every output is decoded lit). */
+  readonly dark: readonly DarkColumn[];
+  /** The bands the dark-decoded columns add above and below the matrix (all 0 without). */
+  readonly bands: DarkBands;
   readonly m: Metrics;
 }
 
@@ -71,8 +77,12 @@ export const X = (c: number, pitchX: number): number => c * pitchX;
 /** y of row `r` in grid millimetres. */
 export const Y = (r: number, m: Metrics): number => r * m.pitchY;
 
-/** Lays out the rows, columns, wires, diodes and junction dots of a matrix at one scale. */
-export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, m: Metrics): Grid {
+/**
+ * Lays out the rows, columns, wires, diodes and junction dots of a matrix at one scale.
+ *
+ * @param darkValues the sized input network of the dark-decoded outputs (the budget's); without it their parts show designators only
+ */
+export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatrix, m: Metrics, darkValues?: DarkNetworkValues): Grid {
   const drivers = new Set(matrix.diodes.map((d) => d.from));
   const linkSources = matrix.outputs.filter((o) => drivers.has(o));
   const gates = new Set(matrix.gates.map((g) => g.ref));
@@ -101,7 +111,8 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
       return { net: o, kind: "output" as const, group: m?.[1] ?? "", head: m?.[2] ?? o, foot: driverOf.get(o) ?? "" };
     }),
   ];
-  const refW = Math.max(0, ...matrix.diodes.map((d) => textWidth(d.ref, m.refSize)));
+  const dark = darkColumns(project, spec, matrix, darkValues);
+  const refW = Math.max(0, ...[...matrix.diodes.map((d) => d.ref), ...darkColumnTexts(dark)].map((t) => textWidth(t, m.refSize)));
   const pitchX = Math.ceil(Math.max(m.minPitchX, m.leftPad + 1.0 * m.scale + refW + 0.6 * m.scale) * 10) / 10;
   const rowOf = new Map(rows.map((r, i) => [r.net, i]));
   const colOf = new Map(columns.map((c, i) => [c.net, i]));
@@ -163,7 +174,7 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
   const groupSizes = new Map<string, number>();
   for (const c of columns) if (c.kind === "output") groupSizes.set(c.group, (groupSizes.get(c.group) ?? 0) + 1);
   const keyH = Math.max(0, ...[...groupSizes.values()].map((n) => glyphKeyHeight(spec.cell, n * pitchX - 1.6, m.scale)));
-  return { rows, columns, pitchX, wires, diodes, dots, rotateHeads, keyH, m };
+  return { rows, columns, pitchX, wires, diodes, dots, rotateHeads, keyH, dark, bands: darkBands(dark, m), m };
 }
 
 /**

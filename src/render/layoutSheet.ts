@@ -28,6 +28,7 @@ import { diodeSymbol, X, Y, type Grid, type GridColumn, type GridRow } from "./l
 import { GAP, type Metrics } from "./layoutMetrics.ts";
 import type { Edge } from "./continuation.ts";
 import { bottomBand, headerHeight, rowLabelWidth, type Chunk, type Plan } from "./pagination.ts";
+import { footBand, polarityMarks, pullUpBand, type BandInk, type PlacedColumn } from "./darkColumns.ts";
 import { notesBlock, sheetFrame, titleBlock, TITLE_BLOCK_MM, zoneOf } from "./sheetFrame.ts";
 
 /** What one sheet shows and where it sits among the others. */
@@ -169,6 +170,7 @@ export function layoutSheet(job: SheetJob): SheetLayout {
     zones.set(d.ref, zoneOf(frame.zones, moved.crossing));
   }
   const dots: Dot[] = grid.dots.filter((d) => inside(d.at)).map((d) => ({ ...d, at: at(d.at) }));
+  const bandDots: Dot[] = [];
 
   // Row labels.
   for (let r = rows.first; r <= rows.last; r++) {
@@ -202,7 +204,7 @@ export function layoutSheet(job: SheetJob): SheetLayout {
       labels.push(label(col.head, { x, y: bracketY + 3.4 * m.scale }, m.columnSize, "column", { anchor: "middle", bold: true }));
     }
     if (col.kind === "output" && rows.last === grid.rows.length - 1 && col.foot) {
-      const footY = paperWin.bottom + (p.vStrips ? m.stripH : 0) + 3.2 * m.scale;
+      const footY = paperWin.bottom + (p.vStrips ? m.stripH : 0) + grid.bands.footH + 3.2 * m.scale;
       labels.push(label(col.foot, { x, y: footY }, m.columnSize, "terminal", { anchor: "middle" }));
     }
     const last = groups[groups.length - 1];
@@ -233,6 +235,38 @@ export function layoutSheet(job: SheetJob): SheetLayout {
       rects.push(...k.rects);
       circles.push(...k.circles);
       labels.push(...k.labels);
+    }
+  }
+
+  // Dark-decoded columns: the polarity of every output column under the heads, the pull-ups above
+  // the matrix on the sheets of its first rows, the level-shift diodes or dividers under it on those of its last.
+  if (grid.dark.length > 0) {
+    const darkOf = new Map(grid.dark.map((d) => [d.output, d]));
+    const placed: PlacedColumn[] = [];
+    for (let c = cols.first; c <= cols.last && c < grid.columns.length; c++) {
+      const col = grid.columns[c] as GridColumn;
+      if (col.kind === "output") placed.push({ x: X(c, px) + dx, output: col.net, dark: darkOf.get(col.net) ?? null });
+    }
+    const bandsTop = region.y + headerH - grid.bands.pullUpH - grid.bands.markH;
+    labels.push(...polarityMarks(placed, bandsTop + 2.0 * m.scale, m));
+    const add = (ink: BandInk): void => {
+      segments.push(...ink.segments);
+      polygons.push(...ink.polygons);
+      bandDots.push(...ink.dots);
+      labels.push(...ink.labels);
+    };
+    if (rows.first === 0) {
+      add(
+        pullUpBand(
+          placed,
+          { top: bandsTop + grid.bands.markH, left: paperWin.left, nameRight: region.x + rowLabelW - 1.5, gridTop: paperWin.top },
+          m,
+        ),
+      );
+    }
+    if (rows.last === grid.rows.length - 1) {
+      const footY = paperWin.bottom + (p.vStrips ? m.stripH : 0) + grid.bands.footH + 3.2 * m.scale;
+      add(footBand(placed, { gridBottom: paperWin.bottom, footTop: footY - m.columnSize - 0.4 * m.scale }, m));
     }
   }
 
@@ -278,7 +312,7 @@ export function layoutSheet(job: SheetJob): SheetLayout {
     rects,
     circles,
     diodes,
-    dots,
+    dots: [...dots, ...bandDots],
     labels,
   };
   return { sheet, zones };

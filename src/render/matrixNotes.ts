@@ -32,12 +32,7 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
     notes.push(
       "Rows: the counter lines S<k> (high in state k) and nS<k> (low in state k), each with the text its state shows. Columns: output lines, grouped by display position; each ends at its driver stage (Q).",
     );
-    const per = (matrix.inputNetwork?.diodes ?? 0) / dark.length;
-    notes.push(
-      `Dark-decoded outputs ${dark.join(", ")}: each has a pull-up to the logic supply and is pulled down through its diodes in the states where its segment is dark, so it is high exactly when the segment is lit; ${
-        matrix.inputNetwork?.kind === "divider" ? "a two-resistor divider" : `${per} level-shift diode(s) in series with the driver's input`
-      } keeps the driver off while the node is pulled down.`,
-    );
+    notes.push(darkNote(project, spec, matrix));
   } else if (spec.counter.kind === "one-hot") {
     notes.push(
       "Band = cathode = bar on the symbol. The anode takes the row (counter, bus or link line); the cathode goes to the column it drives.",
@@ -66,6 +61,26 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
   if (continued) notes.push("An arrowhead with sh.N marks a line continued on sheet N.");
   notes.push("Fit the diodes in the order of the wiring list, row by row, ticking each one.");
   return notes;
+}
+
+/**
+ * The dark-decoded columns in one sentence: what their pull-ups and foot
+ * parts are and why the node then follows the segment.
+ */
+function darkNote(project: Project, spec: DecodeSpec, matrix: DiodeMatrix): string {
+  const inputs = designators(spec, matrix, project.electrical).darkInputs;
+  const outputs = inputs.map((p) => p.output);
+  const pullUps = refRanges(inputs.map((p) => p.pullUp.ref));
+  const dividers = inputs.flatMap((p) => (p.divider === null ? [] : [p.divider.ref]));
+  const shift = inputs.flatMap((p) => p.shiftDiodes);
+  const per = inputs[0]?.shiftDiodes.length ?? 0;
+  const foot =
+    dividers.length > 0
+      ? `the divider's upper resistor at its foot (${refRanges(dividers)}; the lower one stands at the driver, on the driver sheet) keeps the driver off while the node is low`
+      : shift.length > 0
+        ? `the ${per} level-shift diode${per === 1 ? "" : "s"} at its foot (${refRanges(shift)}, band towards the driver) keep the driver off while the node is low`
+        : "its line runs straight to the driver";
+  return `Columns marked dark (${outputs.join(", ")}) are held high by the pull-up at their top (${pullUps}, from the ${project.electrical.logicSupply.volts} V logic supply, net VLOGIC) and pulled low through their diodes by the nS line of each state in which the segment is dark, so the node is high exactly when the segment is lit, and ${foot}.`;
 }
 
 /** How to read a coded counter's decoder: the two planes, the gates, and the code of every state. */

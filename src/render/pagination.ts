@@ -8,6 +8,7 @@ import type { Box } from "./drawingModel.ts";
 import { textWidth } from "./drawingModel.ts";
 import type { Grid } from "./layoutGrid.ts";
 import { GAP } from "./layoutMetrics.ts";
+import { LOGIC_SUPPLY_NET } from "../core/papers/wiringList.ts";
 import { notesHeight, TITLE_BLOCK_MM, type SheetFrame } from "./sheetFrame.ts";
 
 /** A block of consecutive grid rows or columns, first and last index. */
@@ -38,12 +39,18 @@ export interface Plan {
 export function headerHeight(grid: Grid): number {
   const m = grid.m;
   const heads = grid.rotateHeads ? Math.max(...grid.columns.map((c) => textWidth(c.head, m.columnSize))) + 1.5 : 4.5 * m.scale;
-  return 3.5 + (grid.keyH > 0 ? grid.keyH + 1 : 0) + 1 + heads;
+  return 3.5 + (grid.keyH > 0 ? grid.keyH + 1 : 0) + 1 + heads + grid.bands.markH + grid.bands.pullUpH;
+}
+
+/** Height under the matrix for the drivers' names, and the dark-decoded columns' input networks above them. */
+export function footHeight(grid: Grid): number {
+  return grid.m.terminalH + grid.bands.footH;
 }
 
 export function rowLabelWidth(grid: Grid): number {
   const m = grid.m;
-  return Math.max(...grid.rows.map((r) => textWidth(r.text, m.rowSize))) + 2;
+  const names = [...grid.rows.map((r) => r.text), ...(grid.dark.length > 0 ? [LOGIC_SUPPLY_NET] : [])];
+  return Math.max(...names.map((t) => textWidth(t, m.rowSize))) + 2;
 }
 
 /** Height of the band under the matrix that holds the notes and the title block (bottom arrangement). */
@@ -66,7 +73,7 @@ export function plans(grid: Grid, frame: SheetFrame, notes: readonly string[]): 
   const R = grid.rows.length;
   const fit = (region: Box, hStrips: boolean, vStrips: boolean): { cols: number; rows: number } => ({
     cols: Math.floor((region.w - rowLabelWidth(grid) - (hStrips ? 2 * m.stripW : 0)) / grid.pitchX),
-    rows: Math.floor((region.h - headerHeight(grid) - m.terminalH - (vStrips ? 2 * m.stripH : 0)) / m.pitchY),
+    rows: Math.floor((region.h - headerHeight(grid) - footHeight(grid) - (vStrips ? 2 * m.stripH : 0)) / m.pitchY),
   });
   return (["side", "bottom"] as const).map((arrangement): Plan => {
     const region = regions[arrangement];
@@ -105,8 +112,11 @@ export function drawnBlocks(grid: Grid, p: Plan): Block[] {
     used.add(`${chunkOf(p.rowChunks, r)},${chunkOf(p.colChunks, c)}`);
   }
   const lastRow = p.rowChunks.length - 1;
+  const dark = new Set(grid.dark.map((d) => d.output));
   grid.columns.forEach((col, c) => {
     if (col.kind === "output" && col.foot) used.add(`${lastRow},${chunkOf(p.colChunks, c)}`);
+    // A dark-decoded column's pull-up stands above its first block.
+    if (dark.has(col.net)) used.add(`0,${chunkOf(p.colChunks, c)}`);
   });
   const blocks: Block[] = [];
   p.rowChunks.forEach((rows, ri) =>

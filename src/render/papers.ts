@@ -13,7 +13,7 @@ import { budgetDesign } from "../core/budget/budget.ts";
 import type { Budget } from "../core/budget/budgetTypes.ts";
 import { designModel, projectDesign, type SegmentDesign } from "../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
-import { designators } from "../core/matrix/designators.ts";
+import { designators, estimatedDarkNetwork, type DarkNetworkValues } from "../core/matrix/designators.ts";
 import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
 import { spiceNetlists } from "../core/papers/netlist.ts";
 import { networkRows, tieOnRows, wiringCsv, wiringRows, type NetworkRow, type TieOnRow } from "../core/papers/wiringList.ts";
@@ -59,6 +59,19 @@ export interface PaperInput {
 /** The design the papers show: the budget's, or the project's values when there is no budget. */
 export function paperDesign(input: Pick<PaperInput, "project" | "matrix" | "budget">): SegmentDesign {
   return input.budget?.ok ? budgetDesign(input.budget.value) : projectDesign(input.project.electrical, input.matrix);
+}
+
+/**
+ * The values of the dark-decoded outputs' input network that the matrix
+ * sheet prints, the same the BOM carries: the budget's sized network, or
+ * with a failed budget the estimate the BOM then keeps; undefined while the
+ * budget is still being worked out (the sheet then shows designators only).
+ */
+export function paperDarkValues(input: Pick<PaperInput, "project" | "spec" | "budget">): DarkNetworkValues | undefined {
+  const { budget } = input;
+  if (budget === undefined) return undefined;
+  if (budget.ok) return budgetDesign(budget.value).network ?? undefined;
+  return estimatedDarkNetwork(input.spec, input.project.electrical);
 }
 
 /** The tie-on resistors of the tied-on outputs, for the wiring list (their values are not trimmed). */

@@ -15,6 +15,7 @@ import { instrumentBudget, type BudgetedDecoder } from "../../core/budget/instru
 import { describeInstrumentTotals, instrumentBudgetJsonText } from "../../render/instrumentBudgetReport.ts";
 import { quoteText } from "../../core/project/valueText.ts";
 import { EXIT } from "../io.ts";
+import { darkMarginLines } from "../darkSizingText.ts";
 import { SYNTH_OPTIONS, SYNTH_USAGE, synthesizeForCircuit } from "../synthOptions.ts";
 
 const USAGE = `budget FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE} ${DECODER_USAGE}`;
@@ -109,10 +110,13 @@ function amps(a: number, unit: "mA" | "µA"): string {
 }
 
 /** The dark-decoded outputs' network and ghost check, every state at every corner. */
-function darkLines(d: DarkBudget, unit: "mA" | "µA"): string[] {
+function darkLines(project: Project, spec: DecodeSpec, m: VerifiedMatrix, b: Budget, d: DarkBudget, unit: "mA" | "µA"): string[] {
   const L: string[] = [];
   L.push(`Dark-decoded outputs (${d.outputs.length}): ${darkNetworkText(d)}`);
   L.push(`  sizing: ${d.sizing}`);
+  const design = budgetDesign(b);
+  if (design.network !== null && design.network !== undefined)
+    L.push(...darkMarginLines(project, spec, m, design.network, d, design.ohms).map((l) => `  ${l}`));
   L.push(
     ...table(
       ["Output", "Pull-up", d.input === "divider" ? "Divider" : "Level shift", d.input === "divider" ? "Lower" : "Bleed"],
@@ -267,7 +271,7 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     );
     L.push("");
   }
-  if (b.dark !== null) L.push(...darkLines(b.dark, unit), "");
+  if (b.dark !== null) L.push(...darkLines(project, spec, m, b, b.dark, unit), "");
   if (b.kind !== "direct") {
     const figure =
       b.kind === "low-side-switch"

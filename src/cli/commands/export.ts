@@ -19,7 +19,7 @@ import { dateProblem, drawingOptions, isPaper, titleTextProblem, type DrawingOpt
 import { PAPER_NAMES } from "../../render/drawingModel.ts";
 import { layoutMatrix } from "../../render/layout.ts";
 import { registerNodeWindow } from "../../render/nodeWindow.ts";
-import { eachPaperFile, paperDesign } from "../../render/papers.ts";
+import { eachPaperFile, paperDarkValues, paperDesign } from "../../render/papers.ts";
 import { quoteText } from "../../core/project/valueText.ts";
 import { shownArg, type ParsedArgs } from "../args.ts";
 import type { Command } from "../command.ts";
@@ -112,12 +112,12 @@ async function exportSingle(
 ): Promise<number> {
   const { project, spec, matrix } = done;
   const options = drawingOptions(project, given);
-  const drawing = layoutMatrix(project, spec, matrix, options);
   const budget = solveBudget(project, spec, matrix, {
     series: design.series,
     trim: design.mode,
     deadlineMs: budgetDeadline(done.timeLimitMs),
   });
+  const drawing = layoutMatrix(project, spec, matrix, options, paperDarkValues({ project, spec, budget }));
   if (!budget.ok) io.err(`budget: ${budget.error.message}; budget.json left out, the BOM and decks keep the project's emitter resistors\n`);
   registerNodeWindow();
   const names = await writePapers(io, out, eachPaperFile({ project, spec, matrix, options, drawing, budget }));
@@ -154,12 +154,12 @@ async function exportInstrument(
     const { project, spec, matrix } = done;
     longestMs = Math.max(longestMs, done.timeLimitMs);
     const options = drawingOptions(project, given);
-    const drawing = layoutMatrix(project, spec, matrix, options);
     const budget = solveBudget(project, spec, matrix, {
       series: design.series,
       trim: design.mode,
       deadlineMs: budgetDeadline(done.timeLimitMs),
     });
+    const drawing = layoutMatrix(project, spec, matrix, options, paperDarkValues({ project, spec, budget }));
     if (!budget.ok)
       dio.err(
         `budget: ${budget.error.message}; its budget and the instrument's totals left out, its BOM lines and decks keep the project's values\n`,

@@ -6,7 +6,7 @@ import { countParts, refRanges } from "../../core/papers/parts.ts";
 import type { Project } from "../../core/project/project.ts";
 import { partValue } from "../../render/bom.ts";
 import type { Command } from "../command.ts";
-import { designArgs, designFor, DESIGN_OPTIONS, DESIGN_USAGE, type DesignArgs } from "../designOptions.ts";
+import { designAndSizing, designArgs, DESIGN_OPTIONS, DESIGN_USAGE, type DesignArgs } from "../designOptions.ts";
 import { EXIT, type CliIo } from "../io.ts";
 import { DECODER_OPTION, DECODER_USAGE, decoderIo, loadInstrument } from "../loadProject.ts";
 import type { ParsedArgs } from "../args.ts";
@@ -14,6 +14,7 @@ import type { ParsedArgs } from "../args.ts";
 import { SYNTH_OPTIONS, SYNTH_USAGE, synthesizeCodedProject, synthesizeProject } from "../synthOptions.ts";
 import { describeDecoder } from "../decoderReport.ts";
 import { checkWith } from "../../core/budget/ghostCheck.ts";
+import { darkMarginLines } from "../darkSizingText.ts";
 import { formatOhms, microamps, milliamps } from "../../render/units.ts";
 
 const USAGE = `synth FILE [--json] ${SYNTH_USAGE} ${DESIGN_USAGE} ${DECODER_USAGE}`;
@@ -93,12 +94,12 @@ async function synthDecoder(
   if (typeof done === "number") return done;
   const { spec, matrix } = done;
   if (design === null) return { matrix, report: "" };
-  const settled = designFor(done.project, spec, matrix, design, done.timeLimitMs);
-  return { matrix, report: describeMatrix(done.project, spec, matrix, settled) };
+  const settled = designAndSizing(done.project, spec, matrix, design, done.timeLimitMs);
+  return { matrix, report: describeMatrix(done.project, spec, matrix, settled.design, settled.sizing) };
 }
 
 /** The ghost check of the dark-decoded outputs with the design's network, in words. */
-function ghostLines(project: Project, spec: DecodeSpec, m: VerifiedMatrix, design: SegmentDesign): string[] {
+function ghostLines(project: Project, spec: DecodeSpec, m: VerifiedMatrix, design: SegmentDesign, sizing: string | null): string[] {
   const net = design.network;
   if (net === null || net === undefined) return ["", "Ghost check: the pull-ups could not be sized (the budget says why)"];
   const g = checkWith(project, spec, m, net, { design: design.ohms });
@@ -115,6 +116,8 @@ function ghostLines(project: Project, spec: DecodeSpec, m: VerifiedMatrix, desig
     `  worst unlit segment ${microamps(v.worstUnlit.currentA)} µA (${at(v.worstUnlit)}) against the ${microamps(v.ghostLimitA)} µA ghost limit`,
     `  weakest lit segment ${milliamps(v.weakestLit.currentA)} mA (${at(v.weakestLit)}), window ${milliamps(v.litWindowA[0])}-${milliamps(v.litWindowA[1])} mA; most sunk by an active-low line ${milliamps(v.mostSunk.currentA)} mA (${at(v.mostSunk)}) of ${milliamps(project.electrical.lowLine.maxCurrentA)} mA`,
     `  ${v.passes ? "passes" : `FAILS: ${v.binding}`}`,
+    ...(sizing === null ? [] : [`  sizing: ${sizing}`]),
+    ...darkMarginLines(project, spec, m, net, v, design.ohms).map((l) => `  ${l}`),
   ];
 }
 
@@ -128,8 +131,15 @@ const METHOD_TEXT = {
  * The readable report of `synth`.
  *
  * @param design the current-setting resistors the parts list shows (as the budget, the BOM and the decks do)
+ * @param sizing the words of the dark-decoded outputs' sizing (which limit stops a smaller value), printed with the ghost check
  */
-export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMatrix, design: SegmentDesign | null): string {
+export function describeMatrix(
+  project: Project,
+  spec: DecodeSpec,
+  m: VerifiedMatrix,
+  design: SegmentDesign | null,
+  sizing: string | null = null,
+): string {
   const lines: string[] = [];
   const lit = spec.lit.reduce((a, row) => a + row.filter(Boolean).length, 0);
   lines.push(project.title);
@@ -200,7 +210,7 @@ export function describeMatrix(project: Project, spec: DecodeSpec, m: VerifiedMa
         ? `${net.resistors} divider resistors`
         : `${net.diodes} level-shift diodes (${net.diodes / dark.length} per output)`;
     lines.push("", `Input network of the ${dark.length} dark-decoded outputs: ${dark.length} pull-ups to the logic supply and ${what}.`);
-    if (design !== null) lines.push(...ghostLines(project, spec, m, design));
+    if (design !== null) lines.push(...ghostLines(project, spec, m, design, sizing));
   }
   if (design !== null) {
     lines.push("", "Parts");

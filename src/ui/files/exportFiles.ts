@@ -7,7 +7,7 @@
  */
 import { drawingOptions, type DrawingOptions } from "../../render/drawingOptions.ts";
 import { layoutMatrix } from "../../render/layout.ts";
-import { paperFiles, type BudgetOutcome, type PaperFile, type PaperKind } from "../../render/papers.ts";
+import { paperDarkValues, paperFiles, type BudgetOutcome, type PaperFile, type PaperKind } from "../../render/papers.ts";
 import { instrumentPaperFiles, type DecoderPaperInput } from "../../render/instrumentPapers.ts";
 import type { InstrumentBudget } from "../../core/budget/instrumentBudget.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
@@ -60,7 +60,7 @@ export function exportFiles(
   budget: BudgetOutcome | undefined,
 ): ExportFile[] {
   const options = drawingOptions(r.project, choice);
-  const drawing = layoutMatrix(r.project, r.spec, r.matrix, options);
+  const drawing = layoutMatrix(r.project, r.spec, r.matrix, options, paperDarkValues({ project: r.project, spec: r.spec, budget }));
   return bundle(kind, paperFiles({ project: r.project, spec: r.spec, matrix: r.matrix, options, drawing, budget }, kind));
 }
 

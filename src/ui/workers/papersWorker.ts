@@ -12,6 +12,7 @@ import { synthSettings } from "../../core/synth/synthesize.ts";
 import { drawingOptions } from "../../render/drawingOptions.ts";
 import { layoutMatrix } from "../../render/layout.ts";
 import type { DecoderPapers, PapersReply, PapersRequest } from "./papersProtocol.ts";
+import { paperDarkValues } from "../../render/papers.ts";
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 
@@ -27,7 +28,13 @@ function papers(req: PapersRequest): PapersReply {
     if (!checked.ok) return { ok: false, message: `${d.name}: the matrix failed verification: ${checked.error.join("; ")}` };
     const matrix = withRefPrefix(checked.value, decoderRefPrefix(i, n));
     const budget: DecoderPapers["budget"] = solveBudget(d.project, spec, matrix, { trim: req.trim });
-    const drawing = layoutMatrix(d.project, spec, matrix, drawingOptions(d.project, req.drawing));
+    const drawing = layoutMatrix(
+      d.project,
+      spec,
+      matrix,
+      drawingOptions(d.project, req.drawing),
+      paperDarkValues({ project: d.project, spec, budget }),
+    );
     if (budget.ok) budgeted.push({ name: d.name, project: d.project, spec, matrix, budget: budget.value });
     out.push({ matrix, drawing, budget });
   }

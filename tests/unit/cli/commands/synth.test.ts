@@ -77,6 +77,11 @@ describe("diodeloom synth with dark-decoded outputs", () => {
     expect(text).toMatch(/^ +14 +small-signal silicon +D14-D27$/m);
     expect(text).toMatch(/worst unlit segment [\d.]+ µA \(1[a-g] in S\d, (nominal|low|high)\) against the 100\.0 µA ghost limit/);
     expect(text).toContain("Totals: 13 matrix diodes + 14 level-shift = 27");
+    // Which limit stops a smaller pull-up, and the room left at every limit.
+    expect(text).toMatch(
+      /^ {2}sizing: (a smaller pull-up breaks the (ghost limit|active-low line's rating) \(|every limit holds at the smallest)/m,
+    );
+    expect(text).toMatch(/^ {2}margins: -?[\d.]+ % below the ghost limit, -?[\d.]+ % below the active-low line's rating, lit window/m);
     const json = recordingIo({ "p.json": JSON.stringify(file) });
     expect(await main(["synth", "p.json", "--decode", "either", "--dark-input", "divider", "--json"], json)).toBe(0);
     const m = JSON.parse(json.stdout.join(""));
@@ -94,5 +99,7 @@ describe("diodeloom synth with dark-decoded outputs", () => {
     const text = budget.stdout.join("");
     expect(text).toMatch(/^Dark-decoded outputs \(7\): pull-ups [\d.]+k from the logic supply, 2 level-shift diodes each/m);
     expect(text).toMatch(/^ +worst unlit [\d.]+ µA \(1[a-g] in S\d, (nominal|low|high corner)\) against the 100\.0 µA ghost limit$/m);
+    expect(text).toMatch(/^ {2}sizing: /m);
+    expect(text).toMatch(/^ {2}margins: /m);
   });
 });
