@@ -60,8 +60,27 @@ describe("the web app with dark-decoded outputs", () => {
     const file = join(dir, "p.json");
     writeFileSync(file, JSON.stringify((JSON.parse(await saved()) as { project: unknown }).project));
     const cli = JSON.parse(execFileSync(process.execPath, [BIN, "budget", file, "--json"], { cwd: ROOT, encoding: "utf8" })) as {
-      dark: { pullUpOhms: number };
+      dark: { pullUpOhms: number; sizing: string; outputs: { output: string; pullUp: string }[] };
     };
     expect(network).toContain(`pull-ups ${cli.dark.pullUpOhms / 1000}k`);
+    // The panel says which limit stops a smaller pull-up, as the budget does.
+    expect(network).toContain(cli.dark.sizing);
+    // The result line names the outputs decoded dark, the budget's dark outputs.
+    const dark = cli.dark.outputs.map((o) => o.output);
+    expect(dark.length).toBeGreaterThan(0);
+    expect(dark.length).toBeLessThan(7);
+    expect(await page.getByTestId("dark-decode").textContent()).toMatch(new RegExp(`decoded dark: ${dark.join(" ")}\\)$`));
+    // The drawing marks every output column lit or dark and hangs each dark column's pull-up from VLOGIC.
+    const words = await page.locator(".drawing-scroll svg text").allTextContents();
+    const plain = words.map((w) => w.replace(/\u00a0/g, " "));
+    expect(plain.filter((w) => w === "dark")).toHaveLength(dark.length);
+    expect(plain.filter((w) => w === "lit")).toHaveLength(7 - dark.length);
+    expect(plain).toContain("VLOGIC");
+    for (const o of cli.dark.outputs) expect(plain).toContain(o.pullUp);
+    await page
+      .locator(".drawing-scroll")
+      .first()
+      .screenshot({ path: "/work/shots/issue11-app-dark-drawing.png" })
+      .catch(() => undefined);
   }, 240_000);
 });
