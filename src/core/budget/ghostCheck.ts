@@ -206,14 +206,10 @@ class Sizer {
       const frame = circuitFrame(this.spec, this.matrix, cornerModel(e, c, driven, this.options.design), this.options.design);
       const readings: StateReading[] = [];
       for (const k of [...states].sort((a, b) => a - b)) {
-        if (Date.now() > (this.options.deadlineMs ?? Infinity)) {
-          return fail({
-            kind: "time-limit",
-            message: `the time limit ran out while the ghost check sized the pull-ups; give a longer time limit`,
-          });
-        }
+        if (Date.now() > (this.options.deadlineMs ?? Infinity)) return fail(ghostTimeLimit());
         const circuit = stateCircuit(frame, k);
-        const op = solveDc(circuit, circuit.guess, DEFAULT_DC_SETTINGS, this.workspace);
+        const op = solveDc(circuit, circuit.guess, { ...DEFAULT_DC_SETTINGS, deadlineMs: this.options.deadlineMs }, this.workspace);
+        if (!op.ok && op.error.timeLimit) return fail(ghostTimeLimit());
         if (!op.ok) return fail({ kind: "no-convergence", message: `${name} corner ghost check: ${op.error.message}` });
         readings.push(readState(this.matrix, { circuit, op: op.value }));
       }
@@ -502,4 +498,8 @@ export function darkFigures(
     passes: broken.length === 0,
     binding: broken.length === 0 ? "every limit holds" : words.join("; "),
   };
+}
+
+function ghostTimeLimit(): GhostFailure {
+  return { kind: "time-limit", message: `the time limit ran out while the ghost check sized the pull-ups; give a longer time limit` };
 }

@@ -13,7 +13,7 @@
 import type { Circuit } from "./circuit.ts";
 import { GROUND } from "./circuitNodes.ts";
 import { criticalVoltage, diodeConductance, diodeCurrent, diodeJunction, limitJunction, npnTransport } from "./deviceModels.ts";
-import { SparsePattern, SparseSolver } from "./linearSolve.ts";
+import { minimumDegreeOrder, SparsePattern, SparseSolver } from "./linearSolve.ts";
 import { thermalVoltage } from "./physics.ts";
 import { fail, ok, type Result } from "../result/result.ts";
 
@@ -33,6 +33,13 @@ export interface DcSettings {
   readonly maxIterations: number;
   /** The methods to try, in order (tests pick one to exercise it alone). */
   readonly methods: readonly DcMethod[];
+  /**
+   * A `Date.now()` value after which the solve stops between two Newton
+   * iterations and fails with `timeLimit` set. A large circuit (hundreds of
+   * lines and outputs) takes a second or more per state, so a caller with a
+   * deadline checks it inside the solve, not only between states.
+   */
+  readonly deadlineMs?: number;
 }
 
 export type DcMethod = "newton" | "gmin-stepping" | "source-stepping";
@@ -77,6 +84,8 @@ export interface OperatingPoint {
 export interface DcFailure {
   readonly state: string;
   readonly message: string;
+  /** Set when the solve stopped at `DcSettings.deadlineMs`, not for want of convergence. */
+  readonly timeLimit?: true;
 }
 
 // ------------------------------------------------------------ compiled form
@@ -151,6 +160,57 @@ function* stampPositions(
     for (const row of [t.c, t.b, t.e]) for (const col of [t.b, t.e, t.c]) if (row >= 0 && col >= 0) yield [row, col];
 }
 
+/**
+ * The unknowns in the order the elimination takes them: minimum degree over
+ * the circuit's connections (linearSolve.ts), so a matrix of hundreds of
+ * lines, buses and outputs fills in only where its structure forces it.
+ * Every state of one matrix has the same connections, so the order is
+ * worked out once and kept in the workspace under a digest of them (a
+ * stale order would still be a valid one: any order gives the same
+ * solution, to rounding).
+ */
+function eliminationOrder(names: readonly string[], circuit: Circuit, fixed: ReadonlySet<string>, ws: DcWorkspace): string[] {
+  const at = new Map<string, number>();
+  names.forEach((nd, i) => at.set(nd, i));
+  const pairs: number[] = [];
+  const join = (a: string, b: string): void => {
+    const i = at.get(a);
+    const j = at.get(b);
+    if (i !== undefined && j !== undefined && !fixed.has(a) && !fixed.has(b)) pairs.push(i, j);
+  };
+  for (const el of circuit.elements) {
+    switch (el.kind) {
+      case "vsource":
+        break;
+      case "resistor":
+        join(el.a, el.b);
+        break;
+      case "diode":
+      case "segment":
+        if (el.rsOhms > 0) {
+          join(el.anode, `${el.name}#j`);
+          join(`${el.name}#j`, el.cathode);
+        } else join(el.anode, el.cathode);
+        break;
+      case "npn":
+        join(el.collector, el.base);
+        join(el.base, el.emitter);
+        join(el.collector, el.emitter);
+        break;
+    }
+  }
+  // FNV-1a over the pairs: the digest the order is kept under.
+  let h = 0x811c9dc5;
+  for (const v of pairs) h = Math.imul(h ^ v, 0x01000193);
+  const key = `${names.length}:${pairs.length}:${h >>> 0}`;
+  const order = ws.order(key, () => {
+    const entries: (readonly [number, number])[] = [];
+    for (let k = 0; k < pairs.length; k += 2) entries.push([pairs[k] as number, pairs[k + 1] as number]);
+    return minimumDegreeOrder(names.length, entries);
+  });
+  return Array.from(order, (i) => names[i] as string);
+}
+
 function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
   const vt = thermalVoltage(circuit.temperatureC);
   const fixedNames: string[] = [GROUND];
@@ -166,7 +226,7 @@ function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
   const fixed = new Set(fixedNames);
   // Diode and segment series resistances get an internal node, eliminated first.
   const internal = circuit.elements.filter((e) => (e.kind === "diode" || e.kind === "segment") && e.rsOhms > 0).map((e) => `${e.name}#j`);
-  const unknownNames = [...internal, ...circuit.nodes.filter((nd) => !fixed.has(nd))];
+  const unknownNames = eliminationOrder([...internal, ...circuit.nodes.filter((nd) => !fixed.has(nd))], circuit, fixed, ws);
   const index = new Map<string, NodeRef>();
   unknownNames.forEach((nd, i) => index.set(nd, i));
   fixedNames.forEach((nd, k) => index.set(nd, -(k + 1)));
@@ -268,6 +328,8 @@ interface NewtonState {
 interface NewtonRun {
   readonly converged: boolean;
   readonly iterations: number;
+  /** The deadline passed before the run converged. */
+  readonly timedOut?: true;
 }
 
 /**
@@ -337,6 +399,7 @@ function newton(
   maxIterations: number,
   first: boolean,
   ws: DcWorkspace,
+  deadlineMs: number,
 ): NewtonRun {
   const n = cp.n;
   const { x, jv } = st;
@@ -353,6 +416,7 @@ function newton(
   const nJ = cp.junctions.length;
   G.fill(0);
   for (let it = 1; it <= maxIterations; it++) {
+    if (Date.now() > deadlineMs) return { converged: false, iterations: it - 1, timedOut: true };
     cp.pattern.clear(G);
     rhs.fill(0);
     scale.fill(0);
@@ -473,6 +537,19 @@ export class DcWorkspace {
 
   #listed: Uint8Array | undefined;
 
+  /** Elimination orders by digest of a circuit's connections (see `eliminationOrder`); the last few only. */
+  readonly #orders = new Map<string, Int32Array>();
+
+  /** The elimination order kept under `key`, worked out by `make` the first time. */
+  order(key: string, make: () => Int32Array): Int32Array {
+    const have = this.#orders.get(key);
+    if (have) return have;
+    const fresh = make();
+    if (this.#orders.size >= 8) this.#orders.delete(this.#orders.keys().next().value as string);
+    this.#orders.set(key, fresh);
+    return fresh;
+  }
+
   /** Work space of at least `length` bytes for `SparseSolver`, shared by every solve. */
   listed(length: number): Uint8Array {
     if (!this.#listed || this.#listed.length < length) this.#listed = new Uint8Array(length);
@@ -526,6 +603,7 @@ export function solveDc(
     return { x, jv };
   };
   let total = 0;
+  const deadline = settings.deadlineMs ?? Infinity;
 
   const tries = new Set(settings.methods);
   let st = fresh();
@@ -533,8 +611,9 @@ export function solveDc(
 
   // 1. Plain Newton.
   if (tries.has("newton")) {
-    run = newton(cp, st, cp.fixedVolts, 0, settings.maxIterations, true, workspace);
+    run = newton(cp, st, cp.fixedVolts, 0, settings.maxIterations, true, workspace, deadline);
     total += run.iterations;
+    if (run.timedOut) return fail(timeLimit(circuit, total));
     if (run.converged) return ok(result(circuit, cp, st, "newton", total));
   }
 
@@ -544,8 +623,9 @@ export function solveDc(
     let good = true;
     for (let g = 1e10 * settings.gminS, first = true; good; g /= 10, first = false) {
       const gs = g < settings.gminS * 0.5 ? 0 : g;
-      run = newton(cp, st, cp.fixedVolts, gs, settings.maxIterations, first, workspace);
+      run = newton(cp, st, cp.fixedVolts, gs, settings.maxIterations, first, workspace, deadline);
       total += run.iterations;
+      if (run.timedOut) return fail(timeLimit(circuit, total));
       good = run.converged;
       if (gs === 0) break;
     }
@@ -562,8 +642,9 @@ export function solveDc(
     const next = Math.min(1, lambda + step);
     for (let k = 0; k < scaled.length; k++) scaled[k] = (cp.fixedVolts[k] as number) * next;
     const saved: NewtonState = { x: st.x.slice(), jv: st.jv.slice() };
-    run = newton(cp, st, scaled, 0, settings.maxIterations, false, workspace);
+    run = newton(cp, st, scaled, 0, settings.maxIterations, false, workspace, deadline);
     total += run.iterations;
+    if (run.timedOut) return fail(timeLimit(circuit, total));
     if (run.converged) {
       lambda = next;
       step = Math.min(0.25, step * 1.5);
@@ -575,6 +656,14 @@ export function solveDc(
   }
   if (lambda >= 1) return ok(result(circuit, cp, st, "source-stepping", total));
   return fail(noConvergence(circuit, total));
+}
+
+function timeLimit(circuit: Circuit, iterations: number): DcFailure {
+  return {
+    state: circuit.state,
+    message: `the time limit ran out while solving state ${circuit.state} (after ${iterations} Newton iterations)`,
+    timeLimit: true,
+  };
 }
 
 function noConvergence(circuit: Circuit, iterations: number): DcFailure {

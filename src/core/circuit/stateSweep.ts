@@ -60,23 +60,26 @@ export function sweepStates(
   const workspace = options.workspace ?? new DcWorkspace();
   const frame = circuitFrame(spec, matrix, model, options.design);
   for (let k = 0; k < matrix.states.length; k++) {
-    if (Date.now() > deadlineMs) {
-      const state = matrix.states[k] as string;
-      return fail({
-        kind: "time-limit",
-        state,
-        during,
-        message:
-          `the budget's time limit ran out during the ${during} solve, at state ${state} of ${matrix.states.length} ` +
-          `(every state's circuit is solved several times); give a longer time limit to work it out`,
-      });
-    }
+    if (Date.now() > deadlineMs) return fail(timeRanOut(matrix, k, during));
     const circuit = stateCircuit(frame, k);
-    const op = solveDc(circuit, circuit.guess, DEFAULT_DC_SETTINGS, workspace);
+    const op = solveDc(circuit, circuit.guess, { ...DEFAULT_DC_SETTINGS, deadlineMs }, workspace);
+    if (!op.ok && op.error.timeLimit) return fail(timeRanOut(matrix, k, during));
     if (!op.ok) return fail({ kind: "no-convergence", state: op.error.state, during, message: `${during}: ${op.error.message}` });
     visit({ circuit, op: op.value }, k);
   }
   return ok(undefined);
+}
+
+function timeRanOut(matrix: DiodeMatrix, k: number, during: string): BudgetFailure {
+  const state = matrix.states[k] as string;
+  return {
+    kind: "time-limit",
+    state,
+    during,
+    message:
+      `the budget's time limit ran out during the ${during} solve, at state ${state} of ${matrix.states.length} ` +
+      `(every state's circuit is solved several times); give a longer time limit to work it out`,
+  };
 }
 
 /**

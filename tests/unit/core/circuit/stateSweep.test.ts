@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { isLit, solveAllStates, segmentCurrents } from "../../../../src/core/circuit/stateSweep.ts";
+import { buildCircuit } from "../../../../src/core/circuit/circuit.ts";
+import { DEFAULT_DC_SETTINGS, solveDc } from "../../../../src/core/circuit/dcSolver.ts";
 import { directDesign } from "../../../support/budgetFixtures.ts";
 import { showing, showingWith } from "../../../support/projects.ts";
 
@@ -34,6 +36,22 @@ describe("solveAllStates", () => {
       });
     },
   );
+
+  it("stops at its deadline inside a state's solve, not only between states, and says so", () => {
+    const d = directDesign("lamp", showing(["1", "7"], 1));
+    const r = solveAllStates(d.spec, d.matrix, d.project.electrical, "nominal", undefined, Date.now() - 1);
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.error.kind).toBe("time-limit");
+    expect(r.error.message).toMatch(/time limit ran out during the nominal solve, at state S0 of 2/);
+    const c = buildCircuit(d.spec, d.matrix, d.project.electrical, 0);
+    const op = solveDc(c, c.guess, { ...DEFAULT_DC_SETTINGS, deadlineMs: Date.now() - 1 });
+    expect(op.ok).toBe(false);
+    if (op.ok) return;
+    expect(op.error.timeLimit).toBe(true);
+    expect(op.error.message).toMatch(/time limit ran out while solving state S0 \(after 0 Newton iterations\)/);
+    expect(solveDc(c, c.guess, { ...DEFAULT_DC_SETTINGS, deadlineMs: Date.now() + 60_000 }).ok).toBe(true);
+  });
 
   it("names the solve and the state when a circuit fails", () => {
     // A 1e-300 ohm counter resistance (which the schema now refuses, but code may still hand the
