@@ -11,10 +11,18 @@ import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
 import { designModel, designNote, type SegmentDesign } from "../budget/segmentDesign.ts";
 
+/** `num`'s recent answers: a deck repeats a few values (model parameters, levels) thousands of times. */
+const written = new Map<number, string>();
+
 /** Formats a number the way every SPICE reads it (no unit suffixes). */
 function num(x: number): string {
+  const known = written.get(x);
+  if (known !== undefined) return known;
   if (!Number.isFinite(x)) throw new RangeError(`cannot write ${x} into a netlist`);
-  return String(Number(x.toPrecision(12)));
+  const text = String(Number(x.toPrecision(12)));
+  if (written.size >= 4096) written.clear();
+  written.set(x, text);
+  return text;
 }
 
 /**
