@@ -88,13 +88,21 @@ export function darkBands(columns: readonly DarkColumn[], m: Metrics): DarkBands
   return { markH: 2.8 * s, pullUpH: 13 * s, footH: foot * s };
 }
 
-/** Every text a column's parts print beside it, for the column pitch. */
+/**
+ * Every text a column's parts print beside it, for the column pitch. A
+ * value not sized yet takes the room of the widest E24 value from 1 kΩ to
+ * 1 MΩ (`100k`), so the sheet keeps its layout, and its zones, once the
+ * values are printed.
+ */
 export function darkColumnTexts(columns: readonly DarkColumn[]): string[] {
   return columns.flatMap((c) => [...partTexts(c.pullUp), ...(c.divider === null ? [] : partTexts(c.divider)), ...c.shiftDiodes]);
 }
 
+/** The widest value text a part of the network can print (E24 from 1 kΩ to 1 MΩ, as formatOhms writes it). */
+const WIDEST_VALUE = "100k";
+
 function partTexts(p: ColumnPart): string[] {
-  return p.ohms === null ? [p.ref] : [p.ref, formatOhms(p.ohms)];
+  return [p.ref, p.ohms === null ? WIDEST_VALUE : formatOhms(p.ohms)];
 }
 
 /** What a band adds to a sheet. */
@@ -103,9 +111,11 @@ export interface BandInk {
   readonly polygons: Polygon[];
   readonly dots: Dot[];
   readonly labels: Label[];
+  /** Where each part is drawn (the middle of its body or symbol), by designator, for the wiring list's zones. */
+  readonly places: { readonly ref: string; readonly at: Point }[];
 }
 
-const emptyBand = (): BandInk => ({ segments: [], polygons: [], dots: [], labels: [] });
+const emptyBand = (): BandInk => ({ segments: [], polygons: [], dots: [], labels: [], places: [] });
 
 /** A column on paper: its x and what it carries (null for a lit-decoded column). */
 export interface PlacedColumn {
@@ -221,6 +231,7 @@ function resistor(
   ink.segments.push({ a: { x, y: bodyTop + len }, b: { x, y: bottom }, width: STROKE.wire, net: lower });
   const textX = x + w / 2 + 0.6 * s;
   const mid = bodyTop + len / 2;
+  ink.places.push({ ref: part.ref, at: { x, y: mid } });
   if (part.ohms === null) {
     ink.labels.push(label(part.ref, { x: textX, y: mid + 0.36 * m.refSize }, m.refSize, "part"));
     return;
@@ -259,4 +270,5 @@ function diodeDown(
   ink.segments.push({ a: { x: x - h, y: apex }, b: { x: x + h, y: apex }, width: STROKE.thick });
   ink.segments.push({ a: { x, y: apex }, b: { x, y: bottom }, width: STROKE.wire, net: to });
   ink.labels.push(label(ref, { x: x + h + 0.5 * m.scale, y: mid + 0.36 * m.refSize }, m.refSize, "diode-ref"));
+  ink.places.push({ ref, at: { x, y: mid } });
 }

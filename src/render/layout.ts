@@ -34,7 +34,7 @@ export interface DiodePlacement {
 
 export interface MatrixDrawing {
   readonly sheets: readonly Sheet[];
-  /** Sheet and zone of every diode, by reference. */
+  /** Sheet and zone of every diode, and of every part a dark-decoded column carries, by reference. */
   readonly placements: ReadonlyMap<string, DiodePlacement>;
 }
 

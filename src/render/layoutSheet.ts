@@ -54,7 +54,7 @@ export interface SheetJob {
   readonly notes: readonly string[];
 }
 
-/** A laid-out sheet and the drawing zone of every diode on it, by reference. */
+/** A laid-out sheet and the drawing zone of every diode on it (and of a dark-decoded column's parts), by reference. */
 export interface SheetLayout {
   readonly sheet: Sheet;
   readonly zones: ReadonlyMap<string, string>;
@@ -254,6 +254,7 @@ export function layoutSheet(job: SheetJob): SheetLayout {
       polygons.push(...ink.polygons);
       bandDots.push(...ink.dots);
       labels.push(...ink.labels);
+      for (const q of ink.places) zones.set(q.ref, zoneOf(frame.zones, q.at));
     };
     if (rows.first === 0) {
       add(

@@ -70,9 +70,9 @@ ${tieOns.map((t, i) => `<tr><td>T${i + 1}</td><td><b>${esc(t.ref)}</b></td><td>$
       ? ""
       : `<h1>${esc(NETWORK_HEADING)}</h1>
 <table>
-<thead><tr><th>Step</th><th>Ref</th><th>Value</th><th>From</th><th>To</th><th>Done</th></tr></thead>
+<thead><tr><th>Step</th><th>Ref</th><th>Value</th><th>From</th><th>To</th><th>Sheet</th><th>Zone</th><th>Done</th></tr></thead>
 <tbody>
-${network.map((n, i) => `<tr><td>N${i + 1}</td><td><b>${esc(n.ref)}</b></td><td>${esc(n.ohms === null ? "diode" : ohmsText(n.ohms))}</td><td>${esc(n.from)}</td><td>${esc(n.to)}</td><td class="box"></td></tr>`).join("\n")}
+${network.map((n, i) => `<tr><td>N${i + 1}</td><td><b>${esc(n.ref)}</b></td><td>${esc(n.ohms === null ? "diode" : ohmsText(n.ohms))}</td><td>${esc(n.from)}</td><td>${esc(n.to)}</td><td>${n.sheet ?? ""}</td><td>${esc(n.zone)}</td><td class="box"></td></tr>`).join("\n")}
 </tbody>
 </table>
 `;

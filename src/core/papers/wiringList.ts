@@ -97,6 +97,10 @@ export interface NetworkRow {
   readonly to: string;
   /** Ohms; null for a diode. */
   readonly ohms: number | null;
+  /** The matrix sheet the part is drawn on (at its column), or null when not placed. */
+  readonly sheet: number | null;
+  /** Its zone on that sheet, e.g. `A3`; empty when not placed. */
+  readonly zone: string;
 }
 
 /** The net at a dark-decoded output's driver input, as the wiring list names it. */
@@ -108,17 +112,31 @@ export function driverInputNet(output: string): string {
  * The input network of the dark-decoded outputs, output by output.
  *
  * @example
- * networkRows(designators(spec, matrix, e).darkInputs)[0]; // { ref: "R29", part: "pull-up", from: "VLOGIC", to: "1a", ohms: 4300 }
+ * networkRows(designators(spec, matrix, e).darkInputs, drawing.placements)[0];
+ * // { ref: "R29", part: "pull-up", from: "VLOGIC", to: "1a", ohms: 4300, sheet: 1, zone: "A2" }
  */
-export function networkRows(inputs: readonly DarkInputParts[]): NetworkRow[] {
+export function networkRows(inputs: readonly DarkInputParts[], placements?: ReadonlyMap<string, DrawingPosition>): NetworkRow[] {
+  const place = (ref: string): { sheet: number | null; zone: string } => {
+    const at = placements?.get(ref);
+    return { sheet: at?.sheet ?? null, zone: at?.zone ?? "" };
+  };
   return inputs.flatMap((p) => {
-    const rows: NetworkRow[] = [{ ref: p.pullUp.ref, part: "pull-up", from: LOGIC_SUPPLY_NET, to: p.output, ohms: p.pullUp.ohms }];
+    const rows: NetworkRow[] = [
+      { ref: p.pullUp.ref, part: "pull-up", from: LOGIC_SUPPLY_NET, to: p.output, ohms: p.pullUp.ohms, ...place(p.pullUp.ref) },
+    ];
     if (p.divider !== null)
-      rows.push({ ref: p.divider.ref, part: "divider", from: p.output, to: driverInputNet(p.output), ohms: p.divider.ohms });
+      rows.push({
+        ref: p.divider.ref,
+        part: "divider",
+        from: p.output,
+        to: driverInputNet(p.output),
+        ohms: p.divider.ohms,
+        ...place(p.divider.ref),
+      });
     p.shiftDiodes.forEach((ref, j) => {
       const from = j === 0 ? p.output : `${p.output}/${j}`;
       const to = j === p.shiftDiodes.length - 1 ? driverInputNet(p.output) : `${p.output}/${j + 1}`;
-      rows.push({ ref, part: "level-shift diode", from, to, ohms: null });
+      rows.push({ ref, part: "level-shift diode", from, to, ohms: null, ...place(ref) });
     });
     return rows;
   });
@@ -159,7 +177,7 @@ export function wiringRecords(
   if (network.length > 0) {
     records.push([]);
     records.push([NETWORK_HEADING, "", "", "", "", "", ""]);
-    network.forEach((n, i) => records.push([`N${i + 1}`, n.ref, n.from, n.to, "", "", ""]));
+    network.forEach((n, i) => records.push([`N${i + 1}`, n.ref, n.from, n.to, n.sheet ?? "", n.zone, ""]));
   }
   return records;
 }

@@ -35,7 +35,7 @@ export function PrintView() {
       r,
       rows: wiringRows(r.matrix, drawing?.placements),
       tieOns: tieOnRows(parts.drivers),
-      network: networkRows(parts.darkInputs),
+      network: networkRows(parts.darkInputs, drawing?.placements),
       parts: budget ? bomLines(r.project.electrical, parts, design) : [],
       design,
     };
@@ -106,6 +106,8 @@ export function PrintView() {
                       <td>{n.ohms === null ? "diode" : ohmsText(n.ohms)}</td>
                       <td>{n.from}</td>
                       <td>{n.to}</td>
+                      <td>{n.sheet ?? ""}</td>
+                      <td>{n.zone}</td>
                       <td class="box">☐</td>
                     </tr>
                   )}

@@ -148,8 +148,12 @@ describe("matrix drawing of dark-decoded columns", () => {
       expect(sized.segments.some((s) => s.net === `${p.output} in`)).toBe(true);
       expect(sized.labels.some((l) => l.text === p.dividerLower?.ref)).toBe(false);
     }
-    // Before the budget: the same parts by designator, no value printed.
-    const unsized = layoutMatrix(project, spec, matrix, drawingOptions(project)).sheets[0] as Sheet;
+    // Before the budget: the same parts by designator, no value printed, each where the sized sheet has it.
+    const unsizedDrawing = layoutMatrix(project, spec, matrix, drawingOptions(project));
+    const sizedDrawing = layoutMatrix(project, spec, matrix, drawingOptions(project), values);
+    expect([...unsizedDrawing.placements]).toEqual([...sizedDrawing.placements]);
+    for (const p of parts.darkInputs) expect(sizedDrawing.placements.get(p.divider?.ref ?? "")?.sheet).toBe(1);
+    const unsized = unsizedDrawing.sheets[0] as Sheet;
     for (const p of parts.darkInputs) {
       expect(texts(unsized)).toContain(p.pullUp.ref);
       expect(texts(unsized)).toContain(p.divider?.ref);

@@ -70,9 +70,10 @@ describe("papers of a dark-decoded project", () => {
     const csv = text(files, "wiring.csv");
     const p0 = parts.darkInputs[0];
     if (p0 === undefined) throw new Error("no dark output");
-    expect(csv).toContain(`N1,${p0.pullUp.ref},VLOGIC,${p0.output},,,`);
-    expect(csv).toContain(`N2,${p0.shiftDiodes[0]},${p0.output},${p0.output}/1,,,`);
-    expect(csv).toContain(`N3,${p0.shiftDiodes[1]},${p0.output}/1,${p0.output} in,,,`);
+    // Each with the sheet and zone where the matrix drawing has it, at its column (its pull-up above the matrix, row A or B).
+    expect(csv).toMatch(new RegExp(`^N1,${p0.pullUp.ref},VLOGIC,${p0.output},1,[AB]\\d,$`, "m"));
+    expect(csv).toMatch(new RegExp(`^N2,${p0.shiftDiodes[0]},${p0.output},${p0.output}/1,1,[A-F]\\d,$`, "m"));
+    expect(csv).toMatch(new RegExp(`^N3,${p0.shiftDiodes[1]},${p0.output}/1,${p0.output} in,1,[A-F]\\d,$`, "m"));
     expect(text(files, "wiring.html")).toContain("Dark-decoded outputs&#39; input network");
     // The driver sheet's table gives each dark-decoded output its pull-up and shift diodes, after the output.
     const table = driverTable(parts.drivers, budget, parts.darkInputs);
