@@ -5,7 +5,7 @@
  * check, which agree with the command line's budget of the same project.
  */
 import { execFileSync } from "node:child_process";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -77,6 +77,13 @@ describe("the web app with dark-decoded outputs", () => {
     expect(plain.filter((w) => w === "lit")).toHaveLength(7 - dark.length);
     expect(plain).toContain("VLOGIC");
     for (const o of cli.dark.outputs) expect(plain).toContain(o.pullUp);
+    // The print view's wiring list gives each pull-up the sheet and zone where the drawing has it, as export's wiring.csv does.
+    const first = await page.getByTestId("print-network").locator("tr").first().locator("td").allTextContents();
+    expect(first.slice(0, 2)).toEqual(["N1", cli.dark.outputs[0]?.pullUp]);
+    expect(first.slice(3, 7)).toEqual(["VLOGIC", dark[0], "1", expect.stringMatching(/^[AB]\d$/)]);
+    execFileSync(process.execPath, [BIN, "export", file, "--out", join(dir, "papers")], { cwd: ROOT, encoding: "utf8" });
+    const csv = readFileSync(join(dir, "papers", "wiring.csv"), "utf8");
+    expect(csv).toContain(`N1,${first[1]},VLOGIC,${dark[0]},1,${first[6]},`);
     await page
       .locator(".drawing-scroll")
       .first()
