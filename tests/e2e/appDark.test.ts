@@ -77,6 +77,13 @@ describe("the web app with dark-decoded outputs", () => {
     expect(plain.filter((w) => w === "lit")).toHaveLength(7 - dark.length);
     expect(plain).toContain("VLOGIC");
     for (const o of cli.dark.outputs) expect(plain).toContain(o.pullUp);
+    // Once the budget has sized them, the drawing prints the pull-ups' value beside each (the budget's, as export prints it).
+    const value = `${cli.dark.pullUpOhms / 1000}k`;
+    await expect
+      .poll(async () => (await page.locator(".drawing-scroll svg text").allTextContents()).filter((w) => w === value).length, {
+        timeout: 30_000,
+      })
+      .toBe(dark.length);
     // The print view's wiring list gives each pull-up the sheet and zone where the drawing has it, as export's wiring.csv does.
     const first = await page.getByTestId("print-network").locator("tr").first().locator("td").allTextContents();
     expect(first.slice(0, 2)).toEqual(["N1", cli.dark.outputs[0]?.pullUp]);

@@ -10,7 +10,8 @@ import { batch, createEffect, createMemo, createRoot, createSignal, on } from "s
 import type { BudgetFailure } from "../../core/budget/budget.ts";
 import type { Budget } from "../../core/budget/budgetTypes.ts";
 import type { TrimMode } from "../../core/budget/segmentDesign.ts";
-import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
+import { darkOutputs, type VerifiedMatrix } from "../../core/matrix/matrix.ts";
+import { paperDarkValues } from "../../render/papers.ts";
 import type { Result } from "../../core/result/result.ts";
 import type { PaperName } from "../../render/drawingModel.ts";
 import type { MatrixDrawing } from "../../render/layout.ts";
@@ -268,14 +269,22 @@ function createAppState() {
     if (twoRankKey === key) setTwoRank({ key, result: reply.result });
   }
 
-  /** Lays out the shown result again, for the paper and title block chosen now. */
+  /**
+   * Lays out the shown result again, for the paper and title block chosen
+   * now and, once its budget has sized the dark-decoded outputs' network,
+   * with those values (the exports' and the BOM's).
+   */
   async function relayout(r: LiveResult): Promise<void> {
     const choice = drawingChoice();
+    const b = budget();
+    const darkValues =
+      b !== null && b.forResult === r ? paperDarkValues({ project: r.project, spec: r.spec, budget: b.result }) : undefined;
     const reply = await analysis.request<"layout">({
       job: "layout",
       project: draftFromProject(r.project),
       matrix: r.matrix,
       drawing: choice,
+      ...(darkValues === undefined ? {} : { darkValues }),
     });
     if (live() !== r || drawingChoice() !== choice) return;
     if (reply.result.ok) setLaid({ drawing: reply.result.value, of: r });
@@ -289,7 +298,11 @@ function createAppState() {
       const trim = trimMode();
       if (live() !== r) return;
       const reply = await analysis.request<"budget">({ job: "budget", project: draftFromProject(r.project), matrix: r.matrix, trim });
-      if (live() === r && trimMode() === trim) setBudget({ forResult: r, trim, result: reply.result });
+      if (live() === r && trimMode() === trim) {
+        setBudget({ forResult: r, trim, result: reply.result });
+        // The drawing prints the values the budget sized for the dark-decoded outputs' network.
+        if (darkOutputs(r.matrix).length > 0) void relayout(r);
+      }
     }, BUDGET_DELAY_MS);
   }
 

@@ -12,6 +12,7 @@ import type { SynthFailure } from "../../core/synth/synthesize.ts";
 import type { Result } from "../../core/result/result.ts";
 import type { DrawingOptions } from "../../render/drawingOptions.ts";
 import type { MatrixDrawing } from "../../render/layout.ts";
+import type { DarkNetworkValues } from "../../core/matrix/designators.ts";
 
 /** A job the worker would not do (`rejected`: the input did not check out) or did not finish in time (`deadline`). */
 export interface WorkerFailure {
@@ -24,13 +25,17 @@ export type AnalysisRequest =
   | { readonly id: number; readonly job: "budget"; readonly project: unknown; readonly matrix: unknown; readonly trim: TrimMode }
   /** The glyph-style comparison with the heuristic. */
   | { readonly id: number; readonly job: "compare"; readonly project: unknown }
-  /** The drawing of a matrix for other drawing options (paper, title block). */
+  /**
+   * The drawing of a matrix for other drawing options (paper, title block),
+   * or with the values of its dark-decoded outputs' network once the budget has sized them.
+   */
   | {
       readonly id: number;
       readonly job: "layout";
       readonly project: unknown;
       readonly matrix: unknown;
       readonly drawing: Partial<DrawingOptions>;
+      readonly darkValues?: DarkNetworkValues;
     }
   /** A coded counter's two-rank decoder (one gate per state, then the matrix), to show beside the decoder on screen. */
   | { readonly id: number; readonly job: "two-rank"; readonly project: unknown };

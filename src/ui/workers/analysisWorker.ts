@@ -53,7 +53,7 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
     return post({
       id: req.id,
       job: "layout",
-      result: ok(layoutMatrix(project, spec, checked.value, drawingOptions(project, req.drawing))),
+      result: ok(layoutMatrix(project, spec, checked.value, drawingOptions(project, req.drawing), req.darkValues)),
     });
   }
   post({ id: req.id, job: "budget", result: solveBudget(project, spec, checked.value, { trim: req.trim }) });
