@@ -6,13 +6,17 @@
  *
  * The relaxed problem. Every lit cell is covered by a direct diode (not
  * under uniform, see below), a link a -> b (where every state lighting a
- * lights b; fixed cost 1, free for the states lighting a), a bus with
+ * lights b; fixed cost 1, free for the states lighting a, and a row that
+ * uses it lights a by a direct diode: a link source sits at level 1, which
+ * only direct diodes feed, under mixed and per-segment alike), a bus with
  * output set T (fixed cost |T|, and w for each row of weight w that feeds
  * it; only T lit by two or more rows, see candidates.ts: one bus per T
  * suffices) or a row's own padding bus (w plus one per output). Levels are
  * dropped: any depth-2 matrix of any policy is a solution of it at no more
  * diodes (its buses fed by one row are padding buses; two buses with one T
- * pay |T| once here), so its optimum is a lower bound. Under uniform the
+ * pay |T| once here), so its optimum is a lower bound. The link rule holds
+ * row by row only (whichever rows use a link, a row lighting its source
+ * without using the link may light the source otherwise). Under uniform the
  * exact stage weighs the all-bus matrix against the direct one (see
  * exact.ts), so there the relaxation takes no direct diodes and no links
  * and the caller takes the smaller of this bound and the direct count.
@@ -33,7 +37,10 @@
  * A row's cover: over the subsets of its r lit outputs, the cheapest single
  * structure lighting at least each subset (a superset closure, r 2^r), then
  * the cheapest cover of each subset by one structure holding its lowest
- * output plus the cover of the rest (3^r / 2 steps). Rows of more than
+ * output plus the cover of the rest (3^r / 2 steps). A link enters a row's
+ * cover only in a star: the source's direct diode with a subset of the
+ * links out of it, priced as one structure (2^t subsets for t links out of
+ * one source), which keeps the link rule exact in the row. Rows of more than
  * `LAGRANGE_MAX_ROW_OUTPUTS` lit outputs are out of reach (the bound is
  * null).
  */
@@ -102,15 +109,15 @@ interface Workspace {
   readonly single: Float64Array;
   readonly singleItem: Int32Array;
   readonly f: Float64Array;
-  readonly directCost: Float64Array;
+  /** A star's cost and mask by subset of its links. */
+  readonly starCost: Float64Array;
+  readonly starMask: Int32Array;
 }
 
-/** A row's cheapest cover: its cost, the positions (in its `RowData`) of the structures it uses, its direct outputs and its padding-bus outputs (local bits; -1: no padding bus). */
+/** A row's cheapest cover: its cost and the positions (in its `RowData`) of the shared structures it uses (buses, and the links of its stars). */
 interface RowCover {
   readonly cost: number;
   readonly used: number[];
-  readonly direct: number;
-  readonly pad: number;
   /** DP steps done, for the meter. */
   readonly steps: number;
 }
@@ -119,6 +126,8 @@ interface RowCover {
 const DIRECT = -1;
 /** Placeholder in `singleItem`: the row's own padding bus. */
 const PAD = -2;
+/** `singleItem` at or below this: star number STAR - value of the row's star scratch. */
+const STAR = -3;
 
 function popcount(x: number): number {
   let t = 0;
@@ -126,29 +135,34 @@ function popcount(x: number): number {
   return t;
 }
 
+/** Scratch of one row's stars (a link source's direct diode with links out of it), rebuilt each call. */
+interface StarScratch {
+  /** Per star: its group (in `RowData.linkStart`) and its subset of the group's links (bit i: the group's i-th link). */
+  group: number[];
+  sub: number[];
+}
+
 /**
- * Row `d`'s cheapest cover under the shares and the level multipliers `nu`:
- * direct diodes at its weight less the multipliers of the links it is the
- * source of (never under uniform), any of its structures at its own charge
- * (weight for a bus, the multiplier for a link) plus its share, and its own
- * padding bus at its weight plus one per output (several padding buses are
- * allowed, but one always does at least as well, since each costs the weight
- * again). A top-level function over typed arrays, the share places found
- * once: about three times faster than the closure it replaced.
+ * Row `d`'s cheapest cover under the shares: direct diodes at its weight,
+ * any of its buses at its weight plus its share, its own padding bus at its
+ * weight plus one per output (several padding buses are allowed, but one
+ * always does at least as well, since each costs the weight again), and
+ * links only in a star: a source's direct diode (its weight) with any subset
+ * of the links out of it, each at its share (a link source sits at level 1,
+ * which only direct diodes feed, so a row using a link lights its source
+ * directly; under mixed and per-segment alike). The star holds that rule
+ * exactly, where a multiplier per row and link held it only at the optimum
+ * of the multipliers. A top-level function over typed arrays, the share
+ * places found once.
  */
-function coverRow(d: RowData, share: Float64Array, nu: Float64Array, directOk: boolean, padOk: boolean, ws: Workspace): RowCover {
-  const { r, w: wk, item, mask: masks, slot, src } = d;
-  const { single, singleItem, f, directCost } = ws;
+function coverRow(d: RowData, share: Float64Array, directOk: boolean, padOk: boolean, ws: Workspace, stars: StarScratch): RowCover {
+  const { r, w: wk, item, mask: masks, slot, src, linkPos, linkStart } = d;
+  const { single, singleItem, f, starCost, starMask } = ws;
   const full = (1 << r) - 1;
   const count = item.length;
-  directCost.fill(wk, 0, r);
-  for (let j = 0; j < count; j++) {
-    const a = src[j] as number;
-    if (a >= 0) directCost[a] = (directCost[a] as number) - (nu[j] as number);
-  }
   single.fill(Infinity, 0, full + 1);
   singleItem.fill(DIRECT, 0, full + 1);
-  if (directOk) for (let b = 0; b < r; b++) single[1 << b] = directCost[b] as number;
+  if (directOk) for (let b = 0; b < r; b++) single[1 << b] = wk;
   if (padOk) {
     for (let m = 1; m <= full; m++) {
       const c = wk + popcount(m);
@@ -159,11 +173,40 @@ function coverRow(d: RowData, share: Float64Array, nu: Float64Array, directOk: b
     }
   }
   for (let j = 0; j < count; j++) {
-    const c = ((src[j] as number) >= 0 ? (nu[j] as number) : wk) + (share[slot[j] as number] as number);
+    if ((src[j] as number) >= 0) continue;
+    const c = wk + (share[slot[j] as number] as number);
     const m = masks[j] as number;
     if (c < (single[m] as number)) {
       single[m] = c;
       singleItem[m] = j;
+    }
+  }
+  let steps = r * (full + 1) + count;
+  stars.group.length = 0;
+  stars.sub.length = 0;
+  if (directOk) {
+    for (let g = 0; g + 1 < linkStart.length; g++) {
+      const from = linkStart[g] as number;
+      const t = (linkStart[g + 1] as number) - from;
+      const srcBit = 1 << (src[linkPos[from] as number] as number);
+      // Subset costs and masks built from the subset without its lowest link.
+      starCost[0] = wk;
+      starMask[0] = srcBit;
+      for (let sub = 1; sub < 1 << t; sub++) {
+        const lowBit = sub & -sub;
+        const j = linkPos[from + 31 - Math.clz32(lowBit)] as number;
+        const c = (starCost[sub ^ lowBit] as number) + (share[slot[j] as number] as number);
+        const m = (starMask[sub ^ lowBit] as number) | (masks[j] as number);
+        starCost[sub] = c;
+        starMask[sub] = m;
+        if (c < (single[m] as number)) {
+          single[m] = c;
+          singleItem[m] = STAR - stars.group.length;
+          stars.group.push(g);
+          stars.sub.push(sub);
+        }
+      }
+      steps += 1 << t;
     }
   }
   // Superset closure: the cheapest single structure lighting at least each subset.
@@ -180,7 +223,6 @@ function coverRow(d: RowData, share: Float64Array, nu: Float64Array, directOk: b
   }
   // Cover DP: one structure holding the lowest output, plus the cheapest cover of the rest (values only; the choices are found again below, along one path).
   f[0] = 0;
-  let steps = r * (full + 1) + count;
   for (let m = 1; m <= full; m++) {
     const low = m & -m;
     const rest = m ^ low;
@@ -194,8 +236,6 @@ function coverRow(d: RowData, share: Float64Array, nu: Float64Array, directOk: b
     steps += 1 << popcount(rest);
   }
   const used: number[] = [];
-  let direct = 0;
-  let pad = -1;
   for (let m = full; m !== 0;) {
     const low = m & -m;
     const rest = m ^ low;
@@ -212,11 +252,15 @@ function coverRow(d: RowData, share: Float64Array, nu: Float64Array, directOk: b
     steps += 1 << popcount(rest);
     const j = singleItem[bs] as number;
     if (j >= 0) used.push(j);
-    else if (j === PAD) pad = Math.max(0, pad) | bs;
-    else direct |= bs;
+    else if (j <= STAR) {
+      const x = STAR - j;
+      const from = linkStart[stars.group[x] as number] as number;
+      const sub = stars.sub[x] as number;
+      for (let i = 0; sub >> i !== 0; i++) if ((sub >> i) & 1) used.push(linkPos[from + i] as number);
+    }
     m ^= bs;
   }
-  return { cost: f[full] as number, used, direct, pad, steps };
+  return { cost: f[full] as number, used, steps };
 }
 
 /**
@@ -290,19 +334,15 @@ export function lagrangeBound(
       linkStart,
     };
   });
-  // Level multipliers, per row and its links (0 for a bus): a row that lights a link's source
-  // a and uses the link must light a by a direct diode (a link source sits at level 1, which
-  // only direct diodes feed, under mixed and per-segment alike). Relaxed with a multiplier
-  // that the link's use pays and a's direct diode earns back; kept non-negative and, per row
-  // and source, at most the row's weight, so a direct diode never costs less than nothing.
-  const nu = rows.map((d) => new Float64Array(d.item.length));
   const maxR = Math.max(0, ...rows.map((d) => d.r));
   const ws: Workspace = {
     single: new Float64Array(1 << maxR),
     singleItem: new Int32Array(1 << maxR),
     f: new Float64Array(1 << maxR),
-    directCost: new Float64Array(Math.max(1, maxR)),
+    starCost: new Float64Array(1 << maxR),
+    starMask: new Int32Array(1 << maxR),
   };
+  const stars: StarScratch = { group: [], sub: [] };
   const padOkOf = (d: RowData): boolean => rules.buses && (uniform || d.w >= 2);
 
   let bestBound = -Infinity;
@@ -318,7 +358,7 @@ export function lagrangeBound(
     let complete = true;
     for (let k = 0; k < n; k++) {
       const d = rows[k] as RowData;
-      const c = coverRow(d, share, nu[k] as Float64Array, directOk, padOkOf(d), ws);
+      const c = coverRow(d, share, directOk, padOkOf(d), ws, stars);
       meter.charge(c.steps);
       sum += c.cost;
       covers.push(c);
@@ -337,42 +377,11 @@ export function lagrangeBound(
       stall = 0;
     }
     if (Math.ceil(bestBound - 1e-7) >= opts.upper || theta < 1e-4) break;
-    // Subgradient: +1 on the share of each (structure, row) in use; on a level multiplier, +1
-    // for a link used without its source direct, -1 for a direct source without the link.
+    // Subgradient: +1 on the share of each (structure, row) in use.
     let norm = 0;
-    const gNu: Int8Array[] = [];
-    for (let k = 0; k < n; k++) {
-      const d = rows[k] as RowData;
-      const c = covers[k] as RowCover;
-      norm += c.used.length;
-      const g = new Int8Array(d.item.length);
-      for (const j of c.used) if ((d.src[j] as number) >= 0) g[j] = 1;
-      for (let x = 0; x < d.linkPos.length; x++) {
-        const j = d.linkPos[x] as number;
-        const v = (g[j] as number) - ((c.direct >> (d.src[j] as number)) & 1);
-        g[j] = v;
-        norm += v * v;
-      }
-      gNu.push(g);
-    }
+    for (const c of covers) norm += c.used.length;
     if (norm === 0) break;
     const step = (theta * Math.max(0.5, opts.upper - sum)) / norm;
-    for (let k = 0; k < n; k++) {
-      const d = rows[k] as RowData;
-      const nk = nu[k] as Float64Array;
-      const g = gNu[k] as Int8Array;
-      for (let x = 0; x + 1 < d.linkStart.length; x++) {
-        const from = d.linkStart[x] as number;
-        const to = d.linkStart[x + 1] as number;
-        const v = new Float64Array(to - from);
-        for (let y = from; y < to; y++) {
-          const j = d.linkPos[y] as number;
-          v[y - from] = (nk[j] as number) + step * (g[j] as number);
-        }
-        projectCapped(v, d.w);
-        for (let y = from; y < to; y++) nk[d.linkPos[y] as number] = v[y - from] as number;
-      }
-    }
     // The shares in use move up by the step; each structure touched is projected back onto
     // its capped simplex (which lowers its other shares). The others keep their sums, so
     // they stay feasible untouched.
