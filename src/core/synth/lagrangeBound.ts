@@ -285,34 +285,68 @@ export function lagrangeBound(
   const n = p.n;
   const w = (k: number): number => p.weight[k] ?? 1;
 
-  // Shares in one flat array, item by item in `users` order; start from the even split.
-  const shareStart = new Int32Array(items.length + 1);
-  items.forEach((it, i) => (shareStart[i + 1] = (shareStart[i] as number) + it.users.length));
-  const share = new Float64Array(shareStart[items.length] as number);
-  items.forEach((it, i) => share.fill(it.fixed / Math.max(1, it.users.length), shareStart[i], shareStart[i + 1]));
+  // Shares in one flat array, item by item in `users` order; start from the even split. Under
+  // a swap of positions that maps the rows onto themselves (see `positionSwap`), the share of
+  // (structure, row) and that of their mirrors are one cell: the shares stay symmetric, which
+  // loses nothing (the dual is concave and symmetric, so the mean of an optimum and its mirror
+  // is an optimum), and a row and its mirror then cost the same, so only one of them is solved.
+  const swap = positionSwap(p);
+  const mirror = swap === null ? null : mirrorItems(items, swap.out);
+  const rowMirror = (k: number): number => (mirror === null || swap === null ? k : (swap.row[k] as number));
+  const itemMirror = (i: number): number => (mirror === null ? i : (mirror[i] as number));
+  const cellOf: Int32Array[] = [];
+  let cells = 0;
+  items.forEach((it, i) => {
+    const at = new Int32Array(it.users.length);
+    const mi = itemMirror(i);
+    it.users.forEach((k, u) => {
+      const mk = rowMirror(k);
+      if (mi < i || (mi === i && mk < k)) {
+        const other = items[mi] as Item;
+        at[u] = (mi === i ? at : (cellOf[mi] as Int32Array))[sortedIndex(other.users, mk)] as number;
+      } else at[u] = cells++;
+    });
+    cellOf.push(at);
+  });
+  const share = new Float64Array(cells);
+  items.forEach((it, i) => {
+    for (const c of cellOf[i] as Int32Array) share[c] = it.fixed / Math.max(1, it.users.length);
+  });
+  // Per structure kept (one of each mirror pair): its distinct cells and how many of its users each stands for.
+  const projection = items.map((_, i) => {
+    if (itemMirror(i) < i) return null;
+    const count = new Map<number, number>();
+    for (const c of cellOf[i] as Int32Array) count.set(c, (count.get(c) ?? 0) + 1);
+    return { cells: Int32Array.from(count.keys()), weight: Float64Array.from(count.values()) };
+  });
+  // The rows solved (one of each mirror pair) and how many rows each stands for.
+  const solved: number[] = [];
+  const times: number[] = [];
+  for (let k = 0; k < n; k++) {
+    const mk = rowMirror(k);
+    if (mk < k) continue;
+    solved.push(k);
+    times.push(mk === k ? 1 : 2);
+  }
 
-  // Per row: its structures, with local masks, share slots and link sources.
-  const lists: { item: number[]; mask: number[]; slot: number[]; src: number[] }[] = Array.from({ length: n }, () => ({
-    item: [],
-    mask: [],
-    slot: [],
-    src: [],
-  }));
+  // Per row solved: its structures, with local masks, share cells and link sources.
+  const lists = new Map(solved.map((k) => [k, { item: [] as number[], mask: [] as number[], slot: [] as number[], src: [] as number[] }]));
   const local = p.row.map((r) => new Map(r.map((o, i) => [o, i])));
   items.forEach((it, i) => {
     it.users.forEach((k, u) => {
-      const loc = local[k] as Map<number, number>;
-      const l = lists[k];
+      const l = lists.get(k);
       if (!l) return;
+      const loc = local[k] as Map<number, number>;
       let mask = 0;
       for (const o of it.outputs) mask |= 1 << (loc.get(o) ?? 0);
       l.item.push(i);
       l.mask.push(mask);
-      l.slot.push((shareStart[i] as number) + u);
+      l.slot.push((cellOf[i] as Int32Array)[u] as number);
       l.src.push(it.link ? (loc.get(it.from) ?? -1) : -1);
     });
   });
-  const rows: RowData[] = lists.map((l, k) => {
+  const rows: RowData[] = solved.map((k) => {
+    const l = lists.get(k) as { item: number[]; mask: number[]; slot: number[]; src: number[] };
     const bySource = new Map<number, number[]>();
     l.src.forEach((a, j) => {
       if (a < 0) return;
@@ -351,19 +385,20 @@ export function lagrangeBound(
   let stall = 0;
   const maxRounds = opts.maxRounds ?? 2000;
   const covers: RowCover[] = [];
+  const grad = new Float64Array(cells);
   for (; rounds < maxRounds; rounds++) {
     if (meter.spent() || meter.checkClock()) break;
     let sum = 0;
     covers.length = 0;
     let complete = true;
-    for (let k = 0; k < n; k++) {
-      const d = rows[k] as RowData;
+    for (let x = 0; x < rows.length; x++) {
+      const d = rows[x] as RowData;
       const c = coverRow(d, share, directOk, padOkOf(d), ws, stars);
       meter.charge(c.steps);
-      sum += c.cost;
+      sum += (times[x] as number) * c.cost;
       covers.push(c);
       // A round cut short by the budget is not a bound.
-      if (meter.spent() && k < n - 1) {
+      if (meter.spent() && x < rows.length - 1) {
         complete = false;
         break;
       }
@@ -377,24 +412,35 @@ export function lagrangeBound(
       stall = 0;
     }
     if (Math.ceil(bestBound - 1e-7) >= opts.upper || theta < 1e-4) break;
-    // Subgradient: +1 on the share of each (structure, row) in use.
-    let norm = 0;
-    for (const c of covers) norm += c.used.length;
-    if (norm === 0) break;
-    const step = (theta * Math.max(0.5, opts.upper - sum)) / norm;
-    // The shares in use move up by the step; each structure touched is projected back onto
-    // its capped simplex (which lowers its other shares). The others keep their sums, so
-    // they stay feasible untouched.
+    // Subgradient: on each share cell, the uses of the (structure, row) pairs it stands for
+    // (a row solved for itself and its mirror counts twice).
+    const touchedCells: number[] = [];
     const touched = new Set<number>();
-    for (let k = 0; k < n; k++) {
-      const d = rows[k] as RowData;
-      for (const j of (covers[k] as RowCover).used) {
+    for (let x = 0; x < rows.length; x++) {
+      const d = rows[x] as RowData;
+      for (const j of (covers[x] as RowCover).used) {
         const at = d.slot[j] as number;
-        share[at] = (share[at] as number) + step;
-        touched.add(d.item[j] as number);
+        if (grad[at] === 0) touchedCells.push(at);
+        grad[at] = (grad[at] as number) + (times[x] as number);
+        const i = d.item[j] as number;
+        touched.add(Math.min(i, itemMirror(i)));
       }
     }
-    for (const i of touched) projectCapped(share.subarray(shareStart[i], shareStart[i + 1]), (items[i] as Item).fixed);
+    let norm = 0;
+    for (const at of touchedCells) norm += (grad[at] as number) ** 2;
+    if (norm === 0) break;
+    const step = (theta * Math.max(0.5, opts.upper - sum)) / norm;
+    // The shares in use move up along the subgradient; each structure touched is projected
+    // back onto its capped simplex (which lowers its other shares). The others keep their
+    // sums, so they stay feasible untouched.
+    for (const at of touchedCells) {
+      share[at] = (share[at] as number) + step * (grad[at] as number);
+      grad[at] = 0;
+    }
+    for (const i of touched) {
+      const pr = projection[i] as { cells: Int32Array; weight: Float64Array };
+      projectWeighted(share, pr.cells, pr.weight, (items[i] as Item).fixed);
+    }
     meter.charge(touched.size);
   }
   const bound = bestBound === -Infinity ? null : Math.ceil(bestBound - 1e-7);
@@ -439,21 +485,94 @@ function structures(p: SharingProblem, rules: Pick<SharingRules, "policy" | "bus
   return over ? null : items;
 }
 
-/** Euclidean projection of `v` onto { x >= 0, sum x <= cap }, in place. */
-function projectCapped(v: Float64Array, cap: number): void {
+/**
+ * The swap of a problem's two positions (outputs of group 0 and group 1, of
+ * equal number, in order) when it maps the rows onto rows of the same
+ * weight (00-99: the row of 37 onto that of 73): per output its mirror, per
+ * row its mirror; null when there are not two such positions or a row has
+ * no mirror.
+ */
+export function positionSwap(p: SharingProblem): { readonly out: Int32Array; readonly row: Int32Array } | null {
+  const groups = [...new Set(p.group)];
+  if (groups.length !== 2) return null;
+  const g0 = p.group.flatMap((g, o) => (g === groups[0] ? [o] : []));
+  const g1 = p.group.flatMap((g, o) => (g === groups[1] ? [o] : []));
+  if (g0.length !== g1.length || g0.length + g1.length !== p.m) return null;
+  const out = new Int32Array(p.m);
+  g0.forEach((o, i) => {
+    out[o] = g1[i] as number;
+    out[g1[i] as number] = o;
+  });
+  const key = (lit: readonly boolean[]): string => lit.map((x) => (x ? "1" : "0")).join("");
+  const byKey = new Map(p.lit.map((l, k) => [key(l), k]));
+  const row = new Int32Array(p.n);
+  for (let k = 0; k < p.n; k++) {
+    const lit = p.lit[k] ?? [];
+    const mirrored = Array.from({ length: p.m }, (_, o) => lit[out[o] as number] === true);
+    const mk = byKey.get(key(mirrored));
+    if (mk === undefined || (p.weight[mk] ?? 1) !== (p.weight[k] ?? 1)) return null;
+    row[k] = mk;
+  }
+  return { out, row };
+}
+
+/** Per structure, its mirror under the output map `out` (a bus on the mirrored outputs, a link between the mirrored outputs); null when one is missing. */
+function mirrorItems(items: readonly Item[], out: Int32Array): Int32Array | null {
+  const key = (link: boolean, from: number, outputs: readonly number[]): string => `${link ? `l${from}` : "b"}:${outputs.join(",")}`;
+  const index = new Map(items.map((it, i) => [key(it.link, it.from, it.outputs), i]));
+  const mirror = new Int32Array(items.length);
+  for (let i = 0; i < items.length; i++) {
+    const it = items[i] as Item;
+    const outputs = it.outputs.map((o) => out[o] as number).sort((a, b) => a - b);
+    const mi = index.get(key(it.link, it.link ? (out[it.from] as number) : -1, outputs));
+    if (mi === undefined) return null;
+    mirror[i] = mi;
+  }
+  return mirror;
+}
+
+/** Index of `x` in the ascending array `a` (which holds it). */
+function sortedIndex(a: readonly number[], x: number): number {
+  let lo = 0;
+  let hi = a.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if ((a[mid] as number) < x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/**
+ * Euclidean projection of the cells `at` of `x` onto { x >= 0, sum c x <= cap }
+ * (c = `weight`, the users each cell stands for), in place:
+ * x = max(0, x - tau c) with the least tau >= 0 that meets the cap.
+ */
+function projectWeighted(x: Float64Array, at: Int32Array, weight: Float64Array, cap: number): void {
   let sum = 0;
-  for (let i = 0; i < v.length; i++) {
-    if ((v[i] as number) < 0) v[i] = 0;
-    sum += v[i] as number;
+  for (let i = 0; i < at.length; i++) {
+    const c = at[i] as number;
+    if ((x[c] as number) < 0) x[c] = 0;
+    sum += (weight[i] as number) * (x[c] as number);
   }
   if (sum <= cap) return;
-  const sorted = Array.from(v).sort((a, b) => b - a);
+  // Breakpoints x / c, highest first; tau from the cells still above zero.
+  const order = Array.from({ length: at.length }, (_, i) => i).sort(
+    (a, b) => (x[at[b] as number] as number) / (weight[b] as number) - (x[at[a] as number] as number) / (weight[a] as number) || a - b,
+  );
   let acc = 0;
+  let accW = 0;
   let tau = 0;
-  for (let i = 0; i < sorted.length; i++) {
-    acc += sorted[i] as number;
-    const t = (acc - cap) / (i + 1);
-    if ((sorted[i] as number) - t > 0) tau = t;
+  for (const i of order) {
+    const c = weight[i] as number;
+    const v = x[at[i] as number] as number;
+    acc += c * v;
+    accW += c * c;
+    const t = (acc - cap) / accW;
+    if (v / c - t > 0) tau = t;
   }
-  for (let i = 0; i < v.length; i++) v[i] = Math.max(0, (v[i] as number) - tau);
+  for (let i = 0; i < at.length; i++) {
+    const c = at[i] as number;
+    x[c] = Math.max(0, (x[c] as number) - tau * (weight[i] as number));
+  }
 }

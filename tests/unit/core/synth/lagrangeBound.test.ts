@@ -4,7 +4,7 @@ import type { DepthPolicy } from "../../../../src/core/project/project.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
 import { candidateFamily } from "../../../../src/core/synth/candidates.ts";
 import { heuristicPlan } from "../../../../src/core/synth/heuristic.ts";
-import { lagrangeBound } from "../../../../src/core/synth/lagrangeBound.ts";
+import { lagrangeBound, positionSwap } from "../../../../src/core/synth/lagrangeBound.ts";
 import { litCount, planCost, planCount, problemFromLit, sharingProblem } from "../../../../src/core/synth/plan.ts";
 import { reduceRows } from "../../../../src/core/synth/reduce.ts";
 import { searchPlan } from "../../../../src/core/synth/search.ts";
@@ -93,6 +93,51 @@ describe("lagrangeBound", () => {
       ),
       { seed: SEED, numRuns: 150 },
     );
+  });
+
+  it(`never exceeds the proven minimum of random two-position counters whose positions swap (shares kept symmetric), every policy (seed ${SEED})`, () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 2, max: 3 }).chain((g) => litMatrix(3, g, 1, 2).map((digits) => ({ g, digits }))),
+        fc.constantFrom(...POLICIES),
+        ({ g, digits }, policy) => {
+          // Every pair of "digits" (i, j): position 0 shows i, position 1 shows j.
+          const lit = digits.flatMap((a) => digits.map((b) => [...a, ...b]));
+          const p = problemFromLit(lit, { group: [...Array<number>(g).fill(0), ...Array<number>(g).fill(1)] });
+          if (litCount(p) === 0) return;
+          expect(positionSwap(reduceRows(p).problem)).not.toBeNull();
+          const rules = rulesOf(policy);
+          const proof = searchPlan(p, rules, candidateFamily(p, policy === "mixed" ? 2 : 1), litCount(p) + p.n + 1, { maxWork: 1e12 });
+          expect(proof.proven).toBe(true);
+          if (!proof.plan) throw new Error("the all-padding-bus bound leaves a plan to find");
+          const min = policy === "uniform" ? Math.min(litCount(p), planCount(proof.plan)) : planCount(proof.plan);
+          const label = `${digits.map((r) => r.map(Number).join("")).join(" ")} ${policy}`;
+          expect(claimed(p, policy, min), label).toBeLessThanOrEqual(min);
+          expect(claimed(p, policy, litCount(p) + p.n + 5), label).toBeLessThanOrEqual(min);
+        },
+      ),
+      { seed: SEED, numRuns: 150 },
+    );
+  });
+
+  it("finds the swap of positions on 00-99 (row 37 onto row 73) and none on 00-59", () => {
+    const problem = (last: number) =>
+      reduceRows(
+        sharingProblem(
+          compileSpec(
+            showing(
+              Array.from({ length: last + 1 }, (_, k) => pad2(k)),
+              2,
+            ),
+          ),
+        ),
+      ).problem;
+    const p99 = problem(99);
+    const swap = positionSwap(p99);
+    expect(swap).not.toBeNull();
+    expect(swap?.row[37]).toBe(73);
+    expect(swap?.row[55]).toBe(55);
+    expect(positionSwap(problem(59))).toBeNull();
   });
 
   it("takes a merged row's weight: a digit standing for 10 states (0-9 merged, optimum 149 proven in refine.test.ts)", () => {
