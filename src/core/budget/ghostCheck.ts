@@ -203,7 +203,8 @@ class Sizer {
       ["high", high, this.watched.high],
       ["low", low, this.watched.low],
     ] as const) {
-      const frame = circuitFrame(this.spec, this.matrix, cornerModel(e, c, driven, this.options.design), this.options.design);
+      // The corner's model has the design's resistors written out, scaled by the corner (as the budget's corners).
+      const frame = circuitFrame(this.spec, this.matrix, cornerModel(e, c, driven, this.options.design));
       const readings: StateReading[] = [];
       for (const k of [...states].sort((a, b) => a - b)) {
         if (Date.now() > (this.options.deadlineMs ?? Infinity)) return fail(ghostTimeLimit());
@@ -407,7 +408,9 @@ export function checkWith(
   const workspace = new DcWorkspace();
   for (const { name, model } of runs) {
     const during = `${name === "nominal" ? "nominal" : `${name} corner`} ghost check`;
-    const sweep = readSweep(spec, matrix, model, during, { design: options.design, deadlineMs: options.deadlineMs, workspace });
+    // A corner's model has the design's resistors written out, scaled by the corner: only the nominal run takes them as given.
+    const design = name === "nominal" ? options.design : undefined;
+    const sweep = readSweep(spec, matrix, model, during, { design, deadlineMs: options.deadlineMs, workspace });
     if (!sweep.ok) return fail(failureOf(sweep.error));
     solved.push({ name, reading: sweep.value });
   }

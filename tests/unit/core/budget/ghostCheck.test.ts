@@ -90,6 +90,23 @@ describe("ghostCheck", () => {
     expect(r.value.binding).toContain("the ghost limit");
   });
 
+  it("a design's resistors take the corners' tolerance like the project's own, as the budget's corners do", async () => {
+    const { project, spec, matrix } = await design("dark");
+    const net = { pullUpOhms: 4300, shiftDiodes: 2, dividerOhms: null, dividerLowerOhms: null };
+    const own = checkWith(project, spec, matrix, net);
+    // The project's own values given as a design: the same circuit at every corner, so the same figures.
+    const ohms = new Map([...matrix.outputs].map((o) => [o, project.electrical.segment.seriesResistor]));
+    const given = checkWith(project, spec, matrix, net, { design: ohms });
+    if (!own.ok || !given.ok) throw new Error("check failed");
+    expect(given.value.weakestLit).toEqual(own.value.weakestLit);
+    expect(given.value.strongestLit).toEqual(own.value.strongestLit);
+    expect(given.value.worstUnlit).toEqual(own.value.worstUnlit);
+    // And the corners spread the lit current around the nominal one.
+    const nominal = own.value.states.filter((s) => s.corner === "nominal").map((s) => s.weakestLit?.currentA ?? Infinity);
+    expect(own.value.weakestLit.corner).toBe("low");
+    expect(own.value.weakestLit.currentA).toBeLessThan(Math.min(...nominal));
+  });
+
   it("refuses a matrix with no dark-decoded output", async () => {
     const { project, spec, matrix } = await design("lit");
     expect(sizeDarkNetwork(project, spec, matrix).ok).toBe(false);
