@@ -10,20 +10,8 @@ import type { DarkNetworkValues } from "../core/matrix/designators.ts";
 import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
-import { darkWhere } from "../render/darkBudgetText.ts";
+import { darkMargins, darkMarginsText, darkWhere, type GhostFigures } from "../render/darkBudgetText.ts";
 import { formatOhms, microamps, milliamps } from "../render/units.ts";
-
-/** The figures of a ghost check the margins are worked out from (a `GhostCheck` or the budget's `DarkBudget`). */
-export interface GhostFigures {
-  readonly ghostLimitA: number;
-  readonly lineRatedA: number;
-  readonly litWindowA: readonly [number, number];
-  readonly worstUnlit: { readonly output: string; readonly state: string; readonly corner: string; readonly currentA: number };
-  readonly mostSunk: { readonly output: string; readonly state: string; readonly corner: string; readonly currentA: number };
-  readonly weakestLit: { readonly currentA: number };
-  readonly strongestLit: { readonly currentA: number };
-  readonly passes: boolean;
-}
 
 /**
  * A margin under this share of its limit is called thin: the tolerance
@@ -31,17 +19,6 @@ export interface GhostFigures {
  * part off its datasheet (common practice, no source).
  */
 export const THIN_MARGIN = 0.2;
-
-/** Each limit's margin, as a share of the limit (negative when broken). */
-export function darkMargins(g: GhostFigures): { ghost: number; lineSink: number; litLow: number; litHigh: number } {
-  const [low, high] = g.litWindowA;
-  return {
-    ghost: (g.ghostLimitA - g.worstUnlit.currentA) / g.ghostLimitA,
-    lineSink: (g.lineRatedA - g.mostSunk.currentA) / g.lineRatedA,
-    litLow: (g.weakestLit.currentA - low) / low,
-    litHigh: (high - g.strongestLit.currentA) / high,
-  };
-}
 
 const pct = (share: number): string => `${(100 * share).toFixed(1)} %`;
 
@@ -63,9 +40,7 @@ export function darkMarginLines(
   design?: ReadonlyMap<string, number>,
 ): string[] {
   const m = darkMargins(g);
-  const lines = [
-    `margins: ${pct(m.ghost)} below the ghost limit, ${pct(m.lineSink)} below the active-low line's rating, lit window ${pct(m.litLow)} above its low end and ${pct(m.litHigh)} below its high end`,
-  ];
+  const lines = [darkMarginsText(g)];
   if (!g.passes) return lines;
   const ghostBinds = m.ghost <= m.lineSink;
   const binding = ghostBinds ? m.ghost : m.lineSink;

@@ -36,3 +36,37 @@ export function darkFigureLines(d: DarkBudget, unit: "mA" | "µA"): string[] {
     d.passes ? "every limit holds" : `FAILS: ${d.verdict}`,
   ];
 }
+
+/** The figures of a ghost check the margins are worked out from (a `GhostCheck` or the budget's `DarkBudget`). */
+export interface GhostFigures {
+  readonly ghostLimitA: number;
+  readonly lineRatedA: number;
+  readonly litWindowA: readonly [number, number];
+  readonly worstUnlit: { readonly output: string; readonly state: string; readonly corner: string; readonly currentA: number };
+  readonly mostSunk: { readonly output: string; readonly state: string; readonly corner: string; readonly currentA: number };
+  readonly weakestLit: { readonly currentA: number };
+  readonly strongestLit: { readonly currentA: number };
+  readonly passes: boolean;
+}
+
+/** Each limit's margin, as a share of the limit (negative when broken). */
+export function darkMargins(g: GhostFigures): { ghost: number; lineSink: number; litLow: number; litHigh: number } {
+  const [low, high] = g.litWindowA;
+  return {
+    ghost: (g.ghostLimitA - g.worstUnlit.currentA) / g.ghostLimitA,
+    lineSink: (g.lineRatedA - g.mostSunk.currentA) / g.lineRatedA,
+    litLow: (g.weakestLit.currentA - low) / low,
+    litHigh: (high - g.strongestLit.currentA) / high,
+  };
+}
+
+/**
+ * Each limit's margin in one line: `margins: 12.4 % below the ghost limit,
+ * 41.0 % below the active-low line's rating, lit window 4.7 % above its low
+ * end and 6.1 % below its high end`.
+ */
+export function darkMarginsText(g: GhostFigures): string {
+  const m = darkMargins(g);
+  const pct = (share: number): string => `${(100 * share).toFixed(1)} %`;
+  return `margins: ${pct(m.ghost)} below the ghost limit, ${pct(m.lineSink)} below the active-low line's rating, lit window ${pct(m.litLow)} above its low end and ${pct(m.litHigh)} below its high end`;
+}

@@ -63,8 +63,12 @@ describe("the web app with dark-decoded outputs", () => {
       dark: { pullUpOhms: number; sizing: string; outputs: { output: string; pullUp: string }[] };
     };
     expect(network).toContain(`pull-ups ${cli.dark.pullUpOhms / 1000}k`);
-    // The panel says which limit stops a smaller pull-up, as the budget does.
+    // The panel says which limit stops a smaller pull-up and the room left at every limit, as the budget does.
     expect(network).toContain(cli.dark.sizing);
+    const text = execFileSync(process.execPath, [BIN, "budget", file], { cwd: ROOT, encoding: "utf8" });
+    const margins = (await page.getByTestId("dark-margins").textContent()) ?? "";
+    expect(margins).toMatch(/^margins: [\d.]+ % below the ghost limit, [\d.]+ % below the active-low line's rating, lit window/);
+    expect(text).toContain(`  ${margins}\n`);
     // The result line names the outputs decoded dark, the budget's dark outputs.
     const dark = cli.dark.outputs.map((o) => o.output);
     expect(dark.length).toBeGreaterThan(0);

@@ -9,7 +9,7 @@ import { createMemo, For, Show } from "solid-js";
 import { budgetDesign } from "../../core/budget/budget.ts";
 import { designNote, TRIM_MODES, type TrimMode } from "../../core/budget/segmentDesign.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
-import { darkFigureLines, darkNetworkText } from "../../render/darkBudgetText.ts";
+import { darkFigureLines, darkMarginsText, darkNetworkText } from "../../render/darkBudgetText.ts";
 import { formatOhms, microampsShort, milliamps, milliwatts, percent } from "../../render/units.ts";
 import { app } from "../state/appState.ts";
 import { budgetChart, CHART_ROW_H } from "./budgetChart.ts";
@@ -212,6 +212,9 @@ export function BudgetPanel() {
                   <ul class="dark-figures" data-testid="dark-figures">
                     <For each={darkFigureLines(d(), b().targetA >= 1e-4 ? "mA" : "µA")}>{(line) => <li>{line}</li>}</For>
                   </ul>
+                  <p class="muted small" data-testid="dark-margins">
+                    {darkMarginsText(d())}
+                  </p>
                 </details>
               )}
             </Show>

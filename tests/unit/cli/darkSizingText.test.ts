@@ -5,7 +5,8 @@
  * pull-up up gives, solved by the same check the budget runs.
  */
 import { describe, expect, it } from "vitest";
-import { darkMarginLines, darkMargins, THIN_MARGIN, type GhostFigures } from "../../../src/cli/darkSizingText.ts";
+import { darkMarginLines, THIN_MARGIN } from "../../../src/cli/darkSizingText.ts";
+import { darkMargins, type GhostFigures } from "../../../src/render/darkBudgetText.ts";
 import { checkWith, sizeDarkNetwork } from "../../../src/core/budget/ghostCheck.ts";
 import { compileSpec } from "../../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../../src/core/synth/synthesize.ts";
