@@ -172,7 +172,7 @@ export function withPolarity(project: Project, settings: Partial<Project["synthe
   if (decode === project.synthesis.decode && darkInput === project.synthesis.darkInput) return project;
   const synthesis = { ...project.synthesis, decode, darkInput };
   const problems: { path: string; message: string }[] = [];
-  checkPolarity(project.counter, synthesis, project.electrical.driver.kind, problems);
+  checkPolarity(project.counter, synthesis, project.electrical, problems);
   if (problems.length > 0) {
     io.err(problems.map((p) => `--decode: ${p.message}\n`).join(""));
     return undefined;

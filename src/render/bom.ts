@@ -31,7 +31,7 @@ export function partValue(g: PartGroup, e: ElectricalModel): string {
     case "level-shift-diode":
       return "small-signal silicon";
     case "transistor":
-      return "NPN";
+      return e.driver.kind === "high-side-switch" ? "PNP" : "NPN";
     case "display":
       return e.segment.leds === 1 ? "1 LED" : `${e.segment.leds} LEDs`;
     default:
@@ -43,6 +43,7 @@ const DRIVER_WORDS: Readonly<Record<ElectricalModel["driver"]["kind"], string>> 
   "current-sink": "constant-current sink",
   "low-side-switch": "low-side switch",
   "emitter-follower": "emitter follower",
+  "high-side-switch": "high-side switch",
   direct: "none",
 };
 
@@ -62,11 +63,17 @@ export function partDescription(g: PartGroup, e: ElectricalModel, design: Segmen
     case "base-resistor":
       return `base resistor, ${e.tolerance.resistorPct} %`;
     case "base-emitter-resistor":
-      return `base-emitter resistor, holds the switch off, ${e.tolerance.resistorPct} %`;
+      return e.driver.kind === "high-side-switch"
+        ? `base-emitter resistor, from the segment supply to the base, holds the switch off, ${e.tolerance.resistorPct} %`
+        : `base-emitter resistor, holds the switch off, ${e.tolerance.resistorPct} %`;
     case "pull-down":
       return "output line pull-down";
+    case "line-pull-up":
+      return `output line pull-up to the segment supply (${e.supply.volts} V), holds the high-side switch off`;
     case "tie-on-resistor":
-      return `holds an always-lit segment on, from the logic supply (${e.logicSupply.volts} V)`;
+      return e.driver.kind === "high-side-switch"
+        ? "holds an always-lit segment on, from its output line to ground"
+        : `holds an always-lit segment on, from the logic supply (${e.logicSupply.volts} V)`;
     case "level-shift-diode":
       return `level-shift diode in series with a dark-decoded output's driver input (keeps it off while the node is pulled down), the matrix diode's type`;
     case "dark-pull-up":

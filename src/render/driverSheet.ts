@@ -64,6 +64,8 @@ const KIND_WORDS: Readonly<Record<DriverKind, string>> = {
     "NPN low-side switch under a common-anode display: X drives the base through Rb, Rbe holds it off; saturated, Rs sets the current, (Vs - n Vf - Vce(sat)) / Rs.",
   "emitter-follower":
     "NPN emitter follower over a common-cathode display: the collector is on +VSUP, the emitter sits one Vbe below the base and feeds Rs and the segment to ground.",
+  "high-side-switch":
+    "PNP high-side switch over a common-cathode display: the emitter is on +VSUP; X pulled low drives the base through Rb, Rbe and the line's pull-up hold it off; saturated, Rs sets the current, (Vs - Vec(sat) - n Vf) / Rs.",
   direct: "No transistor: the counter line lights the segment through the matrix and Rs, (Vline - diode drops - n Vf) / Rs.",
 };
 

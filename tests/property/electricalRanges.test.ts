@@ -66,7 +66,8 @@ describe(`electrical values across their allowed ranges (fast-check seed ${SEED}
       fc.property(changes, fc.constantFrom(...PRESET_NAMES), (values, preset) => {
         const r = validateProject({
           schema: "diodeloom/project@2",
-          counter: { states: 3 },
+          // A high-side switch's lit cells sit on active-low lines: a sink-drive counter.
+          counter: { states: 3, drive: preset === "bench-5v-high-side" ? "sink" : "source" },
           display: {},
           show: ["1", "7", "8"],
           electrical: { preset, ...electricalWith(values) },

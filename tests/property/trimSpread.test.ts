@@ -38,9 +38,14 @@ const projectArb = fc
     }
     // The preset's own current-setting resistor, scaled, and per output a little off it.
     const sink = r.preset === "panel-12v-sink" || r.preset === "string-hv-sink";
-    const base = { "panel-12v-sink": 180, "string-hv-sink": 3300, "bench-5v-switch": 300, "cathode-5v-follower": 110, "line-direct": 820 }[
-      r.preset
-    ];
+    const base = {
+      "panel-12v-sink": 180,
+      "string-hv-sink": 3300,
+      "bench-5v-switch": 300,
+      "cathode-5v-follower": 110,
+      "bench-5v-high-side": 300,
+      "line-direct": 820,
+    }[r.preset];
     const each = Object.fromEntries(SEGMENTS.map((s, i) => [`1${s}`, Math.round(base * r.scale * (r.perOutput[i] ?? 1))]));
     const electrical = {
       preset: r.preset,
@@ -48,7 +53,8 @@ const projectArb = fc
       ...(sink ? { driver: { emitterResistors: each } } : { segment: { seriesResistors: each } }),
     };
     return makeProject2({
-      counter: { states: r.states },
+      // A high-side switch's lit cells sit on active-low lines: a sink-drive counter.
+      counter: { states: r.states, drive: r.preset === "bench-5v-high-side" ? "sink" : "source" },
       display: { positions: 1, cell: "custom", segments: SEGMENTS },
       glyphs,
       show,

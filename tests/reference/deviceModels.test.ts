@@ -7,7 +7,7 @@ import { describe, expect, it } from "vitest";
 import { buildCircuit, type Circuit, type CircuitElement } from "../../src/core/circuit/circuit.ts";
 import { siliconSaturationCurrent } from "../../src/core/budget/corners.ts";
 import { solveDc } from "../../src/core/circuit/dcSolver.ts";
-import { criticalVoltage, diodeJunction, npnTransport } from "../../src/core/circuit/deviceModels.ts";
+import { criticalVoltage, diodeJunction, npnTransport, pnpTransport } from "../../src/core/circuit/deviceModels.ts";
 import { BOLTZMANN_J_PER_K, ELEMENTARY_CHARGE_C, shockleyVoltage, thermalVoltage } from "../../src/core/circuit/physics.ts";
 import { ELECTRICAL_PRESETS, FORMAT1_ELECTRICAL } from "../../src/core/project/electricalPresets.ts";
 import { directDesign } from "../support/budgetFixtures.ts";
@@ -197,5 +197,36 @@ describe("temperature relations", () => {
       expect(perK).toBeLessThan(-1.5e-3);
       expect(perK).toBeGreaterThan(-3e-3);
     }
+  });
+});
+
+describe("PNP in forward active region (the high-side switch's transistor)", () => {
+  it("emitter at 5 V, base held at 4.35 V, collector through 1 kOhm to ground: Ic = 0.82047 mA, Ib = 5.4698 uA, Vc = 0.82047 V", () => {
+    // Source: docs/sources.md "Device physics" (Ebers-Moll forward active, Ic = Is exp(Veb/VT), Ib = Ic/beta,
+    // mirrored for a PNP: common practice, no source). Hand calculation: VT = 25.865 mV at 300.15 K,
+    // Ic = 1e-14 exp(0.65 / 0.025865) = 0.82047 mA (the reverse terms, Is/BR and Is exp(-3.53/VT), are
+    // below 1e-14 A), Ib = Ic / 150 = 5.4698 uA, Vc = Ic x 1 kOhm = 0.82047 V (Vcb = -3.53 V: active).
+    const c = circuit(
+      ["c", "e", "b"],
+      [
+        { kind: "vsource", name: "VE", node: "e", volts: 5 },
+        { kind: "vsource", name: "VB", node: "b", volts: 4.35 },
+        { kind: "pnp", name: "Q1", collector: "c", base: "b", emitter: "e", isA: 1e-14, betaF: 150, betaR: 3 },
+        { kind: "resistor", name: "RC", role: "counter", a: "c", b: "0", ohms: 1000 },
+      ],
+    );
+    const r = solveDc(c);
+    if (!r.ok) throw new Error(r.error.message);
+    const q = r.value.transistors["Q1"];
+    expect(q?.icA).toBeCloseTo(0.82047e-3, 8);
+    expect(q?.ibA).toBeCloseTo(5.4698e-6, 9);
+    expect(q?.ieA).toBeCloseTo(0.82047e-3 + 5.4698e-6, 8);
+    expect(r.value.voltages["c"]).toBeCloseTo(0.82047, 5);
+    // The supply at the emitter gives Ie; the base source takes Ib out (a PNP's base current leaves the base).
+    expect(r.value.currents["VE"]).toBeCloseTo(0.82047e-3 + 5.4698e-6, 8);
+    expect(r.value.currents["VB"]).toBeCloseTo(-5.4698e-6, 9);
+    // The same point from the model alone: Veb = 0.65 V, Vcb = 0.82047 - 4.35 V.
+    const p = pnpTransport(0.65, 0.82047 - 4.35, { isA: 1e-14, betaF: 150, betaR: 3 }, thermalVoltage(27), 0);
+    expect(p.icA).toBeCloseTo(0.82047e-3, 8);
   });
 });

@@ -101,6 +101,7 @@ const KIND_WORDS: Readonly<Record<Budget["kind"], string>> = {
   "current-sink": "NPN constant-current sinks",
   "low-side-switch": "NPN low-side switches",
   "emitter-follower": "NPN emitter followers",
+  "high-side-switch": "PNP high-side switches",
   direct: "direct drive from the counter lines",
 };
 
@@ -273,14 +274,14 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
   }
   if (b.dark !== null) L.push(...darkLines(project, spec, m, b, b.dark, unit), "");
   if (b.kind !== "direct") {
-    const figure =
-      b.kind === "low-side-switch"
-        ? `forced beta = largest Ic/Ib of a lit switch at the low corner, saturated below beta ${e.tolerance.betaMin}`
-        : `headroom = lowest collector-base voltage of a lit driver at the ${e.supply.minVolts} V supply`;
+    const isSwitch = b.kind === "low-side-switch" || b.kind === "high-side-switch";
+    const figure = isSwitch
+      ? `forced beta = largest Ic/Ib of a lit switch at the low corner, saturated below beta ${e.tolerance.betaMin}`
+      : `headroom = lowest collector-base voltage of a lit driver at the ${e.supply.minVolts} V supply`;
     L.push(`Drivers (${figure})`);
     L.push(
       ...table(
-        ["Output", "Q", "R", "Value", "Vce max V", "Ic max mA", "P max mW", b.kind === "low-side-switch" ? "Forced beta" : "Headroom V"],
+        ["Output", "Q", "R", "Value", "Vce max V", "Ic max mA", "P max mW", isSwitch ? "Forced beta" : "Headroom V"],
         Object.entries(b.drivers).map(([o, d]) => [
           o,
           d.transistor ?? "",

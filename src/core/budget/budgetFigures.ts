@@ -146,6 +146,7 @@ export function diodeBudgets(project: Project, matrix: VerifiedMatrix, sweep: Sw
  * current of every gate it holds low).
  */
 export function counterBudgets(project: Project, matrix: VerifiedMatrix, sweep: SweepReading): Record<string, CounterLineBudget> {
+  if (project.electrical.driver.kind === "high-side-switch") return lowLineBudgets(project, matrix, sweep);
   const co = project.electrical.counterOutput;
   const out: Record<string, CounterLineBudget> = {};
   for (const l of sourceLines(matrix)) {
@@ -160,6 +161,34 @@ export function counterBudgets(project: Project, matrix: VerifiedMatrix, sweep: 
       ratedA: co.maxCurrentA,
     };
   }
+  return out;
+}
+
+/**
+ * A high-side switch's counter lines: the active-low lines `nS<k>` its
+ * matrix uses (the only lines its diodes meet), each with what it sinks in
+ * its own state (every base current, line pull-up and sneak current of the
+ * outputs it pulls down) against `lowLine.maxCurrentA`. An idle line only
+ * takes the leakage the supply pushes past the held-off switches.
+ */
+function lowLineBudgets(project: Project, matrix: VerifiedMatrix, sweep: SweepReading): Record<string, CounterLineBudget> {
+  const ll = project.electrical.lowLine;
+  const used = new Set(matrix.diodes.map((d) => d.from));
+  const out: Record<string, CounterLineBudget> = {};
+  matrix.states.forEach((_, k) => {
+    const line = `nS${k}`;
+    if (!used.has(line)) return;
+    const s = sweep.states[k];
+    out[line] = {
+      sourceCurrentA: 0,
+      sourceState: null,
+      lineV: ll.high,
+      sagV: 0,
+      sinkCurrentA: s?.lowLineSinkA ?? 0,
+      sinkState: s?.state ?? null,
+      ratedA: ll.maxCurrentA,
+    };
+  });
   return out;
 }
 
@@ -259,7 +288,7 @@ export function driverBudgets(
   for (const d of nominal.drivers) {
     const n = nom.get(d.output) as DriverFigures;
     const w = weak.get(d.output) as DriverFigures;
-    const isSwitch = kind === "low-side-switch";
+    const isSwitch = kind === "low-side-switch" || kind === "high-side-switch";
     const headroom = (low.get(d.output) as DriverFigures).headroomV;
     out[d.output] = {
       transistor: d.transistor,
@@ -294,7 +323,7 @@ export function cornerBudget(project: Project, spec: DecodeSpec, conditions: Cor
     // No lit driver, nothing to saturate: 0 keeps the JSON finite.
     minHeadroomV:
       kind === "current-sink" || kind === "emitter-follower" ? (lit.length > 0 ? Math.min(...lit.map((f) => f.headroomV)) : 0) : null,
-    maxForcedBeta: kind === "low-side-switch" ? Math.max(0, ...figures.map((f) => f.forcedBeta)) : null,
+    maxForcedBeta: kind === "low-side-switch" || kind === "high-side-switch" ? Math.max(0, ...figures.map((f) => f.forcedBeta)) : null,
     maxVceV: Math.max(0, ...figures.map((f) => f.maxVceV)),
     maxPowerW: Math.max(0, ...figures.map((f) => f.maxPowerW)),
   };

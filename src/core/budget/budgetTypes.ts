@@ -43,13 +43,13 @@ export interface BudgetOptions {
   readonly deadlineMs?: number;
 }
 
-/** A transistor's operating point. */
+/** A transistor's operating point, an NPN's as Vbe, Vce and the currents in; a PNP's as Veb, Vec and the currents out. */
 export interface DriverPoint {
   readonly vbeV: number;
   readonly vceV: number;
-  /** Into the collector. */
+  /** Into an NPN's collector, out of a PNP's. */
   readonly icA: number;
-  /** Into the base. */
+  /** Into an NPN's base, out of a PNP's. */
   readonly ibA: number;
 }
 

@@ -145,7 +145,8 @@ export function budgetWarnings(
       otherSpreadPct: trimmed ? b.trim.spreadPctBefore : b.trim.spreadPct,
     });
   }
-  const sags = Object.entries(b.counterLines);
+  // A high-side switch's lines are active-low: they sink, and never sag under a load they source.
+  const sags = b.kind === "high-side-switch" ? [] : Object.entries(b.counterLines);
   if (sags.length > 0) {
     const [line, worst] = sags.reduce((a, c) => (c[1].sagV > a[1].sagV ? c : a));
     w.push({ level: "info", code: "counter-sag", line, sagV: worst.sagV, sourceCurrentA: worst.sourceCurrentA });

@@ -68,7 +68,7 @@ export function stateSpreads(input: {
     shares.sort((a, b) => b[1] - a[1]);
     const causes: SpreadCause[] = shares.map(([c]) => c);
     const p = sMin.points[j] ?? null;
-    if (kind === "low-side-switch" && p !== null && p.vceV > p.vbeV) causes.unshift("switch-unsaturated");
+    if ((kind === "low-side-switch" || kind === "high-side-switch") && p !== null && p.vceV > p.vbeV) causes.unshift("switch-unsaturated");
     if (causes.length === 0) causes.push(sagDeltaV >= dropDeltaV ? sag : "diode-depth");
     out.push({
       level: "warn",

@@ -91,7 +91,14 @@ export function driverPoint(s: StateSolution, d: DriverStage): DriverPoint | nul
   if (!t) throw new Error(`bug: no currents for ${d.transistor}`);
   const v = s.op.voltages;
   const ve = d.emitterNode === null ? 0 : (v[d.emitterNode] as number);
-  return { vbeV: (v[d.baseNode] as number) - ve, vceV: (v[d.collectorNode] as number) - ve, icA: t.icA, ibA: t.ibA };
+  // A PNP's junction voltages measured the other way (Veb, Vec), as its currents are (dcSolver.ts).
+  const sign = d.kind === "high-side-switch" ? -1 : 1;
+  return {
+    vbeV: sign * ((v[d.baseNode] as number) - ve),
+    vceV: sign * ((v[d.collectorNode] as number) - ve),
+    icA: t.icA,
+    ibA: t.ibA,
+  };
 }
 
 /** Reads one solved state. */

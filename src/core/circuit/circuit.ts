@@ -14,12 +14,13 @@
  *   diodes;
  * - matrix diodes anode = `from`, cathode = `to`, Shockley with `diode.is`,
  *   `diode.n` and series `diode.rs`;
- * - every driven output line: `pullDown` ohms to ground, then the driver
- *   stage of `driver.kind` (driverStage.ts: one builder per kind) with its
- *   segment of `segment.leds` LEDs;
+ * - every driven output line: `pullDown` ohms to ground (for a high-side
+ *   switch, to the segment supply), then the driver stage of `driver.kind`
+ *   (driverStage.ts: one builder per kind) with its segment of
+ *   `segment.leds` LEDs;
  * - every tied-on output: the same, its line held up from the logic supply
  *   (`logicSupply.volts`, a real rail) through a resistor of
- *   `counterOutput.resistance` ohms;
+ *   `counterOutput.resistance` ohms (a high-side switch's held down to ground);
  * - never-lit outputs have no driver and are left out;
  * - where outputs are decoded dark, the active-low lines, the pull-ups and
  *   the input networks (polarityCircuit.ts), with the values of
@@ -35,7 +36,7 @@
  * with the same values.
  */
 import type { DecodeSpec } from "../spec/decodeSpec.ts";
-import type { DiodeMatrix } from "../matrix/matrix.ts";
+import { darkSideDiodes, type DiodeMatrix } from "../matrix/matrix.ts";
 import type { ElectricalModel } from "../project/project.ts";
 import { designators, type CircuitModel, type DriverParts, type PartResistorRole } from "../matrix/designators.ts";
 import { addDarkSide, darkStateGuess, lowLineSources, type LowLine } from "./polarityCircuit.ts";
@@ -110,7 +111,12 @@ export interface Npn {
   readonly betaR: number;
 }
 
-export type CircuitElement = VoltageSource | Resistor | CircuitDiode | LedSegment | Npn;
+/** A PNP (the high-side switch): the NPN's parameters, every junction turned round. */
+export interface Pnp extends Omit<Npn, "kind"> {
+  readonly kind: "pnp";
+}
+
+export type CircuitElement = VoltageSource | Resistor | CircuitDiode | LedSegment | Npn | Pnp;
 
 /** One output's driver stage: its parts (from the designators) and the nodes they join. */
 export interface DriverStage extends DriverParts, StageNodes {
@@ -207,7 +213,7 @@ export function circuitFrame(
   const stage = driverStage(model.driver.kind);
   const usesSupply = parts.drivers.length > 0 && stage.usesSupply;
   if (usesSupply) shared.push({ kind: "vsource", name: "VSUP", node: SUPPLY_NODE, volts: model.supply.volts });
-  const usesLogic = tiedCount > 0 || parts.gates.length > 0;
+  const usesLogic = (tiedCount > 0 && model.driver.kind !== "high-side-switch") || parts.gates.length > 0;
   if (usesLogic) shared.push({ kind: "vsource", name: "VLOGIC", node: LOGIC_NODE, volts: model.logicSupply.volts });
   for (const g of parts.gates) {
     shared.push({
@@ -223,8 +229,14 @@ export function circuitFrame(
   const stageNodes: string[] = [];
   for (const p of parts.drivers) {
     const input = `o${p.output}`;
-    if (p.tieOn !== null) shared.push({ kind: "resistor", name: p.tieOn.ref, role: "tie-on", a: LOGIC_NODE, b: input, ohms: p.tieOn.ohms });
-    shared.push({ kind: "resistor", name: p.pullDown.ref, role: p.pullDown.role, a: input, b: GROUND, ohms: p.pullDown.ohms });
+    // A high-side switch is held on by a line pulled low, and off by its pull-up to the supply.
+    const pnp = p.kind === "high-side-switch";
+    if (p.tieOn !== null) {
+      const [a, b] = pnp ? [input, GROUND] : [LOGIC_NODE, input];
+      shared.push({ kind: "resistor", name: p.tieOn.ref, role: "tie-on", a, b, ohms: p.tieOn.ohms });
+    }
+    const [a, b] = p.pullDown.role === "line-pull-up" ? [SUPPLY_NODE, input] : [input, GROUND];
+    shared.push({ kind: "resistor", name: p.pullDown.ref, role: p.pullDown.role, a, b, ohms: p.pullDown.ohms });
     const built = stage.build({ parts: p, model, input });
     shared.push(...built.elements);
     stageNodes.push(...built.ownNodes);
@@ -334,6 +346,7 @@ function startingGuess(
     const d = depth.get(line);
     guess[node] = d !== undefined ? co.high - 0.5 * d : gates.has(line) ? co.low + 0.6 : co.low;
   }
+  if (model.driver.kind === "high-side-switch") lowSideGuess(matrix, model, stateIndex, lineNodes, guess);
   const stage = driverStage(model.driver.kind);
   for (const dr of drivers) {
     // A dark-decoded output's driver input (behind its network) starts from its node's guess.
@@ -343,4 +356,41 @@ function startingGuess(
     Object.assign(guess, stage.guess({ stage: dr, model, inputV, lit }));
   }
   return guess;
+}
+
+/**
+ * The guess of the active-low side's nodes where a high-side switch drives
+ * the segments: each node the active line `nS<k>` reaches sits half a volt
+ * above the line's low level per diode, every other node on that side at
+ * the segment supply its drivers' resistors pull it up to.
+ */
+function lowSideGuess(
+  matrix: DiodeMatrix,
+  model: ElectricalModel,
+  stateIndex: number,
+  lineNodes: Readonly<Record<string, string>>,
+  guess: Record<string, number>,
+): void {
+  const side = darkSideDiodes(matrix);
+  const next = new Map<string, string[]>();
+  for (const d of matrix.diodes) {
+    if (!side.has(d.ref)) continue;
+    next.set(d.from, [...(next.get(d.from) ?? []), d.to]);
+    const node = lineNodes[d.to];
+    if (node !== undefined) guess[node] = model.supply.volts;
+  }
+  const start = `nS${stateIndex}`;
+  const depth = new Map<string, number>([[start, 0]]);
+  const queue = [start];
+  while (queue.length > 0) {
+    const l = queue.shift() as string;
+    for (const t of next.get(l) ?? []) {
+      if (depth.has(t)) continue;
+      const d = (depth.get(l) ?? 0) + 1;
+      depth.set(t, d);
+      queue.push(t);
+      const node = lineNodes[t];
+      if (node !== undefined) guess[node] = model.lowLine.low + 0.5 * d;
+    }
+  }
 }

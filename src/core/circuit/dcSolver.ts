@@ -50,16 +50,22 @@ export const DEFAULT_DC_SETTINGS: DcSettings = {
   methods: ["newton", "gmin-stepping", "source-stepping"],
 };
 
+/**
+ * A transistor's currents in the directions it conducts: an NPN's into the
+ * collector and base and out of the emitter, a PNP's out of the collector
+ * and base and into the emitter (so a transistor that is on has positive
+ * currents either way).
+ */
 export interface TransistorCurrents {
-  /** Into the collector, amperes. */
+  /** Into an NPN's collector (out of a PNP's), amperes. */
   readonly icA: number;
-  /** Into the base, amperes. */
+  /** Into an NPN's base (out of a PNP's), amperes. */
   readonly ibA: number;
-  /** Out of the emitter, amperes. */
+  /** Out of an NPN's emitter (into a PNP's), amperes. */
   readonly ieA: number;
   /**
-   * From the collector to the grounded substrate through GMIN, amperes
-   * (ngspice's collector-substrate junction); not part of Ic.
+   * From the collector (a PNP's base) to the grounded substrate through
+   * GMIN, amperes (ngspice's substrate junction); not part of Ic or Ib.
    */
   readonly substrateA: number;
 }
@@ -106,6 +112,8 @@ interface Junction {
 }
 
 interface Transistor {
+  /** 1 for an NPN, -1 for a PNP: the junction voltages and terminal currents are the NPN's times this. */
+  readonly sign: 1 | -1;
   readonly c: NodeRef;
   readonly b: NodeRef;
   readonly e: NodeRef;
@@ -286,10 +294,15 @@ function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
         break;
       }
       case "npn":
-        // ngspice's BJT has a collector-substrate junction (substrate grounded
-        // for three terminals) with no saturation current but GMIN across it.
-        conductances.push({ a: ref(el.collector), b: ref(GROUND), g: gminS, name: `${el.name}#sub` });
+      case "pnp": {
+        // ngspice's BJT has a substrate junction (substrate grounded for three
+        // terminals) with no saturation current but GMIN across it: at the
+        // collector of a vertical NPN, at the base of a lateral PNP (its
+        // default geometry for each type).
+        const pnp = el.kind === "pnp";
+        conductances.push({ a: ref(pnp ? el.base : el.collector), b: ref(GROUND), g: gminS, name: `${el.name}#sub` });
         transistors.push({
+          sign: pnp ? -1 : 1,
           c: ref(el.collector),
           b: ref(el.base),
           e: ref(el.emitter),
@@ -298,6 +311,7 @@ function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
           name: el.name,
         });
         break;
+      }
     }
   }
   const pattern = new SparsePattern(unknownNames.length, stampPositions(conductances, junctions, transistors));
@@ -448,8 +462,9 @@ function newton(
     for (let q = 0; q < cp.transistors.length; q++) {
       const t = cp.transistors[q] as Transistor;
       const slot = nJ + 2 * q;
-      let vbe = useStored ? (jv[slot] as number) : volt(t.b) - volt(t.e);
-      let vbc = useStored ? (jv[slot + 1] as number) : volt(t.b) - volt(t.c);
+      // Junction voltages as the NPN's equations take them (Veb, Vcb for a PNP).
+      let vbe = useStored ? (jv[slot] as number) : t.sign * (volt(t.b) - volt(t.e));
+      let vbc = useStored ? (jv[slot + 1] as number) : t.sign * (volt(t.b) - volt(t.c));
       if (!useStored) {
         const lbe = limitJunction(vbe, jv[slot] as number, cp.vtV, t.vcritV);
         const lbc = limitJunction(vbc, jv[slot + 1] as number, cp.vtV, t.vcritV);
@@ -460,10 +475,15 @@ function newton(
       jv[slot] = vbe;
       jv[slot + 1] = vbc;
       const p = npnTransport(vbe, vbc, t.params, cp.vtV, cp.gminS);
-      // Ic and Ib enter c and b; Ie = -(Ic + Ib) leaves e.
-      sp.terminal(t.c, t, p.icA, p.dIcVbe, p.dIcVbc, vbe, vbc);
-      sp.terminal(t.b, t, p.ibA, p.dIbVbe, p.dIbVbc, vbe, vbc);
-      sp.terminal(t.e, t, -(p.icA + p.ibA), -(p.dIcVbe + p.dIbVbe), -(p.dIcVbc + p.dIbVbc), vbe, vbc);
+      // Ic and Ib enter c and b; Ie = -(Ic + Ib) leaves e (a PNP's, times -1). The
+      // derivatives with respect to the node voltages are the same for both
+      // types (the sign enters twice); the companion takes the node voltages.
+      const sg = t.sign;
+      const nbe = sg * vbe;
+      const nbc = sg * vbc;
+      sp.terminal(t.c, t, sg * p.icA, p.dIcVbe, p.dIcVbc, nbe, nbc);
+      sp.terminal(t.b, t, sg * p.ibA, p.dIbVbe, p.dIbVbc, nbe, nbc);
+      sp.terminal(t.e, t, -sg * (p.icA + p.ibA), -(p.dIcVbe + p.dIbVbe), -(p.dIcVbc + p.dIbVbc), nbe, nbc);
     }
     if (!useStored && !limited && stepSmall && kclHolds(G, rhs, x, scale, cp.pattern)) return { converged: true, iterations: it };
     // The budget spent in a limit cycle within SPICE's own RELTOL (a node that
@@ -593,8 +613,8 @@ export function solveDc(
       const volt = (r: NodeRef): number => (r >= 0 ? (x[r] as number) : (cp.fixedVolts[-r - 1] as number));
       cp.junctions.forEach((d, j) => (jv[j] = volt(d.a) - volt(d.k)));
       cp.transistors.forEach((t, q) => {
-        jv[cp.junctions.length + 2 * q] = volt(t.b) - volt(t.e);
-        jv[cp.junctions.length + 2 * q + 1] = volt(t.b) - volt(t.c);
+        jv[cp.junctions.length + 2 * q] = t.sign * (volt(t.b) - volt(t.e));
+        jv[cp.junctions.length + 2 * q + 1] = t.sign * (volt(t.b) - volt(t.c));
       });
     } else {
       cp.junctions.forEach((d, j) => (jv[j] = d.vcritV));
@@ -689,8 +709,8 @@ function result(circuit: Circuit, cp: Compiled, st: NewtonState, method: DcMetho
   for (const d of cp.junctions) currents[d.name] = diodeJunction(volt(d.a) - volt(d.k), d.isA, d.nVtV, d.gminS).currentA;
   const transistors: Record<string, TransistorCurrents> = {};
   for (const t of cp.transistors) {
-    const vbe = volt(t.b) - volt(t.e);
-    const vbc = volt(t.b) - volt(t.c);
+    const vbe = t.sign * (volt(t.b) - volt(t.e));
+    const vbc = t.sign * (volt(t.b) - volt(t.c));
     const p = npnTransport(vbe, vbc, t.params, cp.vtV, cp.gminS);
     transistors[t.name] = { icA: p.icA, ibA: p.ibA, ieA: p.icA + p.ibA, substrateA: substrate.get(t.name) ?? 0 };
   }
@@ -728,6 +748,13 @@ function sourceDraws(
         add(el.collector, t.icA + t.substrateA);
         add(el.base, t.ibA);
         add(el.emitter, -t.ieA);
+        break;
+      }
+      case "pnp": {
+        const t = transistors[el.name] as TransistorCurrents;
+        add(el.collector, -t.icA);
+        add(el.base, -t.ibA + t.substrateA);
+        add(el.emitter, t.ieA);
         break;
       }
       case "vsource":

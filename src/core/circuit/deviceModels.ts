@@ -1,6 +1,6 @@
 /**
  * Device equations of the DC solver: the Shockley diode and the Ebers-Moll
- * transport model of an NPN transistor, each with its derivatives, plus the
+ * transport model of an NPN and a PNP transistor, each with its derivatives, plus the
  * junction-voltage limiting that keeps Newton-Raphson from overflowing.
  *
  * The equations are the ones a SPICE level-1 model uses with only IS, N
@@ -39,7 +39,7 @@ export function diodeConductance(vV: number, isA: number, nVtV: number, gminS: n
   return (isA * Math.exp(vV / nVtV)) / nVtV + gminS;
 }
 
-/** Ebers-Moll transport parameters of an NPN (IS, BF, BR; NF = NR = 1). */
+/** Ebers-Moll transport parameters of an NPN or a PNP (IS, BF, BR; NF = NR = 1). */
 export interface NpnParams {
   /** Transport saturation current, amperes. */
   readonly isA: number;
@@ -89,6 +89,29 @@ export function npnTransport(vbeV: number, vbcV: number, p: NpnParams, vtV: numb
     dIbVbe: gbe / p.betaF + gminS,
     dIbVbc: gbc / p.betaR + gminS,
   };
+}
+
+/**
+ * Ebers-Moll transport model of a PNP: the NPN's equations with every
+ * voltage and current turned round (SPICE's BJT with TYPE = -1), so the
+ * same IS, BF and BR describe it:
+ *
+ *   Ic = Is (e^(Veb/VT) - e^(Vcb/VT)) - (Is/BR)(e^(Vcb/VT) - 1)   out of the collector
+ *   Ib = (Is/BF)(e^(Veb/VT) - 1) + (Is/BR)(e^(Vcb/VT) - 1)          out of the base
+ *
+ * with `gminS` across each junction as for the NPN. The point's currents
+ * are out of the collector and the base (the emitter takes their sum in),
+ * its derivatives with respect to Veb and Vcb.
+ *
+ * @param vebV emitter-base voltage, volts (forward: the emitter above the base)
+ * @param vcbV collector-base voltage, volts
+ * @param vtV thermal voltage, volts
+ * @example
+ * pnpTransport(0.65, -4, { isA: 1e-14, betaF: 150, betaR: 3 }, 0.025852, 0).icA; // 8.3e-4 A, out of the collector
+ */
+export function pnpTransport(vebV: number, vcbV: number, p: NpnParams, vtV: number, gminS: number): NpnPoint {
+  // The mirror image: an NPN's equations at the junction voltages measured the other way.
+  return npnTransport(vebV, vcbV, p, vtV, gminS);
 }
 
 /**

@@ -1,10 +1,9 @@
 /**
  * Driver stages: what sits between an output line and its segment, one
  * builder per `driver.kind`. The circuit builder puts the counter lines,
- * the matrix, each output line's pull-down (and tie-on) in place, then asks
- * the stage of the project's kind for the rest, so a new kind (a PNP
- * high-side switch, say) is one more builder here, not a change to the
- * builder.
+ * the matrix, each output line's bleed resistor (and tie-on) in place, then
+ * asks the stage of the project's kind for the rest, so a new kind is one
+ * more builder here, not a change to the builder.
  */
 import type { DriverParts } from "../matrix/designators.ts";
 import type { DriverKind, ElectricalModel } from "../project/project.ts";
@@ -12,6 +11,7 @@ import type { CircuitElement, DriverStage, LedSegment } from "./circuit.ts";
 import { currentSinkStage } from "./currentSinkStage.ts";
 import { directStage } from "./directStage.ts";
 import { emitterFollowerStage } from "./emitterFollowerStage.ts";
+import { highSideSwitchStage } from "./highSideSwitchStage.ts";
 import { lowSideSwitchStage } from "./lowSideSwitchStage.ts";
 import { shockleyVoltage, thermalVoltage } from "./physics.ts";
 
@@ -65,6 +65,7 @@ const STAGES: Readonly<Record<DriverKind, StageKind>> = {
   "current-sink": currentSinkStage,
   "low-side-switch": lowSideSwitchStage,
   "emitter-follower": emitterFollowerStage,
+  "high-side-switch": highSideSwitchStage,
   direct: directStage,
 };
 

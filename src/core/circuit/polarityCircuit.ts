@@ -1,7 +1,9 @@
 /**
- * What dark decode adds to a matrix's circuit (circuit.ts calls it once the
- * lit decoder's parts are in), as docs/electrical-model.md "Dark-decoded
- * outputs" describes it:
+ * What the active-low side adds to a matrix's circuit (circuit.ts calls it
+ * once the lit decoder's parts are in), as docs/electrical-model.md
+ * "Dark-decoded outputs" describes it; a high-side switch's lit-decoded
+ * outputs sit on the same side and take the same lines and turned diodes,
+ * but no pull-up or network (the stage's own resistors pull the line up):
  * - every active-low line `nS<k>` the matrix uses: a Thevenin source,
  *   `lowLine.low` volts in its own state and `lowLine.high` otherwise,
  *   behind `lowLine.resistance` (node `ns<k>`, source `ns<k>_v`); these
@@ -62,8 +64,8 @@ export interface DarkShared extends SharedParts {
  * dark-decoded output comes back as it was, with no active-low line.
  */
 export function addDarkSide(lit: SharedParts, spec: DecodeSpec, matrix: DiodeMatrix, model: CircuitModel, parts: Designators): DarkShared {
-  if (parts.darkInputs.length === 0) return { ...lit, lowLines: [], darkGuess: {} };
   const darkSide = darkSideDiodes(matrix);
+  if (parts.darkInputs.length === 0 && darkSide.size === 0) return { ...lit, lowLines: [], darkGuess: {} };
   const matrixDiodes = new Set(matrix.diodes.map((d) => d.ref));
   const moved = new Map(parts.darkInputs.filter(hasNetwork).map((p) => [`o${p.output}`, darkInputNode(p.output)]));
   const shared: CircuitElement[] = lit.shared.map((el) => {
@@ -87,11 +89,12 @@ export function addDarkSide(lit: SharedParts, spec: DecodeSpec, matrix: DiodeMat
     lineNodes[line] = node;
     lowLines.push({ line, stateIndex: k, node });
   });
-  if (!shared.some((el) => el.kind === "vsource" && el.node === LOGIC_NODE)) {
+  // The pull-ups hang from the logic supply (a high-side switch's lines need none: its own resistors pull them up).
+  if (parts.darkInputs.length > 0 && !shared.some((el) => el.kind === "vsource" && el.node === LOGIC_NODE)) {
     shared.push({ kind: "vsource", name: "VLOGIC", node: LOGIC_NODE, volts: model.logicSupply.volts });
     darkNodes.push(LOGIC_NODE);
   }
-  darkGuess[LOGIC_NODE] = model.logicSupply.volts;
+  if (parts.darkInputs.length > 0) darkGuess[LOGIC_NODE] = model.logicSupply.volts;
   for (const p of parts.darkInputs) {
     const node = `o${p.output}`;
     const input = moved.get(node) ?? node;

@@ -83,7 +83,7 @@ export async function comparePolarities(
       const counter = { ...project.counter, drive: "complementary" as const };
       const synthesis = { ...project.synthesis, decode };
       const problems: Problem[] = [];
-      checkPolarity(counter, synthesis, project.electrical.driver.kind, problems);
+      checkPolarity(counter, synthesis, project.electrical, problems);
       const empty = { glyphs: combo, decode, diodes: null, matrixDiodes: null, inputDiodes: null, resistors: null, darkOutputs: null };
       if (problems.length > 0) {
         const row: PolarityRow = { ...empty, lowerBound: null, optimal: false, status: null, refused: problems[0]?.message ?? "" };

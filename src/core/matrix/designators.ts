@@ -49,7 +49,7 @@ import { preferredNeighbours } from "../budget/eSeries.ts";
  * `divider`: a dark-decoded output's divider, from the node to the driver's input.
  */
 export type PartResistorRole =
-  "emitter" | "series" | "base" | "base-emitter" | "pull-down" | "tie-on" | "gate-pull-up" | "pull-up" | "divider";
+  "emitter" | "series" | "base" | "base-emitter" | "pull-down" | "line-pull-up" | "tie-on" | "gate-pull-up" | "pull-up" | "divider";
 
 /** The values of the dark-decoded outputs' input network (one set for every such output). */
 export interface DarkNetworkValues {
@@ -104,7 +104,7 @@ export interface DriverParts {
   readonly output: string;
   readonly tiedOn: boolean;
   readonly kind: DriverKind;
-  /** The NPN driver, `Q1`...; null for direct drive. */
+  /** The driver transistor (an NPN, a high-side switch's PNP), `Q1`...; null for direct drive. */
   readonly transistor: string | null;
   /** The segment (its LEDs in series), `DS1`... */
   readonly display: string;
@@ -116,10 +116,19 @@ export interface DriverParts {
   readonly series: StageResistor | null;
   /** Resistor from the output line to the base; null where the base is the line itself or there is no transistor. */
   readonly base: StageResistor | null;
-  /** Resistor from base to ground of a switch; null where there is none. */
+  /** Resistor across a switch's base and emitter (to ground for the NPN, from the supply for the PNP); null where there is none. */
   readonly baseEmitter: StageResistor | null;
+  /**
+   * The output line's bleed resistor, `pullDown` ohms: to ground (role
+   * `pull-down`), or for a high-side switch to the segment supply (role
+   * `line-pull-up`), which holds the PNP off while nothing pulls the line low.
+   */
   readonly pullDown: StageResistor;
-  /** Resistor from the logic supply to the output line of a tied-on output; null when matrix-driven. */
+  /**
+   * Resistor that holds a tied-on output on: from the logic supply to its
+   * line, or for a high-side switch from its line to ground; null when
+   * matrix-driven.
+   */
   readonly tieOn: StageResistor | null;
 }
 
@@ -237,12 +246,9 @@ export function designators(
     return out;
   };
   const dr = model.driver;
-  const base = block(
-    driven,
-    () => ((kind === "low-side-switch" || kind === "emitter-follower") && dr.baseResistor > 0 ? dr.baseResistor : null),
-    "base",
-  );
-  const baseEmitter = block(driven, () => (kind === "low-side-switch" ? dr.baseEmitterResistor : null), "base-emitter");
+  const switching = kind === "low-side-switch" || kind === "high-side-switch";
+  const base = block(driven, () => ((switching || kind === "emitter-follower") && dr.baseResistor > 0 ? dr.baseResistor : null), "base");
+  const baseEmitter = block(driven, () => (switching ? dr.baseEmitterResistor : null), "base-emitter");
   const collector = block(
     driven,
     (o) => (kind === "current-sink" && sinkSeriesOhms(model, o) > 0 ? sinkSeriesOhms(model, o) : null),
@@ -250,9 +256,11 @@ export function designators(
   );
   const matrixDriven = driven.filter((o) => !tied.has(o));
   const tiedOn = driven.filter((o) => tied.has(o));
-  const pullDowns = block(matrixDriven, () => model.pullDown, "pull-down");
+  // A high-side switch's line is pulled up to the segment supply (its emitter), with the same value.
+  const bleed: PartResistorRole = kind === "high-side-switch" ? "line-pull-up" : "pull-down";
+  const pullDowns = block(matrixDriven, () => model.pullDown, bleed);
   const tieOns = block(tiedOn, () => model.counterOutput.resistance, "tie-on");
-  for (const [o, p] of block(tiedOn, () => model.pullDown, "pull-down")) pullDowns.set(o, p);
+  for (const [o, p] of block(tiedOn, () => model.pullDown, bleed)) pullDowns.set(o, p);
   const gates = matrix.gates.map((g): GateParts => ({
     gate: g.ref,
     pullUp: { ref: `${p}R${++r}`, role: "gate-pull-up", ohms: model.gatePullUp },

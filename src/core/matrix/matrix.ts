@@ -148,17 +148,33 @@ export function darkOutputs(m: Pick<DiodeMatrix, "decode" | "outputs">): string[
 }
 
 /**
- * The diodes on the dark side of a matrix: those from an active-low line
- * (`nS<k>`), from a bus such a line feeds, or into a dark-decoded output.
- * Their driving end (`from`) is the cathode; every other diode's is the anode.
+ * The diodes on the active-low side of a matrix: every diode reached from an
+ * active-low line (`nS<k>`) along the diodes (through the buses it feeds
+ * and the links of the outputs it pulls down), and every diode into a
+ * dark-decoded output. Their driving end (`from`) is the cathode; every
+ * other diode's is the anode. A dark-decoded output of an NPN driver sits
+ * on this side, and so does a lit-decoded output of a high-side switch.
  */
 export function darkSideDiodes(m: Pick<DiodeMatrix, "decode" | "outputs" | "diodes" | "buses">): ReadonlySet<string> {
   const dark = new Set(darkOutputs(m));
-  if (dark.size === 0) return new Set();
   const lowLine = (n: string): boolean => /^nS\d+$/.test(n);
-  const buses = new Set(m.buses);
-  const darkBus = new Set(m.diodes.filter((d) => buses.has(d.to) && lowLine(d.from)).map((d) => d.to));
-  return new Set(m.diodes.filter((d) => lowLine(d.from) || darkBus.has(d.from) || dark.has(d.to)).map((d) => d.ref));
+  const out = new Map<string, (typeof m.diodes)[number][]>();
+  for (const d of m.diodes) out.set(d.from, [...(out.get(d.from) ?? []), d]);
+  const side = new Set<string>();
+  const reached = new Set<string>();
+  const stack = [...new Set(m.diodes.map((d) => d.from).filter(lowLine))];
+  while (stack.length > 0) {
+    const x = stack.pop() as string;
+    for (const d of out.get(x) ?? []) {
+      side.add(d.ref);
+      if (!reached.has(d.to)) {
+        reached.add(d.to);
+        stack.push(d.to);
+      }
+    }
+  }
+  for (const d of m.diodes) if (dark.has(d.to)) side.add(d.ref);
+  return side;
 }
 
 /** Bus node name (1-based). */

@@ -30,7 +30,8 @@ export interface VerifyLimits {
 export function verifyMatrix(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyLimits): Result<VerifiedMatrix, string[]> {
   if (spec.counter.kind !== "one-hot") return verifyLogic(spec, m, limits);
   // Dark-decoded outputs, or a counter with active-low lines: both directions are walked.
-  if (spec.polarity.decode !== "lit" || m.decode !== undefined || m.inputNetwork !== undefined) return verifyPolarity(spec, m, limits);
+  if (spec.polarity.decode !== "lit" || spec.polarity.inverting || m.decode !== undefined || m.inputNetwork !== undefined)
+    return verifyPolarity(spec, m, limits);
   const errors: string[] = [];
   const states = new Set(spec.states);
   const outputs = new Set(spec.outputs);

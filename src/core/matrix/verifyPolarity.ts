@@ -8,12 +8,14 @@
  * nodes reached from it the same way (a matrix always names a diode from its
  * driving end). The verifier walks both from every state and checks:
  * a lit-decoded output is raised exactly in the states that light it, a
- * dark-decoded one pulled down exactly in the states that leave it dark,
+ * dark-decoded one pulled down exactly in the states that leave it dark
+ * (with a high-side switch, on while its node is low, a lit-decoded output
+ * is pulled down exactly in the states that light it: `outputSide`),
  * neither side reaches the other's outputs, no diode joins the two sides,
  * the graph has no loop, every path keeps the depth limit and policy, and
  * the input networks and the bound agree with the decode.
  */
-import type { DecodeSpec, OutputPolarity } from "../spec/decodeSpec.ts";
+import { outputSide, type DecodeSpec, type LineSide, type OutputPolarity } from "../spec/decodeSpec.ts";
 import type { DiodeMatrix, VerifiedMatrix } from "./matrix.ts";
 import { matrixObjective } from "./matrix.ts";
 import { fail, ok, type Result } from "../result/result.ts";
@@ -77,11 +79,15 @@ export function verifyPolarity(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyL
   for (const t of spec.tiedOn) if (indeg.get(t) || out.get(t)?.length) say(`tied-on output ${t} has diodes`);
   if (errors.length > 0) return fail(errors);
 
-  // Sides: a line's by its level, an output's by its decode, a bus's from its neighbours.
-  const side = new Map<string, OutputPolarity>();
-  for (const l of high) side.set(l, "lit");
-  for (const l of low) side.set(l, "dark");
-  for (const [o, d] of decodeOf) side.set(o, d);
+  // Sides: a line's by its level, an output's by its decode and the driver, a bus's from its neighbours.
+  const inverting = spec.polarity.inverting;
+  const sideOf = (o: string): LineSide => outputSide(decodeOf.get(o) ?? "lit", inverting);
+  // Named as the decode names them where the driver is on while its node is high, else by the lines.
+  const sideWord = (x: LineSide): string => (inverting ? (x === "high" ? "active-high" : "active-low") : x === "high" ? "lit" : "dark");
+  const side = new Map<string, LineSide>();
+  for (const l of high) side.set(l, "high");
+  for (const l of low) side.set(l, "low");
+  for (const o of decodeOf.keys()) side.set(o, sideOf(o));
   for (let round = 0; round <= m.buses.length; round++) {
     let changed = false;
     for (const d of m.diodes) {
@@ -98,7 +104,9 @@ export function verifyPolarity(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyL
     const a = side.get(d.from);
     const b = side.get(d.to);
     if (a !== undefined && b !== undefined && a !== b)
-      say(`${d.ref} joins the ${a} side (${d.from}) to the ${b} side (${d.to}); the two sides share no diode, bus or link`);
+      say(
+        `${d.ref} joins the ${sideWord(a)} side (${d.from}) to the ${sideWord(b)} side (${d.to}); the two sides share no diode, bus or link`,
+      );
   }
 
   // An order in which every diode runs forward; a leftover node means a loop.
@@ -126,34 +134,41 @@ export function verifyPolarity(spec: DecodeSpec, m: DiodeMatrix, limits: VerifyL
     return reached;
   };
   const polarity = (o: string): OutputPolarity => decodeOf.get(o) ?? "lit";
+  /** True when output j of state row `row` has a cell of the output's polarity (the cells its diodes decode). */
+  const decoded = (row: readonly boolean[], o: string, j: number): boolean => (polarity(o) === "lit" ? row[j] === true : row[j] !== true);
+  const across = (r: ReadonlySet<string>, x: LineSide): string[] => spec.outputs.filter((o) => sideOf(o) !== x && r.has(o));
   spec.states.forEach((s, k) => {
     const row = spec.lit[k] ?? [];
     const text = spec.texts[k];
     const hi = spec.polarity.activeHigh[k];
     if (hi !== undefined) {
       const r = reach(hi);
-      const missing = spec.outputs.filter((o, j) => polarity(o) === "lit" && row[j] && !r.has(o));
-      const extra = spec.outputs.filter((o, j) => polarity(o) === "lit" && !row[j] && r.has(o));
-      const across = spec.outputs.filter((o) => polarity(o) === "dark" && r.has(o));
+      const mine = spec.outputs.map((o, j) => [o, j] as const).filter(([o]) => sideOf(o) === "high");
+      const missing = mine.filter(([o, j]) => decoded(row, o, j) && !r.has(o)).map(([o]) => o);
+      const extra = mine.filter(([o, j]) => !decoded(row, o, j) && r.has(o)).map(([o]) => o);
+      const other = across(r, "high");
       if (missing.length > 0) say(`state ${s} ("${text}") does not raise ${missing.join(", ")} from ${hi}`);
       if (extra.length > 0) say(`state ${s} ("${text}") also raises ${extra.join(", ")} from ${hi} through a sneak path`);
-      if (across.length > 0) say(`${hi} reaches the dark-decoded ${across.join(", ")}`);
+      if (other.length > 0) say(`${hi} reaches the ${inverting ? "active-low side's" : "dark-decoded"} ${other.join(", ")}`);
     }
     const lo = spec.polarity.activeLow[k];
     if (lo !== undefined) {
       const r = reach(lo);
-      const missing = spec.outputs.filter((o, j) => polarity(o) === "dark" && !row[j] && !r.has(o));
-      const extra = spec.outputs.filter((o, j) => polarity(o) === "dark" && row[j] && r.has(o));
-      const across = spec.outputs.filter((o) => polarity(o) === "lit" && r.has(o));
-      if (missing.length > 0) say(`state ${s} ("${text}") does not pull ${missing.join(", ")} down to ${lo}, so they would light`);
+      const mine = spec.outputs.map((o, j) => [o, j] as const).filter(([o]) => sideOf(o) === "low");
+      const missing = mine.filter(([o, j]) => decoded(row, o, j) && !r.has(o)).map(([o]) => o);
+      const extra = mine.filter(([o, j]) => !decoded(row, o, j) && r.has(o)).map(([o]) => o);
+      const other = across(r, "low");
+      // Pulled down, a non-inverting driver's output is dark and a high-side switch's lit.
+      const [pulled, left] = inverting ? ["light", "stay dark"] : ["stay dark", "light"];
+      if (missing.length > 0) say(`state ${s} ("${text}") does not pull ${missing.join(", ")} down to ${lo}, so they would ${left}`);
       if (extra.length > 0)
-        say(`state ${s} ("${text}") also pulls ${extra.join(", ")} down to ${lo} through a sneak path, so they would stay dark`);
-      if (across.length > 0) say(`${lo} reaches the lit-decoded ${across.join(", ")}`);
+        say(`state ${s} ("${text}") also pulls ${extra.join(", ")} down to ${lo} through a sneak path, so they would ${pulled}`);
+      if (other.length > 0) say(`${lo} reaches the ${inverting ? "active-high side's" : "lit-decoded"} ${other.join(", ")}`);
     }
   });
 
-  // The input networks follow the decode.
-  const dark = spec.outputs.filter((o) => polarity(o) === "dark").length;
+  // The input networks follow the decode (a high-side switch's node has none: its own resistors pull it up).
+  const dark = inverting ? 0 : spec.outputs.filter((o) => polarity(o) === "dark").length;
   const net = m.inputNetwork;
   if (dark > 0) {
     const per = spec.polarity.inputDiodes;

@@ -99,6 +99,11 @@ export function circuitNetlist(circuit: Circuit, title: string, notes: readonly 
         body.push(`${spiceName("Q", el.name)} ${el.collector} ${el.base} ${el.emitter} ${m}`);
         break;
       }
+      case "pnp": {
+        const m = modelOf("QHSW", `PNP (IS=${num(el.isA)} BF=${num(el.betaF)} BR=${num(el.betaR)})`);
+        body.push(`${spiceName("Q", el.name)} ${el.collector} ${el.base} ${el.emitter} ${m}`);
+        break;
+      }
     }
   }
   for (const [card, name] of models) lines.push(`.model ${name} ${card}`);

@@ -15,6 +15,7 @@ export type PartKind =
   | "base-resistor"
   | "base-emitter-resistor"
   | "pull-down"
+  | "line-pull-up"
   | "tie-on-resistor"
   | "gate-pull-up"
   | "dark-pull-up"
@@ -35,7 +36,7 @@ export interface PartGroup {
  * Groups the parts: matrix diodes; the dark-decoded outputs' level-shift
  * diodes; drivers (none for direct drive); then the resistors role by
  * role, one group per value, lowest first: emitter, series, base,
- * base-emitter, pull-downs, tie-on, a coded counter's gate pull-ups, the
+ * base-emitter, pull-downs (a high-side switch's line pull-ups), tie-on, a coded counter's gate pull-ups, the
  * dark-decoded outputs' pull-ups and dividers; then the segments. Every
  * driven or tied-on output has the parts of its driver kind, a pull-down on
  * its line and a segment; a tied-on output also a tie-on resistor.
@@ -78,6 +79,7 @@ export function countParts(parts: Designators): PartGroup[] {
   resistors("base", "base-resistor");
   resistors("base-emitter", "base-emitter-resistor");
   resistors("pull-down", "pull-down");
+  resistors("line-pull-up", "line-pull-up");
   resistors("tie-on", "tie-on-resistor");
   resistors("gate-pull-up", "gate-pull-up");
   resistors("pull-up", "dark-pull-up");

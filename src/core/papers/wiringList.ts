@@ -61,11 +61,19 @@ export function wiringRows(matrix: DiodeMatrix, placements?: ReadonlyMap<string,
 /** The net tied-on outputs hang from: the logic supply, as the drawing and the SPICE decks name it. */
 export const LOGIC_SUPPLY_NET = "VLOGIC";
 
-/** A tied-on output's tie-on resistor, from the logic supply's net to the output line. */
+/** The ground net, as the drawing names it. */
+export const GROUND_NET = "GND";
+
+/**
+ * A tied-on output's tie-on resistor: from the logic supply's net to the
+ * output line, or, for a high-side switch (on while its line is low), from
+ * the output line to ground.
+ */
 export interface TieOnRow {
   readonly ref: string;
-  readonly from: typeof LOGIC_SUPPLY_NET;
-  /** The output line. */
+  /** The logic supply's net, or the output line of a high-side switch. */
+  readonly from: string;
+  /** The output line, or the ground net for a high-side switch. */
   readonly to: string;
   /** Ohms. */
   readonly ohms: number;
@@ -78,11 +86,16 @@ export interface TieOnRow {
  * tieOnRows(designators(spec, matrix, e).drivers); // [{ ref: "R16", from: "VLOGIC", to: "2b", ohms: 470 }]
  */
 export function tieOnRows(drivers: readonly DriverParts[]): TieOnRow[] {
-  return drivers.flatMap((d) => (d.tieOn ? [{ ref: d.tieOn.ref, from: LOGIC_SUPPLY_NET, to: d.output, ohms: d.tieOn.ohms }] : []));
+  return drivers.flatMap((d) => {
+    if (!d.tieOn) return [];
+    const low = d.kind === "high-side-switch";
+    return [{ ref: d.tieOn.ref, from: low ? d.output : LOGIC_SUPPLY_NET, to: low ? GROUND_NET : d.output, ohms: d.tieOn.ohms }];
+  });
 }
 
 /** The heading of the tie-on rows in the CSV and the printed lists. */
-export const TIE_ON_HEADING = "Tied-on outputs (no diodes): each tie-on resistor from the logic supply net VLOGIC to the output line";
+export const TIE_ON_HEADING =
+  "Tied-on outputs (no diodes): each tie-on resistor from the logic supply net VLOGIC to the output line (a high-side switch's from the output line to GND)";
 
 /**
  * A part between a dark-decoded output's node and its driver: its pull-up

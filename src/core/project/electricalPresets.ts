@@ -3,7 +3,7 @@
  * `electrical.preset` names, and the format-1 defaults a migrated file keeps.
  *
  * Every value is ours, from common practice and datasheet-typical parts
- * (a general-purpose small-signal NPN, a small-signal silicon switching
+ * (a general-purpose small-signal NPN and PNP, a small-signal silicon switching
  * diode, red and InGaN LED dies); docs/electrical-model.md states each with
  * its source (docs/sources.md) or marks it as common practice. None is one
  * particular build's numbers.
@@ -24,6 +24,8 @@ const INGAN_DIE = { is: 1e-27, n: 2, rs: 0 } as const;
 const MATRIX_DIODE = { is: 4e-9, n: 1.9, rs: 0, maxForwardA: 0.1, maxReverseV: 75 } as const;
 /** A general-purpose small-signal NPN (40 V, 0.5 W, 100 mA; hFE 100-300 at 10 mA). */
 const SMALL_NPN = { is: 1e-14, betaF: 150, betaR: 3, maxVceV: 40, maxPowerW: 0.5, maxCollectorA: 0.1 } as const;
+/** The same class of part as a PNP (40 V, 0.5 W, 100 mA; hFE 100-300 at 10 mA). */
+const SMALL_PNP = { is: 1e-14, betaF: 150, betaR: 3, maxVceV: 40, maxPowerW: 0.5, maxCollectorA: 0.1 } as const;
 /** A regulated 5 V rail, ±5 %. */
 const RAIL_5V = { volts: 5, minVolts: 4.75, maxVolts: 5.25 } as const;
 /**
@@ -111,6 +113,23 @@ export const ELECTRICAL_PRESETS: Readonly<Record<PresetName, ElectricalModel>> =
     segment: { leds: 1, ...RED_LED, seriesResistor: 110, seriesResistors: {}, targetA: 0.01, maxA: 0.02 },
     supply: RAIL_5V,
   },
+  "bench-5v-high-side": {
+    ...base,
+    preset: "bench-5v-high-side",
+    // Each line's pull-up to the segment supply, with Rbe holding the PNP off.
+    pullDown: 100_000,
+    driver: {
+      ...SMALL_PNP,
+      kind: "high-side-switch",
+      emitterResistor: 220,
+      emitterResistors: {},
+      // Seven lit segments' base currents stay within the active-low line's 5 mA.
+      baseResistor: 6800,
+      baseEmitterResistor: 10_000,
+    },
+    segment: { leds: 1, ...RED_LED, seriesResistor: 300, seriesResistors: {}, targetA: 0.01, maxA: 0.02 },
+    supply: RAIL_5V,
+  },
   "line-direct": {
     ...base,
     preset: "line-direct",
@@ -159,6 +178,10 @@ export const PRESET_INFO: readonly PresetInfo[] = [
   { name: "bench-5v-switch", label: "5 V common-anode display, one red LED per segment at 10 mA, low-side NPN switches" },
   { name: "panel-12v-sink", label: "12 V display, three red LEDs per segment at 15 mA, NPN constant-current sinks" },
   { name: "cathode-5v-follower", label: "5 V common-cathode display, one red LED per segment at 10 mA, NPN emitter followers" },
+  {
+    name: "bench-5v-high-side",
+    label: "5 V common-cathode display on active-low counter lines, one red LED per segment at 10 mA, PNP high-side switches",
+  },
   { name: "line-direct", label: "5 V display driven straight from the counter lines, one red LED per segment at 2 mA" },
   { name: "string-hv-sink", label: "80 V display of 22-die LED strings at 1 mA, high-voltage NPN sinks (hazardous voltage)" },
 ];

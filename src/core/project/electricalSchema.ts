@@ -26,7 +26,7 @@ import { fieldPath } from "./valueText.ts";
 /** The values a project without an `electrical` section gets: the default preset's. */
 export const ELECTRICAL_DEFAULTS: ElectricalModel = ELECTRICAL_PRESETS[DEFAULT_PRESET];
 
-export const DRIVER_KINDS: readonly DriverKind[] = ["current-sink", "low-side-switch", "emitter-follower", "direct"];
+export const DRIVER_KINDS: readonly DriverKind[] = ["current-sink", "low-side-switch", "emitter-follower", "high-side-switch", "direct"];
 
 /** A number rule with both ends given. */
 export type RangeRule = NumberRule & { readonly min: number; readonly max: number };
@@ -346,7 +346,7 @@ export function checkElectrical(e: ElectricalModel, cell: Cell, positions: numbe
   }
   const dropV = segmentDropV(e, e.segment.targetA);
   const leds = `${e.segment.leds} LED${e.segment.leds === 1 ? "" : "s"}`;
-  if ((kind === "current-sink" || kind === "low-side-switch") && s.minVolts <= dropV) {
+  if ((kind === "current-sink" || kind === "low-side-switch" || kind === "high-side-switch") && s.minVolts <= dropV) {
     problems.push({
       path: at("supply", "minVolts"),
       message: `${s.minVolts} V is below the ${dropV.toFixed(1)} V that ${leds} drop at the target current; raise the supply or put fewer LEDs in each segment (segment.leds)`,
@@ -371,10 +371,16 @@ export function checkElectrical(e: ElectricalModel, cell: Cell, positions: numbe
       message: `got ${e.segment.seriesResistor}; a ${kind} segment needs a series resistor (above 0 Ω) to set its current`,
     });
   }
-  if (kind === "low-side-switch" && e.driver.baseResistor <= 0) {
+  if ((kind === "low-side-switch" || kind === "high-side-switch") && e.driver.baseResistor <= 0) {
     problems.push({
       path: at("driver", "baseResistor"),
       message: `got ${e.driver.baseResistor}; a switch needs a base resistor (above 0 Ω) to set its base current`,
+    });
+  }
+  if (kind === "high-side-switch" && e.driver.baseEmitterResistor === null) {
+    problems.push({
+      path: at("driver", "baseEmitterResistor"),
+      message: `got null; a high-side switch needs a base-emitter resistor (from the segment supply to the base, e.g. 10000 Ω) to hold the PNP off while its node is not pulled low`,
     });
   }
   if (co.high <= co.low) {

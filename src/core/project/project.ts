@@ -193,12 +193,17 @@ export interface DiodeModel {
  * - `emitter-follower`: NPN, collector on the supply, base on the line
  *   (through a base resistor if given), the series resistor and the segment
  *   from the emitter to ground (a common-cathode display);
+ * - `high-side-switch`: PNP switch, emitter on the supply, base resistor
+ *   from the line (a base-emitter resistor from the supply holds it off),
+ *   the series resistor and the segment from the collector to ground (a
+ *   common-cathode display); on while its line is pulled low, so its lit
+ *   cells are decoded onto the active-low lines `nS<k>`;
  * - `direct`: no transistor; the line drives the segment through its
  *   series resistor, the other end at ground.
  */
-export type DriverKind = "current-sink" | "low-side-switch" | "emitter-follower" | "direct";
+export type DriverKind = "current-sink" | "low-side-switch" | "emitter-follower" | "high-side-switch" | "direct";
 
-/** NPN segment driver: Ebers-Moll transport model with IS, BF, BR, its resistors and ratings. */
+/** Segment driver: Ebers-Moll transport model with IS, BF, BR (an NPN, or a PNP for `high-side-switch`), its resistors and ratings. */
 export interface DriverModel {
   readonly kind: DriverKind;
   /** Transport saturation current, amperes. */
@@ -211,7 +216,7 @@ export interface DriverModel {
   readonly emitterResistors: Readonly<Record<string, number>>;
   /** Base resistor of a switch (required) or a follower (0 = base joined to the line), ohms. */
   readonly baseResistor: number;
-  /** Resistor from base to ground of a switch, ohms; null = none. */
+  /** Resistor across a switch's base and emitter (to ground for the NPN, to the supply for the PNP), ohms; null = none (a PNP needs one). */
   readonly baseEmitterResistor: number | null;
   /** Rated collector-emitter voltage, volts. */
   readonly maxVceV: number;
@@ -261,7 +266,8 @@ export interface ToleranceModel {
 }
 
 /** The names of the electrical presets (electricalPresets.ts). */
-export type PresetName = "bench-5v-switch" | "panel-12v-sink" | "cathode-5v-follower" | "line-direct" | "string-hv-sink";
+export type PresetName =
+  "bench-5v-switch" | "panel-12v-sink" | "cathode-5v-follower" | "bench-5v-high-side" | "line-direct" | "string-hv-sink";
 
 export interface ElectricalModel {
   /**

@@ -234,7 +234,7 @@ function complete(p: LooseProject, e: ElectricalModel, format1: boolean): Result
       path: "counter.drive",
       message: `got "${p.counter.drive}"; format 1 knows only "source" drive; use "schema": "${PROJECT_SCHEMA}" for active-low lines`,
     });
-  } else if (counter !== undefined) checkPolarity(counter, synthesis, e.driver.kind, problems);
+  } else if (counter !== undefined) checkPolarity(counter, synthesis, e, problems);
   const electrical: Problem[] = [];
   checkElectrical(e, cell, p.display.positions, electrical);
   problems.push(...(format1 ? electrical.map(inFormat1) : electrical));

@@ -11,8 +11,35 @@ import { splitText } from "../project/projectSchema.ts";
 import { counterCode, stageLines, type CounterCode } from "./counterCode.ts";
 import { levelShift, type LevelShift } from "./levelShift.ts";
 
-/** The polarity one output is decoded in: its lit cells from active-high lines, or its dark cells onto active-low ones. */
+/**
+ * The polarity one output is decoded in: its lit cells or its dark cells.
+ * Which lines take them follows from the driver: a driver that turns on when
+ * its node is high (the NPN kinds, direct drive) takes lit cells from the
+ * active-high lines and dark cells onto the active-low ones; the high-side
+ * switch, on when its node is low, takes lit cells onto the active-low lines
+ * (see `outputSide`).
+ */
 export type OutputPolarity = "lit" | "dark";
+
+/**
+ * The lines an output's diodes meet: `high`, the active-high lines `S<k>`
+ * (anode at the line, the node raised in their states), or `low`, the
+ * active-low lines `nS<k>` (cathode at the line, the node pulled down).
+ */
+export type LineSide = "high" | "low";
+
+/**
+ * The side an output decoded in `polarity` sits on: lit cells raise a
+ * non-inverting driver's node, dark cells pull it down; an inverting
+ * driver (on when its node is low) the other way round.
+ *
+ * @example
+ * outputSide("lit", false); // "high"
+ * outputSide("lit", true);  // "low": a high-side switch's lit cells pull its node down
+ */
+export function outputSide(polarity: OutputPolarity, inverting: boolean): LineSide {
+  return (polarity === "lit") !== inverting ? "high" : "low";
+}
 
 /**
  * What the decode polarity needs from the spec: the counter's active-low
@@ -26,6 +53,12 @@ export interface SpecPolarity {
   readonly activeHigh: readonly string[];
   /** The active-low state lines `nS<k>` the counter offers; empty for source drive. */
   readonly activeLow: readonly string[];
+  /**
+   * True when the driver turns on while its node is pulled low (the
+   * high-side switch): lit cells are then decoded onto the active-low lines
+   * and need no input network (the driver's own resistors pull the node up).
+   */
+  readonly inverting: boolean;
   /** Per output (as `outputs`), the polarities it may be decoded in. */
   readonly allowed: readonly (readonly OutputPolarity[])[];
   /** `dark[k][j]`: state k leaves `outputs[j]` dark (the complement of `lit`). */
@@ -136,17 +169,20 @@ function specPolarity(project: Project, lit: readonly (readonly boolean[])[]): S
   const m = lit[0]?.length ?? 0;
   const pulledPerLine = Math.max(1, ...dark.map((row) => row.filter(Boolean).length));
   const shift = levelShift(project.electrical, depthLimit, pulledPerLine);
-  const allowed: readonly OutputPolarity[] = decode === "either" ? ["lit", "dark"] : [decode];
+  const inverting = project.electrical.driver.kind === "high-side-switch";
+  // A high-side switch takes lit cells only (polaritySchema.ts): `either` leaves it the one choice.
+  const allowed: readonly OutputPolarity[] = inverting ? ["lit"] : decode === "either" ? ["lit", "dark"] : [decode];
   return {
     drive,
     decode,
     activeHigh: !oneHot || drive !== "sink" ? Array.from({ length: n }, (_, k) => stateName(k)) : [],
     activeLow: oneHot && drive !== "source" ? Array.from({ length: n }, (_, k) => activeLowName(k)) : [],
+    inverting,
     allowed: Array.from({ length: m }, () => allowed),
     dark,
     darkInput,
-    inputDiodes: darkInput === "divider" ? 0 : shift.diodes,
-    inputResistors: darkInput === "divider" ? 2 : 0,
+    inputDiodes: inverting ? 0 : darkInput === "divider" ? 0 : shift.diodes,
+    inputResistors: inverting ? 0 : darkInput === "divider" ? 2 : 0,
     levelShift: shift,
   };
 }
@@ -162,6 +198,7 @@ export function litPolarity(lit: readonly (readonly boolean[])[], states: readon
     decode: "lit",
     activeHigh: states,
     activeLow: [],
+    inverting: false,
     allowed: Array.from({ length: m }, () => ["lit"] as const),
     dark: lit.map((row) => row.map((x) => !x)),
     darkInput: "level-shift",

@@ -63,7 +63,10 @@ export async function synthesizePolarity(
   const rules: SharingRules = { depthLimit: settings.depthLimit, policy: settings.policy, buses: settings.buses, links: settings.links };
   const m = spec.outputs.length;
   const cost = (c: ChosenPlan): number => planCount(c.plan) + per * c.choice.filter((x) => x === "dark").length;
-  const fixed: OutputPolarity | null = pol.decode === "dark" ? "dark" : pol.decode === "lit" ? "lit" : null;
+  // One polarity where the spec allows one (a high-side switch's `either` is lit).
+  const allowedAll = new Set(pol.allowed.flat());
+  const only = allowedAll.size === 1 ? ([...allowedAll][0] as OutputPolarity) : null;
+  const fixed: OutputPolarity | null = pol.decode === "dark" ? "dark" : pol.decode === "lit" ? "lit" : only;
   const sharing = m > 0 && settings.depthLimit >= 2 && (settings.buses || (settings.links && settings.policy !== "uniform"));
 
   const started = Date.now();
@@ -226,7 +229,8 @@ export function polarityMatrix(
   const pol = spec.polarity;
   // buildMatrix orders diodes from the lines it is given: every line, so none is taken for a bus.
   const view: DecodeSpec = { ...spec, states: [...spec.states.map((_, k) => `S${k}`), ...spec.states.map((_, k) => `nS${k}`)] };
-  const dark = chosen.choice.filter((x) => x === "dark").length;
+  // A high-side switch's node needs no input network: its own resistors pull it up.
+  const dark = pol.inverting ? 0 : chosen.choice.filter((x) => x === "dark").length;
   const inputNetwork: InputNetwork | undefined =
     dark > 0
       ? { kind: pol.darkInput, outputs: dark, diodes: (pol.inputDiodes ?? 0) * dark, resistors: pol.inputResistors * dark }

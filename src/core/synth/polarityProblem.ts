@@ -14,7 +14,8 @@
  * For a chosen polarity per output the whole decoder is one problem with
  * 2N rows: rows 0..N-1 are the active-high lines `S<k>`, rows N..2N-1 the
  * active-low lines `nS<k>`; an output's column holds its lit cells in the
- * first half or its dark cells in the second. A bus or a link between the
+ * first half or its dark cells in the second (a high-side switch, on while
+ * its node is low, turns that round: its lit cells in the second half). A bus or a link between the
  * two halves is never exact (no row lights both), so the two sides share
  * none by construction.
  *
@@ -23,7 +24,7 @@
  */
 import type { Edge } from "../matrix/matrix.ts";
 import type { DecodeSpec, OutputPolarity } from "../spec/decodeSpec.ts";
-import { activeLowName, stateName } from "../spec/decodeSpec.ts";
+import { activeLowName, outputSide, stateName } from "../spec/decodeSpec.ts";
 import { problemFromLit, type SharingPlan, type SharingProblem } from "./plan.ts";
 
 /** Per output (as `spec.outputs`), its display position (0-based). */
@@ -43,12 +44,24 @@ export function outputGroups(spec: DecodeSpec): number[] {
 export function choiceProblem(spec: DecodeSpec, choice: readonly OutputPolarity[]): SharingProblem {
   const n = spec.states.length;
   const rows: boolean[][] = [];
-  for (let k = 0; k < 2 * n; k++) {
-    const dark = k >= n;
-    const s = dark ? k - n : k;
-    rows.push(spec.outputs.map((_, o) => choice[o] === (dark ? "dark" : "lit") && (dark ? !spec.lit[s]?.[o] : spec.lit[s]?.[o] === true)));
-  }
+  for (let k = 0; k < 2 * n; k++) rows.push(spec.outputs.map((_, o) => inRow(spec, k, o, choice[o] ?? "lit")));
   return problemFromLit(rows, { group: outputGroups(spec) });
+}
+
+/**
+ * True when row `k` of a 2N-row problem holds output `o` decoded in
+ * `polarity`: the row's half is the output's side (`outputSide`: the
+ * active-low half for dark cells of a driver on while its node is high, or
+ * for lit cells of one on while it is low), and the state's cell is of that
+ * polarity.
+ */
+function inRow(spec: DecodeSpec, k: number, o: number, polarity: OutputPolarity): boolean {
+  const n = spec.states.length;
+  const low = k >= n;
+  const s = low ? k - n : k;
+  if ((outputSide(polarity, spec.polarity.inverting) === "low") !== low) return false;
+  const lit = spec.lit[s]?.[o] === true;
+  return polarity === "lit" ? lit : !lit;
 }
 
 /** Both polarities side by side: 2N rows as `choiceProblem`, column o the lit cells of output o, column M+o its dark cells. */
@@ -57,14 +70,8 @@ export function bothProblem(spec: DecodeSpec): SharingProblem {
   const m = spec.outputs.length;
   const rows: boolean[][] = [];
   for (let k = 0; k < 2 * n; k++) {
-    const dark = k >= n;
-    const s = dark ? k - n : k;
     const row: boolean[] = [];
-    for (let c = 0; c < 2 * m; c++) {
-      const o = c % m;
-      const darkColumn = c >= m;
-      row.push(darkColumn === dark && (dark ? !spec.lit[s]?.[o] : spec.lit[s]?.[o] === true));
-    }
+    for (let c = 0; c < 2 * m; c++) row.push(inRow(spec, k, c % m, c >= m ? "dark" : "lit"));
     rows.push(row);
   }
   const g = outputGroups(spec);

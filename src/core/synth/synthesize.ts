@@ -82,7 +82,8 @@ export async function synthesize(
   const limits = checkLimits(settings);
   if (limits) return fail(limits);
   // Dark-decoded outputs: the same engines on the dark cells, with the input network counted (polarity.ts).
-  if (spec.polarity.decode !== "lit") return synthesizePolarity(spec, settings, hooks);
+  // A high-side switch's lit cells sit on the active-low lines: the same path.
+  if (spec.polarity.decode !== "lit" || spec.polarity.inverting) return synthesizePolarity(spec, settings, hooks);
   const p = sharingProblem(spec);
   const lit = litCount(p);
   const rules: SharingRules = { depthLimit: settings.depthLimit, policy: settings.policy, buses: settings.buses, links: settings.links };

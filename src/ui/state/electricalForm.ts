@@ -154,6 +154,7 @@ export const KIND_NAMES: Readonly<Record<DriverKind, string>> = {
   "low-side-switch": "low-side NPN switch (common anode)",
   "current-sink": "NPN constant-current sink",
   "emitter-follower": "NPN emitter follower (common cathode)",
+  "high-side-switch": "high-side PNP switch (common cathode, active-low lines)",
   direct: "direct from the counter lines",
 };
 

@@ -28,6 +28,7 @@ const RESISTOR_KINDS = new Set([
   "base-resistor",
   "base-emitter-resistor",
   "pull-down",
+  "line-pull-up",
   "tie-on-resistor",
   "gate-pull-up",
   "dark-pull-up",

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { criticalVoltage, diodeJunction, limitJunction, npnTransport } from "../../../../src/core/circuit/deviceModels.ts";
+import { criticalVoltage, diodeJunction, limitJunction, npnTransport, pnpTransport } from "../../../../src/core/circuit/deviceModels.ts";
 import { thermalVoltage } from "../../../../src/core/circuit/physics.ts";
 
 const VT = thermalVoltage(27);
@@ -39,6 +39,21 @@ describe("device models", () => {
       close(g.dIcVbc, d(ic, 1));
       close(g.dIbVbe, d(ib, 0));
       close(g.dIbVbc, d(ib, 1));
+    }
+  });
+
+  it("the PNP is the NPN mirrored: the same equations at Veb and Vcb, currents out of the collector and base", () => {
+    const p = { isA: 1e-14, betaF: 150, betaR: 3 };
+    for (const [veb, vcb] of [
+      [0.65, -4],
+      [0.72, 0.5],
+      [-1, -1],
+    ] as const) {
+      const q = pnpTransport(veb, vcb, p, VT, 1e-12);
+      const ebe = Math.exp(veb / VT);
+      const ebc = Math.exp(vcb / VT);
+      expect(q.icA).toBeCloseTo(1e-14 * (ebe - ebc) - (1e-14 / 3) * (ebc - 1) - 1e-12 * vcb, 18);
+      expect(q.ibA).toBeCloseTo((1e-14 / 150) * (ebe - 1) + (1e-14 / 3) * (ebc - 1) + 1e-12 * (veb + vcb), 18);
     }
   });
 

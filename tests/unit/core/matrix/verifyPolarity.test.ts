@@ -165,3 +165,54 @@ describe("verifyPolarity: both directions", () => {
     expect(!v.ok && v.error).toContain("lower bound 7 exceeds the diodes counted, 6");
   });
 });
+
+describe("verifyPolarity: a high-side switch, on while its node is pulled low", () => {
+  /** The spec of a high-side switch: lit cells decoded onto the active-low lines, no input network. */
+  const highSide = () => {
+    const s = polaritySpec(LIT, "lit", 0);
+    return { ...s, polarity: { ...s.polarity, inverting: true, allowed: s.outputs.map(() => ["lit"] as const) } };
+  };
+  const LIT_ON_LOW = [
+    ["nS0", "1o0"],
+    ["nS2", "1o0"],
+    ["nS1", "1o1"],
+    ["nS2", "1o1"],
+  ] as const;
+
+  it("proves lit cells pulled down to the active-low line of each state that lights them", () => {
+    const spec = highSide();
+    const v = verifyMatrix(spec, matrix(spec, LIT_ON_LOW, { "1o0": "lit", "1o1": "lit" }), LIMITS);
+    expect(v.ok ? [] : v.error).toEqual([]);
+  });
+
+  it("finds a lit cell left unpulled (the segment would stay dark) and a sneak pull (it would light)", () => {
+    const spec = highSide();
+    const missing = verifyMatrix(spec, matrix(spec, LIT_ON_LOW.slice(1), { "1o0": "lit", "1o1": "lit" }), LIMITS);
+    expect(!missing.ok && missing.error).toContain('state S0 ("t0") does not pull 1o0 down to nS0, so they would stay dark');
+    const sneak = verifyMatrix(spec, matrix(spec, [...LIT_ON_LOW, ["nS1", "1o0"]], { "1o0": "lit", "1o1": "lit" }), LIMITS);
+    expect(!sneak.ok && sneak.error).toContain('state S1 ("t1") also pulls 1o0 down to nS1 through a sneak path, so they would light');
+  });
+
+  it("refuses lit cells raised from the active-high lines, and an input network, for a high-side switch", () => {
+    const spec = highSide();
+    const raised = verifyMatrix(
+      spec,
+      matrix(spec, [["S0", "1o0"], ["S2", "1o0"], ...LIT_ON_LOW.slice(2)], { "1o0": "lit", "1o1": "lit" }),
+      LIMITS,
+    );
+    expect(raised.ok).toBe(false);
+    if (!raised.ok)
+      expect(raised.error.some((e) => e.startsWith("D1 joins the active-high side (S0) to the active-low side (1o0)"))).toBe(true);
+    const networked = verifyMatrix(
+      spec,
+      matrix(
+        spec,
+        LIT_ON_LOW,
+        { "1o0": "lit", "1o1": "lit" },
+        { inputNetwork: { kind: "level-shift", outputs: 2, diodes: 4, resistors: 0 } },
+      ),
+      LIMITS,
+    );
+    expect(!networked.ok && networked.error).toContain("no output is decoded dark, yet the matrix lists an input network");
+  });
+});

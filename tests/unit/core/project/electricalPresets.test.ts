@@ -31,14 +31,24 @@ describe("presets", () => {
     expect(v2({}).ok && (v2({}) as { value: { electrical: unknown } }).value.electrical).toEqual(ELECTRICAL_PRESETS["bench-5v-switch"]);
   });
 
-  it("names five, one per purpose the issue lists, each a valid, coherent set on every example", () => {
-    expect(PRESET_NAMES).toEqual(["bench-5v-switch", "panel-12v-sink", "cathode-5v-follower", "line-direct", "string-hv-sink"]);
+  it("names six, one per purpose, each a valid, coherent set on every example (the high-side one on its active-low lines)", () => {
+    expect(PRESET_NAMES).toEqual([
+      "bench-5v-switch",
+      "panel-12v-sink",
+      "cathode-5v-follower",
+      "bench-5v-high-side",
+      "line-direct",
+      "string-hv-sink",
+    ]);
     expect(PRESET_INFO.every((p) => p.label.length > 20)).toBe(true);
     const kinds = PRESET_NAMES.map((n) => ELECTRICAL_PRESETS[n].driver.kind);
-    expect(new Set(kinds)).toEqual(new Set(["low-side-switch", "current-sink", "emitter-follower", "direct"]));
+    expect(new Set(kinds)).toEqual(new Set(["low-side-switch", "current-sink", "emitter-follower", "high-side-switch", "direct"]));
     for (const name of EXAMPLES) {
       for (const preset of PRESET_NAMES) {
-        const doc = { ...JSON.parse(exampleText(name)), electrical: { preset } };
+        const json = JSON.parse(exampleText(name));
+        // A high-side switch turns on when its line is pulled low: a sink-drive counter.
+        const counter = preset === "bench-5v-high-side" ? { ...json.counter, drive: "sink" } : json.counter;
+        const doc = { ...json, counter, electrical: { preset } };
         const r = validateProject(doc);
         expect(r.ok, `${name} with ${preset}: ${JSON.stringify(problems(r))}`).toBe(true);
       }
@@ -85,7 +95,7 @@ describe("presets", () => {
     expect(problems(v2({ preset: "nixie" }))[0]?.path).toBe("electrical.preset");
     expect(problems(v2({ preset: "nixie" }))[0]?.message).toMatch(/must be one of "bench-5v-switch"/);
     expect(problems(v2({ driver: { kind: "darlington" } }))[0]?.message).toMatch(
-      /"current-sink", "low-side-switch", "emitter-follower", "direct"/,
+      /"current-sink", "low-side-switch", "emitter-follower", "high-side-switch", "direct"/,
     );
   });
 });

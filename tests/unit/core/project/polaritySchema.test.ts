@@ -54,13 +54,61 @@ describe("counter.drive and synthesis.decode", () => {
     expect(problems(file({}, { decode: "either" }))[0]?.path).toBe("synthesis.decode");
   });
 
-  it("refuses lit cells on active-low lines alone: that needs a PNP high-side switch", () => {
+  it("refuses lit cells on active-low lines alone with an NPN driver, naming the high-side switch", () => {
     for (const decode of ["lit", "either"]) {
       const [p] = problems(file({ drive: "sink" }, { decode }));
       expect(p?.path).toBe("synthesis.decode");
-      expect(p?.message).toContain("PNP high-side switch");
+      expect(p?.message).toContain('"high-side-switch"');
       expect(p?.message).toContain('"counter.drive": "complementary"');
     }
+  });
+
+  it("takes lit cells on active-low lines with a high-side switch (sink or complementary drive, lit or either)", () => {
+    for (const [drive, decode] of [
+      ["sink", "lit"],
+      ["sink", "either"],
+      ["complementary", "lit"],
+      ["complementary", "either"],
+    ] as const) {
+      const r = parseProject(file({ drive }, { decode }, { preset: "bench-5v-high-side" }));
+      expect(r.ok, `${drive}/${decode}: ${JSON.stringify(r.ok ? [] : r.error)}`).toBe(true);
+    }
+  });
+
+  it("refuses a high-side switch on a source-drive counter, a coded counter, or dark cells, saying what to change", () => {
+    const source = problems(file({ drive: "source" }, { decode: "lit" }, { preset: "bench-5v-high-side" }));
+    expect(source.map((p) => p.path)).toEqual(["counter.drive"]);
+    expect(source[0]?.message).toContain('set counter.drive to "sink" or "complementary"');
+    const coded = problems(file({ code: "binary" }, { decode: "lit" }, { preset: "bench-5v-high-side" }));
+    expect(coded.map((p) => p.path)).toEqual(["electrical.driver.kind"]);
+    expect(coded[0]?.message).toContain("AND gates");
+    const dark = problems(file({ drive: "complementary" }, { decode: "dark" }, { preset: "bench-5v-high-side" }));
+    expect(dark.map((p) => p.path)).toEqual(["synthesis.decode"]);
+    expect(dark[0]?.message).toContain('use "decode": "lit"');
+  });
+
+  it("refuses a high-side switch whose supply the idle lines cannot hold off, naming the supply and the levels", () => {
+    // The 5 V preset: a 5.25 V supply over lines idling at 5 V is held off (the diode takes the difference).
+    expect(problems(file({ drive: "sink" }, { decode: "lit" }, { preset: "bench-5v-high-side" }))).toEqual([]);
+    // A 12 V segment supply over 5 V lines: the node sits a diode drop above an idle line, the PNP fully on.
+    const twelve = {
+      preset: "bench-5v-high-side",
+      supply: { volts: 12, minVolts: 11.4, maxVolts: 12.6 },
+      segment: { seriesResistor: 1000 },
+    };
+    const [p] = problems(file({ drive: "sink" }, { decode: "lit" }, twelve));
+    expect(p?.path).toBe("electrical.supply.maxVolts");
+    expect(p?.message).toMatch(/^got 12\.6 V with the idle nS lines at 5 V \(lowLine\.high\)/);
+    expect(p?.message).toContain("lower the segment supply");
+    // The same supply with the counter run from it holds.
+    expect(problems(file({ drive: "sink" }, { decode: "lit" }, { ...twelve, lowLine: { high: 12.6 } }))).toEqual([]);
+  });
+
+  it("needs a high-side switch's base-emitter resistor", () => {
+    const [p] = problems(
+      file({ drive: "sink" }, { decode: "lit" }, { preset: "bench-5v-high-side", driver: { baseEmitterResistor: null } }),
+    );
+    expect(p?.path).toBe("electrical.driver.baseEmitterResistor");
   });
 
   it("refuses dark decode of a coded counter and a sink drive on one", () => {

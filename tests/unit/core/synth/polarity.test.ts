@@ -70,3 +70,40 @@ describe("synthesize with dark-decoded outputs: the reference figures", () => {
     expect(either.inputNetwork).toEqual({ kind: "level-shift", outputs: darkOutputs, diodes: 2 * darkOutputs, resistors: 0 });
   }, 60_000);
 });
+
+describe("synthesize for a high-side switch: lit cells onto the active-low lines", () => {
+  async function highSide(which: keyof typeof shows, policy: string, decode: string, drive: string) {
+    const show = shows[which];
+    const p = makeProject2({
+      counter: { states: show.length, drive },
+      display: {},
+      show,
+      synthesis: { depth: policy, decode, maxDepth: 2, timeLimitMs: 20_000 },
+      electrical: { preset: "bench-5v-high-side" },
+    });
+    const r = await synthesize(compileSpec(p), synthSettings(p));
+    if (!r.ok) throw new Error(JSON.stringify(r.error));
+    return r.value;
+  }
+
+  // The lit decode's reference figures (the table above): turned round onto the nS lines, the covering problem is the same.
+  for (const [which, policy, lit] of [
+    ["0-5", "mixed", 21],
+    ["0-9", "mixed", 33],
+  ] as const) {
+    it(`${which} ${policy} on a sink-drive counter: ${lit}, proven, every diode from an nS line, bus or output, no input network; either is the same`, async () => {
+      for (const [decode, drive] of [
+        ["lit", "sink"],
+        ["either", "sink"],
+        ["lit", "complementary"],
+      ] as const) {
+        const m = await highSide(which, policy, decode, drive);
+        expect([m.count, m.optimal], `${decode}/${drive}`).toEqual([lit, true]);
+        expect(m.inputNetwork).toBeUndefined();
+        expect(Object.values(m.decode ?? {}).every((d) => d === "lit")).toBe(true);
+        expect(m.diodes.every((d) => !/^S\d+$/.test(d.from))).toBe(true);
+        expect(m.diodes.some((d) => /^nS\d+$/.test(d.from))).toBe(true);
+      }
+    }, 60_000);
+  }
+});

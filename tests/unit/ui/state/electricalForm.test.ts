@@ -61,7 +61,8 @@ describe("the Electrical panel's fields", () => {
     const d = draftFromProject(example("relay-hex-monitor"));
     for (const name of PRESET_NAMES) {
       const p = setElectricalPreset(d, name);
-      const v = validateProject(p);
+      // A high-side switch's lit cells sit on active-low lines: a sink-drive counter.
+      const v = validateProject(name === "bench-5v-high-side" ? { ...p, counter: { ...p.counter, drive: "sink" } } : p);
       expect(v.ok && v.value.electrical).toEqual(ELECTRICAL_PRESETS[name]);
     }
     const follower = setDriverKind(d, "emitter-follower");
