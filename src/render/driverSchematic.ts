@@ -9,13 +9,13 @@
  */
 import type { DriverKind } from "../core/project/project.ts";
 import { label, type Box, type Label } from "./drawingModel.ts";
-import { emptyInk, ground, junction, ledV, npn, resistorH, resistorV, terminal, wire, type Ink } from "./schematicSymbols.ts";
+import { emptyInk, ground, junction, ledV, npn, pnp, resistorH, resistorV, terminal, wire, type Ink } from "./schematicSymbols.ts";
 
-/** The parts a stage may have, by the name the drawing and the table give them. */
-export type StagePart = "Q" | "Re" | "Rc" | "Rs" | "Rb" | "Rbe" | "Rpd" | "Rt" | "DS";
+/** The parts a stage may have, by the name the drawing and the table give them (`Rpu`: a high-side switch's line pull-up). */
+export type StagePart = "Q" | "Re" | "Rc" | "Rs" | "Rb" | "Rbe" | "Rpd" | "Rpu" | "Rt" | "DS";
 
 /** What the table calls each part, in its column order. */
-export const STAGE_PART_NAMES: readonly StagePart[] = ["Q", "Re", "Rs", "Rc", "Rb", "Rbe", "Rpd", "Rt", "DS"];
+export const STAGE_PART_NAMES: readonly StagePart[] = ["Q", "Re", "Rs", "Rc", "Rb", "Rbe", "Rpd", "Rpu", "Rt", "DS"];
 
 /** Which optional parts the drawn stage shows (those some output of the build has). */
 export interface StageShape {
@@ -63,9 +63,19 @@ export function stageSchematic(shape: StageShape): StageSchematic {
   wire(ink, { x: 4.8, y: LINE_Y }, x, "X");
   ink.labels.push(labelAt("output line X", 5.5, LINE_Y - 1.6));
   ink.labels.push(labelAt("(matrix column)", 5.5, LINE_Y + 4.0));
-  resistorV(ink, X_NODE, LINE_Y, GROUND_Y, "Rpd");
-  ground(ink, { x: X_NODE, y: GROUND_Y });
-  if (shape.tieOn) {
+  if (shape.kind === "high-side-switch") {
+    // A high-side switch's line: pulled up to the supply, held down by a tied-on output's Rt.
+    resistorV(ink, X_NODE, RAIL_Y + 4, LINE_Y, "Rpu");
+    if (shape.tieOn) {
+      resistorV(ink, X_NODE, LINE_Y, GROUND_Y, "Rt");
+      ground(ink, { x: X_NODE, y: GROUND_Y });
+      ink.labels.push(labelAt("tied-on outputs only", X_NODE + 3, GROUND_Y - 4));
+    }
+  } else {
+    resistorV(ink, X_NODE, LINE_Y, GROUND_Y, "Rpd");
+    ground(ink, { x: X_NODE, y: GROUND_Y });
+  }
+  if (shape.tieOn && shape.kind !== "high-side-switch") {
     resistorV(ink, X_NODE, RAIL_Y + 14, LINE_Y, "Rt");
     terminal(ink, { x: X_NODE, y: RAIL_Y + 13.2 }, shape.logicText, "above");
     ink.labels.push(labelAt("tied-on outputs only", X_NODE + 3, RAIL_Y + 18.5));
@@ -119,6 +129,28 @@ export function stageSchematic(shape: StageShape): StageSchematic {
       resistorV(ink, q.emitter.x, q.emitter.y, 70, "Rs");
       led(70, GROUND_Y);
       ground(ink, { x: q.emitter.x, y: GROUND_Y });
+      break;
+    }
+    case "high-side-switch": {
+      // The supply rail along the top: the line's pull-up, Rbe and the emitter hang from it.
+      const b = { x: 46, y: LINE_Y };
+      if (shape.base) resistorH(ink, X_NODE, b.x, LINE_Y, "Rb");
+      else wire(ink, x, b);
+      wire(ink, b, { x: Q_X - 8, y: LINE_Y });
+      const q = pnp(ink, { x: Q_X, y: LINE_Y }, "Q");
+      const rail = RAIL_Y + 4;
+      wire(ink, { x: X_NODE, y: rail }, { x: q.emitter.x, y: rail });
+      junction(ink, { x: X_NODE, y: rail }, "VSUP");
+      if (shape.baseEmitter) {
+        junction(ink, b, "B");
+        resistorV(ink, b.x, rail, LINE_Y, "Rbe");
+        junction(ink, { x: b.x, y: rail }, "VSUP");
+      }
+      supply(q.emitter.x);
+      wire(ink, { x: q.emitter.x, y: rail }, q.emitter);
+      resistorV(ink, q.collector.x, q.collector.y, 70, "Rs");
+      led(70, GROUND_Y);
+      ground(ink, { x: q.collector.x, y: GROUND_Y });
       break;
     }
     case "direct": {

@@ -84,7 +84,9 @@ function resistorOf(part: StagePart, d: DriverParts): StageResistor | null {
     case "Rbe":
       return d.baseEmitter;
     case "Rpd":
-      return d.pullDown;
+      return d.pullDown.role === "pull-down" || d.pullDown.role === "divider" ? d.pullDown : null;
+    case "Rpu":
+      return d.pullDown.role === "line-pull-up" ? d.pullDown : null;
     case "Rt":
       return d.tieOn;
     default:
@@ -92,7 +94,7 @@ function resistorOf(part: StagePart, d: DriverParts): StageResistor | null {
   }
 }
 
-const RESISTOR_PARTS: readonly StagePart[] = ["Re", "Rs", "Rc", "Rb", "Rbe", "Rpd", "Rt"];
+const RESISTOR_PARTS: readonly StagePart[] = ["Re", "Rs", "Rc", "Rb", "Rbe", "Rpd", "Rpu", "Rt"];
 
 /**
  * The table of every driven output: output, driver, each resistor (reference
@@ -153,9 +155,18 @@ export function driverNotes(
   notes.push(
     kind === "direct"
       ? "No segment supply: the counter lines (and the logic supply, for tied-on outputs) give all the current."
-      : `Segment supply +VSUP ${s.volts} V (${s.minVolts}-${s.maxVolts} V): ${kind === "emitter-follower" ? "every follower's collector" : "the anode end of every segment"}.`,
+      : `Segment supply +VSUP ${s.volts} V (${s.minVolts}-${s.maxVolts} V): ${kind === "emitter-follower" ? "every follower's collector" : kind === "high-side-switch" ? "every switch's emitter, its Rbe and the line pull-ups Rpu" : "the anode end of every segment"}.`,
   );
-  if (tiedOn.length > 0) {
+  if (kind === "high-side-switch") {
+    notes.push(
+      `Active-low lines: each matrix column X is pulled down through the matrix diodes to the line nS<k> of every state that lights its segment (${e.lowLine.low} V active, ${e.lowLine.high} V idle), which turns the switch on; Rpu and Rbe hold it off otherwise.`,
+    );
+  }
+  if (tiedOn.length > 0 && kind === "high-side-switch") {
+    notes.push(
+      `Tied-on outputs (${tiedOn.join(", ")}, lit in every state, no diodes): X is held down to ground through Rt instead of a matrix column.`,
+    );
+  } else if (tiedOn.length > 0) {
     notes.push(
       `Tied-on outputs (${tiedOn.join(", ")}, lit in every state, no diodes): X hangs from the logic supply VLOGIC ${e.logicSupply.volts} V through Rt instead of a matrix column.`,
     );
@@ -175,7 +186,9 @@ export function driverNotes(
   );
   if (kind !== "direct") {
     const d = e.driver;
-    notes.push(`Q: small-signal NPN rated at least ${d.maxVceV} V, ${d.maxPowerW} W, ${milliamps(d.maxCollectorA, 0)} mA.`);
+    notes.push(
+      `Q: small-signal ${kind === "high-side-switch" ? "PNP" : "NPN"} rated at least ${d.maxVceV} V, ${d.maxPowerW} W, ${milliamps(d.maxCollectorA, 0)} mA.`,
+    );
   }
   notes.push(designNote(design));
   notes.push(

@@ -129,6 +129,32 @@ export function npn(ink: Ink, c: Point, name: string): NpnLeads {
   return { base, collector, emitter };
 }
 
+/** Where a PNP's leads end. */
+export type PnpLeads = NpnLeads;
+
+/**
+ * A PNP transistor centred at `c`: the base from the left, the emitter up
+ * (with its arrow pointing in, towards the base) and the collector down,
+ * both at `c.x + 2`: drawn the way it hangs from a supply.
+ */
+export function pnp(ink: Ink, c: Point, name: string): PnpLeads {
+  ink.circles.push({ at: c, r: 4.6, filled: false });
+  const bx = c.x - 1.8;
+  const base = { x: c.x - 8, y: c.y };
+  wire(ink, base, { x: bx, y: c.y });
+  ink.segments.push({ a: { x: bx, y: c.y - 2.6 }, b: { x: bx, y: c.y + 2.6 }, width: STROKE.thick });
+  const emitter = { x: c.x + 2, y: c.y - 8 };
+  const collector = { x: c.x + 2, y: c.y + 8 };
+  const eEnd = { x: c.x + 2, y: c.y - 3.6 };
+  wire(ink, { x: bx, y: c.y - 1.2 }, eEnd);
+  ink.polygons.push({ points: arrowHead(eEnd, { x: bx, y: c.y - 1.2 }, 1.6), filled: true, width: STROKE.thin });
+  wire(ink, eEnd, emitter);
+  wire(ink, { x: bx, y: c.y + 1.2 }, { x: c.x + 2, y: c.y + 3.6 });
+  wire(ink, { x: c.x + 2, y: c.y + 3.6 }, collector);
+  ink.labels.push(label(name, { x: c.x + 5.4, y: c.y + 0.9 }, PART_TEXT_MM, "part", { bold: true }));
+  return { base, collector, emitter };
+}
+
 /** The ground symbol hanging from `at`. */
 export function ground(ink: Ink, at: Point): void {
   for (const [w, dy] of [

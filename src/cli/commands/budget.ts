@@ -169,13 +169,15 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
   const outs = Object.keys(b.outputs);
   L.push(`Segment current per state, ${unit} (lit segments; '.' = unlit, below the ghost limit; '!' = unlit above it)`);
   const ghostA = e.ghostFraction * e.segment.targetA;
+  // A high-side switch's counter lines are active-low: the state's line sinks rather than sources.
+  const highSide = b.kind === "high-side-switch";
   L.push(
     ...table(
-      ["State", "Text", "Source mA", "Supply mA", ...outs],
-      b.states.map((s) => [
+      ["State", "Text", highSide ? "Sink mA" : "Source mA", "Supply mA", ...outs],
+      b.states.map((s, k) => [
         s.state,
         `"${s.text}"`,
-        milliamps(s.sourceCurrentA, 3),
+        milliamps(highSide ? (b.counterLines[`nS${k}`]?.sinkCurrentA ?? 0) : s.sourceCurrentA, 3),
         milliamps(s.supplyCurrentA),
         ...outs.map((o) => {
           const x = s.outputs[o];
@@ -235,23 +237,35 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     L.push("");
   }
   const coded = spec.counter.kind !== "one-hot";
-  L.push(
-    coded
-      ? `Stage lines (each may source or sink ${milliamps(e.counterOutput.maxCurrentA)} mA; sources = most while high, sinks = most while low)`
-      : `Counter lines (when active; each may source ${milliamps(e.counterOutput.maxCurrentA)} mA)`,
-  );
-  L.push(
-    ...table(
-      coded ? ["Line", "Sources mA", "Line V", "Sag V", "Sinks mA", "In"] : ["Line", "Sources mA", "Line V", "Sag V"],
-      Object.entries(b.counterLines).map(([l, c]) => [
-        l,
-        milliamps(c.sourceCurrentA, 3),
-        volts(c.lineV),
-        volts(c.sagV),
-        ...(coded ? [milliamps(c.sinkCurrentA, 3), c.sinkState ?? ""] : []),
-      ]),
-    ),
-  );
+  if (highSide) {
+    L.push(
+      `Active-low lines (each low in its own state, sinking every lit segment's base current and line pull-up; each may sink ${milliamps(e.lowLine.maxCurrentA)} mA)`,
+    );
+    L.push(
+      ...table(
+        ["Line", "Sinks mA", "State"],
+        Object.entries(b.counterLines).map(([l, c]) => [l, milliamps(c.sinkCurrentA, 3), c.sinkState ?? ""]),
+      ),
+    );
+  } else {
+    L.push(
+      coded
+        ? `Stage lines (each may source or sink ${milliamps(e.counterOutput.maxCurrentA)} mA; sources = most while high, sinks = most while low)`
+        : `Counter lines (when active; each may source ${milliamps(e.counterOutput.maxCurrentA)} mA)`,
+    );
+    L.push(
+      ...table(
+        coded ? ["Line", "Sources mA", "Line V", "Sag V", "Sinks mA", "In"] : ["Line", "Sources mA", "Line V", "Sag V"],
+        Object.entries(b.counterLines).map(([l, c]) => [
+          l,
+          milliamps(c.sourceCurrentA, 3),
+          volts(c.lineV),
+          volts(c.sagV),
+          ...(coded ? [milliamps(c.sinkCurrentA, 3), c.sinkState ?? ""] : []),
+        ]),
+      ),
+    );
+  }
   L.push("");
   const gates = Object.entries(b.gates);
   if (gates.length > 0) {

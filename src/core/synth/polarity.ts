@@ -221,7 +221,7 @@ function groupCost(plan: SharingPlan, inGroup: (o: number) => boolean): number {
 export function polarityMatrix(
   spec: DecodeSpec,
   chosen: ChosenPlan,
-  s: SynthSettings,
+  s: Pick<SynthSettings, "depthLimit" | "policy">,
   lowerBound: number | null,
   method: "direct" | "heuristic" | "exact",
   deadlineHit: boolean,

@@ -4,6 +4,7 @@ import type { Budget } from "../../../src/core/budget/budgetTypes.ts";
 import { designators } from "../../../src/core/matrix/designators.ts";
 import type { Label, Sheet } from "../../../src/render/drawingModel.ts";
 import { drawingOptions } from "../../../src/render/drawingOptions.ts";
+import { stageSchematic } from "../../../src/render/driverSchematic.ts";
 import { layoutDriverSheets } from "../../../src/render/driverSheet.ts";
 import { driverSheets } from "../../../src/render/papers.ts";
 import { ohmsText } from "../../../src/render/units.ts";
@@ -146,5 +147,64 @@ describe("the driver-stage sheet", () => {
     expect(texts(sheet as Sheet, "table")).toContain("R1 300 Ω");
     expect(texts(sheet as Sheet, "table")).not.toContain("Lit mA");
     expect(texts(sheet as Sheet, "note").join(" ")).toContain("The currents follow when the budget has been worked out.");
+  });
+});
+
+describe("the driver-stage sheet of a high-side switch", () => {
+  it("draws the PNP stage once: the emitter on +VSUP with its arrow pointing in, Rpu and Rbe from the supply, Rs and DS to ground, a tied-on output held down by Rt", () => {
+    const project = makeProject2({
+      counter: { states: 3, drive: "sink" },
+      display: { positions: 2 },
+      show: [" 1", "12", " 7"],
+      electrical: { preset: "bench-5v-high-side" },
+    });
+    const d = directDesign("high-side", project);
+    const budget = solved(d);
+    const [sheet, ...more] = sheetsOf(d, budget);
+    expect(more).toEqual([]);
+    if (!sheet) throw new Error("no sheet");
+    const parts = texts(sheet, "part");
+    for (const p of ["Q", "Rb", "Rbe", "Rs", "DS", "Rpu", "Rt"])
+      expect(
+        parts.filter((t) => t === p),
+        p,
+      ).toHaveLength(1);
+    for (const p of ["Re", "Rc", "Rpd"]) expect(parts, p).not.toContain(p);
+    expect(texts(sheet, "terminal")).toContain("+VSUP 5 V");
+    // A tied-on output is held down to ground: no logic supply on this sheet.
+    expect(texts(sheet, "terminal").some((t) => t.startsWith("VLOGIC"))).toBe(false);
+    const table = texts(sheet, "table");
+    expect(table).toContain("Rpu");
+    const all = designators(d.spec, d.matrix, d.project.electrical, budgetDesign(budget).ohms);
+    for (const dr of all.drivers) {
+      for (const r of [dr.current, dr.base, dr.baseEmitter, dr.pullDown, dr.tieOn])
+        if (r !== null) expect(table).toContain(`${r.ref} ${ohmsText(r.ohms)}`);
+    }
+    const notes = texts(sheet, "note").join(" ");
+    expect(notes).toContain("PNP high-side switch");
+    expect(notes).toContain("Active-low lines");
+    expect(notes).toContain("small-signal PNP");
+    expect(textProblems(sheet)).toEqual([]);
+  });
+
+  it("points the PNP's emitter arrow at the base bar, the emitter lead going up to the supply", () => {
+    const s = stageSchematic({
+      kind: "high-side-switch",
+      base: true,
+      baseEmitter: true,
+      collector: false,
+      tieOn: false,
+      leds: 1,
+      supplyText: "+VSUP 5 V",
+      logicText: "VLOGIC 5 V",
+    });
+    const q = s.ink.circles.find((c) => c.r > 4);
+    if (!q) throw new Error("no transistor body");
+    const arrow = s.ink.polygons.find((p) => p.filled && p.points.every((pt) => Math.hypot(pt.x - q.at.x, pt.y - q.at.y) < q.r));
+    if (!arrow) throw new Error("no emitter arrow");
+    // The tip (first point) sits on the base bar, left of the arrow's back, in the upper half (the emitter's).
+    const [tip, ...back] = arrow.points;
+    expect(tip && back.every((b) => b.x > tip.x)).toBe(true);
+    expect(tip && tip.y < q.at.y).toBe(true);
   });
 });
