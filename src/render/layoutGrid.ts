@@ -18,7 +18,7 @@
  * to the gate's row, which feeds the outputs. Millimetres, in grid
  * coordinates (the sheet layout moves them onto paper).
  */
-import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
+import { outputSide, type DecodeSpec, type OutputPolarity } from "../core/spec/decodeSpec.ts";
 import { designators } from "../core/matrix/designators.ts";
 import { darkSideDiodes, type DiodeMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
@@ -92,11 +92,15 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
   const usedLines = spec.lines.filter((l) => matrix.diodes.some((d) => d.from === l || d.to === l));
   // A one-hot counter: a row per state line it decodes from, the active-high S<k> and the active-low nS<k>.
   const decode = spec.polarity.decode;
+  // The lines the decode's polarities sit on (a high-side switch's lit cells on the nS lines: outputSide).
+  const inverting = spec.polarity.inverting;
+  const polarities: readonly OutputPolarity[] = decode === "either" ? (inverting ? ["lit"] : ["lit", "dark"]) : [decode];
+  const sides = new Set(polarities.map((p) => outputSide(p, inverting)));
   const stateRows = (names: readonly string[]): GridRow[] =>
     names.map((s, k) => ({ net: s, kind: "state" as const, text: `${s} "${spec.texts[k] ?? ""}"` }));
   const rows: GridRow[] = [
     ...(spec.counter.kind === "one-hot"
-      ? [...stateRows(decode === "dark" ? [] : spec.states), ...stateRows(decode === "lit" ? [] : spec.polarity.activeLow)]
+      ? [...stateRows(sides.has("high") ? spec.states : []), ...stateRows(sides.has("low") ? spec.polarity.activeLow : [])]
       : usedLines.map((l) => ({ net: l, kind: "line" as const, text: l }))),
     ...[...matrix.gates].reverse().map((g) => ({ net: g.ref, kind: "gate" as const, text: `${g.ref} (gate)` })),
     ...[...matrix.buses].reverse().map((b) => ({ net: b, kind: "bus" as const, text: `${b} (bus)` })),

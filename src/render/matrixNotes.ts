@@ -33,6 +33,14 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
       "Rows: the counter lines S<k> (high in state k) and nS<k> (low in state k), each with the text its state shows. Columns: output lines, grouped by display position; each ends at its driver stage (Q).",
     );
     notes.push(darkNote(project, spec, matrix));
+  } else if (spec.counter.kind === "one-hot" && spec.polarity.inverting) {
+    notes.push(
+      "Band = cathode = bar on the symbol. Each diode is turned round: its band on the row (nS line, bus or link line), its anode on the column it pulls down, which switches that column's high-side PNP on.",
+    );
+    notes.push("Lines that cross without a dot are not joined; a dot marks a joint.");
+    notes.push(
+      `Rows: the active-low counter lines ${spec.polarity.activeLow[0]}-${spec.polarity.activeLow[spec.polarity.activeLow.length - 1]} (low in state k), each with the text its state shows. Columns: output lines, grouped by display position; each ends at its driver stage (Q).`,
+    );
   } else if (spec.counter.kind === "one-hot") {
     notes.push(
       "Band = cathode = bar on the symbol. The anode takes the row (counter, bus or link line); the cathode goes to the column it drives.",
