@@ -118,4 +118,26 @@ describe("the Electrical panel", () => {
     expect(await synthRuns()).toBe(runs);
     expect(consoleErrors).toEqual([]);
   });
+
+  it("offers the high-side switch: on a sink-drive counter its lit cells go onto the nS lines, and the budget and the driver sheet follow", async () => {
+    const runs = await synthRuns();
+    expect(await page.locator("#e-kind option").allTextContents()).toContain("high-side PNP switch (common cathode, active-low lines)");
+    await page.getByTestId("counter-drive").selectOption("sink");
+    await page.locator("#e-preset").selectOption("bench-5v-high-side");
+    expect(await page.locator("#e-kind").inputValue()).toBe("high-side-switch");
+    // The driver kind decides which lines the lit cells sit on: a new synthesis run, not only a budget.
+    await expect.poll(synthRuns, { timeout: 60_000 }).toBeGreaterThan(runs);
+    await expect.poll(() => page.getByTestId("live-busy").count(), { timeout: 60_000 }).toBe(0);
+    await expect.poll(() => page.getByTestId("problems").count(), { timeout: 30_000 }).toBe(0);
+    await expect.poll(count, { timeout: 30_000 }).toBeGreaterThan(0);
+    await expect.poll(budgetTarget, { timeout: 30_000 }).toBe(0.01);
+    const sheet = page.getByTestId("driver-sheet");
+    await expect.poll(() => sheet.textContent(), { timeout: 30_000 }).toContain("PNP\u00a0high-side\u00a0switch");
+    expect(await sheet.textContent()).toContain("Rpu");
+    // Every diode of the matrix drawing hangs from an active-low row.
+    const rows = await page.getByTestId("matrix-drawing").textContent();
+    expect(rows).toContain("nS0");
+    expect((await saved()).electrical.preset).toBe("bench-5v-high-side");
+    expect(consoleErrors).toEqual([]);
+  });
 });

@@ -47,6 +47,29 @@ describe("diodeloom budget", () => {
     expect(states.map((s) => s.state)).toEqual(states.map((_, k) => `S${k}`));
   });
 
+  it("budgets the quiz scoreboard's PNP high-side switches on its active-low lines: every lit segment in the window, every unlit one dark, each nS line within its rating", async () => {
+    const r = await run(["budget", "public/examples/quiz-scoreboard.json", "--json", "--fast"]);
+    expect(r.stderr).toBe("");
+    expect(r.code).toBe(0);
+    const b = JSON.parse(r.stdout) as {
+      kind: string;
+      targetA: number;
+      corners: { meetsTarget: boolean };
+      outputs: Record<string, { offMaxA: number }>;
+      counterLines: Record<string, { sinkCurrentA: number; ratedA: number }>;
+      warnings: { level: string }[];
+    };
+    expect(b.kind).toBe("high-side-switch");
+    expect(b.corners.meetsTarget).toBe(true);
+    expect(Math.max(...Object.values(b.outputs).map((o) => o.offMaxA))).toBeLessThan(0.01 * b.targetA);
+    expect(Object.keys(b.counterLines)).toEqual(Array.from({ length: 10 }, (_, k) => `nS${k}`));
+    expect(Object.values(b.counterLines).every((l) => l.sinkCurrentA > 0 && l.sinkCurrentA <= l.ratedA)).toBe(true);
+    expect(b.warnings.filter((w) => w.level !== "info")).toEqual([]);
+    const text = await run(["budget", "public/examples/quiz-scoreboard.json", "--fast"]);
+    expect(text.stdout).toContain("PNP high-side switches");
+    expect(text.stdout).toMatch(/^Active-low lines \(each low in its own state/m);
+  });
+
   it("carries the hazardous-voltage and mains cautions with the high-voltage preset", async () => {
     const r = await run(["budget", exampleWith("die-roller", { preset: "string-hv-sink" }), "--json", "--direct"]);
     expect(r.code).toBe(0);

@@ -101,7 +101,7 @@ export function describePolarity(rows: readonly PolarityRow[], darkInput: string
     );
   }
   lines.push(
-    "  (diodes = matrix + level-shift; resistors: a pull-down per lit-decoded output, a pull-up and a bleed or divider per dark-decoded one; the drivers' own are the same in every row)",
+    "  (diodes = matrix + level-shift; resistors: a pull-down (a high-side switch's line pull-up) per lit-decoded output, a pull-up and a bleed or divider per dark-decoded one; the drivers' own are the same in every row)",
     "",
   );
   return lines.join("\n");

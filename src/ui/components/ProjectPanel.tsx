@@ -124,7 +124,7 @@ export function ProjectPanel() {
             id="f-drive"
             value={d().counter.drive}
             data-testid="counter-drive"
-            title="which level marks the active state: the dark cells are decoded onto active-low lines"
+            title="which level marks the active state: active-low lines take the dark cells of NPN drivers, or a high-side switch's lit cells"
             onChange={(e) => app.edit((x) => setCounterDrive(x, e.currentTarget.value as CounterDrive))}
           >
             <For each={Object.keys(DRIVE_NAMES) as CounterDrive[]}>{(k) => <option value={k}>{DRIVE_NAMES[k]}</option>}</For>

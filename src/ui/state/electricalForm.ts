@@ -49,9 +49,9 @@ export interface FieldGroup {
   readonly overrides?: readonly OverrideField[];
 }
 
-const TRANSISTOR: readonly DriverKind[] = ["current-sink", "low-side-switch", "emitter-follower"];
+const TRANSISTOR: readonly DriverKind[] = ["current-sink", "low-side-switch", "emitter-follower", "high-side-switch"];
 const SINK: readonly DriverKind[] = ["current-sink"];
-const WITH_BASE_R: readonly DriverKind[] = ["low-side-switch", "emitter-follower"];
+const WITH_BASE_R: readonly DriverKind[] = ["low-side-switch", "emitter-follower", "high-side-switch"];
 
 const f = (path: ElectricalPath, label: string, unit: string, extra: Partial<NumberField> = {}): NumberField => ({
   path,
@@ -96,9 +96,9 @@ export const ELECTRICAL_GROUPS: readonly FieldGroup[] = [
         hint: "from the output line to the base (0 = the base on the line)",
       }),
       f("driver.baseEmitterResistor", "Base-emitter resistor", "Ω", {
-        kinds: ["low-side-switch"],
+        kinds: ["low-side-switch", "high-side-switch"],
         optional: true,
-        hint: "holds the switch off (empty = none)",
+        hint: "holds the switch off: base to ground, or for a high-side PNP base to the supply, where it is needed (empty = none)",
       }),
       f("driver.betaF", "Forward beta", "", { kinds: TRANSISTOR }),
       f("driver.betaR", "Reverse beta", "", { kinds: TRANSISTOR }),
@@ -117,7 +117,9 @@ export const ELECTRICAL_GROUPS: readonly FieldGroup[] = [
       f("counterOutput.resistance", "Source resistance", "Ω"),
       f("counterOutput.lowResistance", "Idle source resistance", "Ω", { hint: "an idle line behind its saturated transistor" }),
       f("counterOutput.maxCurrentA", "Line current limit", "mA", { hint: "the most one counter line may source" }),
-      f("pullDown", "Output pull-down", "Ω", { hint: "from each output line to ground" }),
+      f("pullDown", "Output pull-down", "Ω", {
+        hint: "from each output line to ground (a high-side switch's: a pull-up to the segment supply)",
+      }),
       f("gatePullUp", "AND-gate pull-up", "Ω", { hint: "a coded counter's AND gates, each from the logic supply" }),
       f("lowLine.low", "Active-low line, active", "V", { hint: "an nS line in its own state (sink or complementary drive)" }),
       f("lowLine.high", "Active-low line, idle", "V"),
@@ -204,10 +206,20 @@ export function setElectricalText(d: Draft, field: NumberField, text: string): D
   return { ...d, electrical: withValue(d.electrical, field.path, shown / field.scale) };
 }
 
-/** The draft with the circuit of another kind; the other values stay. */
+/**
+ * The draft with the circuit of another kind; the other values stay, but
+ * for a high-side switch's base and base-emitter resistors, which it needs:
+ * where the draft has none, the `bench-5v-high-side` preset's.
+ */
 export function setDriverKind(d: Draft, kind: DriverKind): Draft {
   const e = electricalFields(d.electrical);
-  return { ...d, electrical: { ...e, driver: { ...e.driver, kind } } };
+  const driver = { ...e.driver, kind };
+  if (kind === "high-side-switch") {
+    const own = ELECTRICAL_PRESETS["bench-5v-high-side"].driver;
+    if (!(driver.baseResistor > 0)) driver.baseResistor = own.baseResistor;
+    if (driver.baseEmitterResistor === null) driver.baseEmitterResistor = own.baseEmitterResistor;
+  }
+  return { ...d, electrical: { ...e, driver } };
 }
 
 /** The draft with every electrical value of a preset (the preset's complete set, replacing the section). */
@@ -243,12 +255,17 @@ export function setOverridesText(d: Draft, path: OverridePath, text: string): Dr
     : { ...d, electrical: { ...e, segment: { ...e.segment, seriesResistors: map } } };
 }
 
-/** Whether two drafts ask the synthesis the same: equal but for the `electrical` section, which it does not read. */
+/**
+ * Whether two drafts ask the synthesis the same: equal but for the
+ * `electrical` section, which it reads only for whether the driver is a
+ * high-side switch (whose lit cells sit on the active-low lines).
+ */
 export function sameSynthesisInput(a: Draft, b: Draft): boolean {
   if (a === b) return true;
-  const { electrical: _a, ...restA } = a;
-  const { electrical: _b, ...restB } = b;
-  return JSON.stringify(restA) === JSON.stringify(restB);
+  const { electrical: ea, ...restA } = a;
+  const { electrical: eb, ...restB } = b;
+  const highSide = (e: Draft["electrical"]): boolean => e.driver.kind === "high-side-switch";
+  return highSide(ea) === highSide(eb) && JSON.stringify(restA) === JSON.stringify(restB);
 }
 
 /** Whether two drafts differ in their `electrical` section alone: the budget is worked out again, not the matrix. */

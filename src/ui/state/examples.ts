@@ -22,6 +22,7 @@ export const EXAMPLES: readonly ShippedExample[] = [
   { file: "turntable-position.json", label: "Turntable position: stations 1-12 on two digits" },
   { file: "die-roller.json", label: "Die roller: a seven-pip die face" },
   { file: "antenna-rotator.json", label: "Antenna rotator: eight compass arrows" },
+  { file: "quiz-scoreboard.json", label: "Quiz scoreboard: rounds 1-9 and F from active-low lines, PNP high-side switches" },
   { file: "wall-clock.json", label: "Wall clock (an instrument): hours, minute tens and minute units" },
 ];
 

@@ -36,6 +36,27 @@ describe("comparePolarities", () => {
     expect(dark).toMatchObject({ darkOutputs: 7, inputDiodes: 14, resistors: 14 });
   });
 
+  it("with a high-side switch: lit on the nS lines (the same count as the NPN's lit on S lines), dark refused with the fix, either the lit decoder", async () => {
+    const highSide = makeProject2({
+      counter: { states: 6, drive: "sink" },
+      display: {},
+      show: ["0", "1", "2", "3", "4", "5"],
+      synthesis: { depth: "mixed" },
+      electrical: { preset: "bench-5v-high-side" },
+    });
+    const r = await comparePolarities(highSide, { settings: { timeLimitMs: 5000 } });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const [lit, dark, either] = r.value;
+    const npn = await comparePolarities(project(), { settings: { timeLimitMs: 5000 } });
+    const npnLit = npn.ok ? npn.value[0] : undefined;
+    // The same covering problem turned round onto the active-low lines: the same proven minimum.
+    expect(lit).toMatchObject({ diodes: npnLit?.diodes, inputDiodes: 0, darkOutputs: 0, resistors: 7, optimal: true, refused: null });
+    expect(dark?.diodes).toBeNull();
+    expect(dark?.refused).toContain('use "decode": "lit"');
+    expect(either).toMatchObject({ diodes: lit?.diodes, darkOutputs: 0, refused: null });
+  });
+
   it("counts a divider's resistors and no level-shift diode", async () => {
     const r = await comparePolarities(project({}, { darkInput: "divider" }), { settings: { mode: "fast" } });
     expect(r.ok).toBe(true);

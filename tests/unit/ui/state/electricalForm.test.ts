@@ -68,6 +68,17 @@ describe("the Electrical panel's fields", () => {
     const follower = setDriverKind(d, "emitter-follower");
     expect(follower.electrical.driver.kind).toBe("emitter-follower");
     expect(follower.electrical.segment).toEqual(d.electrical.segment);
+    // A high-side switch keeps a switch's base resistors, and takes its preset's where the draft has none.
+    const fromSwitch = setDriverKind(d, "high-side-switch");
+    expect([fromSwitch.electrical.driver.baseResistor, fromSwitch.electrical.driver.baseEmitterResistor]).toEqual([
+      d.electrical.driver.baseResistor,
+      d.electrical.driver.baseEmitterResistor,
+    ]);
+    const fromFollower = setDriverKind(setElectricalPreset(d, "cathode-5v-follower"), "high-side-switch");
+    expect([fromFollower.electrical.driver.baseResistor, fromFollower.electrical.driver.baseEmitterResistor]).toEqual([6800, 10_000]);
+    // Its lit cells sit on other lines: the synthesis reads that much of the electrical section.
+    expect(sameSynthesisInput(d, fromSwitch)).toBe(false);
+    expect(sameSynthesisInput(d, follower)).toBe(true);
   });
 
   it("read per-output resistors as a list", () => {
