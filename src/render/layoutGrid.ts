@@ -18,7 +18,7 @@
  * to the gate's row, which feeds the outputs. Millimetres, in grid
  * coordinates (the sheet layout moves them onto paper).
  */
-import { outputSide, type DecodeSpec, type OutputPolarity } from "../core/spec/decodeSpec.ts";
+import { decodeSides, type DecodeSpec } from "../core/spec/decodeSpec.ts";
 import { designators } from "../core/matrix/designators.ts";
 import { darkSideDiodes, type DiodeMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
@@ -91,11 +91,8 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
   const isGateInput = (d: { from: string; to: string }): boolean => gates.has(d.from) && lines.has(d.to);
   const usedLines = spec.lines.filter((l) => matrix.diodes.some((d) => d.from === l || d.to === l));
   // A one-hot counter: a row per state line it decodes from, the active-high S<k> and the active-low nS<k>.
-  const decode = spec.polarity.decode;
-  // The lines the decode's polarities sit on (a high-side switch's lit cells on the nS lines: outputSide).
-  const inverting = spec.polarity.inverting;
-  const polarities: readonly OutputPolarity[] = decode === "either" ? (inverting ? ["lit"] : ["lit", "dark"]) : [decode];
-  const sides = new Set(polarities.map((p) => outputSide(p, inverting)));
+  // The lines the decode's polarities sit on (a high-side switch's lit cells on the nS lines).
+  const sides = decodeSides(spec.polarity);
   const stateRows = (names: readonly string[]): GridRow[] =>
     names.map((s, k) => ({ net: s, kind: "state" as const, text: `${s} "${spec.texts[k] ?? ""}"` }));
   const rows: GridRow[] = [

@@ -1,5 +1,5 @@
 import { designModel, designNote, type SegmentDesign } from "../../core/budget/segmentDesign.ts";
-import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
+import { decodeSides, type DecodeSpec } from "../../core/spec/decodeSpec.ts";
 import { designators } from "../../core/matrix/designators.ts";
 import { darkOutputs, matrixObjective, outputDecode, type VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import { countParts, refRanges } from "../../core/papers/parts.ts";
@@ -167,8 +167,10 @@ export function describeMatrix(
   for (const d of m.diodes) fromOf.set(d.from, [...(fromOf.get(d.from) ?? []), `${d.ref}>${d.to}`]);
   const textW = Math.max(4, ...spec.texts.map((t) => t.length + 2));
   lines.push(`${"Line".padEnd(6)} ${"Text".padEnd(textW)} Diodes`);
-  // Every line the counter offers that the decode uses: S<k> raises lit-decoded outputs, nS<k> pulls dark-decoded ones down.
-  const rowLines = spec.polarity.decode === "lit" ? spec.states : spec.polarity.decode === "dark" ? spec.polarity.activeLow : spec.lines;
+  // Every line the counter offers that the decode uses: S<k> raises lit-decoded outputs, nS<k> pulls dark-decoded ones
+  // down (and a high-side switch's lit-decoded ones).
+  const sides = decodeSides(spec.polarity);
+  const rowLines = [...(sides.has("high") ? spec.states : []), ...(sides.has("low") ? spec.polarity.activeLow : [])];
   rowLines.forEach((s) => {
     const k = Number(s.replace(/^n?S/, ""));
     const ds = fromOf.get(s) ?? [];

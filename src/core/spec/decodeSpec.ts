@@ -46,6 +46,20 @@ export function outputSide(polarity: OutputPolarity, inverting: boolean): LineSi
  * lines, the dark cells, which polarity each output may take, and what a
  * dark-decoded output's input network costs.
  */
+/**
+ * The sides of the counter lines a decode uses: the sides of the
+ * polarities it may give its outputs (`either` on a high-side switch is lit
+ * only).
+ *
+ * @example
+ * decodeSides({ decode: "either", inverting: false }); // Set { "high", "low" }
+ * decodeSides({ decode: "lit", inverting: true });     // Set { "low" }
+ */
+export function decodeSides(p: Pick<SpecPolarity, "decode" | "inverting">): ReadonlySet<LineSide> {
+  const polarities: readonly OutputPolarity[] = p.decode === "either" ? (p.inverting ? ["lit"] : ["lit", "dark"]) : [p.decode];
+  return new Set(polarities.map((x) => outputSide(x, p.inverting)));
+}
+
 export interface SpecPolarity {
   readonly drive: CounterDrive;
   readonly decode: DecodePolarity;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { compileSpec, litCellCount } from "../../../../src/core/spec/decodeSpec.ts";
+import { compileSpec, decodeSides, litCellCount, outputSide } from "../../../../src/core/spec/decodeSpec.ts";
 import { example, makeProject, makeProject2, showing } from "../../../support/projects.ts";
 
 describe("compileSpec", () => {
@@ -69,5 +69,29 @@ describe("compileSpec: the decode polarity", () => {
       synthesis: { decode: "dark", darkInput: "divider" },
     });
     expect(compileSpec(divider).polarity).toMatchObject({ inputDiodes: 0, inputResistors: 2 });
+  });
+});
+
+describe("the decode polarity of a high-side switch", () => {
+  it("marks the spec inverting, allows lit only (either too), no input network, and decodes onto the active-low lines", () => {
+    for (const decode of ["lit", "either"] as const) {
+      const spec = compileSpec(
+        makeProject2({
+          counter: { states: 3, drive: "complementary" },
+          display: {},
+          show: ["1", "7", "8"],
+          synthesis: { decode },
+          electrical: { preset: "bench-5v-high-side" },
+        }),
+      );
+      expect(spec.polarity.inverting).toBe(true);
+      expect(spec.polarity.allowed.every((a) => a.join() === "lit")).toBe(true);
+      expect([spec.polarity.inputDiodes, spec.polarity.inputResistors]).toEqual([0, 0]);
+      expect([...decodeSides(spec.polarity)]).toEqual(["low"]);
+    }
+    expect(outputSide("lit", true)).toBe("low");
+    expect(outputSide("dark", true)).toBe("high");
+    expect([...decodeSides({ decode: "either", inverting: false })].sort()).toEqual(["high", "low"]);
+    expect([...decodeSides({ decode: "lit", inverting: false })]).toEqual(["high"]);
   });
 });
