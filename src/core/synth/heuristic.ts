@@ -8,11 +8,18 @@
  * greedyCover.ts), in three orders, keeping the best. A last ruin-and-recreate
  * step forbids the chosen bus shapes one at a time and covers again.
  *
- * It runs on the problem with identical states merged (see reduce.ts), and
- * first on each display position alone: a position's digits repeat over the
- * states (a tens digit over ten of them), so merged it is a small problem,
- * and the union of the positions' plans is a valid matrix. Then on the whole
- * problem, whose plans may share buses across positions; the better wins.
+ * Each greedy plan is then refined by the local search of refine.ts, where
+ * every row takes its exact cheapest cover, with kicks out of its local
+ * minima and, on small problems, fresh starts (nothing shared; everything
+ * direct) beside the greedy's plan.
+ *
+ * It runs on the problem with identical states merged (see reduce.ts). A
+ * problem of few outputs (one position, or 1-12) is searched whole. Else
+ * each display position is searched alone first: a position's digits
+ * repeat over the states (a tens digit over ten of them), so merged it is a
+ * small problem, and the union of the positions' plans is a valid matrix,
+ * which the local search then refines on the whole problem, where buses and
+ * links may span positions.
  *
  * Everything is charged to one work meter: when it runs out (or its deadline
  * passes) the heuristic returns the best plan found so far. The direct plan
@@ -33,12 +40,26 @@ const EXHAUSTIVE_ASSIGNMENTS = 256;
 const RECREATE_ROUNDS = 6;
 const RECREATE_BUSES = 12;
 /**
- * Most work of the whole problem's greedy once the positions have a plan:
- * on 00-23 it finds buses across positions (mixed 87 -> 85 with 2 million
- * units, 87 with 1 million), on the bigger counters the positions' plans
- * win, so it is kept short for the first answer's speed.
+ * Most work of the whole problem's greedy once the positions have a plan,
+ * for the quick first answer: none. The refinement of the positions' union
+ * (with its kicks) finds the buses and links across positions that this
+ * greedy found on 00-23 (mixed 85, per-segment 89, uniform 91 without it),
+ * and on the bigger counters the positions' plans win. The exact mode gives
+ * it what the budget allows.
  */
-export const WHOLE_AFTER_POSITIONS_WORK = 1_000_000;
+export const WHOLE_AFTER_POSITIONS_WORK = 0;
+/** A problem of at most this many outputs is searched whole, not position by position (0-F: 7, 1-12: 9, 00-23: 14). */
+const SMALL_OUTPUTS = 10;
+/**
+ * Work of the refinement's kicks, per start (see refine.ts), measured on
+ * the bench: on a small problem 400 000 (0-F per-segment and uniform reach
+ * 53 from the empty start at about 300 000, the optimum 52 at 600 000); on
+ * each position 300 000; on the union of the positions 500 000 (00-23: 85,
+ * 89, 91; with 300 000: 85, 90, 92).
+ */
+const SMALL_KICK_WORK = 400_000;
+const POSITION_KICK_WORK = 300_000;
+const UNION_KICK_WORK = 500_000;
 /** Most candidate bus shapes (rows and row intersections). */
 const MAX_SHAPES = 20_000;
 
@@ -85,7 +106,8 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules, opts: Heur
   const whole = reduceRows(p);
   const groups = [...new Set(p.group)].sort((a, b) => a - b);
   let positionsDone = false;
-  if (groups.length > 1 && (rules.policy !== "uniform" || rules.buses)) {
+  const small = whole.problem.m <= SMALL_OUTPUTS;
+  if (!small && groups.length > 1 && (rules.policy !== "uniform" || rules.buses)) {
     const parts: SharingPlan[] = [];
     // Each position gets an even portion of half of what is left; the union's refinement and the whole problem share the rest.
     const positions = meter.portion(2);
@@ -96,7 +118,7 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules, opts: Heur
       );
       const portion = positions.portion(groups.length - i);
       const part = coreHeuristic(r.problem, rules, portion, rules.policy === "uniform");
-      const refined = part === null ? null : refinePlan(r.problem, rules, part, portion);
+      const refined = part === null ? null : refinePlan(r.problem, rules, part, portion, { restarts: true, kickWork: POSITION_KICK_WORK });
       positions.settle(portion);
       if (refined === null) break;
       parts.push(expandPlan(r, refined));
@@ -107,21 +129,25 @@ export function heuristicPlan(p: SharingProblem, rules: SharingRules, opts: Heur
       const union = unionPlans(parts);
       consider(union);
       const portion = meter.portion(2);
-      consider(expandPlan(whole, refinePlan(whole.problem, rules, contractPlan(whole, union), portion)));
+      consider(expandPlan(whole, refinePlan(whole.problem, rules, contractPlan(whole, union), portion, { kickWork: UNION_KICK_WORK })));
       meter.settle(portion);
     }
   }
   // The whole problem, identical states merged: after the positions only a
-  // short greedy (it finds buses across positions on small counters), alone
-  // the greedy and its refinement.
+  // greedy where the caller allows one (the exact mode), alone the greedy
+  // and its refinement with fresh starts.
   if (positionsDone) {
-    const portion = meter.portion(1, opts.wholeAfterPositions ?? WHOLE_AFTER_POSITIONS_WORK);
-    const plan = coreHeuristic(whole.problem, rules, portion, false);
-    meter.settle(portion);
-    if (plan !== null) consider(expandPlan(whole, plan));
+    const most = opts.wholeAfterPositions ?? WHOLE_AFTER_POSITIONS_WORK;
+    if (most > 0) {
+      const portion = meter.portion(1, most);
+      const plan = coreHeuristic(whole.problem, rules, portion, false);
+      meter.settle(portion);
+      if (plan !== null) consider(expandPlan(whole, plan));
+    }
   } else {
     const plan = coreHeuristic(whole.problem, rules, meter, false);
-    if (plan !== null) consider(expandPlan(whole, refinePlan(whole.problem, rules, plan, meter)));
+    if (plan !== null)
+      consider(expandPlan(whole, refinePlan(whole.problem, rules, plan, meter, { restarts: true, kickWork: SMALL_KICK_WORK })));
   }
   return best;
 }
