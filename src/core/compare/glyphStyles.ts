@@ -127,10 +127,21 @@ export function figureStatus(matrix: { readonly optimal: boolean }, mode: SynthS
 }
 
 /**
- * Synthesizes every glyph-variant combination. A display with few outputs
- * (where the exact search usually proves the optimum at once) gives each run
- * the project's whole time limit; a bigger one shares the limit out over the
- * combinations, at least 1 s each.
+ * True when a comparison row gets the project's whole time limit: the fast
+ * mode (the heuristic ends in well under a second whatever the limit, and
+ * its work budget comes from the limit, so a row worked out as the live
+ * result is shows the count that adopting it gives), and small displays at
+ * depth 2, where the exact search usually proves the optimum at once.
+ */
+export function ownLimit(settings: SynthSettings, outputs: number): boolean {
+  return settings.mode === "fast" || (settings.depthLimit === 2 && outputs <= SEARCH_MAX_OUTPUTS);
+}
+
+/**
+ * Synthesizes every glyph-variant combination. The fast mode and a display
+ * with few outputs (see `ownLimit`) give each run the project's whole time
+ * limit; else the limit is shared out over the combinations, at least 1 s
+ * each.
  *
  * @example
  * const r = await compareGlyphStyles(project, { settings: { mode: "fast" } });
@@ -160,7 +171,7 @@ export async function compareGlyphStyles(project: Project, options: CompareOptio
     }
     options.onRowStart?.({ index, total, key, glyphs: combo });
     const spec = compileSpec(withGlyphs(project, combo));
-    const settings = base.depthLimit === 2 && spec.outputs.length <= SEARCH_MAX_OUTPUTS ? base : shared;
+    const settings = ownLimit(base, spec.outputs.length) ? base : shared;
     const r = await synthesize(spec, settings, options.hooks ?? {});
     if (!r.ok) return r;
     const m = r.value;

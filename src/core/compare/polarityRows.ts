@@ -18,9 +18,8 @@ import { darkOutputs, matrixObjective } from "../matrix/matrix.ts";
 import type { DecodePolarity, Project } from "../project/project.ts";
 import { checkPolarity } from "../project/polaritySchema.ts";
 import { ok, type Problem, type Result } from "../result/result.ts";
-import { SEARCH_MAX_OUTPUTS } from "../synth/search.ts";
 import { synthesize, synthSettings, type SynthFailure, type SynthHooks, type SynthSettings } from "../synth/synthesize.ts";
-import { figureStatus, variantChoices, withGlyphs, type FigureStatus } from "./glyphStyles.ts";
+import { figureStatus, ownLimit, variantChoices, withGlyphs, type FigureStatus } from "./glyphStyles.ts";
 
 /** One glyph style decoded in one polarity. */
 export interface PolarityRow {
@@ -59,8 +58,8 @@ const MAX_COMBINATIONS = 8;
 /**
  * Synthesizes every glyph style in every decode polarity, on complementary
  * counter lines. The time limit is shared out as `compareGlyphStyles` does:
- * small displays get the whole limit per run, bigger ones a share (at least
- * 1 s each). Rows come in glyph-style order, lit, dark, either within each.
+ * the fast mode and small displays get the whole limit per run, bigger ones
+ * a share (at least 1 s each). Rows come in glyph-style order, lit, dark, either within each.
  *
  * @example
  * const r = await comparePolarities(project, { settings: { mode: "fast" } });
@@ -104,7 +103,7 @@ export async function comparePolarities(
         options.onRow?.(row, rows.length - 1, runs);
         continue;
       }
-      const settings = base.depthLimit === 2 && spec.outputs.length <= SEARCH_MAX_OUTPUTS ? base : shared;
+      const settings = ownLimit(base, spec.outputs.length) ? base : shared;
       const r = await synthesize(spec, settings, options.hooks ?? {});
       if (!r.ok) return r;
       const m = r.value;

@@ -43,6 +43,27 @@ describe("glyphStyles against single runs", () => {
     }
   });
 
+  it("works every row out in the fast mode as the live result would, however many rows share the limit (00-23, two positions)", async () => {
+    const { compileSpec } = await import("../../../../src/core/spec/decodeSpec.ts");
+    const { synthesize, synthSettings } = await import("../../../../src/core/synth/synthesize.ts");
+    const { segmentsOfString } = await import("../../../../src/core/glyphs/glyphs.ts");
+    // 14 outputs: a limit shared out would give each of the 8 rows 1 s, and the heuristic a smaller work budget
+    // than the live result's (00-23 per-segment: 91 diodes at 1 s, 89 at 8 s).
+    const p = project(
+      Array.from({ length: 24 }, (_, k) => String(k).padStart(2, "0")),
+      { display: { positions: 2 }, synthesis: { depth: "per-segment", timeLimitMs: 8000 } },
+    );
+    const r = await compareGlyphStyles(p, { settings: { mode: "fast" } });
+    if (!r.ok) throw new Error(JSON.stringify(r.error));
+    expect(r.value).toHaveLength(8);
+    for (const row of r.value) {
+      const glyphs = { ...p.glyphs, ...Object.fromEntries(Object.entries(row.glyphs).map(([ch, lit]) => [ch, segmentsOfString(lit)])) };
+      const live = await synthesize(compileSpec({ ...p, glyphs }), synthSettings(p, { mode: "fast" }));
+      if (!live.ok) throw new Error(JSON.stringify(live.error));
+      expect(row.count).toBe(live.value.count);
+    }
+  }, 120_000);
+
   it("gives the hex monitor's own glyphs the proven count a synth run gives (0-F, per-segment)", async () => {
     const { compileSpec } = await import("../../../../src/core/spec/decodeSpec.ts");
     const { synthesize, synthSettings } = await import("../../../../src/core/synth/synthesize.ts");
