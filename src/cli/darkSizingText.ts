@@ -1,11 +1,11 @@
 /**
  * How much room the dark-decoded outputs' sized network leaves, in words,
  * for `synth` and `budget`: the margin to each limit of the ghost check,
- * and, where the margin to the limit that stops a smaller value is thin,
- * that the value is the smallest that passes and what the next E24 value
- * up would give (solved, every state at both corners).
+ * and, where the margin to the limit that stops a smaller value is thin
+ * (the sizing could not leave more), what the next E24 value up would give
+ * (solved, every state at both corners).
  */
-import { checkWith, pullUpCandidates } from "../core/budget/ghostCheck.ts";
+import { checkWith, PULL_UP_ROOM, pullUpCandidates } from "../core/budget/ghostCheck.ts";
 import type { DarkNetworkValues } from "../core/matrix/designators.ts";
 import type { VerifiedMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
@@ -14,11 +14,10 @@ import { darkMargins, darkMarginsText, darkWhere, type GhostFigures } from "../r
 import { formatOhms, microamps, milliamps } from "../render/units.ts";
 
 /**
- * A margin under this share of its limit is called thin: the tolerance
- * corners already hold the parts' spread, so this is what is left for a
- * part off its datasheet (common practice, no source).
+ * A margin under this share of its limit is called thin: the room the
+ * sizing gives a pull-up where it can (ghostCheck.ts `PULL_UP_ROOM`).
  */
-export const THIN_MARGIN = 0.2;
+export const THIN_MARGIN = PULL_UP_ROOM;
 
 const pct = (share: number): string => `${(100 * share).toFixed(1)} %`;
 
@@ -26,8 +25,7 @@ const pct = (share: number): string => `${(100 * share).toFixed(1)} %`;
  * The margin lines: every limit's margin, then, where the network passes and
  * the limit a smaller value breaks (the ghost limit or the active-low line's
  * rating, whichever has less room) has less than `THIN_MARGIN` left, a line
- * saying the value is the smallest that passes and, for level-shift diodes,
- * what the next E24 pull-up up gives.
+ * saying so and, for level-shift diodes, what the next E24 pull-up up gives.
  *
  * @param design the current-setting resistors of the design, ohms, by output (a trim)
  */
@@ -55,7 +53,7 @@ export function darkMarginLines(
     return lines;
   }
   const next = pullUpCandidates().find((r) => r > network.pullUpOhms);
-  const head = `thin margin, ${pct(binding)} to ${limit}: ${formatOhms(network.pullUpOhms)} is the smallest E24 pull-up that passes`;
+  const head = `thin margin, ${pct(binding)} to ${limit}: no E24 pull-up from ${formatOhms(network.pullUpOhms)} up leaves ${pct(THIN_MARGIN)} there and keeps every limit`;
   if (next === undefined) {
     lines.push(`${head} (and the largest tried)`);
     return lines;

@@ -15,8 +15,10 @@
  *
  * Sizing (`sizeDarkNetwork`): the pull-up is an E24 value from 1 kΩ to
  * 100 kΩ. With level-shift diodes (as many as the spec's level-shift
- * arithmetic asks for) it is the smallest that passes, the one with the
- * most drive. With a divider (an upper resistor from the node to the
+ * arithmetic asks for) it is the smallest that passes (the one with the
+ * most drive), or, where that leaves less than 20 % to the ghost limit or
+ * the active-low line's rating, the first value up that leaves 20 % and
+ * still passes (`PULL_UP_ROOM`). With a divider (an upper resistor from the node to the
  * driver's input, a lower one from there to ground in place of the
  * pull-down): the smallest pull-up that keeps the active-low lines within
  * their rating and the next two; for each, every E6 lower resistor from
@@ -258,18 +260,50 @@ export function sizeDarkNetwork(
   return spec.polarity.darkInput === "divider" ? sizeDivider(sizer) : sizePullUp(sizer, spec.polarity.inputDiodes ?? 0);
 }
 
-/** Level-shift diodes: the smallest pull-up that keeps every limit. */
+/**
+ * The room a pull-up should leave to the ghost limit and to the active-low
+ * line's rating, as a share of each: the corners already hold the parts'
+ * spread, so this is what is left for a part off its datasheet (common
+ * practice, no source).
+ */
+export const PULL_UP_ROOM = 0.2;
+
+/** The smaller of the shares left to the ghost limit and to the line's rating: both grow with the pull-up. */
+export function pullUpRoom(g: Pick<GhostCheck, "ghostLimitA" | "worstUnlit" | "lineRatedA" | "mostSunk">): number {
+  return Math.min((g.ghostLimitA - g.worstUnlit.currentA) / g.ghostLimitA, (g.lineRatedA - g.mostSunk.currentA) / g.lineRatedA);
+}
+
+/**
+ * Level-shift diodes: from the smallest pull-up that keeps every limit (the
+ * one with the most drive) up to the first that also leaves `PULL_UP_ROOM`
+ * to the ghost limit and the line's rating, as long as each keeps every
+ * limit (a larger pull-up only takes drive from the lit segments).
+ */
 function sizePullUp(sizer: Sizer, shiftDiodes: number): Result<GhostCheck, GhostFailure> {
   let previous: GhostCheck | null = null;
   let fallback: GhostCheck | null = null;
-  for (const pullUpOhms of pullUpCandidates()) {
-    const r = sizer.passes({ pullUpOhms, shiftDiodes, dividerOhms: null, dividerLowerOhms: null });
+  const candidates = pullUpCandidates();
+  const at = (pullUpOhms: number): DarkNetworkValues => ({ pullUpOhms, shiftDiodes, dividerOhms: null, dividerLowerOhms: null });
+  for (let i = 0; i < candidates.length; i++) {
+    const r = sizer.passes(at(candidates[i] as number));
     if (!r.ok) return r;
     const g = r.value.check;
     if (g.passes) {
-      const binding =
+      const smallest =
         previous === null ? "every limit holds at the smallest pull-up tried (1 kΩ)" : `a smaller pull-up breaks ${previous.binding}`;
-      return ok({ ...g, binding });
+      let chosen = g;
+      // Up the series while the room is short and the next value keeps every limit; a solve the clock cuts keeps the last.
+      for (let j = i + 1; j < candidates.length && pullUpRoom(chosen) < PULL_UP_ROOM; j++) {
+        const up = sizer.passes(at(candidates[j] as number));
+        if (!up.ok || !up.value.check.passes) break;
+        chosen = up.value.check;
+      }
+      if (chosen === g) return ok({ ...g, binding: smallest });
+      const share = (x: number): string => `${(100 * x).toFixed(1)} %`;
+      const binding =
+        `a smaller pull-up leaves less than ${share(PULL_UP_ROOM)} to the ghost limit or the active-low line's rating ` +
+        `(${g.values.pullUpOhms / 1000} kΩ, the smallest that keeps every limit, leaves ${share(pullUpRoom(g))}; ${smallest})`;
+      return ok({ ...chosen, binding });
     }
     if (fallback === null && darkHolds(g)) fallback = g;
     previous = g;

@@ -7,6 +7,7 @@
 import { describe, expect, it } from "vitest";
 import { darkMarginLines, THIN_MARGIN } from "../../../src/cli/darkSizingText.ts";
 import { darkMargins, type GhostFigures } from "../../../src/render/darkBudgetText.ts";
+import { formatOhms } from "../../../src/render/units.ts";
 import { checkWith, sizeDarkNetwork } from "../../../src/core/budget/ghostCheck.ts";
 import { compileSpec } from "../../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../../src/core/synth/synthesize.ts";
@@ -35,7 +36,7 @@ describe("margins of the dark-decoded outputs' network", () => {
     expect(THIN_MARGIN).toBe(0.2);
   });
 
-  it("a thin margin at the limit a smaller pull-up breaks names the smallest passing value and solves the next one up", async () => {
+  it("a thin margin at the limit a smaller pull-up breaks says no value up leaves the room and solves the next one up", async () => {
     const project = makeProject2({
       counter: { states: 10, drive: "complementary" },
       display: { positions: 1, cell: "seg7" },
@@ -59,7 +60,9 @@ describe("margins of the dark-decoded outputs' network", () => {
     const thin = darkMarginLines(project, spec, r.value, net, figures(90e-6, 1e-3));
     expect(thin).toHaveLength(2);
     expect(thin[1]).toMatch(/^thin margin, 10\.0 % to the ghost limit \(90\.0 of 100\.0 µA, 1d in S1, high corner\): /);
-    expect(thin[1]).toContain(`is the smallest E24 pull-up that passes; the next one up, `);
+    expect(thin[1]).toContain(
+      `: no E24 pull-up from ${formatOhms(net.pullUpOhms)} up leaves 20.0 % there and keeps every limit; the next one up, `,
+    );
     const next = Number(/the next one up, ([\d.]+)k/.exec(thin[1] ?? "")?.[1]) * 1000;
     expect(next).toBeGreaterThan(net.pullUpOhms);
     const check = checkWith(project, spec, r.value, { ...net, pullUpOhms: next });

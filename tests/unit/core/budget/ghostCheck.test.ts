@@ -3,7 +3,9 @@ import {
   checkWith,
   dividerCandidates,
   dividerLowerCandidates,
+  PULL_UP_ROOM,
   pullUpCandidates,
+  pullUpRoom,
   sizeDarkNetwork,
 } from "../../../../src/core/budget/ghostCheck.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
@@ -52,6 +54,7 @@ describe("ghostCheck", () => {
     // Every state at the nominal values and both corners.
     expect(v.states).toHaveLength(3 * 6);
     expect(v.binding).toMatch(/^a smaller pull-up breaks /);
+    expect(pullUpRoom(v)).toBeGreaterThanOrEqual(PULL_UP_ROOM);
     // The next smaller E24 value breaks the limit the sizing names, in the full check.
     const candidates = pullUpCandidates();
     const smaller = candidates[candidates.indexOf(v.values.pullUpOhms) - 1] as number;
@@ -59,6 +62,44 @@ describe("ghostCheck", () => {
     expect(worse.ok && worse.value.passes).toBe(false);
     if (worse.ok) expect(v.binding).toContain(worse.value.binding.split(" (")[0]);
   });
+
+  it("goes up from the smallest passing pull-up to the first that leaves 20 % to the ghost limit and the line's rating", async () => {
+    // 0-9 decoded either way on the 5 V preset: the smallest pull-up that keeps every limit leaves the
+    // ghost limit only about 12 % (the room is our own rule, common practice, no source).
+    const project = makeProject2({
+      counter: { states: 10, drive: "complementary" },
+      display: {},
+      show: [..."0123456789"],
+      synthesis: { depth: "mixed", decode: "either", timeLimitMs: 5000 },
+    });
+    const spec = compileSpec(project);
+    const r = await synthesize(spec, synthSettings(project));
+    if (!r.ok) throw new Error(JSON.stringify(r.error));
+    const g = sizeDarkNetwork(project, spec, r.value);
+    if (!g.ok) throw new Error(g.error.message);
+    const v = g.value;
+    expect(v.passes).toBe(true);
+    expect(pullUpRoom(v)).toBeGreaterThanOrEqual(PULL_UP_ROOM);
+    expect(v.binding).toMatch(
+      /^a smaller pull-up leaves less than 20\.0 % to the ghost limit or the active-low line's rating \([\d.]+ kΩ, the smallest that keeps every limit, leaves [\d.]+ %; a smaller pull-up breaks /,
+    );
+    // Every value below it, down to the smallest that passes, keeps every limit with less room, in the full check;
+    // the one below that breaks a limit.
+    const candidates = pullUpCandidates();
+    let k = candidates.indexOf(v.values.pullUpOhms) - 1;
+    let below = checkWith(project, spec, r.value, { ...v.values, pullUpOhms: candidates[k] as number });
+    if (!below.ok) throw new Error(below.error.message);
+    expect(below.value.passes).toBe(true);
+    while (below.ok && below.value.passes) {
+      expect(pullUpRoom(below.value)).toBeLessThan(PULL_UP_ROOM);
+      k -= 1;
+      below = checkWith(project, spec, r.value, { ...v.values, pullUpOhms: candidates[k] as number });
+    }
+    if (!below.ok) throw new Error(below.error.message);
+    expect(below.value.passes).toBe(false);
+    const smallest = candidates[k + 1] as number;
+    expect(v.binding).toContain(`(${smallest / 1000} kΩ, the smallest that keeps every limit`);
+  }, 60_000);
 
   it("sizes a divider whose lit segments are within the budget's window, and names what binds", async () => {
     const { project, spec, matrix } = await design("dark", "divider");
