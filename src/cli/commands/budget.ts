@@ -3,7 +3,7 @@ import type { Budget, DarkBudget } from "../../core/budget/budgetTypes.ts";
 import { designNote } from "../../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
-import type { Project } from "../../core/project/project.ts";
+import type { DriverKind, Project } from "../../core/project/project.ts";
 import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
 import { darkFigureLines, darkNetworkText } from "../../render/darkBudgetText.ts";
@@ -336,8 +336,22 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     );
   }
   L.push(
-    `  ${b.corners.meetsTarget ? "Meets" : "Misses"} the target: every corner within ±${b.corners.windowPct} % of ${amps(e.segment.targetA, unit)} ${unit}, under the rating, no driver saturating (a switch saturated)`,
+    `  ${b.corners.meetsTarget ? "Meets" : "Misses"} the target: every corner within ±${b.corners.windowPct} % of ${amps(e.segment.targetA, unit)} ${unit}, under the rating${driverRule(e.driver.kind)}`,
   );
   L.push(`  Temperature: VT = kT/q; silicon Is(T) as SPICE scales it (EG 1.11 eV, XTI 3); LEDs -2 mV/°C at constant current`);
   return L.join("\n") + "\n";
+}
+
+/** What the target asks of the driver kind, after the window and the rating (budget.ts `meetsTarget`). */
+function driverRule(kind: DriverKind): string {
+  switch (kind) {
+    case "low-side-switch":
+    case "high-side-switch":
+      return ", every switch saturated";
+    case "current-sink":
+    case "emitter-follower":
+      return ", every driver out of saturation (collector-base headroom above 0 V)";
+    case "direct":
+      return "";
+  }
 }

@@ -4,8 +4,8 @@ import { solveBudget } from "../../../../src/core/budget/budget.ts";
 import { describeBudget } from "../../../../src/cli/commands/budget.ts";
 import { recordingIo } from "../../../support/recordingIo.ts";
 import { formatOhms } from "../../../../src/render/units.ts";
-import { ONE_SEVEN_EIGHT_TEXT } from "../../../support/projects.ts";
-import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
+import { ONE_SEVEN_EIGHT_TEXT, showing, showingWith } from "../../../support/projects.ts";
+import { directDesign, sharedDieRoller } from "../../../support/budgetFixtures.ts";
 
 const PROJECT = ONE_SEVEN_EIGHT_TEXT;
 
@@ -89,5 +89,37 @@ describe("budget command", () => {
     for (const [o, dr] of Object.entries(b.value.drivers)) {
       expect(text).toMatch(new RegExp(`^  ${o} .* ${dr.currentResistor.ref} +${formatOhms(dr.currentResistor.ohms)} +`, "m"));
     }
+  });
+
+  it("says what the target asks of the driver kind: a switch saturated, a sink or follower out of saturation", () => {
+    // Common practice, no source: a switch is meant to saturate (its forced beta below the smallest
+    // beta), a current sink or emitter follower to stay out of saturation (collector-base headroom).
+    const wants: Record<string, string> = {
+      "low-side-switch": ", every switch saturated",
+      "high-side-switch": ", every switch saturated",
+      "current-sink": ", every driver out of saturation (collector-base headroom above 0 V)",
+      "emitter-follower": ", every driver out of saturation (collector-base headroom above 0 V)",
+    };
+    const kinds = new Set<string>();
+    for (const d of [
+      sharedDieRoller(),
+      directDesign("1 7", showing(["1", "7"], 1)),
+      directDesign("1 7 switch", showingWith(["1", "7"], { preset: "bench-5v-switch" })),
+      directDesign("1 7 sink", showingWith(["1", "7"], { preset: "panel-12v-sink" })),
+      directDesign("1 7 follower", showingWith(["1", "7"], { preset: "cathode-5v-follower" })),
+    ]) {
+      const b = solveBudget(d.project, d.spec, d.matrix);
+      if (!b.ok) throw new Error(b.error.message);
+      const kind = d.project.electrical.driver.kind;
+      kinds.add(kind);
+      const line = describeBudget(d.project, d.spec, d.matrix, b.value)
+        .split("\n")
+        .find((l) => /^ {2}(Meets|Misses) the target: /.test(l));
+      expect(line?.endsWith(`under the rating${wants[kind] ?? ""}`), `${kind}: ${line}`).toBe(true);
+      expect(line).not.toContain("(a switch saturated)");
+    }
+    // Both families are covered.
+    expect([...kinds].some((k) => k.endsWith("switch"))).toBe(true);
+    expect([...kinds].some((k) => !k.endsWith("switch"))).toBe(true);
   });
 });
