@@ -20,7 +20,7 @@ import type { DcMethod } from "../circuit/dcSolver.ts";
 import type { CurrentResistorRole, PartResistorRole } from "../matrix/designators.ts";
 import type { DriverKind } from "../project/project.ts";
 import type { WarningLevel } from "./safety.ts";
-import type { DarkLimit, DarkStateFigures, GhostFigure } from "./ghostCheck.ts";
+import type { DarkFigures, DarkLimit } from "./ghostCheck.ts";
 
 export const BUDGET_SCHEMA = "diodeloom/budget@3";
 
@@ -398,7 +398,7 @@ export interface DarkInputBudget {
  * the ghost check of the design, every state at the nominal values and
  * both corners (ghostCheck.ts).
  */
-export interface DarkBudget {
+export interface DarkBudget extends DarkFigures {
   /** `level-shift` or `divider`. */
   readonly input: "level-shift" | "divider";
   readonly pullUpOhms: number;
@@ -409,20 +409,6 @@ export interface DarkBudget {
   /** What bleeds the driver's input: the pull-down, or the divider's lower resistor in its place. */
   readonly bleedOhms: number;
   readonly outputs: readonly DarkInputBudget[];
-  readonly ghostLimitA: number;
-  /** Target ± the window, as the corners judge every segment. */
-  readonly litWindowA: readonly [number, number];
-  /** What an active-low line may sink. */
-  readonly lineRatedA: number;
-  readonly worstUnlit: GhostFigure;
-  readonly weakestLit: GhostFigure;
-  readonly strongestLit: GhostFigure;
-  /** The most an active-low line sinks (`output` names the line). */
-  readonly mostSunk: GhostFigure;
-  /** Every state at every corner. */
-  readonly states: readonly DarkStateFigures[];
-  readonly broken: readonly DarkLimit[];
-  readonly passes: boolean;
   /** The limits broken and where, in words, or "every limit holds". */
   readonly verdict: string;
   /** How the sizing chose the values: the limit that stops a smaller one, or the one no value keeps. */

@@ -74,13 +74,12 @@ export interface DarkStateFigures {
   readonly lineSinkA: number;
 }
 
-export interface GhostCheck {
-  readonly values: DarkNetworkValues;
+/** What every limit of the check came to: the ghost check's own result and the budget's `dark` section share these. */
+export interface DarkFigures {
   /** The ghost limit, amperes. */
   readonly ghostLimitA: number;
-  /** The lit window, amperes: target ± windowPct. */
+  /** The lit window, amperes: target ± the window, as the corners judge every segment. */
   readonly litWindowA: readonly [number, number];
-  readonly windowPct: number;
   /** The active-low line's rating, amperes. */
   readonly lineRatedA: number;
   /** The largest unlit current of a dark-decoded output's segment. */
@@ -95,10 +94,15 @@ export interface GhostCheck {
   readonly states: readonly DarkStateFigures[];
   /** The limits broken, in the order of `DarkLimit`; empty when every one holds. */
   readonly broken: readonly DarkLimit[];
-  /** Each broken limit and where, in words. */
-  readonly why: Readonly<Partial<Record<DarkLimit, string>>>;
   /** True when every limit holds. */
   readonly passes: boolean;
+}
+
+export interface GhostCheck extends DarkFigures {
+  readonly values: DarkNetworkValues;
+  readonly windowPct: number;
+  /** Each broken limit and where, in words. */
+  readonly why: Readonly<Partial<Record<DarkLimit, string>>>;
   /** Which limit stops a smaller value (or which is broken), in words. */
   readonly binding: string;
 }
