@@ -25,7 +25,9 @@
  * 1 kΩ up with the smallest E24 upper resistor (1 kΩ to 1 MΩ, by bisection:
  * a larger one only pulls the driver's input lower) that keeps the dark
  * limits, and of those the one that leaves the lit segments the most
- * current. The result says which limit stops a smaller value. Where no
+ * current, then up the series for the same room (`roomSteps`: the pull-up,
+ * and where the ghost limit is short the upper resistor). The result says
+ * which limit stops a smaller value. Where no
  * value keeps every limit, the sizing keeps the dark limits first (a ghost
  * is a wrong digit, a dim segment only a dim one) and says which limit is
  * broken.
@@ -273,37 +275,92 @@ export function sizeDarkNetwork(
 export const PULL_UP_ROOM = 0.2;
 
 /** The smaller of the shares left to the ghost limit and to the line's rating: both grow with the pull-up. */
-export function pullUpRoom(g: Pick<GhostCheck, "ghostLimitA" | "worstUnlit" | "lineRatedA" | "mostSunk">): number {
-  return Math.min((g.ghostLimitA - g.worstUnlit.currentA) / g.ghostLimitA, (g.lineRatedA - g.mostSunk.currentA) / g.lineRatedA);
+export function pullUpRoom(g: RoomFigures): number {
+  const room = rooms(g);
+  return Math.min(room.ghost, room.lineSink);
+}
+
+/** Room left to the ghost limit and to the line's rating, each as a share of its limit. */
+function rooms(g: RoomFigures): { readonly ghost: number; readonly lineSink: number } {
+  return { ghost: (g.ghostLimitA - g.worstUnlit.currentA) / g.ghostLimitA, lineSink: (g.lineRatedA - g.mostSunk.currentA) / g.lineRatedA };
+}
+
+/** The figures the room is worked out from (a `GhostCheck`, or the budget's `dark` section). */
+export type RoomFigures = Pick<GhostCheck, "ghostLimitA" | "worstUnlit" | "lineRatedA" | "mostSunk">;
+
+/** The next value of an ascending series above `ohms`, or null at its top. */
+function nextUp(series: readonly number[], ohms: number): number | null {
+  return series.find((v) => v > ohms) ?? null;
 }
 
 /**
- * Level-shift diodes: from the smallest pull-up that keeps every limit (the
- * one with the most drive) up to the first that also leaves `PULL_UP_ROOM`
- * to the ghost limit and the line's rating, as long as each keeps every
- * limit (a larger pull-up only takes drive from the lit segments).
+ * One step up the E24 series from sized values that leave less than
+ * `PULL_UP_ROOM` to the ghost limit or the line's rating: the values to
+ * try, in order (the sizing takes the first that keeps every limit); empty
+ * at the top of the series or when the room is there.
+ *
+ * The next pull-up raises both rooms (the line sinks less, and a
+ * pulled-down node sits lower with less current). With a divider, where
+ * the ghost limit is short, the next upper resistor too (it pulls an unlit
+ * output's driver input lower): tried first where the line's room is
+ * there, after the pull-up where it is short too.
+ */
+export function roomSteps(values: DarkNetworkValues, g: RoomFigures): DarkNetworkValues[] {
+  const room = rooms(g);
+  if (Math.min(room.ghost, room.lineSink) >= PULL_UP_ROOM) return [];
+  const pullUp = nextUp(pullUpCandidates(), values.pullUpOhms);
+  const upper = values.dividerOhms === null || room.ghost >= PULL_UP_ROOM ? null : nextUp(dividerCandidates(), values.dividerOhms);
+  const steps = [
+    ...(pullUp === null ? [] : [{ ...values, pullUpOhms: pullUp }]),
+    ...(upper === null ? [] : [{ ...values, dividerOhms: upper }]),
+  ];
+  // The line's room short: the pull-up first, as it raises both; the ghost limit's alone: the divider first.
+  return room.lineSink < PULL_UP_ROOM ? steps : steps.reverse();
+}
+
+/**
+ * From the smallest values that keep every limit, up the series
+ * (`roomSteps`) while the values leave less than `PULL_UP_ROOM` to the
+ * ghost limit or the line's rating and a step keeps every limit: larger
+ * values only take a little drive from the lit segments. A solve the clock
+ * cuts keeps the last values. Returns the check of the values taken, the
+ * smallest's own when no step keeps every limit.
+ */
+function upForRoom(sizer: Sizer, smallest: GhostCheck): GhostCheck {
+  let chosen = smallest;
+  for (;;) {
+    let next: GhostCheck | null = null;
+    for (const values of roomSteps(chosen.values, chosen)) {
+      const r = sizer.passes(values);
+      if (!r.ok) return chosen;
+      if (r.value.check.passes) {
+        next = r.value.check;
+        break;
+      }
+    }
+    if (next === null) return chosen;
+    chosen = next;
+  }
+}
+
+const share = (x: number): string => `${(100 * x).toFixed(1)} %`;
+
+/**
+ * Level-shift diodes: the smallest pull-up that keeps every limit (the one
+ * with the most drive), then up the series for room (`upForRoom`).
  */
 function sizePullUp(sizer: Sizer, shiftDiodes: number): Result<GhostCheck, GhostFailure> {
   let previous: GhostCheck | null = null;
   let fallback: GhostCheck | null = null;
-  const candidates = pullUpCandidates();
-  const at = (pullUpOhms: number): DarkNetworkValues => ({ pullUpOhms, shiftDiodes, dividerOhms: null, dividerLowerOhms: null });
-  for (let i = 0; i < candidates.length; i++) {
-    const r = sizer.passes(at(candidates[i] as number));
+  for (const pullUpOhms of pullUpCandidates()) {
+    const r = sizer.passes({ pullUpOhms, shiftDiodes, dividerOhms: null, dividerLowerOhms: null });
     if (!r.ok) return r;
     const g = r.value.check;
     if (g.passes) {
       const smallest =
         previous === null ? "every limit holds at the smallest pull-up tried (1 kΩ)" : `a smaller pull-up breaks ${previous.binding}`;
-      let chosen = g;
-      // Up the series while the room is short and the next value keeps every limit; a solve the clock cuts keeps the last.
-      for (let j = i + 1; j < candidates.length && pullUpRoom(chosen) < PULL_UP_ROOM; j++) {
-        const up = sizer.passes(at(candidates[j] as number));
-        if (!up.ok || !up.value.check.passes) break;
-        chosen = up.value.check;
-      }
+      const chosen = upForRoom(sizer, g);
       if (chosen === g) return ok({ ...g, binding: smallest });
-      const share = (x: number): string => `${(100 * x).toFixed(1)} %`;
       const binding =
         `a smaller pull-up leaves less than ${share(PULL_UP_ROOM)} to the ghost limit or the active-low line's rating ` +
         `(${g.values.pullUpOhms / 1000} kΩ, the smallest that keeps every limit, leaves ${share(pullUpRoom(g))}; ${smallest})`;
@@ -323,6 +380,11 @@ function nonePasses(sizer: Sizer, best: GhostCheck, what: string): Result<GhostC
     ...f.value,
     binding: `no ${what} tried keeps every limit; the dark limits kept with the most lit current: ${f.value.binding}`,
   });
+}
+
+/** A divider's values in words: `4.7 kΩ pull-ups over 12 kΩ upper resistors`. */
+function dividerText(v: DarkNetworkValues): string {
+  return `${v.pullUpOhms / 1000} kΩ pull-ups over ${(v.dividerOhms as number) / 1000} kΩ upper resistors`;
 }
 
 /** The divider's lower resistors tried, ohms: E6 from 1 kOhm to 100 kOhm. */
@@ -410,10 +472,18 @@ function sizeDivider(sizer: Sizer): Result<GhostCheck, GhostFailure> {
               ? "the smallest tried"
               : `a smaller one breaks ${belowSink.why["line-sink"] ?? belowSink.binding}`
             : "a smaller one leaves the lit segments less current at the smallest divider that keeps them dark";
-        const binding =
+        const sized =
           `pull-up: ${pullUpWhy}; divider: ${bestHere.why === "" ? "the smallest upper resistor tried" : `a smaller upper resistor breaks ${bestHere.why}`}; ` +
           `its lower resistor (${(v.dividerLowerOhms as number) / 1000} kΩ) is the one that leaves the lit segments the most current`;
-        return ok({ ...r.value.check, binding });
+        const smallest = r.value.check;
+        const chosen = upForRoom(sizer, smallest);
+        if (chosen === smallest) return ok({ ...smallest, binding: sized });
+        const c = chosen.values;
+        const binding =
+          `${sized}; then up the series, as ${dividerText(v)}, the smallest that keep every limit, leave ${share(pullUpRoom(smallest))} ` +
+          `to the ghost limit or the active-low line's rating, less than ${share(PULL_UP_ROOM)}: ` +
+          `${dividerText(c)} leave ${share(pullUpRoom(chosen))}${pullUpRoom(chosen) < PULL_UP_ROOM ? " (no value further up keeps every limit)" : ""}`;
+        return ok({ ...chosen, binding });
       }
     }
   }

@@ -8,7 +8,7 @@ import { describe, expect, it } from "vitest";
 import { darkMarginLines, THIN_MARGIN } from "../../../src/cli/darkSizingText.ts";
 import { darkMargins, type GhostFigures } from "../../../src/render/darkBudgetText.ts";
 import { formatOhms } from "../../../src/render/units.ts";
-import { checkWith, sizeDarkNetwork } from "../../../src/core/budget/ghostCheck.ts";
+import { checkWith, dividerCandidates, pullUpCandidates, sizeDarkNetwork } from "../../../src/core/budget/ghostCheck.ts";
 import { compileSpec } from "../../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../../src/core/synth/synthesize.ts";
 import { makeProject2 } from "../../support/projects.ts";
@@ -73,5 +73,41 @@ describe("margins of the dark-decoded outputs' network", () => {
     expect(sink[1]).toMatch(/^thin margin, 10\.0 % to the active-low line's rating \(4\.500 of 5\.00 mA, nS1 in S1, high corner\)/);
     // A failing network gets the margins only (the verdict says what breaks).
     expect(darkMarginLines(project, spec, r.value, net, { ...figures(120e-6, 1e-3), passes: false })).toHaveLength(1);
+  }, 60_000);
+
+  it("a divider's thin margin says no step up leaves the room and solves each step the sizing would try", async () => {
+    const project = makeProject2({
+      counter: { states: 10, drive: "complementary" },
+      display: { positions: 1, cell: "seg7" },
+      show: [..."0123456789"],
+      synthesis: { depth: "mixed", decode: "dark", darkInput: "divider", timeLimitMs: 5000 },
+    });
+    const spec = compileSpec(project);
+    const r = await synthesize(spec, synthSettings(project, { mode: "fast" }));
+    if (!r.ok) throw new Error(r.error.message);
+    const sized = sizeDarkNetwork(project, spec, r.value);
+    if (!sized.ok) throw new Error(sized.error.message);
+    const net = sized.value.values;
+    const upper = net.dividerOhms as number;
+    const nextUpper = dividerCandidates().find((u) => u > upper) as number;
+    const nextPullUp = pullUpCandidates().find((p) => p > net.pullUpOhms) as number;
+    const solved = (values: typeof net): string => {
+      const c = checkWith(project, spec, r.value, values);
+      if (!c.ok) throw new Error(c.error.message);
+      return c.value.passes ? "passes too" : `breaks ${c.value.binding}`;
+    };
+    // The ghost limit short (10 %), the line's rating not (80 %): the next upper resistor first, then the next pull-up.
+    const ghost = darkMarginLines(project, spec, r.value, net, figures(90e-6, 1e-3));
+    expect(ghost).toHaveLength(2);
+    expect(ghost[1]).toMatch(/^thin margin, 10\.0 % to the ghost limit \(90\.0 of 100\.0 µA, 1d in S1, high corner\): /);
+    expect(ghost[1]).toContain(
+      `: no E24 step up from ${formatOhms(net.pullUpOhms)} pull-ups over ${formatOhms(upper)} upper resistors (${formatOhms(net.dividerLowerOhms as number)} lower ones) leaves 20.0 % there and keeps every limit; ` +
+        `the next one up, ${formatOhms(nextUpper)} upper resistors, ${solved({ ...net, dividerOhms: nextUpper })}: `,
+    );
+    expect(ghost[1]).toContain(`; or ${formatOhms(nextPullUp)} pull-ups, ${solved({ ...net, pullUpOhms: nextPullUp })}: `);
+    // The line's rating short alone: the pull-up only.
+    const sink = darkMarginLines(project, spec, r.value, net, figures(10e-6, 4.5e-3));
+    expect(sink[1]).toContain(`; the next one up, ${formatOhms(nextPullUp)} pull-ups, `);
+    expect(sink[1]).not.toContain("upper resistors, ");
   }, 60_000);
 });

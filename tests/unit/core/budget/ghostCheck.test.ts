@@ -6,6 +6,7 @@ import {
   PULL_UP_ROOM,
   pullUpCandidates,
   pullUpRoom,
+  roomSteps,
   sizeDarkNetwork,
 } from "../../../../src/core/budget/ghostCheck.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
@@ -99,6 +100,89 @@ describe("ghostCheck", () => {
     expect(below.value.passes).toBe(false);
     const smallest = candidates[k + 1] as number;
     expect(v.binding).toContain(`(${smallest / 1000} kΩ, the smallest that keeps every limit`);
+  }, 60_000);
+
+  it("a step up for room: the next pull-up where the line's rating is short, a divider's next upper resistor first where only the ghost limit is", () => {
+    const at = { output: "1e", state: "S1", corner: "high" };
+    const figures = (unlitA: number, sunkA: number) => ({
+      ghostLimitA: 100e-6,
+      lineRatedA: 5e-3,
+      worstUnlit: { ...at, currentA: unlitA },
+      mostSunk: { ...at, output: "nS1", currentA: sunkA },
+    });
+    const divider = { pullUpOhms: 4700, shiftDiodes: 0, dividerOhms: 12_000, dividerLowerOhms: 10_000 };
+    const shift = { pullUpOhms: 4300, shiftDiodes: 2, dividerOhms: null, dividerLowerOhms: null };
+    // 15 % to the ghost limit ((100 - 85) / 100), 60 % to the line's rating ((5 - 2) / 5): the upper resistor, then the pull-up.
+    expect(roomSteps(divider, figures(85e-6, 2e-3))).toEqual([
+      { ...divider, dividerOhms: 13_000 },
+      { ...divider, pullUpOhms: 5100 },
+    ]);
+    // 40 % and 12 % ((5 - 4.4) / 5): the pull-up alone, as a larger upper resistor takes nothing off the line.
+    expect(roomSteps(divider, figures(60e-6, 4.4e-3))).toEqual([{ ...divider, pullUpOhms: 5100 }]);
+    // Both short: the pull-up first, as it raises both.
+    expect(roomSteps(divider, figures(85e-6, 4.4e-3))).toEqual([
+      { ...divider, pullUpOhms: 5100 },
+      { ...divider, dividerOhms: 13_000 },
+    ]);
+    // Level-shift diodes: the pull-up, as the pull-up's sizing steps.
+    expect(roomSteps(shift, figures(85e-6, 2e-3))).toEqual([{ ...shift, pullUpOhms: 4700 }]);
+    // 21 % and 22 %: no step; the top of both series: none.
+    expect(roomSteps(divider, figures(79e-6, 3.9e-3))).toEqual([]);
+    expect(roomSteps({ ...divider, pullUpOhms: 100_000, dividerOhms: 1_000_000 }, figures(85e-6, 4.4e-3))).toEqual([]);
+  });
+
+  it("goes up from the smallest divider values that keep every limit to the first that leave 20 % to the ghost limit and the line's rating", async () => {
+    // 0-9 decoded dark at depth 1 through dividers on the 5 V preset: 4.7 kΩ pull-ups over 3.6 kΩ upper resistors
+    // (15 kΩ lower ones) are the smallest that keep every limit and leave the line's rating 9.6 % (the room is our own
+    // rule, common practice, no source).
+    const project = makeProject2({
+      counter: { states: 10, drive: "complementary" },
+      display: { positions: 1, cell: "seg7" },
+      show: [..."0123456789"],
+      synthesis: { maxDepth: 1, decode: "dark", darkInput: "divider", timeLimitMs: 5000 },
+    });
+    const spec = compileSpec(project);
+    const r = await synthesize(spec, synthSettings(project));
+    if (!r.ok) throw new Error(JSON.stringify(r.error));
+    const g = sizeDarkNetwork(project, spec, r.value);
+    if (!g.ok) throw new Error(g.error.message);
+    const v = g.value;
+    expect(v.passes, v.binding).toBe(true);
+    expect(pullUpRoom(v)).toBeGreaterThanOrEqual(PULL_UP_ROOM);
+    const said =
+      /; then up the series, as ([\d.]+) kΩ pull-ups over ([\d.]+) kΩ upper resistors, the smallest that keep every limit, leave ([\d.]+) % to the ghost limit or the active-low line's rating, less than 20\.0 %: ([\d.]+) kΩ pull-ups over ([\d.]+) kΩ upper resistors leave ([\d.]+) %$/.exec(
+        v.binding,
+      );
+    expect(said, v.binding).not.toBeNull();
+    const [pullUp0, upper0, room0, pullUp1, upper1, room1] = (said ?? []).slice(1).map(Number) as number[];
+    expect([pullUp1, upper1]).toEqual([v.values.pullUpOhms / 1000, (v.values.dividerOhms as number) / 1000]);
+    expect(room1).toBeCloseTo(100 * pullUpRoom(v), 1);
+    const smallest = { ...v.values, pullUpOhms: (pullUp0 as number) * 1000, dividerOhms: (upper0 as number) * 1000 };
+    const full = (values: typeof smallest) => {
+      const c = checkWith(project, spec, r.value, values);
+      if (!c.ok) throw new Error(c.error.message);
+      return c.value;
+    };
+    // The smallest keeps every limit with less room, as it says; one value down of either breaks a limit, in the full check.
+    const s = full(smallest);
+    expect(s.passes).toBe(true);
+    expect(pullUpRoom(s)).toBeLessThan(PULL_UP_ROOM);
+    expect(100 * pullUpRoom(s)).toBeCloseTo(room0 as number, 1);
+    const pullUps = pullUpCandidates();
+    const uppers = dividerCandidates();
+    expect(full({ ...smallest, pullUpOhms: pullUps[pullUps.indexOf(smallest.pullUpOhms) - 1] as number }).passes).toBe(false);
+    expect(full({ ...smallest, dividerOhms: uppers[uppers.indexOf(smallest.dividerOhms) - 1] as number }).passes).toBe(false);
+    // Every value between the smallest and the one taken keeps every limit with less room.
+    const between = pullUps.filter((p) => p >= smallest.pullUpOhms && p <= v.values.pullUpOhms);
+    const betweenUpper = uppers.filter((u) => u >= smallest.dividerOhms && u <= (v.values.dividerOhms as number));
+    expect(between.length * betweenUpper.length).toBeGreaterThan(1);
+    for (const p of between)
+      for (const u of betweenUpper) {
+        if (p === v.values.pullUpOhms && u === v.values.dividerOhms) continue;
+        const c = full({ ...smallest, pullUpOhms: p, dividerOhms: u });
+        expect(c.passes, `${p} over ${u}`).toBe(true);
+        expect(pullUpRoom(c), `${p} over ${u}`).toBeLessThan(PULL_UP_ROOM);
+      }
   }, 60_000);
 
   it("sizes a divider whose lit segments are within the budget's window, and names what binds", async () => {
