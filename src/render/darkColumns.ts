@@ -8,6 +8,12 @@
  * The divider's lower resistor stands at the driver (it takes the place of
  * the pull-down) and is drawn on the driver sheet.
  *
+ * The same band holds the pull-up of every AND gate of a coded counter's
+ * decoder, at the top of the gate's column (its node), from the same rail.
+ * A column's pull-up is drawn once, on the sheet holding the column's top;
+ * a sheet further down that shows the column names it there instead, with
+ * the sheet it is drawn on.
+ *
  * Pure layout in millimetres: the grid gives the bands' heights, the sheet
  * layout says where they land on paper and which columns it shows.
  */
@@ -16,7 +22,7 @@ import { designators, type DarkNetworkValues } from "../core/matrix/designators.
 import { LOGIC_SUPPLY_NET, driverInputNet } from "../core/papers/wiringList.ts";
 import type { Project } from "../core/project/project.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
-import { STROKE, label, type Dot, type Label, type Point, type Polygon, type Segment } from "./drawingModel.ts";
+import { STROKE, label, textWidth, type Dot, type Label, type Point, type Polygon, type Segment } from "./drawingModel.ts";
 import type { Metrics } from "./layoutMetrics.ts";
 import { formatOhms } from "./units.ts";
 
@@ -38,17 +44,23 @@ export interface DarkColumn {
   readonly divider: ColumnPart | null;
 }
 
-/** Heights of the bands a drawing with dark-decoded columns adds, millimetres (all 0 without). */
-export interface DarkBands {
-  /** The line under the column heads that says each output column's polarity. */
+/** An AND gate's column: the gate (its node's net) and the pull-up at its top. */
+export interface GateColumn {
+  readonly gate: string;
+  readonly pullUp: ColumnPart;
+}
+
+/** Heights of the bands that dark-decoded columns and AND gates add to a drawing, millimetres (all 0 without). */
+export interface ColumnBands {
+  /** The line under the column heads that says each output column's polarity (dark-decoded columns only). */
   readonly markH: number;
-  /** The band between the heads and the matrix holding the VLOGIC rail and the pull-ups. */
+  /** The band between the heads and the matrix holding the VLOGIC rail and the pull-ups (dark columns' and gates'). */
   readonly pullUpH: number;
   /** The band under the matrix holding the level-shift diodes or dividers, above the drivers' names. */
   readonly footH: number;
 }
 
-export const NO_DARK_BANDS: DarkBands = { markH: 0, pullUpH: 0, footH: 0 };
+export const NO_COLUMN_BANDS: ColumnBands = { markH: 0, pullUpH: 0, footH: 0 };
 
 /** Length of one level-shift diode's place in the foot band, in units of the scale. */
 const SHIFT_PITCH = 5;
@@ -56,7 +68,10 @@ const SHIFT_PITCH = 5;
 const BODY_LEN = 5;
 const BODY_W = 1.6;
 /** Where the VLOGIC rail sits below the top of the pull-up band, in units of the scale. */
-const RAIL_DROP = 2.5;
+const RAIL_DROP = 1.5;
+/** From the rail to a pull-up's body, and from its body to the band's foot, in units of the scale. */
+const LEAD = 1.5;
+const FOOT_LEAD = 1.5;
 
 /**
  * The dark-decoded columns of a matrix with their parts' designators, and
@@ -78,28 +93,63 @@ export function darkColumns(project: Project, spec: DecodeSpec, matrix: DiodeMat
   }));
 }
 
-/** The bands the dark-decoded columns need at a scale. */
-export function darkBands(columns: readonly DarkColumn[], m: Metrics): DarkBands {
-  if (columns.length === 0) return NO_DARK_BANDS;
+/**
+ * The AND gates of a coded counter's decoder with their pull-ups'
+ * designators and values (the BOM's: `gatePullUp` ohms each).
+ *
+ * @example
+ * gateColumns(project, spec, matrix)[0]; // { gate: "G1", pullUp: { ref: "R29", ohms: 4700 } }
+ */
+export function gateColumns(project: Project, spec: DecodeSpec, matrix: DiodeMatrix): GateColumn[] {
+  if (matrix.gates.length === 0) return [];
+  return designators(spec, matrix, project.electrical).gates.map((g) => ({
+    gate: g.gate,
+    pullUp: { ref: g.pullUp.ref, ohms: g.pullUp.ohms },
+  }));
+}
+
+/** The bands the dark-decoded columns and the AND gates' pull-ups need at a scale. */
+export function columnBands(dark: readonly DarkColumn[], gates: readonly GateColumn[], m: Metrics): ColumnBands {
+  if (dark.length === 0 && gates.length === 0) return NO_COLUMN_BANDS;
   const s = m.scale;
   const foot = Math.max(
-    ...columns.map((c) => (c.divider !== null ? BODY_LEN + 5 : c.shiftDiodes.length * SHIFT_PITCH + (c.shiftDiodes.length > 0 ? 2 : 0))),
+    0,
+    ...dark.map((c) => (c.divider !== null ? BODY_LEN + 5 : c.shiftDiodes.length * SHIFT_PITCH + (c.shiftDiodes.length > 0 ? 2 : 0))),
   );
-  return { markH: 2.8 * s, pullUpH: 13 * s, footH: foot * s };
+  return { markH: dark.length > 0 ? 2.8 * s : 0, pullUpH: (RAIL_DROP + LEAD + BODY_LEN + FOOT_LEAD) * s, footH: foot * s };
 }
 
 /**
- * Every text a column's parts print beside it, for the column pitch. A
- * value not sized yet takes the room of the widest E24 value from 1 kΩ to
- * 1 MΩ (`100k`), so the sheet keeps its layout, and its zones, once the
- * values are printed.
+ * The column pitch the bands' texts need, millimetres: a part's designator
+ * and value start just right of its symbol and must end clear of the next
+ * column's symbol (a resistor body or a level-shift diode, the widest
+ * thing the bands put on a column's line); a cross-reference is centred on
+ * its column. A value not sized yet takes the room of the widest E24 value
+ * from 1 kΩ to 1 MΩ (`100k`), so the sheet keeps its layout, and its
+ * zones, once the values are printed.
  */
-export function darkColumnTexts(columns: readonly DarkColumn[]): string[] {
-  return columns.flatMap((c) => [...partTexts(c.pullUp), ...(c.divider === null ? [] : partTexts(c.divider)), ...c.shiftDiodes]);
+export function bandPitch(columns: readonly DarkColumn[], gates: readonly GateColumn[], m: Metrics): number {
+  const s = m.scale;
+  const texts = [
+    ...columns.flatMap((c) => [...partTexts(c.pullUp), ...(c.divider === null ? [] : partTexts(c.divider)), ...c.shiftDiodes]),
+    ...gates.flatMap((g) => partTexts(g.pullUp)),
+  ];
+  if (texts.length === 0) return 0;
+  // Where the texts start right of a column (`resistor`, `diodeDown`), and the half width of the next column's symbol.
+  const start = Math.max((BODY_W / 2 + 0.6) * s, m.symbolHalf + 0.5 * s);
+  const symbolHalf = Math.max((BODY_W / 2) * s, m.symbolHalf);
+  const beside = start + Math.max(...texts.map((t) => textWidth(t, m.refSize))) + TEXT_GAP * s + symbolHalf;
+  const refs = [...columns.map((c) => c.pullUp.ref), ...gates.map((g) => g.pullUp.ref), WIDEST_SHEET_MARK];
+  const centred = Math.max(...refs.map((t) => textWidth(t, m.contSize))) + TEXT_GAP * s;
+  return Math.max(beside, centred);
 }
 
 /** The widest value text a part of the network can print (E24 from 1 kΩ to 1 MΩ, as formatOhms writes it). */
 const WIDEST_VALUE = "100k";
+/** The widest sheet mark a cross-reference prints (a drawing of up to 99 sheets). */
+const WIDEST_SHEET_MARK = "sh.99";
+/** Room between a symbol and its text, and between a text and the next column's symbol, in units of the scale. */
+const TEXT_GAP = 0.6;
 
 function partTexts(p: ColumnPart): string[] {
   return [p.ref, p.ohms === null ? WIDEST_VALUE : formatOhms(p.ohms)];
@@ -117,11 +167,15 @@ export interface BandInk {
 
 const emptyBand = (): BandInk => ({ segments: [], polygons: [], dots: [], labels: [], places: [] });
 
-/** A column on paper: its x and what it carries (null for a lit-decoded column). */
+/** A column on paper: its x, its net and what it carries. */
 export interface PlacedColumn {
   readonly x: number;
-  readonly output: string;
+  /** The column's net: an output line, a bus or an AND gate's node. */
+  readonly net: string;
+  /** A dark-decoded output's parts; null for any other column. */
   readonly dark: DarkColumn | null;
+  /** The pull-up at the column's top, from VLOGIC (a dark-decoded output's or an AND gate's); null for none. */
+  readonly pullUp: ColumnPart | null;
 }
 
 /**
@@ -134,9 +188,10 @@ export function polarityMarks(columns: readonly PlacedColumn[], baseline: number
 
 /**
  * The pull-up band: the VLOGIC rail from the matrix's left edge (`left`,
- * its name right-aligned at `nameRight` like a row's) to the last dark
- * column, and under it each dark column's pull-up with its designator and
- * value, its lower lead running down to the matrix's top (`gridTop`).
+ * its name right-aligned at `nameRight` like a row's) to the last column
+ * with a pull-up, and under it each such column's pull-up (a dark-decoded
+ * output's or an AND gate's) with its designator and value, its lower lead
+ * running down to the matrix's top (`gridTop`).
  */
 export function pullUpBand(
   columns: readonly PlacedColumn[],
@@ -144,20 +199,39 @@ export function pullUpBand(
   m: Metrics,
 ): BandInk {
   const ink = emptyBand();
-  const dark = columns.filter((c) => c.dark !== null);
-  const last = dark[dark.length - 1];
+  const pulled = columns.filter((c) => c.pullUp !== null);
+  const last = pulled[pulled.length - 1];
   if (last === undefined) return ink;
   const s = m.scale;
   const railY = band.top + RAIL_DROP * s;
   ink.segments.push({ a: { x: band.left, y: railY }, b: { x: last.x, y: railY }, width: STROKE.wire, net: LOGIC_SUPPLY_NET });
   ink.labels.push(label(LOGIC_SUPPLY_NET, { x: band.nameRight, y: railY + 0.36 * m.rowSize }, m.rowSize, "row", { anchor: "end" }));
-  for (const c of dark) {
-    const d = c.dark as DarkColumn;
-    const bodyTop = railY + 1.5 * s;
-    resistor(ink, c.x, railY, bodyTop, band.gridTop, LOGIC_SUPPLY_NET, c.output, d.pullUp, m);
+  for (const c of pulled) {
+    const bodyTop = railY + LEAD * s;
+    resistor(ink, c.x, railY, bodyTop, band.gridTop, LOGIC_SUPPLY_NET, c.net, c.pullUp as ColumnPart, m);
     if (c !== last) ink.dots.push({ at: { x: c.x, y: railY }, r: m.dotR, net: LOGIC_SUPPLY_NET });
   }
   return ink;
+}
+
+/**
+ * The pull-up band of a sheet below the one that draws the pull-ups: over
+ * each column with a pull-up, where the part would hang, its designator and
+ * the sheet it is drawn on (`sh.N`, as a continuation mark names a sheet),
+ * so that a builder working from this sheet finds it. Nothing is drawn
+ * twice: the part itself, its rail and its zone stay on sheet `sheet`.
+ */
+export function pullUpReferences(columns: readonly PlacedColumn[], band: { readonly top: number }, sheet: number, m: Metrics): Label[] {
+  const s = m.scale;
+  const refY = band.top + (RAIL_DROP + LEAD + BODY_LEN / 2) * s;
+  return columns.flatMap((c) =>
+    c.pullUp === null
+      ? []
+      : [
+          label(c.pullUp.ref, { x: c.x, y: refY - 0.15 * m.contSize }, m.contSize, "continuation", { anchor: "middle" }),
+          label(`sh.${sheet}`, { x: c.x, y: refY + 1.15 * m.contSize }, m.contSize, "continuation", { anchor: "middle" }),
+        ],
+  );
 }
 
 /**
@@ -176,24 +250,24 @@ export function footBand(
   for (const c of columns) {
     const d = c.dark;
     if (d === null) {
-      ink.segments.push({ a: { x: c.x, y: band.gridBottom }, b: { x: c.x, y: band.footTop }, width: STROKE.wire, net: c.output });
+      ink.segments.push({ a: { x: c.x, y: band.gridBottom }, b: { x: c.x, y: band.footTop }, width: STROKE.wire, net: c.net });
       continue;
     }
-    const input = driverInputNet(c.output);
+    const input = driverInputNet(c.net);
     if (d.divider !== null) {
-      resistor(ink, c.x, band.gridBottom, band.gridBottom + 2 * s, band.footTop, c.output, input, d.divider, m);
+      resistor(ink, c.x, band.gridBottom, band.gridBottom + 2 * s, band.footTop, c.net, input, d.divider, m);
       continue;
     }
     let y = band.gridBottom;
     d.shiftDiodes.forEach((ref, j) => {
-      const from = j === 0 ? c.output : `${c.output}/${j}`;
-      const to = j === d.shiftDiodes.length - 1 ? input : `${c.output}/${j + 1}`;
+      const from = j === 0 ? c.net : `${c.net}/${j}`;
+      const to = j === d.shiftDiodes.length - 1 ? input : `${c.net}/${j + 1}`;
       const end = j === d.shiftDiodes.length - 1 ? band.footTop : y + SHIFT_PITCH * s;
       diodeDown(ink, c.x, y, y + SHIFT_PITCH * s, end, from, to, ref, m);
       y += SHIFT_PITCH * s;
     });
     if (d.shiftDiodes.length === 0)
-      ink.segments.push({ a: { x: c.x, y: band.gridBottom }, b: { x: c.x, y: band.footTop }, width: STROKE.wire, net: c.output });
+      ink.segments.push({ a: { x: c.x, y: band.gridBottom }, b: { x: c.x, y: band.footTop }, width: STROKE.wire, net: c.net });
   }
   return ink;
 }

@@ -34,7 +34,7 @@ export interface DiodePlacement {
 
 export interface MatrixDrawing {
   readonly sheets: readonly Sheet[];
-  /** Sheet and zone of every diode, and of every part a dark-decoded column carries, by reference. */
+  /** Sheet and zone of every diode, and of every part a dark-decoded column or an AND gate's column carries, by reference. */
   readonly placements: ReadonlyMap<string, DiodePlacement>;
 }
 
@@ -48,7 +48,8 @@ const ORIENTATIONS: readonly Orientation[] = ["landscape", "portrait"];
  * the lines that pass through it are marked with the sheet they continue on.
  * A dark-decoded output's column carries its pull-up above the matrix and
  * its level-shift diodes or divider below it (darkColumns.ts); their values
- * are printed once `darkValues`, the budget's sized network, is given.
+ * are printed once `darkValues`, the budget's sized network, is given. An
+ * AND gate's column carries its pull-up the same way, with its value.
  *
  * @example
  * const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project));
@@ -94,6 +95,7 @@ export function layoutMatrix(
       number: i + 1,
       count,
       continues: (net, edge) => continues(b.ri, b.ci, net, edge),
+      pullUpSheet: grid.pullUps.size > 0 ? (sheetOf.get(`0,${b.ci}`) ?? null) : null,
       options,
       title: project.title,
       cell: spec.cell,

@@ -13,7 +13,8 @@
  *
  * A coded counter's decoder has the stage lines (`Q0`, `nQ0`, ...) as its
  * first rows and its AND gates drawn like buses: a gate column on the left,
- * with the gate's pull-up at its top and one diode to each input row (drawn
+ * with the gate's pull-up at its top (hanging from the VLOGIC rail above the
+ * matrix, darkColumns.ts) and one diode to each input row (drawn
  * reversed: anode on the column, band on the stage line), joined at a corner
  * to the gate's row, which feeds the outputs. Millimetres, in grid
  * coordinates (the sheet layout moves them onto paper).
@@ -26,7 +27,16 @@ import { boundingBox, textWidth, type DiodeSymbol, type Dot, type Point } from "
 import { glyphKeyHeight } from "./glyphKey.ts";
 import { findDots } from "./junctions.ts";
 import type { Metrics } from "./layoutMetrics.ts";
-import { darkBands, darkColumnTexts, darkColumns, type DarkBands, type DarkColumn } from "./darkColumns.ts";
+import {
+  bandPitch,
+  columnBands,
+  darkColumns,
+  gateColumns,
+  type ColumnBands,
+  type ColumnPart,
+  type DarkColumn,
+  type GateColumn,
+} from "./darkColumns.ts";
 import type { DarkNetworkValues } from "../core/matrix/designators.ts";
 
 export type RowKind = "state" | "line" | "gate" | "bus" | "link";
@@ -67,8 +77,12 @@ export interface Grid {
   readonly keyH: number;
   /** The dark-decoded columns with their pull-ups and input networks (empty when every output is decoded lit). */
   readonly dark: readonly DarkColumn[];
-  /** The bands the dark-decoded columns add above and below the matrix (all 0 without). */
-  readonly bands: DarkBands;
+  /** The AND gates with the pull-ups at their columns' tops (empty for a one-hot counter). */
+  readonly gates: readonly GateColumn[];
+  /** The pull-up at the top of every column that has one (a dark-decoded output's or an AND gate's), by the column's net. */
+  readonly pullUps: ReadonlyMap<string, ColumnPart>;
+  /** The bands the dark-decoded columns and the gates' pull-ups add above and below the matrix (all 0 without). */
+  readonly bands: ColumnBands;
   readonly m: Metrics;
 }
 
@@ -113,8 +127,14 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
     }),
   ];
   const dark = darkColumns(project, spec, matrix, darkValues);
-  const refW = Math.max(0, ...[...matrix.diodes.map((d) => d.ref), ...darkColumnTexts(dark)].map((t) => textWidth(t, m.refSize)));
-  const pitchX = Math.ceil(Math.max(m.minPitchX, m.leftPad + 1.0 * m.scale + refW + 0.6 * m.scale) * 10) / 10;
+  const gateParts = gateColumns(project, spec, matrix);
+  const pullUps = new Map<string, ColumnPart>([
+    ...gateParts.map((g) => [g.gate, g.pullUp] as const),
+    ...dark.map((d) => [d.output, d.pullUp] as const),
+  ]);
+  const refW = Math.max(0, ...matrix.diodes.map((d) => textWidth(d.ref, m.refSize)));
+  const pitchX =
+    Math.ceil(Math.max(m.minPitchX, m.leftPad + 1.0 * m.scale + refW + 0.6 * m.scale, bandPitch(dark, gateParts, m)) * 10) / 10;
   const rowOf = new Map(rows.map((r, i) => [r.net, i]));
   const colOf = new Map(columns.map((c, i) => [c.net, i]));
   const C = Math.max(columns.length, 1);
@@ -175,7 +195,21 @@ export function buildGrid(project: Project, spec: DecodeSpec, matrix: DiodeMatri
   const groupSizes = new Map<string, number>();
   for (const c of columns) if (c.kind === "output") groupSizes.set(c.group, (groupSizes.get(c.group) ?? 0) + 1);
   const keyH = Math.max(0, ...[...groupSizes.values()].map((n) => glyphKeyHeight(spec.cell, n * pitchX - 1.6, m.scale)));
-  return { rows, columns, pitchX, wires, diodes, dots, rotateHeads, keyH, dark, bands: darkBands(dark, m), m };
+  return {
+    rows,
+    columns,
+    pitchX,
+    wires,
+    diodes,
+    dots,
+    rotateHeads,
+    keyH,
+    dark,
+    gates: gateParts,
+    pullUps,
+    bands: columnBands(dark, gateParts, m),
+    m,
+  };
 }
 
 /**

@@ -28,7 +28,7 @@ import { diodeSymbol, X, Y, type Grid, type GridColumn, type GridRow } from "./l
 import { GAP, type Metrics } from "./layoutMetrics.ts";
 import type { Edge } from "./continuation.ts";
 import { bottomBand, headerHeight, rowLabelWidth, type Chunk, type Plan } from "./pagination.ts";
-import { footBand, polarityMarks, pullUpBand, type BandInk, type PlacedColumn } from "./darkColumns.ts";
+import { footBand, polarityMarks, pullUpBand, pullUpReferences, type BandInk, type PlacedColumn } from "./darkColumns.ts";
 import { notesBlock, sheetFrame, titleBlock, TITLE_BLOCK_MM, zoneOf } from "./sheetFrame.ts";
 
 /** What one sheet shows and where it sits among the others. */
@@ -43,6 +43,12 @@ export interface SheetJob {
   readonly count: number;
   /** The sheets a net cut at an edge of this sheet continues on; empty where it ends. */
   readonly continues: (net: string, edge: Edge) => readonly number[];
+  /**
+   * The sheet that draws the pull-ups of this sheet's columns: the one
+   * holding their tops (this sheet's own number on a sheet of the first
+   * rows); null when no column has a pull-up.
+   */
+  readonly pullUpSheet: number | null;
   readonly orientation: Orientation;
   readonly options: DrawingOptions;
   /** The project's title, for the title block. */
@@ -64,7 +70,7 @@ export interface SheetLayout {
  * Lays out one sheet of the drawing.
  *
  * @example
- * const { sheet, zones } = layoutSheet({ grid, plan, orientation: "landscape", rows, cols, number: 1, count: 1, continues: () => [], options, title, cell, diodeCount, notes });
+ * const { sheet, zones } = layoutSheet({ grid, plan, orientation: "landscape", rows, cols, number: 1, count: 1, continues: () => [], pullUpSheet: null, options, title, cell, diodeCount, notes });
  */
 export function layoutSheet(job: SheetJob): SheetLayout {
   const { grid, plan: p, rows, cols, number, count, continues, options, notes } = job;
@@ -170,6 +176,8 @@ export function layoutSheet(job: SheetJob): SheetLayout {
     zones.set(d.ref, zoneOf(frame.zones, moved.crossing));
   }
   const dots: Dot[] = grid.dots.filter((d) => inside(d.at)).map((d) => ({ ...d, at: at(d.at) }));
+  // The columns whose line this sheet shows, for the pull-ups' cross-references.
+  const shownColumns = new Set(segments.filter((s) => s.net !== undefined && s.a.x === s.b.x).map((s) => s.net as string));
   const bandDots: Dot[] = [];
 
   // Row labels.
@@ -238,17 +246,19 @@ export function layoutSheet(job: SheetJob): SheetLayout {
     }
   }
 
-  // Dark-decoded columns: the polarity of every output column under the heads, the pull-ups above
-  // the matrix on the sheets of its first rows, the level-shift diodes or dividers under it on those of its last.
-  if (grid.dark.length > 0) {
+  // Dark-decoded columns: the polarity of every output column under the heads; the pull-ups (dark columns'
+  // and AND gates') above the matrix on the sheets of its first rows, a cross-reference to them on the
+  // others; the level-shift diodes or dividers under it on the sheets of its last rows.
+  if (grid.dark.length > 0 || grid.pullUps.size > 0) {
     const darkOf = new Map(grid.dark.map((d) => [d.output, d]));
     const placed: PlacedColumn[] = [];
     for (let c = cols.first; c <= cols.last && c < grid.columns.length; c++) {
       const col = grid.columns[c] as GridColumn;
-      if (col.kind === "output") placed.push({ x: X(c, px) + dx, output: col.net, dark: darkOf.get(col.net) ?? null });
+      placed.push({ x: X(c, px) + dx, net: col.net, dark: darkOf.get(col.net) ?? null, pullUp: grid.pullUps.get(col.net) ?? null });
     }
+    const outputs = placed.filter((c, i) => (grid.columns[cols.first + i] as GridColumn).kind === "output");
     const bandsTop = region.y + headerH - grid.bands.pullUpH - grid.bands.markH;
-    labels.push(...polarityMarks(placed, bandsTop + 2.0 * m.scale, m));
+    if (grid.dark.length > 0) labels.push(...polarityMarks(outputs, bandsTop + 2.0 * m.scale, m));
     const add = (ink: BandInk): void => {
       segments.push(...ink.segments);
       polygons.push(...ink.polygons);
@@ -256,18 +266,22 @@ export function layoutSheet(job: SheetJob): SheetLayout {
       labels.push(...ink.labels);
       for (const q of ink.places) zones.set(q.ref, zoneOf(frame.zones, q.at));
     };
+    const bandTop = bandsTop + grid.bands.markH;
     if (rows.first === 0) {
-      add(
-        pullUpBand(
-          placed,
-          { top: bandsTop + grid.bands.markH, left: paperWin.left, nameRight: region.x + rowLabelW - 1.5, gridTop: paperWin.top },
+      add(pullUpBand(placed, { top: bandTop, left: paperWin.left, nameRight: region.x + rowLabelW - 1.5, gridTop: paperWin.top }, m));
+    } else if (job.pullUpSheet !== null) {
+      labels.push(
+        ...pullUpReferences(
+          placed.filter((c) => shownColumns.has(c.net)),
+          { top: bandTop },
+          job.pullUpSheet,
           m,
         ),
       );
     }
-    if (rows.last === grid.rows.length - 1) {
+    if (grid.dark.length > 0 && rows.last === grid.rows.length - 1) {
       const footY = paperWin.bottom + (p.vStrips ? m.stripH : 0) + grid.bands.footH + 3.2 * m.scale;
-      add(footBand(placed, { gridBottom: paperWin.bottom, footTop: footY - m.columnSize - 0.4 * m.scale }, m));
+      add(footBand(outputs, { gridBottom: paperWin.bottom, footTop: footY - m.columnSize - 0.4 * m.scale }, m));
     }
   }
 

@@ -67,6 +67,8 @@ export function matrixNotes(project: Project, spec: DecodeSpec, matrix: DiodeMat
   }
   if (spec.neverLit.length > 0) notes.push(`Never lit, not wired: ${someOf(spec.neverLit)}.`);
   if (continued) notes.push("An arrowhead with sh.N marks a line continued on sheet N.");
+  if (continued && (dark.length > 0 || matrix.gates.length > 0))
+    notes.push("A designator with sh.N over a column names the column's pull-up, drawn at its top on sheet N.");
   notes.push("Fit the diodes in the order of the wiring list, row by row, ticking each one.");
   return notes;
 }
@@ -103,7 +105,7 @@ function codedNotes(project: Project, spec: DecodeSpec, matrix: DiodeMatrix): st
   ];
   if (gates.length > 0) {
     notes.push(
-      `AND gates ${refRanges(gates)}: each gate's column is its node, pulled up from the top of the column (${refRanges(pullUps)} in gate order, ${formatOhms(project.electrical.gatePullUp)} each, from the ${project.electrical.logicSupply.volts} V logic supply, net VLOGIC) and held low by a diode to each input line; the column turns into the gate's row, which feeds the outputs.`,
+      `AND gates ${refRanges(gates)}: each gate's column is its node, pulled up by the resistor drawn at the column's top (${refRanges(pullUps)} in gate order, ${formatOhms(project.electrical.gatePullUp)} each, from the ${project.electrical.logicSupply.volts} V logic supply, net VLOGIC) and held low by a diode to each input line; the column turns into the gate's row, which feeds the outputs.`,
     );
   }
   const codes = spec.states.map((s, k) => `${s} ${spec.counter.codes[k]} "${spec.texts[k] ?? ""}"`);

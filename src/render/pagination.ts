@@ -49,7 +49,7 @@ export function footHeight(grid: Grid): number {
 
 export function rowLabelWidth(grid: Grid): number {
   const m = grid.m;
-  const names = [...grid.rows.map((r) => r.text), ...(grid.dark.length > 0 ? [LOGIC_SUPPLY_NET] : [])];
+  const names = [...grid.rows.map((r) => r.text), ...(grid.pullUps.size > 0 ? [LOGIC_SUPPLY_NET] : [])];
   return Math.max(...names.map((t) => textWidth(t, m.rowSize))) + 2;
 }
 
@@ -96,8 +96,9 @@ export interface Block {
 }
 
 /**
- * The blocks worth a sheet, in reading order: those holding a diode, and
- * those at the foot of an output column, which show its driver. A block
+ * The blocks worth a sheet, in reading order: those holding a diode,
+ * those at the foot of an output column, which show its driver, and those
+ * at the top of a column with a pull-up, which show the part. A block
  * with neither (counter lines crossing columns they do not feed, a bus's
  * corner) would be a sheet of bare lines, so it gets none; when no block
  * holds anything (a matrix without diodes), the first one is kept.
@@ -112,11 +113,10 @@ export function drawnBlocks(grid: Grid, p: Plan): Block[] {
     used.add(`${chunkOf(p.rowChunks, r)},${chunkOf(p.colChunks, c)}`);
   }
   const lastRow = p.rowChunks.length - 1;
-  const dark = new Set(grid.dark.map((d) => d.output));
   grid.columns.forEach((col, c) => {
     if (col.kind === "output" && col.foot) used.add(`${lastRow},${chunkOf(p.colChunks, c)}`);
-    // A dark-decoded column's pull-up stands above its first block.
-    if (dark.has(col.net)) used.add(`0,${chunkOf(p.colChunks, c)}`);
+    // A column's pull-up (a dark-decoded output's or an AND gate's) stands above its first block.
+    if (grid.pullUps.has(col.net)) used.add(`0,${chunkOf(p.colChunks, c)}`);
   });
   const blocks: Block[] = [];
   p.rowChunks.forEach((rows, ri) =>

@@ -79,11 +79,15 @@ export function tieOnsOf(input: Pick<PaperInput, "project" | "spec" | "matrix">)
   return tieOnRows(designators(input.spec, input.matrix, input.project.electrical).drivers);
 }
 
-/** The dark-decoded outputs' input network for the wiring list, with the values of the design the papers show and where the drawing has each part. */
+/**
+ * The AND gates' pull-ups and the dark-decoded outputs' input network for
+ * the wiring list, with the values of the design the papers show and where
+ * the drawing has each part.
+ */
 export function networkOf(input: Pick<PaperInput, "project" | "spec" | "matrix" | "budget" | "drawing">): NetworkRow[] {
   const design = paperDesign(input);
   return networkRows(
-    designators(input.spec, input.matrix, designModel(input.project.electrical, design), design.ohms).darkInputs,
+    designators(input.spec, input.matrix, designModel(input.project.electrical, design), design.ohms),
     input.drawing.placements,
   );
 }

@@ -7,7 +7,7 @@ import type { DiodeMatrix } from "../core/matrix/matrix.ts";
 import type { Project } from "../core/project/project.ts";
 import {
   INSPECTION_CHECKLIST,
-  NETWORK_HEADING,
+  networkHeading,
   TIE_ON_HEADING,
   WIRING_HEADER,
   type NetworkRow,
@@ -31,7 +31,7 @@ export interface WiringPageInput {
   readonly rows: readonly WiringRow[];
   /** The tie-on resistors of the tied-on outputs (none when no output is tied on). */
   readonly tieOns?: readonly TieOnRow[];
-  /** The dark-decoded outputs' input network (none when no output is decoded dark). */
+  /** The AND gates' pull-ups and the dark-decoded outputs' input network (none without gates or dark-decoded outputs). */
   readonly network?: readonly NetworkRow[];
   readonly options: DrawingOptions;
   /** Number of matrix drawing sheets the rows refer to. */
@@ -68,7 +68,7 @@ ${tieOns.map((t, i) => `<tr><td>T${i + 1}</td><td><b>${esc(t.ref)}</b></td><td>$
   const networkTable =
     network.length === 0
       ? ""
-      : `<h1>${esc(NETWORK_HEADING)}</h1>
+      : `<h1>${esc(networkHeading(network))}</h1>
 <table>
 <thead><tr><th>Step</th><th>Ref</th><th>Value</th><th>From</th><th>To</th><th>Sheet</th><th>Zone</th><th>Done</th></tr></thead>
 <tbody>

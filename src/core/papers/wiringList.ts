@@ -8,10 +8,12 @@
  *
  * A tied-on output (lit in every state) has no diode: its tie-on resistor
  * joins the logic supply's net VLOGIC to the output line. The list names
- * them after the diodes, so that the net and the part are wired too.
+ * them after the diodes, so that the net and the part are wired too, and
+ * last the pull-ups drawn at the columns' tops (an AND gate's, a
+ * dark-decoded output's) with a dark-decoded output's input network.
  */
 import { csvText } from "./csv.ts";
-import type { DarkInputParts, DriverParts } from "../matrix/designators.ts";
+import type { Designators, DriverParts } from "../matrix/designators.ts";
 import { darkSideDiodes, type DiodeMatrix } from "../matrix/matrix.ts";
 
 export interface WiringRow {
@@ -98,14 +100,15 @@ export const TIE_ON_HEADING =
   "Tied-on outputs (no diodes): each tie-on resistor from the logic supply net VLOGIC to the output line (a high-side switch's from the output line to GND)";
 
 /**
- * A part between a dark-decoded output's node and its driver: its pull-up
- * from the logic supply's net, its level-shift diodes (anode first) or its
- * divider's upper resistor, to the driver's input (`1a in`; the diodes'
- * joints between are `1a/1`, ...).
+ * A part at the top or foot of a column: an AND gate's pull-up from the
+ * logic supply's net to the gate node; or a part between a dark-decoded
+ * output's node and its driver: its pull-up from the logic supply's net,
+ * its level-shift diodes (anode first) or its divider's upper resistor, to
+ * the driver's input (`1a in`; the diodes' joints between are `1a/1`, ...).
  */
 export interface NetworkRow {
   readonly ref: string;
-  readonly part: "pull-up" | "level-shift diode" | "divider";
+  readonly part: "gate pull-up" | "pull-up" | "level-shift diode" | "divider";
   readonly from: string;
   readonly to: string;
   /** Ohms; null for a diode. */
@@ -122,17 +125,33 @@ export function driverInputNet(output: string): string {
 }
 
 /**
- * The input network of the dark-decoded outputs, output by output.
+ * The AND gates' pull-ups, gate by gate, then the input network of the
+ * dark-decoded outputs, output by output.
  *
  * @example
- * networkRows(designators(spec, matrix, e).darkInputs, drawing.placements)[0];
+ * networkRows(designators(spec, matrix, e), drawing.placements)[0];
  * // { ref: "R29", part: "pull-up", from: "VLOGIC", to: "1a", ohms: 4300, sheet: 1, zone: "A2" }
  */
-export function networkRows(inputs: readonly DarkInputParts[], placements?: ReadonlyMap<string, DrawingPosition>): NetworkRow[] {
+export function networkRows(
+  parts: Pick<Designators, "gates" | "darkInputs">,
+  placements?: ReadonlyMap<string, DrawingPosition>,
+): NetworkRow[] {
   const place = (ref: string): { sheet: number | null; zone: string } => {
     const at = placements?.get(ref);
     return { sheet: at?.sheet ?? null, zone: at?.zone ?? "" };
   };
+  const gates = parts.gates.map((g): NetworkRow => ({
+    ref: g.pullUp.ref,
+    part: "gate pull-up",
+    from: LOGIC_SUPPLY_NET,
+    to: g.gate,
+    ohms: g.pullUp.ohms,
+    ...place(g.pullUp.ref),
+  }));
+  return gates.concat(networkOfDark(parts.darkInputs, place));
+}
+
+function networkOfDark(inputs: Designators["darkInputs"], place: (ref: string) => { sheet: number | null; zone: string }): NetworkRow[] {
   return inputs.flatMap((p) => {
     const rows: NetworkRow[] = [
       { ref: p.pullUp.ref, part: "pull-up", from: LOGIC_SUPPLY_NET, to: p.output, ohms: p.pullUp.ohms, ...place(p.pullUp.ref) },
@@ -159,6 +178,20 @@ export function networkRows(inputs: readonly DarkInputParts[], placements?: Read
 export const NETWORK_HEADING =
   "Dark-decoded outputs' input network: each pull-up from VLOGIC to the output line, then its level-shift diodes (anode first, band towards the driver) or divider to the driver's input";
 
+/** The heading of the AND gates' pull-up rows. */
+export const GATE_PULL_UP_HEADING = "AND gates' pull-ups: each from VLOGIC to the gate node, at the top of the gate's column";
+
+/**
+ * The heading over a list of network rows: the gates' pull-ups', the
+ * dark-decoded outputs' input network's, or both joined.
+ */
+export function networkHeading(rows: readonly NetworkRow[]): string {
+  const gates = rows.some((r) => r.part === "gate pull-up");
+  const dark = rows.some((r) => r.part !== "gate pull-up");
+  if (gates && dark) return `${GATE_PULL_UP_HEADING}. ${NETWORK_HEADING}`;
+  return gates ? GATE_PULL_UP_HEADING : NETWORK_HEADING;
+}
+
 /** Column heads of the wiring CSV. */
 export const WIRING_HEADER = ["Step", "Ref", "From (anode)", "To (cathode, band)", "Sheet", "Zone", "Done"] as const;
 
@@ -168,7 +201,8 @@ export const WIRING_HEADER = ["Step", "Ref", "From (anode)", "To (cathode, band)
  * heading and one record per tie-on resistor (Step `T1`.., its reference,
  * VLOGIC, the output line); where outputs are decoded dark, a blank record,
  * their heading and one record per part of their input network (Step
- * `N1`..); then a blank record and the inspection
+ * `N1`..), after the AND gates' pull-ups where there are gates (the same
+ * records, under `networkHeading`); then a blank record and the inspection
  * checklist in the same columns (Step `C1`.., Ref the item, From the check).
  */
 export function wiringCsv(rows: readonly WiringRow[], tieOns: readonly TieOnRow[] = [], network: readonly NetworkRow[] = []): string {
@@ -189,7 +223,7 @@ export function wiringRecords(
   }
   if (network.length > 0) {
     records.push([]);
-    records.push([NETWORK_HEADING, "", "", "", "", "", ""]);
+    records.push([networkHeading(network), "", "", "", "", "", ""]);
     network.forEach((n, i) => records.push([`N${i + 1}`, n.ref, n.from, n.to, n.sheet ?? "", n.zone, ""]));
   }
   return records;

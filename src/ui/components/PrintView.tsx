@@ -9,7 +9,7 @@ import { designModel, designNote } from "../../core/budget/segmentDesign.ts";
 import { designators } from "../../core/matrix/designators.ts";
 import {
   INSPECTION_CHECKLIST,
-  NETWORK_HEADING,
+  networkHeading,
   networkRows,
   TIE_ON_HEADING,
   tieOnRows,
@@ -35,7 +35,7 @@ export function PrintView() {
       r,
       rows: wiringRows(r.matrix, drawing?.placements),
       tieOns: tieOnRows(parts.drivers),
-      network: networkRows(parts.darkInputs, drawing?.placements),
+      network: networkRows(parts, drawing?.placements),
       parts: budget ? bomLines(r.project.electrical, parts, design) : [],
       design,
     };
@@ -93,7 +93,7 @@ export function PrintView() {
             </table>
           </Show>
           <Show when={l().network.length > 0}>
-            <h2>{NETWORK_HEADING}</h2>
+            <h2>{networkHeading(l().network)}</h2>
             <table class="print-table" data-testid="print-network">
               <tbody>
                 <For each={l().network}>

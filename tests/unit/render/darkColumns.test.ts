@@ -25,6 +25,7 @@ import { layoutMatrix } from "../../../src/render/layout.ts";
 import { paperDarkValues } from "../../../src/render/papers.ts";
 import { formatOhms } from "../../../src/render/units.ts";
 import { arms, pieces, stubProblems, textProblems } from "../../support/layoutGeometry.ts";
+import { crossReferenceProblems, pullUpProblems, zoneFromMarks } from "../../support/pullUpChecks.ts";
 import { makeProject2 } from "../../support/projects.ts";
 
 async function solved(
@@ -163,7 +164,7 @@ describe("matrix drawing of dark-decoded columns", () => {
     );
   }, 60_000);
 
-  it("several sheets: each pull-up and each shift diode drawn once, every sheet's text clear", async () => {
+  it("several sheets: each pull-up and each shift diode drawn once, named with its sheet over its column on the sheets below, every sheet's text clear", async () => {
     const two = Array.from({ length: 24 }, (_, k) => String(k).padStart(2, "0"));
     const { project, spec, matrix } = await solved(two, { decode: "either" }, 2);
     const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project));
@@ -176,10 +177,27 @@ describe("matrix drawing of dark-decoded columns", () => {
     const parts = designators(spec, matrix, project.electrical).darkInputs;
     expect(parts.length).toBeGreaterThan(0);
     const count = (t: string): number => drawing.sheets.reduce((n, s) => n + texts(s).filter((x) => x === t).length, 0);
+    const drawn = (t: string): Sheet[] => drawing.sheets.filter((s) => s.labels.some((l) => l.role === "part" && l.text === t));
+    let crossed = 0;
     for (const p of parts) {
-      expect(count(p.pullUp.ref)).toBe(1);
       for (const d of p.shiftDiodes) expect(count(d)).toBe(1);
+      // The pull-up itself once, at its column's top, where the wiring list says; on every other sheet that shows
+      // the column, its designator and that sheet's number over the column.
+      const home = drawn(p.pullUp.ref);
+      expect(home).toHaveLength(1);
+      // Laid out before the budget: the designator alone.
+      const part = { ref: p.pullUp.ref, value: null, node: p.output };
+      const { at, problems } = pullUpProblems(home[0] as Sheet, part);
+      expect(problems).toEqual([]);
+      expect(drawing.placements.get(p.pullUp.ref)).toEqual({ sheet: home[0]?.number, zone: zoneFromMarks(home[0] as Sheet, at!) });
+      for (const s of drawing.sheets) {
+        if (s === home[0]) continue;
+        expect(crossReferenceProblems(s, part, home[0]?.number as number)).toEqual([]);
+        if (texts(s).includes(p.pullUp.ref)) crossed++;
+      }
     }
+    // The drawing has sheets below the first row of sheets, and they show dark columns.
+    expect(crossed).toBeGreaterThan(0);
   }, 60_000);
 
   it("a lit-only drawing has no polarity line, no rail and no foot parts", async () => {

@@ -4,7 +4,8 @@ import { buildMatrix, type DiodeMatrix } from "../../../src/core/matrix/matrix.t
 import type { Project } from "../../../src/core/project/project.ts";
 import type { DecodeSpec } from "../../../src/core/spec/decodeSpec.ts";
 import { synthesizeDirect } from "../../../src/core/synth/direct.ts";
-import type { Sheet } from "../../../src/render/drawingModel.ts";
+import type { Segment, Sheet } from "../../../src/render/drawingModel.ts";
+import { designators } from "../../../src/core/matrix/designators.ts";
 import { drawingOptions } from "../../../src/render/drawingOptions.ts";
 import { layoutMatrix } from "../../../src/render/layout.ts";
 import { PAPER_MM, FRAME_MM } from "../../../src/render/sheetFrame.ts";
@@ -80,7 +81,9 @@ describe.each(Object.entries(cases))("layout of the %s", (_, make) => {
     const refs = matrix.diodes.map((d) => d.ref).sort();
     expect(symbols).toEqual(refs);
     expect(labels).toEqual(refs);
-    expect([...drawing.placements.keys()].sort()).toEqual(refs);
+    // The placements: every diode's, and every AND gate's pull-up's (drawn at the top of its column).
+    const pullUps = designators(spec, matrix, project.electrical).gates.map((g) => g.pullUp.ref);
+    expect([...drawing.placements.keys()].sort()).toEqual([...refs, ...pullUps].sort());
   });
 
   it("puts every diode symbol on the crossing of its own row and column, cathode bar toward the driven line", () => {
@@ -313,9 +316,11 @@ describe("layout details", () => {
     const [sheet] = layoutMatrix(project, spec, matrix, drawingOptions(project)).sheets;
     const gate = matrix.gates[0]!;
     const wires = sheet!.segments.filter((s) => s.net === gate.ref);
-    expect(wires.length).toBe(2);
-    const column = wires.find((w) => w.a.x === w.b.x)!;
+    // The column, the row, and the lead of the pull-up above the column's top.
+    expect(wires.length).toBe(3);
+    const [lead, column] = wires.filter((w) => w.a.x === w.b.x).sort((a, b) => a.a.y - b.a.y) as [Segment, Segment];
     const row = wires.find((w) => w.a.y === w.b.y)!;
+    expect(samePoint(lead.b, column.a)).toBe(true);
     expect(samePoint(column.b, row.a)).toBe(true);
     expect(sheet!.dots.some((d) => samePoint(d.at, row.a))).toBe(false);
     const inputs = sheet!.diodes.filter((d) => d.from === gate.ref && matrix.lines.includes(d.to));
