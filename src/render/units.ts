@@ -47,6 +47,27 @@ export function milliampsExact(amperes: number): string {
   return String(Number((amperes * 1000).toPrecision(6)));
 }
 
+/**
+ * Amperes with the prefix that puts them between 1 and 1000, three
+ * significant figures, for currents from leakage up: 4.1537e-12 -> "4.15 pA",
+ * 7.18e-5 -> "71.8 µA"; 0 -> "0 A".
+ */
+export function currentText(amperes: number): string {
+  if (amperes === 0) return "0 A";
+  const prefixes = [
+    [1, "A"],
+    [1e-3, "mA"],
+    [1e-6, "µA"],
+    [1e-9, "nA"],
+    [1e-12, "pA"],
+    [1e-15, "fA"],
+  ] as const;
+  const mag = Math.abs(amperes);
+  // The first prefix at or below the value, where three significant figures do not round up to the next one.
+  const [scale, unit] = prefixes.find(([f]) => Number((mag / f).toPrecision(3)) >= 1) ?? ([1e-15, "fA"] as const);
+  return `${Number((amperes / scale).toPrecision(3))} ${unit}`;
+}
+
 /** Amperes with their unit, one decimal: "83.7 µA". */
 export function microampsText(amperes: number): string {
   return `${microamps(amperes)} µA`;

@@ -18,7 +18,9 @@
  * - the circuits of both tolerance corners run too: the budget's corner
  *   currents of the lit segments are ngspice's, and every unlit segment
  *   stays below the ghost limit there too (the high corner puts 5.25 V over
- *   lines idling at 5 V, at 50 °C).
+ *   lines idling at 5 V, at 50 °C);
+ * - the budget's worst unlit segment at the nominal values and each corner
+ *   (`unlit`: the current, the output and the state) is ngspice's largest.
  * And the hold-off estimate (highSideHold.ts) against ngspice on the chain
  * it describes: the supply, the line pull-up, Rbe, the PNP, Rb, one diode to
  * a stiff idle line.
@@ -61,6 +63,8 @@ function runNgspice(deck: string, probes: readonly string[], file: string): Map<
 let worstRel = 0;
 /** The largest unlit segment current ngspice finds at either corner, amperes (reported at the end). */
 let worstUnlitCorner = 0;
+/** The largest worst unlit segment current the budget reports, amperes (reported at the end). */
+let worstUnlitBudget = 0;
 
 function agree(a: number, b: number, floor: number, what: string): void {
   const diff = Math.abs(a - b);
@@ -97,6 +101,8 @@ describe("ngspice agrees with the budget on high-side switches", () => {
       const model = designModel(project.electrical, design);
       const ghostA = project.electrical.ghostFraction * project.electrical.segment.targetA;
       const offMax = new Map<string, number>();
+      // Per case (nominal, low, high): ngspice's current of every unlit segment, by `output in state`.
+      const unlitNg = new Map<string, Map<string, number>>(["nominal", "low", "high"].map((n) => [n, new Map()]));
       let unlitChecked = 0;
       spec.states.forEach((state, k) => {
         const deck = spiceNetlist(project, spec, matrix, k, design);
@@ -124,6 +130,7 @@ describe("ngspice agrees with the budget on high-side switches", () => {
             unlitChecked++;
             expect(led, `${state} unlit ${d.output}`).toBeLessThanOrEqual(ghostA);
             offMax.set(d.output, Math.max(offMax.get(d.output) ?? 0, led));
+            unlitNg.get("nominal")?.set(`${d.output} in ${state}`, led);
           }
         }
         for (const n of diodes)
@@ -147,6 +154,7 @@ describe("ngspice agrees with the budget on high-side switches", () => {
               // The ghost check at the corner: the highest supply over lines idling at 5 V, at 50 °C, still dark.
               expect(i, `${state} ${x.name} unlit ${d.output}`).toBeLessThanOrEqual(ghostA);
               worstUnlitCorner = Math.max(worstUnlitCorner, i);
+              unlitNg.get(x.name)?.set(`${d.output} in ${state}`, i);
               continue;
             }
             const range = corner.outputs[d.output];
@@ -160,6 +168,22 @@ describe("ngspice agrees with the budget on high-side switches", () => {
       expect(unlitChecked).toBeGreaterThan(0);
       // The budget's largest unlit current of each output is ngspice's.
       for (const [o, a] of offMax) agree(b.value.outputs[o]?.offMaxA ?? NaN, a, FLOOR_A, `offMaxA ${o}`);
+      // The budget's worst unlit segment at the nominal values and each corner (`unlit`) is ngspice's largest, and
+      // ngspice's current where the budget says it is that largest. Picoamperes: compared against a 1 fA floor, as
+      // both solvers put the same GMIN across every junction.
+      for (const [name, currents] of unlitNg) {
+        const figure = b.value.unlit[name as "nominal" | "low" | "high"];
+        if (figure === null) throw new Error(`no worst unlit segment at ${name}`);
+        const largest = Math.max(...currents.values());
+        agree(figure.currentA, largest, 1e-15, `worst unlit at ${name}`);
+        agree(
+          currents.get(`${figure.output} in ${figure.state}`) ?? NaN,
+          largest,
+          1e-15,
+          `unlit ${figure.output} in ${figure.state} at ${name}`,
+        );
+        worstUnlitBudget = Math.max(worstUnlitBudget, figure.currentA);
+      }
     }, 240_000);
   }
 
@@ -203,7 +227,7 @@ describe("ngspice agrees with the budget on high-side switches", () => {
   afterAll(() =>
     console.log(
       `high-side ngspice: largest relative deviation above the floors ${(worstRel * 100).toFixed(4)} %; ` +
-        `largest unlit segment current at a corner ${worstUnlitCorner.toExponential(3)} A`,
+        `largest unlit segment current at a corner ${worstUnlitCorner.toExponential(3)} A (the budget's ${worstUnlitBudget.toExponential(3)} A)`,
     ),
   );
 });

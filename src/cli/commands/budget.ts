@@ -7,7 +7,7 @@ import type { DriverKind, Project } from "../../core/project/project.ts";
 import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
 import { darkFigureLines, darkNetworkText } from "../../render/darkBudgetText.ts";
-import { formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
+import { currentText, formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
 import { budgetDeadline, designArgs, DESIGN_OPTIONS, DESIGN_USAGE } from "../designOptions.ts";
 import { DECODER_OPTION, DECODER_USAGE, decoderIo, loadInstrument } from "../loadProject.ts";
@@ -335,11 +335,33 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
         `${driverFigure}, driver up to ${milliwatts(c.maxPowerW, 2)} mW`,
     );
   }
+  L.push(...unlitLines(b));
   L.push(
     `  ${b.corners.meetsTarget ? "Meets" : "Misses"} the target: every corner within ±${b.corners.windowPct} % of ${amps(e.segment.targetA, unit)} ${unit}, under the rating${driverRule(e.driver.kind)}`,
   );
   L.push(`  Temperature: VT = kT/q; silicon Is(T) as SPICE scales it (EG 1.11 eV, XTI 3); LEDs -2 mV/°C at constant current`);
   return L.join("\n") + "\n";
+}
+
+/**
+ * The worst unlit segment at the nominal values and each corner, against the
+ * ghost limit: `unlit at most 4.15 pA (1d in S1) nominal, ...`; nothing when
+ * no output is ever unlit.
+ */
+function unlitLines(b: Budget): string[] {
+  const u = b.unlit;
+  const cases = [
+    ["nominal", u.nominal],
+    ["low corner", u.low],
+    ["high corner", u.high],
+  ] as const;
+  if (cases.every(([, f]) => f === null)) return [];
+  const said = cases.map(([name, f]) => (f === null ? `none ${name}` : `${currentText(f.currentA)} (${f.output} in ${f.state}) ${name}`));
+  const over = cases.filter(([, f]) => f !== null && f.currentA > u.ghostLimitA).map(([name]) => name);
+  return [
+    `  unlit segments at most ${said.join(", ")}, against the ${currentText(u.ghostLimitA)} ghost limit` +
+      (over.length > 0 ? ` (ABOVE it: ${over.join(", ")})` : ""),
+  ];
 }
 
 /** What the target asks of the driver kind, after the window and the rating (budget.ts `meetsTarget`). */

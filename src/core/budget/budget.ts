@@ -32,6 +32,7 @@ import {
   outputBudgets,
   segmentSupply,
   stateBudgets,
+  worstUnlit,
 } from "./budgetFigures.ts";
 import { budgetWarnings } from "./budgetWarnings.ts";
 import { stateSpreads } from "./stateSpread.ts";
@@ -128,6 +129,12 @@ export function solveBudget(
       windowDistancePct: settled.value.after.windowDistancePct,
     },
     corners: { windowPct, meetsTarget, low, high },
+    unlit: {
+      ghostLimitA: e.ghostFraction * targetA,
+      nominal: worstUnlit(spec, solutions),
+      low: worstUnlit(spec, lowSweep.value),
+      high: worstUnlit(spec, highSweep.value),
+    },
     dark:
       design.network === null || design.network === undefined
         ? null

@@ -23,6 +23,7 @@ import type {
   StageResistorBudget,
   StateBudget,
   SupplyBudget,
+  UnlitFigure,
 } from "./budgetTypes.ts";
 
 /** Per state: what the counter's high lines source, what the supplies give, and every segment. */
@@ -327,4 +328,20 @@ export function cornerBudget(project: Project, spec: DecodeSpec, conditions: Cor
     maxVceV: Math.max(0, ...figures.map((f) => f.maxVceV)),
     maxPowerW: Math.max(0, ...figures.map((f) => f.maxPowerW)),
   };
+}
+
+/**
+ * The largest current of a segment its state leaves dark, over the sweep's
+ * states and outputs (the first state and output where it is reached), or
+ * null when every output is lit in every state.
+ */
+export function worstUnlit(spec: DecodeSpec, sweep: Pick<SweepReading, "drivers" | "states">): UnlitFigure | null {
+  let worst: UnlitFigure | null = null;
+  for (const s of sweep.states)
+    sweep.drivers.forEach((d, j) => {
+      if (isLit(spec, s.stateIndex, d.output)) return;
+      const currentA = s.segmentA[j] as number;
+      if (worst === null || currentA > worst.currentA) worst = { output: d.output, state: s.state, currentA };
+    });
+  return worst;
 }

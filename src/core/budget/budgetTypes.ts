@@ -195,6 +195,28 @@ export interface CornerBudget {
   readonly maxPowerW: number;
 }
 
+/** An unlit segment's current and where: the output and the state that leaves it dark. */
+export interface UnlitFigure {
+  readonly output: string;
+  readonly state: string;
+  readonly currentA: number;
+}
+
+/**
+ * The largest current of a segment its state leaves dark, over every
+ * output and state, at the nominal values and at each tolerance corner:
+ * how near a ghost the design comes, whatever holds the segment off (a
+ * pull-down, a high-side switch's idle lines and `Rbe`, a dark-decoded
+ * output's input network). Each is null when no output is ever unlit.
+ */
+export interface UnlitBudget {
+  /** `ghostFraction` of the target, amperes. */
+  readonly ghostLimitA: number;
+  readonly nominal: UnlitFigure | null;
+  readonly low: UnlitFigure | null;
+  readonly high: UnlitFigure | null;
+}
+
 /**
  * The trim as worked out, and whether the design takes it (`applied`).
  * The figures `...Before` are the project's values, the others the values
@@ -456,6 +478,8 @@ export interface Budget {
     readonly low: CornerBudget;
     readonly high: CornerBudget;
   };
+  /** The worst unlit segment at the nominal values and each corner. */
+  readonly unlit: UnlitBudget;
   /** The dark-decoded outputs' network and ghost check; null when every output is decoded lit. */
   readonly dark: DarkBudget | null;
   readonly warnings: readonly BudgetWarning[];

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import {
+  currentText,
   formatOhms,
   microamps,
   microampsShort,
@@ -26,6 +27,18 @@ describe("pretty units", () => {
     expect(ohmsText(6200)).toBe("6.2 kΩ");
     expect(ohmsText(470)).toBe("470 Ω");
     expect(ohmsText(2_200_000)).toBe("2.2 MΩ");
+  });
+
+  it("writes a current from leakage up with the prefix that puts it between 1 and 1000", () => {
+    expect(currentText(4.1537e-12)).toBe("4.15 pA");
+    expect(currentText(7.18e-5)).toBe("71.8 µA");
+    expect(currentText(1e-4)).toBe("100 µA");
+    // Three figures that round up to 1000 take the next prefix.
+    expect(currentText(9.9996e-4)).toBe("1 mA");
+    expect(currentText(0.0098)).toBe("9.8 mA");
+    expect(currentText(3.2e-9)).toBe("3.2 nA");
+    expect(currentText(0)).toBe("0 A");
+    expect(currentText(-5e-9)).toBe("-5 nA");
   });
 
   it("prints currents without binary noise", () => {

@@ -3,8 +3,8 @@ import { main } from "../../../../src/cli/main.ts";
 import { solveBudget } from "../../../../src/core/budget/budget.ts";
 import { describeBudget } from "../../../../src/cli/commands/budget.ts";
 import { recordingIo } from "../../../support/recordingIo.ts";
-import { formatOhms } from "../../../../src/render/units.ts";
-import { ONE_SEVEN_EIGHT_TEXT, showing, showingWith } from "../../../support/projects.ts";
+import { currentText, formatOhms } from "../../../../src/render/units.ts";
+import { example, exampleText, ONE_SEVEN_EIGHT_TEXT, showing, showingWith } from "../../../support/projects.ts";
 import { directDesign, sharedDieRoller } from "../../../support/budgetFixtures.ts";
 
 const PROJECT = ONE_SEVEN_EIGHT_TEXT;
@@ -121,5 +121,36 @@ describe("budget command", () => {
     // Both families are covered.
     expect([...kinds].some((k) => k.endsWith("switch"))).toBe(true);
     expect([...kinds].some((k) => !k.endsWith("switch"))).toBe(true);
+  });
+
+  it("gives a high-side switch's worst unlit segment at the nominal values and each corner, where, and the ghost limit", async () => {
+    const d = directDesign("quiz", example("quiz-scoreboard"));
+    const b = solveBudget(d.project, d.spec, d.matrix);
+    if (!b.ok) throw new Error(b.error.message);
+    const u = b.value.unlit;
+    const at = (f: typeof u.nominal, name: string): string => `${currentText(f?.currentA ?? NaN)} (${f?.output} in ${f?.state}) ${name}`;
+    const text = describeBudget(d.project, d.spec, d.matrix, b.value);
+    expect(text).toContain(
+      `\n  unlit segments at most ${at(u.nominal, "nominal")}, ${at(u.low, "low corner")}, ${at(u.high, "high corner")}, against the 100 µA ghost limit\n`,
+    );
+    // In the JSON too, in SI.
+    const io = recordingIo({
+      "p.json": JSON.stringify({ ...JSON.parse(exampleText("quiz-scoreboard")), synthesis: { timeLimitMs: 2000 } }),
+    });
+    expect(await main(["budget", "p.json", "--json", "--direct"], io)).toBe(0);
+    const json = JSON.parse(io.stdout.join("")) as { unlit: typeof u };
+    expect(json.unlit).toEqual(u);
+  });
+
+  it("says where an unlit segment is above the ghost limit, and prints nothing where no output is ever unlit", () => {
+    const d = directDesign("quiz", example("quiz-scoreboard"));
+    const b = solveBudget(d.project, d.spec, d.matrix);
+    if (!b.ok) throw new Error(b.error.message);
+    const over = { ...b.value, unlit: { ...b.value.unlit, high: { output: "1a", state: "S3", currentA: 2e-4 } } };
+    expect(describeBudget(d.project, d.spec, d.matrix, over)).toContain(
+      ", 200 µA (1a in S3) high corner, against the 100 µA ghost limit (ABOVE it: high corner)\n",
+    );
+    const none = { ...b.value, unlit: { ghostLimitA: 1e-4, nominal: null, low: null, high: null } };
+    expect(describeBudget(d.project, d.spec, d.matrix, none)).not.toContain("unlit segments at most");
   });
 });
