@@ -3,13 +3,19 @@ import { projectDesign } from "../../../../src/core/budget/segmentDesign.ts";
 import { designators } from "../../../../src/core/matrix/designators.ts";
 import { spiceNetlist } from "../../../../src/core/papers/netlist.ts";
 import {
+  GATE_PULL_UP_HEADING,
   INSPECTION_CHECKLIST,
+  NETWORK_HEADING,
   TIE_ON_HEADING,
   WIRING_HEADER,
+  networkHeading,
+  networkRows,
   tieOnRows,
   wiringCsv,
   wiringRows,
 } from "../../../../src/core/papers/wiringList.ts";
+import { codedDecoder, codedProject } from "../../../support/codedProjects.ts";
+import { verifyLogic } from "../../../../src/core/logic/verifyLogic.ts";
 import { tieOnsOf } from "../../../../src/render/papers.ts";
 import { wiringPageHtml } from "../../../../src/render/wiringPage.ts";
 import { directDesign } from "../../../support/budgetFixtures.ts";
@@ -90,5 +96,41 @@ describe("wiring list of tied-on outputs", () => {
     });
     expect(html).toContain(`<td>T1</td><td><b>${tieOns[0]!.ref}</b></td><td>470 Ω</td><td>VLOGIC</td><td>2b</td>`);
     expect(tieOnsOf(d)).toEqual(tieOns);
+  });
+});
+
+describe("wiring list of a coded counter's AND gates", () => {
+  it("names each gate's pull-up from VLOGIC to the gate node, as the SPICE deck wires it, on the CSV and the printable page", () => {
+    const { project, spec, matrix: built } = codedDecoder(codedProject("binary", "0123456789"));
+    const v = verifyLogic(spec, built, { depthLimit: built.depthLimit, policy: built.policy });
+    if (!v.ok) throw new Error(v.error.join("\n"));
+    const matrix = v.value;
+    const parts = designators(spec, matrix, project.electrical);
+    const drawing = layoutMatrix(project, spec, matrix, drawingOptions(project));
+    const network = networkRows(parts, drawing.placements);
+    expect(network.map((n) => [n.ref, n.part, n.from, n.to, n.ohms])).toEqual(
+      parts.gates.map((g) => [g.pullUp.ref, "gate pull-up", "VLOGIC", g.gate, project.electrical.gatePullUp]),
+    );
+    for (const n of network) expect(n.sheet === 1 && /^[A-Z]\d+$/.test(n.zone), `${n.ref} placed`).toBe(true);
+    const records = parseCsv(wiringCsv(wiringRows(matrix, drawing.placements), [], network));
+    const at = records.findIndex((r) => r[0] === GATE_PULL_UP_HEADING);
+    expect(records[at - 1]).toEqual([""]);
+    expect(records.slice(at + 1, at + 1 + network.length)).toEqual(
+      network.map((n, i) => [`N${i + 1}`, n.ref, "VLOGIC", n.to, "1", n.zone, ""]),
+    );
+    // The deck joins the same resistor between the logic supply's node and the gate's node.
+    const deck = spiceNetlist(project, spec, matrix, 0, projectDesign(project.electrical, matrix));
+    for (const n of network) expect(deck).toMatch(new RegExp(`^${n.ref} vlogic ${n.to.toLowerCase()} 4700\\b`, "m"));
+    const html = wiringPageHtml({ project, matrix, rows: wiringRows(matrix), network, options: drawingOptions(project), sheetCount: 1 });
+    expect(html).toContain(`<h1>${GATE_PULL_UP_HEADING.replace(/'/g, "&#39;")}</h1>`);
+    expect(html).toContain(`<td>N1</td><td><b>${network[0]!.ref}</b></td><td>4.7 kΩ</td><td>VLOGIC</td><td>G1</td>`);
+  });
+
+  it("heads the rows by what they hold: the gates' pull-ups, a dark-decoded output's network, or both", () => {
+    const gate = { ref: "R9", part: "gate pull-up", from: "VLOGIC", to: "G1", ohms: 4700, sheet: 1, zone: "A1" } as const;
+    const dark = { ref: "R10", part: "pull-up", from: "VLOGIC", to: "1a", ohms: 4700, sheet: 1, zone: "A2" } as const;
+    expect(networkHeading([gate])).toBe(GATE_PULL_UP_HEADING);
+    expect(networkHeading([dark])).toBe(NETWORK_HEADING);
+    expect(networkHeading([gate, dark])).toBe(`${GATE_PULL_UP_HEADING}. ${NETWORK_HEADING}`);
   });
 });
