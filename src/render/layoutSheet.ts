@@ -252,11 +252,13 @@ export function layoutSheet(job: SheetJob): SheetLayout {
   if (grid.dark.length > 0 || grid.pullUps.size > 0) {
     const darkOf = new Map(grid.dark.map((d) => [d.output, d]));
     const placed: PlacedColumn[] = [];
+    const outputs: PlacedColumn[] = [];
     for (let c = cols.first; c <= cols.last && c < grid.columns.length; c++) {
       const col = grid.columns[c] as GridColumn;
-      placed.push({ x: X(c, px) + dx, net: col.net, dark: darkOf.get(col.net) ?? null, pullUp: grid.pullUps.get(col.net) ?? null });
+      const q = { x: X(c, px) + dx, net: col.net, dark: darkOf.get(col.net) ?? null, pullUp: grid.pullUps.get(col.net) ?? null };
+      placed.push(q);
+      if (col.kind === "output") outputs.push(q);
     }
-    const outputs = placed.filter((c, i) => (grid.columns[cols.first + i] as GridColumn).kind === "output");
     const bandsTop = region.y + headerH - grid.bands.pullUpH - grid.bands.markH;
     if (grid.dark.length > 0) labels.push(...polarityMarks(outputs, bandsTop + 2.0 * m.scale, m));
     const add = (ink: BandInk): void => {
