@@ -64,7 +64,10 @@ export function warningText(w: BudgetWarning): string {
     case "line-current":
       return `counter line ${w.line} sources ${milliampsText(w.currentA)} in ${w.state}, more than the ${milliampsText(w.ratedA)} it may`;
     case "line-sink":
-      return `counter line ${w.line} sinks ${milliampsText(w.currentA)} from the gate pull-ups it holds low in ${w.state}, more than the ${milliampsText(w.ratedA)} it may; a larger gatePullUp lowers it`;
+      return w.from === "switch-bases"
+        ? `active-low line ${w.line} sinks ${milliampsText(w.currentA)} in ${w.state} from the bases and line pull-ups of the high-side switches it turns on, ` +
+            `more than the ${milliampsText(w.ratedA)} it may; a larger driver.baseResistor lowers it, as long as every switch stays saturated at the low corner`
+        : `counter line ${w.line} sinks ${milliampsText(w.currentA)} from the gate pull-ups it holds low in ${w.state}, more than the ${milliampsText(w.ratedA)} it may; a larger gatePullUp lowers it`;
     case "dark-network":
       return `the dark-decoded outputs' pull-ups and input network break ${w.where}; see the dark decode section of the budget`;
     case "ghost-segment":

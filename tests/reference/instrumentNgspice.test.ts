@@ -4,7 +4,9 @@
  * reads the decks of an instrument's decoder, whose parts carry the
  * decoder's number in front (`2R3`, written `R2R3` for SPICE), as it reads
  * the same decoder's decks without the prefix: every node voltage of every
- * state is the same, and agrees with diodeloom's own solver within 0.5 %.
+ * state is the same, and agrees with diodeloom's own solver within 0.5 %;
+ * one decoder drives its segments through PNP high-side switches, the others
+ * through the shared section's NPN switches.
  */
 import { execFileSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
@@ -46,6 +48,14 @@ describe("ngspice on an instrument decoder's decks", () => {
       decoders: [
         { name: "seconds", counter: { states: 4 }, display: {}, show: ["0", "1", "2", "3"] },
         { name: "laps", counter: { states: 6, code: "binary" }, display: {}, show: ["0", "1", "2", "3", "4", "5"] },
+        // PNP high-side switches on a sink-drive ring, the decoder's own preset (the model card QHSW, the nS lines).
+        {
+          name: "heat",
+          counter: { states: 4, drive: "sink" },
+          display: {},
+          show: ["1", "2", "3", "F"],
+          electrical: { preset: "bench-5v-high-side" },
+        },
       ],
     });
     if (!inst.ok) throw new Error(JSON.stringify(inst.error));
@@ -60,6 +70,7 @@ describe("ngspice on an instrument decoder's decks", () => {
       for (const k of spec.states.keys()) {
         const deck = spiceNetlist(d.project, spec, prefixed, k, design);
         expect(deck).toMatch(new RegExp(`^R${i + 1}R1 `, "m"));
+        expect(deck).toMatch(new RegExp(`^Q${i + 1}Q1 .* ${d.name === "heat" ? "QHSW" : "QDRV"}$`, "m"));
         const plain = nodeVoltages(spiceNetlist(d.project, spec, m.value, k, design), `plain-${i}-${k}.cir`);
         const ours = nodeVoltages(deck, `prefixed-${i}-${k}.cir`);
         expect(ours.size).toBeGreaterThan(5);

@@ -325,6 +325,11 @@ export type BudgetWarning =
       readonly state: string;
       readonly currentA: number;
       readonly ratedA: number;
+      /**
+       * What the line sinks: a coded counter's gate pull-ups (`gate-pull-ups`), or, on a high-side
+       * switch's active-low line, the bases and line pull-ups of the switches it turns on (`switch-bases`).
+       */
+      readonly from: "gate-pull-ups" | "switch-bases";
     }
   | {
       readonly level: "warn";

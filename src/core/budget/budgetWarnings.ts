@@ -98,7 +98,15 @@ export function budgetWarnings(
     if (c.sourceCurrentA > c.ratedA)
       w.push({ level: "warn", code: "line-current", line, state: c.sourceState ?? line, currentA: c.sourceCurrentA, ratedA: c.ratedA });
     if (c.sinkCurrentA > c.ratedA)
-      w.push({ level: "warn", code: "line-sink", line, state: c.sinkState ?? line, currentA: c.sinkCurrentA, ratedA: c.ratedA });
+      w.push({
+        level: "warn",
+        code: "line-sink",
+        line,
+        state: c.sinkState ?? line,
+        currentA: c.sinkCurrentA,
+        ratedA: c.ratedA,
+        from: e.driver.kind === "high-side-switch" ? "switch-bases" : "gate-pull-ups",
+      });
   }
   const targetA = e.segment.targetA;
   if (b.dark !== null && !b.dark.passes) w.push({ level: "warn", code: "dark-network", broken: b.dark.broken, where: b.dark.verdict });

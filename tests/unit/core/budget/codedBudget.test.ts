@@ -48,6 +48,7 @@ describe("solveBudget on a coded decoder", () => {
       expect(w.currentA).toBeGreaterThan(w.ratedA);
       expect(b.counterLines[w.line]?.sinkCurrentA).toBe(w.currentA);
       expect(b.counterLines[w.line]?.sinkState).toBe(w.state);
+      expect(w.from).toBe("gate-pull-ups");
     }
   });
 });

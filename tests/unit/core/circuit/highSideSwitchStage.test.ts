@@ -106,5 +106,7 @@ describe("highSideSwitchStage", () => {
     const sinks = b.value.warnings.flatMap((w) => (w.code === "line-sink" ? [w] : []));
     expect(sinks.map((w) => w.line)).toContain("nS8");
     expect(sinks.every((w) => w.currentA > d.project.electrical.lowLine.maxCurrentA && w.ratedA === 0.005)).toBe(true);
+    // What the line sinks is the switches' bases and line pull-ups, not a coded counter's gate pull-ups.
+    expect(sinks.every((w) => w.from === "switch-bases")).toBe(true);
   });
 });
