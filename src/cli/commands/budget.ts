@@ -247,6 +247,11 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
         Object.entries(b.counterLines).map(([l, c]) => [l, milliamps(c.sinkCurrentA, 3), c.sinkState ?? ""]),
       ),
     );
+  } else if (Object.keys(b.counterLines).length === 0) {
+    // Every diode meets an active-low line nS<k> (a sink-drive counter, or every output decoded dark): no line sources.
+    L.push(
+      "Counter lines: none of the active-high lines is wired (every diode meets an active-low line nS<k>); they are left out of the budget and the SPICE decks",
+    );
   } else {
     L.push(
       coded

@@ -114,9 +114,13 @@ export function readState(matrix: DiodeMatrix, s: StateSolution): StateReading {
     points.push(driverPoint(s, d));
   });
   let highSourceA = 0;
-  for (const l of highLines(matrix, circuit.stateIndex)) highSourceA += op.currents[`V${l}`] as number;
+  // A high line no diode meets has no source in the circuit (sourceLines): it sources nothing.
+  for (const l of highLines(matrix, circuit.stateIndex)) highSourceA += op.currents[`V${l}`] ?? 0;
   const highDriverV = new Map<string, number>();
-  for (const d of highDrivers(matrix, circuit.stateIndex)) highDriverV.set(d, op.voltages[circuit.lineNodes[d] as string] as number);
+  for (const d of highDrivers(matrix, circuit.stateIndex)) {
+    const node = circuit.lineNodes[d];
+    if (node !== undefined) highDriverV.set(d, op.voltages[node] as number);
+  }
   return {
     state: circuit.state,
     stateIndex: circuit.stateIndex,

@@ -153,4 +153,29 @@ describe("budget command", () => {
     const none = { ...b.value, unlit: { ghostLimitA: 1e-4, nominal: null, low: null, high: null } };
     expect(describeBudget(d.project, d.spec, d.matrix, none)).not.toContain("unlit segments at most");
   });
+
+  it("lists no counter line of a sink-drive counter: its active-high lines are wired to nothing, so none is budgeted", async () => {
+    // Decoded dark onto NPN switches: every diode meets an active-low line nS<k>.
+    const text = JSON.stringify({
+      schema: "diodeloom/project@2",
+      title: "sink",
+      counter: { states: 4, drive: "sink" },
+      display: { positions: 1, cell: "seg7" },
+      show: ["0", "1", "2", "3"],
+      synthesis: { decode: "dark", timeLimitMs: 2000 },
+      electrical: { preset: "bench-5v-switch" },
+    });
+    const io = recordingIo({ "p.json": text });
+    expect(await main(["budget", "p.json", "--fast"], io)).toBe(0);
+    const out = io.stdout.join("");
+    expect(out).toContain(
+      "\nCounter lines: none of the active-high lines is wired (every diode meets an active-low line nS<k>); they are left out of the budget and the SPICE decks\n",
+    );
+    // No counter-line row (line, sources mA, line V, sag V).
+    expect(out).not.toMatch(/^ {2}S\d+ +\d+\.\d+ +\d+\.\d+ +\d+\.\d+$/m);
+    expect(out).not.toContain("counter-sag");
+    const json = recordingIo({ "p.json": text });
+    expect(await main(["budget", "p.json", "--fast", "--json"], json)).toBe(0);
+    expect((JSON.parse(json.stdout.join("")) as { counterLines: object }).counterLines).toEqual({});
+  });
 });

@@ -5,6 +5,8 @@ import { makeProject2 } from "../../../support/projects.ts";
 import { buildCircuit } from "../../../../src/core/circuit/circuit.ts";
 import { projectDesign, type SegmentDesign } from "../../../../src/core/budget/segmentDesign.ts";
 import { sharedDieRoller } from "../../../support/budgetFixtures.ts";
+import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
+import { synthesize, synthSettings } from "../../../../src/core/synth/synthesize.ts";
 
 describe("spiceNetlist", () => {
   const d = sharedDieRoller();
@@ -97,4 +99,65 @@ describe("spiceNetlist", () => {
     expect(text).toMatch(/^D1 .* DMTX$/m);
     expect(text).toMatch(/^D2 .* DMTX2$/m);
   });
+});
+
+/**
+ * Every node of a deck but ground, with the elements whose terminals meet
+ * it (a segment written LED by LED counts each LED).
+ */
+function nodeUse(deck: string): Map<string, string[]> {
+  const use = new Map<string, string[]>();
+  for (const line of deck.split("\n")) {
+    if (!/^[VRDQ]/.test(line)) continue;
+    const f = line.split(" ");
+    const name = f[0] as string;
+    const terminals = name.startsWith("Q") ? f.slice(1, 4) : f.slice(1, 3);
+    for (const n of terminals) if (n !== "0") use.set(n, [...(use.get(n) ?? []), name]);
+  }
+  return use;
+}
+
+describe("spiceNetlist writes only what is wired", () => {
+  const cases = [
+    // The quiz scoreboard's drive: a sink-drive ring (active-low lines only) through PNP high-side switches.
+    { name: "sink drive, high-side switches", drive: "sink", show: [..."0123456789"], decode: "lit", preset: "bench-5v-high-side" },
+    {
+      name: "sink drive, decoded dark onto NPN switches",
+      drive: "sink",
+      show: [..."0123456789"],
+      decode: "dark",
+      preset: "bench-5v-switch",
+    },
+    {
+      name: "complementary drive, every output decoded dark",
+      drive: "complementary",
+      show: [..."0123"],
+      decode: "dark",
+      preset: "bench-5v-switch",
+    },
+    { name: "source drive, a state that lights nothing", drive: "source", show: ["1", " ", "7"], decode: "lit", preset: "bench-5v-switch" },
+  ] as const;
+  for (const c of cases) {
+    it(`${c.name}: no source or resistor of a line no diode meets, no node met by one terminal only`, async () => {
+      const project = makeProject2({
+        counter: { states: c.show.length, drive: c.drive },
+        display: { positions: 1, cell: "seg7" },
+        show: c.show,
+        synthesis: { decode: c.decode },
+        electrical: { preset: c.preset },
+      });
+      const spec = compileSpec(project);
+      const r = await synthesize(spec, synthSettings(project, { mode: "fast" }));
+      if (!r.ok) throw new Error(r.error.message);
+      const matrix = r.value;
+      const met = new Set(matrix.diodes.flatMap((x) => [x.from, x.to]));
+      const unwired = [...matrix.states, ...spec.polarity.activeLow].filter((l) => !met.has(l));
+      expect(unwired.length, "the case has a line no diode meets").toBeGreaterThan(0);
+      const design = projectDesign(project.electrical, matrix);
+      for (const deck of spiceNetlists(project, spec, matrix, design)) {
+        for (const l of unwired) expect(deck).not.toMatch(new RegExp(`^[VR]${l} |\\b${l.toLowerCase()}(_v)?\\b`, "m"));
+        for (const [node, by] of nodeUse(deck)) expect(by.length, `${node} is met only by ${by.join(", ")}`).toBeGreaterThan(1);
+      }
+    });
+  }
 });
