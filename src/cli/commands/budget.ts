@@ -248,9 +248,9 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
       ),
     );
   } else if (Object.keys(b.counterLines).length === 0) {
-    // Every diode meets an active-low line nS<k> (a sink-drive counter, or every output decoded dark): no line sources.
+    // A sink-drive ring counter: its lines are the active-low nS<k>, which only sink.
     L.push(
-      "Counter lines: none of the active-high lines is wired (every diode meets an active-low line nS<k>); they are left out of the budget and the SPICE decks",
+      "Counter lines: none sources current (a sink-drive counter has only its active-low lines nS<k>; what each sinks is in the ghost check)",
     );
   } else {
     L.push(

@@ -10,7 +10,7 @@ import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
 import type { DriverStage } from "../circuit/circuit.ts";
 import { isLit } from "../circuit/stateSweep.ts";
-import { highDrivers, orPlane, sourceLines } from "../circuit/counterLines.ts";
+import { allSourceLines, highDrivers, isCoded, orPlane, sourceLines } from "../circuit/counterLines.ts";
 import type { SweepReading } from "./sweepReading.ts";
 import type {
   CornerBudget,
@@ -150,7 +150,9 @@ export function counterBudgets(project: Project, matrix: VerifiedMatrix, sweep: 
   if (project.electrical.driver.kind === "high-side-switch") return lowLineBudgets(project, matrix, sweep);
   const co = project.electrical.counterOutput;
   const out: Record<string, CounterLineBudget> = {};
-  for (const l of sourceLines(matrix)) {
+  // A sink-drive ring counter has no active-high line; a line no diode meets is not in the sweep and carries nothing.
+  const lines = project.counter.drive === "sink" && !isCoded(matrix) ? [] : allSourceLines(matrix);
+  for (const l of lines) {
     const { source, sink } = sweep.counterLines.get(l) ?? { source: null, sink: null };
     out[l] = {
       sourceCurrentA: source?.a ?? 0,

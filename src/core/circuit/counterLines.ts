@@ -17,17 +17,24 @@ export function isCoded(matrix: DiodeMatrix): boolean {
   return matrix.codes.length > 0;
 }
 
+/**
+ * Every line the counter drives as a source, wired or not: a one-hot
+ * counter's state lines `S<k>`, a coded counter's stage lines.
+ */
+export function allSourceLines(matrix: DiodeMatrix): readonly string[] {
+  return isCoded(matrix) ? matrix.lines : matrix.states;
+}
+
 /** `sourceLines`' answers, per matrix (a sweep asks for every state). */
 const wired = new WeakMap<DiodeMatrix, readonly string[]>();
 
 /**
- * The counter's lines the circuit drives as sources: a one-hot counter's
- * state lines `S<k>` (active high), a coded counter's stage lines; only
- * those a diode meets. A line no diode meets carries no current and is
- * wired to nothing, so its source is left out of the circuit, the SPICE
- * deck and the budget's counter lines: every state line of a sink-drive
- * counter (it has only the active-low lines `nS<k>`), the line of a state
- * that lights nothing, a stage line no gate reads.
+ * The counter's lines the circuit drives as sources (`allSourceLines`),
+ * only those a diode meets. A line no diode meets carries no current and is
+ * wired to nothing, so its source is left out of the circuit and the SPICE
+ * deck: every state line of a sink-drive counter (it has only the
+ * active-low lines `nS<k>`), the line of a state that lights nothing, a
+ * stage line no gate reads.
  *
  * @example
  * sourceLines(sinkDriveMatrix); // [] (its diodes meet nS0..nS9 only)
@@ -37,7 +44,7 @@ export function sourceLines(matrix: DiodeMatrix): readonly string[] {
   if (known !== undefined) return known;
   const met = new Set<string>();
   for (const d of matrix.diodes) met.add(d.from).add(d.to);
-  const lines = (isCoded(matrix) ? matrix.lines : matrix.states).filter((l) => met.has(l));
+  const lines = allSourceLines(matrix).filter((l) => met.has(l));
   wired.set(matrix, lines);
   return lines;
 }

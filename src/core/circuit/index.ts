@@ -24,6 +24,6 @@ export { criticalVoltage, diodeConductance, diodeCurrent, diodeJunction, limitJu
 export type { JunctionPoint, NpnParams, NpnPoint } from "./deviceModels.ts";
 export { SparsePattern, SparseSolver } from "./linearSolve.ts";
 export { BOLTZMANN_J_PER_K, ELEMENTARY_CHARGE_C, shockleyVoltage, thermalVoltage, ZERO_CELSIUS_K } from "./physics.ts";
-export { highDrivers, highGates, highLines, isCoded, isGateInput, orPlane, sourceLines } from "./counterLines.ts";
+export { allSourceLines, highDrivers, highGates, highLines, isCoded, isGateInput, orPlane, sourceLines } from "./counterLines.ts";
 export { isLit, segmentCurrents, solveAllStates, sweepStates } from "./stateSweep.ts";
 export type { BudgetFailure, StateSolution, SweepOptions } from "./stateSweep.ts";

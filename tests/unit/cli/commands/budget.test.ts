@@ -154,7 +154,7 @@ describe("budget command", () => {
     expect(describeBudget(d.project, d.spec, d.matrix, none)).not.toContain("unlit segments at most");
   });
 
-  it("lists no counter line of a sink-drive counter: its active-high lines are wired to nothing, so none is budgeted", async () => {
+  it("lists no counter line of a sink-drive counter: it has no active-high line to budget", async () => {
     // Decoded dark onto NPN switches: every diode meets an active-low line nS<k>.
     const text = JSON.stringify({
       schema: "diodeloom/project@2",
@@ -169,7 +169,7 @@ describe("budget command", () => {
     expect(await main(["budget", "p.json", "--fast"], io)).toBe(0);
     const out = io.stdout.join("");
     expect(out).toContain(
-      "\nCounter lines: none of the active-high lines is wired (every diode meets an active-low line nS<k>); they are left out of the budget and the SPICE decks\n",
+      "\nCounter lines: none sources current (a sink-drive counter has only its active-low lines nS<k>; what each sinks is in the ghost check)\n",
     );
     // No counter-line row (line, sources mA, line V, sag V).
     expect(out).not.toMatch(/^ {2}S\d+ +\d+\.\d+ +\d+\.\d+ +\d+\.\d+$/m);
