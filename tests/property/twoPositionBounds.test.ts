@@ -56,7 +56,16 @@ describe("two-position counters: claimed optima and bounds (fast-check seed 1616
           loadHighs: defaultHighsLoader,
           search: false,
           familyLimits: { maxBuses: 100_000, maxInputs: 1_000_000 },
-          budget: { heuristicWork: 0, familyWork: 1e9, searchWork: 0, lpWork: 0, lagrangeWork: 0, highsNodes: 1e6, highsWork: 1e12 },
+          budget: {
+            heuristicWork: 0,
+            familyWork: 1e9,
+            searchWork: 0,
+            lpWork: 0,
+            lagrangeWork: 0,
+            levelWork: 0,
+            highsNodes: 1e6,
+            highsWork: 1e12,
+          },
         });
         const lag = lagrangeBound(reduceRows(p).problem, rules, { maxWork: 1e8, upper: exact.value.count });
         const lagBound = lag.bound === null ? 0 : policy === "uniform" ? Math.min(litCount(p), lag.bound) : lag.bound;

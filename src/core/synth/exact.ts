@@ -19,7 +19,7 @@
  */
 import { candidateFamily, DEFAULT_FAMILY_LIMITS, type FamilyLimits } from "./candidates.ts";
 import { lpLowerBound, trivialLowerBound } from "./bounds.ts";
-import { lagrangeBound } from "./lagrangeBound.ts";
+import { levelBound } from "./levelBound.ts";
 import { buildSharingModel } from "./model.ts";
 import { searchApplies, searchPlan } from "./search.ts";
 import { litCount, planCost, planCount, type SharingPlan, type SharingProblem, type SharingRules } from "./plan.ts";
@@ -124,7 +124,8 @@ export interface ExactOutcome {
 
 /**
  * The bound of the relaxed problem without levels (valid at depth 2): the
- * per-state Lagrangian bound (lagrangeBound.ts) where every row has at most
+ * per-state Lagrangian bound (lagrangeBound.ts; under per-segment branched
+ * on the outputs' levels, levelBound.ts) where every row has at most
  * 16 lit outputs, else the column-generation LP bound (bounds.ts). Under
  * uniform the exact stage weighs the all-bus matrix against the direct one,
  * so the bound is the smaller of the all-bus bound and the direct count.
@@ -138,7 +139,7 @@ async function relaxedBound(
   loadHighs: HighsLoader,
 ): Promise<{ bound: number; deadlineHit: boolean }> {
   const uniform = (b: number): number => (rules.policy === "uniform" ? Math.min(litCount(p), b) : b);
-  const lag = lagrangeBound(p, rules, { maxWork: budget.lagrangeWork, deadlineMs, upper });
+  const lag = levelBound(p, rules, { maxWork: budget.lagrangeWork, deadlineMs, upper }, budget.levelWork);
   if (lag.bound !== null) return { bound: uniform(lag.bound), deadlineHit: lag.deadlineHit };
   try {
     const lpHighs = await loadHighs();

@@ -20,6 +20,11 @@
  * exact stage weighs the all-bus matrix against the direct one (see
  * exact.ts), so there the relaxation takes no direct diodes and no links
  * and the caller takes the smaller of this bound and the direct count.
+ * Under per-segment a caller may decide some outputs' levels (`levels`,
+ * see levelBound.ts): a level-1 output then takes direct diodes only and
+ * no bus, a level-2 output no direct diode (its row's padding bus stays
+ * open to it even in a row of one state), and links run only from outputs
+ * not at level 2 into outputs not at level 1.
  *
  * The Lagrangian. A structure's fixed cost F is split into shares, one per
  * row that may use it, non-negative and summing to at most F; each row then
@@ -63,6 +68,16 @@ export interface LagrangeOptions {
   readonly upper: number;
   /** Most subgradient rounds (default 2000: the work budget decides). */
   readonly maxRounds?: number;
+  /**
+   * Per-segment only: per output its level if decided (1: direct diodes
+   * only, and it may be a link source; 2: buses and links in only), or 0
+   * when either is still open. By default every output is open.
+   */
+  readonly levels?: readonly number[];
+  /** Shares to start from, per structure key (`itemKey`), in its users' order. */
+  readonly warm?: ReadonlyMap<string, readonly number[]>;
+  /** The step factor to start from (default 2; a warm start passes its parent's). */
+  readonly theta?: number;
 }
 
 export interface LagrangeBound {
@@ -74,6 +89,15 @@ export interface LagrangeBound {
   readonly work: number;
   /** True when the clock, not the work budget, ended it. */
   readonly deadlineHit: boolean;
+  /** The shares of the best round, per structure key, for a warm start. */
+  readonly shares?: ReadonlyMap<string, readonly number[]>;
+  /** The step factor reached. */
+  readonly theta?: number;
+}
+
+/** A structure's key: `b:1,2,3` for a bus on outputs 1, 2, 3; `l4:7` for a link 4 -> 7. */
+function itemKey(link: boolean, from: number, outputs: readonly number[]): string {
+  return link ? `l${from}:${outputs.join(",")}` : `b:${outputs.join(",")}`;
 }
 
 interface Item {
@@ -92,6 +116,9 @@ interface Item {
 interface RowData {
   /** Lit outputs. */
   readonly r: number;
+  /** Local bits that may take a direct diode, and that a padding bus may drive. */
+  readonly directBits: number;
+  readonly padBits: number;
   /** The row's weight (states it stands for). */
   readonly w: number;
   /** Per structure the row may use: its item, its mask over the row's own outputs, its share's place in the flat share array, and a link's source (local bit) or -1. */
@@ -156,15 +183,16 @@ interface StarScratch {
  * places found once.
  */
 function coverRow(d: RowData, share: Float64Array, directOk: boolean, padOk: boolean, ws: Workspace, stars: StarScratch): RowCover {
-  const { r, w: wk, item, mask: masks, slot, src, linkPos, linkStart } = d;
+  const { r, w: wk, item, mask: masks, slot, src, linkPos, linkStart, directBits, padBits } = d;
   const { single, singleItem, f, starCost, starMask } = ws;
   const full = (1 << r) - 1;
   const count = item.length;
   single.fill(Infinity, 0, full + 1);
   singleItem.fill(DIRECT, 0, full + 1);
-  if (directOk) for (let b = 0; b < r; b++) single[1 << b] = wk;
+  if (directOk) for (let b = 0; b < r; b++) if ((directBits >> b) & 1) single[1 << b] = wk;
   if (padOk) {
     for (let m = 1; m <= full; m++) {
+      if ((m & padBits) !== m) continue;
       const c = wk + popcount(m);
       if (c < (single[m] as number)) {
         single[m] = c;
@@ -280,8 +308,13 @@ export function lagrangeBound(
   if (p.row.some((r) => r.length > LAGRANGE_MAX_ROW_OUTPUTS)) return none();
   const uniform = rules.policy === "uniform";
   const directOk = !uniform;
-  const items = structures(p, rules, meter);
-  if (items === null) return none();
+  const level = (o: number): number => opts.levels?.[o] ?? 0;
+  const all = structures(p, rules, meter);
+  if (all === null) return none();
+  // Decided levels: a level-1 output takes no bus; a link runs from an output not at level 2 into one not at level 1.
+  const items = all.filter((it) =>
+    it.link ? level(it.from) !== 2 && level(it.outputs[0] as number) !== 1 : it.outputs.every((o) => level(o) !== 1),
+  );
   const n = p.n;
   const w = (k: number): number => p.weight[k] ?? 1;
 
@@ -290,7 +323,7 @@ export function lagrangeBound(
   // (structure, row) and that of their mirrors are one cell: the shares stay symmetric, which
   // loses nothing (the dual is concave and symmetric, so the mean of an optimum and its mirror
   // is an optimum), and a row and its mirror then cost the same, so only one of them is solved.
-  const swap = positionSwap(p);
+  const swap = opts.levels?.some((l) => l !== 0) ? null : positionSwap(p);
   const mirror = swap === null ? null : mirrorItems(items, swap.out);
   const rowMirror = (k: number): number => (mirror === null || swap === null ? k : (swap.row[k] as number));
   const itemMirror = (i: number): number => (mirror === null ? i : (mirror[i] as number));
@@ -310,7 +343,8 @@ export function lagrangeBound(
   });
   const share = new Float64Array(cells);
   items.forEach((it, i) => {
-    for (const c of cellOf[i] as Int32Array) share[c] = it.fixed / Math.max(1, it.users.length);
+    const from = opts.warm?.get(itemKey(it.link, it.from, it.outputs));
+    (cellOf[i] as Int32Array).forEach((c, u) => (share[c] = from?.[u] ?? it.fixed / Math.max(1, it.users.length)));
   });
   // Per structure kept (one of each mirror pair): its distinct cells and how many of its users each stands for.
   const projection = items.map((_, i) => {
@@ -357,8 +391,17 @@ export function lagrangeBound(
     const groups = [...bySource.values()];
     const linkStart = new Int32Array(groups.length + 1);
     groups.forEach((g, x) => (linkStart[x + 1] = (linkStart[x] as number) + g.length));
+    const lit = p.row[k] ?? [];
+    let directBits = 0;
+    let padBits = 0;
+    lit.forEach((o, b) => {
+      if (level(o) !== 2) directBits |= 1 << b;
+      if (level(o) !== 1) padBits |= 1 << b;
+    });
     return {
-      r: (p.row[k] ?? []).length,
+      r: lit.length,
+      directBits,
+      padBits,
       w: w(k),
       item: Int32Array.from(l.item),
       mask: Int32Array.from(l.mask),
@@ -377,11 +420,13 @@ export function lagrangeBound(
     starMask: new Int32Array(1 << maxR),
   };
   const stars: StarScratch = { group: [], sub: [] };
-  const padOkOf = (d: RowData): boolean => rules.buses && (uniform || d.w >= 2);
+  // A row of one state has no use for its padding bus while direct diodes may feed its outputs (they cost less); an output at level 2 may need it.
+  const padOkOf = (d: RowData): boolean => rules.buses && (uniform || d.w >= 2 || d.directBits !== (1 << d.r) - 1);
 
   let bestBound = -Infinity;
+  let bestShares: Float64Array | null = null;
   let rounds = 0;
-  let theta = 2;
+  let theta = opts.theta ?? 2;
   let stall = 0;
   const maxRounds = opts.maxRounds ?? 2000;
   const covers: RowCover[] = [];
@@ -406,6 +451,7 @@ export function lagrangeBound(
     if (!complete) break;
     if (sum > bestBound + 1e-9) {
       bestBound = sum;
+      bestShares = share.slice();
       stall = 0;
     } else if (++stall >= 8) {
       theta /= 2;
@@ -444,7 +490,16 @@ export function lagrangeBound(
     meter.charge(touched.size);
   }
   const bound = bestBound === -Infinity ? null : Math.ceil(bestBound - 1e-7);
-  return { bound, rounds, work: meter.work, deadlineHit: meter.deadlineHit };
+  const shares = new Map<string, number[]>();
+  const kept = bestShares;
+  if (kept !== null)
+    items.forEach((it, i) =>
+      shares.set(
+        itemKey(it.link, it.from, it.outputs),
+        Array.from(cellOf[i] as Int32Array, (c) => kept[c] as number),
+      ),
+    );
+  return { bound, rounds, work: meter.work, deadlineHit: meter.deadlineHit, shares, theta };
 }
 
 /** Every bus output set lit by two or more rows, and every link; null when there are too many or the meter ran out. */

@@ -17,7 +17,9 @@
  * measured (at that share its CPU time came to 0.13 to 0.26 of the limit
  * on the two-position counters, on a machine loaded six times over), and
  * every round it gets raises the bound (0.3 -> 0.4: 00-59 184 -> 185,
- * uniform 186 -> 187; 00-99 270 -> 272).
+ * uniform 186 -> 187; 00-99 270 -> 272). Under per-segment, where its root
+ * levels off inside its budget, it branches on the outputs' levels with what
+ * is left and 0.2 more (levelBound.ts; 00-23 82 -> 84).
  */
 
 /** Deterministic work limits of one run. */
@@ -32,6 +34,8 @@ export interface WorkBudget {
   readonly lpWork: number;
   /** Lagrangian-bound work: steps of the rows' cover DP (lagrangeBound.ts). */
   readonly lagrangeWork: number;
+  /** More of the same, for branching on the outputs' levels under per-segment (levelBound.ts). */
+  readonly levelWork: number;
   /** HiGHS `mip_max_nodes`. */
   readonly highsNodes: number;
   /**
@@ -43,7 +47,7 @@ export interface WorkBudget {
 }
 
 /** Share of the time limit each phase's budget is planned to take. */
-const SHARE = { heuristic: 0.05, family: 0.05, search: 0.1, lp: 0.2, lagrange: 0.4, highs: 0.1 } as const;
+const SHARE = { heuristic: 0.05, family: 0.05, search: 0.1, lp: 0.2, lagrange: 0.4, level: 0.2, highs: 0.1 } as const;
 
 /**
  * Heuristic cells looked at per CPU millisecond: about 20 000 on the largest
@@ -99,6 +103,7 @@ export function workBudget(timeLimitMs: number): WorkBudget {
     searchWork: of(SHARE.search, SEARCH_RATE, 1e5),
     lpWork: of(SHARE.lp, LP_RATE, 1e4),
     lagrangeWork: of(SHARE.lagrange, LAGRANGE_RATE, 1e6),
+    levelWork: of(SHARE.level, LAGRANGE_RATE, 1e6),
     highsNodes: of(SHARE.highs, HIGHS_NODE_RATE, 20),
     highsWork: of(SHARE.highs, HIGHS_RATE, 1e5),
   };

@@ -102,7 +102,16 @@ describe("exactPlan", () => {
       seed: 3,
       loadHighs: defaultHighsLoader,
       search: false,
-      budget: { heuristicWork: 0, searchWork: 0, familyWork: 1e12, lpWork: 0, lagrangeWork: 0, highsNodes: 1e9, highsWork: 5e6 },
+      budget: {
+        heuristicWork: 0,
+        searchWork: 0,
+        familyWork: 1e12,
+        lpWork: 0,
+        lagrangeWork: 0,
+        levelWork: 0,
+        highsNodes: 1e9,
+        highsWork: 5e6,
+      },
     };
     const a = await exactPlan(hp, mixed, warm, opts);
     const b = await exactPlan(hp, mixed, warm, opts);
