@@ -4,6 +4,7 @@
  * where they become µA, mA, mW and volts.
  */
 import type { BudgetWarning, SpreadCause, UnappliedWhy } from "../core/budget/budgetTypes.ts";
+import { remedyText, shortOfText } from "./targetShortText.ts";
 import { hazardousVoltageText, MAINS_SUPPLY_TEXT } from "../core/budget/safety.ts";
 import { microampsText, milliampsText, milliwatts, ohmsText, percent, voltsText } from "./units.ts";
 
@@ -86,8 +87,10 @@ export function warningText(w: BudgetWarning): string {
     }
     case "corner-target":
       return (
-        `over the tolerance corners the segments run from ${currentText(w.minA)} to ${currentText(w.maxA)}, ` +
-        `outside ±${w.windowPct} % of the ${currentText(w.targetA)} target (or over the rating, or a driver saturating)`
+        `over the tolerance corners the segments run from ${currentText(w.minA)} to ${currentText(w.maxA)} ` +
+        `and miss the target (±${w.windowPct} % of ${currentText(w.targetA)}, under the rating, every driver in its working range): ${shortOfText(w.shortOf, w)}` +
+        `${w.trimApplied ? "; the trim of the current-setting resistors is applied and does not bring them in" : ""}; ` +
+        `what to change: ${remedyText(w.shortOf, w)}`
       );
     case "brightness-spread":
       return spreadText(w);

@@ -1,11 +1,11 @@
 import { budgetDesign, solveBudget } from "../../core/budget/budget.ts";
 import type { Budget, DarkBudget } from "../../core/budget/budgetTypes.ts";
-import { designNote } from "../../core/budget/segmentDesign.ts";
 import type { DecodeSpec } from "../../core/spec/decodeSpec.ts";
 import type { VerifiedMatrix } from "../../core/matrix/matrix.ts";
 import type { DriverKind, Project } from "../../core/project/project.ts";
 import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
+import { budgetDesignNote, shortFigures, shortOfText } from "../../render/targetShortText.ts";
 import { darkFigureLines, darkNetworkText } from "../../render/darkBudgetText.ts";
 import { currentText, formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
@@ -189,7 +189,7 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
   );
   L.push("");
   const role = b.trim.role === "emitter" ? "emitter resistor" : "series resistor";
-  const trimState = b.trim.applied ? "applied" : "not applied";
+  const trimState = b.trim.applied ? (b.corners.meetsTarget ? "applied" : "applied, yet the corners miss the target") : "not applied";
   L.push(
     `Outputs (spread = how much dimmer the dimmest state is; R = the design's ${role}; trim: ${b.trim.series}, ${trimState}, and the range it gives)`,
   );
@@ -223,7 +223,7 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     `  Farthest segment from the target: ${percent(b.trim.offTargetPctBefore)} % with the project's resistors, ` +
       `${percent(b.trim.offTargetPct)} % with the trim; outside the ±${b.corners.windowPct} % window by ${percent(b.trim.windowDistancePctBefore)} % and ${percent(b.trim.windowDistancePct)} %`,
   );
-  L.push(`  ${designNote(budgetDesign(b))}`);
+  L.push(`  ${budgetDesignNote(b)}`);
   L.push("");
   const diodes = Object.entries(b.diodes);
   if (diodes.length > 0) {
@@ -344,6 +344,7 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
   L.push(
     `  ${b.corners.meetsTarget ? "Meets" : "Misses"} the target: every corner within ±${b.corners.windowPct} % of ${amps(e.segment.targetA, unit)} ${unit}, under the rating${driverRule(e.driver.kind)}`,
   );
+  if (!b.corners.meetsTarget) L.push(`  Missed: ${shortOfText(b.corners.shortOf, shortFigures(b))}`);
   L.push(`  Temperature: VT = kT/q; silicon Is(T) as SPICE scales it (EG 1.11 eV, XTI 3); LEDs -2 mV/°C at constant current`);
   return L.join("\n") + "\n";
 }

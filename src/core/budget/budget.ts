@@ -36,7 +36,7 @@ import {
 } from "./budgetFigures.ts";
 import { budgetWarnings } from "./budgetWarnings.ts";
 import { stateSpreads } from "./stateSpread.ts";
-import { BUDGET_SCHEMA, type Budget, type BudgetOptions, type DarkBudget } from "./budgetTypes.ts";
+import { BUDGET_SCHEMA, type Budget, type BudgetOptions, type DarkBudget, type TargetLimit } from "./budgetTypes.ts";
 
 export type { BudgetFailure } from "../circuit/stateSweep.ts";
 
@@ -87,13 +87,15 @@ export function solveBudget(
   const targetA = e.segment.targetA;
   const w = windowPct / 100;
   const drivers = driverBudgets(project, spec, solutions, lowSupply.value, lowSweep.value);
-  const meetsTarget =
-    driven.length === 0 ||
-    (low.minCurrentA >= targetA * (1 - w) &&
-      high.maxCurrentA <= targetA * (1 + w) &&
-      high.maxCurrentA <= e.segment.maxA &&
-      (low.minHeadroomV === null || low.minHeadroomV > 0) &&
-      Object.values(drivers).every((d) => d.saturated !== false));
+  const shortOf: TargetLimit[] = [];
+  if (driven.length > 0) {
+    if (low.minCurrentA < targetA * (1 - w)) shortOf.push("below-window");
+    if (high.maxCurrentA > targetA * (1 + w)) shortOf.push("above-window");
+    if (high.maxCurrentA > e.segment.maxA) shortOf.push("over-rating");
+    if (low.minHeadroomV !== null && !(low.minHeadroomV > 0)) shortOf.push("no-headroom");
+    if (Object.values(drivers).some((d) => d.saturated === false)) shortOf.push("switch-unsaturated");
+  }
+  const meetsTarget = shortOf.length === 0;
 
   const outputs = outputBudgets(spec, matrix, solutions);
   const budget: Omit<Budget, "warnings"> = {
@@ -128,7 +130,7 @@ export function solveBudget(
       windowDistancePctBefore: settled.value.before.windowDistancePct,
       windowDistancePct: settled.value.after.windowDistancePct,
     },
-    corners: { windowPct, meetsTarget, low, high },
+    corners: { windowPct, meetsTarget, shortOf, low, high },
     unlit: {
       ghostLimitA: e.ghostFraction * targetA,
       nominal: worstUnlit(spec, solutions),

@@ -228,6 +228,7 @@ export interface TrimBudget {
   readonly mode: TrimMode;
   readonly role: CurrentResistorRole;
   readonly applied: boolean;
+  /** What the trim does over the states at the nominal values (the rule judges no corner: `corners.shortOf` says what the design misses there). */
   readonly effect: TrimEffect;
   /** Per output: the centred preferred value and the exact one, and the range the centred trim gives. */
   readonly outputs: Readonly<Record<string, { readonly ohms: number; readonly idealOhms: number } & CurrentRange>>;
@@ -240,6 +241,14 @@ export interface TrimBudget {
   readonly windowDistancePctBefore: number;
   readonly windowDistancePct: number;
 }
+
+/**
+ * A part of the target the tolerance corners miss: a lit segment below the
+ * window at the low corner or above it at the high corner, a segment over
+ * its rating at the high corner, a sink or follower out of headroom at the
+ * low corner, a switch not saturated at the low corner.
+ */
+export type TargetLimit = "below-window" | "above-window" | "over-rating" | "no-headroom" | "switch-unsaturated";
 
 /** Why a worked-out trim is not in the design. */
 export type UnappliedWhy = "turned-off" | "widens-spread" | "over-rating" | "no-help";
@@ -357,6 +366,20 @@ export type BudgetWarning =
       readonly maxA: number;
       readonly targetA: number;
       readonly windowPct: number;
+      /** What the corners miss (`corners.shortOf`). */
+      readonly shortOf: readonly TargetLimit[];
+      /** The switches not saturated at the low corner, by output. */
+      readonly unsaturated: readonly string[];
+      /** The segment rating, amperes. */
+      readonly maxRatedA: number;
+      /** Whether the design takes the trim: a trim of the current-setting resistors that still misses. */
+      readonly trimApplied: boolean;
+      /** The driver kind (for what to change). */
+      readonly kind: DriverKind;
+      /** The dark-decoded outputs' input network, or null (for what to change). */
+      readonly darkInput: "level-shift" | "divider" | null;
+      /** Whether some path has more than one diode (for what to change). */
+      readonly deeperPaths: boolean;
     }
   | {
       readonly level: "warn";
@@ -480,6 +503,8 @@ export interface Budget {
   readonly corners: {
     readonly windowPct: number;
     readonly meetsTarget: boolean;
+    /** The parts of the target the corners miss, in this order; empty when `meetsTarget`. */
+    readonly shortOf: readonly TargetLimit[];
     readonly low: CornerBudget;
     readonly high: CornerBudget;
   };

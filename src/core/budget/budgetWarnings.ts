@@ -139,7 +139,23 @@ export function budgetWarnings(
     }
   }
   if (!b.corners.meetsTarget) {
-    w.push({ level: "warn", code: "corner-target", minA: lo.minCurrentA, maxA: hi.maxCurrentA, targetA, windowPct });
+    w.push({
+      level: "warn",
+      code: "corner-target",
+      minA: lo.minCurrentA,
+      maxA: hi.maxCurrentA,
+      targetA,
+      windowPct,
+      shortOf: b.corners.shortOf,
+      unsaturated: Object.entries(b.drivers)
+        .filter(([, d]) => d.saturated === false)
+        .map(([o]) => o),
+      maxRatedA: b.maxA,
+      trimApplied: b.trim.applied,
+      kind: b.kind,
+      darkInput: b.dark?.input ?? null,
+      deeperPaths: Object.values(b.outputs).some((o) => o.pathLengths.some((n) => n > 1)),
+    });
   }
   w.push(...spreads);
   if (b.spreadPct > SPREAD_NOTE_PCT) {

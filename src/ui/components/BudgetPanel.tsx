@@ -6,9 +6,9 @@
  * their severity (a word and a mark, never colour alone).
  */
 import { createMemo, For, Show } from "solid-js";
-import { budgetDesign } from "../../core/budget/budget.ts";
-import { designNote, TRIM_MODES, type TrimMode } from "../../core/budget/segmentDesign.ts";
+import { TRIM_MODES, type TrimMode } from "../../core/budget/segmentDesign.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
+import { budgetDesignNote } from "../../render/targetShortText.ts";
 import { darkFigureLines, darkMarginsText, darkNetworkText } from "../../render/darkBudgetText.ts";
 import { formatOhms, microampsShort, milliamps, milliwatts, percent } from "../../render/units.ts";
 import { app } from "../state/appState.ts";
@@ -149,7 +149,7 @@ export function BudgetPanel() {
             <details class="trim" open>
               <summary>Current-setting resistors</summary>
               <p class="design-note" data-testid="design-note">
-                {designNote(budgetDesign(b()))}
+                {budgetDesignNote(b())}
               </p>
               <table class="mini-table" data-testid="emitter-table">
                 <thead>

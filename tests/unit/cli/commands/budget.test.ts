@@ -84,7 +84,12 @@ describe("budget command", () => {
     expect(text).toMatch(/^ {2}1tr +2 /m);
     expect(text).toMatch(/^ {2}1c +1 /m);
     expect(text).toContain("Tolerance corners (trimmed design;");
-    expect(text).toContain("  Emitter resistors: the E24 trim, applied because it ");
+    // The trim is applied (nearer the target at the nominal values) but the corners still leave the window: the note says so.
+    expect(b.value.trim.applied).toBe(true);
+    expect(b.value.corners.shortOf).toEqual(["below-window", "above-window"]);
+    expect(text).toMatch(
+      /^ {2}Emitter resistors: the E24 trim is applied \(at the nominal values it takes the farthest segment from 39\.0 % to 5\.6 % off the target\), but it does not bring the segments into the ±20 % window: over the corners they are below the window at the low corner \(.*\); above it at the high corner \(.*\)\. What to change: use closer resistors \(electrical\.tolerance\.resistorPct\)\.$/m,
+    );
     // The outputs table names each current-setting resistor (here the emitter resistor) and gives the design's value.
     for (const [o, dr] of Object.entries(b.value.drivers)) {
       expect(text).toMatch(new RegExp(`^  ${o} .* ${dr.currentResistor.ref} +${formatOhms(dr.currentResistor.ohms)} +`, "m"));

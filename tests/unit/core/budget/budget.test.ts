@@ -34,10 +34,13 @@ describe("solveBudget", () => {
     expect(s0?.outputs["1c"]?.driver?.icA).toBeCloseTo(s0?.outputs["1c"]?.segmentA ?? 0, 9);
     const text = JSON.stringify(b);
     expect(text).not.toMatch(/NaN|Infinity/);
-    // A sink has no forced beta and no saturation verdict; its headroom is a number. Every output decoded lit: no dark section.
+    // A sink has no forced beta and no saturation verdict; its headroom is a number. Every output decoded lit: no dark section
+    // (and the corner-target warning names no dark input network).
     const nulls = [...text.matchAll(/"(\w+)":null/g)].map((m) => m[1]);
     expect(new Set(nulls)).toEqual(
-      new Set(["forcedBeta", "saturated", "maxForcedBeta", "unappliedTrim", "offMaxState", "dark"].filter((k) => nulls.includes(k))),
+      new Set(
+        ["forcedBeta", "saturated", "maxForcedBeta", "unappliedTrim", "offMaxState", "dark", "darkInput"].filter((k) => nulls.includes(k)),
+      ),
     );
     expect(b.dark).toBeNull();
     expect(Object.values(b.drivers).every((d) => typeof d.headroomV === "number")).toBe(true);
