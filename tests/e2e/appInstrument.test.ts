@@ -15,6 +15,7 @@ import { budgetDesign, solveBudget } from "../../src/core/budget/budget.ts";
 import { instrumentBudget, type BudgetedDecoder } from "../../src/core/budget/instrumentBudget.ts";
 import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
+import { encodeShareHash } from "../../src/ui/state/shareLink.ts";
 import { storedZipEntries } from "../support/zipRead.ts";
 import { startApp, type AppHarness } from "./appBrowser.ts";
 
@@ -200,6 +201,40 @@ describe("an instrument in the web app", () => {
     await other.goto(app.url + hash);
     await waitReady(other);
     await expect.poll(() => decoderNames(other)).toEqual(["main", "seconds"]);
+    await other.close();
+  });
+
+  it("says beside the summary why a decoder on high-side switches draws nothing from the logic supply", async () => {
+    // A quiz desk: the round on a sink-drive ring through PNP high-side switches, the team on NPN switches.
+    const desk = {
+      schema: "diodeloom/project@2",
+      title: "Quiz desk",
+      electrical: { preset: "bench-5v-switch" },
+      decoders: [
+        {
+          name: "round",
+          counter: { states: 10, drive: "sink" },
+          display: { positions: 1 },
+          show: [..."123456789F"],
+          synthesis: { timeLimitMs: 5000 },
+          electrical: { preset: "bench-5v-high-side" },
+        },
+        { name: "team", counter: { states: 4 }, display: { positions: 1 }, show: [..."1234"], synthesis: { timeLimitMs: 5000 } },
+      ],
+    };
+    const other = await (await app.browser.newContext({ viewport: { width: 1400, height: 1000 } })).newPage();
+    other.on("pageerror", (e) => consoleErrors.push(`pageerror: ${e.message}`));
+    await other.goto(app.url + (await encodeShareHash(JSON.stringify(desk))));
+    await waitReady(other);
+    await expect.poll(() => decoderNames(other)).toEqual(["round", "team"]);
+    await shownTotals(other);
+    const logic = await other.locator('[data-testid="instrument-summary"] tbody tr td:nth-child(6)').allTextContents();
+    expect(logic[0]).toBe("0.00");
+    expect(Number(logic[1])).toBeGreaterThan(0);
+    expect(await other.getByTestId("logic-note").allTextContents()).toEqual([
+      "round: logic supply, nothing drawn: the high-side switches' active-low lines only sink current, the switches' base and pull-up currents from the segment supply.",
+    ]);
+    await other.getByTestId("instrument").screenshot({ path: "/work/shots/polish-logic-note.png" });
     await other.close();
   });
 

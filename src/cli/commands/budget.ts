@@ -6,6 +6,7 @@ import type { DriverKind, Project } from "../../core/project/project.ts";
 import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
 import { budgetDesignNote, shortFigures, shortOfText } from "../../render/targetShortText.ts";
+import { logicDrawClause } from "../../render/logicDrawText.ts";
 import { darkFigureLines, darkNetworkText } from "../../render/darkBudgetText.ts";
 import { currentText, formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
@@ -319,10 +320,12 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     );
     L.push("");
   }
+  const logicClause = logicDrawClause(b.kind, b.logic.maxCurrentA);
   if (b.kind !== "direct")
     L.push(`Segment supply: up to ${milliamps(b.supply.maxCurrentA)} mA, ${milliwatts(b.supply.maxPowerW)} mW at ${b.supply.volts} V`);
   L.push(
-    `Logic supply (counter lines, tie-on${Object.keys(b.gates).length > 0 ? ", gate pull-ups" : ""}): up to ${milliamps(b.logic.maxCurrentA)} mA, ${milliwatts(b.logic.maxPowerW)} mW at ${b.logic.volts} V`,
+    `Logic supply (counter lines, tie-on${Object.keys(b.gates).length > 0 ? ", gate pull-ups" : ""}): up to ${milliamps(b.logic.maxCurrentA)} mA, ${milliwatts(b.logic.maxPowerW)} mW at ${b.logic.volts} V` +
+      (logicClause === null ? "" : `; ${logicClause}`),
   );
   L.push("");
   const which = b.trim.applied ? "trimmed design" : "design with the project's resistors";

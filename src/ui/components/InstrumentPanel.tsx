@@ -19,7 +19,7 @@ import {
   removeDecoder,
   renameDecoder,
 } from "../state/instrumentDraft.ts";
-import { instrumentTotals, totalsCaveat } from "../state/instrumentSummary.ts";
+import { instrumentTotals, logicNotes, totalsCaveat } from "../state/instrumentSummary.ts";
 import type { DecoderSummary } from "../workers/summaryRun.ts";
 import { HelpTip } from "./HelpTip.tsx";
 
@@ -238,6 +238,18 @@ export function InstrumentPanel() {
             </p>
           )}
         </Show>
+        <For
+          each={logicNotes(
+            app.summary(),
+            inst().decoders.map((d) => d.name),
+          )}
+        >
+          {(note) => (
+            <p class="muted small" data-testid="logic-note">
+              {note}
+            </p>
+          )}
+        </For>
         <Show when={totalsCaveat(totals())}>
           {(c) => (
             <p class="chip stale" data-testid="summary-caveat">

@@ -8,6 +8,7 @@
  */
 import type { TotalBound } from "../../core/budget/instrumentBudget.ts";
 import type { DecoderSummary, InstrumentSummary } from "../workers/summaryRun.ts";
+import { logicDrawClause } from "../../render/logicDrawText.ts";
 
 /** The supplies' worst totals, SI, with each decoder's share in the list's order. */
 export interface SupplyTotals {
@@ -84,4 +85,21 @@ export function totalsCaveat(t: InstrumentTotals): string | null {
   if (t.computing === 0 && t.supply === null && t.supplyProblem === null) parts.push("the supplies' totals still being worked out");
   if (t.supplyProblem !== null) parts.push(`no supply totals: ${t.supplyProblem}`);
   return parts.length === 0 ? null : `Partial totals: ${parts.join("; ")}.`;
+}
+
+/**
+ * Each decoder's note on its logic supply figure, where the figure needs
+ * one (a decoder on high-side switches draws none: logicDrawText.ts), in
+ * the list's order.
+ *
+ * @example
+ * logicNotes([{ status: "done", figures }], ["round"]); // ["round: logic supply, nothing drawn: the high-side switches' ..."]
+ */
+export function logicNotes(rows: readonly DecoderSummary[], names: readonly string[]): string[] {
+  return rows.flatMap((r, i) => {
+    if (r.status !== "done" || !r.figures.budget.ok) return [];
+    const b = r.figures.budget.value;
+    const clause = logicDrawClause(b.kind, b.logic.maxCurrentA);
+    return clause === null ? [] : [`${names[i] ?? ""}: logic supply, ${clause}.`];
+  });
 }

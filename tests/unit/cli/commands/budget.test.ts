@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { main } from "../../../../src/cli/main.ts";
 import { solveBudget } from "../../../../src/core/budget/budget.ts";
+import { buildCircuit, LOGIC_NODE } from "../../../../src/core/circuit/circuit.ts";
 import { describeBudget } from "../../../../src/cli/commands/budget.ts";
 import { recordingIo } from "../../../support/recordingIo.ts";
 import { currentText, formatOhms } from "../../../../src/render/units.ts";
@@ -182,5 +183,27 @@ describe("budget command", () => {
     const json = recordingIo({ "p.json": text });
     expect(await main(["budget", "p.json", "--fast", "--json"], json)).toBe(0);
     expect((JSON.parse(json.stdout.join("")) as { counterLines: object }).counterLines).toEqual({});
+  });
+
+  it("says why a decoder on high-side switches draws nothing from the logic supply, and says nothing where a decoder draws from it", () => {
+    const quiz = directDesign("quiz", example("quiz-scoreboard"));
+    const b = solveBudget(quiz.project, quiz.spec, quiz.matrix);
+    if (!b.ok) throw new Error(b.error.message);
+    // The model: no element hangs from the logic supply, so the figure is 0 by construction, not by a fault.
+    expect(b.value.logic.maxCurrentA).toBe(0);
+    for (let k = 0; k < quiz.matrix.states.length; k++) {
+      const c = buildCircuit(quiz.spec, quiz.matrix, quiz.project.electrical, k);
+      expect(c.elements.some((e) => e.kind === "vsource" && e.node === LOGIC_NODE)).toBe(false);
+    }
+    expect(describeBudget(quiz.project, quiz.spec, quiz.matrix, b.value)).toContain(
+      "\nLogic supply (counter lines, tie-on): up to 0.00 mA, 0.0 mW at 5 V; nothing drawn: the high-side switches' active-low lines only sink current, " +
+        "the switches' base and pull-up currents from the segment supply\n",
+    );
+    const lit = directDesign("1 7 switch", showingWith(["1", "7"], { preset: "bench-5v-switch" }));
+    const l = solveBudget(lit.project, lit.spec, lit.matrix);
+    if (!l.ok) throw new Error(l.error.message);
+    expect(describeBudget(lit.project, lit.spec, lit.matrix, l.value)).toMatch(
+      /\nLogic supply \(counter lines, tie-on\): up to \d+\.\d+ mA, \d+\.\d mW at 5 V\n/,
+    );
   });
 });
