@@ -20,7 +20,8 @@
  *    is reported (a `state-spread` warning names the cause), not judged;
  * 3. it helps: the segments come nearer the target window (the largest
  *    distance of a lit segment outside it shrinks), or, as near, the
- *    spread or the largest distance from the target shrinks.
+ *    spread or the largest distance from the target shrinks, each by at
+ *    least `TRIM_HELPS_PCT` percentage points.
  * The trim centres each output on the target; where that alone breaks rule
  * 2, the outputs at the two ends of the display's range are moved one
  * preferred value towards the middle, a step at a time, until it holds. A
@@ -130,6 +131,15 @@ export function designFigures(ranges: ReadonlyMap<string, CurrentRange>, targetA
 
 /** A hair of rounding that does not count as a change, percentage points. */
 const EPS_PCT = 1e-9;
+/**
+ * The least gain, percentage points, that makes a trim help (rule 3): a
+ * smaller one is no change a builder could see or measure (a 1 % resistor
+ * moves a segment's current by about 1 %). Our own rule, common practice,
+ * no source. Without it a trim that moved the farthest segment by 2e-6 %
+ * at nominal counted as help and was applied, while it took the high
+ * corner from 11.05 to 19.78 mA (0-9 dark through dividers at depth 3).
+ */
+export const TRIM_HELPS_PCT = 0.05;
 
 /** Whether the trim keeps the display's spread (rule 2). */
 export function keepsSpreads(before: DesignFigures, after: DesignFigures): boolean {
@@ -151,9 +161,9 @@ export function trimEffect(
   if (given.sameValues) return "no-change";
   if (given.overRating) return "over-rating";
   if (!keepsSpreads(before, after)) return "widens-spread";
-  const nearer = after.windowDistancePct < before.windowDistancePct - EPS_PCT;
+  const nearer = after.windowDistancePct < before.windowDistancePct - TRIM_HELPS_PCT;
   const asNear = after.windowDistancePct <= before.windowDistancePct + EPS_PCT;
-  const better = after.spreadPct < before.spreadPct - EPS_PCT || after.offTargetPct < before.offTargetPct - EPS_PCT;
+  const better = after.spreadPct < before.spreadPct - TRIM_HELPS_PCT || after.offTargetPct < before.offTargetPct - TRIM_HELPS_PCT;
   return nearer || (asNear && better) ? "improves" : "no-help";
 }
 
