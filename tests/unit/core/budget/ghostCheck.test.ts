@@ -11,19 +11,34 @@ import {
 } from "../../../../src/core/budget/ghostCheck.ts";
 import { compileSpec } from "../../../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../../../src/core/synth/synthesize.ts";
+import type { Project } from "../../../../src/core/project/project.ts";
 import { makeProject2 } from "../../../support/projects.ts";
 
-async function design(decode: string, darkInput = "level-shift") {
-  const project = makeProject2({
-    counter: { states: 6, drive: "complementary" },
-    display: {},
-    show: [..."012345"],
-    synthesis: { depth: "mixed", decode, darkInput, timeLimitMs: 5000 },
-  });
+/** A project's spec and verified matrix. */
+async function synthesized(project: Project) {
   const spec = compileSpec(project);
   const r = await synthesize(spec, synthSettings(project));
   if (!r.ok) throw new Error(JSON.stringify(r.error));
   return { project, spec, matrix: r.value };
+}
+
+/** A project's spec, matrix and the ghost check's sizing of its dark-decoded network. */
+async function sized(project: Project) {
+  const { spec, matrix } = await synthesized(project);
+  const g = sizeDarkNetwork(project, spec, matrix);
+  if (!g.ok) throw new Error(g.error.message);
+  return { spec, matrix, v: g.value };
+}
+
+function design(decode: string, darkInput = "level-shift") {
+  return synthesized(
+    makeProject2({
+      counter: { states: 6, drive: "complementary" },
+      display: {},
+      show: [..."012345"],
+      synthesis: { depth: "mixed", decode, darkInput, timeLimitMs: 5000 },
+    }),
+  );
 }
 
 describe("ghostCheck", () => {
@@ -73,12 +88,7 @@ describe("ghostCheck", () => {
       show: [..."0123456789"],
       synthesis: { depth: "mixed", decode: "either", timeLimitMs: 5000 },
     });
-    const spec = compileSpec(project);
-    const r = await synthesize(spec, synthSettings(project));
-    if (!r.ok) throw new Error(JSON.stringify(r.error));
-    const g = sizeDarkNetwork(project, spec, r.value);
-    if (!g.ok) throw new Error(g.error.message);
-    const v = g.value;
+    const { spec, matrix, v } = await sized(project);
     expect(v.passes).toBe(true);
     expect(pullUpRoom(v)).toBeGreaterThanOrEqual(PULL_UP_ROOM);
     expect(v.binding).toMatch(
@@ -88,13 +98,13 @@ describe("ghostCheck", () => {
     // the one below that breaks a limit.
     const candidates = pullUpCandidates();
     let k = candidates.indexOf(v.values.pullUpOhms) - 1;
-    let below = checkWith(project, spec, r.value, { ...v.values, pullUpOhms: candidates[k] as number });
+    let below = checkWith(project, spec, matrix, { ...v.values, pullUpOhms: candidates[k] as number });
     if (!below.ok) throw new Error(below.error.message);
     expect(below.value.passes).toBe(true);
     while (below.ok && below.value.passes) {
       expect(pullUpRoom(below.value)).toBeLessThan(PULL_UP_ROOM);
       k -= 1;
-      below = checkWith(project, spec, r.value, { ...v.values, pullUpOhms: candidates[k] as number });
+      below = checkWith(project, spec, matrix, { ...v.values, pullUpOhms: candidates[k] as number });
     }
     if (!below.ok) throw new Error(below.error.message);
     expect(below.value.passes).toBe(false);
@@ -141,12 +151,7 @@ describe("ghostCheck", () => {
       show: [..."0123456789"],
       synthesis: { maxDepth: 1, decode: "dark", darkInput: "divider", timeLimitMs: 5000 },
     });
-    const spec = compileSpec(project);
-    const r = await synthesize(spec, synthSettings(project));
-    if (!r.ok) throw new Error(JSON.stringify(r.error));
-    const g = sizeDarkNetwork(project, spec, r.value);
-    if (!g.ok) throw new Error(g.error.message);
-    const v = g.value;
+    const { spec, matrix, v } = await sized(project);
     expect(v.passes, v.binding).toBe(true);
     expect(pullUpRoom(v)).toBeGreaterThanOrEqual(PULL_UP_ROOM);
     const said =
@@ -159,7 +164,7 @@ describe("ghostCheck", () => {
     expect(room1).toBeCloseTo(100 * pullUpRoom(v), 1);
     const smallest = { ...v.values, pullUpOhms: (pullUp0 as number) * 1000, dividerOhms: (upper0 as number) * 1000 };
     const full = (values: typeof smallest) => {
-      const c = checkWith(project, spec, r.value, values);
+      const c = checkWith(project, spec, matrix, values);
       if (!c.ok) throw new Error(c.error.message);
       return c.value;
     };
