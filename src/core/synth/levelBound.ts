@@ -102,23 +102,20 @@ export function levelBound(
   };
   const done = (bound: number): LagrangeBound => ({ bound: Math.min(bound, opts.upper), rounds, work, deadlineHit, shares: root.shares });
 
-  // Probes: each output at each level, from the root.
+  // Probes: each output at level 1, from the root (level 1 is the one that rules out: a segment lit in many
+  // states costs a diode per state there; probing level 2 too ruled out none on 00-23).
   const decided = Array<number>(p.m).fill(0);
-  const weaker = Array<number>(p.m).fill(root.bound);
+  const probe = Array<number>(p.m).fill(root.bound);
   for (let o = 0; o < p.m; o++) {
-    const at = (level: number): number | null => {
-      const trial = decided.slice();
-      trial[o] = level;
-      return evaluate(trial, root.shares, root.bound as number, root.theta ?? 2)?.bound ?? null;
-    };
-    // Level 1 is the probe that rules out (a segment lit in many states costs a diode per state there).
-    const one = at(1);
+    const trial = decided.slice();
+    trial[o] = 1;
+    const one = evaluate(trial, root.shares, root.bound, root.theta ?? 2)?.bound ?? null;
     if (one === null) return done(root.bound);
     if (one >= opts.upper) decided[o] = 2;
-    else weaker[o] = one;
+    else probe[o] = one;
   }
-  // The open outputs, the one whose weaker probe is highest first.
-  const open = decided.flatMap((l, o) => (l === 0 ? [o] : [])).sort((a, b) => (weaker[b] as number) - (weaker[a] as number) || a - b);
+  // The open outputs, the one whose probe came nearest the count first.
+  const open = decided.flatMap((l, o) => (l === 0 ? [o] : [])).sort((a, b) => (probe[b] as number) - (probe[a] as number) || a - b);
 
   // Best first: the open node of least bound is split on its first undecided output; the least bound among
   // the open nodes is the bound (every assignment lies under one of them).
