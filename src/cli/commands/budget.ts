@@ -7,6 +7,7 @@ import { budgetJsonText } from "../../render/budgetJson.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
 import { budgetDesignNote, shortFigures, shortOfText } from "../../render/targetShortText.ts";
 import { logicDrawClause } from "../../render/logicDrawText.ts";
+import { forcedBetaText } from "../../render/forcedBetaText.ts";
 import { darkFigureLines, darkNetworkText } from "../../render/darkBudgetText.ts";
 import { currentText, formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
@@ -311,7 +312,7 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
           milliamps(d.maxCollectorA),
           milliwatts(d.maxPowerW, 2),
           d.forcedBeta !== null
-            ? `${d.forcedBeta.toFixed(1)}${d.saturated ? "" : " (not saturated)"}`
+            ? `${forcedBetaText(d.forcedBeta, d.saturated === true)}${d.saturated ? "" : " (not saturated)"}`
             : d.headroomV !== null
               ? volts(d.headroomV)
               : "",
@@ -330,11 +331,13 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
   L.push("");
   const which = b.trim.applied ? "trimmed design" : "design with the project's resistors";
   L.push(`Tolerance corners (${which}; ±${e.tolerance.resistorPct} % resistors, beta ${e.tolerance.betaMin}-${e.tolerance.betaMax})`);
+  // The drivers' verdicts are the low corner's: there, every switch saturated means the largest forced beta is below the lowest beta.
+  const everySaturated = Object.values(b.drivers).every((d) => d.saturated === true);
   for (const c of [b.corners.low, b.corners.high]) {
     const k = c.conditions;
     const driverFigure =
       c.maxForcedBeta !== null
-        ? `, forced beta up to ${c.maxForcedBeta.toFixed(1)}`
+        ? `, forced beta up to ${forcedBetaText(c.maxForcedBeta, k.name === "low" && everySaturated)}`
         : c.minHeadroomV !== null
           ? `, headroom ${volts(c.minHeadroomV)} V`
           : "";

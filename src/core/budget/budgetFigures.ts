@@ -240,6 +240,8 @@ interface DriverFigures {
   forcedBeta: number;
   /** A lit state where the transistor takes no base current: it is off, not a switch closed. */
   off: boolean;
+  /** A lit state where its base-collector junction is not forward-biased: it works in its active region, not saturated. */
+  active: boolean;
 }
 
 /** Base current below which a lit switch counts as off, amperes (GMIN-level leakage, not drive). */
@@ -251,7 +253,15 @@ function driverFigures(spec: DecodeSpec, sweep: SweepReading): Map<string, Drive
   sweep.states.forEach((s, k) => {
     sweep.drivers.forEach((d, j) => {
       const p = s.points[j] ?? null;
-      const f = out.get(d.output) ?? { maxVceV: 0, maxPowerW: 0, maxCollectorA: 0, headroomV: Infinity, forcedBeta: 0, off: false };
+      const f = out.get(d.output) ?? {
+        maxVceV: 0,
+        maxPowerW: 0,
+        maxCollectorA: 0,
+        headroomV: Infinity,
+        forcedBeta: 0,
+        off: false,
+        active: false,
+      };
       if (p !== null) {
         f.maxVceV = Math.max(f.maxVceV, p.vceV);
         f.maxPowerW = Math.max(f.maxPowerW, p.vceV * p.icA + p.vbeV * p.ibA);
@@ -260,6 +270,8 @@ function driverFigures(spec: DecodeSpec, sweep: SweepReading): Map<string, Drive
           f.headroomV = Math.min(f.headroomV, p.vceV - p.vbeV);
           if (p.ibA > NO_BASE_A) f.forcedBeta = Math.max(f.forcedBeta, p.icA / p.ibA);
           else f.off = true;
+          // Vbc = Vbe - Vce (a PNP's Vcb = Veb - Vec, its point being measured the other way round).
+          if (!(p.vbeV - p.vceV > 0)) f.active = true;
         }
       }
       out.set(d.output, f);
@@ -302,7 +314,12 @@ export function driverBudgets(
       maxCollectorA: n.maxCollectorA,
       headroomV: (kind === "current-sink" || kind === "emitter-follower") && Number.isFinite(headroom) ? headroom : null,
       forcedBeta: isSwitch && !w.off ? w.forcedBeta : null,
-      saturated: isSwitch ? !w.off && w.forcedBeta < e.tolerance.betaMin : null,
+      // Judged on the junction, not on forcedBeta < betaMin: the low corner's transistor has beta betaMin, and in
+      // the Ebers-Moll model Ic/Ib < beta exactly when the base-collector junction is forward-biased; but the
+      // solver's GMIN across each junction (1e-12 S, as in SPICE) adds GMIN (Vbe + Vbc) to Ib, which puts
+      // Ic/Ib a part in 1e9 below beta in the active region wherever Vce < 2 Vbe: a switch out of saturation
+      // (Vce above 1 V, its current set by its base current times beta) read as one just saturated.
+      saturated: isSwitch ? !w.off && !w.active : null,
       ratedVceV: e.driver.maxVceV,
       ratedPowerW: e.driver.maxPowerW,
       ratedCollectorA: e.driver.maxCollectorA,

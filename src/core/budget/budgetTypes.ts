@@ -173,7 +173,11 @@ export interface DriverBudget {
    * a switch that takes no base current in a lit state (it is off).
    */
   readonly forcedBeta: number | null;
-  /** A switch: saturated at the low corner (forced beta below `tolerance.betaMin`); null for other kinds. */
+  /**
+   * A switch: saturated at the low corner, its base-collector junction
+   * forward-biased in every lit state (so its forced beta is below
+   * `tolerance.betaMin`, the corner's beta); null for other kinds.
+   */
   readonly saturated: boolean | null;
   readonly ratedVceV: number;
   readonly ratedPowerW: number;

@@ -37,6 +37,37 @@ describe("budget command", () => {
     expect(Date.now() - started).toBeLessThan(60_000);
   });
 
+  it("prints a switch its base current leaves in its active region as not saturated, and a saturated one's forced beta below the lowest beta", async () => {
+    // The 12 V panel on low-side switches behind the dark decode's dividers: at the low corner 1a, 1d-1g run
+    // with Vce above 1 V and Ic = 100 Ib (tests/reference/switchSaturation.test.ts checks it against ngspice).
+    const panel = (seriesOhms: number) =>
+      JSON.stringify({
+        schema: "diodeloom/project@2",
+        title: "Dark panel",
+        counter: { states: 3, drive: "complementary" },
+        display: {},
+        show: ["1", "7", "8"],
+        synthesis: { maxDepth: 2, depth: "mixed", decode: "dark", darkInput: "divider", timeLimitMs: 10_000 },
+        electrical: {
+          preset: "panel-12v-sink",
+          driver: { kind: "low-side-switch", baseResistor: 220 },
+          segment: { seriesResistor: seriesOhms },
+        },
+      });
+    const active = recordingIo({ "p.json": panel(180) });
+    expect(await main(["budget", "p.json", "--trim", "off"], active)).toBe(0);
+    const text = active.stdout.join("");
+    expect(text).toMatch(/^ {2}1a {6}Q1 +R1 +180 .* 100\.0 \(not saturated\)$/m);
+    expect(text).toContain("WARN   switch-unsaturated: switch Q1 (1a) is not saturated at the low corner");
+    // 220 Ω: Vce about 0.4 V, the base-collector junction just forward-biased: saturated, its forced beta a hair below 100.
+    const soft = recordingIo({ "p.json": panel(220) });
+    expect(await main(["budget", "p.json", "--trim", "off"], soft)).toBe(0);
+    const softText = soft.stdout.join("");
+    expect(softText).toMatch(/^ {2}1a {6}Q1 +R1 +220 .* 99\.9$/m);
+    expect(softText).toMatch(/^ {2}low .*forced beta up to 99\.9,/m);
+    expect(softText).not.toContain("switch-unsaturated");
+  });
+
   it("uses the E96 series when asked", async () => {
     const io = recordingIo({ "p.json": PROJECT });
     expect(await main(["budget", "p.json", "--json", "--direct", "--series", "E96"], io)).toBe(0);
