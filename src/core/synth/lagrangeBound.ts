@@ -78,6 +78,28 @@ export interface LagrangeOptions {
   readonly warm?: ReadonlyMap<string, readonly number[]>;
   /** The step factor to start from (default 2; a warm start passes its parent's). */
   readonly theta?: number;
+  /**
+   * Rounds in a row without a gain after which the step halves. By default
+   * it is scaled to the rounds the work budget pays for (`stallRounds`).
+   */
+  readonly stall?: number;
+}
+
+/**
+ * The default of `LagrangeOptions.stall`: 1/64 of the rounds the budget
+ * pays for (`affordable`, from the first round's work), 8 to 30. A fixed 8
+ * halved the step so fast on 00-23 that it fell to nothing after 785 of the
+ * 1424 rounds its 10 s budget paid for, at 81.4 (82); halving after 22 uses
+ * them all and reaches 82.3 (83), and 87 for 86 under uniform. Where the
+ * budget pays for fewer rounds (760 on 00-59 and 768 on 00-99 at 30 and
+ * 60 s) a slow halving leaves the step too long at the end (00-59 uniform
+ * 186 after 20, 187 after 8), and 12 gives 186 for 185 on 00-59 and 273
+ * for 272 on 00-99 under mixed (boundBench.ts; our own tuning, measured on
+ * this 2-core machine). Halving the step after rounds without a gain is
+ * the usual subgradient rule (Held, Wolfe and Crowder, docs/sources.md).
+ */
+export function stallRounds(affordable: number): number {
+  return Math.min(30, Math.max(8, Math.round(affordable / 64)));
 }
 
 export interface LagrangeBound {
@@ -428,7 +450,9 @@ export function lagrangeBound(
   let rounds = 0;
   let theta = opts.theta ?? 2;
   let stall = 0;
+  let stallLimit = opts.stall ?? 8;
   const maxRounds = opts.maxRounds ?? 2000;
+  const workBefore = meter.work;
   const covers: RowCover[] = [];
   const grad = new Float64Array(cells);
   for (; rounds < maxRounds; rounds++) {
@@ -449,11 +473,15 @@ export function lagrangeBound(
       }
     }
     if (!complete) break;
+    if (rounds === 0 && opts.stall === undefined) {
+      const perRound = Math.max(1, meter.work - workBefore);
+      stallLimit = stallRounds(Math.min(maxRounds, (opts.maxWork - workBefore) / perRound));
+    }
     if (sum > bestBound + 1e-9) {
       bestBound = sum;
       bestShares = share.slice();
       stall = 0;
-    } else if (++stall >= 8) {
+    } else if (++stall >= stallLimit) {
       theta /= 2;
       stall = 0;
     }

@@ -45,6 +45,14 @@ const STAGES = 5;
 const NEAR = 3;
 const LEAF_STALE = 3;
 const THETA_FLOOR = 0.5;
+/**
+ * Rounds without a gain before the step halves, at the root and in every
+ * node: the fixed rule the branching was tuned with. The root has to level
+ * off inside its budget for the branching to start, and the budget-scaled
+ * default of lagrangeBound.ts (22 on 00-23) keeps it rising to the end:
+ * 83 with the branching against 84 with this.
+ */
+const STALL = 8;
 
 /**
  * The Lagrangian bound (`opts.maxWork` for its root); under per-segment,
@@ -62,7 +70,7 @@ export function levelBound(
   branchWork: number,
 ): LagrangeBound {
   // The root is the plain bound with its whole budget, so branching only ever adds to it.
-  const root = lagrangeBound(p, rules, opts);
+  const root = lagrangeBound(p, rules, rules.policy === "per-segment" ? { ...opts, stall: STALL } : opts);
   if (rules.policy !== "per-segment") return root;
   let work = root.work;
   let deadlineHit = root.deadlineHit;
@@ -85,7 +93,7 @@ export function levelBound(
     let bound = floor;
     for (let stage = 0; stage < STAGES; stage++) {
       if (left() <= 0) return null;
-      const r = lagrangeBound(p, rules, { ...opts, maxWork: left(), maxRounds: STAGE_ROUNDS, levels, warm: shares, theta });
+      const r = lagrangeBound(p, rules, { ...opts, maxWork: left(), maxRounds: STAGE_ROUNDS, levels, warm: shares, theta, stall: STALL });
       work += r.work;
       rounds += r.rounds;
       deadlineHit ||= r.deadlineHit;

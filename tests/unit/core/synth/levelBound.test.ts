@@ -88,7 +88,7 @@ describe("levelBound (per-segment: the Lagrangian bound branched on the outputs'
     }
   });
 
-  it("raises 00-23 per-segment from 82 to 84 within the exact stage's budgets at 10 s (the best known matrix has 89)", () => {
+  it("raises 00-23 per-segment from 83 to 84 within the exact stage's budgets at 10 s (the best known matrix has 89)", () => {
     const p = reduceRows(
       sharingProblem(
         compileSpec(
@@ -104,7 +104,10 @@ describe("levelBound (per-segment: the Lagrangian bound branched on the outputs'
     // 89: the heuristic's count on this case (bench/synthBench.ts); budgets only, no clock: the same figures on any machine.
     const plain = lagrangeBound(p, rules, { maxWork: budget.lagrangeWork, upper: 89 });
     const level = levelBound(p, rules, { maxWork: budget.lagrangeWork, upper: 89 }, budget.levelWork);
-    expect(plain.bound).toBe(82);
+    // The plain bound halves its step as its budget allows (83); the branching's root halves it after 8 rounds
+    // without a gain, as it was tuned (82 alone), and the branching takes it to 84.
+    expect(plain.bound).toBe(83);
+    expect(lagrangeBound(p, rules, { maxWork: budget.lagrangeWork, upper: 89, stall: 8 }).bound).toBe(82);
     expect(level.bound).toBe(84);
     expect(level.deadlineHit).toBe(false);
   });
