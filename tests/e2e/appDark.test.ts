@@ -52,6 +52,8 @@ describe("the web app with dark-decoded outputs", () => {
       /^worst unlit [\d.]+ µA \(1[a-g] in S\d, (nominal|low corner|high corner)\) against the 100\.0 µA ghost limit$/,
     );
     expect(figures[figures.length - 1]).toBe("every limit holds");
+    // The outputs decoded lit hang from the active-high lines: the counter has lines that source current.
+    expect(await page.getByTestId("counter-lines-note").count()).toBe(0);
     await page.screenshot({ path: "/work/shots/issue11-dark-budget.png", fullPage: true }).catch(() => undefined);
 
     // The same project through the command line: the same pull-up and the same worst unlit segment.
@@ -100,5 +102,31 @@ describe("the web app with dark-decoded outputs", () => {
       .first()
       .screenshot({ path: "/work/shots/issue11-app-dark-drawing.png" })
       .catch(() => undefined);
+  }, 240_000);
+
+  it("says once, as the command line does, that no active-high line is wired when every output is decoded dark, with no counter-sag note", async () => {
+    // Continues from the project above: 10 states on complementary lines, now every output decoded dark.
+    await page.getByTestId("decode-polarity").selectOption("dark");
+    await expect.poll(() => page.getByTestId("exact-status").textContent(), { timeout: 90_000 }).toMatch(/proven minimum/);
+    await page.getByTestId("dark-budget").waitFor({ timeout: 90_000 });
+    await expect.poll(() => page.getByTestId("budget").locator(".chip.stale").count(), { timeout: 60_000 }).toBe(0);
+    const note = page.getByTestId("counter-lines-note");
+    await note.waitFor({ timeout: 30_000 });
+    const said = (await note.textContent()) ?? "";
+    expect(said).toBe(
+      "Counter lines: none sources current (every output is decoded dark: the diodes meet only the active-low lines nS<k>; what each sinks is in the ghost check)",
+    );
+    const warnings = await page.getByRole("list", { name: "Budget warnings" }).locator("li").allTextContents();
+    expect(warnings.some((w) => w.includes("sags"))).toBe(false);
+    await page.screenshot({ path: "/work/shots/budgetfix-all-dark-counter-lines.png", fullPage: true }).catch(() => undefined);
+
+    // The command line's budget of the same project prints the same sentence, once, and no line at 0 mA.
+    const saved = () => page.evaluate(() => localStorage.getItem("diodeloom.autosave.current") ?? "");
+    await expect.poll(saved, { timeout: 20_000 }).toMatch(/"decode": ?"dark"/);
+    const file = join(dir, "all-dark.json");
+    writeFileSync(file, JSON.stringify((JSON.parse(await saved()) as { project: unknown }).project));
+    const text = execFileSync(process.execPath, [BIN, "budget", file], { cwd: ROOT, encoding: "utf8" });
+    expect(text.split(said)).toHaveLength(2);
+    expect(text).not.toMatch(/^ {2}S\d+ +0\.000 +5\.00 +0\.00$/m);
   }, 240_000);
 });

@@ -8,6 +8,7 @@ import { warningText } from "../../render/budgetWarningText.ts";
 import { budgetDesignNote, shortFigures, shortOfText } from "../../render/targetShortText.ts";
 import { logicDrawClause } from "../../render/logicDrawText.ts";
 import { forcedBetaText } from "../../render/forcedBetaText.ts";
+import { noSourceLineText } from "../../render/counterLineText.ts";
 import { darkFigureLines, darkNetworkText } from "../../render/darkBudgetText.ts";
 import { currentText, formatOhms, microamps, milliamps, milliwatts, percent, volts } from "../../render/units.ts";
 import type { Command } from "../command.ts";
@@ -239,6 +240,7 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
     L.push("");
   }
   const coded = spec.counter.kind !== "one-hot";
+  const noSourceLine = noSourceLineText(b, project.counter.drive);
   if (highSide) {
     L.push(
       `Active-low lines (each low in its own state, sinking every lit segment's base current and line pull-up; each may sink ${milliamps(e.lowLine.maxCurrentA)} mA)`,
@@ -249,11 +251,8 @@ export function describeBudget(project: Project, spec: DecodeSpec, m: VerifiedMa
         Object.entries(b.counterLines).map(([l, c]) => [l, milliamps(c.sinkCurrentA, 3), c.sinkState ?? ""]),
       ),
     );
-  } else if (Object.keys(b.counterLines).length === 0) {
-    // A sink-drive ring counter: its lines are the active-low nS<k>, which only sink.
-    L.push(
-      "Counter lines: none sources current (a sink-drive counter has only its active-low lines nS<k>; what each sinks is in the ghost check)",
-    );
+  } else if (noSourceLine !== null) {
+    L.push(noSourceLine);
   } else {
     L.push(
       coded

@@ -10,7 +10,7 @@ import type { VerifiedMatrix } from "../matrix/matrix.ts";
 import type { Project } from "../project/project.ts";
 import type { DriverStage } from "../circuit/circuit.ts";
 import { isLit } from "../circuit/stateSweep.ts";
-import { allSourceLines, highDrivers, isCoded, orPlane, sourceLines } from "../circuit/counterLines.ts";
+import { allSourceLines, highDrivers, orPlane, sourceLines } from "../circuit/counterLines.ts";
 import type { SweepReading } from "./sweepReading.ts";
 import type {
   CornerBudget,
@@ -150,8 +150,10 @@ export function counterBudgets(project: Project, matrix: VerifiedMatrix, sweep: 
   if (project.electrical.driver.kind === "high-side-switch") return lowLineBudgets(project, matrix, sweep);
   const co = project.electrical.counterOutput;
   const out: Record<string, CounterLineBudget> = {};
-  // A sink-drive ring counter has no active-high line; a line no diode meets is not in the sweep and carries nothing.
-  const lines = project.counter.drive === "sink" && !isCoded(matrix) ? [] : allSourceLines(matrix);
+  // A line no diode meets is not in the sweep and carries nothing: the budget lists it at 0 mA beside the
+  // lines that carry current, but where no diode meets any of them (a sink-drive ring counter, which has none
+  // that sources; a complementary one with every output decoded dark) there is nothing to list.
+  const lines = sourceLines(matrix).length === 0 ? [] : allSourceLines(matrix);
   for (const l of lines) {
     const { source, sink } = sweep.counterLines.get(l) ?? { source: null, sink: null };
     out[l] = {

@@ -9,6 +9,7 @@ import { createMemo, For, Show } from "solid-js";
 import { TRIM_MODES, type TrimMode } from "../../core/budget/segmentDesign.ts";
 import { warningText } from "../../render/budgetWarningText.ts";
 import { budgetDesignNote } from "../../render/targetShortText.ts";
+import { noSourceLineText } from "../../render/counterLineText.ts";
 import { darkFigureLines, darkMarginsText, darkNetworkText } from "../../render/darkBudgetText.ts";
 import { formatOhms, microampsShort, milliamps, milliwatts, percent } from "../../render/units.ts";
 import { app } from "../state/appState.ts";
@@ -38,6 +39,11 @@ export function BudgetPanel() {
   const failure = () => {
     const v = view();
     return v && !v.result.ok ? v.result.error : null;
+  };
+  const noSourceLine = () => {
+    const v = view();
+    const b = budget();
+    return v && b ? noSourceLineText(b, v.forResult.project.counter.drive) : null;
   };
   const warnings = () => [...(budget()?.warnings ?? [])].filter((w) => w.code !== "hazardous-voltage" && w.code !== "mains-supply");
 
@@ -216,6 +222,13 @@ export function BudgetPanel() {
                     {darkMarginsText(d())}
                   </p>
                 </details>
+              )}
+            </Show>
+            <Show when={noSourceLine()}>
+              {(text) => (
+                <p class="muted small" data-testid="counter-lines-note">
+                  {text()}
+                </p>
               )}
             </Show>
             <ul class="warnings" aria-label="Budget warnings">

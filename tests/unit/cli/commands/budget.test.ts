@@ -216,6 +216,37 @@ describe("budget command", () => {
     expect((JSON.parse(json.stdout.join("")) as { counterLines: object }).counterLines).toEqual({});
   });
 
+  it("says once that no active-high line is wired on complementary lines with every output decoded dark, instead of a table of zeros", async () => {
+    const project = (decode: string) =>
+      JSON.stringify({
+        schema: "diodeloom/project@2",
+        title: "complementary",
+        counter: { states: 4, drive: "complementary" },
+        display: { positions: 1, cell: "seg7" },
+        show: ["0", "1", "2", "3"],
+        synthesis: { decode, timeLimitMs: 2000 },
+        electrical: { preset: "bench-5v-switch" },
+      });
+    const io = recordingIo({ "p.json": project("dark") });
+    expect(await main(["budget", "p.json", "--fast"], io)).toBe(0);
+    const out = io.stdout.join("");
+    const said =
+      "\nCounter lines: none sources current (every output is decoded dark: the diodes meet only the active-low lines nS<k>; what each sinks is in the ghost check)\n";
+    expect(out.split(said)).toHaveLength(2);
+    expect(out).not.toMatch(/^ {2}S\d+ +\d+\.\d+ +\d+\.\d+ +\d+\.\d+$/m);
+    expect(out).not.toContain("counter-sag");
+    const json = recordingIo({ "p.json": project("dark") });
+    expect(await main(["budget", "p.json", "--fast", "--json"], json)).toBe(0);
+    expect((JSON.parse(json.stdout.join("")) as { counterLines: object }).counterLines).toEqual({});
+    // Decoded lit, the same counter's S lines carry the segments' drive: each is listed, with the sag note.
+    const lit = recordingIo({ "p.json": project("lit") });
+    expect(await main(["budget", "p.json", "--fast"], lit)).toBe(0);
+    const litOut = lit.stdout.join("");
+    expect(litOut).not.toContain("none sources current");
+    expect(litOut.match(/^ {2}S\d+ +\d+\.\d+ +\d+\.\d+ +\d+\.\d+$/gm)).toHaveLength(4);
+    expect(litOut).toContain("counter-sag");
+  });
+
   it("says why a decoder on high-side switches draws nothing from the logic supply, and says nothing where a decoder draws from it", () => {
     const quiz = directDesign("quiz", example("quiz-scoreboard"));
     const b = solveBudget(quiz.project, quiz.spec, quiz.matrix);
