@@ -79,10 +79,11 @@ export interface LagrangeOptions {
   /** The step factor to start from (default 2; a warm start passes its parent's). */
   readonly theta?: number;
   /**
-   * Rounds in a row without a gain after which the step halves. By default
-   * it is scaled to the rounds the work budget pays for (`stallRounds`).
+   * Rounds in a row without a gain after which the step halves, or a rule
+   * giving them from the rounds the budget pays for (estimated from the
+   * first round's work). By default `stallRounds`.
    */
-  readonly stall?: number;
+  readonly stall?: number | ((affordable: number) => number);
 }
 
 /**
@@ -450,7 +451,7 @@ export function lagrangeBound(
   let rounds = 0;
   let theta = opts.theta ?? 2;
   let stall = 0;
-  let stallLimit = opts.stall ?? 8;
+  let stallLimit = typeof opts.stall === "number" ? opts.stall : 8;
   const maxRounds = opts.maxRounds ?? 2000;
   const workBefore = meter.work;
   const covers: RowCover[] = [];
@@ -473,9 +474,9 @@ export function lagrangeBound(
       }
     }
     if (!complete) break;
-    if (rounds === 0 && opts.stall === undefined) {
+    if (rounds === 0 && typeof opts.stall !== "number") {
       const perRound = Math.max(1, meter.work - workBefore);
-      stallLimit = stallRounds(Math.min(maxRounds, (opts.maxWork - workBefore) / perRound));
+      stallLimit = (opts.stall ?? stallRounds)(Math.min(maxRounds, (opts.maxWork - workBefore) / perRound));
     }
     if (sum > bestBound + 1e-9) {
       bestBound = sum;

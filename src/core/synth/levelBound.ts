@@ -28,10 +28,11 @@
  * (it would gain more from its own rounds; measured on 00-99, where a root
  * at half its budget and the branching gave 270 against its 272). Measured
  * (boundBench.ts, per-segment, bench limits): 00-23 82 -> 84; 00-59 and
- * 00-99 unchanged (their roots use their whole budgets).
+ * 00-99 not branched (their roots use their whole budgets), 186 and 273
+ * with the budget-scaled halving (`rootStall`).
  */
 import type { SharingProblem, SharingRules } from "./plan.ts";
-import { lagrangeBound, type LagrangeBound, type LagrangeOptions } from "./lagrangeBound.ts";
+import { lagrangeBound, stallRounds, type LagrangeBound, type LagrangeOptions } from "./lagrangeBound.ts";
 
 /**
  * A node's rounds come in stages of this many, at most `STAGES` of them; it
@@ -46,13 +47,18 @@ const NEAR = 3;
 const LEAF_STALE = 3;
 const THETA_FLOOR = 0.5;
 /**
- * Rounds without a gain before the step halves, at the root and in every
- * node: the fixed rule the branching was tuned with. The root has to level
- * off inside its budget for the branching to start, and the budget-scaled
- * default of lagrangeBound.ts (22 on 00-23) keeps it rising to the end:
- * 83 with the branching against 84 with this.
+ * Rounds without a gain before the step halves in every node: the fixed
+ * rule the branching was tuned with. The root takes it too where its budget
+ * pays for `LEVEL_OFF_ROUNDS` rounds or more, so that it levels off with
+ * work left for the branching (on 00-23 after 785 of 1424 rounds; with the
+ * budget-scaled halving of lagrangeBound.ts it rises to the end, 83 with
+ * the branching against 84). A root that cannot afford them takes the
+ * budget-scaled halving (00-59 and 00-99 at 760 and 768 rounds: 185 -> 186
+ * and 272 -> 273) and is not branched.
  */
 const STALL = 8;
+const LEVEL_OFF_ROUNDS = 1000;
+const rootStall = (affordable: number): number => (affordable >= LEVEL_OFF_ROUNDS ? STALL : stallRounds(affordable));
 
 /**
  * The Lagrangian bound (`opts.maxWork` for its root); under per-segment,
@@ -70,7 +76,7 @@ export function levelBound(
   branchWork: number,
 ): LagrangeBound {
   // The root is the plain bound with its whole budget, so branching only ever adds to it.
-  const root = lagrangeBound(p, rules, rules.policy === "per-segment" ? { ...opts, stall: STALL } : opts);
+  const root = lagrangeBound(p, rules, rules.policy === "per-segment" ? { ...opts, stall: rootStall } : opts);
   if (rules.policy !== "per-segment") return root;
   let work = root.work;
   let deadlineHit = root.deadlineHit;

@@ -111,4 +111,25 @@ describe("levelBound (per-segment: the Lagrangian bound branched on the outputs'
     expect(level.bound).toBe(84);
     expect(level.deadlineHit).toBe(false);
   });
+
+  it("gives 00-59 per-segment 186 at the 30 s budgets: its root cannot level off, so it halves its step as the budget allows (185 after 8 rounds)", () => {
+    const p = reduceRows(
+      sharingProblem(
+        compileSpec(
+          showing(
+            Array.from({ length: 60 }, (_, k) => String(k).padStart(2, "0")),
+            2,
+          ),
+        ),
+      ),
+    ).problem;
+    const budget = workBudget(30_000);
+    // 195: the best count known (issue 16; the heuristic's, bench/synthBench.ts). Budgets only, no clock.
+    const level = levelBound(p, rulesOf("per-segment"), { maxWork: budget.lagrangeWork, upper: 195 }, budget.levelWork);
+    expect(level.bound).toBe(186);
+    // Not branched: the root spent its own budget (the meter stops after the step that crosses it) and
+    // nothing of the branching's.
+    expect(level.work).toBeGreaterThanOrEqual(budget.lagrangeWork);
+    expect(level.work).toBeLessThan(budget.lagrangeWork + 0.01 * budget.levelWork);
+  });
 });
