@@ -13,7 +13,7 @@
 import type { Circuit } from "./circuit.ts";
 import { GROUND } from "./circuitNodes.ts";
 import { criticalVoltage, diodeConductance, diodeCurrent, diodeJunction, limitJunction, npnTransport } from "./deviceModels.ts";
-import { minimumDegreeOrder, SparsePattern, SparseSolver } from "./linearSolve.ts";
+import { minimumDegree, SparsePattern, SparseSolver } from "./linearSolve.ts";
 import { thermalVoltage } from "./physics.ts";
 import { fail, ok, type Result } from "../result/result.ts";
 
@@ -40,6 +40,16 @@ export interface DcSettings {
    * deadline checks it inside the solve, not only between states.
    */
   readonly deadlineMs?: number;
+  /**
+   * How each Newton step's linear system is solved: `direct`, the sparse
+   * elimination of the whole nodal matrix; `split`, the elimination of the
+   * matrix without the couplings of the diodes the state leaves idle, then
+   * refinement against the whole matrix until the update is down to rounding
+   * (the direct solve wherever that does not converge); `auto` (the
+   * default), split where the whole matrix's elimination would cost more
+   * than `SPLIT_WORK`. See `splitSolve`.
+   */
+  readonly linear?: "auto" | "direct" | "split";
 }
 
 export type DcMethod = "newton" | "gmin-stepping" | "source-stepping";
@@ -94,6 +104,43 @@ export interface DcFailure {
   readonly timeLimit?: true;
 }
 
+/**
+ * Elimination work (`minimumDegree`) above which `auto` splits the solve:
+ * about a dense block of 150 nodes, which only matrices of hundreds of
+ * lines and outputs reach (the 256-state, 8-position projects: 12 million).
+ * Below it every circuit is solved directly, as it always was.
+ */
+export const SPLIT_WORK = 4e6;
+
+/**
+ * A diode whose conductance in a Newton step is at most this fraction of
+ * the geometric mean of its two nodes' diagonal entries is left out of the
+ * split solve's matrix: an idle diode on a low line, reverse-biased or near
+ * 0 V, carries GMIN to tens of nanosiemens against the millisiemens of the
+ * lines and pull-downs around it. (A refinement shrinks the error by about
+ * the square of this ratio, summed over a node's idle diodes.)
+ */
+const IDLE_FRACTION = 0.01;
+
+/** Refinement steps the split solve takes at most before it solves the step directly. */
+const MAX_REFINEMENTS = 60;
+
+/**
+ * The backward error at which the split solve stops refining: the largest
+ * residual of a row against the sum of the magnitudes of its terms, 64
+ * units in the last place (a direct elimination leaves a few units per
+ * term of a row; rows here have up to tens of terms).
+ */
+const BACKWARD_ERROR = 64 * Number.EPSILON;
+
+/**
+ * The backward error the split solve settles for where two rounds no longer
+ * halve it (rounding in the residual of a row whose terms cancel): 1e-12.
+ * Above it, a stall means the split matrix is too far from the whole one,
+ * and the step is solved directly.
+ */
+const STALL_ERROR = 1e-12;
+
 // ------------------------------------------------------------ compiled form
 
 /** Node reference: >= 0 an unknown, < 0 a fixed node `-(k + 1)`. */
@@ -144,8 +191,10 @@ interface Compiled {
   readonly vtV: number;
   /** Where the nodal matrix can be non-zero. */
   readonly pattern: SparsePattern;
-  /** Its elimination, kept for every Newton iteration of this circuit. */
-  readonly solver: SparseSolver;
+  /** Its elimination, kept for every Newton iteration of this circuit (built when first needed). */
+  readonly solver: () => SparseSolver;
+  /** The diode junctions the split solve may leave out of its matrix, or null where every step is solved directly. */
+  readonly split: Int32Array | null;
 }
 
 /** Every (row, column) of the nodal matrix that the stamps of `Stamper` write. */
@@ -177,7 +226,12 @@ function* stampPositions(
  * stale order would still be a valid one: any order gives the same
  * solution, to rounding).
  */
-function eliminationOrder(names: readonly string[], circuit: Circuit, fixed: ReadonlySet<string>, ws: DcWorkspace): string[] {
+function eliminationOrder(
+  names: readonly string[],
+  circuit: Circuit,
+  fixed: ReadonlySet<string>,
+  ws: DcWorkspace,
+): { readonly names: string[]; readonly work: number } {
   const at = new Map<string, number>();
   names.forEach((nd, i) => at.set(nd, i));
   const pairs: number[] = [];
@@ -211,15 +265,16 @@ function eliminationOrder(names: readonly string[], circuit: Circuit, fixed: Rea
   let h = 0x811c9dc5;
   for (const v of pairs) h = Math.imul(h ^ v, 0x01000193);
   const key = `${names.length}:${pairs.length}:${h >>> 0}`;
-  const order = ws.order(key, () => {
+  const { order, work } = ws.order(key, () => {
     const entries: (readonly [number, number])[] = [];
     for (let k = 0; k < pairs.length; k += 2) entries.push([pairs[k] as number, pairs[k + 1] as number]);
-    return minimumDegreeOrder(names.length, entries);
+    return minimumDegree(names.length, entries);
   });
-  return Array.from(order, (i) => names[i] as string);
+  return { names: Array.from(order, (i) => names[i] as string), work };
 }
 
-function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
+function compile(circuit: Circuit, settings: DcSettings, ws: DcWorkspace): Compiled {
+  const gminS = settings.gminS;
   const vt = thermalVoltage(circuit.temperatureC);
   const fixedNames: string[] = [GROUND];
   const fixedVolts: number[] = [0];
@@ -234,7 +289,8 @@ function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
   const fixed = new Set(fixedNames);
   // Diode and segment series resistances get an internal node, eliminated first.
   const internal = circuit.elements.filter((e) => (e.kind === "diode" || e.kind === "segment") && e.rsOhms > 0).map((e) => `${e.name}#j`);
-  const unknownNames = eliminationOrder([...internal, ...circuit.nodes.filter((nd) => !fixed.has(nd))], circuit, fixed, ws);
+  const ordered = eliminationOrder([...internal, ...circuit.nodes.filter((nd) => !fixed.has(nd))], circuit, fixed, ws);
+  const unknownNames = ordered.names;
   const index = new Map<string, NodeRef>();
   unknownNames.forEach((nd, i) => index.set(nd, i));
   fixedNames.forEach((nd, k) => index.set(nd, -(k + 1)));
@@ -247,6 +303,8 @@ function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
   const conductances: Conductance[] = [];
   const junctions: Junction[] = [];
   const transistors: Transistor[] = [];
+  // The junctions of diodes (not segments): the ones the split solve may leave out of its matrix.
+  const diodeJunctions: number[] = [];
   for (const el of circuit.elements) {
     switch (el.kind) {
       case "vsource":
@@ -271,6 +329,7 @@ function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
           vcritV: criticalVoltage(el.isA, nVt),
           name: el.name,
         });
+        diodeJunctions.push(junctions.length - 1);
         break;
       }
       case "segment": {
@@ -315,6 +374,10 @@ function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
     }
   }
   const pattern = new SparsePattern(unknownNames.length, stampPositions(conductances, junctions, transistors));
+  const n = unknownNames.length;
+  let solver: SparseSolver | null = null;
+  const mode = settings.linear ?? "auto";
+  const split = mode === "split" || (mode === "auto" && ordered.work > SPLIT_WORK) ? Int32Array.from(diodeJunctions) : null;
   return {
     n: unknownNames.length,
     gminS,
@@ -327,7 +390,8 @@ function compile(circuit: Circuit, gminS: number, ws: DcWorkspace): Compiled {
     transistors,
     vtV: vt,
     pattern,
-    solver: new SparseSolver(pattern, ws.listed(unknownNames.length * unknownNames.length)),
+    solver: () => (solver ??= new SparseSolver(pattern, ws.listed(n * n))),
+    split,
   };
 }
 
@@ -421,7 +485,7 @@ function newton(
   const rhs = ws.buffer("rhs", n);
   const scale = ws.buffer("scale", n);
   const b = ws.buffer("b", n);
-  const solver = cp.solver;
+  const jg = ws.buffer("jg", cp.junctions.length);
   const sp = new Stamper(G, rhs, scale, n, fixedV);
   const volt = (r: NodeRef): number => (r >= 0 ? (x[r] as number) : (fixedV[-r - 1] as number));
   let stepSmall = false;
@@ -453,6 +517,7 @@ function newton(
       jv[j] = v;
       const iA = diodeCurrent(v, d.isA, d.nVtV, d.gminS);
       const gS = diodeConductance(v, d.isA, d.nVtV, d.gminS);
+      jg[j] = gS;
       sp.conductance(d.a, d.k, gS);
       // Companion source: the part of the current the conductance does not carry.
       const ieq = iA - gS * v;
@@ -493,8 +558,7 @@ function newton(
       return { converged: true, iterations: it };
     }
     useStored = false;
-    b.set(rhs);
-    if (!solver.solve(G, b)) return { converged: false, iterations: it };
+    if (!linearStep(cp, G, rhs, x, b, jg, ws)) return { converged: false, iterations: it };
     stepSmall = true;
     stepWithinReltol = true;
     for (let i = 0; i < n; i++) {
@@ -508,6 +572,117 @@ function newton(
     }
   }
   return { converged: false, iterations: maxIterations };
+}
+
+/**
+ * Solves one Newton step's system `G x = rhs` into `out`; false when it is
+ * singular. `G` (zero outside the circuit's pattern) is overwritten inside
+ * the pattern.
+ *
+ * The split solve, where the circuit has one, eliminates the matrix without
+ * the couplings of the idle diodes (`IDLE_FRACTION`; their conductance stays
+ * on the diagonal), whose elimination fills in little (the whole matrix's
+ * fills a dense block of every line and output of a big matrix), and refines from
+ * `start` (the Newton iterate, near the answer) with the residual of the
+ * whole matrix, y += M^-1 (rhs - G y), until every row's residual is down
+ * to the rounding of its terms (`BACKWARD_ERROR`): what a direct solve
+ * leaves. An idle diode couples its
+ * nodes by nanosiemens against the millisiemens that hold them, so every
+ * refinement gains digits. Where it does not converge the step is solved
+ * directly.
+ *
+ * @param jg each junction's conductance as stamped in `G`, siemens
+ */
+function linearStep(
+  cp: Compiled,
+  G: Float64Array,
+  rhs: Float64Array,
+  start: Float64Array,
+  out: Float64Array,
+  jg: Float64Array,
+  ws: DcWorkspace,
+): boolean {
+  if (cp.split !== null && splitSolve(cp, cp.split, G, rhs, start, out, jg, ws)) return true;
+  out.set(rhs);
+  return cp.solver().solve(G, out);
+}
+
+/** The split solve of `linearStep`; false when it does not converge (`out` then holds nothing of use, `G` is as it was). */
+function splitSolve(
+  cp: Compiled,
+  diodes: Int32Array,
+  G: Float64Array,
+  rhs: Float64Array,
+  start: Float64Array,
+  out: Float64Array,
+  jg: Float64Array,
+  ws: DcWorkspace,
+): boolean {
+  const n = cp.n;
+  const y = ws.buffer("refined", n);
+  const { rowStart, cols } = cp.pattern;
+  // G's entries in the pattern's order: the residuals take them from here, and G is put back from them.
+  const values = ws.buffer("values", cols.length);
+  for (let i = 0; i < n; i++) {
+    const row = i * n;
+    const end = rowStart[i + 1] as number;
+    for (let c = rowStart[i] as number; c < end; c++) values[c] = G[row + (cols[c] as number)] as number;
+  }
+  // The split matrix, in G's place: the idle diodes' couplings taken out.
+  for (let q = 0; q < diodes.length; q++) {
+    const d = cp.junctions[diodes[q] as number] as Junction;
+    if (d.a < 0 || d.k < 0) continue;
+    const g = jg[diodes[q] as number] as number;
+    if (g * g > IDLE_FRACTION * IDLE_FRACTION * (G[d.a * n + d.a] as number) * (G[d.k * n + d.k] as number)) continue;
+    G[d.a * n + d.k] = 0;
+    G[d.k * n + d.a] = 0;
+  }
+  const solver = cp.solver();
+  const factored = solver.factor(G);
+  let done = false;
+  if (factored) {
+    y.set(start);
+    // The backward errors of the last two rounds: an idle diode's node follows its neighbours a round late, so progress shows over two.
+    let last = Infinity;
+    let before = Infinity;
+    for (let round = 0; round < MAX_REFINEMENTS; round++) {
+      // The residual of the whole matrix, and the largest of it against the terms it sums (the backward error).
+      let backward = 0;
+      for (let i = 0; i < n; i++) {
+        let r = rhs[i] as number;
+        let size = Math.abs(r);
+        const end = rowStart[i + 1] as number;
+        for (let c = rowStart[i] as number; c < end; c++) {
+          const t = (values[c] as number) * (y[cols[c] as number] as number);
+          r -= t;
+          size += Math.abs(t);
+        }
+        out[i] = r;
+        if (size > 0) backward = Math.max(backward, Math.abs(r) / size);
+      }
+      // Solved to rounding (y solves a system within a few units in the last place of this one), or stalled a little short of it.
+      const stalled = backward > before / 2;
+      if (backward <= BACKWARD_ERROR || (stalled && backward <= STALL_ERROR)) {
+        done = true;
+        break;
+      }
+      // No progress over two rounds: the split matrix is too far from the whole one here.
+      if (stalled) break;
+      before = last;
+      last = backward;
+      // substitute checks the update is finite.
+      if (!solver.substitute(out)) break;
+      for (let i = 0; i < n; i++) y[i] = (y[i] as number) + (out[i] as number);
+    }
+  }
+  solver.release();
+  for (let i = 0; i < n; i++) {
+    const row = i * n;
+    const end = rowStart[i + 1] as number;
+    for (let c = rowStart[i] as number; c < end; c++) G[row + (cols[c] as number)] = values[c] as number;
+  }
+  if (done) out.set(y);
+  return done;
 }
 
 /**
@@ -557,11 +732,14 @@ export class DcWorkspace {
 
   #listed: Uint8Array | undefined;
 
-  /** Elimination orders by digest of a circuit's connections (see `eliminationOrder`); the last few only. */
-  readonly #orders = new Map<string, Int32Array>();
+  /** Elimination orders and their work by digest of a circuit's connections (see `eliminationOrder`); the last few only. */
+  readonly #orders = new Map<string, { readonly order: Int32Array; readonly work: number }>();
 
   /** The elimination order kept under `key`, worked out by `make` the first time. */
-  order(key: string, make: () => Int32Array): Int32Array {
+  order(
+    key: string,
+    make: () => { readonly order: Int32Array; readonly work: number },
+  ): { readonly order: Int32Array; readonly work: number } {
     const have = this.#orders.get(key);
     if (have) return have;
     const fresh = make();
@@ -603,7 +781,7 @@ export function solveDc(
   settings: DcSettings = DEFAULT_DC_SETTINGS,
   workspace: DcWorkspace = new DcWorkspace(),
 ): Result<OperatingPoint, DcFailure> {
-  const cp = compile(circuit, settings.gminS, workspace);
+  const cp = compile(circuit, settings, workspace);
   const jCount = cp.junctions.length + 2 * cp.transistors.length;
   const fresh = (): NewtonState => {
     const x = new Float64Array(cp.n);

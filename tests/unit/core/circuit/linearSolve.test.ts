@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { minimumDegreeOrder, SparsePattern, SparseSolver } from "../../../../src/core/circuit/linearSolve.ts";
+import { minimumDegree, minimumDegreeOrder, SparsePattern, SparseSolver } from "../../../../src/core/circuit/linearSolve.ts";
 import { solveInPlace } from "../../../support/denseSolve.ts";
 
 /** A small deterministic generator, so the matrices are the same every run. */
@@ -125,6 +125,58 @@ describe("SparseSolver", () => {
     expect(solver.solve(Float64Array.from([1, 2, 2, 4]), Float64Array.from([1, 1]))).toBe(false);
   });
 
+  it("factors once and substitutes for many right-hand sides: the same numbers as a solve each, bit for bit; release leaves nothing outside the pattern", () => {
+    for (const [n, density, seed] of [
+      [1, 1, 3],
+      [8, 0.3, 4],
+      [40, 0.05, 5],
+      [90, 0.02, 6],
+    ] as const) {
+      const { a, entries } = system(n, density, seed);
+      const pattern = new SparsePattern(n, entries);
+      const solver = new SparseSolver(pattern);
+      const rnd = lcg(seed + 300);
+      const work = new Float64Array(n * n);
+      for (let round = 0; round < 2; round++) {
+        pattern.clear(work);
+        for (const [i, j] of entries) work[i * n + j] = a[i * n + j] as number;
+        expect(solver.factor(work)).toBe(true);
+        // Neither solve nor a second factor while the elimination is held.
+        expect(() => solver.solve(work, new Float64Array(n))).toThrow(/release it first/);
+        expect(() => solver.factor(work)).toThrow(/release it first/);
+        for (let rhs = 0; rhs < 3; rhs++) {
+          const b = Float64Array.from({ length: n }, () => rnd());
+          const once = b.slice();
+          expect(solver.substitute(b)).toBe(true);
+          const dense = once.slice();
+          expect(solveInPlace(a.slice(), dense, n)).toBe(true);
+          for (let i = 0; i < n; i++) expect(b[i]).toBeCloseTo(dense[i] as number, 9);
+          // The forward pass takes the multipliers in the order the elimination made them, so it is the solve's own arithmetic.
+          const fresh = new SparseSolver(pattern);
+          expect(fresh.solve(a.slice(), once)).toBe(true);
+          expect([...b]).toEqual([...once]);
+        }
+        solver.release();
+        pattern.clear(work);
+        expect(work.every((v) => v === 0)).toBe(true);
+      }
+      expect(() => solver.substitute(new Float64Array(n))).toThrow(/without a factorization/);
+    }
+  });
+
+  it("reports a singular matrix to factor, and takes a release after it", () => {
+    const pattern = new SparsePattern(2, [
+      [0, 1],
+      [1, 0],
+    ]);
+    const solver = new SparseSolver(pattern);
+    expect(solver.factor(Float64Array.from([1, 2, 2, 4]))).toBe(false);
+    solver.release();
+    const b = Float64Array.from([2, 3]);
+    expect(solver.solve(Float64Array.from([0, 1, 1, 0]), b)).toBe(true);
+    expect([...b]).toEqual([3, 2]);
+  });
+
   it("refuses a pattern entry outside the matrix", () => {
     expect(() => new SparsePattern(2, [[0, 2]])).toThrow(RangeError);
   });
@@ -167,6 +219,17 @@ describe("minimumDegreeOrder", () => {
       expect([...order].sort((a, b) => a - b)).toEqual(Array.from({ length: n }, (_, i) => i));
       expect([...minimumDegreeOrder(n, edges)]).toEqual([...order]);
     }
+  });
+
+  it("counts the work of its elimination: the squared degree of every node it eliminates", () => {
+    // A star of 9 leaves: each leaf has degree 1 when taken; the last leaf and the hub 1 and 0.
+    const star = Array.from({ length: 9 }, (_, i) => [0, i + 1] as const);
+    expect(minimumDegree(10, star).work).toBe(9);
+    expect([...minimumDegree(10, star).order]).toEqual([...minimumDegreeOrder(10, star)]);
+    // A clique of 5 (every pair joined): degrees 4, 3, 2, 1, 0 in turn.
+    const clique: [number, number][] = [];
+    for (let i = 0; i < 5; i++) for (let j = 0; j < i; j++) clique.push([i, j]);
+    expect(minimumDegree(5, clique).work).toBe(16 + 9 + 4 + 1);
   });
 
   it("eliminates a hub last: a star and a path fill nothing in, where hub-first fills every pair", () => {
