@@ -1,8 +1,11 @@
 /**
  * Budget benchmark: how long the DC solver takes for every state of the
  * 00-59 two-position project (target: under 200 ms in Node), and the whole
- * budget (nominal, lowest supply, trim and two corners) beside it.
- * Speed targets live here, not in the tests.
+ * budget (nominal, lowest supply, trim and two corners) beside it; then the
+ * largest project the format allows (256 states on 8 positions of a
+ * 32-segment cell): one state's solve, split and direct, and its budget at
+ * the default 20 s limit (the states that limit's work covers) against the
+ * same limit. Speed targets live here, not in the tests.
  *
  * Run alone: npx tsx -e 'import("./bench/budgetBench.ts").then(m=>m.runBudgetBench(console.log))'
  */
@@ -12,6 +15,17 @@ import type { Project } from "../src/core/project/project.ts";
 import { parseProject } from "../src/core/project/projectSchema.ts";
 import { solveAllStates } from "../src/core/circuit/stateSweep.ts";
 import { synthesize, synthSettings, type SynthMode } from "../src/core/synth/synthesize.ts";
+import { circuitFrame, stateCircuit } from "../src/core/circuit/circuit.ts";
+import { DcWorkspace, DEFAULT_DC_SETTINGS, solveDc } from "../src/core/circuit/dcSolver.ts";
+import { largestCustomProject } from "../tests/support/largestProject.ts";
+
+/** CPU milliseconds of `f` (user and system, this process). */
+function cpuMs(f: () => void): number {
+  const c0 = process.cpuUsage();
+  f();
+  const c = process.cpuUsage(c0);
+  return (c.user + c.system) / 1000;
+}
 
 /** Target for solving every state of the 00-59 project, milliseconds. */
 export const ALL_STATES_TARGET_MS = 200;
@@ -92,4 +106,51 @@ export async function runBudgetBench(log: (line: string) => void): Promise<void>
       ),
     );
   }
+}
+
+/** The largest project: one state's solve both ways, and the budget at its 20 s limit. */
+export async function runLargestBudgetBench(log: (line: string) => void): Promise<void> {
+  const project = largestCustomProject();
+  const spec = compileSpec(project);
+  const m = await synthesize(spec, synthSettings(project));
+  if (!m.ok) {
+    log(`largest: ${m.error.message}`);
+    return;
+  }
+  log(`Budget of the largest project (256 x 8 of a 32-segment cell, ${m.value.count} diodes), CPU ms`);
+  const frame = circuitFrame(spec, m.value, project.electrical);
+  const widths = [8, 9, 10, 11, 11];
+  log(row(["state", "Newton it", "split ms", "direct ms", "max dI A"], widths));
+  const ws = new DcWorkspace();
+  for (let k = 0; k < 3; k++) {
+    const c = stateCircuit(frame, k);
+    let split: ReturnType<typeof solveDc> | null = null;
+    let direct: ReturnType<typeof solveDc> | null = null;
+    const splitMs = cpuMs(() => (split = solveDc(c, c.guess, { ...DEFAULT_DC_SETTINGS, linear: "split" }, ws)));
+    const directMs = cpuMs(() => (direct = solveDc(c, c.guess, { ...DEFAULT_DC_SETTINGS, linear: "direct" }, ws)));
+    const a = split as ReturnType<typeof solveDc> | null;
+    const b = direct as ReturnType<typeof solveDc> | null;
+    if (!a?.ok || !b?.ok) {
+      log(`S${k}: did not converge`);
+      continue;
+    }
+    let worst = 0;
+    for (const [el, i] of Object.entries(b.value.currents)) worst = Math.max(worst, Math.abs((a.value.currents[el] as number) - i));
+    log(row([`S${k}`, a.value.iterations, splitMs.toFixed(0), directMs.toFixed(0), worst.toExponential(1)], widths));
+  }
+  const limitMs = project.synthesis.timeLimitMs;
+  const t0 = performance.now();
+  let checked = "";
+  const ms = cpuMs(() => {
+    const b = solveBudget(project, spec, m.value, { timeLimitMs: limitMs });
+    checked = !b.ok
+      ? b.error.message
+      : b.value.coverage
+        ? `${b.value.coverage.checked} of ${b.value.coverage.states} states`
+        : "every state";
+  });
+  const wallMs = performance.now() - t0;
+  log(
+    `  budget at its ${limitMs / 1000} s limit: ${checked} checked, ${ms.toFixed(0)} CPU ms, ${wallMs.toFixed(0)} ms on the clock (${wallMs < limitMs ? "within" : "OVER"} the limit)`,
+  );
 }

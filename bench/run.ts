@@ -4,7 +4,7 @@
  * figures so a reader can compare.
  */
 import { availableParallelism, cpus, totalmem } from "node:os";
-import { runBudgetBench } from "./budgetBench.ts";
+import { runBudgetBench, runLargestBudgetBench } from "./budgetBench.ts";
 import { runStartupBench } from "./startupBench.ts";
 import { runSynthBench } from "./synthBench.ts";
 import { runCodedBench } from "./codedBench.ts";
@@ -26,5 +26,7 @@ log("");
 await runCodedBench(log);
 log("");
 await runBudgetBench(log);
+log("");
+await runLargestBudgetBench(log);
 log("");
 await runMemoryBench(log);

@@ -6,6 +6,7 @@
  * four settle the design the same way, so they print the same value for
  * each resistor.
  */
+import { budgetCoverage } from "../core/budget/budget.ts";
 import { settleDesign, projectDesign, TRIM_MODES, type SegmentDesign, type TrimMode } from "../core/budget/segmentDesign.ts";
 import type { ESeriesName } from "../core/budget/eSeries.ts";
 import type { DecodeSpec } from "../core/spec/decodeSpec.ts";
@@ -68,7 +69,9 @@ export function designAndSizing(
   timeLimitMs: number,
 ): { readonly design: SegmentDesign; readonly sizing: string | null } {
   if (given.mode === "off") return { design: projectDesign(project.electrical, matrix, given), sizing: null };
-  const settled = settleDesign(project, spec, matrix, { ...given, deadlineMs: budgetDeadline(timeLimitMs) });
+  // The states the budget checks at this limit, so that every command settles the design the budget prints.
+  const states = budgetCoverage(project, spec, matrix, timeLimitMs)?.checked;
+  const settled = settleDesign(project, spec, matrix, { ...given, deadlineMs: budgetDeadline(timeLimitMs), states });
   return settled.ok
     ? { design: settled.value.design, sizing: settled.value.darkSizing?.binding ?? null }
     : { design: projectDesign(project.electrical, matrix, given), sizing: null };

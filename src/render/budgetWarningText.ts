@@ -94,9 +94,28 @@ export function warningText(w: BudgetWarning): string {
       );
     case "brightness-spread":
       return spreadText(w);
+    case "states-unchecked":
+      return statesUncheckedText(w);
     case "counter-sag":
       return `the counter sags most in ${w.line}: ${voltsText(w.sagV)} below its high level while sourcing ${currentText(w.sourceCurrentA)}`;
   }
+}
+
+/**
+ * Which states a budget left unchecked, and what checks them.
+ *
+ * @example
+ * statesUncheckedText({ level: "warn", code: "states-unchecked", checked: 10, states: 256, timeLimitMs: 20_000 });
+ * // "only S0-S9 of the 256 states are checked, as many as the 20 s time limit's work covers; S10-S255 are not, and ..."
+ */
+function statesUncheckedText(w: Extract<BudgetWarning, { code: "states-unchecked" }>): string {
+  const range = (a: number, b: number): string => (a === b ? `S${a}` : `S${a}-S${b}`);
+  const seconds = Number((w.timeLimitMs / 1000).toPrecision(3));
+  return (
+    `only ${range(0, w.checked - 1)} of the ${w.states} states ${w.checked === 1 ? "is" : "are"} checked, as many as the ${seconds} s time limit's work covers; ` +
+    `${range(w.checked, w.states - 1)} ${w.states - w.checked === 1 ? "is" : "are"} not, and every figure here is of the checked states alone: ` +
+    `a longer time limit checks more of them`
+  );
 }
 
 /** A current as a person reads it: µA below 1 mA, mA above. */

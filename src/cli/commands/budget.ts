@@ -52,6 +52,7 @@ export const budgetCommand: Command = {
         series: design.series,
         trim: design.mode,
         deadlineMs: budgetDeadline(done.timeLimitMs),
+        timeLimitMs: done.timeLimitMs,
       });
       if (!budget.ok) {
         dio.err(`${budget.error.message}\n`);

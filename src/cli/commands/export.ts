@@ -116,6 +116,7 @@ async function exportSingle(
     series: design.series,
     trim: design.mode,
     deadlineMs: budgetDeadline(done.timeLimitMs),
+    timeLimitMs: done.timeLimitMs,
   });
   const drawing = layoutMatrix(project, spec, matrix, options, paperDarkValues({ project, spec, budget }));
   if (!budget.ok) io.err(`budget: ${budget.error.message}; budget.json left out, the BOM and decks keep the project's emitter resistors\n`);
@@ -158,6 +159,7 @@ async function exportInstrument(
       series: design.series,
       trim: design.mode,
       deadlineMs: budgetDeadline(done.timeLimitMs),
+      timeLimitMs: done.timeLimitMs,
     });
     const drawing = layoutMatrix(project, spec, matrix, options, paperDarkValues({ project, spec, budget }));
     if (!budget.ok)

@@ -36,7 +36,9 @@ import {
 } from "./budgetFigures.ts";
 import { budgetWarnings } from "./budgetWarnings.ts";
 import { stateSpreads } from "./stateSpread.ts";
-import { BUDGET_SCHEMA, type Budget, type BudgetOptions, type DarkBudget, type TargetLimit } from "./budgetTypes.ts";
+import { BUDGET_SCHEMA, type Budget, type BudgetCoverage, type BudgetOptions, type DarkBudget, type TargetLimit } from "./budgetTypes.ts";
+import { buildCircuit } from "../circuit/circuit.ts";
+import { checkedStates } from "./budgetWork.ts";
 
 export type { BudgetFailure } from "../circuit/stateSweep.ts";
 
@@ -60,7 +62,9 @@ export function solveBudget(
 
   // One scratch space for every sweep: the nodal matrix of a big matrix is allocated once.
   const workspace = new DcWorkspace();
-  const settled = settleDesign(project, spec, matrix, { series, mode, windowPct, deadlineMs: options.deadlineMs, workspace });
+  const coverage = budgetCoverage(project, spec, matrix, options.timeLimitMs);
+  const states = coverage?.checked;
+  const settled = settleDesign(project, spec, matrix, { series, mode, windowPct, deadlineMs: options.deadlineMs, workspace, states });
   if (!settled.ok) return settled;
   const { design, solutions, trim } = settled.value;
   // Every solve below is of the design: its input network too, where outputs are decoded dark.
@@ -70,13 +74,14 @@ export function solveBudget(
     design: chosen,
     deadlineMs: options.deadlineMs,
     workspace,
+    states,
   });
   if (!lowSupply.ok) return lowSupply;
 
   const driven = solutions.drivers.map((d) => d.output);
   const [lowConditions, highConditions] = cornerConditions(e);
   const corner = (c: CornerConditions) =>
-    readSweep(spec, matrix, cornerModel(e, c, driven, chosen), `${c.name} corner`, { deadlineMs: options.deadlineMs, workspace });
+    readSweep(spec, matrix, cornerModel(e, c, driven, chosen), `${c.name} corner`, { deadlineMs: options.deadlineMs, workspace, states });
   const lowSweep = corner(lowConditions);
   if (!lowSweep.ok) return lowSweep;
   const low = cornerBudget(project, spec, lowConditions, lowSweep.value);
@@ -160,9 +165,27 @@ export function solveBudget(
             ),
             settled.value.darkSizing?.binding ?? "",
           ),
+    ...(coverage === null ? {} : { coverage }),
   };
   const spreads = stateSpreads({ spec, matrix, kind: e.driver.kind, solutions, outputs });
   return ok({ ...budget, warnings: budgetWarnings(project, budget, spreads) });
+}
+
+/**
+ * The states the budget checks where its time limit's work does not cover
+ * every one (budgetWork.ts), or null where it checks them all.
+ */
+export function budgetCoverage(
+  project: Project,
+  spec: DecodeSpec,
+  matrix: VerifiedMatrix,
+  timeLimitMs: number | undefined,
+): BudgetCoverage | null {
+  if (timeLimitMs === undefined) return null;
+  const total = matrix.states.length;
+  const elements = buildCircuit(spec, matrix, project.electrical, 0).elements.length;
+  const checked = checkedStates(elements, total, timeLimitMs);
+  return checked < total ? { checked, states: total, timeLimitMs } : null;
 }
 
 /** The dark-decoded outputs' part of the budget: the network's parts and values, and the check of the design. */

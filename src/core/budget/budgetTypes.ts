@@ -41,6 +41,26 @@ export interface BudgetOptions {
    * gives the budget the project's time limit again, counted from its start.
    */
   readonly deadlineMs?: number;
+  /**
+   * The configured time limit, milliseconds: where its work cannot check
+   * every state the budget checks the first ones and says so
+   * (`Budget.coverage`, budgetWork.ts). Without it every state is checked.
+   */
+  readonly timeLimitMs?: number;
+}
+
+/**
+ * Which states a budget checked, where its time limit's work did not cover
+ * every one: S0 to S<checked - 1>. Every figure of the budget is of those
+ * states alone.
+ */
+export interface BudgetCoverage {
+  /** States checked, from S0. */
+  readonly checked: number;
+  /** The counter's states. */
+  readonly states: number;
+  /** The time limit the check was planned for, milliseconds. */
+  readonly timeLimitMs: number;
 }
 
 /** A transistor's operating point, an NPN's as Vbe, Vce and the currents in; a PNP's as Veb, Vec and the currents out. */
@@ -425,6 +445,14 @@ export type BudgetWarning =
       readonly otherSpreadPct: number;
     }
   | {
+      readonly level: "warn";
+      readonly code: "states-unchecked";
+      /** States checked, from S0. */
+      readonly checked: number;
+      readonly states: number;
+      readonly timeLimitMs: number;
+    }
+  | {
       readonly level: "info";
       readonly code: "counter-sag";
       readonly line: string;
@@ -516,5 +544,7 @@ export interface Budget {
   readonly unlit: UnlitBudget;
   /** The dark-decoded outputs' network and ghost check; null when every output is decoded lit. */
   readonly dark: DarkBudget | null;
+  /** Present only where the time limit's work did not cover every state: which ones were checked. */
+  readonly coverage?: BudgetCoverage;
   readonly warnings: readonly BudgetWarning[];
 }

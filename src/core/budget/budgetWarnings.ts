@@ -41,6 +41,10 @@ export function budgetWarnings(
       c.code === "hazardous-voltage" ? { level: "danger", code: c.code, supplyV: Math.max(...volts) } : { level: "danger", code: c.code },
     );
   }
+  if (b.coverage !== undefined) {
+    const { checked, states, timeLimitMs } = b.coverage;
+    w.push({ level: "warn", code: "states-unchecked", checked, states, timeLimitMs });
+  }
   for (const [ref, d] of Object.entries(b.diodes)) {
     if (d.maxCurrentA > d.ratedCurrentA) {
       w.push({

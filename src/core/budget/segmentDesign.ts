@@ -200,6 +200,8 @@ export interface DesignOptions {
   readonly deadlineMs?: number;
   /** Scratch space of the solves, shared with the caller's other sweeps. */
   readonly workspace?: DcWorkspace;
+  /** How many states each sweep solves, from S0 (default: every one; see `SweepOptions.states`). */
+  readonly states?: number;
 }
 
 /** Most steps towards the middle the rule tries before it calls a trim spread-widening. */
@@ -247,7 +249,7 @@ export function settleDesign(
   const role = currentRole(e.driver.kind);
   const workspace = options.workspace ?? new DcWorkspace();
   const sweep = (model: ElectricalModel, during: string, design?: ReadonlyMap<string, number>): Result<SweepReading, BudgetFailure> =>
-    readSweep(spec, matrix, model, during, { design, deadlineMs: options.deadlineMs, workspace });
+    readSweep(spec, matrix, model, during, { design, deadlineMs: options.deadlineMs, workspace, states: options.states });
   const nominal = sweep(e, "nominal");
   if (!nominal.ok) return nominal;
   const trim = trimSegments({
@@ -258,6 +260,7 @@ export function settleDesign(
     series: options.series,
     deadlineMs: options.deadlineMs,
     workspace,
+    states: options.states,
   });
   if (!trim.ok) return trim;
   const own = projectDesign(e, matrix, options).ohms;
@@ -325,7 +328,16 @@ export function settleDesign(
   const values = new Set(own.values());
   if (values.size === 1 && c.effect !== "improves") {
     const uniform = uniformCandidate(
-      { spec, matrix, model: e, nominal: nominal.value, series: options.series, deadlineMs: options.deadlineMs, workspace },
+      {
+        spec,
+        matrix,
+        model: e,
+        nominal: nominal.value,
+        series: options.series,
+        deadlineMs: options.deadlineMs,
+        workspace,
+        states: options.states,
+      },
       [...values][0] as number,
       driven,
     );
@@ -362,6 +374,7 @@ function uniformCandidate(
     readonly series: ESeriesName;
     readonly deadlineMs?: number;
     readonly workspace: DcWorkspace;
+    readonly states?: number;
   },
   common: number,
   outputs: readonly string[],
@@ -369,7 +382,7 @@ function uniformCandidate(
   const { spec, matrix, model, series } = input;
   const target = model.segment.targetA;
   const sweep = (design: ReadonlyMap<string, number>): Result<SweepReading, BudgetFailure> =>
-    readSweep(spec, matrix, model, "trim", { design, deadlineMs: input.deadlineMs, workspace: input.workspace });
+    readSweep(spec, matrix, model, "trim", { design, deadlineMs: input.deadlineMs, workspace: input.workspace, states: input.states });
   const middle = (sols: SweepReading): number => {
     const rs = [...currentRanges(spec, sols).values()];
     return rs.length === 0 ? 0 : (Math.min(...rs.map((r) => r.minA)) + Math.max(...rs.map((r) => r.maxA))) / 2;

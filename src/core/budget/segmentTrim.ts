@@ -126,6 +126,8 @@ export interface TrimInput {
   readonly deadlineMs?: number;
   /** Scratch space of the solves, shared with the caller's other sweeps. */
   readonly workspace?: DcWorkspace;
+  /** How many states each sweep solves, from S0 (default: every one; see `SweepOptions.states`). */
+  readonly states?: number;
 }
 
 /**
@@ -160,7 +162,12 @@ export function trimSegments(input: TrimInput): Result<SegmentTrim, BudgetFailur
   // Two rounds of I ~ 1/R scaling, the second on a fresh solve.
   const ideal0 = scaled(own, before, target);
   const sweep = (design: ReadonlyMap<string, number>): Result<Map<string, CurrentRange>, BudgetFailure> => {
-    const r = readSweep(spec, matrix, model, "trim", { design, deadlineMs: input.deadlineMs, workspace: input.workspace });
+    const r = readSweep(spec, matrix, model, "trim", {
+      design,
+      deadlineMs: input.deadlineMs,
+      workspace: input.workspace,
+      states: input.states,
+    });
     return r.ok ? ok(currentRanges(spec, r.value)) : r;
   };
   const round = sweep(ideal0);
@@ -181,7 +188,12 @@ export function trimSegments(input: TrimInput): Result<SegmentTrim, BudgetFailur
     const du = Math.abs(mid(ru.get(o) as CurrentRange) - target);
     chosen.set(o, dl <= du ? (lower.get(o) as number) : (upper.get(o) as number));
   }
-  const final = readSweep(spec, matrix, model, "trim", { design: chosen, deadlineMs: input.deadlineMs, workspace: input.workspace });
+  const final = readSweep(spec, matrix, model, "trim", {
+    design: chosen,
+    deadlineMs: input.deadlineMs,
+    workspace: input.workspace,
+    states: input.states,
+  });
   if (!final.ok) return final;
   const after = currentRanges(spec, final.value);
   const trimmed: Record<string, TrimmedOutput> = {};

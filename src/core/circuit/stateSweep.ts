@@ -36,6 +36,12 @@ export interface SweepOptions {
   readonly deadlineMs?: number;
   /** Scratch space for the solves, shared by a caller's sweeps one after another. */
   readonly workspace?: DcWorkspace;
+  /**
+   * How many states to solve, from S0 (default: every one): a budget whose
+   * time limit's work cannot check every state checks the first ones
+   * (budget/budgetWork.ts). The circuits are the whole matrix's all the same.
+   */
+  readonly states?: number;
 }
 
 /**
@@ -59,7 +65,8 @@ export function sweepStates(
   const deadlineMs = options.deadlineMs ?? Infinity;
   const workspace = options.workspace ?? new DcWorkspace();
   const frame = circuitFrame(spec, matrix, model, options.design);
-  for (let k = 0; k < matrix.states.length; k++) {
+  const count = Math.min(matrix.states.length, options.states ?? Infinity);
+  for (let k = 0; k < count; k++) {
     if (Date.now() > deadlineMs) return fail(timeRanOut(matrix, k, during));
     const circuit = stateCircuit(frame, k);
     const op = solveDc(circuit, circuit.guess, { ...DEFAULT_DC_SETTINGS, deadlineMs }, workspace);
