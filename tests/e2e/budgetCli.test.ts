@@ -3,7 +3,7 @@
  * the exported netlist run unchanged through ngspice.
  */
 import { execFile, execFileSync } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
@@ -45,6 +45,32 @@ describe("diodeloom budget", () => {
     expect(warnings.every((w) => w.message.length > 0)).toBe(true);
     const states = b["states"] as { state: string; outputs: Record<string, { segmentA: number }> }[];
     expect(states.map((s) => s.state)).toEqual(states.map((_, k) => `S${k}`));
+  });
+
+  // Every file the New menu offers, the instrument too: a demo shows a design that meets its own target, the first thing its budget says.
+  const shipped = readdirSync(join(ROOT, "public/examples"))
+    .filter((f) => f.endsWith(".json"))
+    .sort();
+  it.each(shipped)("shows a design that meets its own target at both corners: %s, as a user runs its budget", async (file) => {
+    expect(shipped.length).toBeGreaterThanOrEqual(6);
+    const r = await run(["budget", `public/examples/${file}`, "--json"]);
+    expect(r.stderr).toBe("");
+    expect(r.code).toBe(0);
+    type Corners = {
+      targetA: number;
+      corners: { windowPct: number; meetsTarget: boolean; shortOf: string[]; low: { minCurrentA: number }; high: { maxCurrentA: number } };
+    };
+    const b = JSON.parse(r.stdout) as Corners & { decoders?: Record<string, Corners> };
+    const budgets = b.decoders === undefined ? [b] : Object.values(b.decoders);
+    expect(budgets.length).toBeGreaterThan(0);
+    for (const d of budgets) {
+      expect(d.corners.shortOf, file).toEqual([]);
+      expect(d.corners.meetsTarget).toBe(true);
+      // The verdict's own figures: the weakest segment at the low corner and the strongest at the high one inside target ± window.
+      const w = d.corners.windowPct / 100;
+      expect(d.corners.low.minCurrentA).toBeGreaterThanOrEqual(d.targetA * (1 - w));
+      expect(d.corners.high.maxCurrentA).toBeLessThanOrEqual(d.targetA * (1 + w));
+    }
   });
 
   it("budgets the quiz scoreboard's PNP high-side switches on its active-low lines: every lit segment in the window, every unlit one dark, each nS line within its rating", async () => {
