@@ -56,5 +56,9 @@ scope.onmessage = async (event: MessageEvent<AnalysisRequest>) => {
       result: ok(layoutMatrix(project, spec, checked.value, drawingOptions(project, req.drawing), req.darkValues)),
     });
   }
-  post({ id: req.id, job: "budget", result: solveBudget(project, spec, checked.value, { trim: req.trim }) });
+  post({
+    id: req.id,
+    job: "budget",
+    result: solveBudget(project, spec, checked.value, { trim: req.trim, timeLimitMs: project.synthesis.timeLimitMs }),
+  });
 };

@@ -27,7 +27,10 @@ function papers(req: PapersRequest): PapersReply {
     const checked = verifyMatrix(spec, req.matrices[i] as DiodeMatrix, synthSettings(d.project));
     if (!checked.ok) return { ok: false, message: `${d.name}: the matrix failed verification: ${checked.error.join("; ")}` };
     const matrix = withRefPrefix(checked.value, decoderRefPrefix(i, n));
-    const budget: DecoderPapers["budget"] = solveBudget(d.project, spec, matrix, { trim: req.trim });
+    const budget: DecoderPapers["budget"] = solveBudget(d.project, spec, matrix, {
+      trim: req.trim,
+      timeLimitMs: d.project.synthesis.timeLimitMs,
+    });
     const drawing = layoutMatrix(
       d.project,
       spec,

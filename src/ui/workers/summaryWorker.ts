@@ -47,7 +47,7 @@ async function decoderJob(id: number, data: unknown, trim: Extract<SummaryReques
   const m = await synthesize(spec, synthSettings(project), { loadHighs });
   if (!m.ok) return post({ id, type: "failed", message: m.error.message });
   const matrix = m.value;
-  const budget: DecoderFigures["budget"] = solveBudget(project, spec, matrix, { trim });
+  const budget: DecoderFigures["budget"] = solveBudget(project, spec, matrix, { trim, timeLimitMs: project.synthesis.timeLimitMs });
   const design = paperDesign({ project, matrix, budget });
   const groups = countParts(designators(spec, matrix, designModel(project.electrical, design), design.ohms));
   const count = (test: (kind: string) => boolean) => groups.filter((g) => test(g.kind)).reduce((n, g) => n + g.refs.length, 0);
