@@ -12,10 +12,10 @@ import { workBudget } from "../../../../src/core/synth/workBudget.ts";
 import { litRows, specFromLit } from "../../../support/litSpec.ts";
 import { bruteMinimum } from "../../../support/bruteMinimum.ts";
 import { showing } from "../../../support/projects.ts";
+import { twoDigitProblem } from "../../../support/twoDigits.ts";
 
 const POLICIES: readonly DepthPolicy[] = ["mixed", "per-segment", "uniform"];
 const rulesOf = (policy: DepthPolicy) => ({ depthLimit: 2, policy, buses: true, links: true }) as const;
-const pad2 = (k: number): string => String(k).padStart(2, "0");
 const SEED = 20261203;
 
 /** A random lit matrix of up to `n` rows and `m` outputs, about `k` cells lit in every `of`. */
@@ -122,23 +122,12 @@ describe("lagrangeBound", () => {
   });
 
   it("finds the swap of positions on 00-99 (row 37 onto row 73) and none on 00-59", () => {
-    const problem = (last: number) =>
-      reduceRows(
-        sharingProblem(
-          compileSpec(
-            showing(
-              Array.from({ length: last + 1 }, (_, k) => pad2(k)),
-              2,
-            ),
-          ),
-        ),
-      ).problem;
-    const p99 = problem(99);
+    const p99 = twoDigitProblem(99);
     const swap = positionSwap(p99);
     expect(swap).not.toBeNull();
     expect(swap?.row[37]).toBe(73);
     expect(swap?.row[55]).toBe(55);
-    expect(positionSwap(problem(59))).toBeNull();
+    expect(positionSwap(twoDigitProblem(59))).toBeNull();
   });
 
   it("takes a merged row's weight: a digit standing for 10 states (0-9 merged, optimum 149 proven in refine.test.ts)", () => {
@@ -154,16 +143,7 @@ describe("lagrangeBound", () => {
   });
 
   it("bounds 00-59 (14 outputs) well above the trivial bound, at most the heuristic's count, the same every run", () => {
-    const p = reduceRows(
-      sharingProblem(
-        compileSpec(
-          showing(
-            Array.from({ length: 60 }, (_, k) => pad2(k)),
-            2,
-          ),
-        ),
-      ),
-    ).problem;
+    const p = twoDigitProblem(59);
     const rules = rulesOf("per-segment");
     const upper = planCount(heuristicPlan(p, rules));
     const a = lagrangeBound(p, rules, { maxWork: 2e8, upper });
@@ -176,16 +156,7 @@ describe("lagrangeBound", () => {
   });
 
   it("holds the link rule exactly in each row (stars): 00-23 mixed reaches 81 at 2e8 work, at most the best count known (85)", () => {
-    const p = reduceRows(
-      sharingProblem(
-        compileSpec(
-          showing(
-            Array.from({ length: 24 }, (_, k) => pad2(k)),
-            2,
-          ),
-        ),
-      ),
-    ).problem;
+    const p = twoDigitProblem(23);
     const b = lagrangeBound(p, rulesOf("mixed"), { maxWork: 2e8, upper: 85 });
     // With a multiplier per row and link for the rule instead, the same work gave 79 (the
     // multipliers tune along with the shares); the best bound known is 83 (issue 16).
@@ -194,16 +165,7 @@ describe("lagrangeBound", () => {
   });
 
   it("halves its step as the budget allows: 00-23 at the 10 s budgets reaches the best bounds known (83 mixed, 87 uniform, issue 16) where halving after 8 rounds stopped at 82 and 86", () => {
-    const p = reduceRows(
-      sharingProblem(
-        compileSpec(
-          showing(
-            Array.from({ length: 24 }, (_, k) => pad2(k)),
-            2,
-          ),
-        ),
-      ),
-    ).problem;
+    const p = twoDigitProblem(23);
     const maxWork = workBudget(10_000).lagrangeWork;
     // 85 and 91: the best counts known (issue 16; the heuristic's, bench/synthBench.ts). Budgets only, no clock.
     for (const [policy, upper, fast, scaled] of [

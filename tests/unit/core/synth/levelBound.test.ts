@@ -12,6 +12,7 @@ import { searchPlan } from "../../../../src/core/synth/search.ts";
 import { workBudget } from "../../../../src/core/synth/workBudget.ts";
 import { bruteMinimum } from "../../../support/bruteMinimum.ts";
 import { showing } from "../../../support/projects.ts";
+import { twoDigitProblem } from "../../../support/twoDigits.ts";
 
 const rulesOf = (policy: DepthPolicy) => ({ depthLimit: 2, policy, buses: true, links: true }) as const;
 const SEED = 20261203;
@@ -89,16 +90,7 @@ describe("levelBound (per-segment: the Lagrangian bound branched on the outputs'
   });
 
   it("raises 00-23 per-segment from 83 to 84 within the exact stage's budgets at 10 s (the best known matrix has 89)", () => {
-    const p = reduceRows(
-      sharingProblem(
-        compileSpec(
-          showing(
-            Array.from({ length: 24 }, (_, k) => String(k).padStart(2, "0")),
-            2,
-          ),
-        ),
-      ),
-    ).problem;
+    const p = twoDigitProblem(23);
     const budget = workBudget(10_000);
     const rules = rulesOf("per-segment");
     // 89: the heuristic's count on this case (bench/synthBench.ts); budgets only, no clock: the same figures on any machine.
@@ -113,16 +105,7 @@ describe("levelBound (per-segment: the Lagrangian bound branched on the outputs'
   });
 
   it("gives 00-59 per-segment 186 at the 30 s budgets: its root cannot level off, so it halves its step as the budget allows (185 after 8 rounds)", () => {
-    const p = reduceRows(
-      sharingProblem(
-        compileSpec(
-          showing(
-            Array.from({ length: 60 }, (_, k) => String(k).padStart(2, "0")),
-            2,
-          ),
-        ),
-      ),
-    ).problem;
+    const p = twoDigitProblem(59);
     const budget = workBudget(30_000);
     // 195: the best count known (issue 16; the heuristic's, bench/synthBench.ts). Budgets only, no clock.
     const level = levelBound(p, rulesOf("per-segment"), { maxWork: budget.lagrangeWork, upper: 195 }, budget.levelWork);
