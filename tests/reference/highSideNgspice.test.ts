@@ -25,10 +25,6 @@
  * it describes: the supply, the line pull-up, Rbe, the PNP, Rb, one diode to
  * a stiff idle line.
  */
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { budgetDesign, solveBudget } from "../../src/core/budget/budget.ts";
 import { cornerConditions, cornerModel } from "../../src/core/budget/corners.ts";
@@ -41,23 +37,13 @@ import { electricalOf } from "../../src/core/project/electricalSchema.ts";
 import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
 import { highSideHold } from "../../src/core/spec/highSideHold.ts";
 import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
+import { ngspiceOpRunner } from "../support/ngspiceOp.ts";
 import { makeProject2 } from "../support/projects.ts";
 
 const REL = 0.005;
 const FLOOR_A = 1e-9;
 const FLOOR_V = 1e-3;
-const dir = mkdtempSync(join(tmpdir(), "diodeloom-high-side-ngspice-"));
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-function runNgspice(deck: string, probes: readonly string[], file: string): Map<string, number> {
-  const control = [".options reltol=1e-6 vntol=1e-9 abstol=1e-15", ".control", "op", "print all", `print ${probes.join(" ")}`, ".endc"];
-  const path = join(dir, file);
-  writeFileSync(path, deck.replace(/^\.end$/m, [...control, ".end"].join("\n")));
-  const out = execFileSync("ngspice", ["-b", path], { encoding: "utf8", stdio: ["ignore", "pipe", "pipe"] });
-  const values = new Map<string, number>();
-  for (const m of out.matchAll(/^\s*(\S+) = (\S+)\s*$/gm)) values.set((m[1] as string).toLowerCase(), Number(m[2]));
-  return values;
-}
+const runNgspice = ngspiceOpRunner("high-side-ngspice");
 
 /** The largest relative deviation above the floors, over every comparison of the file (reported at the end). */
 let worstRel = 0;

@@ -17,11 +17,7 @@
  *   unlit and the smallest lit segment of a dark-decoded output, what the
  *   active-low line sinks) agree with ngspice's currents.
  */
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { budgetDesign, solveBudget } from "../../src/core/budget/budget.ts";
 import { cornerConditions, cornerModel } from "../../src/core/budget/corners.ts";
 import { designModel } from "../../src/core/budget/segmentDesign.ts";
@@ -33,23 +29,13 @@ import { darkOutputs } from "../../src/core/matrix/matrix.ts";
 import { circuitNetlist, spiceNetlist } from "../../src/core/papers/netlist.ts";
 import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
+import { ngspiceOpRunner } from "../support/ngspiceOp.ts";
 import { makeProject2 } from "../support/projects.ts";
 
 const REL = 0.005;
 const FLOOR_A = 1e-9;
 const FLOOR_V = 1e-3;
-const dir = mkdtempSync(join(tmpdir(), "diodeloom-polarity-ngspice-"));
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-function runNgspice(deck: string, probes: readonly string[], file: string): Map<string, number> {
-  const control = [".options reltol=1e-6 vntol=1e-9 abstol=1e-15", ".control", "op", "print all", `print ${probes.join(" ")}`, ".endc"];
-  const path = join(dir, file);
-  writeFileSync(path, deck.replace(/^\.end$/m, [...control, ".end"].join("\n")));
-  const out = execFileSync("ngspice", ["-b", path], { encoding: "utf8", stdio: ["ignore", "pipe", "pipe"] });
-  const values = new Map<string, number>();
-  for (const m of out.matchAll(/^\s*(\S+) = (\S+)\s*$/gm)) values.set((m[1] as string).toLowerCase(), Number(m[2]));
-  return values;
-}
+const runNgspice = ngspiceOpRunner("polarity-ngspice");
 
 function agree(a: number, b: number, floor: number, what: string): void {
   const diff = Math.abs(a - b);

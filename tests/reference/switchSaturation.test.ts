@@ -25,11 +25,7 @@
  * exactly when its base-collector junction is forward-biased in every
  * state that lights it.
  */
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { budgetDesign, solveBudget } from "../../src/core/budget/budget.ts";
 import { cornerConditions, cornerModel } from "../../src/core/budget/corners.ts";
 import { designModel } from "../../src/core/budget/segmentDesign.ts";
@@ -38,20 +34,10 @@ import { isLit } from "../../src/core/circuit/stateSweep.ts";
 import { circuitNetlist } from "../../src/core/papers/netlist.ts";
 import { compileSpec } from "../../src/core/spec/decodeSpec.ts";
 import { synthesize, synthSettings } from "../../src/core/synth/synthesize.ts";
+import { ngspiceOpRunner } from "../support/ngspiceOp.ts";
 import { makeProject2 } from "../support/projects.ts";
 
-const dir = mkdtempSync(join(tmpdir(), "diodeloom-saturation-"));
-afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-function runNgspice(deck: string, probes: readonly string[], file: string): Map<string, number> {
-  const control = [".options reltol=1e-6 vntol=1e-9 abstol=1e-15", ".control", "op", "print all", `print ${probes.join(" ")}`, ".endc"];
-  const path = join(dir, file);
-  writeFileSync(path, deck.replace(/^\.end$/m, [...control, ".end"].join("\n")));
-  const out = execFileSync("ngspice", ["-b", path], { encoding: "utf8", stdio: ["ignore", "pipe", "pipe"] });
-  const values = new Map<string, number>();
-  for (const m of out.matchAll(/^\s*(\S+) = (\S+)\s*$/gm)) values.set((m[1] as string).toLowerCase(), Number(m[2]));
-  return values;
-}
+const runNgspice = ngspiceOpRunner("saturation");
 
 async function panel(seriesOhms: number, baseOhms: number) {
   const project = makeProject2({
