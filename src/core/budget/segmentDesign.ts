@@ -50,6 +50,7 @@ import {
   windowDistancePct,
   type CurrentRange,
   type SegmentTrim,
+  type TrimInput,
 } from "./segmentTrim.ts";
 
 /** `auto`: the trim where the rule allows it; `off`: the project's values; `on`: the trim regardless (never over the rating). */
@@ -252,7 +253,7 @@ export function settleDesign(
     readSweep(spec, matrix, model, during, { design, deadlineMs: options.deadlineMs, workspace, states: options.states });
   const nominal = sweep(e, "nominal");
   if (!nominal.ok) return nominal;
-  const trim = trimSegments({
+  const trimInput = {
     spec,
     matrix,
     model: e,
@@ -261,7 +262,8 @@ export function settleDesign(
     deadlineMs: options.deadlineMs,
     workspace,
     states: options.states,
-  });
+  };
+  const trim = trimSegments(trimInput);
   if (!trim.ok) return trim;
   const own = projectDesign(e, matrix, options).ohms;
   const driven = [...own.keys()];
@@ -327,20 +329,7 @@ export function settleDesign(
   candidates.push(c);
   const values = new Set(own.values());
   if (values.size === 1 && c.effect !== "improves") {
-    const uniform = uniformCandidate(
-      {
-        spec,
-        matrix,
-        model: e,
-        nominal: nominal.value,
-        series: options.series,
-        deadlineMs: options.deadlineMs,
-        workspace,
-        states: options.states,
-      },
-      [...values][0] as number,
-      driven,
-    );
+    const uniform = uniformCandidate(trimInput, [...values][0] as number, driven);
     if (!uniform.ok) return uniform;
     if (uniform.value !== null) {
       const u = judge(uniform.value.values, uniform.value.solutions);
@@ -366,16 +355,7 @@ export function settleDesign(
  * null when that is the project's own value.
  */
 function uniformCandidate(
-  input: {
-    readonly spec: DecodeSpec;
-    readonly matrix: DiodeMatrix;
-    readonly model: ElectricalModel;
-    readonly nominal: SweepReading;
-    readonly series: ESeriesName;
-    readonly deadlineMs?: number;
-    readonly workspace: DcWorkspace;
-    readonly states?: number;
-  },
+  input: TrimInput & { readonly workspace: DcWorkspace },
   common: number,
   outputs: readonly string[],
 ): Result<{ readonly values: Map<string, number>; readonly solutions: SweepReading } | null, BudgetFailure> {
